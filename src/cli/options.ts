@@ -101,10 +101,11 @@ export function loadCar(values: CarOptionValues): { car: Car; ambient: Ambient }
 }
 
 /** Input files a command reads, so an --out that names one of them can be refused. */
-export function inputFilesOf(values: Partial<TrackOptionValues & CarOptionValues> & Record<string, unknown>): string[] {
+export function inputFilesOf(values: object): string[] {
   const files: string[] = [];
+  const record = values as Record<string, unknown>;
   for (const key of ['track', 'car', 'telemetry', 'line', 'envelope']) {
-    const value = values[key];
+    const value = record[key];
     if (typeof value === 'string' && value !== 'auto') files.push(value);
   }
   return files;

@@ -49,3 +49,72 @@ export interface TelemetrySession {
   /** Messages for the user (skipped sentences, guessed units), one line each. */
   notes: string[];
 }
+
+/** A stretch of the lap where the driver's grip use departs from the reference's. */
+export interface GripStretch {
+  startM: number;
+  endM: number;
+  kind: 'unused' | 'exceeded';
+  /** Mean grip use of the driver over the stretch (1 = on the envelope). */
+  meanGripUse: number;
+}
+
+/** One corner, found from the curvature, with the driver's numbers against the reference's. */
+export interface CornerComparison {
+  /** Running number from the start line, 1-based. */
+  id: number;
+  name: string | null;
+  entryM: number;
+  apexM: number;
+  exitM: number;
+  /** Driver's braking point minus the reference's, m (negative = the driver brakes earlier); null when neither brakes. */
+  brakingPointDeltaM: number | null;
+  /** The same difference as time at the reference's speed there, s. */
+  brakingPointDeltaS: number | null;
+  referenceBrakingPointM: number | null;
+  driverBrakingPointM: number | null;
+  entrySpeedDriverKph: number;
+  entrySpeedReferenceKph: number;
+  minSpeedDriverKph: number;
+  minSpeedReferenceKph: number;
+  /** Driver minus reference, km/h. */
+  minSpeedDeltaKph: number;
+  /** Where the driver's slowest point falls relative to the apex, m (positive = after the apex). */
+  minSpeedOffsetFromApexM: number;
+  exitSpeedDriverKph: number;
+  exitSpeedReferenceKph: number;
+  /** Time lost (positive) or gained (negative) against the reference in each phase and in all, s. */
+  entryTimeLostS: number;
+  middleTimeLostS: number;
+  exitTimeLostS: number;
+  timeLostS: number;
+  /** Time with neither throttle nor brake above 5 %, s (null without pedal channels). */
+  coastingS: number | null;
+  meanGripUse: number;
+  peakGripUse: number;
+  stretches: GripStretch[];
+}
+
+export interface Finding {
+  /** Corner id, or null for a finding about the whole lap. */
+  corner: number | null;
+  /** Estimated time at stake, s. */
+  timeS: number;
+  text: string;
+}
+
+export interface ComparisonResult {
+  trackName: string;
+  carName: string;
+  driverLapTimeS: number;
+  referenceLapTimeS: number;
+  /** Lap time against the reference on the driver's demonstrated envelope, when one was fitted or given. */
+  demonstratedLapTimeS: number | null;
+  /** Driver minus reference time at each station, s (on the track grid). */
+  deltaS: Float64Array;
+  /** Driver's grip use at each station, over the envelope the reference uses. */
+  driverGripUse: Float64Array;
+  corners: CornerComparison[];
+  findings: Finding[];
+  notes: string[];
+}

@@ -1,0 +1,17 @@
+// `npm run bench`: runs every benchmark module in turn and prints its figures. Benchmarks, not timed tests.
+
+interface BenchModule {
+  run(): Promise<void>;
+}
+
+const modules: [string, () => Promise<BenchModule>][] = [
+  ['simulate', () => import('./simulate.bench.js')],
+];
+
+const only = process.argv.slice(2);
+for (const [name, load] of modules) {
+  if (only.length > 0 && !only.includes(name)) continue;
+  process.stdout.write(`\n== ${name} ==\n`);
+  const module = await load();
+  await module.run();
+}

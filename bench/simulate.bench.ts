@@ -1,0 +1,49 @@
+// Benchmark of the core solver: one lap of a 5 km circuit at 1 m and 0.25 m step, median of 20 runs after warm-up.
+
+import { readFileSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+import { trackFromSegments, type TrackSegment } from '../src/track/segments.js';
+import { parseCarJson } from '../src/io/read-car.js';
+import { simulate } from '../src/solve/simulate.js';
+import { buildEnvelope } from '../src/car/build-envelope.js';
+import { ambientFrom } from '../src/car/ambient.js';
+import { medianTimeMs, peakRssMb } from './stats.js';
+
+const projectRoot = fileURLToPath(new URL('../..', import.meta.url));
+
+/** A closed circuit of about 5 km that closes by construction: two equal straights, each with the same S-bend
+ * (its sideways shifts cancel), a 180-degree hairpin at one end and a 90-straight-90 bend at the other. */
+export function benchmarkCircuitSegments(): TrackSegment[] {
+  const straight = (lengthM: number): TrackSegment => ({ kind: 'straight', lengthM });
+  const sBend: TrackSegment[] = [
+    { kind: 'arc', radiusM: 120, angleDeg: -40 },
+    { kind: 'arc', radiusM: 120, angleDeg: 40 },
+  ];
+  return [
+    straight(1450), ...sBend, straight(720),
+    { kind: 'arc', radiusM: 60, angleDeg: 180 },
+    straight(1450), ...sBend, straight(720),
+    { kind: 'arc', radiusM: 30, angleDeg: 90 }, straight(60), { kind: 'arc', radiusM: 30, angleDeg: 90 },
+  ];
+}
+
+export async function run(): Promise<void> {
+  const car = parseCarJson(readFileSync(`${projectRoot}cars/tarnfell-gt.json`, 'utf8'), 'cars/tarnfell-gt.json');
+  const ambient = ambientFrom();
+  const envelope = buildEnvelope(car, ambient);
+  const perPointNs: number[] = [];
+  for (const stepM of [1, 0.25]) {
+    const track = trackFromSegments({ name: 'benchmark circuit', closed: true, widthM: 12, segments: benchmarkCircuitSegments() }, stepM, 'benchmark');
+    let lapTimeS = 0;
+    const ms = medianTimeMs(() => {
+      lapTimeS = simulate(track, car, { ambient, envelope }).lapTimeS;
+    }, 20, 5);
+    perPointNs.push((ms * 1e6) / track.distanceM.length);
+    process.stdout.write(
+      `simulate: ${(track.lengthM / 1000).toFixed(2)} km at ${stepM} m step (${track.distanceM.length} points): median ${ms.toFixed(2)} ms per lap` +
+        `${stepM === 1 ? ' (target < 5 ms)' : ''}; lap ${lapTimeS.toFixed(3)} s\n`,
+    );
+  }
+  process.stdout.write(`cost per point: ${perPointNs.map((ns) => ns.toFixed(0)).join(' ns and ')} ns (linear cost: about equal)\n`);
+  process.stdout.write(`peak RSS ${peakRssMb().toFixed(0)} MB\n`);
+}

@@ -1,0 +1,68 @@
+// Tractive force the powertrain can deliver at each road speed: the power limit P / v, or, where the car file
+// gives a torque curve and gears, the best gear's wheel force T(rpm) i_gear i_final eta / r_wheel, capped by P / v.
+
+import type { Car } from './types.js';
+
+export interface DriveForceTable {
+  /** Tractive force at the wheels, N, before the tyre limit, at this road speed. */
+  forceN(speedMps: number): number;
+  /** Gear (1-based) that gives that force, 0 where the car has no gears. */
+  gearAt(speedMps: number): number;
+}
+
+const TABLE_STEP_MPS = 0.1;
+const TABLE_TOP_MPS = 160;
+
+function torqueAt(rpmValues: number[], torqueValues: number[], rpm: number): number {
+  const last = rpmValues.length - 1;
+  if (rpm <= rpmValues[0]!) return torqueValues[0]!;
+  if (rpm >= rpmValues[last]!) return torqueValues[last]!;
+  let hi = 1;
+  while (rpmValues[hi]! < rpm) hi++;
+  const lo = hi - 1;
+  const share = (rpm - rpmValues[lo]!) / (rpmValues[hi]! - rpmValues[lo]!);
+  return torqueValues[lo]! + share * (torqueValues[hi]! - torqueValues[lo]!);
+}
+
+export function driveForceTable(car: Car, powerFactor: number): DriveForceTable {
+  const powerW = car.powertrain.maxPowerW * powerFactor;
+  const gearing = car.powertrain.gearing;
+  // Below walking pace P / v is unbounded; the tyre limit caps it in the envelope, but keep it finite here.
+  const powerForce = (speedMps: number) => powerW / Math.max(speedMps, 1);
+  if (!gearing) {
+    return { forceN: powerForce, gearAt: () => 0 };
+  }
+  const count = Math.round(TABLE_TOP_MPS / TABLE_STEP_MPS) + 1;
+  const force = new Float64Array(count);
+  const gear = new Int8Array(count);
+  const radPerSToRpm = 60 / (2 * Math.PI);
+  for (let k = 0; k < count; k++) {
+    const speedMps = k * TABLE_STEP_MPS;
+    let best = 0;
+    let bestGear = 0;
+    for (let g = 0; g < gearing.gearRatios.length; g++) {
+      const ratio = gearing.gearRatios[g]! * gearing.finalDrive;
+      const rpm = (speedMps / gearing.wheelRadiusM) * ratio * radPerSToRpm;
+      if (rpm > gearing.maxRpm) continue;
+      const wheelForce = (torqueAt(gearing.torqueCurve.rpm, gearing.torqueCurve.torqueNm, rpm) * ratio * gearing.drivetrainEfficiency) / gearing.wheelRadiusM;
+      if (wheelForce > best) {
+        best = wheelForce;
+        bestGear = g + 1;
+      }
+    }
+    force[k] = Math.min(best * powerFactor, powerForce(speedMps));
+    gear[k] = bestGear;
+  }
+  return {
+    forceN(speedMps) {
+      const position = Math.min(Math.max(speedMps, 0), TABLE_TOP_MPS) / TABLE_STEP_MPS;
+      const lo = Math.min(Math.floor(position), count - 2);
+      const share = position - lo;
+      return force[lo]! + share * (force[lo + 1]! - force[lo]!);
+    },
+    gearAt(speedMps) {
+      const k = Math.round(Math.min(Math.max(speedMps, 0), TABLE_TOP_MPS) / TABLE_STEP_MPS);
+      return gear[k]!;
+    },
+  };
+}

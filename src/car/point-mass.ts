@@ -1,0 +1,107 @@
+// Point-mass g-g-v envelope (Brayshaw and Harrison, Proc. IMechE Part D 219 (2005)): normal load m g plus
+// downforce 1/2 rho ClA v^2, lateral capacity muLat N, longitudinal capacity muLong on the driven axle's load when
+// accelerating and on all wheels when braking, the power limit, drag and rolling resistance, and the two combined
+// by the friction ellipse |ax/axMax|^n + |ay/ayMax|^n = 1 with n = tyre.ggExponent.
+
+import type { Ambient, Car } from './types.js';
+import type { Envelope } from './envelope.js';
+import { driveForceTable } from './drive-force.js';
+import { STANDARD_GRAVITY_MPS2 } from '../units.js';
+
+/** Mass the physics uses: the car with driver plus its fuel. */
+export const totalMassKg = (car: Car): number => car.massKg + car.fuel.massKg;
+
+/** Share of the tyre budget left for the other direction when `used` of it (0-1) is taken, on the super-ellipse. */
+export function remainingShare(used: number, exponent: number): number {
+  if (used >= 1) return 0;
+  if (used <= 0) return 1;
+  if (exponent === 2) return Math.sqrt(1 - used * used);
+  return Math.pow(1 - Math.pow(used, exponent), 1 / exponent);
+}
+
+/** Combined use of a super-ellipse budget by two shares. */
+export function combinedShare(longShare: number, latShare: number, exponent: number): number {
+  const a = Math.abs(longShare);
+  const b = Math.abs(latShare);
+  if (exponent === 2) return Math.sqrt(a * a + b * b);
+  return Math.pow(Math.pow(a, exponent) + Math.pow(b, exponent), 1 / exponent);
+}
+
+/** Friction coefficient under load: falls linearly with the load above the static load (tyre load sensitivity). */
+export function loadSensitiveMu(mu: number, loadN: number, staticLoadN: number, sensitivity: number): number {
+  if (sensitivity === 0) return mu;
+  return mu * Math.max(0.2, 1 - (sensitivity * (loadN - staticLoadN)) / staticLoadN);
+}
+
+/** Share of the normal load on the driven wheels at this downforce (static split plus aero balance). */
+function drivenLoadN(car: Car, weightN: number, downforceN: number): number {
+  if (car.powertrain.drive === 'all') return weightN + downforceN;
+  const frontAero = car.aero.frontDownforceFraction ?? car.frontWeightFraction;
+  const front = weightN * car.frontWeightFraction + downforceN * frontAero;
+  return car.powertrain.drive === 'front' ? front : weightN + downforceN - front;
+}
+
+/** Top speed where the net forward acceleration at zero lateral demand reaches zero, by bisection. */
+export function topSpeedOf(accelLimitMps2: (speedMps: number, lateralMps2: number) => number, ceilingMps = 250): number {
+  if (accelLimitMps2(ceilingMps, 0) > 0) return ceilingMps;
+  let lo = 0.5;
+  let hi = ceilingMps;
+  for (let k = 0; k < 60; k++) {
+    const mid = 0.5 * (lo + hi);
+    if (accelLimitMps2(mid, 0) > 0) lo = mid;
+    else hi = mid;
+  }
+  return lo;
+}
+
+export function pointMassEnvelope(car: Car, ambient: Ambient): Envelope {
+  const massKg = totalMassKg(car);
+  const weightN = massKg * STANDARD_GRAVITY_MPS2;
+  const halfRho = 0.5 * ambient.airDensityKgPerM3;
+  const exponent = car.tyre.ggExponent;
+  const sensitivity = car.tyre.loadSensitivity;
+  const brakeCapMps2 = car.brakes.maxDecelG === null ? Infinity : car.brakes.maxDecelG * STANDARD_GRAVITY_MPS2;
+  const drive = driveForceTable(car, ambient.powerFactor);
+
+  const normalLoadN = (speedMps: number) => Math.max(0.1 * weightN, weightN + halfRho * car.aero.liftAreaM2 * speedMps * speedMps);
+  const coastDecelMps2 = (speedMps: number) =>
+    (halfRho * car.aero.dragAreaM2 * speedMps * speedMps + car.rollingResistanceCoeff * normalLoadN(speedMps)) / massKg;
+  const lateralLimitMps2 = (speedMps: number) => {
+    const loadN = normalLoadN(speedMps);
+    return (loadSensitiveMu(car.tyre.muLat, loadN, weightN, sensitivity) * loadN) / massKg;
+  };
+  const tractionLimitMps2 = (speedMps: number) => {
+    const loadN = normalLoadN(speedMps);
+    const muLong = loadSensitiveMu(car.tyre.muLong, loadN, weightN, sensitivity);
+    return (muLong * drivenLoadN(car, weightN, loadN - weightN)) / massKg;
+  };
+  const tyreBrakeLimitMps2 = (speedMps: number) => {
+    const loadN = normalLoadN(speedMps);
+    return Math.min(brakeCapMps2, (loadSensitiveMu(car.tyre.muLong, loadN, weightN, sensitivity) * loadN) / massKg);
+  };
+  const driveLimitMps2 = (speedMps: number) => Math.min(tractionLimitMps2(speedMps), drive.forceN(speedMps) / massKg);
+
+  const accelLimitMps2 = (speedMps: number, lateralMps2: number) => {
+    const left = remainingShare(Math.abs(lateralMps2) / lateralLimitMps2(speedMps), exponent);
+    const tyre = tractionLimitMps2(speedMps) * left;
+    return Math.min(tyre, drive.forceN(speedMps) / massKg) - coastDecelMps2(speedMps);
+  };
+
+  return {
+    kind: 'point-mass',
+    topSpeedMps: topSpeedOf(accelLimitMps2),
+    lateralLimitMps2,
+    accelLimitMps2,
+    brakeLimitMps2(speedMps, lateralMps2) {
+      const left = remainingShare(Math.abs(lateralMps2) / lateralLimitMps2(speedMps), exponent);
+      return tyreBrakeLimitMps2(speedMps) * left + coastDecelMps2(speedMps);
+    },
+    coastDecelMps2,
+    gripUse(speedMps, axMps2, ayMps2) {
+      const tyreAx = axMps2 + coastDecelMps2(speedMps);
+      const longCap = tyreAx >= 0 ? driveLimitMps2(speedMps) : tyreBrakeLimitMps2(speedMps);
+      return combinedShare(tyreAx / longCap, ayMps2 / lateralLimitMps2(speedMps), exponent);
+    },
+    gearAt: drive.gearAt,
+  };
+}

@@ -1,0 +1,206 @@
+// Reads and validates a car file (JSON) into a Car record in SI units. The schema is strict: unknown keys are
+// errors that name them, so a typo in a field name cannot pass silently.
+
+import { readFileSync } from 'node:fs';
+import { z } from 'zod';
+import { InputError } from '../errors.js';
+import type { Car } from '../car/types.js';
+
+const positive = z.number().finite().positive();
+const nonNegative = z.number().finite().nonnegative();
+const fraction = z.number().finite().min(0).max(1);
+
+const torqueCurveSchema = z.strictObject({
+  rpm: z.array(positive).min(2),
+  torqueNm: z.array(nonNegative).min(2),
+});
+
+const carSchema = z.strictObject({
+  name: z.string().min(1).max(200).optional(),
+  model: z.enum(['point-mass', 'bicycle']).optional(),
+  massKg: positive,
+  frontWeightFraction: z.number().finite().gt(0).lt(1).optional(),
+  cgHeightM: nonNegative.optional(),
+  wheelbaseM: positive.optional(),
+  widthM: positive.optional(),
+  trackFrontM: positive.optional(),
+  trackRearM: positive.optional(),
+  rollStiffnessFrontFraction: fraction.optional(),
+  rollingResistanceCoeff: nonNegative.max(0.2).optional(),
+  tyre: z.strictObject({
+    muLong: positive.max(5),
+    muLat: positive.max(5),
+    ggExponent: z.number().finite().min(1).max(10).optional(),
+    loadSensitivity: nonNegative.max(1).optional(),
+    corneringStiffnessFrontNPerRad: positive.optional(),
+    corneringStiffnessRearNPerRad: positive.optional(),
+  }),
+  aero: z.strictObject({
+    dragAreaM2: nonNegative,
+    liftAreaM2: z.number().finite(),
+    frontDownforceFraction: fraction.optional(),
+  }),
+  powertrain: z.strictObject({
+    maxPowerW: positive,
+    drive: z.enum(['rear', 'front', 'all']).optional(),
+    torqueCurve: torqueCurveSchema.optional(),
+    gearRatios: z.array(positive).min(1).optional(),
+    finalDrive: positive.optional(),
+    wheelRadiusM: positive.optional(),
+    shiftTimeS: nonNegative.max(2).optional(),
+    drivetrainEfficiency: z.number().finite().gt(0).max(1).optional(),
+    maxRpm: positive.optional(),
+  }),
+  brakes: z
+    .strictObject({
+      maxDecelG: positive.optional(),
+      frontBias: fraction.optional(),
+    })
+    .optional(),
+  fuel: z
+    .strictObject({
+      massKg: nonNegative,
+      burnKgPerLap: nonNegative.optional(),
+    })
+    .optional(),
+});
+
+type CarFile = z.infer<typeof carSchema>;
+
+function describeIssue(issue: z.core.$ZodIssue): string {
+  const path = issue.path.map(String).join('.');
+  if (issue.code === 'unrecognized_keys') {
+    const keys = issue.keys.map((key) => (path ? `${path}.${key}` : key));
+    return `unknown field${keys.length > 1 ? 's' : ''} ${keys.join(', ')}`;
+  }
+  if (issue.code === 'invalid_type' && issue.input === undefined) return `missing required field ${path}`;
+  return `field ${path || '(top level)'}: ${issue.message}`;
+}
+
+function gearingOf(powertrain: CarFile['powertrain'], source: string): Car['powertrain']['gearing'] {
+  const { torqueCurve, gearRatios, finalDrive, wheelRadiusM } = powertrain;
+  const given = [torqueCurve, gearRatios, finalDrive, wheelRadiusM].filter((value) => value !== undefined).length;
+  if (given === 0) return null;
+  if (given < 4) {
+    const missing = [
+      ['powertrain.torqueCurve', torqueCurve],
+      ['powertrain.gearRatios', gearRatios],
+      ['powertrain.finalDrive', finalDrive],
+      ['powertrain.wheelRadiusM', wheelRadiusM],
+    ]
+      .filter(([, value]) => value === undefined)
+      .map(([name]) => name);
+    throw new InputError(`${source}: gearing needs ${missing.join(', ')} as well`);
+  }
+  const curve = torqueCurve!;
+  if (curve.rpm.length !== curve.torqueNm.length) {
+    throw new InputError(`${source}: field powertrain.torqueCurve: rpm has ${curve.rpm.length} values but torqueNm has ${curve.torqueNm.length}`);
+  }
+  for (let i = 1; i < curve.rpm.length; i++) {
+    if (!(curve.rpm[i]! > curve.rpm[i - 1]!)) throw new InputError(`${source}: field powertrain.torqueCurve.rpm.${i}: rpm must increase`);
+  }
+  return {
+    torqueCurve: { rpm: [...curve.rpm], torqueNm: [...curve.torqueNm] },
+    gearRatios: [...gearRatios!],
+    finalDrive: finalDrive!,
+    wheelRadiusM: wheelRadiusM!,
+    shiftTimeS: powertrain.shiftTimeS ?? 0,
+    drivetrainEfficiency: powertrain.drivetrainEfficiency ?? 0.9,
+    maxRpm: powertrain.maxRpm ?? curve.rpm[curve.rpm.length - 1]!,
+  };
+}
+
+function carFromFile(data: CarFile, source: string): Car {
+  return {
+    name: data.name ?? 'unnamed car',
+    model: data.model ?? 'point-mass',
+    massKg: data.massKg,
+    frontWeightFraction: data.frontWeightFraction ?? 0.5,
+    cgHeightM: data.cgHeightM ?? null,
+    wheelbaseM: data.wheelbaseM ?? null,
+    widthM: data.widthM ?? null,
+    trackFrontM: data.trackFrontM ?? null,
+    trackRearM: data.trackRearM ?? null,
+    rollStiffnessFrontFraction: data.rollStiffnessFrontFraction ?? null,
+    rollingResistanceCoeff: data.rollingResistanceCoeff ?? 0.012,
+    tyre: {
+      muLong: data.tyre.muLong,
+      muLat: data.tyre.muLat,
+      ggExponent: data.tyre.ggExponent ?? 2,
+      loadSensitivity: data.tyre.loadSensitivity ?? 0,
+      corneringStiffnessFrontNPerRad: data.tyre.corneringStiffnessFrontNPerRad ?? null,
+      corneringStiffnessRearNPerRad: data.tyre.corneringStiffnessRearNPerRad ?? null,
+    },
+    aero: {
+      dragAreaM2: data.aero.dragAreaM2,
+      liftAreaM2: data.aero.liftAreaM2,
+      frontDownforceFraction: data.aero.frontDownforceFraction ?? null,
+    },
+    powertrain: {
+      maxPowerW: data.powertrain.maxPowerW,
+      drive: data.powertrain.drive ?? 'rear',
+      gearing: gearingOf(data.powertrain, source),
+    },
+    brakes: {
+      maxDecelG: data.brakes?.maxDecelG ?? null,
+      frontBias: data.brakes?.frontBias ?? null,
+    },
+    fuel: {
+      massKg: data.fuel?.massKg ?? 0,
+      burnKgPerLap: data.fuel?.burnKgPerLap ?? 0,
+    },
+  };
+}
+
+/** Validates a parsed JSON value as a car; throws one InputError naming the file and the field. */
+export function carFromJson(value: unknown, source: string): Car {
+  const parsed = carSchema.safeParse(value);
+  if (!parsed.success) {
+    throw new InputError(`${source}: ${parsed.error.issues.map(describeIssue).join('; ')}`);
+  }
+  return carFromFile(parsed.data, source);
+}
+
+export function parseCarJson(text: string, source: string): Car {
+  let value: unknown;
+  try {
+    value = JSON.parse(text.replace(/^\uFEFF/, ''));
+  } catch (error) {
+    throw new InputError(`${source}: not valid JSON (${error instanceof Error ? error.message : String(error)})`);
+  }
+  return carFromJson(value, source);
+}
+
+export function readCarFile(file: string): Car {
+  let text: string;
+  try {
+    text = readFileSync(file, 'utf8');
+  } catch (error) {
+    const code = (error as NodeJS.ErrnoException).code;
+    throw new InputError(`${file}: cannot read the car file (${code === 'ENOENT' ? 'no such file' : (code ?? 'read error')})`);
+  }
+  return parseCarJson(text, file);
+}
+
+/** Checks a car record built or changed in code (a sweep, a what-if) against the same limits as a car file. */
+export function validateCar(car: Car, source: string): Car {
+  const problems: string[] = [];
+  const requirePositive = (value: number, field: string) => {
+    if (!(Number.isFinite(value) && value > 0)) problems.push(`field ${field} must be positive (got ${value})`);
+  };
+  const requireNonNegative = (value: number, field: string) => {
+    if (!(Number.isFinite(value) && value >= 0)) problems.push(`field ${field} must not be negative (got ${value})`);
+  };
+  requirePositive(car.massKg, 'massKg');
+  requirePositive(car.tyre.muLong, 'tyre.muLong');
+  requirePositive(car.tyre.muLat, 'tyre.muLat');
+  requirePositive(car.powertrain.maxPowerW, 'powertrain.maxPowerW');
+  requireNonNegative(car.aero.dragAreaM2, 'aero.dragAreaM2');
+  requireNonNegative(car.fuel.massKg, 'fuel.massKg');
+  requireNonNegative(car.rollingResistanceCoeff, 'rollingResistanceCoeff');
+  if (!Number.isFinite(car.aero.liftAreaM2)) problems.push(`field aero.liftAreaM2 must be a number (got ${car.aero.liftAreaM2})`);
+  if (!(car.frontWeightFraction > 0 && car.frontWeightFraction < 1)) problems.push(`field frontWeightFraction must be between 0 and 1 (got ${car.frontWeightFraction})`);
+  if (!(car.tyre.ggExponent >= 1)) problems.push(`field tyre.ggExponent must be at least 1 (got ${car.tyre.ggExponent})`);
+  if (problems.length > 0) throw new InputError(`${source}: ${problems.join('; ')}`);
+  return car;
+}

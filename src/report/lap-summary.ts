@@ -1,0 +1,60 @@
+// Plain-text and JSON summaries of a reference lap for the terminal.
+
+import type { LapResult } from '../solve/types.js';
+import { formatLapTime, mpsToKph } from '../units.js';
+import { formatTable } from './text-table.js';
+
+export const SAFETY_CAUTION =
+  'Caution: this reference lap is a model result, not a driving instruction. Driving at the limit is dangerous; ' +
+  "follow the circuit's rules and qualified instruction.";
+
+export function lapSummaryJson(result: LapResult, carName: string) {
+  return {
+    track: result.track.name,
+    car: carName,
+    envelope: result.envelopeKind,
+    closed: result.trace.closed,
+    lapTimeS: round(result.lapTimeS, 4),
+    lengthM: round(result.lengthM, 2),
+    stepM: round(result.track.stepM, 6),
+    maxSpeedMps: round(result.maxSpeedMps, 3),
+    minSpeedMps: round(result.minSpeedMps, 3),
+    brakingZones: result.brakingZones.map((zone) => ({
+      startM: round(zone.startM, 1),
+      entrySpeedMps: round(zone.entrySpeedMps, 3),
+      minSpeedAtM: round(zone.minSpeedAtM, 1),
+      minSpeedMps: round(zone.minSpeedMps, 3),
+      brakingLengthM: round(zone.brakingLengthM, 1),
+    })),
+  };
+}
+
+export function lapSummaryText(result: LapResult, carName: string): string {
+  const lines = [
+    `${result.track.name} · ${carName} · ${result.envelopeKind} envelope`,
+    `Lap time      ${formatLapTime(result.lapTimeS)}  (${result.lapTimeS.toFixed(3)} s over ${(result.lengthM / 1000).toFixed(3)} km)`,
+    `Top speed     ${mpsToKph(result.maxSpeedMps).toFixed(1)} km/h`,
+    `Lowest speed  ${mpsToKph(result.minSpeedMps).toFixed(1)} km/h`,
+    '',
+    `Braking zones (${result.brakingZones.length})`,
+    formatTable(
+      ['#', 'brake at m', 'entry km/h', 'slowest at m', 'slowest km/h', 'braking m'],
+      result.brakingZones.map((zone, index) => [
+        String(index + 1),
+        zone.startM.toFixed(0),
+        mpsToKph(zone.entrySpeedMps).toFixed(1),
+        zone.minSpeedAtM.toFixed(0),
+        mpsToKph(zone.minSpeedMps).toFixed(1),
+        zone.brakingLengthM.toFixed(0),
+      ]),
+    ),
+    '',
+    SAFETY_CAUTION,
+  ];
+  return lines.join('\n') + '\n';
+}
+
+export function round(value: number, digits: number): number {
+  const scale = 10 ** digits;
+  return Math.round(value * scale) / scale;
+}

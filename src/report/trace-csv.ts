@@ -1,0 +1,37 @@
+// The reference lap as a CSV trace, one row per grid sample. The same columns read back as telemetry.
+
+import type { LapResult } from '../solve/types.js';
+
+export interface ExtraColumn {
+  name: string;
+  values: ArrayLike<number>;
+  digits: number;
+}
+
+const fixed = (value: number, digits: number) => (Number.isFinite(value) ? value.toFixed(digits) : '');
+
+export function traceCsv(result: LapResult, extraColumns: ExtraColumn[] = []): string {
+  const t = result.trace;
+  const header = ['distance_m', 'time_s', 'speed_mps', 'speed_kph', 'ax_mps2', 'ay_mps2', 'curvature_1pm', 'throttle', 'brake', 'grip_use'];
+  if (t.hasGears) header.push('gear');
+  for (const column of extraColumns) header.push(column.name);
+  const lines: string[] = [header.join(',')];
+  for (let i = 0; i < t.count; i++) {
+    const row = [
+      fixed(t.distanceM[i]!, 3),
+      fixed(t.timeS[i]!, 4),
+      fixed(t.speedMps[i]!, 4),
+      fixed(t.speedMps[i]! * 3.6, 3),
+      fixed(t.axMps2[i]!, 4),
+      fixed(t.ayMps2[i]!, 4),
+      fixed(t.curvaturePerM[i]!, 6),
+      fixed(t.throttle[i]!, 4),
+      fixed(t.brake[i]!, 4),
+      fixed(t.gripUse[i]!, 4),
+    ];
+    if (t.hasGears) row.push(String(t.gear[i]));
+    for (const column of extraColumns) row.push(fixed(column.values[i]!, column.digits));
+    lines.push(row.join(','));
+  }
+  return lines.join('\n') + '\n';
+}

@@ -1,0 +1,85 @@
+// Braking zones of a lap: each place where the brakes come on, the entry speed there, and the slowest point
+// that follows. These are the braking points a driver is compared against.
+
+import type { BrakingZone, LapTrace } from './types.js';
+
+export interface BrakingZoneOptions {
+  /** Brake share above which the brakes count as on (0-1). */
+  brakeThreshold: number;
+  /** Gaps in braking shorter than this join one zone, m. */
+  mergeGapM: number;
+  /** Zones that take off less speed than this are ignored, m/s. */
+  minSpeedDropMps: number;
+}
+
+/** Rises smaller than this do not end the fall towards the slowest point, m/s (solver and sensor ripple). */
+const PLATEAU_RISE_MPS = 0.01;
+/** Samples within this of the minimum speed form its plateau, m/s. */
+const PLATEAU_BAND_MPS = 0.05;
+
+export const DEFAULT_BRAKING_ZONE_OPTIONS: BrakingZoneOptions = { brakeThreshold: 0.05, mergeGapM: 10, minSpeedDropMps: 1 };
+
+/** Finds the zones on any trace with speed and a brake share (the reference lap or a driver's lap). */
+export function findBrakingZones(
+  trace: Pick<LapTrace, 'closed' | 'count' | 'speedMps' | 'stationM'> & { brake: Float64Array },
+  options: BrakingZoneOptions = DEFAULT_BRAKING_ZONE_OPTIONS,
+): BrakingZone[] {
+  const n = trace.count;
+  const { brake, speedMps, stationM, closed } = trace;
+  const on = (i: number) => brake[i]! > options.brakeThreshold;
+  const stepM = n > 1 ? stationM[1]! - stationM[0]! : 1;
+  const mergeSamples = Math.max(1, Math.round(options.mergeGapM / stepM));
+  // A closed lap may be braking across the start line: scan from a sample where the brakes are off.
+  let origin = 0;
+  if (closed) {
+    while (origin < n && on(origin)) origin++;
+    if (origin === n) return [];
+  }
+  const zones: BrakingZone[] = [];
+  const index = (k: number) => (closed ? (origin + k) % n : k);
+  let k = 0;
+  while (k < n) {
+    if (!on(index(k))) {
+      k++;
+      continue;
+    }
+    const startK = k;
+    let lastOnK = k;
+    let scan = k + 1;
+    while (scan < n && scan - lastOnK <= mergeSamples) {
+      if (on(index(scan))) lastOnK = scan;
+      scan++;
+    }
+    // The slowest point that follows: walk on while the speed keeps falling, then take the middle of the
+    // plateau around the minimum (a constant-radius corner holds its speed for a while).
+    let probe = startK;
+    const span = closed ? n : n - 1;
+    while (probe - startK < span - 1 && speedMps[index(probe + 1)]! <= speedMps[index(probe)]! + PLATEAU_RISE_MPS) probe++;
+    let minK = startK;
+    for (let q = startK; q <= Math.max(probe, lastOnK); q++) if (speedMps[index(q)]! < speedMps[index(minK)]!) minK = q;
+    const floor = speedMps[index(minK)]! + PLATEAU_BAND_MPS;
+    let plateauStart = minK;
+    let plateauEnd = minK;
+    while (plateauStart > startK && speedMps[index(plateauStart - 1)]! <= floor) plateauStart--;
+    while (plateauEnd - startK < span - 1 && speedMps[index(plateauEnd + 1)]! <= floor) plateauEnd++;
+    minK = Math.round(0.5 * (plateauStart + plateauEnd));
+    const startIndex = index(startK);
+    const minSpeedIndex = index(minK);
+    const entrySpeedMps = speedMps[startIndex]!;
+    const minSpeedMps = speedMps[minSpeedIndex]!;
+    if (entrySpeedMps - minSpeedMps >= options.minSpeedDropMps) {
+      zones.push({
+        startIndex,
+        startM: stationM[startIndex]!,
+        entrySpeedMps,
+        minSpeedIndex,
+        minSpeedAtM: stationM[minSpeedIndex]!,
+        minSpeedMps,
+        brakingLengthM: (lastOnK - startK + 1) * stepM,
+      });
+    }
+    k = Math.max(lastOnK + 1, k + 1);
+  }
+  zones.sort((a, b) => a.startM - b.startM);
+  return zones;
+}

@@ -1,0 +1,55 @@
+// The library's main entry: the quasi-steady-state reference lap of a car on a track (or on a racing line).
+
+import type { Ambient, Car } from '../car/types.js';
+import type { Envelope } from '../car/envelope.js';
+import type { Path, TrackGrid } from '../track/types.js';
+import type { LapResult } from './types.js';
+import { ambientFrom } from '../car/ambient.js';
+import { buildEnvelope } from '../car/build-envelope.js';
+import { solveSpeedProfile } from './speed-profile.js';
+import { lapChannels } from './channels.js';
+import { findBrakingZones } from './braking-zones.js';
+import { centrelinePath } from '../track/resample.js';
+
+export interface SimulateOptions {
+  /** Air conditions; ISA sea level when omitted. */
+  ambient?: Ambient;
+  /** Use this envelope instead of the car model's (e.g. one fitted to a driver's data). */
+  envelope?: Envelope;
+  /** Drive this path (a racing line) instead of the centreline; sampled on the track's grid. */
+  path?: Path;
+  /** Speed at the start of an open track, m/s (default 0). */
+  startSpeedMps?: number;
+}
+
+export function simulate(track: TrackGrid, car: Car, options: SimulateOptions = {}): LapResult {
+  const ambient = options.ambient ?? ambientFrom();
+  const envelope = options.envelope ?? buildEnvelope(car, ambient);
+  const path = options.path ?? centrelinePath(track);
+  if (path.curvaturePerM.length !== track.distanceM.length) {
+    throw new Error(`path has ${path.curvaturePerM.length} samples but the track grid has ${track.distanceM.length}`);
+  }
+  const profile = solveSpeedProfile(path, envelope, {
+    startSpeedMps: options.startSpeedMps ?? 0,
+    shiftTimeS: car.powertrain.gearing?.shiftTimeS ?? 0,
+  });
+  const { trace, lapTimeS, lengthM } = lapChannels(path, envelope, profile.speedMps, profile.cornerLimitMps, track.distanceM);
+  let maxSpeedMps = -Infinity;
+  let minSpeedMps = Infinity;
+  for (let i = 0; i < trace.count; i++) {
+    const speed = trace.speedMps[i]!;
+    if (speed > maxSpeedMps) maxSpeedMps = speed;
+    if (speed < minSpeedMps) minSpeedMps = speed;
+  }
+  return {
+    trace,
+    lapTimeS,
+    lengthM,
+    maxSpeedMps,
+    minSpeedMps,
+    brakingZones: findBrakingZones(trace),
+    track,
+    path,
+    envelopeKind: envelope.kind,
+  };
+}

@@ -1,0 +1,93 @@
+// The quasi-steady-state speed profile (Brayshaw and Harrison, Proc. IMechE Part D 219 (2005); Siegler, Deakin
+// and Crolla, SAE 2000-01-3563): the corner-limit speed everywhere, a forward pass under the acceleration limit,
+// a backward pass under the braking limit, and the lower of the two. A closed lap starts both passes at its
+// slowest corner-limit point, where the speed must equal that limit, which makes the lap periodic.
+
+import type { Envelope } from '../car/envelope.js';
+import type { Path } from '../track/types.js';
+import { cornerLimitProfile } from './corner-limit.js';
+
+export interface SpeedProfileOptions {
+  /** Speed at the first sample of an open path, m/s (capped by its corner limit). */
+  startSpeedMps: number;
+  /** Time without drive at each upshift, s (0 = instant shifts). */
+  shiftTimeS: number;
+}
+
+export interface SpeedProfile {
+  speedMps: Float64Array;
+  cornerLimitMps: Float64Array;
+}
+
+function argMin(values: Float64Array): number {
+  let best = 0;
+  for (let i = 1; i < values.length; i++) if (values[i]! < values[best]!) best = i;
+  return best;
+}
+
+function forwardPass(path: Path, envelope: Envelope, limit: Float64Array, first: number, firstSpeedMps: number, shiftTimeS: number, out: Float64Array): void {
+  const n = limit.length;
+  const steps = path.closed ? n : n - 1;
+  const kappa = path.curvaturePerM;
+  const ds = path.segmentLengthM;
+  out[first] = firstSpeedMps;
+  let speed = firstSpeedMps;
+  let gear = envelope.gearAt(speed);
+  let shiftLeftS = 0;
+  for (let k = 0; k < steps; k++) {
+    const i = path.closed ? (first + k) % n : k;
+    const j = i + 1 === n ? 0 : i + 1;
+    const lengthM = ds[i]!;
+    let accel: number;
+    if (shiftLeftS > 0) {
+      accel = -envelope.coastDecelMps2(speed);
+      shiftLeftS -= lengthM / Math.max(speed, 0.5);
+    } else {
+      accel = envelope.accelLimitMps2(speed, speed * speed * kappa[i]!);
+    }
+    let next = Math.sqrt(Math.max(0, speed * speed + 2 * accel * lengthM));
+    if (next > limit[j]!) next = limit[j]!;
+    if (shiftTimeS > 0) {
+      const nextGear = envelope.gearAt(next);
+      if (nextGear > gear && accel > 0) shiftLeftS = shiftTimeS;
+      gear = nextGear;
+    }
+    out[j] = next;
+    speed = next;
+  }
+}
+
+function backwardPass(path: Path, envelope: Envelope, limit: Float64Array, last: number, lastSpeedMps: number, out: Float64Array): void {
+  const n = limit.length;
+  const steps = path.closed ? n : n - 1;
+  const kappa = path.curvaturePerM;
+  const ds = path.segmentLengthM;
+  out[last] = lastSpeedMps;
+  let speed = lastSpeedMps;
+  for (let k = 0; k < steps; k++) {
+    const i = path.closed ? (last - k + n) % n : n - 1 - k;
+    const h = i === 0 ? n - 1 : i - 1;
+    const brake = envelope.brakeLimitMps2(speed, speed * speed * kappa[h]!);
+    let previous = Math.sqrt(speed * speed + 2 * brake * ds[h]!);
+    if (previous > limit[h]!) previous = limit[h]!;
+    out[h] = previous;
+    speed = previous;
+  }
+}
+
+export function solveSpeedProfile(path: Path, envelope: Envelope, options: SpeedProfileOptions): SpeedProfile {
+  const n = path.curvaturePerM.length;
+  const cornerLimitMps = cornerLimitProfile(envelope, path.curvaturePerM);
+  const forward = new Float64Array(n);
+  const backward = new Float64Array(n);
+  if (path.closed) {
+    const slowest = argMin(cornerLimitMps);
+    forwardPass(path, envelope, cornerLimitMps, slowest, cornerLimitMps[slowest]!, options.shiftTimeS, forward);
+    backwardPass(path, envelope, cornerLimitMps, slowest, cornerLimitMps[slowest]!, backward);
+  } else {
+    forwardPass(path, envelope, cornerLimitMps, 0, Math.min(options.startSpeedMps, cornerLimitMps[0]!), options.shiftTimeS, forward);
+    backwardPass(path, envelope, cornerLimitMps, n - 1, cornerLimitMps[n - 1]!, backward);
+  }
+  for (let i = 0; i < n; i++) if (backward[i]! < forward[i]!) forward[i] = backward[i]!;
+  return { speedMps: forward, cornerLimitMps };
+}
