@@ -39,18 +39,24 @@ function forwardPass(path: Path, envelope: Envelope, limit: Float64Array, first:
     const j = i + 1 === n ? 0 : i + 1;
     const lengthM = ds[i]!;
     let accel: number;
-    if (shiftLeftS > 0) {
-      accel = -envelope.coastDecelMps2(speed);
-      shiftLeftS -= lengthM / Math.max(speed, 0.5);
+    const shifting = shiftLeftS > 0;
+    if (shifting) {
+      // The shift may end part-way through this step: drive for the rest of it.
+      const stepTimeS = lengthM / Math.max(speed, 0.5);
+      const coastShare = Math.min(1, shiftLeftS / stepTimeS);
+      accel = -coastShare * envelope.coastDecelMps2(speed) + (1 - coastShare) * envelope.accelLimitMps2(speed, speed * speed * kappa[i]!);
+      shiftLeftS -= stepTimeS;
     } else {
       accel = envelope.accelLimitMps2(speed, speed * speed * kappa[i]!);
     }
     let next = Math.sqrt(Math.max(0, speed * speed + 2 * accel * lengthM));
     if (next > limit[j]!) next = limit[j]!;
-    if (shiftTimeS > 0) {
+    if (shiftTimeS > 0 && !shifting) {
+      // Upshift only on the way up, and keep the gear while the speed sags just below the shift point after
+      // a shift, so the car does not hunt between two gears; downshifts (when slowing) cost nothing.
       const nextGear = envelope.gearAt(next);
-      if (nextGear > gear && accel > 0) shiftLeftS = shiftTimeS;
-      gear = nextGear;
+      if (nextGear > gear && next > speed) shiftLeftS = shiftTimeS;
+      if (nextGear > gear || next < speed - 1e-6) gear = nextGear;
     }
     out[j] = next;
     speed = next;

@@ -7,6 +7,8 @@ import { ambientFrom } from '../../src/car/ambient.js';
 import { pointMassEnvelope } from '../../src/car/point-mass.js';
 import { STANDARD_GRAVITY_MPS2 as g } from '../../src/units.js';
 import { testCar } from '../helpers/cars.js';
+import { projectRoot } from '../helpers/cli.js';
+import { readCarFile } from '../../src/io/read-car.js';
 
 const ring = (radiusM: number, stepM = 1) =>
   trackFromSegments({ name: 'ring', closed: true, widthM: 10, segments: [{ kind: 'arc', radiusM, angleDeg: 360 }] }, stepM, 'ring');
@@ -141,6 +143,15 @@ describe('lap invariants', () => {
     const stage = (stepM: number) => trackFromSegments({ name: 'stage', closed: false, widthM: 10, segments }, stepM, 'stage');
     const coarse = simulate(stage(1), car).lapTimeS;
     const fine = simulate(stage(0.5), car).lapTimeS;
+    expect(Math.abs(coarse - fine) / fine).toBeLessThan(0.001);
+  });
+
+  it('converges with the step for a car with gears and shift time too', () => {
+    const geared = readCarFile(`${projectRoot}cars/tarnfell-gt.json`);
+    expect(geared.powertrain.gearing?.shiftTimeS).toBeGreaterThan(0);
+    const stage = (stepM: number) => trackFromSegments({ name: 'stage', closed: false, widthM: 10, segments }, stepM, 'stage');
+    const coarse = simulate(stage(1), geared).lapTimeS;
+    const fine = simulate(stage(0.5), geared).lapTimeS;
     expect(Math.abs(coarse - fine) / fine).toBeLessThan(0.001);
   });
 
