@@ -79,7 +79,6 @@ export function pointMassEnvelope(car: Car, ambient: Ambient): Envelope {
     const loadN = normalLoadN(speedMps);
     return Math.min(brakeCapMps2, (loadSensitiveMu(car.tyre.muLong, loadN, weightN, sensitivity) * loadN) / massKg);
   };
-  const driveLimitMps2 = (speedMps: number) => Math.min(tractionLimitMps2(speedMps), drive.forceN(speedMps) / massKg);
 
   const accelLimitMps2 = (speedMps: number, lateralMps2: number) => {
     const left = remainingShare(Math.abs(lateralMps2) / lateralLimitMps2(speedMps), exponent);
@@ -98,9 +97,13 @@ export function pointMassEnvelope(car: Car, ambient: Ambient): Envelope {
     },
     coastDecelMps2,
     gripUse(speedMps, axMps2, ayMps2) {
+      // The envelope is the tyre ellipse cut by the flat drive-force cap: the radial share of a point is the
+      // larger of its share of each.
       const tyreAx = axMps2 + coastDecelMps2(speedMps);
-      const longCap = tyreAx >= 0 ? driveLimitMps2(speedMps) : tyreBrakeLimitMps2(speedMps);
-      return combinedShare(tyreAx / longCap, ayMps2 / lateralLimitMps2(speedMps), exponent);
+      const lateralShare = ayMps2 / lateralLimitMps2(speedMps);
+      if (tyreAx < 0) return combinedShare(tyreAx / tyreBrakeLimitMps2(speedMps), lateralShare, exponent);
+      const tyreShare = combinedShare(tyreAx / tractionLimitMps2(speedMps), lateralShare, exponent);
+      return Math.max(tyreShare, tyreAx / (drive.forceN(speedMps) / massKg));
     },
     gearAt: drive.gearAt,
   };

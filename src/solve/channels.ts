@@ -36,7 +36,10 @@ export function lapChannels(path: Path, envelope: Envelope, speedMps: Float64Arr
       elapsedS += (2 * lengthM) / Math.max(speed + next, 1e-9);
       travelledM += lengthM;
     } else if (i > 0) {
-      ax = axMps2[i - 1]!;
+      // The last sample of an open stage has no step after it: carry the previous step's acceleration,
+      // clipped to what the envelope allows at this sample's own lateral demand.
+      const coastHere = envelope.coastDecelMps2(speed);
+      ax = Math.min(Math.max(axMps2[i - 1]!, -envelope.brakeLimitMps2(speed, ay)), Math.max(envelope.accelLimitMps2(speed, ay), -coastHere));
     }
     axMps2[i] = ax;
     const coast = envelope.coastDecelMps2(speed);

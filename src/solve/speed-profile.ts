@@ -19,6 +19,9 @@ export interface SpeedProfile {
   cornerLimitMps: Float64Array;
 }
 
+const MAX_PERIODIC_LAPS = 20;
+const PERIODIC_TOLERANCE_MPS = 1e-6;
+
 function argMin(values: Float64Array): number {
   let best = 0;
   for (let i = 1; i < values.length; i++) if (values[i]! < values[best]!) best = i;
@@ -63,6 +66,38 @@ function forwardPass(path: Path, envelope: Envelope, limit: Float64Array, first:
   }
 }
 
+/**
+ * Speed at the start of a braking step that ends at `exitSpeedMps`: the root of
+ * v = sqrt(v_exit^2 + 2 b(v, v^2 kappa) ds), so the braking is limited by the lateral demand at the speed the
+ * car actually has there (an explicit step would use the lower exit speed and ask for more than the envelope).
+ * The explicit step bounds the root from above when b falls with speed; a few secant steps close in on it.
+ */
+function brakingEntrySpeedMps(envelope: Envelope, exitSpeedMps: number, curvaturePerM: number, lengthM: number): number {
+  const exitSquared = exitSpeedMps * exitSpeedMps;
+  const residual = (speed: number) =>
+    Math.sqrt(exitSquared + 2 * envelope.brakeLimitMps2(speed, speed * speed * curvaturePerM) * lengthM) - speed;
+  let lo = exitSpeedMps;
+  let hi = Math.sqrt(exitSquared + 2 * envelope.brakeLimitMps2(exitSpeedMps, exitSquared * curvaturePerM) * lengthM);
+  let fLo = hi - lo;
+  let fHi = residual(hi);
+  if (fHi >= 0 || fLo <= 0) return hi;
+  for (let k = 0; k < 8; k++) {
+    const mid = hi - (fHi * (hi - lo)) / (fHi - fLo);
+    const fMid = residual(mid);
+    if (Math.abs(fMid) < 1e-9) return mid;
+    if (fMid > 0) {
+      lo = mid;
+      fLo = fMid;
+    } else {
+      hi = mid;
+      fHi = fMid;
+    }
+    if (hi - lo < 1e-9) break;
+  }
+  // The lower bracket never asks more of the envelope than it has.
+  return lo;
+}
+
 function backwardPass(path: Path, envelope: Envelope, limit: Float64Array, last: number, lastSpeedMps: number, out: Float64Array): void {
   const n = limit.length;
   const steps = path.closed ? n : n - 1;
@@ -73,8 +108,7 @@ function backwardPass(path: Path, envelope: Envelope, limit: Float64Array, last:
   for (let k = 0; k < steps; k++) {
     const i = path.closed ? (last - k + n) % n : n - 1 - k;
     const h = i === 0 ? n - 1 : i - 1;
-    const brake = envelope.brakeLimitMps2(speed, speed * speed * kappa[h]!);
-    let previous = Math.sqrt(speed * speed + 2 * brake * ds[h]!);
+    let previous = brakingEntrySpeedMps(envelope, speed, kappa[h]!, ds[h]!);
     if (previous > limit[h]!) previous = limit[h]!;
     out[h] = previous;
     speed = previous;
@@ -88,7 +122,16 @@ export function solveSpeedProfile(path: Path, envelope: Envelope, options: Speed
   const backward = new Float64Array(n);
   if (path.closed) {
     const slowest = argMin(cornerLimitMps);
-    forwardPass(path, envelope, cornerLimitMps, slowest, cornerLimitMps[slowest]!, options.shiftTimeS, forward);
+    // The slowest corner limit may be out of the car's reach (a weak car whose top speed caps every limit, or
+    // drag it cannot overcome at the limit): then a lap started there comes back slower. Start again from the
+    // speed it came back with until the lap closes on itself.
+    let startMps = cornerLimitMps[slowest]!;
+    for (let lap = 0; lap < MAX_PERIODIC_LAPS; lap++) {
+      forwardPass(path, envelope, cornerLimitMps, slowest, startMps, options.shiftTimeS, forward);
+      const backAt = forward[slowest]!;
+      if (backAt >= startMps - PERIODIC_TOLERANCE_MPS) break;
+      startMps = backAt;
+    }
     backwardPass(path, envelope, cornerLimitMps, slowest, cornerLimitMps[slowest]!, backward);
   } else {
     forwardPass(path, envelope, cornerLimitMps, 0, Math.min(options.startSpeedMps, cornerLimitMps[0]!), options.shiftTimeS, forward);

@@ -4,9 +4,9 @@
 
 import type { Car } from '../car/types.js';
 import type { LapResult } from './types.js';
-import { linearAxlesOf, understeerGradientRadPerMps2 } from '../car/understeer.js';
+import { criticalSpeedMps, linearAxlesOf, understeerGradientRadPerMps2 } from '../car/understeer.js';
 import { InputError } from '../errors.js';
-import { radToDeg } from '../units.js';
+import { mpsToKph, radToDeg } from '../units.js';
 
 /** Whether the car can give a steering trace (it has the wheelbase and both cornering stiffnesses). */
 export const canTraceSteering = (car: Car): boolean => linearAxlesOf(car) !== null;
@@ -22,4 +22,22 @@ export function steeringTraceDeg(result: LapResult, car: Car): Float64Array {
   const out = new Float64Array(t.count);
   for (let i = 0; i < t.count; i++) out[i] = radToDeg(axles.wheelbaseM * t.curvaturePerM[i]! + gradient * t.ayMps2[i]!);
   return out;
+}
+
+/**
+ * A warning when an oversteering car's reference goes faster than its critical speed sqrt(-L / K) (Gillespie,
+ * SAE 1992, ch. 6), where the linear car is directionally unstable; null when it does not (or K >= 0).
+ */
+export function criticalSpeedWarning(result: LapResult, car: Car): string | null {
+  const axles = linearAxlesOf(car);
+  if (!axles) return null;
+  const critical = criticalSpeedMps(axles.wheelbaseM, understeerGradientRadPerMps2(axles));
+  if (critical === null || result.maxSpeedMps <= critical) return null;
+  const t = result.trace;
+  let first = 0;
+  while (first < t.count && t.speedMps[first]! <= critical) first++;
+  return (
+    `car ${car.name} oversteers and is unstable above its critical speed ${mpsToKph(critical).toFixed(0)} km/h; ` +
+    `the reference reaches ${mpsToKph(result.maxSpeedMps).toFixed(0)} km/h (first above it at ${t.distanceM[first]!.toFixed(0)} m)`
+  );
 }

@@ -6,6 +6,8 @@
 import type { Ambient, Car } from '../car/types.js';
 import type { LapResult } from './types.js';
 import { bicycleParams } from '../car/bicycle-params.js';
+import { bicycleEnvelope } from '../car/bicycle-envelope.js';
+import type { Envelope } from '../car/envelope.js';
 import { understeerGradientRadPerMps2, criticalSpeedMps } from '../car/understeer.js';
 import { pointMassEnvelope } from '../car/point-mass.js';
 import { driveForceTable } from '../car/drive-force.js';
@@ -48,6 +50,9 @@ export interface TransientCheck {
   lateralErrorM: Float64Array;
   followedSpeedMps: Float64Array;
   steerDeg: Float64Array;
+  /** Combined friction use of the front and rear axle (1 = saturated). */
+  frontUse: Float64Array;
+  rearUse: Float64Array;
   /** Integrator work, for the benchmark. */
   steps: number;
   evaluations: number;
@@ -57,7 +62,35 @@ const SPIN_COURSE_ERROR_RAD = 1;
 const LOST_DEVIATION_M = 25;
 const MAX_STEP_S = 0.05;
 
-function referenceLookup(result: LapResult): ReferenceLookup & { endM: number } {
+/**
+ * The speed the driver aims for: the reference speed, but braking only at `brakingShare` of the envelope's braking
+ * limit (a backward pass from each corner, twice round a closed lap), so the car reaches each corner at its speed
+ * with some braking in hand; and the acceleration that goes with it.
+ */
+function driverTarget(result: LapResult, envelope: Envelope, brakingShare: number): { speedMps: Float64Array; axMps2: Float64Array } {
+  const t = result.trace;
+  const n = t.count;
+  const ds = result.path.segmentLengthM;
+  const speed = Float64Array.from(t.speedMps);
+  const sweeps = t.closed ? 2 * n : n - 1;
+  for (let k = 0; k < sweeps; k++) {
+    const j = t.closed ? (n - 1 - (k % n) + n) % n : n - 1 - k;
+    const i = j === 0 ? n - 1 : j - 1;
+    if (!t.closed && j === 0) break;
+    const v = speed[j]!;
+    const decel = brakingShare * (envelope.brakeLimitMps2(v, v * v * t.curvaturePerM[i]!) - envelope.coastDecelMps2(v)) + envelope.coastDecelMps2(v);
+    const reachable = Math.sqrt(v * v + 2 * Math.max(decel, 0) * ds[i]!);
+    if (reachable < speed[i]!) speed[i] = reachable;
+  }
+  const ax = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    const j = i + 1 < n ? i + 1 : t.closed ? 0 : i;
+    ax[i] = j === i ? (i > 0 ? ax[i - 1]! : 0) : (speed[j]! * speed[j]! - speed[i]! * speed[i]!) / (2 * ds[i]!);
+  }
+  return { speedMps: speed, axMps2: ax };
+}
+
+function referenceLookup(result: LapResult, target: { speedMps: Float64Array; axMps2: Float64Array }): ReferenceLookup & { endM: number } {
   const t = result.trace;
   const n = t.count;
   const d = t.distanceM;
@@ -84,8 +117,8 @@ function referenceLookup(result: LapResult): ReferenceLookup & { endM: number } 
   return {
     endM,
     curvaturePerM: (s) => read(t.curvaturePerM, s),
-    speedMps: (s) => read(t.speedMps, s),
-    axMps2: (s) => read(t.axMps2, s),
+    speedMps: (s) => read(target.speedMps, s),
+    axMps2: (s) => read(target.axMps2, s),
   };
 }
 
@@ -99,7 +132,7 @@ export function checkTransient(result: LapResult, car: Car, options: TransientOp
   const pointMass = pointMassEnvelope(car, ambient);
   const resistanceN = (speedMps: number) => p.massKg * pointMass.coastDecelMps2(speedMps);
   const drive = driveForceTable(car, ambient.powerFactor);
-  const reference = referenceLookup(result);
+  const reference = referenceLookup(result, driverTarget(result, bicycleEnvelope(car, ambient), settings.brakingShare));
   const model = singleTrackModel(p, car, ambient.airDensityKgPerM3, options.law ?? 'saturating', resistanceN);
   const gradient = understeerGradientRadPerMps2(p);
   const driver = newDriver({
@@ -147,14 +180,22 @@ export function checkTransient(result: LapResult, car: Car, options: TransientOp
     frontUses.push(forces.frontUse);
     rearUses.push(forces.rearUse);
     const course = y[2]! + Math.atan2(y[3]!, Math.max(y[5]!, 1));
-    if (Math.abs(course) > SPIN_COURSE_ERROR_RAD) lost = `the car spins at ${y[0]!.toFixed(0)} m`;
-    else if (Math.abs(y[1]!) > LOST_DEVIATION_M) lost = `the car leaves the line by more than ${LOST_DEVIATION_M} m at ${y[0]!.toFixed(0)} m`;
-    else if (y[5]! < 0.5) lost = `the car stops at ${y[0]!.toFixed(0)} m`;
+    const at = (y[0]! % wrapM).toFixed(0);
+    if (Math.abs(course) > SPIN_COURSE_ERROR_RAD) lost = `the car spins at ${at} m`;
+    else if (Math.abs(y[1]!) > LOST_DEVIATION_M) lost = `the car leaves the line by more than ${LOST_DEVIATION_M} m at ${at} m`;
+    else if (y[5]! < 0.5) lost = `the car stops at ${at} m`;
   };
 
-  const startSpeed = Math.max(result.trace.speedMps[0]!, 2);
-  const kappa0 = reference.curvaturePerM(0);
-  const y0 = [0, 0, 0, 0, startSpeed * kappa0, startSpeed];
+  // A closed lap is followed from a calm point (mid-way along the longest stretch of straight-line acceleration),
+  // so the car starts in a steady state; an open one from its start.
+  const startIndex = result.trace.closed ? calmStartIndex(result) : 0;
+  const startM = result.trace.distanceM[startIndex]!;
+  const startSpeed = Math.max(result.trace.speedMps[startIndex]!, 2);
+  // Start in steady cornering: r = u kappa, and the lateral velocity that gives the rear axle its share m ay a / L
+  // on its linear stiffness (vy = b r - u alpha_r).
+  const startYawRate = startSpeed * reference.curvaturePerM(startM);
+  const rearSlipRad = (p.massKg * startSpeed * startYawRate * p.frontAxleToCgM) / p.wheelbaseM / p.corneringStiffnessRearNPerRad;
+  const y0 = [startM, 0, 0, p.cgToRearAxleM * startYawRate - startSpeed * rearSlipRad, startYawRate, startSpeed];
   const solver = newOdexSolver(6);
   solver.denseOutput = false;
   solver.maxSteps = 2_000_000;
@@ -162,7 +203,8 @@ export function checkTransient(result: LapResult, car: Car, options: TransientOp
   solver.initialStepSize = 1e-3;
   solver.absoluteTolerance = [1e-3, 1e-4, 1e-5, 1e-4, 1e-5, 1e-4];
   solver.relativeTolerance = 1e-6;
-  const endM = reference.endM;
+  const endM = reference.endM + startM;
+  const wrapM = result.trace.closed ? result.lengthM : Infinity;
   const tEnd = 2 * result.lapTimeS + 60;
   const outcome = solver.solve(derivative, 0, y0, tEnd, (_step, _tOld, t, y) => {
     record(t, y);
@@ -188,7 +230,7 @@ export function checkTransient(result: LapResult, car: Car, options: TransientOp
   let frontPeak = 0;
   let rearPeak = 0;
   for (let k = 0; k < count; k++) {
-    const station = Math.min(stations[k]!, endM);
+    const station = Math.min(stations[k]!, endM) % wrapM;
     if (Math.abs(errors[k]!) > maxDeviationM) {
       maxDeviationM = Math.abs(errors[k]!);
       maxDeviationAtM = station;
@@ -215,7 +257,9 @@ export function checkTransient(result: LapResult, car: Car, options: TransientOp
   const lateralErrorM = new Float64Array(n);
   const followedSpeedMps = new Float64Array(n);
   const steerDeg = new Float64Array(n);
-  resampleOnGrid(result.trace.distanceM, stations, [errors, speeds, steers], [lateralErrorM, followedSpeedMps, steerDeg]);
+  const frontUse = new Float64Array(n);
+  const rearUse = new Float64Array(n);
+  resampleOnGrid(result.trace.distanceM, startIndex, result.lengthM, stations, [errors, speeds, steers, frontUses, rearUses], [lateralErrorM, followedSpeedMps, steerDeg, frontUse, rearUse]);
   for (let i = 0; i < n; i++) steerDeg[i] = radToDeg(steerDeg[i]!);
 
   const drivable = completed && maxDeviationM <= deviationLimitM;
@@ -239,6 +283,8 @@ export function checkTransient(result: LapResult, car: Car, options: TransientOp
     lateralErrorM,
     followedSpeedMps,
     steerDeg,
+    frontUse,
+    rearUse,
     steps: outcome.nStep,
     evaluations: outcome.nEval + count,
   };
@@ -249,12 +295,39 @@ function closeZone(zone: SaturationZone, frontPeak: number, rearPeak: number, th
   return { ...zone, axle, peakUse: Math.max(frontPeak, rearPeak) };
 }
 
-/** Linear interpolation of step records (by station, increasing) onto the grid; beyond the records, the last value. */
-function resampleOnGrid(gridM: Float64Array, stations: number[], columns: number[][], outs: Float64Array[]): void {
+/** The middle of the longest (cyclic) run of samples that accelerate with little lateral demand. */
+function calmStartIndex(result: LapResult): number {
+  const t = result.trace;
+  const n = t.count;
+  const calm = (i: number) => Math.abs(t.ayMps2[i]!) < 1 && t.axMps2[i]! >= 0;
+  let bestStart = 0;
+  let bestLength = 0;
+  let runStart = -1;
+  for (let k = 0; k < 2 * n; k++) {
+    const i = k % n;
+    if (calm(i)) {
+      if (runStart < 0) runStart = k;
+      const length = k - runStart + 1;
+      if (length > bestLength && length <= n) {
+        bestLength = length;
+        bestStart = runStart;
+      }
+    } else runStart = -1;
+  }
+  return bestLength > 0 ? (bestStart + Math.floor(bestLength / 2)) % n : 0;
+}
+
+/**
+ * Linear interpolation of step records (by station, increasing from the start sample) onto the grid, taking the
+ * grid in driving order from startIndex; beyond the records, the last value.
+ */
+function resampleOnGrid(gridM: Float64Array, startIndex: number, lengthM: number, stations: number[], columns: number[][], outs: Float64Array[]): void {
   let k = 0;
   const last = stations.length - 1;
-  for (let i = 0; i < gridM.length; i++) {
-    const s = gridM[i]!;
+  const n = gridM.length;
+  for (let j = 0; j < n; j++) {
+    const i = (startIndex + j) % n;
+    const s = i < startIndex ? gridM[i]! + lengthM : gridM[i]!;
     while (k < last && stations[k + 1]! < s) k++;
     const k1 = Math.min(k + 1, last);
     const span = stations[k1]! - stations[k]!;
