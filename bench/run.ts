@@ -6,6 +6,12 @@ interface BenchModule {
 
 const modules: [string, () => Promise<BenchModule>][] = [
   ['simulate', () => import('./simulate.bench.js')],
+  ['telemetry', () => import('./telemetry.bench.js')],
+  ['compare', () => import('./compare.bench.js')],
+  ['track', () => import('./track.bench.js')],
+  ['sweep', () => import('./sweep.bench.js')],
+  ['line', () => import('./line.bench.js')],
+  ['transient', () => import('./transient.bench.js')],
 ];
 
 const only = process.argv.slice(2);

@@ -9,6 +9,14 @@ export type { DriverLap, TelemetrySession } from './compare/types.js';
 export { InputError, isInputError } from './errors.js';
 export * from './units.js';
 
+// Track input and geometry.
+export { readTrackFile, parseTrackText, type TrackReadOptions } from './io/read-track.js';
+export { parseColumnMapping } from './io/columns.js';
+export { trackFromSegments, CLOSURE_TOLERANCE_M, CLOSURE_TOLERANCE_DEG, type TrackSegment, type SegmentTrackSpec } from './track/segments.js';
+export { trackFromCentreline, centrelinePath, uniformGrid, type CentrelinePoints, type CentrelineOptions } from './track/resample.js';
+export { whittakerSmoother, smoothingLambda } from './track/smooth.js';
+export { bandedSolver, cyclicBandedSolver, factorBanded, solveBanded, factorCyclicBanded, solveCyclicBanded, type BandEntry, type BandedSolve } from './numeric/banded.js';
+
 export { ambientFrom, airDensityKgPerM3, ISA_SEA_LEVEL } from './car/ambient.js';
 export { readCarFile, parseCarJson, carFromJson, validateCar } from './io/read-car.js';
 export { pointMassEnvelope, totalMassKg } from './car/point-mass.js';
@@ -18,3 +26,64 @@ export { simulate, type SimulateOptions } from './solve/simulate.js';
 export { findBrakingZones } from './solve/braking-zones.js';
 export { traceCsv } from './report/trace-csv.js';
 export { lapSummaryJson, lapSummaryText, SAFETY_CAUTION } from './report/lap-summary.js';
+export { lapReportHtml, chartSvgs, type ChartSvg } from './report/html/page.js';
+export type { ReportInput, ReportCorner } from './report/html/model.js';
+export { sessionReportInput } from './report/html/from-session.js';
+
+// Setup assumptions: what-ifs, sweeps, stints and the SAE J1349 power correction.
+export { j1349CorrectionFactor, j1349PowerFactor, dryAirPressureKpa, saturationVapourPressureHpa, SAE_J1349_EDITIONS, type J1349Edition } from './car/power-correction.js';
+export { ALL_FIELDS, CAR_FIELDS, AMBIENT_FIELDS, closestField, readCarField, writeCarField } from './sweep/fields.js';
+export { parseSetting, parseVariation, applySetup, applySettings, variationValues, airInputsOf, type Setting, type Variation, type SetupBase, type AirInputs } from './sweep/settings.js';
+export { matchBrakingZones, signedLapShiftM } from './sweep/match-zones.js';
+export { brakingPointM } from './sweep/braking-point.js';
+export { compareLaps, type LapComparison, type ZoneChange } from './sweep/compare-laps.js';
+export { planSweep, parseShard, shardRange, type SweepPlan, type SweepMode, type Shard } from './sweep/plan.js';
+export { runSweep, prepareSweep, type SweepInput, type SweepOutput } from './sweep/run-sweep.js';
+export { runSetups, runSetupsInProcess } from './sweep/pool.js';
+export { sensitivities, type Sensitivity, type SweepTable, type SweepRecord, type SweepMeta } from './sweep/table.js';
+export { sweepCsv, parseSweepCsv, mergeSweepCsv } from './sweep/csv.js';
+export { sweepChartData, type SweepSeries } from './sweep/chart-data.js';
+export { runStint, runStintInWorkers, stintFuelLoads, type StintResult, type StintLap } from './sweep/stint.js';
+
+// The racing line.
+export { racingLine, lineFromOffsets, type RacingLineOptions } from './line/racing-line.js';
+export type { RacingLine, LineGeometry, LineObjective } from './line/types.js';
+export { corridorOf, defaultMarginM, DEFAULT_MARGIN_M, type Corridor } from './line/corridor.js';
+export { linePath, linePositions, lineCurvature, lineSegmentLengths, offsetCurvature } from './line/geometry.js';
+export { minimumCurvatureOffsets } from './line/min-curvature.js';
+export { minimumTimeOffsets, type MinimumTimeOptions, type MinimumTimeResult } from './line/min-time.js';
+export { lineCsv, LINE_CSV_COLUMNS } from './line/line-csv.js';
+export { readLineFile, parseLineCsv } from './io/read-line.js';
+
+// Telemetry in: reading driver logs (CSV, NMEA 0183, GPX 1.1), cutting laps, alignment onto the track grid.
+export { readTelemetryFile, parseTelemetryText, sniffTelemetryFormat, type TelemetryReadOptions, type TelemetryFormat } from './io/telemetry/read-telemetry.js';
+export { CANONICAL_COLUMNS } from './io/telemetry/columns.js';
+export { nmeaChecksum } from './io/telemetry/nmea.js';
+export { localPlane, projectLatLon, reprojectPlane, type GeoOrigin, type LocalPlane } from './io/telemetry/geo.js';
+export { cutLaps, placeSession, MATCH_LIMIT_M, MIN_COVERAGE, type LapCut, type CutOptions, type PlacedSession } from './compare/laps.js';
+export { alignLap, selectLap, type SelectOptions } from './compare/align.js';
+export { axFromSpeed, pathCurvature, speedFromPositions } from './compare/derive.js';
+export { projectPath, projectGlobal, fitRigidToCentreline, applyRigid, type PathProjection, type PointProjection, type RigidTransform } from './track/project.js';
+
+// The bicycle model: axle-limited envelope, understeer and steering, transient check.
+export { bicycleEnvelope, type BicycleEnvelope } from './car/bicycle-envelope.js';
+export { bicycleParams, bicycleMissingFields, type BicycleParams } from './car/bicycle-params.js';
+export { longitudinalLoadTransferN, lateralLoadTransferN } from './car/load-transfer.js';
+export { understeerGradientRadPerMps2, understeerGradientDegPerG, steadyStateSteerRad, characteristicSpeedMps, criticalSpeedMps, yawRateGainPerS } from './car/understeer.js';
+export { describeCar, type CarDescription } from './car/describe.js';
+export { steeringTraceDeg, criticalSpeedWarning } from './solve/steering.js';
+export { checkTransient, type TransientCheck, type TransientOptions, type SaturationZone } from './solve/transient.js';
+
+// The comparison of a driver's lap with the reference: corners, delta, findings, the demonstrated envelope, the demo driver.
+export type { ComparisonResult, CornerComparison, Finding, GripStretch } from './compare/types.js';
+// Named compareDriverLap here: compareLaps is already the setup-change comparison of src/sweep.
+export { compareLaps as compareDriverLap, estimatedPedal, DEFAULT_COMPARE_OPTIONS, type CompareOptions } from './compare/compare-laps.js';
+export { compareSession, envelopeSamplesOf, type CompareSessionOptions, type SessionComparison } from './compare/compare-session.js';
+export { detectCorners, DEFAULT_CORNER_OPTIONS, type CornerSpan, type CornerDetectionOptions } from './compare/corners.js';
+export { timeDeltaS, clockAt, distanceAsTimeS } from './compare/delta.js';
+export { rankFindings, cornerFindingText, DEFAULT_FINDING_OPTIONS, type FindingOptions } from './compare/findings.js';
+export { fitEnvelope, quantileSorted, DEFAULT_ENVELOPE_FIT, type EnvelopeFitOptions, type EnvelopeSamples } from './compare/envelope-fit.js';
+export { demonstratedEnvelope, type DemonstratedEnvelopeRecord, type EnvelopeBand } from './car/demonstrated-envelope.js';
+export { readEnvelopeFile, parseEnvelopeJson } from './io/read-envelope.js';
+export { demoDriverLap, demoLogCsv, seededRandom, DEFAULT_DEMO_LOG, type DemoDriverLap, type DemoFault } from './compare/demo-driver.js';
+export { compareSummaryText, compareSummaryJson, alignedTracesCsv } from './report/compare-summary.js';

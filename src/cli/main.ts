@@ -5,13 +5,21 @@ import { Command, CommanderError } from 'commander';
 import { isInputError } from '../errors.js';
 import * as simulateCommand from './commands/simulate.js';
 import * as budgetCommand from './commands/budget.js';
+import * as whatifCommand from './commands/whatif.js';
+import * as sweepCommand from './commands/sweep.js';
+import * as stintCommand from './commands/stint.js';
+import * as lineCommand from './commands/line.js';
+import * as compareCommand from './commands/compare.js';
+import * as envelopeCommand from './commands/envelope.js';
+import * as demoCommand from './commands/demo.js';
+import * as carCommand from './commands/car.js';
 
 interface CommandModule {
   register(program: Command): void;
 }
 
 // Order here is the order of `reflap --help`.
-const commandModules: CommandModule[] = [simulateCommand, budgetCommand];
+const commandModules: CommandModule[] = [simulateCommand, budgetCommand, whatifCommand, sweepCommand, stintCommand, compareCommand, envelopeCommand, lineCommand, carCommand, demoCommand];
 
 export function buildProgram(): Command {
   const program = new Command();

@@ -57,6 +57,8 @@ export interface GripStretch {
   kind: 'unused' | 'exceeded';
   /** Mean grip use of the driver over the stretch (1 = on the envelope). */
   meanGripUse: number;
+  /** Length of the stretch, m (also across the start line, where endM < startM). */
+  lengthM?: number;
 }
 
 /** One corner, found from the curvature, with the driver's numbers against the reference's. */
@@ -93,6 +95,21 @@ export interface CornerComparison {
   meanGripUse: number;
   peakGripUse: number;
   stretches: GripStretch[];
+  /** Stretch of the lap this corner owns (its approach, the corner and the run out of it), m; the corners'
+   * stretches cover the lap exactly once, so their timeLostS add up to the lap-time difference. */
+  ownStartM?: number;
+  ownEndM?: number;
+  /** Where the reference's slowest point falls relative to the apex, m (positive = after the apex). */
+  referenceMinSpeedOffsetFromApexM?: number;
+  /** Where the driver starts slowing without braking (lifts), m; null when the driver brakes or keeps the speed. */
+  driverLiftPointM?: number | null;
+  /** Driver's lift point minus the reference's point of slowing, m, where neither brakes; null otherwise. */
+  liftPointDeltaM?: number | null;
+  /** Coasting of the reference over the same stretch, s (null without pedal channels on the driver's side). */
+  referenceCoastingS?: number | null;
+  /** Mean and peak grip use of the reference through the corner, for scale. */
+  referenceMeanGripUse?: number;
+  referencePeakGripUse?: number;
 }
 
 export interface Finding {
@@ -117,4 +134,10 @@ export interface ComparisonResult {
   corners: CornerComparison[];
   findings: Finding[];
   notes: string[];
+  /** Which envelope the reference above uses: the car model's or the driver's demonstrated one. */
+  referenceEnvelopeKind?: string;
+  /** Reference lap time on the car model's envelope (the second gap, when the reference above is the demonstrated one). */
+  carModelLapTimeS?: number | null;
+  /** Grid step of deltaS and driverGripUse, m (station i is at i * stepM). */
+  stepM?: number;
 }

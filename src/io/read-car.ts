@@ -5,6 +5,7 @@ import { readFileSync } from 'node:fs';
 import { z } from 'zod';
 import { InputError } from '../errors.js';
 import type { Car } from '../car/types.js';
+import { bicycleIncompleteMessage } from '../car/bicycle-params.js';
 
 const positive = z.number().finite().positive();
 const nonNegative = z.number().finite().nonnegative();
@@ -158,7 +159,10 @@ export function carFromJson(value: unknown, source: string): Car {
   if (!parsed.success) {
     throw new InputError(`${source}: ${parsed.error.issues.map(describeIssue).join('; ')}`);
   }
-  return carFromFile(parsed.data, source);
+  const car = carFromFile(parsed.data, source);
+  const incomplete = car.model === 'bicycle' ? bicycleIncompleteMessage(car) : null;
+  if (incomplete) throw new InputError(`${source}: ${incomplete}`);
+  return car;
 }
 
 export function parseCarJson(text: string, source: string): Car {

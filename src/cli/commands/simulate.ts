@@ -7,10 +7,18 @@ import { buildEnvelope } from '../../car/build-envelope.js';
 import { traceCsv, type ExtraColumn } from '../../report/trace-csv.js';
 import { lapSummaryJson, lapSummaryText } from '../../report/lap-summary.js';
 import { outputBatch } from '../output.js';
+import { resolveLinePath } from './line.js';
+import { addReportOptions, addReportOutputs, reportWrittenText, type ReportOptionValues } from '../html-options.js';
+import { readEnvelopeFile } from '../../io/read-envelope.js';
+import { demonstratedEnvelope } from '../../car/demonstrated-envelope.js';
+import { bicycleSimulateExtras } from './car.js';
 
-interface SimulateValues extends TrackOptionValues, CarOptionValues {
+interface SimulateValues extends TrackOptionValues, CarOptionValues, ReportOptionValues {
   out?: string;
   json?: boolean;
+  envelope?: string;
+  line?: string;
+  checkTransient?: boolean;
 }
 
 export function register(program: Command): void {
@@ -20,22 +28,37 @@ export function register(program: Command): void {
   command
     .option('--out <file>', 'write the lap trace as CSV')
     .option('--json', 'print one JSON object instead of the summary')
-    .action((values: SimulateValues) => runSimulate(values));
+    .option('--envelope <file>', "drive on this demonstrated envelope (from `reflap envelope`) instead of the car model's")
+    .option('--line <auto|file>', "drive a racing line: 'auto' computes the time line first, or a line CSV from `reflap line --out`")
+    .option('--check-transient', 'follow the reference with the single-track model and a driver model, and report whether it is drivable');
+  addReportOptions(command).action((values: SimulateValues) => runSimulate(values));
 }
 
 export function runSimulate(values: SimulateValues): void {
   const track = loadTrack(values);
   const { car, ambient } = loadCar(values);
-  const envelope = buildEnvelope(car, ambient);
-  const result = simulate(track, car, { ambient, envelope, startSpeedMps: startSpeedMps(values) });
-  const extraColumns: ExtraColumn[] = [];
+  const envelope = values.envelope ? demonstratedEnvelope(readEnvelopeFile(values.envelope)) : buildEnvelope(car, ambient);
+  const line = values.line ? resolveLinePath(track, car, ambient, values.line, { envelope, startSpeedMps: startSpeedMps(values) }) : null;
+  const result = simulate(track, car, { ambient, envelope, startSpeedMps: startSpeedMps(values), path: line?.path });
+  const extraColumns: ExtraColumn[] = line
+    ? [
+        { name: 'offset_m', values: line.offsetM, digits: 4 },
+        { name: 'x_m', values: line.xM, digits: 3 },
+        { name: 'y_m', values: line.yM, digits: 3 },
+      ]
+    : [];
+  const bicycle = bicycleSimulateExtras(result, car, ambient, values.checkTransient === true);
+  extraColumns.push(...bicycle.columns);
   const outputs = outputBatch(inputFilesOf(values));
   if (values.out) outputs.add(values.out, traceCsv(result, extraColumns));
+  const reportFiles = addReportOutputs(outputs, values, { reference: result, carName: car.name, envelope });
   outputs.commit();
   if (values.json) {
-    process.stdout.write(JSON.stringify(lapSummaryJson(result, car.name), null, 2) + '\n');
+    process.stdout.write(JSON.stringify({ ...lapSummaryJson(result, car.name), ...bicycle.json }, null, 2) + '\n');
   } else {
     process.stdout.write(lapSummaryText(result, car.name));
+    process.stdout.write(bicycle.text);
     if (values.out) process.stdout.write(`Trace written to ${values.out}\n`);
+    process.stdout.write(reportWrittenText(reportFiles));
   }
 }

@@ -1,0 +1,49 @@
+// Benchmark of `reflap sweep`: 1,000 setups (a 10 x 10 x 10 grid) on a 5 km circuit at 1 m step, with one
+// worker thread and with two; target under 10 s, and two workers at least 1.6 times as fast as one.
+
+import { readFileSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+import { trackFromSegments } from '../src/track/segments.js';
+import { parseCarJson } from '../src/io/read-car.js';
+import { ambientFrom } from '../src/car/ambient.js';
+import { airInputsOf, parseVariation } from '../src/sweep/settings.js';
+import { runSweep } from '../src/sweep/run-sweep.js';
+import { benchmarkCircuitSegments } from './simulate.bench.js';
+import { availableParallelism as availableCores, loadavg } from 'node:os';
+import { peakRssMb } from './stats.js';
+
+const projectRoot = fileURLToPath(new URL('../..', import.meta.url));
+
+export async function run(): Promise<void> {
+  const car = parseCarJson(readFileSync(`${projectRoot}cars/tarnfell-gt.json`, 'utf8'), 'cars/tarnfell-gt.json');
+  const track = trackFromSegments({ name: 'benchmark circuit', closed: true, widthM: 12, segments: benchmarkCircuitSegments() }, 1, 'benchmark');
+  const base = { car, air: airInputsOf(ambientFrom()) };
+  const variations = [parseVariation('massKg=-45:+45:10'), parseVariation('tyre.muLat=-9%:+9%:2%'), parseVariation('airTempC=0:45:5')];
+  const times: Record<number, number> = {};
+  const cpuS: Record<number, number> = {};
+  const loadBefore = loadavg()[0]!;
+  let runs = 0;
+  let csvCheck = '';
+  for (const workers of [1, 2]) {
+    const started = performance.now();
+    const cpuStart = process.cpuUsage();
+    const output = await runSweep({ track, base, variations, mode: 'grid' }, { workers });
+    times[workers] = (performance.now() - started) / 1000;
+    // CPU time of the whole process, worker threads included: what the runs cost whatever else the machine does.
+    const cpu = process.cpuUsage(cpuStart);
+    cpuS[workers] = (cpu.user + cpu.system) / 1e6;
+    runs = output.table.records.length;
+    const digest = output.table.records.map((r) => r.lapTimeS).join(',');
+    if (csvCheck && csvCheck !== digest) throw new Error('sweep results differ between worker counts');
+    csvCheck = digest;
+  }
+  const ratio = times[1]! / times[2]!;
+  process.stdout.write(
+    `sweep: ${runs} runs (1,000 grid setups + baseline and difference pairs) on ${(track.lengthM / 1000).toFixed(2)} km at 1 m step\n` +
+      `  1 worker   ${times[1]!.toFixed(2)} s wall, ${cpuS[1]!.toFixed(2)} s CPU (${((cpuS[1]! * 1000) / runs).toFixed(2)} ms CPU per run)\n` +
+      `  2 workers  ${times[2]!.toFixed(2)} s wall, ${cpuS[2]!.toFixed(2)} s CPU (target < 10 s wall)\n` +
+      `  speed-up   ${ratio.toFixed(2)} x wall (target >= 1.6 x)\n` +
+      `  load       ${loadBefore.toFixed(1)} before, ${loadavg()[0]!.toFixed(1)} after on ${availableCores()} cores: wall times hold only on an otherwise idle machine\n` +
+      `  peak RSS   ${peakRssMb().toFixed(0)} MB (main thread's process)\n`,
+  );
+}

@@ -1,0 +1,86 @@
+// `reflap compare`: a driver's logged lap against the reference lap of the same car in the same conditions,
+// corner by corner, as a table and ranked findings, a JSON object, and the aligned traces as CSV.
+
+import path from 'node:path';
+import type { Command } from 'commander';
+import { addCarOptions, addTrackOptions, inputFilesOf, loadCar, loadTrack, startSpeedMps, type CarOptionValues, type TrackOptionValues } from '../options.js';
+import { outputBatch } from '../output.js';
+import { addTelemetryOptions, lapOption, loadSession, startFinishOption, type TelemetryOptionValues } from './telemetry-options.js';
+import { compareSession, type SessionComparison } from '../../compare/compare-session.js';
+import { readEnvelopeFile } from '../../io/read-envelope.js';
+import { alignedTracesCsv, compareSummaryJson, compareSummaryText } from '../../report/compare-summary.js';
+import { resolveLinePath } from './line-option.js';
+import type { Ambient, Car } from '../../car/types.js';
+import type { TrackGrid } from '../../track/types.js';
+import type { TelemetrySession } from '../../compare/types.js';
+import { addReportOptions, addReportOutputs, reportWrittenText, type ReportOptionValues } from '../html-options.js';
+import { sessionReportInput } from '../../report/html/from-session.js';
+
+export interface CompareValues extends TrackOptionValues, CarOptionValues, TelemetryOptionValues, ReportOptionValues {
+  line?: string;
+  envelope?: string;
+  json?: boolean;
+  out?: string;
+}
+
+export function register(program: Command): void {
+  const command = program.command('compare').description("compare a driver's logged lap with the reference lap of the same car, corner by corner");
+  addTrackOptions(command);
+  addCarOptions(command);
+  addTelemetryOptions(command);
+  command
+    .option('--line <auto|file>', 'run the reference on a racing line: auto = optimise one (default: the centreline)')
+    .option('--envelope <file>', "use this demonstrated envelope (from `reflap envelope`) for the reference instead of the car model's")
+    .option('--json', 'print one JSON object instead of the summary')
+    .option('--out <dir>', 'write the aligned traces (aligned.csv) and the corner table (corners.csv) into this folder');
+  addReportOptions(command).action((values: CompareValues) => runCompare(values));
+}
+
+/** The comparison from already-read records, shared by `compare` and `demo`. */
+export function compareFromRecords(track: TrackGrid, car: Car, ambient: Ambient, session: TelemetrySession, values: Partial<CompareValues>): SessionComparison {
+  const lap = values.lap !== undefined ? lapOption(values as TelemetryOptionValues) : undefined;
+  const startFinish = values.startFinish !== undefined ? startFinishOption(values as TelemetryOptionValues) : undefined;
+  const envelopeRecord = values.envelope ? readEnvelopeFile(values.envelope) : undefined;
+  const linePath = values.line ? resolveLinePath(values.line, track, car, ambient) : undefined;
+  return compareSession(track, car, session, {
+    ambient,
+    ...(lap !== undefined ? { lap } : {}),
+    ...(startFinish ? { startFinish } : {}),
+    ...(linePath ? { path: linePath } : {}),
+    ...(envelopeRecord ? { envelopeRecord } : {}),
+    startSpeedMps: values.track ? startSpeedMps(values as TrackOptionValues) : 0,
+  });
+}
+
+/** Files `--out DIR` writes: the aligned traces and the corner table. */
+export function comparisonFiles(comparison: SessionComparison, dir: string): { file: string; content: string }[] {
+  return [
+    { file: path.join(dir, 'aligned.csv'), content: alignedTracesCsv(comparison.result, comparison.reference, comparison.lap) },
+    { file: path.join(dir, 'corners.csv'), content: cornersCsv(comparison) },
+  ];
+}
+
+function cornersCsv(comparison: SessionComparison): string {
+  const rows = compareSummaryJson(comparison.result).corners;
+  const columns = ['id', 'name', 'entryM', 'apexM', 'exitM', 'brakingPointDeltaM', 'brakingPointDeltaS', 'entrySpeedDriverKph', 'entrySpeedReferenceKph', 'minSpeedDriverKph', 'minSpeedReferenceKph', 'minSpeedDeltaKph', 'minSpeedOffsetFromApexM', 'exitSpeedDriverKph', 'exitSpeedReferenceKph', 'entryTimeLostS', 'middleTimeLostS', 'exitTimeLostS', 'timeLostS', 'coastingS', 'meanGripUse', 'peakGripUse'] as const;
+  const cell = (value: unknown) => (value === null || value === undefined ? '' : typeof value === 'string' ? `"${value.replace(/"/g, '""')}"` : String(value));
+  return [columns.join(','), ...rows.map((row) => columns.map((column) => cell(row[column])).join(','))].join('\n') + '\n';
+}
+
+export async function runCompare(values: CompareValues): Promise<void> {
+  const track = loadTrack(values);
+  const { car, ambient } = loadCar(values);
+  const session = await loadSession(values);
+  const comparison = compareFromRecords(track, car, ambient, session, values);
+  const outputs = outputBatch(inputFilesOf(values));
+  if (values.out) for (const { file, content } of comparisonFiles(comparison, values.out)) outputs.add(file, content);
+  const reportFiles = addReportOutputs(outputs, values, sessionReportInput(comparison, car, ambient));
+  outputs.commit();
+  if (values.json) {
+    process.stdout.write(JSON.stringify(compareSummaryJson(comparison.result), null, 2) + '\n');
+  } else {
+    process.stdout.write(compareSummaryText(comparison.result));
+    if (values.out) process.stdout.write(`Aligned traces and corner table written to ${values.out}\n`);
+    process.stdout.write(reportWrittenText(reportFiles));
+  }
+}

@@ -1,0 +1,181 @@
+// `reflap sweep`: many setups (a full grid or one field at a time) across worker threads, with the lap time
+// and every braking point per run, a sensitivity table around the baseline, shards and their merge.
+
+import type { Command } from 'commander';
+import { Option } from 'commander';
+import { readFileSync } from 'node:fs';
+import { addCarOptions, addTrackOptions, inputFilesOf, loadCar, loadTrack, numberOption, startSpeedMps, type CarOptionValues, type TrackOptionValues } from '../options.js';
+import { writeFileAtomic } from '../output.js';
+import { createProgress } from '../progress.js';
+import { parseSetting, parseVariation, setupBaseFrom, type Setting, type SetupBase } from '../../sweep/settings.js';
+import type { Path, TrackGrid } from '../../track/types.js';
+import { parseShard, type SweepMode } from '../../sweep/plan.js';
+import { runSweep } from '../../sweep/run-sweep.js';
+import { defaultWorkerCount } from '../../sweep/pool.js';
+import { mergeSweepCsv, sweepCsv } from '../../sweep/csv.js';
+import { sensitivities, type Sensitivity, type SweepTable } from '../../sweep/table.js';
+import { DEFAULT_MATCH_TOLERANCE_M } from '../../sweep/match-zones.js';
+import { formatTable } from '../../report/text-table.js';
+import { SAFETY_CAUTION } from '../../report/lap-summary.js';
+import { formatLapTime } from '../../units.js';
+import { InputError } from '../../errors.js';
+import { ambientFrom } from '../../car/ambient.js';
+import { resolveLinePath } from './line.js';
+
+interface SweepValues extends Partial<TrackOptionValues>, Partial<CarOptionValues> {
+  vary?: string[];
+  set?: string[];
+  mode?: SweepMode;
+  workers?: string;
+  shard?: string;
+  merge?: string[];
+  out?: string;
+  matchM?: string;
+  line?: string;
+  json?: boolean;
+}
+
+export function register(program: Command): void {
+  const command = program.command('sweep').description('many setups across worker threads: lap times, braking points and sensitivities');
+  addTrackOptions(command);
+  addCarOptions(command);
+  // --merge needs neither a track nor a car; the action checks them for a sweep.
+  for (const option of command.options) if (option.long === '--track' || option.long === '--car') option.mandatory = false;
+  command
+    .option('--vary <field=from:to:step...>', 'a field to sweep: massKg=600:660:10, tyre.muLat=-10%:+10%:5%, airTempC=10:40:5')
+    .option('--set <field=value...>', 'fixed changes for every run, as in whatif')
+    .addOption(new Option('--mode <mode>', 'every combination, or one field at a time with the others at the baseline').choices(['grid', 'one-at-a-time']).default('grid'))
+    .option('--workers <n>', 'worker threads (default: the number of cores; 0 = in this thread)')
+    .option('--shard <i/n>', 'run only shard I of N (I from 1), for batch systems; join the CSVs with --merge')
+    .option('--merge <files...>', 'join shard CSVs of one sweep into one (no new runs)')
+    .option('--out <file>', 'write the runs as CSV (see docs/setup-sweeps.md for the columns)')
+    .option('--match-m <m>', `largest distance between the slowest points of one corner in two runs, m (default ${DEFAULT_MATCH_TOLERANCE_M})`)
+    .option('--line <auto|file>', "drive a racing line (held fixed for every setup): 'auto' computes the baseline car's time line, or a line CSV from `reflap line --out`")
+    .option('--json', 'print one JSON object instead of the tables')
+    .action((values: SweepValues) => runSweepCommand(values));
+}
+
+export type SetupOptionValues = TrackOptionValues & CarOptionValues & { line?: string };
+
+/** Track, base car and air (with fixed --set changes), start speed and the racing line if asked: what every setup run shares. */
+export function loadSetupInputs(values: SetupOptionValues, fixed: readonly Setting[]): { track: TrackGrid; base: SetupBase; start: number; path: Path | undefined } {
+  const track = loadTrack(values);
+  const { car, ambient } = loadCar(values);
+  const base = setupBaseFrom(car, ambient, fixed);
+  const start = startSpeedMps(values);
+  const path = values.line ? resolveLinePath(track, base.car, ambientFrom(base.air), values.line, { startSpeedMps: start }).path : undefined;
+  return { track, base, start, path };
+}
+
+/** Parses --workers: default the number of cores, 0 = in the calling thread. */
+export function workerCount(text: string | undefined): number {
+  if (text === undefined) return defaultWorkerCount();
+  const workers = numberOption(text, '--workers', 1);
+  if (!Number.isInteger(workers) || workers < 0 || workers > 256) throw new InputError(`option --workers: ${text} should be a whole number from 0 to 256`);
+  return workers;
+}
+
+const perUnit = (value: number | null): string => {
+  if (value === null || !Number.isFinite(value)) return '';
+  if (value === 0) return '0';
+  const magnitude = Math.abs(value);
+  return magnitude >= 0.01 && magnitude < 1e5 ? value.toFixed(Math.max(0, 4 - Math.floor(Math.log10(magnitude)) - 1)) : value.toExponential(3);
+};
+
+export function sensitivityText(table: SweepTable, found: Sensitivity[]): string {
+  if (found.length === 0) return 'No sensitivities: the runs around the baseline are not in this table.\n';
+  const header = ['per unit of', ...found.map((s) => `${s.field} (${s.unit})`)];
+  const rows = [
+    ['lap time, s', ...found.map((s) => perUnit(s.lapTimeSPerUnit))],
+    ...table.meta.corners.map((corner, c) => [`c${corner.corner} braking point, m`, ...found.map((s) => perUnit(s.brakingPointMPerUnit[c] ?? null))]),
+    ['difference step ±', ...found.map((s) => `${s.stepUsed}${s.scheme === 'central' ? '' : ` (${s.scheme})`}`)],
+  ];
+  return `Sensitivity around the baseline (central differences; braking point: negative = earlier)\n${formatTable(header, rows)}\n`;
+}
+
+function summaryText(table: SweepTable, found: Sensitivity[], complete: boolean, out: string | undefined): string {
+  const { meta, records } = table;
+  const sweepRuns = records.filter((r) => r.kind === 'grid' || r.kind === 'oat');
+  const lines = [`${meta.trackName} · ${meta.carName} · ${meta.mode} sweep of ${meta.fields.join(', ')}`, `${records.length} of ${meta.totalRuns} runs${complete ? '' : ' (one shard)'}`];
+  const baseline = records.find((r) => r.kind === 'baseline');
+  if (baseline) lines.push(`Baseline lap ${formatLapTime(baseline.lapTimeS)} (${meta.fields.map((f, k) => `${f} ${meta.baseValues[k]}`).join(', ')})`);
+  if (sweepRuns.length > 0) {
+    const best = sweepRuns.reduce((a, b) => (b.lapTimeS < a.lapTimeS ? b : a));
+    const worst = sweepRuns.reduce((a, b) => (b.lapTimeS > a.lapTimeS ? b : a));
+    const at = (r: typeof best) => meta.fields.map((f, k) => `${f} ${r.values[k]}`).join(', ');
+    lines.push(`Quickest ${formatLapTime(best.lapTimeS)} at ${at(best)}`, `Slowest  ${formatLapTime(worst.lapTimeS)} at ${at(worst)}`);
+  }
+  lines.push('');
+  if (!out && sweepRuns.length <= 40 && sweepRuns.length > 0) {
+    lines.push(formatTable(['run', ...meta.fields, 'lap s', ...meta.corners.map((c) => `c${c.corner} brake m`)],
+      sweepRuns.map((r) => [String(r.run), ...r.values.map(String), r.lapTimeS.toFixed(3), ...r.brakingPointM.map((m) => (Number.isFinite(m) ? m.toFixed(1) : '-'))])), '');
+  } else if (!out) {
+    lines.push('Use --out FILE to keep every run (lap time and braking points) as CSV.', '');
+  } else {
+    lines.push(`Runs written to ${out}`, '');
+  }
+  lines.push(sensitivityText(table, found).trimEnd(), '', SAFETY_CAUTION);
+  return lines.join('\n') + '\n';
+}
+
+function sweepJson(table: SweepTable, found: Sensitivity[], complete: boolean) {
+  const nan = (v: number) => (Number.isFinite(v) ? v : null);
+  return {
+    meta: { ...table.meta, baseValues: table.meta.baseValues.map(nan) },
+    complete,
+    runs: table.records.map((r) => ({
+      ...r,
+      values: r.values.map(nan),
+      brakingPointM: r.brakingPointM.map(nan),
+      entrySpeedKph: r.entrySpeedKph.map(nan),
+      minSpeedKph: r.minSpeedKph.map(nan),
+    })),
+    sensitivities: found,
+  };
+}
+
+export async function runSweepCommand(values: SweepValues): Promise<void> {
+  if (values.merge) {
+    if (values.vary || values.shard) throw new InputError('sweep --merge joins finished shards; it takes no --vary or --shard');
+    const files = values.merge.map((file) => {
+      try {
+        return { text: readFileSync(file, 'utf8'), source: file };
+      } catch {
+        throw new InputError(`${file}: cannot read the shard CSV`);
+      }
+    });
+    const { csv, table } = mergeSweepCsv(files);
+    if (values.out) writeFileAtomic(values.out, csv, values.merge);
+    const found = sensitivities(table);
+    if (values.json) process.stdout.write(JSON.stringify(sweepJson(table, found, true), null, 2) + '\n');
+    else if (values.out) process.stdout.write(summaryText(table, found, true, values.out));
+    else process.stdout.write(csv);
+    return;
+  }
+  if (!values.track) throw new InputError("sweep: required option '--track <file>' not specified");
+  if (!values.car) throw new InputError("sweep: required option '--car <file>' not specified");
+  const variations = (values.vary ?? []).map((text) => parseVariation(text));
+  if (variations.length === 0) throw new InputError('sweep: give at least one --vary FIELD=FROM:TO:STEP (or --merge FILES)');
+  const settings = (values.set ?? []).map((text) => parseSetting(text));
+  const shard = values.shard ? parseShard(values.shard) : undefined;
+  if (shard && !values.out) throw new InputError('sweep --shard: give --out FILE for the shard CSV');
+  const workers = workerCount(values.workers);
+  const matchToleranceM = numberOption(values.matchM, '--match-m', DEFAULT_MATCH_TOLERANCE_M);
+  if (!(matchToleranceM > 0)) throw new InputError(`option --match-m: ${matchToleranceM} must be positive`);
+  const { track, base, start, path } = loadSetupInputs(values as SetupOptionValues, settings);
+  const progress = createProgress({ label: 'sweep', json: values.json });
+  let output;
+  try {
+    output = await runSweep(
+      { track, base, variations, mode: values.mode ?? 'grid', settings: settings.map((s) => s.text), startSpeedMps: start, matchToleranceM, ...(path ? { path } : {}), ...(shard ? { shard } : {}) },
+      { workers, onProgress: (done, total) => progress.update(done, total) },
+    );
+  } finally {
+    progress.stop();
+  }
+  const { table, complete } = output;
+  if (values.out) writeFileAtomic(values.out, sweepCsv(table), inputFilesOf(values));
+  const found = sensitivities(table);
+  if (values.json) process.stdout.write(JSON.stringify(sweepJson(table, found, complete), null, 2) + '\n');
+  else process.stdout.write(summaryText(table, found, complete, values.out));
+}

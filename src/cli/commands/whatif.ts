@@ -1,0 +1,115 @@
+// `reflap whatif`: one setup change against the baseline: the lap time change and, corner by corner, how
+// far the braking point moves and what the entry speed, slowest speed and zone time do.
+
+import type { Command } from 'commander';
+import { addCarOptions, addTrackOptions, numberOption, type CarOptionValues, type TrackOptionValues } from '../options.js';
+import { simulate } from '../../solve/simulate.js';
+import { applySettings, baseValueOf, parseSetting, type Setting, type SetupBase } from '../../sweep/settings.js';
+import { compareLaps, type LapComparison } from '../../sweep/compare-laps.js';
+import { DEFAULT_MATCH_TOLERANCE_M } from '../../sweep/match-zones.js';
+import { unitOf } from '../../sweep/fields.js';
+import { formatTable } from '../../report/text-table.js';
+import { round, SAFETY_CAUTION } from '../../report/lap-summary.js';
+import { formatLapTime } from '../../units.js';
+import { InputError } from '../../errors.js';
+import { loadSetupInputs } from './sweep.js';
+import { ambientFrom } from '../../car/ambient.js';
+
+interface WhatifValues extends TrackOptionValues, CarOptionValues {
+  set?: string[];
+  matchM?: string;
+  line?: string;
+  json?: boolean;
+}
+
+export function register(program: Command): void {
+  const command = program.command('whatif').description('one setup change against the baseline: lap time and braking points');
+  addTrackOptions(command);
+  addCarOptions(command);
+  command
+    .option('--set <field=value...>', 'change: massKg=1400 (absolute), massKg=+20 or -20 (difference), tyre.muLat=-5% (percent); air too: airTempC=35')
+    .option('--match-m <m>', `largest distance between the slowest points of one corner in the two laps, m (default ${DEFAULT_MATCH_TOLERANCE_M})`)
+    .option('--line <auto|file>', "drive a racing line (held fixed for every setup): 'auto' computes the baseline car's time line, or a line CSV from `reflap line --out`")
+    .option('--json', 'print one JSON object instead of the table')
+    .action((values: WhatifValues) => runWhatif(values));
+}
+
+const signed = (value: number, digits: number) => `${value >= 0 ? '+' : ''}${value.toFixed(digits)}`;
+
+export function describeSettings(base: SetupBase, settings: readonly Setting[], values: readonly number[]): string[] {
+  return settings.map((setting, k) => {
+    const before = baseValueOf(base, setting.field);
+    const unit = unitOf(setting.field);
+    return `${setting.field} ${before === null ? '(none)' : before} -> ${values[k]}${unit && unit !== '1' ? ` ${unit}` : ''}`;
+  });
+}
+
+export function whatifJson(comparison: LapComparison, changes: { field: string; from: number | null; to: number }[]) {
+  const r = (v: number | null, digits: number) => (v === null ? null : round(v, digits));
+  return {
+    changes,
+    baselineLapTimeS: round(comparison.baselineLapTimeS, 4),
+    changedLapTimeS: round(comparison.changedLapTimeS, 4),
+    lapTimeDeltaS: round(comparison.lapTimeDeltaS, 4),
+    brakingZones: comparison.zones.map((zone) => ({
+      corner: zone.corner,
+      startM: round(zone.startM, 2),
+      minSpeedAtM: round(zone.minSpeedAtM, 2),
+      brakingPointM: round(zone.brakingPointM, 2),
+      changedBrakingPointM: r(zone.changedBrakingPointM, 2),
+      brakingPointShiftM: r(zone.brakingPointShiftM, 2),
+      entrySpeedDeltaKph: r(zone.entrySpeedDeltaKph, 2),
+      minSpeedDeltaKph: r(zone.minSpeedDeltaKph, 2),
+      zoneTimeDeltaS: r(zone.zoneTimeDeltaS, 4),
+    })),
+    newBrakingZones: comparison.newZones.map((zone) => ({ startM: round(zone.startM, 2), minSpeedAtM: round(zone.minSpeedAtM, 2) })),
+  };
+}
+
+export function whatifText(comparison: LapComparison, described: string[], trackName: string, carName: string): string {
+  const rows = comparison.zones.map((zone) => {
+    const shift = zone.brakingPointShiftM;
+    const moved = shift === null ? 'no braking now' : Math.abs(shift) < 0.05 ? '0.0' : `${signed(shift, 1)} ${shift < 0 ? 'earlier' : 'later'}`;
+    return [
+      `c${zone.corner}`,
+      zone.minSpeedAtM.toFixed(0),
+      zone.brakingPointM.toFixed(1),
+      moved,
+      zone.entrySpeedDeltaKph === null ? '' : signed(zone.entrySpeedDeltaKph, 1),
+      zone.minSpeedDeltaKph === null ? '' : signed(zone.minSpeedDeltaKph, 1),
+      zone.zoneTimeDeltaS === null ? '' : signed(zone.zoneTimeDeltaS, 3),
+    ];
+  });
+  const lines = [
+    `${trackName} · ${carName}`,
+    `Change: ${described.join('; ')}`,
+    `Lap time  ${formatLapTime(comparison.baselineLapTimeS)} -> ${formatLapTime(comparison.changedLapTimeS)}  (${signed(comparison.lapTimeDeltaS, 3)} s)`,
+    '',
+    formatTable(['corner', 'slowest at m', 'brake at m', 'braking point m', 'entry km/h', 'slowest km/h', 'zone time s'], rows),
+  ];
+  if (comparison.newZones.length > 0) {
+    lines.push('', `New braking zones: ${comparison.newZones.map((z) => `brake at ${z.startM.toFixed(0)} m for ${z.minSpeedAtM.toFixed(0)} m`).join(', ')}`);
+  }
+  lines.push('', SAFETY_CAUTION);
+  return lines.join('\n') + '\n';
+}
+
+export function runWhatif(values: WhatifValues): void {
+  const texts = values.set ?? [];
+  if (texts.length === 0) throw new InputError('whatif: give at least one --set FIELD=VALUE');
+  const settings = texts.map((text) => parseSetting(text));
+  const toleranceM = numberOption(values.matchM, '--match-m', DEFAULT_MATCH_TOLERANCE_M);
+  if (!(toleranceM > 0)) throw new InputError(`option --match-m: ${toleranceM} must be positive`);
+  const { track, base, start, path } = loadSetupInputs(values, []);
+  const { car } = base;
+  const changed = applySettings(base, settings);
+  const baseline = simulate(track, car, { ambient: ambientFrom(base.air), startSpeedMps: start, ...(path ? { path } : {}) });
+  const result = simulate(track, changed.car, { ambient: changed.ambient, startSpeedMps: start, ...(path ? { path } : {}) });
+  const comparison = compareLaps(baseline, result, toleranceM);
+  if (values.json) {
+    const changes = settings.map((setting, k) => ({ field: setting.field, from: baseValueOf(base, setting.field), to: changed.values[k]! }));
+    process.stdout.write(JSON.stringify(whatifJson(comparison, changes), null, 2) + '\n');
+  } else {
+    process.stdout.write(whatifText(comparison, describeSettings(base, settings, changed.values), track.name, car.name));
+  }
+}

@@ -1,0 +1,219 @@
+// A cut lap resampled onto the track's distance grid: each sample's place along the lap (projected positions,
+// or the scaled distance channel) maps time and every channel onto the centreline stations by linear
+// interpolation; missing channels are derived (./derive.ts). When the timing line is not at station 0 the lap is
+// read from station 0 round to station 0 (the stretch before the line comes from the lap's end), so timeS[0] = 0.
+
+import { InputError } from '../errors.js';
+import type { TrackGrid } from '../track/types.js';
+import { formatLapTime } from '../units.js';
+import type { DriverLap, TelemetrySession } from './types.js';
+import { cutLaps, placeSession, sessionDistance, type LapCut } from './laps.js';
+import { axFromSpeed, ayFromCurvature, correlation, curvatureTooNoisy, pathCurvature, speedFromPositions } from './derive.js';
+
+export interface SelectOptions {
+  lap?: number;
+  startFinish?: { xM: number; yM: number };
+}
+
+export function alignLap(session: TelemetrySession, lap: LapCut, track: TrackGrid): DriverLap {
+  return alignLapWithNotes(session, lap, track).lap;
+}
+
+/** Linear interpolation of values at time tq, with samples i and i + 1 bracketing it. */
+function atTime(values: Float64Array, timeS: Float64Array, i: number, tq: number): number {
+  const j = Math.min(i + 1, timeS.length - 1);
+  const span = timeS[j]! - timeS[i]!;
+  const w = span > 0 ? Math.min(1, Math.max(0, (tq - timeS[i]!) / span)) : 0;
+  return values[i]! + w * (values[j]! - values[i]!);
+}
+
+export function alignLapWithNotes(session: TelemetrySession, lap: LapCut, track: TrackGrid): { lap: DriverLap; notes: string[] } {
+  const notes: string[] = [];
+  if (lap.startTimeS === undefined || lap.endTimeS === undefined || lap.progressStartM === undefined) {
+    throw new Error('alignLap needs a LapCut made by cutLaps');
+  }
+  const L = track.lengthM;
+  const n = track.distanceM.length;
+  const t = session.timeS;
+  const startT = lap.startTimeS;
+  const endT = lap.endTimeS;
+  const lapTimeS = endT - startT;
+  const placed = placeSession(session, track);
+  const distance = placed ? null : sessionDistance(session);
+  const scale = lap.distanceScale ?? 1;
+
+  // Sample times strictly inside the lap, with anchors at its two ends: (0, 0) and (L, lapTime).
+  let first = lap.startIndex;
+  while (first <= lap.endIndex && t[first]! <= startT) first++;
+  let last = lap.endIndex;
+  while (last >= first && t[last]! >= endT) last--;
+  const inner = Math.max(0, last - first + 1);
+  const m = inner + 2;
+  const along = new Float64Array(m);
+  const elapsed = new Float64Array(m);
+  along[m - 1] = L;
+  elapsed[m - 1] = lapTimeS;
+  let running = 0;
+  for (let k = 0; k < inner; k++) {
+    const i = first + k;
+    let r = placed ? placed.progressM[i]! - lap.progressStartM : distance![i]! * scale - lap.progressStartM;
+    // Monotone along the lap: small backward steps (GPS jitter, a stop) hold the furthest point reached.
+    if (r < running) r = running;
+    if (r > L) r = L;
+    running = r;
+    along[k + 1] = r;
+    elapsed[k + 1] = t[i]! - startT;
+  }
+  const startBracket = Math.max(0, first - 1);
+  const endBracket = Math.max(0, last);
+  const channelAt = (values: Float64Array): Float64Array => {
+    const out = new Float64Array(m);
+    out[0] = atTime(values, t, startBracket, startT);
+    for (let k = 0; k < inner; k++) out[k + 1] = values[first + k]!;
+    out[m - 1] = atTime(values, t, endBracket, endT);
+    return out;
+  };
+
+  // Stations in the order the lap passes them: from the line round to the line.
+  const lineM = track.closed ? (lap.startFinishM ?? 0) : 0;
+  const firstStation = track.closed ? Math.ceil(lineM / track.stepM - 1e-9) % n : 0;
+  const stationAlong = new Float64Array(n);
+  const weightIndex = new Int32Array(n);
+  const weight = new Float64Array(n);
+  let k = 0;
+  for (let c = 0; c < n; c++) {
+    const j = (firstStation + c) % n;
+    let r = track.distanceM[j]! - lineM;
+    if (r < 0) r += L;
+    if (c === 0 && r > L - 1e-9) r = 0;
+    stationAlong[j] = r;
+    while (k < m - 2 && along[k + 1]! <= r) k++;
+    const span = along[k + 1]! - along[k]!;
+    weightIndex[j] = k;
+    weight[j] = span > 0 ? Math.min(1, Math.max(0, (r - along[k]!) / span)) : 0;
+  }
+  const resample = (values: Float64Array): Float64Array => {
+    const out = new Float64Array(n);
+    for (let j = 0; j < n; j++) {
+      const a = weightIndex[j]!;
+      out[j] = values[a]! + weight[j]! * (values[a + 1]! - values[a]!);
+    }
+    return out;
+  };
+  const resampleHeld = (values: Float64Array): Float64Array => {
+    const out = new Float64Array(n);
+    for (let j = 0; j < n; j++) out[j] = weight[j]! < 0.5 ? values[weightIndex[j]!]! : values[weightIndex[j]! + 1]!;
+    return out;
+  };
+  const channel = (values: Float64Array | null, held = false) => (values ? (held ? resampleHeld : resample)(channelAt(values)) : null);
+
+  // Time from station 0 (rotated when the line is elsewhere, so timeS[0] = 0 and the lap time is kept).
+  const passTime = resample(elapsed);
+  const timeS = new Float64Array(n);
+  const zeroTime = passTime[0]!;
+  for (let j = 0; j < n; j++) {
+    const sinceZero = passTime[j]! - zeroTime;
+    timeS[j] = sinceZero >= -1e-12 ? Math.max(0, sinceZero) : sinceZero + lapTimeS;
+  }
+
+  const derivedChannels: string[] = [];
+  const xM = placed ? channel(placed.xM) : null;
+  const yM = placed ? channel(placed.yM) : null;
+
+  let speedMps = channel(session.speedMps);
+  if (!speedMps) {
+    derivedChannels.push('speedMps');
+    if (placed) {
+      const a = Math.max(0, lap.startIndex - 2);
+      const b = Math.min(session.count, lap.endIndex + 3);
+      const local = speedFromPositions(t.subarray(a, b), placed.xM.subarray(a, b), placed.yM.subarray(a, b));
+      const full = new Float64Array(session.count);
+      full.set(local, a);
+      speedMps = channel(full)!;
+      notes.push('speed derived from the positions');
+    } else {
+      // From the pass times of neighbouring stations along the centreline.
+      speedMps = new Float64Array(n);
+      for (let j = 0; j < n; j++) {
+        const previous = j > 0 ? j - 1 : track.closed ? n - 1 : 0;
+        const next = j < n - 1 ? j + 1 : track.closed ? 0 : n - 1;
+        let dt = passTime[next]! - passTime[previous]!;
+        if (dt < 0) dt += lapTimeS;
+        const ds = (next - previous + n) % n || 1;
+        speedMps[j] = dt > 0 ? (ds * track.stepM) / dt : 0;
+      }
+      notes.push('speed derived from the distance channel');
+    }
+  }
+
+  const derivedAx = axFromSpeed(speedMps, track.stepM, track.closed);
+  let axMps2 = channel(session.axMps2);
+  if (!axMps2) {
+    axMps2 = derivedAx;
+    derivedChannels.push('axMps2');
+  } else if (correlation(axMps2, derivedAx) < -0.5) {
+    for (let j = 0; j < n; j++) axMps2[j] = -axMps2[j]!;
+    notes.push('the logged longitudinal acceleration runs opposite to the speed trace: sign turned (positive = speeding up)');
+  }
+
+  let curvature = track.curvaturePerM;
+  if (xM && yM) {
+    const own = pathCurvature(xM, yM, track.stepM, track.closed);
+    if (curvatureTooNoisy(own, track.curvaturePerM)) notes.push("the driver's path is too noisy for its curvature: lateral acceleration uses the track's");
+    else curvature = own;
+  }
+  const derivedAy = ayFromCurvature(speedMps, curvature);
+  let ayMps2 = channel(session.ayMps2);
+  if (!ayMps2) {
+    ayMps2 = derivedAy;
+    derivedChannels.push('ayMps2');
+  } else if (correlation(ayMps2, derivedAy) < -0.5) {
+    for (let j = 0; j < n; j++) ayMps2[j] = -ayMps2[j]!;
+    notes.push('the logged lateral acceleration is positive to the right: sign turned (positive = left)');
+  }
+
+  return {
+    lap: {
+      source: session.source,
+      lapNumber: lap.lapNumber,
+      lapTimeS,
+      timeS,
+      speedMps,
+      throttle: channel(session.throttle),
+      brake: channel(session.brake),
+      axMps2,
+      ayMps2,
+      steeringDeg: channel(session.steeringDeg),
+      gear: channel(session.gear, true),
+      rpm: channel(session.rpm),
+      xM,
+      yM,
+      derivedChannels,
+    },
+    notes,
+  };
+}
+
+/** Cuts the session and aligns one lap: the given lap number, else the fastest complete lap. */
+export function selectLap(session: TelemetrySession, track: TrackGrid, options: SelectOptions = {}): { lap: DriverLap; laps: LapCut[]; notes: string[] } {
+  const cut = cutLaps(session, track, options.startFinish ? { startFinish: options.startFinish } : {});
+  const notes = [...session.notes, ...cut.notes];
+  const complete = cut.laps.filter((lap) => lap.complete);
+  let chosen: LapCut | undefined;
+  if (options.lap !== undefined) {
+    chosen = cut.laps.find((lap) => lap.lapNumber === options.lap);
+    if (!chosen) {
+      throw new InputError(`${session.source}: --lap ${options.lap}: no such lap (laps found: ${cut.laps.map((lap) => lap.lapNumber).join(', ') || 'none'})`);
+    }
+    if (!chosen.complete) throw new InputError(`${session.source}: --lap ${options.lap} is not a complete lap: ${chosen.reason}`);
+  } else {
+    if (complete.length === 0) {
+      const why = cut.laps.map((lap) => `lap ${lap.lapNumber}: ${lap.reason}`).join('; ');
+      throw new InputError(`${session.source}: no complete lap in the session on track ${track.name} (${why || 'no laps'})`);
+    }
+    chosen = complete.reduce((best, lap) => (lap.lapTimeS < best.lapTimeS ? lap : best));
+    notes.push(`lap ${chosen.lapNumber} chosen: the fastest of ${complete.length} complete lap${complete.length > 1 ? 's' : ''} (${formatLapTime(chosen.lapTimeS)})`);
+  }
+  const aligned = alignLapWithNotes(session, chosen, track);
+  return { lap: aligned.lap, laps: cut.laps, notes: [...notes, ...aligned.notes] };
+}

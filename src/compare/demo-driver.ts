@@ -1,0 +1,278 @@
+// An invented driver for the demo: the car's own reference lap driven a little below the limit, with four faults
+// a coach would recognise (brakes too early at one corner, too late and too hard at another, coasts through a
+// third, lifts early at a fast one), logged at 20 Hz with sensor noise and GPS noise (seeded, reproducible).
+
+import type { Envelope } from '../car/envelope.js';
+import type { LapResult } from '../solve/types.js';
+import type { TrackGrid } from '../track/types.js';
+import { localPlane } from '../io/telemetry/geo.js';
+import { detectCorners, type CornerSpan } from './corners.js';
+import { STANDARD_GRAVITY_MPS2 } from '../units.js';
+
+export interface DemoFault {
+  kind: 'early-braking' | 'late-hard-braking' | 'coasting' | 'early-lift';
+  cornerId: number;
+  cornerName: string | null;
+}
+
+export interface DemoDriverLap {
+  /** On the track grid: speed, pedals (0-1), acceleration and time, as the invented driver drives them. */
+  speedMps: Float64Array;
+  throttle: Float64Array;
+  brake: Float64Array;
+  timeS: Float64Array;
+  lapTimeS: number;
+  faults: DemoFault[];
+}
+
+/** Share of the reference's speed the driver carries everywhere (a little below the limit). */
+const PACE = 0.985;
+
+/** Seeded generator (mulberry32: 32-bit state, full period), and Gaussian draws by Box and Muller (1958). */
+export function seededRandom(seed: number): { uniform: () => number; gaussian: () => number } {
+  let state = seed >>> 0;
+  const uniform = () => {
+    state = (state + 0x6d2b79f5) >>> 0;
+    let t = state;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+  const gaussian = () => {
+    const u = Math.max(1e-12, uniform());
+    return Math.sqrt(-2 * Math.log(u)) * Math.cos(2 * Math.PI * uniform());
+  };
+  return { uniform, gaussian };
+}
+
+const wrap = (k: number, n: number) => ((k % n) + n) % n;
+
+/** The driver's lap on the grid, made from the reference lap by the four faults. */
+export function demoDriverLap(track: TrackGrid, reference: LapResult, envelope: Envelope): DemoDriverLap {
+  const n = track.distanceM.length;
+  const step = track.stepM;
+  const ref = reference.trace;
+  const speed = ref.speedMps.map((v) => v * PACE);
+  const coastMask = new Uint8Array(n);
+  const corners = detectCorners(track);
+  const zones = reference.brakingZones;
+  // Corners by what the reference does there: the braking ones by entry speed, the fast ones by their slowest speed.
+  const braked = corners
+    .map((corner) => ({ corner, zone: zones.find((z) => near(z.minSpeedIndex, corner, n)) }))
+    .filter((entry): entry is { corner: CornerSpan; zone: (typeof zones)[number] } => entry.zone !== undefined)
+    .sort((a, b) => b.zone.entrySpeedMps - a.zone.entrySpeedMps);
+  // The fast corner for the early lift: the quickest apex among the corners the other faults leave alone.
+  const fast = corners
+    .filter((corner) => !braked.slice(0, 3).some((entry) => entry.corner === corner))
+    .sort((a, b) => ref.speedMps[b.apexIndex]! - ref.speedMps[a.apexIndex]!);
+  const faults: DemoFault[] = [];
+  const note = (kind: DemoFault['kind'], corner: CornerSpan) => faults.push({ kind, cornerId: corner.id, cornerName: corner.name });
+
+  // Mean deceleration of the reference over a braking zone, from v^2 = v0^2 - 2 a d.
+  const meanDecel = (zone: (typeof zones)[number]) =>
+    Math.max(2, (zone.entrySpeedMps ** 2 - zone.minSpeedMps ** 2) / (2 * Math.max(step, zone.brakingLengthM)));
+  if (braked[0]) {
+    // Too early: the braking starts 25 m before the reference's, at 90 % of its deceleration, then holds the speed.
+    const { corner, zone } = braked[0];
+    earlyBraking(speed, zone.startIndex - Math.round(25 / step), unwrapAfter(zone.minSpeedIndex, zone.startIndex, n), 0.9 * meanDecel(zone), step, n);
+    note('early-braking', corner);
+  }
+  if (braked[1]) {
+    // Too late and too hard: 12 m after the reference, 15 % beyond the car's braking limit, slowing 8 km/h too far.
+    const { corner, zone } = braked[1];
+    const floor = zone.minSpeedMps * PACE - 8 / 3.6;
+    const end = lateBraking(speed, zone.startIndex, unwrapAfter(zone.minSpeedIndex, zone.startIndex, n), Math.round(12 / step), (v) => 1.15 * envelope.brakeLimitMps2(v, 0), floor, step, n);
+    recoverFrom(speed, end, envelope, track, n);
+    note('late-hard-braking', corner);
+  }
+  if (braked[2]) {
+    // Coasting: after the slowest point 1.5 s with neither pedal before the throttle comes back.
+    const { corner, zone } = braked[2];
+    let i = zone.minSpeedIndex;
+    let v = speed[wrap(i, n)]!;
+    let elapsed = 0;
+    while (elapsed < 1.5) {
+      const k = wrap(i, n);
+      speed[k] = Math.min(speed[k]!, v);
+      coastMask[k] = 1;
+      const decel = envelope.coastDecelMps2(v);
+      const next = Math.sqrt(Math.max(1, v * v - 2 * decel * step));
+      elapsed += (2 * step) / (v + next);
+      v = next;
+      i++;
+    }
+    recoverFrom(speed, i - 1, envelope, track, n);
+    note('coasting', corner);
+  }
+  const liftCorner = fast.find((corner) => ref.speedMps[corner.apexIndex]! > 25);
+  if (liftCorner) {
+    // Early lift: off the throttle 150 m before the apex, coasting down, back on at the apex.
+    let i = liftCorner.apexIndex - Math.round(150 / step);
+    let v = speed[wrap(i, n)]!;
+    for (; i <= liftCorner.apexIndex; i++) {
+      const k = wrap(i, n);
+      v = Math.min(v, speed[k]!);
+      speed[k] = v;
+      coastMask[k] = 1;
+      v = Math.sqrt(Math.max(1, v * v - 2 * (envelope.coastDecelMps2(v) + 0.8) * step));
+    }
+    recoverFrom(speed, liftCorner.apexIndex, envelope, track, n);
+    note('early-lift', liftCorner);
+  }
+  const { throttle, brake } = pedalsFor(speed, track, envelope, coastMask);
+  const timeS = new Float64Array(n);
+  let elapsed = 0;
+  for (let i = 0; i < n; i++) {
+    timeS[i] = elapsed;
+    elapsed += (2 * step) / (speed[i]! + speed[(i + 1) % n]!);
+  }
+  return { speedMps: speed, throttle, brake, timeS, lapTimeS: elapsed, faults };
+}
+
+function near(index: number, corner: CornerSpan, n: number): boolean {
+  for (const shift of [-n, 0, n]) if (index + shift >= corner.entryIndex - 40 && index + shift <= corner.exitIndex + 10) return true;
+  return false;
+}
+
+const unwrapAfter = (index: number, from: number, n: number) => (index < from ? index + n : index);
+
+/** Braking from `start` at a constant deceleration, never faster than planned, held at the slowest planned speed. */
+function earlyBraking(speed: Float64Array, start: number, minIndex: number, decelMps2: number, step: number, n: number): void {
+  const floor = speed[wrap(minIndex, n)]!;
+  let v = speed[wrap(start, n)]!;
+  for (let i = start; i <= minIndex; i++) {
+    const k = wrap(i, n);
+    speed[k] = Math.min(speed[k]!, Math.max(floor, v));
+    v = Math.sqrt(Math.max(0, v * v - 2 * decelMps2 * step));
+  }
+}
+
+/** Holds the braking-point speed `lateSamples` further, then brakes at `decelMps2` down to `floor`, held to the
+ * slowest point; returns the index where the driver starts to accelerate again. */
+function lateBraking(speed: Float64Array, start: number, minIndex: number, lateSamples: number, decelMps2: (speedMps: number) => number, floor: number, step: number, n: number): number {
+  const peak = speed[wrap(start, n)]!;
+  let i = start;
+  for (; i < start + lateSamples; i++) speed[wrap(i, n)] = Math.max(speed[wrap(i, n)]!, peak);
+  let v = peak;
+  for (; v > floor; i++) {
+    speed[wrap(i, n)] = Math.max(floor, v);
+    v = Math.sqrt(Math.max(0, v * v - 2 * decelMps2(v) * step));
+  }
+  for (; i <= minIndex; i++) speed[wrap(i, n)] = floor;
+  speed[wrap(i, n)] = floor;
+  return i;
+}
+
+/** From index `from`, accelerates on the car's envelope until the speed meets the driver's profile again. */
+function recoverFrom(speed: Float64Array, from: number, envelope: Envelope, track: TrackGrid, n: number): void {
+  let v = speed[wrap(from, n)]!;
+  for (let i = from + 1; i < from + n; i++) {
+    const k = wrap(i, n);
+    const ay = v * v * track.curvaturePerM[k]!;
+    const a = Math.max(0, envelope.accelLimitMps2(v, ay)) * 0.95;
+    v = Math.sqrt(v * v + 2 * a * track.stepM);
+    if (v >= speed[k]!) return;
+    speed[k] = v;
+  }
+}
+
+/** Throttle and brake shares that produce the speed profile on this envelope (none where the driver coasts). */
+function pedalsFor(speed: Float64Array, track: TrackGrid, envelope: Envelope, coastMask: Uint8Array): { throttle: Float64Array; brake: Float64Array } {
+  const n = speed.length;
+  const throttle = new Float64Array(n);
+  const brake = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    if (coastMask[i]) continue;
+    const v = speed[i]!;
+    const next = speed[(i + 1) % n]!;
+    const ax = (next * next - v * v) / (2 * track.stepM);
+    const ay = v * v * track.curvaturePerM[i]!;
+    const tyreAx = ax + envelope.coastDecelMps2(v);
+    if (tyreAx >= 0) throttle[i] = Math.min(1, tyreAx / Math.max(1e-6, envelope.accelLimitMps2(v, ay) + envelope.coastDecelMps2(v)));
+    else brake[i] = Math.min(1, -tyreAx / Math.max(1e-6, envelope.brakeLimitMps2(v, ay) - envelope.coastDecelMps2(v)));
+  }
+  return { throttle, brake };
+}
+
+export interface DemoLogOptions {
+  rateHz: number;
+  seed: number;
+  /** Logging starts this far before the start line and ends this far after it, m (a flying lap in the middle). */
+  leadInM: number;
+  leadOutM: number;
+}
+
+export const DEFAULT_DEMO_LOG: DemoLogOptions = { rateHz: 20, seed: 20261202, leadInM: 400, leadOutM: 300 };
+
+/** The lap as a data logger would record it: CSV with time, GPS position, speed, pedals, accelerations, noise included. */
+export function demoLogCsv(track: TrackGrid, lap: DemoDriverLap, options: DemoLogOptions = DEFAULT_DEMO_LOG): string {
+  if (!track.geoOrigin) throw new Error(`${track.source}: the demo track needs a geo origin for the GPS columns`);
+  const plane = localPlane(track.geoOrigin);
+  const { gaussian } = seededRandom(options.seed);
+  const n = track.distanceM.length;
+  const L = track.lengthM;
+  const step = track.stepM;
+  // Continuous clock over lead-in, lap and lead-out: the same lap repeated either side of the line.
+  const clockAt = (s: number) => {
+    const laps = Math.floor(s / L);
+    const within = s - laps * L;
+    const u = within / step;
+    const i = Math.floor(u);
+    const t0 = lap.timeS[i % n]!;
+    const t1 = i + 1 >= n ? lap.lapTimeS : lap.timeS[i + 1]!;
+    return laps * lap.lapTimeS + t0 + (u - i) * (t1 - t0);
+  };
+  const sample = (values: Float64Array, s: number) => {
+    const u = (((s % L) + L) % L) / step;
+    const i = Math.floor(u);
+    const a = values[i % n]!;
+    const b = values[(i + 1) % n]!;
+    return a + (u - i) * (b - a);
+  };
+  const startS = -options.leadInM;
+  const endS = L + options.leadOutM;
+  const t0 = clockAt(startS);
+  const tEnd = clockAt(endS);
+  const lines = ['time_s,lat_deg,lon_deg,speed_kph,throttle_pct,brake_pct,ax_g,ay_g'];
+  const geo = new Float64Array(2);
+  let s = startS;
+  let biasX = 0;
+  let biasY = 0;
+  for (let k = 0; ; k++) {
+    const t = t0 + k / options.rateHz;
+    if (t > tEnd) break;
+    // Advance s until its clock reaches t (speed is positive everywhere, so the clock is monotone in s).
+    while (clockAt(s + step) < t) s += step;
+    const ta = clockAt(s);
+    const tb = clockAt(s + step);
+    const at = s + ((t - ta) / Math.max(1e-9, tb - ta)) * step;
+    const v = sample(lap.speedMps, at);
+    const vNext = sample(lap.speedMps, at + step);
+    const ax = (vNext * vNext - v * v) / (2 * step);
+    const ay = v * v * sample(track.curvaturePerM, at);
+    // GPS: a slowly wandering bias plus white noise, about a metre in all (a consumer receiver, from memory).
+    biasX = 0.98 * biasX + 0.1 * gaussian();
+    biasY = 0.98 * biasY + 0.1 * gaussian();
+    const x = sample(track.xM, at) + biasX + 0.4 * gaussian();
+    const y = sample(track.yM, at) + biasY + 0.4 * gaussian();
+    plane.toGeodetic(x, y, geo);
+    const throttlePct = clampPct(sample(lap.throttle, at) * 100 + 0.4 * gaussian());
+    const brakeShare = sample(lap.brake, at);
+    const brakePct = brakeShare > 0.01 ? clampPct(brakeShare * 100 + 0.8 * gaussian()) : 0;
+    lines.push(
+      [
+        (t - t0).toFixed(3),
+        geo[0]!.toFixed(7),
+        geo[1]!.toFixed(7),
+        (v * 3.6 + 0.3 * gaussian()).toFixed(2),
+        throttlePct.toFixed(1),
+        brakePct.toFixed(1),
+        (ax / STANDARD_GRAVITY_MPS2 + 0.02 * gaussian()).toFixed(3),
+        (ay / STANDARD_GRAVITY_MPS2 + 0.02 * gaussian()).toFixed(3),
+      ].join(','),
+    );
+  }
+  return lines.join('\n') + '\n';
+}
+
+const clampPct = (value: number) => Math.min(100, Math.max(0, value));

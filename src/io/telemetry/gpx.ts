@@ -1,0 +1,88 @@
+// GPX 1.1 tracks (topografix.com/GPX/1/1): <trk><trkseg><trkpt lat lon><time>, with an optional speed in
+// <extensions> (any element whose local name is "speed", m/s), parsed with fast-xml-parser.
+
+import { XMLParser, XMLValidator } from 'fast-xml-parser';
+import { InputError } from '../../errors.js';
+import type { TelemetrySession } from '../../compare/types.js';
+import { fillGaps, gpsSession } from './session.js';
+
+export function looksLikeGpx(head: string): boolean {
+  const text = head.replace(/^\uFEFF/, '').trimStart();
+  return text.startsWith('<') && /<gpx[\s>]/.test(text.slice(0, 4096));
+}
+
+type XmlNode = Record<string, unknown>;
+
+function asArray<T>(value: T | T[] | undefined): T[] {
+  if (value === undefined || value === null) return [];
+  return Array.isArray(value) ? value : [value];
+}
+
+/** Finds the first element named `speed` (any namespace prefix) below an <extensions> node. */
+function extensionSpeed(node: unknown): number {
+  if (node === null || typeof node !== 'object') return NaN;
+  for (const [key, value] of Object.entries(node as XmlNode)) {
+    const local = key.includes(':') ? key.slice(key.indexOf(':') + 1) : key;
+    if (local === 'speed') {
+      const speed = Number(typeof value === 'object' && value !== null ? (value as XmlNode)['#text'] : value);
+      if (Number.isFinite(speed)) return speed;
+    }
+    const nested = extensionSpeed(value);
+    if (!Number.isNaN(nested)) return nested;
+  }
+  return NaN;
+}
+
+export function parseGpxText(text: string, source: string): TelemetrySession {
+  const validation = XMLValidator.validate(text);
+  if (validation !== true) {
+    throw new InputError(`${source}: not a GPX file (not valid XML at line ${validation.err.line}: ${validation.err.msg.replace(/\s+/g, " ")})`);
+  }
+  const parser = new XMLParser({
+    ignoreAttributes: false,
+    attributeNamePrefix: '@_',
+    parseTagValue: false,
+    isArray: (name) => name === 'trk' || name === 'trkseg' || name === 'trkpt',
+  });
+  const document = parser.parse(text) as XmlNode;
+  const gpx = document['gpx'] as XmlNode | undefined;
+  if (!gpx) throw new InputError(`${source}: no <gpx> element`);
+  const points: XmlNode[] = [];
+  for (const track of asArray(gpx['trk'] as XmlNode[] | undefined)) {
+    for (const segment of asArray(track['trkseg'] as XmlNode[] | undefined)) {
+      points.push(...asArray(segment['trkpt'] as XmlNode[] | undefined));
+    }
+  }
+  if (points.length === 0) throw new InputError(`${source}: no track points (<trk><trkseg><trkpt>)`);
+  if (points.length < 2) throw new InputError(`${source}: only one track point; a lap needs many`);
+  const count = points.length;
+  const lat = new Float64Array(count);
+  const lon = new Float64Array(count);
+  const timeS = new Float64Array(count);
+  const speed = new Float64Array(count);
+  let speedSamples = 0;
+  let t0 = 0;
+  points.forEach((point, i) => {
+    const place = `track point ${i + 1}`;
+    lat[i] = Number(point['@_lat']);
+    lon[i] = Number(point['@_lon']);
+    if (!(Math.abs(lat[i]!) <= 90) || !(Math.abs(lon[i]!) <= 180) || point['@_lat'] === undefined || point['@_lon'] === undefined) {
+      throw new InputError(`${source}: ${place}: lat/lon missing or out of range`);
+    }
+    const stamp = point['time'];
+    const ms = typeof stamp === 'string' ? Date.parse(stamp) : NaN;
+    if (Number.isNaN(ms)) throw new InputError(`${source}: ${place}: no readable <time> (ISO 8601)`);
+    if (i === 0) t0 = ms;
+    timeS[i] = (ms - t0) / 1000;
+    if (i > 0 && timeS[i]! < timeS[i - 1]!) throw new InputError(`${source}: ${place}: time runs backwards (${String(stamp)})`);
+    speed[i] = extensionSpeed(point['extensions']);
+    if (!Number.isNaN(speed[i]!)) speedSamples++;
+  });
+  const notes: string[] = [];
+  let speedMps: Float64Array | null = null;
+  if (speedSamples > 0) {
+    fillGaps(speed, timeS);
+    speedMps = speed;
+  }
+  return gpsSession(source, timeS, lat, lon, speedMps, notes);
+}

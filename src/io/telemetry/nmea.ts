@@ -1,0 +1,170 @@
+// NMEA 0183 GPS logs: RMC (time, date, status, position, speed over ground in knots) and GGA (time, position,
+// fix quality) from any talker, each sentence's checksum verified (XOR of the characters between '$' and '*',
+// two hex digits, NMEA 0183 v4.10 sec. 5.2.1), combined by timestamp into one sample per fix.
+
+import { InputError } from '../../errors.js';
+import type { TelemetrySession } from '../../compare/types.js';
+import { fillGaps, gpsSession } from './session.js';
+
+const KNOT_MPS = 1852 / 3600;
+
+/** XOR of the character codes of `body` (the text between '$' and '*'). */
+export function nmeaChecksum(body: string): number {
+  let sum = 0;
+  for (let i = 0; i < body.length; i++) sum ^= body.charCodeAt(i);
+  return sum;
+}
+
+interface Fix {
+  timeKey: string;
+  secondOfDay: number;
+  dayNumber: number | null;
+  latDeg: number;
+  lonDeg: number;
+  speedMps: number;
+  line: number;
+}
+
+function parseTimeOfDay(field: string): number {
+  if (!/^\d{6}(\.\d+)?$/.test(field)) return NaN;
+  return Number(field.slice(0, 2)) * 3600 + Number(field.slice(2, 4)) * 60 + Number(field.slice(4));
+}
+
+/** ddmm.mmmm / dddmm.mmmm with a hemisphere letter -> signed degrees. */
+function parseAngle(field: string, hemisphere: string, degreeDigits: number): number {
+  if (!/^\d+(\.\d+)?$/.test(field) || field.indexOf('.') < 0 && field.length < degreeDigits + 2) return NaN;
+  const degrees = Number(field.slice(0, degreeDigits));
+  const minutes = Number(field.slice(degreeDigits));
+  if (!(minutes < 60)) return NaN;
+  const value = degrees + minutes / 60;
+  if (hemisphere === 'S' || hemisphere === 'W') return -value;
+  if (hemisphere === 'N' || hemisphere === 'E') return value;
+  return NaN;
+}
+
+/** ddmmyy -> days since 1970-01-01 (years 80-99 read as 19xx, the rest 20xx). */
+function parseDate(field: string): number | null {
+  if (!/^\d{6}$/.test(field)) return null;
+  const yy = Number(field.slice(4, 6));
+  const ms = Date.UTC(yy >= 80 ? 1900 + yy : 2000 + yy, Number(field.slice(2, 4)) - 1, Number(field.slice(0, 2)));
+  return Number.isFinite(ms) ? Math.round(ms / 86400000) : null;
+}
+
+export function looksLikeNmea(head: string): boolean {
+  const lines = head.split(/\r?\n/).map((line) => line.trim()).filter((line) => line !== '');
+  const sentences = lines.filter((line) => /^\$[A-Z]{2}[A-Z]{3},/.test(line));
+  return sentences.length > 0 && sentences.length >= lines.length / 2;
+}
+
+export function parseNmeaText(text: string, source: string): TelemetrySession {
+  const order: Fix[] = [];
+  let badChecksums = 0;
+  let noChecksum = 0;
+  let withoutFix = 0;
+  let sentences = 0;
+  let currentDay: number | null = null;
+  const lines = text.replace(/^\uFEFF/, '').split(/\r?\n/);
+  lines.forEach((rawLine, lineIndex) => {
+    const start = rawLine.indexOf('$');
+    if (start < 0) return;
+    const line = rawLine.slice(start).trim();
+    const star = line.lastIndexOf('*');
+    if (star < 0) {
+      noChecksum++;
+      return;
+    }
+    sentences++;
+    const body = line.slice(1, star);
+    const stated = line.slice(star + 1, star + 3);
+    if (!/^[0-9A-Fa-f]{2}$/.test(stated) || parseInt(stated, 16) !== nmeaChecksum(body)) {
+      badChecksums++;
+      return;
+    }
+    const fields = body.split(',');
+    const kind = fields[0]!.slice(-3);
+    if (fields[0]!.length !== 5 || (kind !== 'RMC' && kind !== 'GGA')) return;
+    const timeKey = fields[1] ?? '';
+    const secondOfDay = parseTimeOfDay(timeKey);
+    if (Number.isNaN(secondOfDay)) return;
+    let latDeg: number;
+    let lonDeg: number;
+    let speedMps = NaN;
+    if (kind === 'RMC') {
+      // $--RMC,hhmmss.ss,A,llll.ll,a,yyyyy.yy,a,x.x(knots),x.x(course),ddmmyy,...; status V = no fix.
+      const day = parseDate(fields[9] ?? '');
+      if (day !== null) currentDay = day;
+      if (fields[2] !== 'A' || fields[12] === 'N') {
+        withoutFix++;
+        return;
+      }
+      latDeg = parseAngle(fields[3] ?? '', fields[4] ?? '', 2);
+      lonDeg = parseAngle(fields[5] ?? '', fields[6] ?? '', 3);
+      const knots = Number(fields[7]);
+      if (fields[7] !== '' && Number.isFinite(knots)) speedMps = knots * KNOT_MPS;
+    } else {
+      // $--GGA,hhmmss.ss,llll.ll,a,yyyyy.yy,a,quality,satellites,hdop,altitude,M,...; quality 0 = no fix.
+      const quality = Number(fields[6]);
+      if (!(quality > 0)) {
+        withoutFix++;
+        return;
+      }
+      latDeg = parseAngle(fields[2] ?? '', fields[3] ?? '', 2);
+      lonDeg = parseAngle(fields[4] ?? '', fields[5] ?? '', 3);
+    }
+    if (Number.isNaN(latDeg) || Number.isNaN(lonDeg)) {
+      throw new InputError(`${source}: line ${lineIndex + 1}: ${fields[0]} sentence has an unreadable position`);
+    }
+    // Sentences of one fix share its time stamp and arrive together; look back over the last two fixes.
+    const held = [order[order.length - 1], order[order.length - 2]].find((fix) => fix !== undefined && fix.timeKey === timeKey);
+    if (held) {
+      if (Number.isNaN(held.speedMps)) held.speedMps = speedMps;
+      if (held.dayNumber === null) held.dayNumber = currentDay;
+      return;
+    }
+    const fix: Fix = { timeKey, secondOfDay, dayNumber: currentDay, latDeg, lonDeg, speedMps, line: lineIndex + 1 };
+    order.push(fix);
+  });
+  if (sentences === 0 && noChecksum === 0) throw new InputError(`${source}: no NMEA sentences found`);
+  if (order.length === 0) throw new InputError(`${source}: no RMC or GGA sentence with a GPS fix`);
+
+  // Absolute time: the RMC date where known; otherwise the time of day, with a day added at each midnight.
+  const count = order.length;
+  const timeS = new Float64Array(count);
+  const lat = new Float64Array(count);
+  const lon = new Float64Array(count);
+  const speed = new Float64Array(count);
+  let extraDays = 0;
+  let speedSamples = 0;
+  const firstDay = order.find((fix) => fix.dayNumber !== null)?.dayNumber ?? 0;
+  for (let i = 0; i < count; i++) {
+    const fix = order[i]!;
+    let t = fix.dayNumber !== null ? (fix.dayNumber - firstDay) * 86400 + fix.secondOfDay : fix.secondOfDay + extraDays * 86400;
+    if (i > 0 && fix.dayNumber === null && t < timeS[i - 1]! - 43200) {
+      extraDays++;
+      t += 86400;
+    }
+    if (i > 0 && t <= timeS[i - 1]!) {
+      throw new InputError(`${source}: line ${fix.line}: time ${fix.timeKey} runs backwards (earlier than the fix before it)`);
+    }
+    timeS[i] = t;
+    lat[i] = fix.latDeg;
+    lon[i] = fix.lonDeg;
+    speed[i] = fix.speedMps;
+    if (!Number.isNaN(fix.speedMps)) speedSamples++;
+  }
+  const t0 = timeS[0]!;
+  for (let i = 0; i < count; i++) timeS[i] = timeS[i]! - t0;
+  const notes: string[] = [];
+  if (badChecksums > 0) notes.push(`skipped ${badChecksums} ${badChecksums === 1 ? 'sentence' : 'sentences'} with bad checksums`);
+  if (noChecksum > 0) notes.push(`skipped ${noChecksum} ${noChecksum === 1 ? 'sentence' : 'sentences'} without a checksum`);
+  if (withoutFix > 0) notes.push(`ignored ${withoutFix} ${withoutFix === 1 ? 'sentence' : 'sentences'} without a GPS fix`);
+  if (count < 2) throw new InputError(`${source}: only one GPS fix; a lap needs many`);
+
+  let speedMps: Float64Array | null = null;
+  if (speedSamples > 0) {
+    fillGaps(speed, timeS);
+    speedMps = speed;
+    if (speedSamples < count) notes.push(`${count - speedSamples} fixes without RMC speed: filled by interpolation`);
+  }
+  return gpsSession(source, timeS, lat, lon, speedMps, notes);
+}

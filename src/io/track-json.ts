@@ -1,0 +1,95 @@
+// Reads the segment description of a track (JSON: straights, arcs and transitions, with optional widths,
+// corner names and a geo origin), validated with zod; unknown keys are errors that name them.
+
+import path from 'node:path';
+import { z } from 'zod';
+import { InputError } from '../errors.js';
+import type { TrackGrid } from '../track/types.js';
+import { trackFromSegments } from '../track/segments.js';
+import type { TrackReadOptions } from './read-track.js';
+
+const positive = z.number().finite().positive();
+
+const segmentSchema = z.discriminatedUnion('kind', [
+  z.strictObject({ kind: z.literal('straight'), lengthM: positive }),
+  z.strictObject({ kind: z.literal('arc'), radiusM: positive, angleDeg: z.number().finite().refine((v) => v !== 0, 'must not be 0') }),
+  z.strictObject({ kind: z.literal('transition'), lengthM: positive, startCurvature: z.number().finite(), endCurvature: z.number().finite() }),
+]);
+
+const trackSchema = z.strictObject({
+  name: z.string().min(1),
+  description: z.string().optional(),
+  closed: z.boolean(),
+  widthM: positive.optional(),
+  widthLeftM: positive.optional(),
+  widthRightM: positive.optional(),
+  startHeadingDeg: z.number().finite().optional(),
+  origin: z.strictObject({ latDeg: z.number().min(-90).max(90), lonDeg: z.number().min(-180).max(180) }).optional(),
+  corners: z.array(z.strictObject({ atM: z.number().finite().nonnegative(), name: z.string().min(1) })).optional(),
+  segments: z.array(segmentSchema).min(1),
+});
+
+function fieldPath(parts: PropertyKey[]): string {
+  let text = '';
+  for (const part of parts) text += typeof part === 'number' ? `[${part}]` : text === '' ? String(part) : `.${String(part)}`;
+  return text;
+}
+
+/** The first zod issue as "source: field: message". */
+function zodMessage(error: z.ZodError, source: string): string {
+  const issue = error.issues[0];
+  const where = fieldPath(issue.path);
+  const prefix = where ? `${source}: ${where}` : source;
+  if (issue.code === 'unrecognized_keys') {
+    const keys = issue.keys.map((key) => `'${key}'`).join(', ');
+    return `${prefix}: unknown key${issue.keys.length > 1 ? 's' : ''} ${keys}`;
+  }
+  if (issue.code === 'invalid_union' && where.endsWith('kind') === false && issue.path.length > 0) {
+    return `${prefix}: kind must be one of straight, arc, transition`;
+  }
+  return `${prefix}: ${issue.message}`;
+}
+
+/** "line L, column C" for a JSON.parse message that gives a position. */
+function jsonPlace(text: string, message: string): string {
+  const match = /position (\d+)/.exec(message);
+  if (!match) return '';
+  const position = Number(match[1]);
+  const before = text.slice(0, position);
+  const line = before.split('\n').length;
+  const column = position - before.lastIndexOf('\n');
+  return `line ${line}, column ${column}: `;
+}
+
+export function parseTrackJson(text: string, source: string, options: TrackReadOptions): TrackGrid {
+  let data: unknown;
+  try {
+    data = JSON.parse(text);
+  } catch (error) {
+    const message = error instanceof Error ? error.message : String(error);
+    throw new InputError(`${source}: ${jsonPlace(text, message)}not valid JSON (${message.split('\n')[0]})`);
+  }
+  const parsed = trackSchema.safeParse(data);
+  if (!parsed.success) throw new InputError(zodMessage(parsed.error, source));
+  const spec = parsed.data;
+  const widthM = spec.widthM ?? options.widthM;
+  if ((spec.widthLeftM === undefined) !== (spec.widthRightM === undefined) && spec.widthM === undefined) {
+    throw new InputError(`${source}: ${spec.widthLeftM === undefined ? 'widthRightM' : 'widthLeftM'} given without the other side (or widthM)`);
+  }
+  const closed = options.layout === 'auto' ? spec.closed : options.layout === 'closed';
+  return trackFromSegments(
+    {
+      name: spec.name || path.basename(source, path.extname(source)),
+      closed,
+      widthM,
+      widthLeftM: spec.widthLeftM,
+      widthRightM: spec.widthRightM,
+      segments: spec.segments,
+      corners: spec.corners,
+      geoOrigin: spec.origin ?? null,
+      startHeadingDeg: spec.startHeadingDeg,
+    },
+    options.stepM,
+    source,
+  );
+}

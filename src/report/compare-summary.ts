@@ -1,0 +1,150 @@
+// The driver-against-reference comparison for the terminal (a table per corner and the ranked findings), as a
+// JSON object, and the two laps' aligned traces as CSV on the shared distance grid.
+
+import type { ComparisonResult, CornerComparison, DriverLap } from '../compare/types.js';
+import type { LapResult } from '../solve/types.js';
+import { formatLapTime } from '../units.js';
+import { formatTable } from './text-table.js';
+import { round, SAFETY_CAUTION } from './lap-summary.js';
+
+const signed = (value: number, digits: number) => `${value >= 0 ? '+' : ''}${value.toFixed(digits)}`;
+const orDash = (value: number | null | undefined, digits: number, sign = true) =>
+  value === null || value === undefined || !Number.isFinite(value) ? '-' : sign ? signed(value, digits) : value.toFixed(digits);
+
+/** The gaps a driver reads first: to the reference used, and to the other envelope when it is known. */
+function gapLines(result: ComparisonResult): string[] {
+  const gap = result.driverLapTimeS - result.referenceLapTimeS;
+  const lines = [
+    `Driver lap      ${formatLapTime(result.driverLapTimeS)}`,
+    `Reference lap   ${formatLapTime(result.referenceLapTimeS)}  (${result.referenceEnvelopeKind ?? 'car model'} envelope; gap ${signed(gap, 3)} s)`,
+  ];
+  if (result.referenceEnvelopeKind !== 'demonstrated' && result.demonstratedLapTimeS !== null) {
+    const demo = result.driverLapTimeS - result.demonstratedLapTimeS;
+    lines.push(`With the grip already shown  ${formatLapTime(result.demonstratedLapTimeS)}  (gap ${signed(demo, 3)} s)`);
+  }
+  if (result.referenceEnvelopeKind === 'demonstrated' && result.carModelLapTimeS !== null && result.carModelLapTimeS !== undefined) {
+    const model = result.driverLapTimeS - result.carModelLapTimeS;
+    lines.push(`On the car model's envelope  ${formatLapTime(result.carModelLapTimeS)}  (gap ${signed(model, 3)} s)`);
+  }
+  return lines;
+}
+
+function cornerRow(corner: CornerComparison): string[] {
+  return [
+    String(corner.id),
+    corner.name ?? '',
+    corner.apexM.toFixed(0),
+    orDash(corner.brakingPointDeltaM, 0),
+    `${corner.entrySpeedDriverKph.toFixed(0)}/${corner.entrySpeedReferenceKph.toFixed(0)}`,
+    `${corner.minSpeedDriverKph.toFixed(0)}/${corner.minSpeedReferenceKph.toFixed(0)}`,
+    signed(corner.minSpeedOffsetFromApexM, 0),
+    `${corner.exitSpeedDriverKph.toFixed(0)}/${corner.exitSpeedReferenceKph.toFixed(0)}`,
+    orDash(corner.coastingS, 1, false),
+    `${(corner.meanGripUse * 100).toFixed(0)}/${(corner.peakGripUse * 100).toFixed(0)}`,
+    `${signed(corner.entryTimeLostS, 2)} ${signed(corner.middleTimeLostS, 2)} ${signed(corner.exitTimeLostS, 2)}`,
+    signed(corner.timeLostS, 3),
+  ];
+}
+
+export function compareSummaryText(result: ComparisonResult): string {
+  const lines = [
+    `${result.trackName} · ${result.carName}`,
+    ...gapLines(result),
+    '',
+    'Corners (speeds driver/reference in km/h; brake = driver minus reference braking point, m, negative = earlier;',
+    'slowest vs apex in m, positive = after; grip = mean/peak % of the envelope; lost = entry middle exit, s)',
+    formatTable(
+      ['#', 'name', 'apex m', 'brake m', 'entry', 'slowest', 'vs apex', 'exit', 'coast s', 'grip %', 'lost by phase', 'lost s'],
+      result.corners.map(cornerRow),
+    ),
+    '',
+  ];
+  if (result.findings.length === 0) lines.push('No corner costs more than a hundredth of a second against the reference.');
+  else {
+    lines.push('Where the time is (largest first):');
+    result.findings.forEach((finding, index) => lines.push(`${index + 1}. ${finding.text}`));
+  }
+  if (result.notes.length > 0) lines.push('', ...result.notes.map((note) => `Note: ${note}`));
+  lines.push('', SAFETY_CAUTION);
+  return lines.join('\n') + '\n';
+}
+
+const roundOrNull = (value: number | null | undefined, digits: number) => (value === null || value === undefined ? null : round(value, digits));
+
+export function compareSummaryJson(result: ComparisonResult) {
+  return {
+    track: result.trackName,
+    car: result.carName,
+    referenceEnvelope: result.referenceEnvelopeKind ?? 'car model',
+    driverLapTimeS: round(result.driverLapTimeS, 4),
+    referenceLapTimeS: round(result.referenceLapTimeS, 4),
+    lapTimeDeltaS: round(result.driverLapTimeS - result.referenceLapTimeS, 4),
+    demonstratedLapTimeS: roundOrNull(result.demonstratedLapTimeS, 4),
+    carModelLapTimeS: roundOrNull(result.carModelLapTimeS, 4),
+    corners: result.corners.map((c) => ({
+      id: c.id,
+      name: c.name,
+      entryM: round(c.entryM, 1),
+      apexM: round(c.apexM, 1),
+      exitM: round(c.exitM, 1),
+      brakingPointDeltaM: roundOrNull(c.brakingPointDeltaM, 1),
+      brakingPointDeltaS: roundOrNull(c.brakingPointDeltaS, 3),
+      referenceBrakingPointM: roundOrNull(c.referenceBrakingPointM, 1),
+      driverBrakingPointM: roundOrNull(c.driverBrakingPointM, 1),
+      entrySpeedDriverKph: round(c.entrySpeedDriverKph, 1),
+      entrySpeedReferenceKph: round(c.entrySpeedReferenceKph, 1),
+      minSpeedDriverKph: round(c.minSpeedDriverKph, 1),
+      minSpeedReferenceKph: round(c.minSpeedReferenceKph, 1),
+      minSpeedDeltaKph: round(c.minSpeedDeltaKph, 1),
+      minSpeedOffsetFromApexM: round(c.minSpeedOffsetFromApexM, 1),
+      exitSpeedDriverKph: round(c.exitSpeedDriverKph, 1),
+      exitSpeedReferenceKph: round(c.exitSpeedReferenceKph, 1),
+      entryTimeLostS: round(c.entryTimeLostS, 4),
+      middleTimeLostS: round(c.middleTimeLostS, 4),
+      exitTimeLostS: round(c.exitTimeLostS, 4),
+      timeLostS: round(c.timeLostS, 4),
+      coastingS: roundOrNull(c.coastingS, 2),
+      meanGripUse: round(c.meanGripUse, 3),
+      peakGripUse: round(c.peakGripUse, 3),
+      stretches: c.stretches.map((s) => ({ kind: s.kind, startM: round(s.startM, 1), endM: round(s.endM, 1), meanGripUse: round(s.meanGripUse, 3) })),
+    })),
+    findings: result.findings.map((f) => ({ corner: f.corner, timeS: round(f.timeS, 3), text: f.text })),
+    notes: result.notes,
+  };
+}
+
+const fixed = (value: number | undefined, digits: number) => (value !== undefined && Number.isFinite(value) ? value.toFixed(digits) : '');
+
+/** Both laps on the track grid, one row per station, with the delta and both grip uses. */
+export function alignedTracesCsv(result: ComparisonResult, reference: LapResult, driver: DriverLap): string {
+  const t = reference.trace;
+  const header = [
+    'station_m', 'time_driver_s', 'time_reference_s', 'delta_s', 'speed_driver_kph', 'speed_reference_kph',
+    'throttle_driver', 'throttle_reference', 'brake_driver', 'brake_reference', 'ax_driver_mps2', 'ax_reference_mps2',
+    'ay_driver_mps2', 'ay_reference_mps2', 'grip_use_driver', 'grip_use_reference',
+  ];
+  const lines = [header.join(',')];
+  for (let i = 0; i < t.count; i++) {
+    lines.push(
+      [
+        fixed(t.stationM[i], 2),
+        fixed(driver.timeS[i], 4),
+        fixed(t.timeS[i], 4),
+        fixed(result.deltaS[i], 4),
+        fixed(driver.speedMps[i]! * 3.6, 2),
+        fixed(t.speedMps[i]! * 3.6, 2),
+        driver.throttle ? fixed(driver.throttle[i], 3) : '',
+        fixed(t.throttle[i], 3),
+        driver.brake ? fixed(driver.brake[i], 3) : '',
+        fixed(t.brake[i], 3),
+        fixed(driver.axMps2[i], 3),
+        fixed(t.axMps2[i], 3),
+        fixed(driver.ayMps2[i], 3),
+        fixed(t.ayMps2[i], 3),
+        fixed(result.driverGripUse[i], 3),
+        fixed(t.gripUse[i], 3),
+      ].join(','),
+    );
+  }
+  return lines.join('\n') + '\n';
+}

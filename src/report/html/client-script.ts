@@ -1,0 +1,164 @@
+// The page's only script, small vanilla JavaScript kept as a string: a cursor at one distance on every chart
+// with the values read out, the dot on the map and the g-g diagram, and zooming every chart to a corner.
+// It writes text with textContent only, never as markup.
+
+import { niceTicks } from './scale.js';
+
+const SCRIPT_BODY = String.raw`(function () {
+  'use strict';
+  var niceTicks = __NICE_TICKS__;
+  var data = JSON.parse(document.getElementById('lap-data').textContent);
+  var charts = Array.prototype.slice.call(document.querySelectorAll('svg[data-distance-chart]'));
+  var svgNs = charts.length ? charts[0].namespaceURI : null;
+  var map = document.querySelector('svg[data-chart="map"]');
+  var mapDot = map && map.querySelector('.map-dot');
+  var gg = document.querySelector('svg[data-chart="gg"]');
+  var ggDots = gg ? { R: gg.querySelector('.gg-dot-reference'), D: gg.querySelector('.gg-dot-driver') } : {};
+  var resetButton = document.getElementById('zoom-reset');
+  var zoomLabel = document.getElementById('zoom-label');
+  var domain = [0, data.lengthM];
+
+  function attrs(element, values) {
+    for (var key in values) element.setAttribute(key, String(values[key]));
+    return element;
+  }
+  function plotOf(svg) {
+    return { left: +svg.getAttribute('data-plot-left'), width: +svg.getAttribute('data-plot-width') };
+  }
+  function drawAxis(svg, plot) {
+    var axis = svg.querySelector('.x-axis');
+    var y = +axis.getAttribute('data-y');
+    while (axis.firstChild) axis.removeChild(axis.firstChild);
+    niceTicks(domain[0], domain[1], 10).forEach(function (tick) {
+      var x = plot.left + ((tick - domain[0]) / (domain[1] - domain[0])) * plot.width;
+      axis.appendChild(attrs(document.createElementNS(svgNs, 'line'), { x1: x, x2: x, y1: y, y2: y + 4, stroke: '#555555' }));
+      var label = attrs(document.createElementNS(svgNs, 'text'), { x: x, y: y + 15, 'text-anchor': 'middle', fill: '#555555', class: 'tick' });
+      label.textContent = String(Number(tick.toFixed(2)));
+      axis.appendChild(label);
+    });
+    var title = attrs(document.createElementNS(svgNs, 'text'), { x: plot.left + plot.width, y: y + 26, 'text-anchor': 'end', fill: '#555555' });
+    title.textContent = 'distance, m';
+    axis.appendChild(title);
+  }
+  function zoomTo(from, to, label) {
+    domain = [from, to];
+    var k = data.lengthM / (to - from);
+    charts.forEach(function (svg) {
+      var plot = plotOf(svg);
+      var shift = (-from / data.lengthM) * plot.width;
+      svg.querySelector('.zoom').setAttribute('transform', 'translate(' + plot.left + ' 0) scale(' + k + ' 1) translate(' + shift + ' 0)');
+      drawAxis(svg, plot);
+    });
+    document.body.setAttribute('data-zoom', label ? 'corner' : 'lap');
+    resetButton.disabled = !label;
+    zoomLabel.textContent = label || 'whole lap';
+    hide();
+  }
+  function indexAt(distance) {
+    var d = data.d;
+    var low = 0;
+    var high = d.length - 1;
+    while (high - low > 1) {
+      var middle = (low + high) >> 1;
+      if (d[middle] <= distance) low = middle;
+      else high = middle;
+    }
+    return distance - d[low] <= d[high] - distance ? low : high;
+  }
+  function text(value, digits, unit) {
+    return value === null || value === undefined ? '–' : value.toFixed(digits) + unit;
+  }
+  function channel(name, index) {
+    var series = data.series[name];
+    return series ? series[index] : null;
+  }
+  function setField(name, value) {
+    var element = document.querySelector('[data-field="' + name + '"]');
+    if (element) element.textContent = value;
+  }
+  function show(index) {
+    var distance = data.d[index];
+    if (distance < domain[0] || distance > domain[1]) return hide();
+    charts.forEach(function (svg) {
+      var plot = plotOf(svg);
+      var x = plot.left + ((distance - domain[0]) / (domain[1] - domain[0])) * plot.width;
+      attrs(svg.querySelector('.cursor'), { x1: x, x2: x, visibility: 'visible' });
+    });
+    if (mapDot) attrs(mapDot, { cx: data.mapX[index], cy: data.mapY[index], visibility: 'visible' });
+    ['R', 'D'].forEach(function (who) {
+      var dot = ggDots[who];
+      var ax = channel('ax' + who, index);
+      var ay = channel('ay' + who, index);
+      if (!dot || ax === null || ay === null) return;
+      attrs(dot, { cx: data.gg.cx + ay * data.gg.pxPerG, cy: data.gg.cy - ax * data.gg.pxPerG, visibility: 'visible' });
+    });
+    setField('distance', text(distance, 0, ' m'));
+    ['R', 'D'].forEach(function (who) {
+      setField('speed' + who, text(channel('v' + who, index), 1, ' km/h'));
+      setField('throttle' + who, text(channel('t' + who, index), 0, ' %'));
+      setField('brake' + who, text(channel('b' + who, index), 0, ' %'));
+      setField('grip' + who, text(channel('g' + who, index), 0, ' %'));
+      var ax = channel('ax' + who, index);
+      var ay = channel('ay' + who, index);
+      setField('accel' + who, ax === null ? '–' : ax.toFixed(2) + ' / ' + ay.toFixed(2) + ' g');
+    });
+    var delta = channel('dt', index);
+    setField('delta', delta === null ? '–' : (delta > 0 ? '+' : '') + delta.toFixed(3) + ' s');
+  }
+  function hide() {
+    charts.forEach(function (svg) { svg.querySelector('.cursor').setAttribute('visibility', 'hidden'); });
+    if (mapDot) mapDot.setAttribute('visibility', 'hidden');
+    if (ggDots.R) ggDots.R.setAttribute('visibility', 'hidden');
+    if (ggDots.D) ggDots.D.setAttribute('visibility', 'hidden');
+  }
+  function svgPoint(svg, event) {
+    var point = svg.createSVGPoint();
+    point.x = event.clientX;
+    point.y = event.clientY;
+    return point.matrixTransform(svg.getScreenCTM().inverse());
+  }
+  charts.forEach(function (svg) {
+    var area = svg.querySelector('.hover-area');
+    area.addEventListener('pointermove', function (event) {
+      var plot = plotOf(svg);
+      var local = svgPoint(svg, event);
+      show(indexAt(domain[0] + ((local.x - plot.left) / plot.width) * (domain[1] - domain[0])));
+    });
+    area.addEventListener('pointerleave', hide);
+  });
+  if (map) {
+    map.addEventListener('pointermove', function (event) {
+      var local = svgPoint(map, event);
+      var best = -1;
+      var bestDistance = 400;
+      for (var i = 0; i < data.mapX.length; i++) {
+        var dx = data.mapX[i] - local.x;
+        var dy = data.mapY[i] - local.y;
+        var squared = dx * dx + dy * dy;
+        if (squared < bestDistance) { bestDistance = squared; best = i; }
+      }
+      if (best >= 0) show(best); else hide();
+    });
+    map.addEventListener('pointerleave', hide);
+  }
+  var cornerById = {};
+  data.corners.forEach(function (corner) { cornerById[corner.id] = corner; });
+  Array.prototype.slice.call(document.querySelectorAll('[data-corner]')).forEach(function (element) {
+    function zoom() {
+      var corner = cornerById[element.getAttribute('data-corner')];
+      if (corner) zoomTo(corner.from, corner.to, corner.label);
+    }
+    element.addEventListener('click', zoom);
+    element.addEventListener('keydown', function (event) {
+      if (event.key === 'Enter' || event.key === ' ') { event.preventDefault(); zoom(); }
+    });
+  });
+  resetButton.addEventListener('click', function () { zoomTo(0, data.lengthM, null); });
+  document.addEventListener('keydown', function (event) { if (event.key === 'Escape') zoomTo(0, data.lengthM, null); });
+  zoomTo(0, data.lengthM, null);
+})();`;
+
+/** The script's text, with the tick function the server uses built in. */
+export function clientScript(): string {
+  return SCRIPT_BODY.replace('__NICE_TICKS__', niceTicks.toString());
+}

@@ -1,0 +1,129 @@
+// One chart against distance along the lap (speed, time delta, pedals, grip use), drawn with d3-shape.
+// Series are placed in full-lap coordinates inside a `zoom` group; the page's script zooms by changing that
+// group's transform, and vector-effect keeps the strokes their width.
+
+import { area, line } from 'd3-shape';
+import { escapeHtml } from './escape.js';
+import { minMaxIndices } from './downsample.js';
+import { coord, linearScale, niceTicks } from './scale.js';
+import { legendRow, svgElement, tickText, yAxis, type LegendItem, type SvgOptions } from './svg-frame.js';
+import { PALETTE } from './palette.js';
+
+export const CHART_WIDTH = 960;
+export const PLOT_LEFT = 62;
+export const PLOT_RIGHT = 16;
+const PLOT_TOP = 30;
+const PLOT_BOTTOM = 28;
+
+/** Samples per drawn bucket: about one bucket per this many metres keeps a 5 km lap light. */
+export const DRAW_BUCKET_M = 4;
+
+export interface DistanceSeries {
+  label: string;
+  colour: string;
+  values: ArrayLike<number>;
+  dash?: string;
+  /** Fill between zero and the line as well. */
+  fillToZero?: boolean;
+  width?: number;
+}
+
+export interface Band {
+  from: number;
+  to: number;
+  colour: string;
+  label?: string;
+}
+
+export interface DistanceChartSpec {
+  name: string;
+  title: string;
+  /** Axis title with its unit, e.g. 'speed, km/h'. */
+  yTitle: string;
+  yDomain: [number, number];
+  yFormat?: (value: number) => string;
+  height: number;
+  stationM: Float64Array;
+  lengthM: number;
+  stepM: number;
+  series: DistanceSeries[];
+  bands?: Band[];
+  /** Dashed reference lines at these values. */
+  guides?: number[];
+  legendExtra?: LegendItem[];
+  note?: string;
+}
+
+export function distanceChartSvg(spec: DistanceChartSpec, options: SvgOptions): string {
+  const plotWidth = CHART_WIDTH - PLOT_LEFT - PLOT_RIGHT;
+  const plotBottom = spec.height - PLOT_BOTTOM;
+  const plotHeight = plotBottom - PLOT_TOP;
+  const y = linearScale(spec.yDomain, [plotBottom, PLOT_TOP]);
+  const x = (distanceM: number) => (distanceM / spec.lengthM) * plotWidth;
+  const format = spec.yFormat ?? tickText;
+  const bucket = Math.max(1, Math.round(DRAW_BUCKET_M / spec.stepM));
+  const clipId = `clip-${spec.name}`;
+
+  let body = `<text class="chart-title" x="${PLOT_LEFT}" y="16" font-size="13" font-weight="600">${escapeHtml(spec.title)}</text>`;
+  const legendItems: LegendItem[] = [
+    ...spec.series.filter((series) => series.label).map((series) => ({ label: series.label, colour: series.colour, ...(series.dash ? { dash: series.dash } : {}) })),
+    ...(spec.legendExtra ?? []),
+  ];
+  body += legendRow(legendItems, CHART_WIDTH - PLOT_RIGHT, 16);
+  body += yAxis(y, PLOT_LEFT, PLOT_LEFT + plotWidth, spec.yTitle, format);
+  body += `<clipPath id="${clipId}"><rect x="${PLOT_LEFT}" y="${PLOT_TOP - 2}" width="${plotWidth}" height="${plotHeight + 4}"/></clipPath>`;
+  body += `<g clip-path="url(#${clipId})"><g class="zoom" transform="translate(${PLOT_LEFT} 0)">`;
+  for (const band of spec.bands ?? []) {
+    const top = y(Math.min(band.to, spec.yDomain[1]));
+    const bottom = y(Math.max(band.from, spec.yDomain[0]));
+    body += `<rect class="band" x="0" width="${plotWidth}" y="${coord(top)}" height="${coord(Math.max(0, bottom - top))}" fill="${band.colour}"/>`;
+  }
+  for (const guide of spec.guides ?? []) {
+    body += `<line x1="0" x2="${plotWidth}" y1="${coord(y(guide))}" y2="${coord(y(guide))}" stroke="#777" stroke-dasharray="4 3" vector-effect="non-scaling-stroke"/>`;
+  }
+  const stationM = spec.stationM;
+  for (const series of spec.series) {
+    const values = series.values;
+    const indices = minMaxIndices(values, bucket);
+    const defined = (i: number) => Number.isFinite(values[i]!);
+    if (series.fillToZero) {
+      const fill = area<number>()
+        .x((i) => x(stationM[i]!))
+        .y0(y(0))
+        .y1((i) => y(values[i]!))
+        .defined(defined)
+        .digits(1)(indices);
+      body += `<path class="series-fill" d="${fill ?? ''}" fill="${series.colour}" fill-opacity="0.22"/>`;
+    }
+    const path = line<number>()
+      .x((i) => x(stationM[i]!))
+      .y((i) => y(values[i]!))
+      .defined(defined)
+      .digits(1)(indices);
+    body +=
+      `<path class="series" d="${path ?? ''}" fill="none" stroke="${series.colour}" stroke-width="${series.width ?? 1.6}" ` +
+      `stroke-linejoin="round"${series.dash ? ` stroke-dasharray="${series.dash}"` : ''} vector-effect="non-scaling-stroke"/>`;
+  }
+  body += '</g></g>';
+  body += `<rect x="${PLOT_LEFT}" y="${PLOT_TOP}" width="${plotWidth}" height="${plotHeight}" fill="none" stroke="#bdbdbd"/>`;
+  body += `<g class="x-axis" data-y="${plotBottom}">${xTicks(0, spec.lengthM, plotWidth, plotBottom)}</g>`;
+  if (spec.note) body += `<text x="${PLOT_LEFT + 8}" y="${PLOT_TOP + 14}" fill="${PALETTE.axis}" font-style="italic">${escapeHtml(spec.note)}</text>`;
+  body +=
+    `<line class="cursor" x1="0" x2="0" y1="${PLOT_TOP}" y2="${plotBottom}" stroke="${PALETTE.cursor}" stroke-width="1" visibility="hidden"/>` +
+    `<rect class="hover-area" x="${PLOT_LEFT}" y="${PLOT_TOP}" width="${plotWidth}" height="${plotHeight}" fill="transparent"/>`;
+  const attributes = ` data-distance-chart="" data-plot-left="${PLOT_LEFT}" data-plot-width="${plotWidth}"`;
+  return svgElement(spec.name, CHART_WIDTH, spec.height, body, options, `${spec.title}: ${spec.yTitle} against distance, m`, attributes);
+}
+
+/** Distance ticks under the plot for the range [fromM, toM]; the page's script redraws them on zoom. */
+export function xTicks(fromM: number, toM: number, plotWidth: number, plotBottom: number): string {
+  let out = '';
+  const ticks = niceTicks(fromM, toM, 10);
+  for (const tick of ticks) {
+    const px = coord(PLOT_LEFT + ((tick - fromM) / (toM - fromM)) * plotWidth);
+    out += `<line x1="${px}" x2="${px}" y1="${plotBottom}" y2="${plotBottom + 4}" stroke="${PALETTE.axis}"/>`;
+    out += `<text x="${px}" y="${plotBottom + 15}" text-anchor="middle" fill="${PALETTE.axis}">${tickText(tick)}</text>`;
+  }
+  out += `<text x="${PLOT_LEFT + plotWidth}" y="${plotBottom + 26}" text-anchor="end" fill="${PALETTE.axis}">distance, m</text>`;
+  return out;
+}

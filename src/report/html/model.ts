@@ -1,0 +1,140 @@
+// What the lap report draws, gathered once from the solver's and the comparison's records and converted to
+// display units (km/h, %, g), so the chart builders only map numbers to pixels.
+
+import type { Envelope } from '../../car/envelope.js';
+import type { ComparisonResult, DriverLap } from '../../compare/types.js';
+import type { LapResult } from '../../solve/types.js';
+import { mpsToKph, STANDARD_GRAVITY_MPS2 } from '../../units.js';
+
+export interface ReportInput {
+  reference: LapResult;
+  carName: string;
+  /** The car model's envelope, drawn on the g-g diagram. */
+  envelope: Envelope;
+  /** Positions of the racing line the reference drives, on the track grid; the centreline when omitted. */
+  linePositions?: { xM: Float64Array; yM: Float64Array };
+  comparison?: {
+    result: ComparisonResult;
+    driver: DriverLap;
+    /** The envelope fitted to the driver's own data, when there is one. */
+    demonstratedEnvelope?: Envelope;
+  };
+}
+
+/** A stretch of the lap the page can zoom to: a corner of the comparison, or a braking zone of the reference. */
+export interface ReportCorner {
+  id: number;
+  name: string | null;
+  entryM: number;
+  apexM: number;
+  exitM: number;
+}
+
+export interface LapChannels {
+  speedKph: Float64Array;
+  /** 0-100 %, null where the log has no such channel. */
+  throttlePct: Float64Array | null;
+  brakePct: Float64Array | null;
+  gripUsePct: Float64Array;
+  axG: Float64Array;
+  ayG: Float64Array;
+  xM: Float64Array | null;
+  yM: Float64Array | null;
+}
+
+export interface ReportModel {
+  input: ReportInput;
+  lengthM: number;
+  closed: boolean;
+  stationM: Float64Array;
+  reference: LapChannels;
+  driver: (LapChannels & { deltaS: Float64Array }) | null;
+  corners: ReportCorner[];
+}
+
+function scaled(values: ArrayLike<number>, factor: number): Float64Array {
+  const out = new Float64Array(values.length);
+  for (let i = 0; i < values.length; i++) out[i] = values[i]! * factor;
+  return out;
+}
+
+function requireLength(name: string, values: ArrayLike<number> | null, count: number): void {
+  if (values && values.length !== count) throw new Error(`lap report: ${name} has ${values.length} samples but the track grid has ${count}`);
+}
+
+/** Braking zones as corners for a page without a driver: from the brake point to full throttle again. */
+function referenceCorners(result: LapResult): ReportCorner[] {
+  const { trace, track } = result;
+  const zones = result.brakingZones;
+  return zones.map((zone, index) => {
+    const nextStart = index + 1 < zones.length ? zones[index + 1]!.startIndex : trace.count - 1;
+    let exitIndex = zone.minSpeedIndex;
+    while (exitIndex < nextStart && exitIndex < trace.count - 1 && trace.throttle[exitIndex]! < 0.99) exitIndex++;
+    const entryM = trace.stationM[zone.startIndex]!;
+    const apexM = trace.stationM[zone.minSpeedIndex]!;
+    const exitM = trace.stationM[exitIndex]!;
+    const named = track.corners.find((corner) => corner.atM >= entryM && corner.atM <= Math.max(exitM, apexM));
+    return { id: index + 1, name: named?.name ?? null, entryM, apexM, exitM };
+  });
+}
+
+export function reportModel(input: ReportInput): ReportModel {
+  const { reference } = input;
+  const { trace, track } = reference;
+  const count = trace.count;
+  const g = 1 / STANDARD_GRAVITY_MPS2;
+  const xM = input.linePositions?.xM ?? track.xM;
+  const yM = input.linePositions?.yM ?? track.yM;
+  requireLength('line positions', xM, count);
+  requireLength('line positions', yM, count);
+  const referenceChannels: LapChannels = {
+    speedKph: scaled(trace.speedMps, mpsToKph(1)),
+    throttlePct: scaled(trace.throttle, 100),
+    brakePct: scaled(trace.brake, 100),
+    gripUsePct: scaled(trace.gripUse, 100),
+    axG: scaled(trace.axMps2, g),
+    ayG: scaled(trace.ayMps2, g),
+    xM,
+    yM,
+  };
+  let driver: ReportModel['driver'] = null;
+  let corners = referenceCorners(reference);
+  const comparison = input.comparison;
+  if (comparison) {
+    const lap = comparison.driver;
+    const result = comparison.result;
+    for (const [name, values] of [
+      ['driver speed', lap.speedMps],
+      ['driver throttle', lap.throttle],
+      ['driver brake', lap.brake],
+      ['driver positions', lap.xM],
+      ['time delta', result.deltaS],
+      ['driver grip use', result.driverGripUse],
+    ] as const) {
+      requireLength(name, values, count);
+    }
+    driver = {
+      speedKph: scaled(lap.speedMps, mpsToKph(1)),
+      throttlePct: lap.throttle ? scaled(lap.throttle, 100) : null,
+      brakePct: lap.brake ? scaled(lap.brake, 100) : null,
+      gripUsePct: scaled(result.driverGripUse, 100),
+      axG: scaled(lap.axMps2, g),
+      ayG: scaled(lap.ayMps2, g),
+      xM: lap.xM,
+      yM: lap.yM,
+      deltaS: Float64Array.from(result.deltaS),
+    };
+    corners = result.corners.map((corner) => ({ id: corner.id, name: corner.name, entryM: corner.entryM, apexM: corner.apexM, exitM: corner.exitM }));
+  }
+  return { input, lengthM: track.lengthM, closed: track.closed, stationM: trace.stationM, reference: referenceChannels, driver, corners };
+}
+
+/** The distance range a corner zooms to: the corner and a margin either side, inside the lap. */
+export function cornerRangeM(corner: ReportCorner, lengthM: number): [number, number] {
+  const start = Math.min(corner.entryM, corner.apexM);
+  const end = Math.max(corner.exitM, corner.apexM);
+  const margin = Math.max(40, 0.25 * (end - start));
+  const from = Math.max(0, start - margin);
+  const to = Math.min(lengthM, end + margin);
+  return to - from > 20 ? [from, to] : [Math.max(0, from - 10), Math.min(lengthM, to + 10)];
+}

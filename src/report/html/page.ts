@@ -1,0 +1,275 @@
+// The lap report as one self-contained HTML page: charts as inline SVG (d3-shape paths built here), one
+// inline style sheet and one inline script admitted by a Content-Security-Policy hash, no network at all.
+
+import { createHash } from 'node:crypto';
+import { SAFETY_CAUTION } from '../lap-summary.js';
+import { clientScript } from './client-script.js';
+import { distanceChartSvg, DRAW_BUCKET_M, type DistanceChartSpec, type DistanceSeries } from './distance-chart.js';
+import { escapeHtml, jsonForScript } from './escape.js';
+import { ggDiagramSvg, ggFrame } from './gg-diagram.js';
+import { cornerRangeM, reportModel, type ReportInput, type ReportModel } from './model.js';
+import { GRIP_NEAR_LIMIT, GRIP_OVER_LIMIT, PALETTE } from './palette.js';
+import { paddedDomain, quantileOf } from './scale.js';
+import { strideIndices } from './downsample.js';
+import { cornerTableHtml, findingsHtml, summaryHtml } from './tables.js';
+import { mapPoint, mapProjection, trackMapSvg } from './track-map.js';
+import { PAGE_STYLE } from './style.js';
+import type { SvgOptions } from './svg-frame.js';
+
+/** Hover values are kept for at most this many points along the lap. */
+const MAX_HOVER_POINTS = 2500;
+const REFERENCE_DASH = '6 3';
+
+function range(values: (ArrayLike<number> | null | undefined)[]): [number, number] {
+  let min = Infinity;
+  let max = -Infinity;
+  for (const series of values) {
+    if (!series) continue;
+    for (let i = 0; i < series.length; i++) {
+      const v = series[i]!;
+      if (!Number.isFinite(v)) continue;
+      if (v < min) min = v;
+      if (v > max) max = v;
+    }
+  }
+  return [min, max];
+}
+
+function negated(values: ArrayLike<number>): Float64Array {
+  const out = new Float64Array(values.length);
+  for (let i = 0; i < values.length; i++) out[i] = -values[i]!;
+  return out;
+}
+
+function distanceCharts(model: ReportModel): DistanceChartSpec[] {
+  const { reference, driver } = model;
+  const track = model.input.reference.track;
+  const base = { stationM: model.stationM, lengthM: model.lengthM, stepM: track.stepM };
+  const refSeries = (values: ArrayLike<number>, label = 'reference'): DistanceSeries => ({ label, colour: PALETTE.reference, values, ...(driver ? { dash: REFERENCE_DASH } : {}) });
+  const drvSeries = (values: ArrayLike<number>, label = 'driver'): DistanceSeries => ({ label, colour: PALETTE.driver, values });
+  const charts: DistanceChartSpec[] = [];
+
+  const [speedMin, speedMax] = range([reference.speedKph, driver?.speedKph]);
+  charts.push({
+    ...base,
+    name: 'speed',
+    title: 'Speed',
+    yTitle: 'speed, km/h',
+    yDomain: [Math.max(0, paddedDomain(speedMin, speedMax)[0]), paddedDomain(speedMin, speedMax)[1]],
+    height: 210,
+    series: driver ? [refSeries(reference.speedKph), drvSeries(driver.speedKph)] : [refSeries(reference.speedKph)],
+  });
+
+  if (driver) {
+    const [deltaMin, deltaMax] = range([driver.deltaS]);
+    charts.push({
+      ...base,
+      name: 'delta',
+      title: 'Time delta (driver − reference)',
+      yTitle: 'delta, s',
+      yDomain: paddedDomain(Math.min(0, deltaMin), Math.max(0, deltaMax), 0.08),
+      height: 150,
+      series: [{ label: 'driver − reference (+ = slower)', colour: PALETTE.delta, values: driver.deltaS, fillToZero: true, width: 1.8 }],
+      guides: [0],
+    });
+  }
+
+  // Throttle upward, brake downward, so the two never hide each other.
+  const pedalSeries: DistanceSeries[] = [
+    refSeries(reference.throttlePct!, 'reference'),
+    // An empty label shares the legend entry of the series before it.
+    { ...refSeries(negated(reference.brakePct!)), label: '' },
+  ];
+  let note: string | undefined;
+  if (driver) {
+    if (driver.throttlePct) pedalSeries.push(drvSeries(driver.throttlePct, 'driver'));
+    if (driver.brakePct) pedalSeries.push({ ...drvSeries(negated(driver.brakePct)), label: '' });
+    if (!driver.throttlePct && !driver.brakePct) note = 'the driver’s log has no pedal channels';
+    else if (!driver.throttlePct || !driver.brakePct) note = `the driver’s log has no ${driver.throttlePct ? 'brake' : 'throttle'} channel`;
+  }
+  charts.push({
+    ...base,
+    name: 'pedals',
+    title: 'Throttle (up) and brake (down)',
+    yTitle: 'brake ↓ · throttle ↑, %',
+    yDomain: [-108, 108],
+    yFormat: (value) => String(Math.abs(value)),
+    height: 190,
+    series: pedalSeries,
+    guides: [0],
+    ...(note ? { note } : {}),
+  });
+
+  // A logged lap's grip use can spike where its accelerations are noisy: the axis follows its 99.5th percentile.
+  const gripMax = Math.max(range([reference.gripUsePct])[1], driver ? quantileOf([driver.gripUsePct], 0.995) : 0);
+  charts.push({
+    ...base,
+    name: 'grip',
+    title: 'Grip use (share of the envelope)',
+    yTitle: 'grip use, %',
+    yDomain: [0, Math.min(200, Math.max(115, Math.ceil((gripMax + 5) / 10) * 10))],
+    height: 170,
+    series: driver ? [refSeries(reference.gripUsePct), drvSeries(driver.gripUsePct)] : [refSeries(reference.gripUsePct)],
+    bands: [
+      { from: GRIP_NEAR_LIMIT * 100, to: GRIP_OVER_LIMIT * 100, colour: '#fbe7bd' },
+      { from: GRIP_OVER_LIMIT * 100, to: 1000, colour: '#f5e1ec' },
+    ],
+    guides: [100],
+    legendExtra: [
+      { label: 'near the limit', colour: '#fbe7bd', mark: 'swatch' },
+      { label: 'over', colour: '#f5e1ec', mark: 'swatch' },
+    ],
+  });
+  return charts;
+}
+
+export interface ChartSvg {
+  /** File name for --svg, e.g. 'speed.svg'. */
+  name: string;
+  title: string;
+  svg: string;
+}
+
+function allCharts(model: ReportModel, options: SvgOptions): ChartSvg[] {
+  const charts: ChartSvg[] = [
+    { name: 'track-map.svg', title: 'Track map', svg: trackMapSvg(model, options) },
+    { name: 'g-g.svg', title: 'g-g diagram', svg: ggDiagramSvg(model, options) },
+  ];
+  for (const spec of distanceCharts(model)) charts.push({ name: `${spec.name}.svg`, title: spec.title, svg: distanceChartSvg(spec, options) });
+  return charts;
+}
+
+/** Each chart as a standalone SVG file (with its namespace), for slides and documents. */
+export function chartSvgs(input: ReportInput): ChartSvg[] {
+  return allCharts(reportModel(input), { standalone: true });
+}
+
+function rounded(values: ArrayLike<number> | null | undefined, indices: number[], digits: number): number[] | null {
+  if (!values) return null;
+  const scale = 10 ** digits;
+  return indices.map((i) => {
+    const v = values[i]!;
+    return Number.isFinite(v) ? Math.round(v * scale) / scale : 0;
+  });
+}
+
+function pageData(model: ReportModel): unknown {
+  const count = model.stationM.length;
+  const indices = strideIndices(count, Math.ceil(count / MAX_HOVER_POINTS));
+  const map = mapProjection(model);
+  const mapX: number[] = [];
+  const mapY: number[] = [];
+  for (const i of indices) {
+    const [x, y] = mapPoint(model, map, i);
+    mapX.push(x);
+    mapY.push(y);
+  }
+  const { reference: r, driver: d } = model;
+  const { frame } = ggFrame(model);
+  return {
+    lengthM: model.lengthM,
+    d: rounded(model.stationM, indices, 1),
+    mapX,
+    mapY,
+    gg: { cx: Math.round(frame.centreX * 10) / 10, cy: Math.round(frame.centreY * 10) / 10, pxPerG: Math.round(frame.pxPerG * 1000) / 1000 },
+    series: {
+      vR: rounded(r.speedKph, indices, 1),
+      tR: rounded(r.throttlePct, indices, 0),
+      bR: rounded(r.brakePct, indices, 0),
+      gR: rounded(r.gripUsePct, indices, 0),
+      axR: rounded(r.axG, indices, 2),
+      ayR: rounded(r.ayG, indices, 2),
+      vD: rounded(d?.speedKph, indices, 1),
+      tD: rounded(d?.throttlePct, indices, 0),
+      bD: rounded(d?.brakePct, indices, 0),
+      gD: rounded(d?.gripUsePct, indices, 0),
+      axD: rounded(d?.axG, indices, 2),
+      ayD: rounded(d?.ayG, indices, 2),
+      dt: rounded(d?.deltaS, indices, 3),
+    },
+    corners: model.corners.map((corner) => {
+      const [from, to] = cornerRangeM(corner, model.lengthM);
+      return { id: corner.id, from: Math.round(from), to: Math.round(to), label: corner.name ? `corner ${corner.id}: ${corner.name}` : `corner ${corner.id}` };
+    }),
+  };
+}
+
+function readoutHtml(model: ReportModel): string {
+  const cell = (name: string) => `<td data-field="${name}">–</td>`;
+  const row = (label: string, who: 'R' | 'D', className: string) =>
+    `<tr><th class="${className}">${label}</th>${['speed', 'throttle', 'brake', 'grip', 'accel'].map((field) => cell(field + who)).join('')}</tr>`;
+  const head = '<tr><th></th><th>speed</th><th>throttle</th><th>brake</th><th>grip use</th><th>long / lat</th></tr>';
+  const distanceRow = `<tr><th>distance</th>${cell('distance')}${model.driver ? `<th>delta</th>${cell('delta')}` : ''}</tr>`;
+  return (
+    `<table class="readout" id="readout" aria-live="off"><thead>${head}</thead><tbody>${row('reference', 'R', 'who-r')}` +
+    `${model.driver ? row('driver', 'D', 'who-d') : ''}</tbody></table>` +
+    `<table class="readout"><tbody>${distanceRow}</tbody></table>`
+  );
+}
+
+function sha256Base64(text: string): string {
+  return createHash('sha256').update(text, 'utf8').digest('base64');
+}
+
+/** The whole report page as one string; pure (no I/O). */
+export function lapReportHtml(input: ReportInput): string {
+  const model = reportModel(input);
+  const options: SvgOptions = { standalone: false };
+  const [mapSvg, ggSvg, ...distanceSvgs] = allCharts(model, options);
+  const script = clientScript();
+  const style = PAGE_STYLE;
+  const csp = [
+    "default-src 'none'",
+    `script-src 'sha256-${sha256Base64(script)}'`,
+    `style-src 'sha256-${sha256Base64(style)}'`,
+    "img-src 'none'",
+    "connect-src 'none'",
+    "font-src 'none'",
+    "object-src 'none'",
+    "base-uri 'none'",
+    "form-action 'none'",
+  ].join('; ');
+  const reference = input.reference;
+  const trackName = reference.track.name;
+  const title = input.comparison ? `Lap report: ${trackName} · ${input.carName} · driver against reference` : `Reference lap: ${trackName} · ${input.carName}`;
+  const subtitle = input.comparison
+    ? `${input.comparison.driver.source}, lap ${input.comparison.driver.lapNumber}, against the reference lap of the ${reference.envelopeKind} model`
+    : `Reference lap of the ${reference.envelopeKind} model, grid step ${reference.track.stepM.toFixed(2)} m`;
+  return `<!DOCTYPE html>
+<html lang="en">
+<head>
+<meta charset="utf-8">
+<meta http-equiv="Content-Security-Policy" content="${csp}">
+<meta name="viewport" content="width=device-width, initial-scale=1">
+<meta name="referrer" content="no-referrer">
+<title>${escapeHtml(title)}</title>
+<style>${style}</style>
+</head>
+<body>
+<header>
+<h1>${escapeHtml(title)}</h1>
+<p class="subtitle">${escapeHtml(subtitle)}</p>
+${summaryHtml(model)}
+</header>
+<main>
+<section class="overview">
+<div class="panel">${mapSvg!.svg}</div>
+<div class="panel">${ggSvg!.svg}</div>
+</section>
+<div class="controls"><div class="controls-inner"><div class="view">View: <span id="zoom-label">whole lap</span> <button type="button" id="zoom-reset" disabled>Whole lap</button></div>${readoutHtml(model)}</div></div>
+<section class="panel stack" aria-label="Channels against distance">
+${distanceSvgs.map((chart) => chart.svg).join('\n')}
+</section>
+<section class="panel">${cornerTableHtml(model)}</section>
+${input.comparison ? `<section class="panel">${findingsHtml(model)}</section>` : ''}
+</main>
+<footer>
+<p class="caution">${escapeHtml(SAFETY_CAUTION)}</p>
+<p>Made by reflap. Charts are drawn about one point per ${DRAW_BUCKET_M} m; hover values every ${(Math.max(1, Math.ceil(reference.trace.count / MAX_HOVER_POINTS)) * reference.track.stepM).toFixed(1)} m. Colours: Okabe–Ito palette, chosen to stay readable for colour-blind readers.</p>
+</footer>
+<script type="application/json" id="lap-data">${jsonForScript(pageData(model))}</script>
+<script>${script}</script>
+</body>
+</html>
+`;
+}

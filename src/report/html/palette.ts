@@ -1,0 +1,53 @@
+// Colours of the lap report: the Okabe-Ito palette, chosen to stay distinguishable under the common forms
+// of colour-vision deficiency (M. Okabe and K. Ito, "Color Universal Design (CUD): how to make figures and
+// presentations that are friendly to colorblind people", J*FLY, 2008). Roles are assigned here only.
+
+export const OKABE_ITO = {
+  black: '#000000',
+  orange: '#E69F00',
+  skyBlue: '#56B4E9',
+  bluishGreen: '#009E73',
+  yellow: '#F0E442',
+  blue: '#0072B2',
+  vermillion: '#D55E00',
+  reddishPurple: '#CC79A7',
+} as const;
+
+export const PALETTE = {
+  reference: OKABE_ITO.blue,
+  driver: OKABE_ITO.vermillion,
+  delta: OKABE_ITO.reddishPurple,
+  carEnvelope: OKABE_ITO.black,
+  demonstratedEnvelope: OKABE_ITO.bluishGreen,
+  gripUnused: OKABE_ITO.skyBlue,
+  gripNear: OKABE_ITO.orange,
+  gripOver: OKABE_ITO.reddishPurple,
+  cursor: '#333333',
+  grid: '#e3e3e3',
+  axis: '#555555',
+  trackSurface: '#dedede',
+} as const;
+
+/** Grip-use classes on the track map: below NEAR is grip left unused, above OVER is beyond the envelope. */
+export const GRIP_NEAR_LIMIT = 0.9;
+export const GRIP_OVER_LIMIT = 1.02;
+
+export type GripClass = 'unused' | 'near' | 'over';
+
+export function gripClass(gripUse: number): GripClass {
+  if (gripUse > GRIP_OVER_LIMIT) return 'over';
+  if (gripUse >= GRIP_NEAR_LIMIT) return 'near';
+  return 'unused';
+}
+
+export const GRIP_CLASS_COLOUR: Record<GripClass, string> = {
+  unused: PALETTE.gripUnused,
+  near: PALETTE.gripNear,
+  over: PALETTE.gripOver,
+};
+
+export const GRIP_CLASS_LABEL: Record<GripClass, string> = {
+  unused: `grip unused (< ${Math.round(GRIP_NEAR_LIMIT * 100)} %)`,
+  near: 'near the limit',
+  over: `over the limit (> ${Math.round(GRIP_OVER_LIMIT * 100)} %)`,
+};

@@ -1,0 +1,102 @@
+// The report's HTML tables and lists: the lap summary, the per-corner table (or the reference's braking
+// zones when there is no driver) and the ranked findings. All input text goes through escapeHtml.
+
+import { formatLapTime } from '../../units.js';
+import { escapeHtml } from './escape.js';
+import type { ReportModel } from './model.js';
+
+const fixed = (value: number | null | undefined, digits: number): string => (value === null || value === undefined || !Number.isFinite(value) ? '–' : value.toFixed(digits));
+const signed = (value: number | null | undefined, digits: number): string =>
+  value === null || value === undefined || !Number.isFinite(value) ? '–' : `${value > 0 ? '+' : value < 0 ? '−' : '±'}${Math.abs(value).toFixed(digits)}`;
+
+function tile(label: string, value: string, note = ''): string {
+  return `<div class="tile"><div class="tile-label">${escapeHtml(label)}</div><div class="tile-value">${escapeHtml(value)}</div>${note ? `<div class="tile-note">${escapeHtml(note)}</div>` : ''}</div>`;
+}
+
+export function summaryHtml(model: ReportModel): string {
+  const reference = model.input.reference;
+  const tiles = [tile('Reference lap', formatLapTime(reference.lapTimeS), `${reference.envelopeKind} envelope`)];
+  const comparison = model.input.comparison;
+  if (comparison) {
+    const result = comparison.result;
+    const gap = result.driverLapTimeS - result.referenceLapTimeS;
+    tiles.push(tile('Driver lap', formatLapTime(result.driverLapTimeS), `lap ${comparison.driver.lapNumber} of ${comparison.driver.source}`));
+    tiles.push(tile('Gap to reference', `${signed(gap, 3)} s`, gap >= 0 ? 'driver slower' : 'driver faster'));
+    if (result.demonstratedLapTimeS !== null) tiles.push(tile('On demonstrated grip', formatLapTime(result.demonstratedLapTimeS), 'driver’s own envelope'));
+  }
+  tiles.push(tile('Top speed', `${(reference.maxSpeedMps * 3.6).toFixed(1)} km/h`, 'reference'));
+  tiles.push(tile('Lowest speed', `${(reference.minSpeedMps * 3.6).toFixed(1)} km/h`, 'reference'));
+  tiles.push(tile('Length', `${(reference.lengthM / 1000).toFixed(3)} km`, reference.track.closed ? 'closed circuit' : 'open stage'));
+  return `<section class="summary" aria-label="Lap summary">${tiles.join('')}</section>`;
+}
+
+function cornerCell(id: number, name: string | null): string {
+  return `<td class="corner-id"><span class="badge">${id}</span>${name ? ` ${escapeHtml(name)}` : ''}</td>`;
+}
+
+export function cornerTableHtml(model: ReportModel): string {
+  const comparison = model.input.comparison;
+  if (!comparison) return brakingZoneTableHtml(model);
+  const rows = comparison.result.corners
+    .map(
+      (c) =>
+        `<tr class="corner-row" data-corner="${c.id}" tabindex="0">${cornerCell(c.id, c.name)}` +
+        `<td>${fixed(c.entryM, 0)}–${fixed(c.exitM, 0)}</td>` +
+        `<td>${signed(c.brakingPointDeltaM, 0)}</td>` +
+        `<td>${fixed(c.entrySpeedDriverKph, 1)} / ${fixed(c.entrySpeedReferenceKph, 1)}</td>` +
+        `<td>${fixed(c.minSpeedDriverKph, 1)} / ${fixed(c.minSpeedReferenceKph, 1)}</td>` +
+        `<td>${signed(c.minSpeedDeltaKph, 1)}</td>` +
+        `<td>${signed(c.minSpeedOffsetFromApexM, 0)}</td>` +
+        `<td>${fixed(c.exitSpeedDriverKph, 1)} / ${fixed(c.exitSpeedReferenceKph, 1)}</td>` +
+        `<td>${signed(c.entryTimeLostS, 2)} / ${signed(c.middleTimeLostS, 2)} / ${signed(c.exitTimeLostS, 2)}</td>` +
+        `<td class="strong">${signed(c.timeLostS, 2)}</td>` +
+        `<td>${fixed(c.coastingS, 2)}</td>` +
+        `<td>${fixed(c.peakGripUse * 100, 0)}</td></tr>`,
+    )
+    .join('');
+  return (
+    `<section class="corners"><h2>Corner by corner</h2><p class="hint">Driver / reference. Time lost is positive where the driver is slower. Click a row to zoom every chart to that corner.</p>` +
+    `<div class="table-wrap"><table><thead><tr><th>corner</th><th>entry–exit, m</th><th>brake point Δ, m</th><th>entry, km/h</th><th>slowest, km/h</th><th>slowest Δ, km/h</th>` +
+    `<th>slowest after apex, m</th><th>exit, km/h</th><th>lost in entry / middle / exit, s</th><th>lost, s</th><th>coasting, s</th><th>peak grip, %</th></tr></thead>` +
+    `<tbody>${rows}</tbody></table></div></section>`
+  );
+}
+
+function brakingZoneTableHtml(model: ReportModel): string {
+  const zones = model.input.reference.brakingZones;
+  const rows = model.corners
+    .map((corner, index) => {
+      const zone = zones[index]!;
+      return (
+        `<tr class="corner-row" data-corner="${corner.id}" tabindex="0">${cornerCell(corner.id, corner.name)}` +
+        `<td>${fixed(zone.startM, 0)}</td><td>${fixed(zone.entrySpeedMps * 3.6, 1)}</td><td>${fixed(zone.brakingLengthM, 0)}</td>` +
+        `<td>${fixed(zone.minSpeedAtM, 0)}</td><td>${fixed(zone.minSpeedMps * 3.6, 1)}</td><td>${fixed(corner.exitM, 0)}</td></tr>`
+      );
+    })
+    .join('');
+  return (
+    `<section class="corners"><h2>Braking zones of the reference</h2><p class="hint">Click a row to zoom every chart to that zone.</p>` +
+    `<div class="table-wrap"><table><thead><tr><th>zone</th><th>brakes at, m</th><th>entry, km/h</th><th>braking, m</th><th>slowest at, m</th><th>slowest, km/h</th><th>full throttle at, m</th></tr></thead>` +
+    `<tbody>${rows}</tbody></table></div></section>`
+  );
+}
+
+export function findingsHtml(model: ReportModel): string {
+  const comparison = model.input.comparison;
+  if (!comparison) return '';
+  const findings = [...comparison.result.findings].sort((a, b) => b.timeS - a.timeS);
+  const items = findings
+    .map((finding) => {
+      const where = finding.corner !== null ? `<button type="button" class="corner-link" data-corner="${finding.corner}">corner ${finding.corner}</button>` : '<span class="whole-lap">whole lap</span>';
+      return `<li><span class="stake">${fixed(finding.timeS, 2)} s</span>${where}<span class="finding-text">${escapeHtml(finding.text)}</span></li>`;
+    })
+    .join('');
+  const notes = comparison.result.notes.map((note) => `<li>${escapeHtml(note)}</li>`).join('');
+  const derived = comparison.driver.derivedChannels.length ? `<li>${escapeHtml(`Derived, not measured: ${comparison.driver.derivedChannels.join(', ')}.`)}</li>` : '';
+  return (
+    `<section class="findings"><h2>Where the time is</h2>` +
+    (items ? `<ol class="finding-list">${items}</ol>` : '<p>No findings.</p>') +
+    (notes || derived ? `<ul class="notes">${notes}${derived}</ul>` : '') +
+    `</section>`
+  );
+}

@@ -1,0 +1,179 @@
+// The track map: the track's surface, the reference line and the driver's path, the lap that the page is
+// about coloured by its grip use, the corners numbered (clickable), and a dot the page's script moves.
+
+import { escapeHtml } from './escape.js';
+import { strideIndices } from './downsample.js';
+import { coord } from './scale.js';
+import { legendRow, svgElement, type LegendItem, type SvgOptions } from './svg-frame.js';
+import { GRIP_CLASS_COLOUR, GRIP_CLASS_LABEL, gripClass, PALETTE, type GripClass } from './palette.js';
+import type { ReportModel } from './model.js';
+
+export const MAP_WIDTH = 520;
+export const MAP_HEIGHT = 440;
+const MARGIN = 34;
+const LEGEND_HEIGHT = 44;
+/** Map points are drawn about this many metres apart. */
+const MAP_STEP_M = 3;
+
+/** Maps track metres to map pixels, north up. */
+export interface MapProjection {
+  x(xM: number): number;
+  y(yM: number): number;
+  pxPerM: number;
+}
+
+export function mapProjection(model: ReportModel): MapProjection {
+  const { track } = model.input.reference;
+  let minX = Infinity;
+  let maxX = -Infinity;
+  let minY = Infinity;
+  let maxY = -Infinity;
+  for (let i = 0; i < track.xM.length; i++) {
+    minX = Math.min(minX, track.xM[i]!);
+    maxX = Math.max(maxX, track.xM[i]!);
+    minY = Math.min(minY, track.yM[i]!);
+    maxY = Math.max(maxY, track.yM[i]!);
+  }
+  const spanX = Math.max(maxX - minX, 1);
+  const spanY = Math.max(maxY - minY, 1);
+  const usableWidth = MAP_WIDTH - 2 * MARGIN;
+  const usableHeight = MAP_HEIGHT - 2 * MARGIN - LEGEND_HEIGHT;
+  const pxPerM = Math.min(usableWidth / spanX, usableHeight / spanY);
+  const offsetX = MARGIN + (usableWidth - spanX * pxPerM) / 2;
+  const offsetY = LEGEND_HEIGHT + MARGIN + (usableHeight - spanY * pxPerM) / 2;
+  return {
+    x: (xM) => offsetX + (xM - minX) * pxPerM,
+    y: (yM) => offsetY + (maxY - yM) * pxPerM,
+    pxPerM,
+  };
+}
+
+function polyline(indices: number[], xs: ArrayLike<number>, ys: ArrayLike<number>, map: MapProjection): string {
+  let d = '';
+  for (const i of indices) d += `${d ? 'L' : 'M'}${coord(map.x(xs[i]!))},${coord(map.y(ys[i]!))}`;
+  return d;
+}
+
+/** The path split into runs of one grip-use class; each run's class is the highest use within it. */
+function colouredPath(indices: number[], xs: ArrayLike<number>, ys: ArrayLike<number>, gripPct: ArrayLike<number>, map: MapProjection, width: number): string {
+  let out = '';
+  let run: number[] = [];
+  let runClass: GripClass | null = null;
+  const flush = () => {
+    if (run.length > 1 && runClass) {
+      out += `<path class="grip-${runClass}" d="${polyline(run, xs, ys, map)}" fill="none" stroke="${GRIP_CLASS_COLOUR[runClass]}" stroke-width="${width}" stroke-linecap="round" stroke-linejoin="round"/>`;
+    }
+  };
+  for (let k = 0; k < indices.length; k++) {
+    const start = indices[k]!;
+    const end = k + 1 < indices.length ? indices[k + 1]! : start + 1;
+    let peak = 0;
+    for (let i = start; i < Math.min(end, gripPct.length); i++) peak = Math.max(peak, gripPct[i]!);
+    const cls = gripClass(peak / 100);
+    if (cls !== runClass) {
+      if (run.length) run.push(start);
+      flush();
+      run = [start];
+      runClass = cls;
+    } else {
+      run.push(start);
+    }
+  }
+  flush();
+  return out;
+}
+
+export function trackMapSvg(model: ReportModel, options: SvgOptions): string {
+  const { track } = model.input.reference;
+  const map = mapProjection(model);
+  const count = model.stationM.length;
+  const indices = strideIndices(count, Math.max(1, Math.round(MAP_STEP_M / track.stepM)));
+  if (model.closed) indices.push(0);
+  const driver = model.driver;
+  const driverHasPath = Boolean(driver?.xM && driver.yM);
+
+  let widthM = 10;
+  if (track.widthLeftM && track.widthRightM) {
+    let sum = 0;
+    for (let i = 0; i < count; i++) sum += track.widthLeftM[i]! + track.widthRightM[i]!;
+    widthM = sum / count;
+  }
+  const surfaceWidth = Math.max(6, widthM * map.pxPerM);
+  let body = `<text class="chart-title" x="14" y="18" font-size="13" font-weight="600">Track map</text>`;
+  const legend: LegendItem[] = (['unused', 'near', 'over'] as const).map((cls) => ({ label: GRIP_CLASS_LABEL[cls], colour: GRIP_CLASS_COLOUR[cls] }));
+  body += legendRow(legend, MAP_WIDTH - 10, 36);
+  const subject = driverHasPath ? 'driver’s path coloured by grip use; reference line in black' : 'reference line coloured by grip use';
+  body += `<text x="${MAP_WIDTH - 10}" y="52" text-anchor="end" fill="${PALETTE.axis}">${escapeHtml(subject)}</text>`;
+  body += `<path class="track-surface" d="${polyline(indices, track.xM, track.yM, map)}" fill="none" stroke="${PALETTE.trackSurface}" stroke-width="${coord(surfaceWidth)}" stroke-linejoin="round" stroke-linecap="round"/>`;
+  const reference = model.reference;
+  if (driver && driverHasPath) {
+    body += colouredPath(indices, driver.xM!, driver.yM!, driver.gripUsePct, map, 4);
+    body += `<path class="reference-line" d="${polyline(indices, reference.xM!, reference.yM!, map)}" fill="none" stroke="#111" stroke-width="1.2" stroke-linejoin="round"/>`;
+  } else {
+    body += colouredPath(indices, reference.xM!, reference.yM!, reference.gripUsePct, map, 4);
+  }
+
+  // Start/finish: a bar across the track at the first sample, and the direction of travel.
+  const heading = track.headingRad[0]!;
+  const nx = -Math.sin(heading);
+  const ny = Math.cos(heading);
+  const half = surfaceWidth / 2 + 5;
+  const sx = map.x(track.xM[0]!);
+  const sy = map.y(track.yM[0]!);
+  body += `<line x1="${coord(sx + nx * half)}" y1="${coord(sy - ny * half)}" x2="${coord(sx - nx * half)}" y2="${coord(sy + ny * half)}" stroke="#111" stroke-width="2.5"/>`;
+  body += `<text x="${coord(sx + nx * (half + 4))}" y="${coord(sy - ny * (half + 4))}" font-size="10" fill="#111" text-anchor="middle">start ▸</text>`;
+
+  if (!model.closed) {
+    const last = count - 1;
+    const lh = track.headingRad[last]!;
+    const ex = map.x(track.xM[last]!);
+    const ey = map.y(track.yM[last]!);
+    const enx = -Math.sin(lh);
+    const eny = Math.cos(lh);
+    body += `<line x1="${coord(ex + enx * half)}" y1="${coord(ey - eny * half)}" x2="${coord(ex - enx * half)}" y2="${coord(ey + eny * half)}" stroke="#111" stroke-width="2.5" stroke-dasharray="3 2"/>`;
+    body += `<text x="${coord(ex + enx * (half + 4))}" y="${coord(ey - eny * (half + 4))}" font-size="10" fill="#111" text-anchor="middle">finish</text>`;
+  }
+
+  for (const corner of model.corners) {
+    const i = Math.min(count - 1, Math.max(0, Math.round(corner.apexM / track.stepM)));
+    const h = track.headingRad[i]!;
+    // Numbers sit on the outside of the bend, clear of the surface.
+    const side = track.curvaturePerM[i]! >= 0 ? -1 : 1;
+    const offset = surfaceWidth / 2 + 13;
+    const cx = map.x(track.xM[i]!) + side * -Math.sin(h) * offset;
+    const cy = map.y(track.yM[i]!) - side * Math.cos(h) * offset;
+    const title = corner.name ? `Corner ${corner.id}: ${corner.name}` : `Corner ${corner.id}`;
+    body +=
+      `<g class="corner-mark" data-corner="${corner.id}" tabindex="0" role="button" cursor="pointer"><title>${escapeHtml(title)}</title>` +
+      `<circle cx="${coord(cx)}" cy="${coord(cy)}" r="9" fill="#ffffff" stroke="#111" stroke-width="1.2"/>` +
+      `<text x="${coord(cx)}" y="${coord(cy)}" dy="0.35em" text-anchor="middle" font-size="10" font-weight="600">${corner.id}</text></g>`;
+  }
+  body += `<circle class="map-dot" cx="0" cy="0" r="5.5" fill="#111" stroke="#fff" stroke-width="2" visibility="hidden"/>`;
+  body += `<text x="14" y="${MAP_HEIGHT - 10}" fill="${PALETTE.axis}">${escapeHtml(scaleBarLabel(map.pxPerM))}</text>`;
+  body += scaleBar(map.pxPerM);
+  return svgElement('map', MAP_WIDTH, MAP_HEIGHT, body, options, 'Track map with the corners numbered');
+}
+
+function scaleBarLengthM(pxPerM: number): number {
+  const target = 90 / pxPerM;
+  const power = 10 ** Math.floor(Math.log10(target));
+  return [5, 2, 1].map((m) => m * power).find((m) => m <= target) ?? power;
+}
+
+function scaleBarLabel(pxPerM: number): string {
+  return `${scaleBarLengthM(pxPerM)} m`;
+}
+
+function scaleBar(pxPerM: number): string {
+  const width = scaleBarLengthM(pxPerM) * pxPerM;
+  const y = MAP_HEIGHT - 24;
+  return `<path d="M14,${y - 4}V${y}H${coord(14 + width)}V${y - 4}" fill="none" stroke="${PALETTE.axis}" stroke-width="1.5"/>`;
+}
+
+/** Map coordinates of the lap drawn as the subject, for the page's hover dot. */
+export function mapPoint(model: ReportModel, map: MapProjection, index: number): [number, number] {
+  const driver = model.driver;
+  const xs = driver?.xM ?? model.reference.xM!;
+  const ys = driver?.yM ?? model.reference.yM!;
+  return [Math.round(map.x(xs[index]!) * 10) / 10, Math.round(map.y(ys[index]!) * 10) / 10];
+}

@@ -1,0 +1,93 @@
+// What a setup change does to the lap: the lap time change and, corner by corner, how far the braking
+// point moves, how the entry and slowest speeds change and what the braking zone costs or gains in time.
+
+import type { BrakingZone, LapResult } from '../solve/types.js';
+import { mpsToKph } from '../units.js';
+import { DEFAULT_MATCH_TOLERANCE_M, matchBrakingZones, signedLapShiftM } from './match-zones.js';
+import { brakingPointM } from './braking-point.js';
+
+export interface ZoneChange {
+  /** 1-based number of the corner in the baseline's list of braking zones. */
+  corner: number;
+  /** Baseline braking zone's first braking sample and slowest point, m along the lap. */
+  startM: number;
+  minSpeedAtM: number;
+  /** Baseline braking point between grid samples (see braking-point.ts), m. */
+  brakingPointM: number;
+  /** The changed car's braking point between grid samples, m; null when the corner needs no braking any more. */
+  changedBrakingPointM: number | null;
+  /** Changed braking point minus the baseline's, m along the lap (between-sample points): negative = brake earlier. */
+  brakingPointShiftM: number | null;
+  entrySpeedDeltaKph: number | null;
+  minSpeedDeltaKph: number | null;
+  /** Time change over the zone (from the earlier braking point to the later slowest point), s. */
+  zoneTimeDeltaS: number | null;
+  baseline: BrakingZone;
+  changed: BrakingZone | null;
+}
+
+export interface LapComparison {
+  baselineLapTimeS: number;
+  changedLapTimeS: number;
+  lapTimeDeltaS: number;
+  zones: ZoneChange[];
+  /** Braking zones the changed car has where the baseline had none. */
+  newZones: BrakingZone[];
+}
+
+/** Time from sample i0 to sample i1 along the trace, going forward; across the start line on a closed lap. */
+function elapsedS(result: LapResult, i0: number, i1: number): number {
+  const time = result.trace.timeS;
+  const span = time[i1]! - time[i0]!;
+  return i1 >= i0 ? span : span + result.lapTimeS;
+}
+
+/** Whether sample a comes before sample b within half a lap (so the earlier of two braking points is found across the line). */
+function before(a: number, b: number, count: number, closed: boolean): boolean {
+  if (!closed) return a <= b;
+  const forward = (b - a + count) % count;
+  return forward <= count / 2;
+}
+
+/** Compares two laps on the same track and grid (same sample count). */
+export function compareLaps(baseline: LapResult, changed: LapResult, toleranceM = DEFAULT_MATCH_TOLERANCE_M): LapComparison {
+  const closed = baseline.trace.closed;
+  const lengthM = baseline.track.lengthM;
+  const count = baseline.trace.count;
+  const matching = matchBrakingZones(baseline.brakingZones, changed.brakingZones, lengthM, closed, toleranceM);
+  const zones: ZoneChange[] = baseline.brakingZones.map((zone, b) => {
+    const c = matching.changedIndexOf[b]!;
+    const other = c >= 0 ? changed.brakingZones[c]! : null;
+    if (!other) {
+      return {
+        corner: b + 1, startM: zone.startM, minSpeedAtM: zone.minSpeedAtM, brakingPointM: brakingPointM(baseline, zone),
+        changedBrakingPointM: null, brakingPointShiftM: null,
+        entrySpeedDeltaKph: null, minSpeedDeltaKph: null, zoneTimeDeltaS: null, baseline: zone, changed: null,
+      };
+    }
+    const i0 = before(zone.startIndex, other.startIndex, count, closed) ? zone.startIndex : other.startIndex;
+    const i1 = before(zone.minSpeedIndex, other.minSpeedIndex, count, closed) ? other.minSpeedIndex : zone.minSpeedIndex;
+    const basePointM = brakingPointM(baseline, zone);
+    const changedPointM = brakingPointM(changed, other);
+    return {
+      corner: b + 1,
+      startM: zone.startM,
+      minSpeedAtM: zone.minSpeedAtM,
+      brakingPointM: basePointM,
+      changedBrakingPointM: changedPointM,
+      brakingPointShiftM: signedLapShiftM(basePointM, changedPointM, lengthM, closed),
+      entrySpeedDeltaKph: mpsToKph(other.entrySpeedMps - zone.entrySpeedMps),
+      minSpeedDeltaKph: mpsToKph(other.minSpeedMps - zone.minSpeedMps),
+      zoneTimeDeltaS: elapsedS(changed, i0, i1) - elapsedS(baseline, i0, i1),
+      baseline: zone,
+      changed: other,
+    };
+  });
+  return {
+    baselineLapTimeS: baseline.lapTimeS,
+    changedLapTimeS: changed.lapTimeS,
+    lapTimeDeltaS: changed.lapTimeS - baseline.lapTimeS,
+    zones,
+    newZones: matching.unmatchedChanged.map((c) => changed.brakingZones[c]!),
+  };
+}

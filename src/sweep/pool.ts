@@ -1,0 +1,121 @@
+// Runs sweep setups across worker threads (node:worker_threads): each worker gets the track and the base
+// car once, then small tasks of a few parameter sets, and answers with packed Float64Array outcomes.
+
+import { Worker } from 'node:worker_threads';
+import { existsSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+import { availableParallelism } from 'node:os';
+import { InputError } from '../errors.js';
+import { evaluateRun, outcomeWidth, type SweepContext } from './evaluate.js';
+
+export interface TaskMessage {
+  id: number;
+  firstRun: number;
+  runCount: number;
+  values: Float64Array;
+}
+
+export interface WorkerReply {
+  id: number;
+  out?: Float64Array;
+  error?: string;
+  errorMessage?: string;
+  inputError?: boolean;
+}
+
+export interface RunOptions {
+  /** Worker threads; 0 runs in the calling thread. Default: os.availableParallelism(). */
+  workers?: number;
+  /** Called after each finished task with the number of runs done so far. */
+  onProgress?: (doneRuns: number, totalRuns: number) => void;
+}
+
+export function defaultWorkerCount(): number {
+  return availableParallelism();
+}
+
+/** The compiled worker: beside this file in dist/, or in dist/ when this file runs from src/ (vitest). */
+export function workerFileUrl(): URL {
+  const candidates = [new URL('./worker.js', import.meta.url), new URL('../../dist/src/sweep/worker.js', import.meta.url)];
+  for (const candidate of candidates) {
+    if (existsSync(fileURLToPath(candidate))) return candidate;
+  }
+  throw new Error(`sweep worker not found at ${candidates.map((c) => fileURLToPath(c)).join(' or ')}; run npm run build`);
+}
+
+/** Solves the runs in this thread; `values` holds fields.length numbers per run. Returns outcomeWidth numbers per run. */
+export function runSetupsInProcess(context: SweepContext, values: Float64Array, firstRun = 0, onProgress?: RunOptions['onProgress']): Float64Array {
+  const width = context.fields.length;
+  const runs = width === 0 ? 0 : values.length / width;
+  const resultWidth = outcomeWidth(context.corners.length);
+  const out = new Float64Array(runs * resultWidth);
+  for (let r = 0; r < runs; r++) {
+    evaluateRun(context, values.subarray(r * width, (r + 1) * width), out, r * resultWidth, `sweep run ${firstRun + r}`);
+    onProgress?.(r + 1, runs);
+  }
+  return out;
+}
+
+/**
+ * Solves the runs across worker threads. The outcome of run r lands at r * outcomeWidth whatever worker
+ * solved it, so the result does not depend on the number of workers or on their timing.
+ */
+export async function runSetups(context: SweepContext, values: Float64Array, firstRun = 0, options: RunOptions = {}): Promise<Float64Array> {
+  const width = context.fields.length;
+  const runs = width === 0 ? 0 : values.length / width;
+  const requested = options.workers ?? defaultWorkerCount();
+  if (requested <= 0 || runs === 0) return runSetupsInProcess(context, values, firstRun, options.onProgress);
+  const resultWidth = outcomeWidth(context.corners.length);
+  const out = new Float64Array(runs * resultWidth);
+  // Small tasks keep the workers evenly loaded to the end; two in flight per worker hide the message latency.
+  const chunk = Math.max(1, Math.min(16, Math.ceil(runs / (requested * 8))));
+  const taskCount = Math.ceil(runs / chunk);
+  const workerCount = Math.min(requested, taskCount);
+  const url = workerFileUrl();
+  const workers: Worker[] = [];
+  let nextTask = 0;
+  let doneRuns = 0;
+  let finishedTasks = 0;
+
+  return await new Promise<Float64Array>((resolve, reject) => {
+    let settled = false;
+    const finish = (error?: Error) => {
+      if (settled) return;
+      settled = true;
+      for (const worker of workers) void worker.terminate();
+      if (error) reject(error);
+      else resolve(out);
+    };
+    const send = (worker: Worker) => {
+      if (nextTask >= taskCount) return;
+      const id = nextTask++;
+      const start = id * chunk;
+      const count = Math.min(chunk, runs - start);
+      const task: TaskMessage = { id, firstRun: firstRun + start, runCount: count, values: values.slice(start * width, (start + count) * width) };
+      worker.postMessage(task, [task.values.buffer as ArrayBuffer]);
+    };
+    for (let w = 0; w < workerCount; w++) {
+      const worker = new Worker(url, { workerData: context });
+      workers.push(worker);
+      worker.on('message', (reply: WorkerReply) => {
+        if (reply.out === undefined) {
+          finish(reply.inputError ? new InputError(reply.errorMessage ?? 'sweep run failed') : new Error(`sweep worker: ${reply.error}`));
+          return;
+        }
+        const start = reply.id * chunk;
+        out.set(reply.out, start * resultWidth);
+        doneRuns += reply.out.length / resultWidth;
+        finishedTasks++;
+        options.onProgress?.(doneRuns, runs);
+        if (finishedTasks === taskCount) finish();
+        else send(worker);
+      });
+      worker.on('error', (error) => finish(error));
+      worker.on('exit', (code) => {
+        if (!settled && code !== 0) finish(new Error(`sweep worker stopped with exit code ${code}`));
+      });
+      send(worker);
+      send(worker);
+    }
+  });
+}

@@ -1,0 +1,150 @@
+// `reflap compare` and `reflap envelope` end to end on the bundled demo circuit and car: a reference trace read
+// back as telemetry, a uniformly slower copy of it, and bad input (one-line errors, exit 2, nothing written).
+
+import { mkdtempSync, readFileSync, writeFileSync, existsSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { projectRoot, runCli } from '../helpers/cli.js';
+
+const track = path.join(projectRoot, 'tracks', 'velmora-downs.json');
+const car = path.join(projectRoot, 'cars', 'tarnfell-gt.json');
+const work = mkdtempSync(path.join(tmpdir(), 'reflap-compare-'));
+const trace = path.join(work, 'trace.csv');
+let referenceLapTimeS = 0;
+
+beforeAll(() => {
+  const run = runCli(['simulate', '--track', track, '--car', car, '--out', trace, '--json']);
+  expect(run.code).toBe(0);
+  referenceLapTimeS = JSON.parse(run.stdout).lapTimeS;
+});
+
+const compare = (telemetry: string, extra: string[] = []) => runCli(['compare', '--track', track, '--car', car, '--telemetry', telemetry, ...extra]);
+
+describe('a simulated lap read back as telemetry', () => {
+  it('matches the reference within 0.02 s, with no finding worth more than 0.02 s', () => {
+    const run = compare(trace, ['--json']);
+    expect(run.code).toBe(0);
+    const result = JSON.parse(run.stdout);
+    expect(Math.abs(result.driverLapTimeS - result.referenceLapTimeS)).toBeLessThan(0.02);
+    expect(result.corners.length).toBeGreaterThanOrEqual(7);
+    for (const corner of result.corners) expect(Math.abs(corner.timeLostS)).toBeLessThan(0.02);
+    for (const finding of result.findings) expect(finding.timeS).toBeLessThanOrEqual(0.02);
+    for (const key of ['id', 'apexM', 'brakingPointDeltaM', 'minSpeedDeltaKph', 'minSpeedOffsetFromApexM', 'timeLostS']) expect(result.corners[0]).toHaveProperty(key);
+  });
+
+  it('writes the aligned traces and the corner table with --out', () => {
+    const out = path.join(work, 'aligned-out');
+    const run = compare(trace, ['--out', out]);
+    expect(run.code).toBe(0);
+    expect(run.stdout).toMatch(/Caution/);
+    const lines = readFileSync(path.join(out, 'aligned.csv'), 'utf8').trim().split('\n');
+    expect(lines[0]).toMatch(/^station_m,time_driver_s,time_reference_s,delta_s/);
+    expect(existsSync(path.join(out, 'corners.csv'))).toBe(true);
+  });
+});
+
+describe('a lap 2 % slower everywhere', () => {
+  it('ends with a delta equal to the lap-time difference, 0.02 T, within 0.01 s', () => {
+    // Every time stretched by 1.02 and every speed divided by it: the same lap, 2 % slower; the finish delta
+    // is then 0.02 T for the reference lap time T (time = distance / speed).
+    const lines = readFileSync(trace, 'utf8').trim().split('\n');
+    const header = lines[0]!.split(',');
+    const time = header.indexOf('time_s');
+    const speeds = ['speed_mps', 'speed_kph'].map((name) => header.indexOf(name));
+    const accels = ['ax_mps2', 'ay_mps2'].map((name) => header.indexOf(name));
+    const slower = [header.join(',')];
+    for (const line of lines.slice(1)) {
+      const cells = line.split(',');
+      cells[time] = (Number(cells[time]) * 1.02).toFixed(4);
+      for (const s of speeds) cells[s] = (Number(cells[s]) / 1.02).toFixed(4);
+      for (const a of accels) cells[a] = (Number(cells[a]) / 1.02 ** 2).toFixed(4);
+      slower.push(cells.join(','));
+    }
+    const file = path.join(work, 'slower.csv');
+    writeFileSync(file, slower.join('\n') + '\n');
+    const out = path.join(work, 'slower-out');
+    const run = compare(file, ['--out', out, '--json']);
+    expect(run.code).toBe(0);
+    const result = JSON.parse(run.stdout);
+    const aligned = readFileSync(path.join(out, 'aligned.csv'), 'utf8').trim().split('\n');
+    const lastDelta = Number(aligned[aligned.length - 1]!.split(',')[3]);
+    expect(Math.abs(lastDelta - 0.02 * referenceLapTimeS)).toBeLessThan(0.01);
+    expect(Math.abs(result.lapTimeDeltaS - 0.02 * referenceLapTimeS)).toBeLessThan(0.01);
+    const sum = result.corners.reduce((s: number, c: { timeLostS: number }) => s + c.timeLostS, 0);
+    expect(Math.abs(sum - result.lapTimeDeltaS)).toBeLessThan(0.005);
+  });
+});
+
+describe('bad input', () => {
+  const failsCleanly = (file: string, pattern: RegExp) => {
+    const out = path.join(work, `never-${path.basename(file)}`);
+    const run = compare(file, ['--out', out]);
+    expect(run.code).toBe(2);
+    expect(run.stderr.trim().split('\n')).toHaveLength(1);
+    expect(run.stderr).toMatch(pattern);
+    expect(existsSync(out)).toBe(false);
+  };
+
+  it('names the columns it found when none is usable', () => {
+    const file = path.join(work, 'unknown.csv');
+    writeFileSync(file, 'foo,bar\n1,2\n3,4\n');
+    failsCleanly(file, /foo.*bar|bar.*foo/);
+  });
+
+  it('says so when the session holds no complete lap', () => {
+    const file = path.join(work, 'partial.csv');
+    const lines = readFileSync(trace, 'utf8').trim().split('\n');
+    writeFileSync(file, lines.slice(0, Math.round(lines.length * 0.4)).join('\n') + '\n');
+    failsCleanly(file, /complete lap/);
+  });
+
+  it('refuses positions that do not belong to the track', () => {
+    const file = path.join(work, 'elsewhere.csv');
+    const rows = ['time_s,x_m,y_m,speed_mps'];
+    for (let k = 0; k < 2000; k++) rows.push(`${(k * 0.1).toFixed(1)},${(5000 + 100 * Math.cos(k / 100)).toFixed(2)},${(5000 + 100 * Math.sin(k / 100)).toFixed(2)},30`);
+    writeFileSync(file, rows.join('\n') + '\n');
+    failsCleanly(file, /track/);
+  });
+
+  it('names the row where time runs backwards', () => {
+    const file = path.join(work, 'backwards.csv');
+    const lines = readFileSync(trace, 'utf8').trim().split('\n');
+    const header = lines[0]!.split(',');
+    const time = header.indexOf('time_s');
+    const cells = lines[50]!.split(',');
+    cells[time] = '0.0001';
+    lines[50] = cells.join(',');
+    writeFileSync(file, lines.join('\n') + '\n');
+    failsCleanly(file, /row|line/);
+  });
+
+  it('names the bad field of an envelope file', () => {
+    const file = path.join(work, 'bad-envelope.json');
+    writeFileSync(file, JSON.stringify({ format: 'reflap-demonstrated-envelope', version: 1 }));
+    const run = compare(trace, ['--envelope', file]);
+    expect(run.code).toBe(2);
+    expect(run.stderr).toMatch(/bad-envelope\.json: field/);
+  });
+});
+
+describe('the demonstrated envelope', () => {
+  it('is fitted by `envelope`, and `simulate --envelope` and `compare --envelope` drive on it', () => {
+    const envelopeFile = path.join(work, 'envelope.json');
+    const fit = runCli(['envelope', '--telemetry', trace, '--out', envelopeFile]);
+    expect(fit.code).toBe(0);
+    const record = JSON.parse(readFileSync(envelopeFile, 'utf8'));
+    expect(record.bands.length).toBeGreaterThan(5);
+    const lap = runCli(['simulate', '--track', track, '--car', car, '--envelope', envelopeFile, '--json']);
+    expect(lap.code).toBe(0);
+    const lapTimeS = JSON.parse(lap.stdout).lapTimeS;
+    // The grip a lap shows is the grip of that lap: driving on it again should land within a few per cent.
+    expect(Math.abs(lapTimeS - referenceLapTimeS) / referenceLapTimeS).toBeLessThan(0.03);
+    const run = compare(trace, ['--envelope', envelopeFile, '--json']);
+    expect(run.code).toBe(0);
+    const result = JSON.parse(run.stdout);
+    expect(result.referenceEnvelope).toBe('demonstrated');
+    expect(result.carModelLapTimeS).toBeCloseTo(referenceLapTimeS, 2);
+    expect(result.referenceLapTimeS).toBeCloseTo(lapTimeS, 3);
+  });
+});

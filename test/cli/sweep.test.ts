@@ -1,0 +1,149 @@
+// `reflap whatif`, `reflap sweep` (with shards and --merge) and `reflap stint` end to end, with bad input.
+
+import { beforeAll, describe, expect, it } from 'vitest';
+import { existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { runCli } from '../helpers/cli.js';
+import { STANDARD_GRAVITY_MPS2 as g } from '../../src/units.js';
+
+let folder: string;
+let loop: string;
+let hairpin: string;
+let slick: string;
+const car = 'cars/brackle-club.json';
+
+beforeAll(() => {
+  folder = mkdtempSync(join(tmpdir(), 'reflap-sweep-'));
+  loop = join(folder, 'loop.json');
+  // Four corners of different radii; closes by construction (sides 600, 300, 630, 310 m).
+  writeFileSync(loop, JSON.stringify({
+    name: 'test loop', closed: true, widthM: 12,
+    segments: [
+      { kind: 'straight', lengthM: 600 }, { kind: 'arc', radiusM: 60, angleDeg: 90 },
+      { kind: 'straight', lengthM: 300 }, { kind: 'arc', radiusM: 20, angleDeg: 90 },
+      { kind: 'straight', lengthM: 630 }, { kind: 'arc', radiusM: 40, angleDeg: 90 },
+      { kind: 'straight', lengthM: 310 }, { kind: 'arc', radiusM: 30, angleDeg: 90 },
+    ],
+  }));
+  hairpin = join(folder, 'hairpin.json');
+  writeFileSync(hairpin, JSON.stringify({
+    name: 'straight into a hairpin', closed: false, widthM: 12,
+    segments: [{ kind: 'straight', lengthM: 600 }, { kind: 'arc', radiusM: 20, angleDeg: 180 }, { kind: 'straight', lengthM: 100 }],
+  }));
+  // No drag, no downforce, almost no power: the car holds its start speed down the straight.
+  slick = join(folder, 'slick.json');
+  writeFileSync(slick, JSON.stringify({
+    name: 'test slick', massKg: 800, frontWeightFraction: 0.5, rollingResistanceCoeff: 0,
+    tyre: { muLong: 1.2, muLat: 1.2, loadSensitivity: 0 }, aero: { dragAreaM2: 0, liftAreaM2: 0 },
+    powertrain: { maxPowerW: 1, drive: 'all' }, fuel: { massKg: 0, burnKgPerLap: 0 },
+  }));
+});
+
+describe('reflap whatif', () => {
+  it('moves the braking point by the difference of the kinematic braking distances', () => {
+    const run = runCli(['whatif', '--track', hairpin, '--car', slick, '--start-speed-kph', '180', '--set', 'tyre.muLong=-20%', '--json']);
+    expect(run.stderr).toBe('');
+    expect(run.code).toBe(0);
+    const result = JSON.parse(run.stdout);
+    expect(result.brakingZones).toHaveLength(1);
+    // Constant-deceleration kinematics: d = (v1^2 - v2^2) / (2 mu g), v2^2 = muLat g R (steady cornering).
+    const v1 = 50;
+    const v2sq = 1.2 * g * 20;
+    const d = (mu: number) => (v1 * v1 - v2sq) / (2 * mu * g);
+    const zone = result.brakingZones[0];
+    expect(Math.abs(zone.brakingPointShiftM - -(d(0.96) - d(1.2)))).toBeLessThan(1);
+    expect(Math.abs(zone.startM - (600 - d(1.2)))).toBeLessThan(1.5);
+    expect(Math.abs(zone.minSpeedDeltaKph)).toBeLessThan(0.1);
+    expect(result.lapTimeDeltaS).toBeGreaterThan(0);
+  });
+
+  it('prints a table per corner', () => {
+    const run = runCli(['whatif', '--track', loop, '--car', car, '--set', 'massKg=+20', 'tyre.muLat=-5%']);
+    expect(run.code).toBe(0);
+    expect(run.stdout).toMatch(/Lap time .* -> .*\(\+\d\.\d{3} s\)/);
+    expect(run.stdout).toMatch(/^c4 /m);
+    expect(run.stdout).toMatch(/Caution/);
+  });
+
+  it('refuses bad changes with one line and exit code 2', () => {
+    for (const [args, pattern] of [
+      [['--set', 'tyre.mulat=1.3'], /did you mean 'tyre.muLat'/],
+      [['--set', 'massKg=-700'], /massKg must be positive/],
+      [['--set', 'massKg'], /FIELD=VALUE/],
+    ] as const) {
+      const run = runCli(['whatif', '--track', loop, '--car', car, ...args]);
+      expect(run.code).toBe(2);
+      expect(run.stderr.trim().split('\n')).toHaveLength(1);
+      expect(run.stderr).toMatch(pattern);
+      expect(run.stdout).toBe('');
+    }
+  });
+});
+
+describe('reflap sweep', () => {
+  const vary = ['--vary', 'massKg=600:640:20', 'tyre.muLat=-5%:+5%:5%'];
+
+  it('writes the runs, and merged shards equal the unsharded CSV byte for byte', () => {
+    const whole = join(folder, 'whole.csv');
+    const first = runCli(['sweep', '--track', loop, '--car', car, ...vary, '--workers', '2', '--out', whole]);
+    expect(first.code).toBe(0);
+    expect(first.stdout).toMatch(/Sensitivity around the baseline/);
+    const shards = [1, 2, 3].map((i) => {
+      const out = join(folder, `part${i}.csv`);
+      const run = runCli(['sweep', '--track', loop, '--car', car, ...vary, '--workers', '1', '--shard', `${i}/3`, '--out', out]);
+      expect(run.code).toBe(0);
+      return out;
+    });
+    const merged = join(folder, 'merged.csv');
+    const join3 = runCli(['sweep', '--merge', shards[2]!, shards[0]!, shards[1]!, '--out', merged]);
+    expect(join3.code).toBe(0);
+    expect(readFileSync(merged)).toEqual(readFileSync(whole));
+    const lines = readFileSync(whole, 'utf8').split('\n');
+    expect(lines.filter((l) => /^\d/.test(l))).toHaveLength(1 + 4 + 9);
+  });
+
+  it('prints JSON with the sensitivities', () => {
+    const run = runCli(['sweep', '--track', loop, '--car', car, ...vary, '--mode', 'one-at-a-time', '--workers', '0', '--json']);
+    expect(run.code).toBe(0);
+    const result = JSON.parse(run.stdout);
+    expect(result.complete).toBe(true);
+    expect(result.sensitivities.map((s: { field: string }) => s.field)).toEqual(['massKg', 'tyre.muLat']);
+    expect(result.sensitivities[0].lapTimeSPerUnit).toBeGreaterThan(0);
+    expect(run.stderr).toBe('');
+  });
+
+  it('refuses bad sweeps with one line and exit code 2, writing nothing', () => {
+    const out = join(folder, 'never.csv');
+    for (const [args, pattern] of [
+      [['--vary', 'massKg=600:640:0'], /step is zero/],
+      [['--vary', 'massKg=600:640:-10'], /wrong sign/],
+      [['--vary', 'tyre.mu=1:1.2:0.1'], /did you mean 'tyre.muL(at|ong)'/],
+      [['--vary', 'massKg=0:40:20'], /massKg must be positive/],
+      [['--vary', 'massKg=600:640:20', '--shard', '4/3'], /between 1 and 3/],
+    ] as const) {
+      const run = runCli(['sweep', '--track', loop, '--car', car, ...args, '--out', out]);
+      expect(run.code).toBe(2);
+      expect(run.stderr.trim().split('\n')).toHaveLength(1);
+      expect(run.stderr).toMatch(pattern);
+    }
+    expect(existsSync(out)).toBe(false);
+  });
+});
+
+describe('reflap stint', () => {
+  it('burns the fuel off lap by lap', () => {
+    const run = runCli(['stint', '--track', loop, '--car', car, '--laps', '5', '--json']);
+    expect(run.code).toBe(0);
+    const result = JSON.parse(run.stdout);
+    // Brackle club racer: 25 kg of fuel, 1.1 kg a lap.
+    expect(result.laps.map((l: { fuelKg: number }) => l.fuelKg)).toEqual([25, 23.9, 22.8, 21.7, 20.6]);
+    const times = result.laps.map((l: { lapTimeS: number }) => l.lapTimeS);
+    for (let k = 1; k < times.length; k++) expect(times[k]).toBeLessThan(times[k - 1]);
+  });
+  it('refuses a lap count that is not a whole number', () => {
+    const run = runCli(['stint', '--track', loop, '--car', car, '--laps', '2.5']);
+    expect(run.code).toBe(2);
+    expect(run.stderr).toMatch(/--laps/);
+  });
+});
