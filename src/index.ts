@@ -87,3 +87,7 @@ export { demonstratedEnvelope, type DemonstratedEnvelopeRecord, type EnvelopeBan
 export { readEnvelopeFile, parseEnvelopeJson } from './io/read-envelope.js';
 export { demoDriverLap, demoLogCsv, seededRandom, DEFAULT_DEMO_LOG, type DemoDriverLap, type DemoFault } from './compare/demo-driver.js';
 export { compareSummaryText, compareSummaryJson, alignedTracesCsv } from './report/compare-summary.js';
+
+// Validation that lists every problem in car, track and telemetry files (`reflap check`).
+export { checkFiles, checkText, MAX_PROBLEMS_PER_FILE, type CheckReport, type FileCheck } from './check/check-files.js';
+export { detectKind, type FileKind } from './check/detect-kind.js';

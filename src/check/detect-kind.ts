@@ -32,7 +32,7 @@ export function detectKind(head: string, source: string): FileKind {
     // Key names near the top tell a car from a track even when the JSON itself is broken.
     const carScore = CAR_KEYS.filter((key) => text.includes(`"${key}"`)).length;
     const trackScore = TRACK_KEYS.filter((key) => text.includes(`"${key}"`)).length;
-    if (carScore === 0 && trackScore === 0) return extension === '.json' ? 'unknown' : 'unknown';
+    if (carScore === 0 && trackScore === 0) return 'unknown';
     return carScore >= trackScore ? 'car' : 'track-json';
   }
   const firstLine = start.split(/\r?\n/, 1)[0] ?? '';

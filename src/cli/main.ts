@@ -13,13 +13,14 @@ import * as compareCommand from './commands/compare.js';
 import * as envelopeCommand from './commands/envelope.js';
 import * as demoCommand from './commands/demo.js';
 import * as carCommand from './commands/car.js';
+import * as checkCommand from './commands/check.js';
 
 interface CommandModule {
   register(program: Command): void;
 }
 
 // Order here is the order of `reflap --help`.
-const commandModules: CommandModule[] = [simulateCommand, budgetCommand, whatifCommand, sweepCommand, stintCommand, compareCommand, envelopeCommand, lineCommand, carCommand, demoCommand];
+const commandModules: CommandModule[] = [simulateCommand, budgetCommand, whatifCommand, sweepCommand, stintCommand, compareCommand, envelopeCommand, lineCommand, carCommand, checkCommand, demoCommand];
 
 export function buildProgram(): Command {
   const program = new Command();

@@ -38,6 +38,8 @@ export function parseCsvTable(text: string, source: string): CsvTable {
 /** A cell as a finite number, or an InputError naming the file, the row (line in the file) and the column. */
 export function numberCell(cell: string, source: string, line: number, column: string): number {
   const where = `${source}: row ${line}, column ${column}`;
+  // A cell of megabytes (a file with no line breaks) is quoted by its start only.
+  if (cell.length > 40) throw new InputError(`${where}: '${cell.slice(0, 40)}...' is not a number`);
   if (NUMBER_PATTERN.test(cell)) {
     const value = Number(cell);
     if (Number.isFinite(value)) return value;

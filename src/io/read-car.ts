@@ -1,7 +1,7 @@
 // Reads and validates a car file (JSON) into a Car record in SI units. The schema is strict: unknown keys are
 // errors that name them, so a typo in a field name cannot pass silently.
 
-import { readFileSync } from 'node:fs';
+import { readTextFile } from './read-text.js';
 import { z } from 'zod';
 import { InputError } from '../errors.js';
 import type { Car } from '../car/types.js';
@@ -176,14 +176,7 @@ export function parseCarJson(text: string, source: string): Car {
 }
 
 export function readCarFile(file: string): Car {
-  let text: string;
-  try {
-    text = readFileSync(file, 'utf8');
-  } catch (error) {
-    const code = (error as NodeJS.ErrnoException).code;
-    throw new InputError(`${file}: cannot read the car file (${code === 'ENOENT' ? 'no such file' : (code ?? 'read error')})`);
-  }
-  return parseCarJson(text, file);
+  return parseCarJson(readTextFile(file, 'car file'), file);
 }
 
 /** Checks a car record built or changed in code (a sweep, a what-if) against the same limits as a car file. */

@@ -1,7 +1,7 @@
 // Reads a demonstrated-envelope JSON file (written by `reflap envelope`), validated with a zod schema so a bad
 // field is named in one line.
 
-import { readFileSync } from 'node:fs';
+import { readTextFile } from './read-text.js';
 import { z } from 'zod';
 import { InputError } from '../errors.js';
 import type { DemonstratedEnvelopeRecord } from '../car/demonstrated-envelope.js';
@@ -44,11 +44,5 @@ export function parseEnvelopeJson(text: string, source: string): DemonstratedEnv
 }
 
 export function readEnvelopeFile(file: string): DemonstratedEnvelopeRecord {
-  let text: string;
-  try {
-    text = readFileSync(file, 'utf8');
-  } catch (error) {
-    throw new InputError(`${file}: cannot read the envelope file (${(error as NodeJS.ErrnoException).code ?? String(error)})`);
-  }
-  return parseEnvelopeJson(text, file);
+  return parseEnvelopeJson(readTextFile(file, 'envelope file'), file);
 }

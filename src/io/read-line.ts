@@ -3,7 +3,7 @@
 // stations span the track, its positions lie where its offsets put them) and stay inside the edges. A line on
 // another grid spacing is resampled linearly onto this one.
 
-import { readFileSync } from 'node:fs';
+import { readTextFile } from './read-text.js';
 import { InputError } from '../errors.js';
 import type { TrackGrid } from '../track/types.js';
 import { numberCell, parseCsvTable } from './csv-table.js';
@@ -14,15 +14,7 @@ const POSITION_TOLERANCE_M = 2;
 const EDGE_TOLERANCE_M = 0.01;
 
 export function readLineFile(file: string, track: TrackGrid): Float64Array {
-  let text: string;
-  try {
-    text = readFileSync(file, 'utf8');
-  } catch (error) {
-    const code = (error as NodeJS.ErrnoException).code;
-    const reason = code === 'ENOENT' ? 'no such file' : code === 'EISDIR' ? 'is a directory' : (code ?? 'unreadable');
-    throw new InputError(`${file}: cannot read the line file (${reason})`);
-  }
-  return parseLineCsv(text, file, track);
+  return parseLineCsv(readTextFile(file, 'line file'), file, track);
 }
 
 function interpolateStation(stations: Float64Array, values: Float64Array, s: number, closed: boolean, lengthM: number): number {

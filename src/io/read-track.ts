@@ -1,9 +1,8 @@
 // Reads a track file into the TrackGrid: a centreline CSV or a segment JSON, chosen by extension (by content
 // when the extension says neither). All validation of track input happens here, at the edge.
 
-import { readFileSync } from 'node:fs';
+import { readTextFile } from './read-text.js';
 import path from 'node:path';
-import { InputError } from '../errors.js';
 import type { TrackGrid } from '../track/types.js';
 import { parseTrackCsv } from './track-csv.js';
 import { parseTrackJson } from './track-json.js';
@@ -20,19 +19,15 @@ export interface TrackReadOptions {
   smoothingM: number | null;
 }
 
-export function readTrackFile(file: string, options: TrackReadOptions): TrackGrid {
-  let text: string;
-  try {
-    text = readFileSync(file, 'utf8');
-  } catch (error) {
-    const code = (error as NodeJS.ErrnoException).code;
-    const reason = code === 'ENOENT' ? 'no such file' : code === 'EISDIR' ? 'is a directory' : code === 'EACCES' ? 'permission denied' : (code ?? 'unreadable');
-    throw new InputError(`${file}: cannot read the track file (${reason})`);
-  }
-  return parseTrackText(text, file, options);
+export const DEFAULT_TRACK_READ_OPTIONS: TrackReadOptions = { stepM: 1, columns: {}, widthM: null, layout: 'auto', smoothingM: null };
+
+/** Options left out take their defaults (1 m step, no column mapping, widths from the file, layout from the file). */
+export function readTrackFile(file: string, options: Partial<TrackReadOptions> = {}): TrackGrid {
+  return parseTrackText(readTextFile(file, 'track file'), file, options);
 }
 
-export function parseTrackText(text: string, source: string, options: TrackReadOptions): TrackGrid {
+export function parseTrackText(text: string, source: string, partialOptions: Partial<TrackReadOptions> = {}): TrackGrid {
+  const options: TrackReadOptions = { ...DEFAULT_TRACK_READ_OPTIONS, ...partialOptions };
   const extension = path.extname(source).toLowerCase();
   const isJson = extension === '.json' || (extension !== '.csv' && text.trimStart().startsWith('{'));
   return isJson ? parseTrackJson(text, source, options) : parseTrackCsv(text, source, options);

@@ -11,7 +11,7 @@ import { resolveLinePath } from './line.js';
 import { addReportOptions, addReportOutputs, reportWrittenText, type ReportOptionValues } from '../html-options.js';
 import { readEnvelopeFile } from '../../io/read-envelope.js';
 import { demonstratedEnvelope } from '../../car/demonstrated-envelope.js';
-import { bicycleSimulateExtras } from './car.js';
+import { bicycleSimulateExtras } from '../simulate-extras.js';
 
 interface SimulateValues extends TrackOptionValues, CarOptionValues, ReportOptionValues {
   out?: string;

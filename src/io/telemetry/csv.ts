@@ -109,7 +109,8 @@ class CsvCollector {
         if (value === 0 && cell.trim() === '') value = NaN;
         else if (!Number.isFinite(value)) {
           if (!MISSING.has(cell.trim().toLowerCase())) {
-            throw new InputError(`${this.source}: line ${line}, column ${binding.header}: '${cell}' is not a number`);
+            const shown = cell.length > 40 ? `${cell.slice(0, 40)}...` : cell;
+            throw new InputError(`${this.source}: line ${line}, column ${binding.header}: '${shown}' is not a number`);
           }
           value = NaN;
         }
@@ -121,7 +122,11 @@ class CsvCollector {
 
   finish(notes: string[]): TelemetrySession {
     if (this.headers.length === 0) throw new InputError(`${this.source}: empty file (no header)`);
-    if (this.rows === 0) throw new InputError(`${this.source}: header only, no data rows (header: ${this.headers.join(', ')})`);
+    if (this.rows === 0) {
+      const listed = this.headers.join(', ');
+      const shown = listed.length > 200 ? `${listed.slice(0, 200)}... (${this.headers.length} columns)` : listed;
+      throw new InputError(`${this.source}: header only, no data rows (header: ${shown})`);
+    }
     const channels = new Map<Quantity, RawChannel>();
     this.bindings.forEach((binding, b) => {
       channels.set(binding.quantity, { values: this.buffers[b]!.toArray(), header: binding.header, scale: binding.scale });

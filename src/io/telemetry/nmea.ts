@@ -125,7 +125,10 @@ export function parseNmeaText(text: string, source: string): TelemetrySession {
     order.push(fix);
   });
   if (sentences === 0 && noChecksum === 0) throw new InputError(`${source}: no NMEA sentences found`);
-  if (order.length === 0) throw new InputError(`${source}: no RMC or GGA sentence with a GPS fix`);
+  if (order.length === 0) {
+    const skipped = badChecksums > 0 ? ` (${badChecksums} sentence${badChecksums > 1 ? 's' : ''} skipped for bad checksums)` : '';
+    throw new InputError(`${source}: no RMC or GGA sentence with a GPS fix${skipped}`);
+  }
 
   // Absolute time: the RMC date where known; otherwise the time of day, with a day added at each midnight.
   const count = order.length;

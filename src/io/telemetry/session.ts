@@ -25,8 +25,11 @@ export interface RawSession {
 
 export function buildSession(raw: RawSession): TelemetrySession {
   const { source, channels, notes } = raw;
+  // A header of garbage or one line of megabytes must not become a message of megabytes.
+  const listed = raw.found.join(', ');
+  const foundText = listed.length > 200 ? `${listed.slice(0, 200)}... (${raw.found.length} columns)` : listed;
   const time = channels.get('time');
-  if (!time) throw new InputError(`${source}: no time column (found: ${raw.found.join(', ') || 'nothing'}); name it time_s or map it with --telemetry-columns time_s=NAME`);
+  if (!time) throw new InputError(`${source}: no time column (found: ${foundText || 'nothing'}); name it time_s or map it with --telemetry-columns time_s=NAME`);
   const count = time.values.length;
   if (count === 0) throw new InputError(`${source}: no data rows`);
   if (count < 2) throw new InputError(`${source}: only one data row; a lap needs many`);
@@ -82,7 +85,7 @@ export function buildSession(raw: RawSession): TelemetrySession {
     speedMps = scaled(speed.values, factor);
   }
   if (!speedMps && !distanceM && !xM) {
-    throw new InputError(`${source}: no position, distance or speed column (found: ${raw.found.join(', ')}); map one with --telemetry-columns`);
+    throw new InputError(`${source}: no position, distance or speed column (found: ${foundText}); map one with --telemetry-columns`);
   }
 
   const pedal = (quantity: 'throttle' | 'brake'): Float64Array | null => {

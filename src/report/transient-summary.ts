@@ -1,6 +1,6 @@
 // The transient check as the simulate command shows it: a few summary lines, and a JSON record.
 
-import type { TransientCheck } from './transient.js';
+import type { TransientCheck } from '../solve/transient.js';
 import { formatLapTime } from '../units.js';
 
 export function transientSummaryText(check: TransientCheck): string {

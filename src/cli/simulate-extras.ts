@@ -1,0 +1,25 @@
+// The bicycle-model additions to `reflap simulate`: the steering column, the transient check and the stability
+// warning, gathered for the command.
+
+import type { Ambient, Car } from '../car/types.js';
+import type { LapResult } from '../solve/types.js';
+import type { ExtraColumn } from '../report/trace-csv.js';
+import { canTraceSteering, criticalSpeedWarning, steeringTraceDeg } from '../solve/steering.js';
+import { checkTransient } from '../solve/transient.js';
+import { transientJson, transientSummaryText } from '../report/transient-summary.js';
+
+/** The bicycle-model additions to `reflap simulate`: the steering column, the transient check, the stability warning. */
+export function bicycleSimulateExtras(result: LapResult, car: Car, ambient: Ambient, withTransient: boolean): { columns: ExtraColumn[]; text: string; json: Record<string, unknown> } {
+  const columns: ExtraColumn[] = [];
+  if (canTraceSteering(car)) columns.push({ name: 'steering_deg', values: steeringTraceDeg(result, car), digits: 3 });
+  const warning = criticalSpeedWarning(result, car);
+  let text = warning ? `Warning: ${warning}\n` : '';
+  const json: Record<string, unknown> = { warnings: warning ? [warning] : [] };
+  if (withTransient) {
+    const check = checkTransient(result, car, { ambient });
+    columns.push({ name: 'transient_error_m', values: check.lateralErrorM, digits: 3 }, { name: 'transient_speed_mps', values: check.followedSpeedMps, digits: 3 });
+    text += transientSummaryText(check);
+    json.transient = transientJson(check);
+  }
+  return { columns, text, json };
+}
