@@ -12,6 +12,7 @@ const modules: [string, () => Promise<BenchModule>][] = [
   ['sweep', () => import('./sweep.bench.js')],
   ['line', () => import('./line.bench.js')],
   ['transient', () => import('./transient.bench.js')],
+  ['large-telemetry', () => import('./large-telemetry.bench.js')],
 ];
 
 const only = process.argv.slice(2);

@@ -35,7 +35,7 @@ describe('--out naming an input is refused and the input is left as it was', () 
     ['simulate', []],
     ['line', []],
     ['stint', ['--laps', '2']],
-    ['sweep', []],
+    ['sweep', ['--vary', 'massKg=600:620:10']],
   ];
   for (const [command, extra] of commands) {
     it(`${command} --out <the car file>`, () => {
