@@ -1,11 +1,12 @@
 // `reflap check`: validates car, track and telemetry files and collects every problem it can find in each,
 // not only the first that would stop a command. Each problem is one line naming the file and the place.
 
-import { readFileSync } from 'node:fs';
+import { closeSync, openSync, readFileSync, readSync, statSync } from 'node:fs';
 import { InputError } from '../errors.js';
 import { parseCarJson } from '../io/read-car.js';
 import { parseTrackText } from '../io/read-track.js';
-import { parseTelemetryText } from '../io/telemetry/read-telemetry.js';
+import { parseTelemetryText, readTelemetryFile } from '../io/telemetry/read-telemetry.js';
+import type { TelemetrySession } from '../compare/types.js';
 import { detectKind, KIND_LABELS, type FileKind } from './detect-kind.js';
 import { centrelineCellProblems, telemetryCellProblems } from './collect-cells.js';
 
@@ -48,6 +49,10 @@ function carProblems(text: string, source: string): string[] {
     if (body.startsWith('not valid JSON')) return [message];
     return body.split('; ').map((part) => prefix + part);
   }
+}
+
+function sessionSummary(kind: FileKind, session: TelemetrySession): string {
+  return `${KIND_LABELS[kind]}: ${session.count} samples over ${(session.timeS[session.count - 1]! - session.timeS[0]!).toFixed(1)} s`;
 }
 
 function capped(problems: string[], file: string): string[] {
@@ -94,7 +99,7 @@ export function checkText(text: string, source: string): FileCheck {
     try {
       const session = parseTelemetryText(text, source, { columns: {} });
       result.notes.push(...session.notes);
-      result.summary = `${KIND_LABELS[kind]}: ${session.count} samples over ${(session.timeS[session.count - 1]! - session.timeS[0]!).toFixed(1)} s`;
+      result.summary = sessionSummary(kind, session);
     } catch (error) {
       result.problems.push(inputMessage(error));
     }
@@ -103,21 +108,57 @@ export function checkText(text: string, source: string): FileCheck {
   return result;
 }
 
-function readText(file: string): string | FileCheck {
+/** Files above this are checked by streaming (a log of gigabytes does not fit in one string). */
+export const STREAMED_CHECK_BYTES = 128 * 1024 * 1024;
+
+function unreadable(file: string, error: unknown): FileCheck {
+  const code = (error as NodeJS.ErrnoException).code;
+  const reason = code === 'ENOENT' ? 'no such file' : code === 'EISDIR' ? 'is a directory' : code === 'EACCES' ? 'permission denied' : (code ?? 'unreadable');
+  return { file, kind: 'unknown', problems: [`${file}: cannot read the file (${reason})`], notes: [], summary: null };
+}
+
+/** The first 64 KiB of a file as text, enough to tell its kind. */
+function headOf(file: string): string {
+  const descriptor = openSync(file, 'r');
   try {
-    return readFileSync(file, 'utf8');
-  } catch (error) {
-    const code = (error as NodeJS.ErrnoException).code;
-    const reason = code === 'ENOENT' ? 'no such file' : code === 'EISDIR' ? 'is a directory' : code === 'EACCES' ? 'permission denied' : (code ?? 'unreadable');
-    return { file, kind: 'unknown', problems: [`${file}: cannot read the file (${reason})`], notes: [], summary: null };
+    const bytes = Buffer.alloc(65536);
+    return bytes.toString('utf8', 0, readSync(descriptor, bytes, 0, bytes.length, 0));
+  } finally {
+    closeSync(descriptor);
   }
 }
 
+/** A large telemetry CSV through the streaming reader: its first problem only, with a note saying so. */
+async function checkLargeFile(file: string, limitBytes: number): Promise<FileCheck> {
+  const head = headOf(file);
+  const kind = detectKind(head, file);
+  const result: FileCheck = { file, kind, problems: [], notes: [`large file: read by streaming, so only the first problem is listed`], summary: null };
+  if (kind !== 'telemetry-csv') {
+    result.problems.push(`${file}: ${KIND_LABELS[kind]} of over ${(limitBytes / 1024 / 1024).toFixed(0)} MB; only telemetry CSV files may be that large`);
+    return result;
+  }
+  try {
+    const session = await readTelemetryFile(file, { columns: {} });
+    result.notes.push(...session.notes);
+    result.summary = sessionSummary(kind, session);
+  } catch (error) {
+    result.problems.push(inputMessage(error));
+  }
+  return result;
+}
+
 /** Checks every file; a file that cannot be read is a problem of that file, not the end of the check. */
-export function checkFiles(files: readonly string[]): CheckReport {
-  const checks = files.map((file) => {
-    const text = readText(file);
-    return typeof text === 'string' ? checkText(text, file) : text;
-  });
+export async function checkFiles(files: readonly string[], options: { streamAboveBytes?: number } = {}): Promise<CheckReport> {
+  const streamAboveBytes = options.streamAboveBytes ?? STREAMED_CHECK_BYTES;
+  const checks: FileCheck[] = [];
+  for (const file of files) {
+    try {
+      checks.push(statSync(file).size > streamAboveBytes ? await checkLargeFile(file, streamAboveBytes) : checkText(readFileSync(file, 'utf8'), file));
+    } catch (error) {
+      if (error instanceof InputError) throw error;
+      if ((error as NodeJS.ErrnoException).code === undefined) throw error;
+      checks.push(unreadable(file, error));
+    }
+  }
   return { files: checks, ok: checks.every((check) => check.problems.length === 0) };
 }

@@ -31,9 +31,15 @@ function expectSoundGrid(track: TrackGrid): void {
   }
 }
 
+/** Grids read per source, so each property shows it reaches the reader's success path too. */
+const gridsRead = new Map<string, number>();
+
 function check(text: string, source: string, readOptions: TrackReadOptions): void {
   const track = resultOrInputError(() => parseTrackText(text, source, readOptions), source);
-  if (track) expectSoundGrid(track);
+  if (track) {
+    expectSoundGrid(track);
+    gridsRead.set(source, (gridsRead.get(source) ?? 0) + 1);
+  }
 }
 
 /** A centreline on an ellipse with noise, open or closed, at any scale from a kart track to a long circuit. */
@@ -77,6 +83,7 @@ describe('track reader fuzz', () => {
       fc.property(fc.oneof(anyText, csvText(trackHeaders), centreline, centreline, extremeCentreline), options, (text, readOptions) => check(text, 'fuzz-track.csv', readOptions)),
       runs(700, 20260615),
     );
+    expect(gridsRead.get('fuzz-track.csv')).toBeGreaterThan(100);
   });
 
   it('segment JSON: any JSON, random segment lists, circuits that close', () => {
@@ -90,5 +97,7 @@ describe('track reader fuzz', () => {
       fc.property(spec, options, (text, readOptions) => check(text, 'fuzz-track.json', readOptions)),
       runs(500, 20260616),
     );
+    expect(gridsRead.get('fuzz-track.json')).toBeGreaterThan(50);
+    console.log(`track fuzz: grids read ${JSON.stringify(Object.fromEntries(gridsRead))}`);
   });
 });

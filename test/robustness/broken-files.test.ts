@@ -103,14 +103,14 @@ describe('broken telemetry files', () => {
     const session = await read('duplicate-timestamps.csv');
     expect(session.count).toBe(5);
     expect(Array.from(session.timeS)).toEqual([0, 0.1, 0.1, 0.2, 0.3]);
-    const [report] = checkFiles([broken('duplicate-timestamps.csv')]).files;
+    const [report] = (await checkFiles([broken('duplicate-timestamps.csv')])).files;
     expect(report!.problems).toEqual([]);
     expect(report!.notes).toContain('1 row repeats the time stamp of the row before (first at line 4)');
   });
 
   it('binary garbage: refused in one line, control characters escaped', async () => {
     expect(await failure(read('binary-garbage.bin'))).toMatch(new RegExp(`${place('binary-garbage.bin')}no time column \\(found: .*\\); name it time_s or map it with --telemetry-columns time_s=NAME$`));
-    const [report] = checkFiles([broken('binary-garbage.bin')]).files;
+    const [report] = (await checkFiles([broken('binary-garbage.bin')])).files;
     expect(report!.problems).toEqual([`${broken('binary-garbage.bin')}: not a file reflap reads: expected a car or segment track (JSON), a centreline CSV (x_m, y_m), or a log (CSV with a time column, NMEA 0183, GPX)`]);
   });
 
@@ -146,6 +146,18 @@ describe('broken telemetry files', () => {
   });
 });
 
+describe('check on files too large for one string', () => {
+  it('a large telemetry CSV is checked by streaming, with a note; other large files are refused', async () => {
+    // A threshold of 100 bytes stands in for the real one (128 MB), so the test stays small.
+    const good = (await checkFiles([broken('quoted-separators.csv')], { streamAboveBytes: 100 })).files[0]!;
+    expect(good.problems).toEqual([]);
+    expect(good.summary).toBe('telemetry CSV: 4 samples over 0.3 s');
+    expect(good.notes).toContain('large file: read by streaming, so only the first problem is listed');
+    const bad = (await checkFiles([broken('car-three-problems.json')], { streamAboveBytes: 100 })).files[0]!;
+    expect(bad.problems).toEqual([`${broken('car-three-problems.json')}: car JSON of over 0 MB; only telemetry CSV files may be that large`]);
+  });
+});
+
 describe('broken car and track files', () => {
   it('a car with a negative mass, an unknown key and a missing field: the reader names all three in one line', () => {
     const message = (() => {
@@ -161,8 +173,8 @@ describe('broken car and track files', () => {
     expect(message).toContain('missing required field powertrain');
   });
 
-  it('a car with three problems: check lists three lines', () => {
-    const [report] = checkFiles([broken('car-three-problems.json')]).files;
+  it('a car with three problems: check lists three lines', async () => {
+    const [report] = (await checkFiles([broken('car-three-problems.json')])).files;
     const file = broken('car-three-problems.json');
     expect(report!.kind).toBe('car');
     expect(report!.problems).toHaveLength(3);
@@ -171,10 +183,10 @@ describe('broken car and track files', () => {
     expect(report!.problems.some((problem) => problem.startsWith(`${file}: field massKg: `))).toBe(true);
   });
 
-  it('a centreline with two bad cells: the reader stops at the first, check names both rows', () => {
+  it('a centreline with two bad cells: the reader stops at the first, check names both rows', async () => {
     const file = broken('track-two-bad-cells.csv');
     expect(() => readTrackFile(file, TRACK_OPTIONS)).toThrow(`${file}: row 4, column y_m: 'abc' is not a number`);
-    const [report] = checkFiles([file]).files;
+    const [report] = (await checkFiles([file])).files;
     expect(report!.problems).toEqual([`${file}: row 4, column y_m: 'abc' is not a number`, `${file}: row 6, column x_m: the cell is empty`]);
   });
 

@@ -12,7 +12,7 @@ export function register(program: Command): void {
     .description('validate car, track and telemetry files and list every problem found')
     .argument('<files...>', 'files to check (kind told from the name and the content)')
     .option('--json', 'print the report as one JSON object')
-    .action((files: string[], values: { json?: boolean }) => runCheck(files, values));
+    .action(async (files: string[], values: { json?: boolean }) => runCheck(files, values));
 }
 
 export function formatCheckReport(report: CheckReport): string {
@@ -26,8 +26,8 @@ export function formatCheckReport(report: CheckReport): string {
   return lines.join('\n') + '\n';
 }
 
-export function runCheck(files: string[], values: { json?: boolean }): void {
-  const report = checkFiles(files);
+export async function runCheck(files: string[], values: { json?: boolean }): Promise<void> {
+  const report = await checkFiles(files);
   process.stdout.write(values.json ? JSON.stringify(report, null, 2) + '\n' : formatCheckReport(report));
   const bad = report.files.filter((check) => check.problems.length > 0).length;
   if (bad > 0) throw new InputError(`check: ${bad} of ${report.files.length} file${report.files.length > 1 ? 's have' : ' has'} problems`);
