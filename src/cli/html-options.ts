@@ -5,7 +5,7 @@
 import path from 'node:path';
 import type { Command } from 'commander';
 import type { OutputBatch } from './output.js';
-import { chartSvgs, lapReportHtml } from '../report/html/page.js';
+import { chartSvgs, lapReportHtml, type ChartSvg } from '../report/html/page.js';
 import type { ReportInput } from '../report/html/model.js';
 
 export interface ReportOptionValues {
@@ -13,9 +13,9 @@ export interface ReportOptionValues {
   svg?: string;
 }
 
-export function addReportOptions(command: Command): Command {
+export function addReportOptions(command: Command, page = 'the lap report: one HTML page with linked charts'): Command {
   return command
-    .option('--html <file>', 'write the lap report: one HTML page with linked charts that opens from disk, no network')
+    .option('--html <file>', `write ${page} that opens from disk, no network`)
     .option('--svg <dir>', 'write each chart of the report as a standalone SVG file into this folder');
 }
 
@@ -23,15 +23,20 @@ export function wantsReport(values: ReportOptionValues): boolean {
   return Boolean(values.html || values.svg);
 }
 
-/** Adds the requested report files to the batch and returns their paths, for the command's closing message. */
+/** Adds the lap report's files to the batch and returns their paths, for the command's closing message. */
 export function addReportOutputs(outputs: OutputBatch, values: ReportOptionValues, input: ReportInput): string[] {
+  return addPageOutputs(outputs, values, { html: () => lapReportHtml(input), charts: () => chartSvgs(input) });
+}
+
+/** Adds any report page's files (built only when asked for) to the batch and returns their paths. */
+export function addPageOutputs(outputs: OutputBatch, values: ReportOptionValues, page: { html: () => string; charts: () => ChartSvg[] }): string[] {
   const files: string[] = [];
   if (values.html) {
-    outputs.add(values.html, lapReportHtml(input));
+    outputs.add(values.html, page.html());
     files.push(values.html);
   }
   if (values.svg) {
-    for (const chart of chartSvgs(input)) {
+    for (const chart of page.charts()) {
       const file = path.join(values.svg, chart.name);
       outputs.add(file, chart.svg);
       files.push(file);

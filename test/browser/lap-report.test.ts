@@ -4,26 +4,16 @@
 import { existsSync, mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
-import { pathToFileURL } from 'node:url';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { chromium, type BrowserContext, type Page } from 'playwright-core';
+import type { BrowserContext, Page } from 'playwright-core';
+import { haveChromium, launchChromium, openFile, requireChromium, type OpenedPage } from './chromium.js';
 import { lapReportHtml } from '../../src/report/html/page.js';
 import { runCli } from '../helpers/cli.js';
 import { HOSTILE_CAR_NAME, HOSTILE_CORNER_NAME, HOSTILE_TRACK_NAME, pipelineInput, projectRoot, referenceInput } from '../report/report-fixtures.js';
 
-const CHROMIUM = '/usr/bin/chromium';
-const haveChromium = existsSync(CHROMIUM);
-if (!haveChromium && process.env.CI) throw new Error(`${CHROMIUM} is missing; .ci/run installs Debian's chromium package before the tests`);
-if (!haveChromium) console.warn(`skipping the browser tests: ${CHROMIUM} is absent (apt-get install chromium)`);
+requireChromium('lap report');
 
 const outputFolder = path.join(projectRoot, 'test-output');
-
-interface OpenedPage {
-  page: Page;
-  problems: string[];
-  dialogs: string[];
-  requests: string[];
-}
 
 describe.skipIf(!haveChromium)('lap report in Chromium', () => {
   let context: BrowserContext;
@@ -33,12 +23,7 @@ describe.skipIf(!haveChromium)('lap report in Chromium', () => {
   beforeAll(async () => {
     profile = mkdtempSync(path.join(tmpdir(), 'reflap-chromium-'));
     workFolder = mkdtempSync(path.join(tmpdir(), 'reflap-report-'));
-    context = await chromium.launchPersistentContext(profile, {
-      executablePath: CHROMIUM,
-      headless: true,
-      viewport: { width: 1280, height: 900 },
-      args: ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run', '--disable-quic'],
-    });
+    context = await launchChromium(profile);
   });
 
   afterAll(async () => {
@@ -47,23 +32,7 @@ describe.skipIf(!haveChromium)('lap report in Chromium', () => {
     rmSync(workFolder, { recursive: true, force: true });
   });
 
-  async function open(file: string): Promise<OpenedPage> {
-    const page = await context.newPage();
-    const problems: string[] = [];
-    const dialogs: string[] = [];
-    const requests: string[] = [];
-    page.on('console', (message) => {
-      if (message.type() === 'error' || message.type() === 'warning') problems.push(`${message.type()}: ${message.text()}`);
-    });
-    page.on('pageerror', (error) => problems.push(`page error: ${error.message}`));
-    page.on('dialog', (dialog) => {
-      dialogs.push(dialog.message());
-      void dialog.dismiss();
-    });
-    page.on('request', (request) => requests.push(request.url()));
-    await page.goto(pathToFileURL(file).href, { waitUntil: 'load' });
-    return { page, problems, dialogs, requests };
-  }
+  const open = (file: string): Promise<OpenedPage> => openFile(context, file);
 
   async function cursorXs(page: Page): Promise<Array<string | null>> {
     return page.$$eval('svg[data-distance-chart] .cursor', (lines) => lines.map((line) => (line.getAttribute('visibility') === 'visible' ? line.getAttribute('x1') : null)));

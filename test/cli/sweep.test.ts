@@ -1,11 +1,12 @@
 // `reflap whatif`, `reflap sweep` (with shards and --merge) and `reflap stint` end to end, with bad input.
 
 import { beforeAll, describe, expect, it } from 'vitest';
-import { existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdtempSync, readFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { runCli } from '../helpers/cli.js';
 import { STANDARD_GRAVITY_MPS2 as g } from '../../src/units.js';
+import { writeHairpin, writeSlickCar, writeTestLoop } from '../report/sweep-fixtures.js';
 
 let folder: string;
 let loop: string;
@@ -15,29 +16,9 @@ const car = 'cars/brackle-club.json';
 
 beforeAll(() => {
   folder = mkdtempSync(join(tmpdir(), 'reflap-sweep-'));
-  loop = join(folder, 'loop.json');
-  // Four corners of different radii; closes by construction (sides 600, 300, 630, 310 m).
-  writeFileSync(loop, JSON.stringify({
-    name: 'test loop', closed: true, widthM: 12,
-    segments: [
-      { kind: 'straight', lengthM: 600 }, { kind: 'arc', radiusM: 60, angleDeg: 90 },
-      { kind: 'straight', lengthM: 300 }, { kind: 'arc', radiusM: 20, angleDeg: 90 },
-      { kind: 'straight', lengthM: 630 }, { kind: 'arc', radiusM: 40, angleDeg: 90 },
-      { kind: 'straight', lengthM: 310 }, { kind: 'arc', radiusM: 30, angleDeg: 90 },
-    ],
-  }));
-  hairpin = join(folder, 'hairpin.json');
-  writeFileSync(hairpin, JSON.stringify({
-    name: 'straight into a hairpin', closed: false, widthM: 12,
-    segments: [{ kind: 'straight', lengthM: 600 }, { kind: 'arc', radiusM: 20, angleDeg: 180 }, { kind: 'straight', lengthM: 100 }],
-  }));
-  // No drag, no downforce, almost no power: the car holds its start speed down the straight.
-  slick = join(folder, 'slick.json');
-  writeFileSync(slick, JSON.stringify({
-    name: 'test slick', massKg: 800, frontWeightFraction: 0.5, rollingResistanceCoeff: 0,
-    tyre: { muLong: 1.2, muLat: 1.2, loadSensitivity: 0 }, aero: { dragAreaM2: 0, liftAreaM2: 0 },
-    powertrain: { maxPowerW: 1, drive: 'all' }, fuel: { massKg: 0, burnKgPerLap: 0 },
-  }));
+  loop = writeTestLoop(folder);
+  hairpin = writeHairpin(folder);
+  slick = writeSlickCar(folder);
 });
 
 describe('reflap whatif', () => {
@@ -86,7 +67,8 @@ describe('reflap sweep', () => {
 
   it('writes the runs, and merged shards equal the unsharded CSV byte for byte', () => {
     const whole = join(folder, 'whole.csv');
-    const first = runCli(['sweep', '--track', loop, '--car', car, ...vary, '--workers', '2', '--out', whole]);
+    const wholeHtml = join(folder, 'whole.html');
+    const first = runCli(['sweep', '--track', loop, '--car', car, ...vary, '--workers', '2', '--out', whole, '--html', wholeHtml]);
     expect(first.code).toBe(0);
     expect(first.stdout).toMatch(/Sensitivity around the baseline/);
     const shards = [1, 2, 3].map((i) => {
@@ -96,9 +78,14 @@ describe('reflap sweep', () => {
       return out;
     });
     const merged = join(folder, 'merged.csv');
-    const join3 = runCli(['sweep', '--merge', shards[2]!, shards[0]!, shards[1]!, '--out', merged]);
+    const mergedHtml = join(folder, 'merged.html');
+    const join3 = runCli(['sweep', '--merge', shards[2]!, shards[0]!, shards[1]!, '--out', merged, '--html', mergedHtml]);
     expect(join3.code).toBe(0);
+    expect(join3.stdout).toContain(`Report written to ${mergedHtml}`);
     expect(readFileSync(merged)).toEqual(readFileSync(whole));
+    // The report of the merged shards is the report of the unsharded run.
+    expect(readFileSync(mergedHtml, 'utf8')).toBe(readFileSync(wholeHtml, 'utf8'));
+    expect(readFileSync(mergedHtml, 'utf8')).toContain('data-chart="lap-time-tyre.muLat"');
     const lines = readFileSync(whole, 'utf8').split('\n');
     expect(lines.filter((l) => /^\d/.test(l))).toHaveLength(1 + 4 + 9);
   });
@@ -111,6 +98,18 @@ describe('reflap sweep', () => {
     expect(result.sensitivities.map((s: { field: string }) => s.field)).toEqual(['massKg', 'tyre.muLat']);
     expect(result.sensitivities[0].lapTimeSPerUnit).toBeGreaterThan(0);
     expect(run.stderr).toBe('');
+  });
+
+  it('refuses a report path that is one of the shards to merge, writing nothing', () => {
+    const shard = join(folder, 'lone-shard.csv');
+    expect(runCli(['sweep', '--track', loop, '--car', car, '--vary', 'massKg=600:620:20', '--workers', '0', '--out', shard]).code).toBe(0);
+    const before = readFileSync(shard, 'utf8');
+    const out = join(folder, 'never-merged.csv');
+    const run = runCli(['sweep', '--merge', shard, '--out', out, '--html', shard]);
+    expect(run.code).toBe(2);
+    expect(run.stderr.trim().split('\n')).toHaveLength(1);
+    expect(readFileSync(shard, 'utf8')).toBe(before);
+    expect(existsSync(out)).toBe(false);
   });
 
   it('refuses bad sweeps with one line and exit code 2, writing nothing', () => {

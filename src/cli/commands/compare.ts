@@ -9,7 +9,8 @@ import { addTelemetryOptions, lapOption, loadSession, startFinishOption, type Te
 import { compareSession, type SessionComparison } from '../../compare/compare-session.js';
 import { readEnvelopeFile } from '../../io/read-envelope.js';
 import { alignedTracesCsv, compareSummaryJson, compareSummaryText } from '../../report/compare-summary.js';
-import { resolveLinePath } from './line-option.js';
+import { resolveLinePath } from './line.js';
+import { demonstratedEnvelope } from '../../car/demonstrated-envelope.js';
 import type { Ambient, Car } from '../../car/types.js';
 import type { TrackGrid } from '../../track/types.js';
 import type { TelemetrySession } from '../../compare/types.js';
@@ -29,27 +30,35 @@ export function register(program: Command): void {
   addCarOptions(command);
   addTelemetryOptions(command);
   command
-    .option('--line <auto|file>', 'run the reference on a racing line: auto = optimise one (default: the centreline)')
+    .option('--line <auto|file>', "run the reference on a racing line: 'auto' optimises the time line, or a line CSV from `reflap line --out` (default: the centreline)")
     .option('--envelope <file>', "use this demonstrated envelope (from `reflap envelope`) for the reference instead of the car model's")
     .option('--json', 'print one JSON object instead of the summary')
     .option('--out <dir>', 'write the aligned traces (aligned.csv) and the corner table (corners.csv) into this folder');
   addReportOptions(command).action((values: CompareValues) => runCompare(values));
 }
 
+/** A comparison, with the positions of the racing line the reference drove where `--line` asked for one. */
+export type CliComparison = SessionComparison & { linePositions?: { xM: Float64Array; yM: Float64Array } };
+
 /** The comparison from already-read records, shared by `compare` and `demo`. */
-export function compareFromRecords(track: TrackGrid, car: Car, ambient: Ambient, session: TelemetrySession, values: Partial<CompareValues>): SessionComparison {
+export function compareFromRecords(track: TrackGrid, car: Car, ambient: Ambient, session: TelemetrySession, values: Partial<CompareValues>): CliComparison {
   const lap = values.lap !== undefined ? lapOption(values as TelemetryOptionValues) : undefined;
   const startFinish = values.startFinish !== undefined ? startFinishOption(values as TelemetryOptionValues) : undefined;
   const envelopeRecord = values.envelope ? readEnvelopeFile(values.envelope) : undefined;
-  const linePath = values.line ? resolveLinePath(values.line, track, car, ambient) : undefined;
-  return compareSession(track, car, session, {
+  const start = values.track ? startSpeedMps(values as TrackOptionValues) : 0;
+  // The line is optimised on the envelope the reference drives: the demonstrated one where --envelope gives it.
+  const line = values.line
+    ? resolveLinePath(track, car, ambient, values.line, { startSpeedMps: start, ...(envelopeRecord ? { envelope: demonstratedEnvelope(envelopeRecord) } : {}) })
+    : undefined;
+  const comparison = compareSession(track, car, session, {
     ambient,
     ...(lap !== undefined ? { lap } : {}),
     ...(startFinish ? { startFinish } : {}),
-    ...(linePath ? { path: linePath } : {}),
+    ...(line ? { path: line.path } : {}),
     ...(envelopeRecord ? { envelopeRecord } : {}),
-    startSpeedMps: values.track ? startSpeedMps(values as TrackOptionValues) : 0,
+    startSpeedMps: start,
   });
+  return line ? { ...comparison, linePositions: { xM: line.xM, yM: line.yM } } : comparison;
 }
 
 /** Files `--out DIR` writes: the aligned traces and the corner table. */
@@ -74,7 +83,7 @@ export async function runCompare(values: CompareValues): Promise<void> {
   const comparison = compareFromRecords(track, car, ambient, session, values);
   const outputs = outputBatch(inputFilesOf(values));
   if (values.out) for (const { file, content } of comparisonFiles(comparison, values.out)) outputs.add(file, content);
-  const reportFiles = addReportOutputs(outputs, values, sessionReportInput(comparison, car, ambient));
+  const reportFiles = addReportOutputs(outputs, values, sessionReportInput(comparison, car, ambient, comparison.linePositions));
   outputs.commit();
   if (values.json) {
     process.stdout.write(JSON.stringify(compareSummaryJson(comparison.result), null, 2) + '\n');

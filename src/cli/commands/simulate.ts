@@ -51,7 +51,7 @@ export function runSimulate(values: SimulateValues): void {
   extraColumns.push(...bicycle.columns);
   const outputs = outputBatch(inputFilesOf(values));
   if (values.out) outputs.add(values.out, traceCsv(result, extraColumns));
-  const reportFiles = addReportOutputs(outputs, values, { reference: result, carName: car.name, envelope });
+  const reportFiles = addReportOutputs(outputs, values, { reference: result, carName: car.name, envelope, ...(line ? { linePositions: { xM: line.xM, yM: line.yM } } : {}) });
   outputs.commit();
   if (values.json) {
     process.stdout.write(JSON.stringify({ ...lapSummaryJson(result, car.name), ...bicycle.json }, null, 2) + '\n');

@@ -5,7 +5,9 @@ import type { Command } from 'commander';
 import { Option } from 'commander';
 import { readFileSync } from 'node:fs';
 import { addCarOptions, addTrackOptions, inputFilesOf, loadCar, loadTrack, numberOption, startSpeedMps, type CarOptionValues, type TrackOptionValues } from '../options.js';
-import { writeFileAtomic } from '../output.js';
+import { outputBatch, type OutputBatch } from '../output.js';
+import { addPageOutputs, addReportOptions, reportWrittenText, type ReportOptionValues } from '../html-options.js';
+import { sweepChartSvgs, sweepReportHtml } from '../../report/sweep-page.js';
 import { createProgress } from '../progress.js';
 import { parseSetting, parseVariation, setupBaseFrom, type Setting, type SetupBase } from '../../sweep/settings.js';
 import type { Path, TrackGrid } from '../../track/types.js';
@@ -17,12 +19,13 @@ import { sensitivities, type Sensitivity, type SweepTable } from '../../sweep/ta
 import { DEFAULT_MATCH_TOLERANCE_M } from '../../sweep/match-zones.js';
 import { formatTable } from '../../report/text-table.js';
 import { SAFETY_CAUTION } from '../../report/lap-summary.js';
+import { perUnit } from '../../report/sweep-format.js';
 import { formatLapTime } from '../../units.js';
 import { InputError } from '../../errors.js';
 import { ambientFrom } from '../../car/ambient.js';
 import { resolveLinePath } from './line.js';
 
-interface SweepValues extends Partial<TrackOptionValues>, Partial<CarOptionValues> {
+interface SweepValues extends Partial<TrackOptionValues>, Partial<CarOptionValues>, ReportOptionValues {
   vary?: string[];
   set?: string[];
   mode?: SweepMode;
@@ -51,8 +54,8 @@ export function register(program: Command): void {
     .option('--out <file>', 'write the runs as CSV (see docs/setup-sweeps.md for the columns)')
     .option('--match-m <m>', `largest distance between the slowest points of one corner in two runs, m (default ${DEFAULT_MATCH_TOLERANCE_M})`)
     .option('--line <auto|file>', "drive a racing line (held fixed for every setup): 'auto' computes the baseline car's time line, or a line CSV from `reflap line --out`")
-    .option('--json', 'print one JSON object instead of the tables')
-    .action((values: SweepValues) => runSweepCommand(values));
+    .option('--json', 'print one JSON object instead of the tables');
+  addReportOptions(command, 'the sweep report: one HTML page with lap time and braking-point shift against each field').action((values: SweepValues) => runSweepCommand(values));
 }
 
 export type SetupOptionValues = TrackOptionValues & CarOptionValues & { line?: string };
@@ -74,13 +77,6 @@ export function workerCount(text: string | undefined): number {
   if (!Number.isInteger(workers) || workers < 0 || workers > 256) throw new InputError(`option --workers: ${text} should be a whole number from 0 to 256`);
   return workers;
 }
-
-const perUnit = (value: number | null): string => {
-  if (value === null || !Number.isFinite(value)) return '';
-  if (value === 0) return '0';
-  const magnitude = Math.abs(value);
-  return magnitude >= 0.01 && magnitude < 1e5 ? value.toFixed(Math.max(0, 4 - Math.floor(Math.log10(magnitude)) - 1)) : value.toExponential(3);
-};
 
 export function sensitivityText(table: SweepTable, found: Sensitivity[]): string {
   if (found.length === 0) return 'No sensitivities: the runs around the baseline are not in this table.\n';
@@ -134,6 +130,10 @@ function sweepJson(table: SweepTable, found: Sensitivity[], complete: boolean) {
   };
 }
 
+function addSweepReport(outputs: OutputBatch, values: ReportOptionValues, table: SweepTable): string[] {
+  return addPageOutputs(outputs, values, { html: () => sweepReportHtml(table), charts: () => sweepChartSvgs(table) });
+}
+
 export async function runSweepCommand(values: SweepValues): Promise<void> {
   if (values.merge) {
     if (values.vary || values.shard) throw new InputError('sweep --merge joins finished shards; it takes no --vary or --shard');
@@ -145,10 +145,13 @@ export async function runSweepCommand(values: SweepValues): Promise<void> {
       }
     });
     const { csv, table } = mergeSweepCsv(files);
-    if (values.out) writeFileAtomic(values.out, csv, values.merge);
+    const outputs = outputBatch(values.merge);
+    if (values.out) outputs.add(values.out, csv);
+    const reportFiles = addSweepReport(outputs, values, table);
+    outputs.commit();
     const found = sensitivities(table);
     if (values.json) process.stdout.write(JSON.stringify(sweepJson(table, found, true), null, 2) + '\n');
-    else if (values.out) process.stdout.write(summaryText(table, found, true, values.out));
+    else if (values.out) process.stdout.write(summaryText(table, found, true, values.out) + reportWrittenText(reportFiles));
     else process.stdout.write(csv);
     return;
   }
@@ -174,8 +177,11 @@ export async function runSweepCommand(values: SweepValues): Promise<void> {
     progress.stop();
   }
   const { table, complete } = output;
-  if (values.out) writeFileAtomic(values.out, sweepCsv(table), inputFilesOf(values));
+  const outputs = outputBatch(inputFilesOf(values));
+  if (values.out) outputs.add(values.out, sweepCsv(table));
+  const reportFiles = addSweepReport(outputs, values, table);
+  outputs.commit();
   const found = sensitivities(table);
   if (values.json) process.stdout.write(JSON.stringify(sweepJson(table, found, complete), null, 2) + '\n');
-  else process.stdout.write(summaryText(table, found, complete, values.out));
+  else process.stdout.write(summaryText(table, found, complete, values.out) + reportWrittenText(reportFiles));
 }

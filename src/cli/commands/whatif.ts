@@ -2,7 +2,7 @@
 // far the braking point moves and what the entry speed, slowest speed and zone time do.
 
 import type { Command } from 'commander';
-import { addCarOptions, addTrackOptions, numberOption, type CarOptionValues, type TrackOptionValues } from '../options.js';
+import { addCarOptions, addTrackOptions, inputFilesOf, numberOption, type CarOptionValues, type TrackOptionValues } from '../options.js';
 import { simulate } from '../../solve/simulate.js';
 import { applySettings, baseValueOf, parseSetting, type Setting, type SetupBase } from '../../sweep/settings.js';
 import { compareLaps, type LapComparison } from '../../sweep/compare-laps.js';
@@ -14,8 +14,11 @@ import { formatLapTime } from '../../units.js';
 import { InputError } from '../../errors.js';
 import { loadSetupInputs } from './sweep.js';
 import { ambientFrom } from '../../car/ambient.js';
+import { outputBatch } from '../output.js';
+import { addPageOutputs, addReportOptions, reportWrittenText, type ReportOptionValues } from '../html-options.js';
+import { whatifChartSvgs, whatifReportHtml } from '../../report/sweep-whatif.js';
 
-interface WhatifValues extends TrackOptionValues, CarOptionValues {
+interface WhatifValues extends TrackOptionValues, CarOptionValues, ReportOptionValues {
   set?: string[];
   matchM?: string;
   line?: string;
@@ -30,8 +33,8 @@ export function register(program: Command): void {
     .option('--set <field=value...>', 'change: massKg=1400 (absolute), massKg=+20 or -20 (difference), tyre.muLat=-5% (percent); air too: airTempC=35')
     .option('--match-m <m>', `largest distance between the slowest points of one corner in the two laps, m (default ${DEFAULT_MATCH_TOLERANCE_M})`)
     .option('--line <auto|file>', "drive a racing line (held fixed for every setup): 'auto' computes the baseline car's time line, or a line CSV from `reflap line --out`")
-    .option('--json', 'print one JSON object instead of the table')
-    .action((values: WhatifValues) => runWhatif(values));
+    .option('--json', 'print one JSON object instead of the table');
+  addReportOptions(command, 'a page with the braking-point shift per corner as a bar chart').action((values: WhatifValues) => runWhatif(values));
 }
 
 const signed = (value: number, digits: number) => `${value >= 0 ? '+' : ''}${value.toFixed(digits)}`;
@@ -106,10 +109,15 @@ export function runWhatif(values: WhatifValues): void {
   const baseline = simulate(track, car, { ambient: ambientFrom(base.air), startSpeedMps: start, ...(path ? { path } : {}) });
   const result = simulate(track, changed.car, { ambient: changed.ambient, startSpeedMps: start, ...(path ? { path } : {}) });
   const comparison = compareLaps(baseline, result, toleranceM);
+  const described = describeSettings(base, settings, changed.values);
+  const page = { comparison, described, trackName: track.name, carName: car.name };
+  const outputs = outputBatch(inputFilesOf(values));
+  const reportFiles = addPageOutputs(outputs, values, { html: () => whatifReportHtml(page), charts: () => whatifChartSvgs(page) });
+  outputs.commit();
   if (values.json) {
     const changes = settings.map((setting, k) => ({ field: setting.field, from: baseValueOf(base, setting.field), to: changed.values[k]! }));
     process.stdout.write(JSON.stringify(whatifJson(comparison, changes), null, 2) + '\n');
   } else {
-    process.stdout.write(whatifText(comparison, describeSettings(base, settings, changed.values), track.name, car.name));
+    process.stdout.write(whatifText(comparison, described, track.name, car.name) + reportWrittenText(reportFiles));
   }
 }

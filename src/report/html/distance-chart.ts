@@ -5,8 +5,8 @@
 import { area, line } from 'd3-shape';
 import { escapeHtml } from './escape.js';
 import { minMaxIndices } from './downsample.js';
-import { coord, linearScale, niceTicks } from './scale.js';
-import { legendRow, svgElement, tickText, yAxis, type LegendItem, type SvgOptions } from './svg-frame.js';
+import { coord, linearScale } from './scale.js';
+import { legendRow, svgElement, tickText, xAxis, yAxis, type LegendItem, type SvgOptions } from './svg-frame.js';
 import { PALETTE } from './palette.js';
 
 export const CHART_WIDTH = 960;
@@ -117,13 +117,5 @@ export function distanceChartSvg(spec: DistanceChartSpec, options: SvgOptions): 
 
 /** Distance ticks under the plot for the range [fromM, toM]; the page's script redraws them on zoom. */
 export function xTicks(fromM: number, toM: number, plotWidth: number, plotBottom: number): string {
-  let out = '';
-  const ticks = niceTicks(fromM, toM, 10);
-  for (const tick of ticks) {
-    const px = coord(PLOT_LEFT + ((tick - fromM) / (toM - fromM)) * plotWidth);
-    out += `<line x1="${px}" x2="${px}" y1="${plotBottom}" y2="${plotBottom + 4}" stroke="${PALETTE.axis}"/>`;
-    out += `<text x="${px}" y="${plotBottom + 15}" text-anchor="middle" fill="${PALETTE.axis}">${tickText(tick)}</text>`;
-  }
-  out += `<text x="${PLOT_LEFT + plotWidth}" y="${plotBottom + 26}" text-anchor="end" fill="${PALETTE.axis}">distance, m</text>`;
-  return out;
+  return xAxis(linearScale([fromM, toM], [PLOT_LEFT, PLOT_LEFT + plotWidth]), plotBottom, 'distance, m');
 }

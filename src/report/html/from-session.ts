@@ -7,12 +7,14 @@ import { demonstratedEnvelope } from '../../car/demonstrated-envelope.js';
 import type { SessionComparison } from '../../compare/compare-session.js';
 import type { ReportInput } from './model.js';
 
-export function sessionReportInput(comparison: SessionComparison, car: Car, ambient: Ambient): ReportInput {
+/** `linePositions`: the racing line the reference drove, where it drove one (the map draws it instead of the centreline). */
+export function sessionReportInput(comparison: SessionComparison, car: Car, ambient: Ambient, linePositions?: ReportInput['linePositions']): ReportInput {
   const demonstrated = comparison.demonstratedRecord ? demonstratedEnvelope(comparison.demonstratedRecord) : null;
   return {
     reference: comparison.reference,
     carName: car.name,
     envelope: buildEnvelope(car, ambient),
+    ...(linePositions ? { linePositions } : {}),
     comparison: {
       result: comparison.result,
       driver: comparison.lap,

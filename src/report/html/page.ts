@@ -1,11 +1,9 @@
 // The lap report as one self-contained HTML page: charts as inline SVG (d3-shape paths built here), one
 // inline style sheet and one inline script admitted by a Content-Security-Policy hash, no network at all.
 
-import { createHash } from 'node:crypto';
-import { SAFETY_CAUTION } from '../lap-summary.js';
 import { clientScript } from './client-script.js';
 import { distanceChartSvg, DRAW_BUCKET_M, type DistanceChartSpec, type DistanceSeries } from './distance-chart.js';
-import { escapeHtml, jsonForScript } from './escape.js';
+import { htmlPage } from './page-frame.js';
 import { ggDiagramSvg, ggFrame } from './gg-diagram.js';
 import { cornerRangeM, reportModel, type ReportInput, type ReportModel } from './model.js';
 import { GRIP_NEAR_LIMIT, GRIP_OVER_LIMIT, PALETTE } from './palette.js';
@@ -13,7 +11,6 @@ import { paddedDomain, quantileOf } from './scale.js';
 import { strideIndices } from './downsample.js';
 import { cornerTableHtml, findingsHtml, summaryHtml } from './tables.js';
 import { mapPoint, mapProjection, trackMapSvg } from './track-map.js';
-import { PAGE_STYLE } from './style.js';
 import type { SvgOptions } from './svg-frame.js';
 
 /** Hover values are kept for at most this many points along the lap. */
@@ -207,52 +204,18 @@ function readoutHtml(model: ReportModel): string {
   );
 }
 
-function sha256Base64(text: string): string {
-  return createHash('sha256').update(text, 'utf8').digest('base64');
-}
-
 /** The whole report page as one string; pure (no I/O). */
 export function lapReportHtml(input: ReportInput): string {
   const model = reportModel(input);
   const options: SvgOptions = { standalone: false };
   const [mapSvg, ggSvg, ...distanceSvgs] = allCharts(model, options);
-  const script = clientScript();
-  const style = PAGE_STYLE;
-  const csp = [
-    "default-src 'none'",
-    `script-src 'sha256-${sha256Base64(script)}'`,
-    `style-src 'sha256-${sha256Base64(style)}'`,
-    "img-src 'none'",
-    "connect-src 'none'",
-    "font-src 'none'",
-    "object-src 'none'",
-    "base-uri 'none'",
-    "form-action 'none'",
-  ].join('; ');
   const reference = input.reference;
   const trackName = reference.track.name;
   const title = input.comparison ? `Lap report: ${trackName} · ${input.carName} · driver against reference` : `Reference lap: ${trackName} · ${input.carName}`;
   const subtitle = input.comparison
     ? `${input.comparison.driver.source}, lap ${input.comparison.driver.lapNumber}, against the reference lap of the ${reference.envelopeKind} model`
     : `Reference lap of the ${reference.envelopeKind} model, grid step ${reference.track.stepM.toFixed(2)} m`;
-  return `<!DOCTYPE html>
-<html lang="en">
-<head>
-<meta charset="utf-8">
-<meta http-equiv="Content-Security-Policy" content="${csp}">
-<meta name="viewport" content="width=device-width, initial-scale=1">
-<meta name="referrer" content="no-referrer">
-<title>${escapeHtml(title)}</title>
-<style>${style}</style>
-</head>
-<body>
-<header>
-<h1>${escapeHtml(title)}</h1>
-<p class="subtitle">${escapeHtml(subtitle)}</p>
-${summaryHtml(model)}
-</header>
-<main>
-<section class="overview">
+  const main = `<section class="overview">
 <div class="panel">${mapSvg!.svg}</div>
 <div class="panel">${ggSvg!.svg}</div>
 </section>
@@ -261,15 +224,15 @@ ${summaryHtml(model)}
 ${distanceSvgs.map((chart) => chart.svg).join('\n')}
 </section>
 <section class="panel">${cornerTableHtml(model)}</section>
-${input.comparison ? `<section class="panel">${findingsHtml(model)}</section>` : ''}
-</main>
-<footer>
-<p class="caution">${escapeHtml(SAFETY_CAUTION)}</p>
-<p>Made by reflap. Charts are drawn about one point per ${DRAW_BUCKET_M} m; hover values every ${(Math.max(1, Math.ceil(reference.trace.count / MAX_HOVER_POINTS)) * reference.track.stepM).toFixed(1)} m. Colours: Okabe–Ito palette, chosen to stay readable for colour-blind readers.</p>
-</footer>
-<script type="application/json" id="lap-data">${jsonForScript(pageData(model))}</script>
-<script>${script}</script>
-</body>
-</html>
-`;
+${input.comparison ? `<section class="panel">${findingsHtml(model)}</section>` : ''}`;
+  const hoverStepM = (Math.max(1, Math.ceil(reference.trace.count / MAX_HOVER_POINTS)) * reference.track.stepM).toFixed(1);
+  return htmlPage({
+    title,
+    subtitle,
+    header: summaryHtml(model),
+    main,
+    footerNote: `Made by reflap. Charts are drawn about one point per ${DRAW_BUCKET_M} m; hover values every ${hoverStepM} m. Colours: Okabe–Ito palette, chosen to stay readable for colour-blind readers.`,
+    data: { id: 'lap-data', value: pageData(model) },
+    script: clientScript(),
+  });
 }

@@ -26,6 +26,7 @@ export const PALETTE = {
   grid: '#e3e3e3',
   axis: '#555555',
   trackSurface: '#dedede',
+  gridPoint: '#8c8c8c',
 } as const;
 
 /** Grip-use classes on the track map: below NEAR is grip left unused, above OVER is beyond the envelope. */
@@ -51,3 +52,14 @@ export const GRIP_CLASS_LABEL: Record<GripClass, string> = {
   near: 'near the limit',
   over: `over the limit (> ${Math.round(GRIP_OVER_LIMIT * 100)} %)`,
 };
+
+/** Colours for charts with many series of one kind (one per corner): the Okabe-Ito set without yellow, which is too faint on white. */
+export const SERIES_COLOURS = [OKABE_ITO.blue, OKABE_ITO.vermillion, OKABE_ITO.bluishGreen, OKABE_ITO.reddishPurple, OKABE_ITO.orange, OKABE_ITO.skyBlue, OKABE_ITO.black] as const;
+/** After every colour has been used once, the next round is dashed, then dotted, so no two series look alike. */
+export const SERIES_DASHES = ['', '6 3', '2 2', '8 3 2 3'] as const;
+
+export function seriesStyle(index: number): { colour: string; dash?: string } {
+  const colour = SERIES_COLOURS[index % SERIES_COLOURS.length]!;
+  const dash = SERIES_DASHES[Math.floor(index / SERIES_COLOURS.length) % SERIES_DASHES.length]!;
+  return dash ? { colour, dash } : { colour };
+}

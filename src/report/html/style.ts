@@ -31,6 +31,8 @@ button { font: inherit; cursor: pointer; border: 1px solid #8a8a90; background: 
 button:disabled { cursor: default; color: #9a9aa0; border-color: var(--line); }
 #zoom-label { font-weight: 600; }
 .stack .chart + .chart { margin-top: 4px; }
+.chart-pair { display: grid; grid-template-columns: 1fr 1fr; gap: 10px; align-items: start; }
+@media (max-width: 900px) { .chart-pair { grid-template-columns: 1fr; } }
 .hover-area { cursor: crosshair; }
 .corner-mark:hover circle, .corner-mark:focus circle { fill: #fff2cc; }
 table { border-collapse: collapse; width: 100%; font-variant-numeric: tabular-nums; font-size: 13px; }

@@ -32,9 +32,13 @@ export interface LegendItem {
   mark?: 'line' | 'dot' | 'swatch';
 }
 
+function legendItemWidth(item: LegendItem): number {
+  return 26 + item.label.length * 6.1 + 12;
+}
+
 /** A legend row ending at `rightX`, baseline at `y`; widths estimated from the label length. */
 export function legendRow(items: LegendItem[], rightX: number, y: number): string {
-  const widths = items.map((item) => 26 + item.label.length * 6.1 + 12);
+  const widths = items.map(legendItemWidth);
   let x = rightX - widths.reduce((sum, w) => sum + w, 0);
   let out = '<g class="legend">';
   items.forEach((item, index) => {
@@ -62,6 +66,35 @@ export function yAxis(scale: LinearScale, left: number, right: number, title: st
   const middle = coord((scale.range[0] + scale.range[1]) / 2);
   out += `<text transform="translate(14 ${middle}) rotate(-90)" text-anchor="middle" fill="${PALETTE.axis}">${escapeHtml(title)}</text>`;
   return out + '</g>';
+}
+
+/** Tick marks and labels under a plot at round values, and the axis title at the right end below them. */
+export function xAxis(scale: LinearScale, bottom: number, title: string, format: (value: number) => string = tickText, tickCount = 10): string {
+  const [d0, d1] = scale.domain;
+  let out = '';
+  for (const tick of niceTicks(Math.min(d0, d1), Math.max(d0, d1), tickCount)) {
+    const px = coord(scale(tick));
+    out += `<line x1="${px}" x2="${px}" y1="${bottom}" y2="${bottom + 4}" stroke="${PALETTE.axis}"/>`;
+    out += `<text x="${px}" y="${bottom + 15}" text-anchor="middle" fill="${PALETTE.axis}">${escapeHtml(format(tick))}</text>`;
+  }
+  out += `<text x="${coord(Math.max(scale.range[0], scale.range[1]))}" y="${bottom + 26}" text-anchor="end" fill="${PALETTE.axis}">${escapeHtml(title)}</text>`;
+  return out;
+}
+
+/** Legend rows ending at `rightX`, the first with its baseline at `y`, wrapped so that no row is wider than `maxWidth`. */
+export function legendRows(items: LegendItem[], rightX: number, y: number, maxWidth: number, rowHeight = 15): { svg: string; rows: number } {
+  const rows: LegendItem[][] = [[]];
+  let width = 0;
+  for (const item of items) {
+    const itemWidth = legendItemWidth(item);
+    if (width + itemWidth > maxWidth && rows[rows.length - 1]!.length > 0) {
+      rows.push([]);
+      width = 0;
+    }
+    rows[rows.length - 1]!.push(item);
+    width += itemWidth;
+  }
+  return { svg: rows.map((row, k) => legendRow(row, rightX, y + k * rowHeight)).join(''), rows: rows.length };
 }
 
 /** Plain number text for tick labels: integers as they are, otherwise up to two decimals. */

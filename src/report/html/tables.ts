@@ -9,7 +9,7 @@ const fixed = (value: number | null | undefined, digits: number): string => (val
 const signed = (value: number | null | undefined, digits: number): string =>
   value === null || value === undefined || !Number.isFinite(value) ? '–' : `${value > 0 ? '+' : value < 0 ? '−' : '±'}${Math.abs(value).toFixed(digits)}`;
 
-function tile(label: string, value: string, note = ''): string {
+export function tile(label: string, value: string, note = ''): string {
   return `<div class="tile"><div class="tile-label">${escapeHtml(label)}</div><div class="tile-value">${escapeHtml(value)}</div>${note ? `<div class="tile-note">${escapeHtml(note)}</div>` : ''}</div>`;
 }
 
