@@ -29,6 +29,8 @@ export { lapSummaryJson, lapSummaryText, SAFETY_CAUTION } from './report/lap-sum
 export { lapReportHtml, chartSvgs, type ChartSvg } from './report/html/page.js';
 export type { ReportInput, ReportCorner } from './report/html/model.js';
 export { sessionReportInput } from './report/html/from-session.js';
+export { sweepReportHtml, sweepChartSvgs } from './report/sweep-page.js';
+export { whatifReportHtml, whatifChartSvgs, type WhatifPageInput } from './report/sweep-whatif.js';
 
 // Setup assumptions: what-ifs, sweeps, stints and the SAE J1349 power correction.
 export { j1349CorrectionFactor, j1349PowerFactor, dryAirPressureKpa, saturationVapourPressureHpa, SAE_J1349_EDITIONS, type J1349Edition } from './car/power-correction.js';

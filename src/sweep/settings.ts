@@ -121,6 +121,9 @@ export function variationAmounts(variation: Variation): number[] {
 export function resolveValue(base: number | null, spec: ValueSpec, where: string): number {
   if (spec.kind === 'absolute') return spec.amount;
   if (base === null) throw new InputError(`${where}: the car file gives no value to change; set an absolute value instead`);
+  if (spec.kind === 'percent' && base === 0 && spec.amount !== 0) {
+    throw new InputError(`${where}: a change in percent of 0 leaves it 0; set an absolute value or a signed difference instead`);
+  }
   return tidy(spec.kind === 'delta' ? base + spec.amount : base * (1 + spec.amount / 100));
 }
 

@@ -91,6 +91,12 @@ describe('--vary ranges', () => {
     expect(inputErrorOf(() => parseVariation('massKg=1300:1500'))).toMatch(/FROM:TO:STEP/);
   });
 
+  it('refuses a change in percent of a field that is 0 (every run would be the same)', () => {
+    const noDownforce = { ...base, car: { ...base.car, aero: { ...base.car.aero, liftAreaM2: 0 } } };
+    expect(inputErrorOf(() => variationValues(noDownforce, parseVariation('aero.liftAreaM2=-10%:+10%:5%')))).toMatch(/percent of 0/);
+    expect(variationValues(noDownforce, parseVariation('aero.liftAreaM2=+0:+1:0.5'))).toEqual([0, 0.5, 1]);
+  });
+
   it('refuses a sweep that reaches an invalid car before running anything', () => {
     expect(inputErrorOf(() => planSweep(base, [parseVariation('massKg=0:100:50')], 'grid'))).toMatch(/massKg must be positive/);
   });
