@@ -7,6 +7,7 @@ import { fileURLToPath } from 'node:url';
 import { resolve } from 'node:path';
 import { trackFromSegments } from '../src/track/segments.js';
 import { readTrackFile } from '../src/io/read-track.js';
+import { parseColumnMapping } from '../src/io/columns.js';
 import { parseCarJson } from '../src/io/read-car.js';
 import { simulate } from '../src/solve/simulate.js';
 import { ambientFrom } from '../src/car/ambient.js';
@@ -29,7 +30,8 @@ function benchOne(label: string, track: TrackGrid): void {
   process.stdout.write(
     `transient check, ${label} (${(track.lengthM / 1000).toFixed(2)} km, ${track.distanceM.length} points): median ${(ms / 1000).toFixed(3)} s per lap (target < 5 s); ` +
       `${c.steps} odex steps, ${c.evaluations} evaluations; reference ${lap.lapTimeS.toFixed(3)} s, ` +
-      `followed ${c.completed ? c.followedLapTimeS.toFixed(3) + ' s' : 'did not finish'}, largest deviation ${c.maxDeviationM.toFixed(2)} m\n`,
+      `followed ${c.completed ? c.followedLapTimeS.toFixed(3) + ' s' : 'did not finish'}, largest deviation ${c.maxDeviationM.toFixed(2)} m, ` +
+      `${(100 * c.maxDeviationShare).toFixed(0)} % of the room to the edge (${c.deviationLimitSource}); ${c.drivable ? 'drivable' : 'not drivable'}\n`,
   );
 }
 
@@ -37,7 +39,7 @@ export async function run(): Promise<void> {
   benchOne('benchmark circuit', trackFromSegments({ name: 'benchmark circuit', closed: true, widthM: 12, segments: benchmarkCircuitSegments() }, 1, 'benchmark'));
   const monza = resolve(projectRoot, '..', 'shared', 'data', 'open-tracks', 'Monza.csv');
   if (existsSync(monza)) {
-    benchOne('Monza centreline', readTrackFile(monza, { stepM: 1, columns: {}, widthM: null, layout: 'auto', smoothingM: null }));
+    benchOne('Monza centreline', readTrackFile(monza, { stepM: 1, columns: parseColumnMapping('width_left_m=w_tr_left_m,width_right_m=w_tr_right_m', '--columns'), widthM: null, layout: 'auto', smoothingM: null }));
   } else {
     process.stdout.write('transient check on a real circuit: skipped (../shared/data/open-tracks is absent)\n');
   }

@@ -8,14 +8,47 @@ import type { BicycleParams } from '../car/bicycle-params.js';
 import { axleState, newAxleState, type AxleState } from '../car/bicycle-axles.js';
 import { combinedShare, remainingShare } from '../car/point-mass.js';
 
-export type AxleForceLaw = 'linear' | 'saturating';
+export type AxleForceLaw = 'linear' | 'saturating' | 'brush';
 
-/** Lateral force of one axle, N: C alpha while linear, else capacity * tanh(C alpha / capacity). */
+/**
+ * Lateral force of one axle, N, for a slip angle and the axle's capacity (peak force) at that instant:
+ * - 'linear': C alpha;
+ * - 'saturating': capacity * tanh(C alpha / capacity), which approaches the capacity only as the slip grows without
+ *   bound (common practice for a smooth saturating tyre);
+ * - 'brush': the Fiala brush tyre with one friction coefficient, C tan(alpha) (1 - z + z^2 / 3) with
+ *   z = |C tan(alpha)| / (3 capacity), i.e. capacity (3z - 3z^2 + z^3), reaching the capacity at the finite slip
+ *   tan(alpha_sl) = 3 capacity / C and flat beyond (Pacejka, Tire and Vehicle Dynamics, 2nd ed. 2006, sec. 3.2; the
+ *   tyre law of Kapania and Gerdes, Vehicle System Dynamics 53 (2015)).
+ */
 export function axleLateralForceN(stiffnessNPerRad: number, slipRad: number, capacityN: number, law: AxleForceLaw): number {
-  const linear = stiffnessNPerRad * slipRad;
-  if (law === 'linear') return linear;
+  if (law === 'linear') return stiffnessNPerRad * slipRad;
   if (!(capacityN > 0)) return 0;
-  return capacityN * Math.tanh(linear / capacityN);
+  if (law === 'saturating') return capacityN * Math.tanh((stiffnessNPerRad * slipRad) / capacityN);
+  const linear = stiffnessNPerRad * Math.tan(slipRad);
+  const z = Math.abs(linear) / (3 * capacityN);
+  if (z >= 1) return Math.sign(slipRad) * capacityN;
+  return capacityN * Math.sign(slipRad) * z * (3 - 3 * z + z * z);
+}
+
+/** The slip angle from which an axle gives (nearly) all its capacity, rad: the brush tyre's full-sliding angle. */
+export function axlePeakSlipRad(stiffnessNPerRad: number, capacityN: number, law: AxleForceLaw): number {
+  if (law === 'linear') return Infinity;
+  if (law === 'saturating') return (Math.atanh(0.95) * capacityN) / stiffnessNPerRad;
+  return Math.atan((3 * capacityN) / stiffnessNPerRad);
+}
+
+/**
+ * The slip angle at which an axle gives forceN (magnitude, the inverse of axleLateralForceN), rad; the demand is
+ * held at `maxShare` of the capacity at most (the tanh law reaches the capacity only at infinite slip).
+ */
+export function axleSlipForForceRad(stiffnessNPerRad: number, forceN: number, capacityN: number, law: AxleForceLaw, maxShare: number): number {
+  if (law === 'linear') return forceN / stiffnessNPerRad;
+  if (!(capacityN > 0)) return 0;
+  const share = Math.min(Math.abs(forceN) / capacityN, maxShare);
+  if (law === 'saturating') return (Math.sign(forceN) * capacityN * Math.atanh(Math.min(share, 0.999))) / stiffnessNPerRad;
+  // 1 - (1 - z)^3 = share, the brush curve's inverse in closed form.
+  const z = 1 - Math.cbrt(1 - share);
+  return Math.sign(forceN) * Math.atan((3 * capacityN * z) / stiffnessNPerRad);
 }
 
 export interface SingleTrackInput {
@@ -80,26 +113,37 @@ export function singleTrackForces(model: SingleTrackModel, lateralVelocityMps: n
   const a = p.frontAxleToCgM;
   const b = p.cgToRearAxleM;
   const resistance = model.resistanceN(speedMps);
-  const axCommand = (input.frontLongN + input.rearLongN - resistance) / p.massKg;
-  const s = axleState(p, model.tyre, model.halfRhoLift * speedMps * speedMps, axCommand, u * r, model.axles);
   const n = model.tyre.ggExponent;
-  const frontCap = s.frontLatCapN * remainingShare(ratio(input.frontLongN, s.frontLongCapN), n);
-  const rearCap = s.rearLatCapN * remainingShare(ratio(input.rearLongN, s.rearLongCapN), n);
   const frontSlip = input.steerRad - Math.atan2(vy + a * r, u);
   const rearSlip = -Math.atan2(vy - b * r, u);
-  const fyf = axleLateralForceN(p.corneringStiffnessFrontNPerRad, frontSlip, frontCap, model.law);
-  const fyr = axleLateralForceN(p.corneringStiffnessRearNPerRad, rearSlip, rearCap, model.law);
   const cos = Math.cos(input.steerRad);
   const sin = Math.sin(input.steerRad);
+  // The loads follow the body's accelerations (quasi-static load transfer); these depend on the lateral forces,
+  // which depend on the loads: two passes, the first at the commanded ax and at ay = u r, the second at the
+  // accelerations the first pass's forces give (so the front tyres' cornering drag Fyf sin(delta) counts).
+  let axMps2 = (input.frontLongN + input.rearLongN - resistance) / p.massKg;
+  let ayMps2 = u * r;
+  let fyf = 0;
+  let fyr = 0;
+  let s = model.axles;
+  for (let pass = 0; pass < 2; pass++) {
+    s = axleState(p, model.tyre, model.halfRhoLift * speedMps * speedMps, axMps2, ayMps2, model.axles);
+    const frontCap = s.frontLatCapN * remainingShare(ratio(input.frontLongN, s.frontLongCapN), n);
+    const rearCap = s.rearLatCapN * remainingShare(ratio(input.rearLongN, s.rearLongCapN), n);
+    fyf = axleLateralForceN(p.corneringStiffnessFrontNPerRad, frontSlip, frontCap, model.law);
+    fyr = axleLateralForceN(p.corneringStiffnessRearNPerRad, rearSlip, rearCap, model.law);
+    axMps2 = (input.frontLongN * cos - fyf * sin + input.rearLongN - resistance) / p.massKg;
+    ayMps2 = (fyf * cos + input.frontLongN * sin + fyr) / p.massKg;
+  }
   out.frontLatN = fyf;
   out.rearLatN = fyr;
   out.frontSlipRad = frontSlip;
   out.rearSlipRad = rearSlip;
   out.frontUse = combinedShare(ratio(input.frontLongN, s.frontLongCapN), ratio(fyf, s.frontLatCapN), n);
   out.rearUse = combinedShare(ratio(input.rearLongN, s.rearLongCapN), ratio(fyr, s.rearLatCapN), n);
-  out.lateralVelocityRate = (fyf * cos + input.frontLongN * sin + fyr) / p.massKg - u * r;
+  out.lateralVelocityRate = ayMps2 - u * r;
   out.yawAcceleration = (a * (fyf * cos + input.frontLongN * sin) - b * fyr) / p.yawInertiaKgM2;
-  out.speedRate = (input.frontLongN * cos - fyf * sin + input.rearLongN - resistance) / p.massKg + vy * r;
+  out.speedRate = axMps2 + vy * r;
   return out;
 }
 

@@ -6,23 +6,30 @@
 import type { Ambient, Car } from '../car/types.js';
 import type { LapResult } from './types.js';
 import { bicycleParams } from '../car/bicycle-params.js';
-import { bicycleEnvelope } from '../car/bicycle-envelope.js';
-import type { Envelope } from '../car/envelope.js';
 import { understeerGradientRadPerMps2, criticalSpeedMps } from '../car/understeer.js';
 import { pointMassEnvelope } from '../car/point-mass.js';
 import { driveForceTable } from '../car/drive-force.js';
 import { ambientFrom } from '../car/ambient.js';
-import { STANDARD_GRAVITY_MPS2, radToDeg } from '../units.js';
+import { STANDARD_GRAVITY_MPS2, mpsToKph, radToDeg } from '../units.js';
 import { newOdexSolver } from './transient-odex.js';
-import { newSingleTrackForces, pathRates, singleTrackForces, singleTrackModel, type AxleForceLaw, type SingleTrackInput } from './transient-model.js';
-import { DEFAULT_DRIVER, newDriver, type DriverSettings, type ReferenceLookup } from './transient-driver.js';
+import { axleState, newAxleState } from '../car/bicycle-axles.js';
+import { axleSlipForForceRad, newSingleTrackForces, pathRates, singleTrackForces, singleTrackModel, type AxleForceLaw, type SingleTrackInput } from './transient-model.js';
+import { DEFAULT_DRIVER, newDriver, type DriverSettings } from './transient-driver.js';
+import { deviationRoom, referenceLookup, type DeviationLimitSource } from './transient-reference.js';
+
+export type { DeviationLimitSource } from './transient-reference.js';
 
 export interface TransientOptions {
   ambient?: Ambient;
   law?: AxleForceLaw;
   driver?: Partial<DriverSettings>;
-  /** Largest lateral deviation from the reference line that still counts as following it, m (default 1). */
+  /**
+   * A fixed largest lateral deviation from the reference line, m, on both sides; by default the room to the track's
+   * edge at each point (less half the car's width), or 1 m where the track gives no widths.
+   */
   deviationLimitM?: number;
+  /** When the reference drives a racing line: its offset from the centreline on the track's grid, m, positive left. */
+  pathOffsetM?: Float64Array;
   /** Axle use from which a stretch counts as saturated (default 0.95). */
   saturationUse?: number;
 }
@@ -44,6 +51,16 @@ export interface TransientCheck {
   followedLapTimeS: number;
   maxDeviationM: number;
   maxDeviationAtM: number;
+  /** Where the limit comes from: the room to the track's edge, or a fixed distance. */
+  deviationLimitSource: DeviationLimitSource;
+  /** The largest deviation as a share of the room to the edge on its side (1 = at the limit), where, and its figures. */
+  maxDeviationShare: number;
+  maxDeviationShareAtM: number;
+  deviationAtShareM: number;
+  roomAtShareM: number;
+  /** The followed car's speed there, and the reference's, m/s. */
+  speedAtShareMps: number;
+  referenceSpeedAtShareMps: number;
   maxSteerDeg: number;
   saturation: SaturationZone[];
   /** On the reference's grid (path distance): the followed car's lateral error, speed and steer. */
@@ -58,86 +75,30 @@ export interface TransientCheck {
   evaluations: number;
 }
 
-const SPIN_COURSE_ERROR_RAD = 1;
+const SPIN_HEADING_ERROR_RAD = 1;
+/** Sideslip beyond which the car counts as spinning (about 30 deg; common practice, no source). */
+const SPIN_SIDESLIP_RAD = 0.5;
 const LOST_DEVIATION_M = 25;
 const MAX_STEP_S = 0.05;
-
-/**
- * The speed the driver aims for: the reference speed, but braking only at `brakingShare` of the envelope's braking
- * limit (a backward pass from each corner, twice round a closed lap), so the car reaches each corner at its speed
- * with some braking in hand; and the acceleration that goes with it.
- */
-function driverTarget(result: LapResult, envelope: Envelope, brakingShare: number): { speedMps: Float64Array; axMps2: Float64Array } {
-  const t = result.trace;
-  const n = t.count;
-  const ds = result.path.segmentLengthM;
-  const speed = Float64Array.from(t.speedMps);
-  const sweeps = t.closed ? 2 * n : n - 1;
-  for (let k = 0; k < sweeps; k++) {
-    const j = t.closed ? (n - 1 - (k % n) + n) % n : n - 1 - k;
-    const i = j === 0 ? n - 1 : j - 1;
-    if (!t.closed && j === 0) break;
-    const v = speed[j]!;
-    const decel = brakingShare * (envelope.brakeLimitMps2(v, v * v * t.curvaturePerM[i]!) - envelope.coastDecelMps2(v)) + envelope.coastDecelMps2(v);
-    const reachable = Math.sqrt(v * v + 2 * Math.max(decel, 0) * ds[i]!);
-    if (reachable < speed[i]!) speed[i] = reachable;
-  }
-  const ax = new Float64Array(n);
-  for (let i = 0; i < n; i++) {
-    const j = i + 1 < n ? i + 1 : t.closed ? 0 : i;
-    ax[i] = j === i ? (i > 0 ? ax[i - 1]! : 0) : (speed[j]! * speed[j]! - speed[i]! * speed[i]!) / (2 * ds[i]!);
-  }
-  return { speedMps: speed, axMps2: ax };
-}
-
-function referenceLookup(result: LapResult, target: { speedMps: Float64Array; axMps2: Float64Array }): ReferenceLookup & { endM: number } {
-  const t = result.trace;
-  const n = t.count;
-  const d = t.distanceM;
-  const closed = t.closed;
-  const lengthM = result.lengthM;
-  const endM = closed ? lengthM : d[n - 1]!;
-  let k = 0;
-  let next = 1;
-  let share = 0;
-  const locate = (stationM: number) => {
-    let s = stationM;
-    if (closed) s = ((s % lengthM) + lengthM) % lengthM;
-    else s = Math.min(Math.max(s, 0), endM);
-    while (k > 0 && d[k]! > s) k--;
-    while (k < n - 1 && d[k + 1]! <= s) k++;
-    next = k + 1 < n ? k + 1 : closed ? 0 : k;
-    const endOfSegment = k + 1 < n ? d[k + 1]! : lengthM;
-    share = endOfSegment > d[k]! ? (s - d[k]!) / (endOfSegment - d[k]!) : 0;
-  };
-  const read = (values: Float64Array, stationM: number) => {
-    locate(stationM);
-    return values[k]! + share * (values[next]! - values[k]!);
-  };
-  return {
-    endM,
-    curvaturePerM: (s) => read(t.curvaturePerM, s),
-    speedMps: (s) => read(target.speedMps, s),
-    axMps2: (s) => read(target.axMps2, s),
-  };
-}
 
 /** Follows the reference lap with the single-track model and a driver model; see the module comment. */
 export function checkTransient(result: LapResult, car: Car, options: TransientOptions = {}): TransientCheck {
   const ambient = options.ambient ?? ambientFrom();
   const p = bicycleParams(car);
   const settings: DriverSettings = { ...DEFAULT_DRIVER, ...options.driver };
-  const deviationLimitM = options.deviationLimitM ?? 1;
+  const room = deviationRoom(result, car, options.deviationLimitM, options.pathOffsetM);
   const saturationUse = options.saturationUse ?? 0.95;
   const pointMass = pointMassEnvelope(car, ambient);
   const resistanceN = (speedMps: number) => p.massKg * pointMass.coastDecelMps2(speedMps);
   const drive = driveForceTable(car, ambient.powerFactor);
-  const reference = referenceLookup(result, driverTarget(result, bicycleEnvelope(car, ambient), settings.brakingShare));
-  const model = singleTrackModel(p, car, ambient.airDensityKgPerM3, options.law ?? 'saturating', resistanceN);
+  const reference = referenceLookup(result, room.leftM, room.rightM);
+  const law = options.law ?? 'brush';
+  const model = singleTrackModel(p, car, ambient.airDensityKgPerM3, law, resistanceN);
   const gradient = understeerGradientRadPerMps2(p);
   const driver = newDriver({
     params: p,
     tyre: car.tyre,
+    law,
     settings,
     understeerGradientRadPerMps2: gradient,
     halfRhoLift: model.halfRhoLift,
@@ -179,9 +140,10 @@ export function checkTransient(result: LapResult, car: Car, options: TransientOp
     steers.push(input.steerRad);
     frontUses.push(forces.frontUse);
     rearUses.push(forces.rearUse);
-    const course = y[2]! + Math.atan2(y[3]!, Math.max(y[5]!, 1));
+    // A spin shows as a large sideslip or heading error (the course, heading plus sideslip, can stay on the path).
+    const sideslip = Math.atan2(y[3]!, Math.max(y[5]!, 1));
     const at = (y[0]! % wrapM).toFixed(0);
-    if (Math.abs(course) > SPIN_COURSE_ERROR_RAD) lost = `the car spins at ${at} m`;
+    if (Math.abs(sideslip) > SPIN_SIDESLIP_RAD || Math.abs(y[2]!) > SPIN_HEADING_ERROR_RAD || Math.abs(y[2]! + sideslip) > SPIN_HEADING_ERROR_RAD) lost = `the car spins at ${at} m`;
     else if (Math.abs(y[1]!) > LOST_DEVIATION_M) lost = `the car leaves the line by more than ${LOST_DEVIATION_M} m at ${at} m`;
     else if (y[5]! < 0.5) lost = `the car stops at ${at} m`;
   };
@@ -192,13 +154,16 @@ export function checkTransient(result: LapResult, car: Car, options: TransientOp
   const startM = result.trace.distanceM[startIndex]!;
   const startSpeed = Math.max(result.trace.speedMps[startIndex]!, 2);
   // Start in steady cornering: r = u kappa, and the lateral velocity that gives the rear axle its share m ay a / L
-  // on its linear stiffness (vy = b r - u alpha_r).
+  // on the tyre law (vy = b r - u tan alpha_r), heading error -sideslip so that the car moves along the line.
   const startYawRate = startSpeed * reference.curvaturePerM(startM);
-  const rearSlipRad = (p.massKg * startSpeed * startYawRate * p.frontAxleToCgM) / p.wheelbaseM / p.corneringStiffnessRearNPerRad;
-  const y0 = [startM, 0, 0, p.cgToRearAxleM * startYawRate - startSpeed * rearSlipRad, startYawRate, startSpeed];
+  const startAxles = axleState(p, car.tyre, model.halfRhoLift * startSpeed * startSpeed, 0, startSpeed * startYawRate, newAxleState());
+  const rearSlipRad = axleSlipForForceRad(p.corneringStiffnessRearNPerRad, Math.sign(startYawRate) * startAxles.rearLatDemandN, startAxles.rearLatCapN, law, 0.995);
+  const startVy = p.cgToRearAxleM * startYawRate - startSpeed * Math.tan(rearSlipRad);
+  const y0 = [startM, 0, -Math.atan2(startVy, startSpeed), startVy, startYawRate, startSpeed];
   const solver = newOdexSolver(6);
   solver.denseOutput = false;
-  solver.maxSteps = 2_000_000;
+  // A lap takes some thousands of steps; far more means the inputs chatter (bounded so the check stays quick).
+  solver.maxSteps = Math.max(20_000, Math.ceil((40 * (2 * result.lapTimeS + 60)) / MAX_STEP_S));
   solver.maxStepSize = MAX_STEP_S;
   solver.initialStepSize = 1e-3;
   solver.absoluteTolerance = [1e-3, 1e-4, 1e-5, 1e-4, 1e-5, 1e-4];
@@ -224,6 +189,12 @@ export function checkTransient(result: LapResult, car: Car, options: TransientOp
 
   let maxDeviationM = 0;
   let maxDeviationAtM = 0;
+  let maxDeviationShare = 0;
+  let maxDeviationShareAtM = 0;
+  let deviationAtShareM = 0;
+  let roomAtShareM = 0;
+  let speedAtShareMps = 0;
+  let referenceSpeedAtShareMps = 0;
   let maxSteerRad = 0;
   const saturation: SaturationZone[] = [];
   let open: SaturationZone | null = null;
@@ -234,6 +205,15 @@ export function checkTransient(result: LapResult, car: Car, options: TransientOp
     if (Math.abs(errors[k]!) > maxDeviationM) {
       maxDeviationM = Math.abs(errors[k]!);
       maxDeviationAtM = station;
+    }
+    const roomM = errors[k]! >= 0 ? reference.roomLeftM(station) : reference.roomRightM(station);
+    if (Math.abs(errors[k]!) / roomM > maxDeviationShare) {
+      maxDeviationShare = Math.abs(errors[k]!) / roomM;
+      maxDeviationShareAtM = station;
+      deviationAtShareM = errors[k]!;
+      roomAtShareM = roomM;
+      speedAtShareMps = speeds[k]!;
+      referenceSpeedAtShareMps = reference.speedMps(station);
     }
     maxSteerRad = Math.max(maxSteerRad, Math.abs(steers[k]!));
     const front = frontUses[k]!;
@@ -262,13 +242,17 @@ export function checkTransient(result: LapResult, car: Car, options: TransientOp
   resampleOnGrid(result.trace.distanceM, startIndex, result.lengthM, stations, [errors, speeds, steers, frontUses, rearUses], [lateralErrorM, followedSpeedMps, steerDeg, frontUse, rearUse]);
   for (let i = 0; i < n; i++) steerDeg[i] = radToDeg(steerDeg[i]!);
 
-  const drivable = completed && maxDeviationM <= deviationLimitM;
+  const drivable = completed && maxDeviationShare <= 1;
   const critical = criticalSpeedMps(p.wheelbaseM, gradient);
+  const side = deviationAtShareM >= 0 ? 'left' : 'right';
+  const limitText = room.source === 'fixed' ? `the fixed limit ${roomAtShareM.toFixed(2)} m` : `the ${roomAtShareM.toFixed(2)} m of room to the ${side} edge`;
+  const worst = `${Math.abs(deviationAtShareM).toFixed(2)} m to the ${side} at ${maxDeviationShareAtM.toFixed(0)} m, ${(100 * maxDeviationShare).toFixed(0)} % of ${limitText}`;
   let verdict: string;
-  if (!completed) verdict = `not drivable: ${lost || 'the integration stopped before the end of the lap'}`;
-  else if (!drivable) verdict = `not drivable as computed: the followed car strays ${maxDeviationM.toFixed(2)} m from the line at ${maxDeviationAtM.toFixed(0)} m (limit ${deviationLimitM} m)`;
-  else verdict = `drivable: the followed car stays within ${maxDeviationM.toFixed(2)} m of the line`;
-  if (critical !== null && result.maxSpeedMps > critical) verdict += `; the car is above its critical speed ${(critical * 3.6).toFixed(0)} km/h`;
+  const stalledAt = `the integration stalled at ${(lastStation % wrapM).toFixed(0)} m after ${outcome.nStep} steps (the driver model's inputs chatter there)`;
+  if (!completed) verdict = `not drivable: ${lost || stalledAt}`;
+  else if (!drivable) verdict = `not drivable as computed: the followed car runs ${worst}, at ${mpsToKph(speedAtShareMps).toFixed(0)} km/h against the reference's ${mpsToKph(referenceSpeedAtShareMps).toFixed(0)} km/h`;
+  else verdict = `drivable: the followed car stays on the track, at most ${worst}`;
+  if (critical !== null && result.maxSpeedMps > critical) verdict += `; the car is above its critical speed ${mpsToKph(critical).toFixed(0)} km/h`;
 
   return {
     completed,
@@ -278,6 +262,13 @@ export function checkTransient(result: LapResult, car: Car, options: TransientOp
     followedLapTimeS,
     maxDeviationM,
     maxDeviationAtM,
+    deviationLimitSource: room.source,
+    maxDeviationShare,
+    maxDeviationShareAtM,
+    deviationAtShareM,
+    roomAtShareM,
+    speedAtShareMps,
+    referenceSpeedAtShareMps,
     maxSteerDeg: radToDeg(maxSteerRad),
     saturation,
     lateralErrorM,

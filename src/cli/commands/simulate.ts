@@ -47,7 +47,7 @@ export function runSimulate(values: SimulateValues): void {
         { name: 'y_m', values: line.yM, digits: 3 },
       ]
     : [];
-  const bicycle = bicycleSimulateExtras(result, car, ambient, values.checkTransient === true);
+  const bicycle = bicycleSimulateExtras(result, car, ambient, values.checkTransient === true, line?.offsetM);
   extraColumns.push(...bicycle.columns);
   const outputs = outputBatch(inputFilesOf(values));
   if (values.out) outputs.add(values.out, traceCsv(result, extraColumns));
