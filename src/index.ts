@@ -59,6 +59,7 @@ export { readLineFile, parseLineCsv } from './io/read-line.js';
 
 // Telemetry in: reading driver logs (CSV, NMEA 0183, GPX 1.1), cutting laps, alignment onto the track grid.
 export { readTelemetryFile, parseTelemetryText, sniffTelemetryFormat, type TelemetryReadOptions, type TelemetryFormat } from './io/telemetry/read-telemetry.js';
+export { streamTelemetryCsv, CHUNK_ROWS, type TelemetryChunk, type TelemetryStreamSummary, type TelemetryChannel, type TelemetryStreamOptions } from './io/telemetry/read-telemetry.js';
 export { CANONICAL_COLUMNS } from './io/telemetry/columns.js';
 export { nmeaChecksum } from './io/telemetry/nmea.js';
 export { localPlane, projectLatLon, reprojectPlane, type GeoOrigin, type LocalPlane } from './io/telemetry/geo.js';

@@ -6,7 +6,8 @@ import { InputError } from '../errors.js';
 import { numberCell, parseCsvTable } from '../io/csv-table.js';
 import { TRACK_COLUMNS } from '../io/track-csv.js';
 import { sniffDialect } from '../io/telemetry/csv.js';
-import { bindColumns } from '../io/telemetry/columns.js';
+import { bindColumns, type ColumnBinding } from '../io/telemetry/columns.js';
+import { MISSING_CELLS } from '../io/telemetry/pipeline.js';
 
 /** Problems found, one line each, and notes that are not problems (repeated time stamps). */
 export interface CellProblems {
@@ -48,39 +49,30 @@ export function centrelineCellProblems(text: string, source: string): CellProble
   return { problems, notes: [] };
 }
 
-const MISSING = new Set(['', 'nan', 'na', 'n/a', 'null', '-', '--']);
-
 /** Every non-numeric cell in a recognised channel of a telemetry CSV, every backwards step of time, and repeats. */
 export function telemetryCellProblems(text: string, source: string): CellProblems {
   const problems: string[] = [];
   const notes: string[] = [];
   let dialect;
-  let records: { record: string[]; info: { lines: number } }[];
-  try {
-    dialect = sniffDialect(text.slice(0, 65536), source);
-    records = parse(text, { delimiter: dialect.delimiter, bom: true, from_line: dialect.headerLine, relax_column_count: true, relax_quotes: true, skip_empty_lines: true, info: true }) as unknown as typeof records;
-  } catch (error) {
-    if (error instanceof InputError) return { problems: [error.message], notes };
-    return { problems: [`${source}: cannot read as CSV: ${error instanceof Error ? error.message.split('\n')[0] : String(error)}`], notes };
-  }
-  if (records.length === 0) return { problems: [`${source}: empty file (no header)`], notes };
-  const headers = records[0]!.record.map((cell, index) => (index === 0 ? cell.replace(/^\uFEFF/, '').replace(/^\s*#\s*/, '') : cell).trim());
-  let bindings;
-  try {
-    bindings = bindColumns(headers, {}, source).bindings;
-  } catch (error) {
-    return { problems: [messageOf(error)], notes };
-  }
-  const time = bindings.find((binding) => binding.quantity === 'time');
+  let headers: string[] | null = null;
+  let bindings: ColumnBinding[] = [];
+  let time: ColumnBinding | undefined;
   let previousTime = NaN;
   let repeats = 0;
   let firstRepeatLine = 0;
-  for (const { record, info } of records.slice(1)) {
-    const line = info.lines;
+  // Each record is checked as csv-parse reads it and then dropped, so a log of a hundred megabytes is not held
+  // twice over as rows of strings.
+  const check = (record: string[], line: number): void => {
+    if (headers === null) {
+      headers = record.map((cell, index) => (index === 0 ? cell.replace(/^\uFEFF/, '').replace(/^\s*#\s*/, '') : cell).trim());
+      bindings = bindColumns(headers, {}, source).bindings;
+      time = bindings.find((binding) => binding.quantity === 'time');
+      return;
+    }
     for (const binding of bindings) {
       const cell = (record[binding.index] ?? '').trim();
-      if (MISSING.has(cell.toLowerCase())) continue;
-      const value = Number(dialect.decimalComma ? cell.replace(',', '.') : cell);
+      if (MISSING_CELLS.has(cell.toLowerCase())) continue;
+      const value = Number(dialect!.decimalComma ? cell.replace(',', '.') : cell);
       if (!Number.isFinite(value)) {
         problems.push(`${source}: line ${line}, column ${binding.header}: '${cell.length > 40 ? `${cell.slice(0, 40)}...` : cell}' is not a number`);
         continue;
@@ -91,7 +83,21 @@ export function telemetryCellProblems(text: string, source: string): CellProblem
         previousTime = value;
       }
     }
+  };
+  try {
+    dialect = sniffDialect(text.slice(0, 65536), source);
+    parse(text, {
+      delimiter: dialect.delimiter, bom: true, from_line: dialect.headerLine, relax_column_count: true, relax_quotes: true, skip_empty_lines: true,
+      on_record: (record: string[], context: { lines: number }) => {
+        check(record, context.lines);
+        return null;
+      },
+    });
+  } catch (error) {
+    if (error instanceof InputError) return { problems: [error.message], notes };
+    return { problems: [`${source}: cannot read as CSV: ${error instanceof Error ? error.message.split('\n')[0] : String(error)}`], notes };
   }
+  if (headers === null) return { problems: [`${source}: empty file (no header)`], notes };
   if (repeats > 0) notes.push(`${repeats} row${repeats > 1 ? 's repeat' : ' repeats'} the time stamp of the row before (first at line ${firstRepeatLine})`);
   return { problems, notes };
 }

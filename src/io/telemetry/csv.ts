@@ -1,15 +1,15 @@
 // Telemetry CSV: dialect sniffed from the head of the file (separator, decimal comma, a '#'-prefixed header),
-// tokenised by csv-parse, and streamed so that only the recognised numeric channels are kept, each in a
-// growable Float64Array.
+// tokenised by csv-parse (streamed from a file), and every record handed to the shared row pipeline; the
+// session reader is the pipeline's consumer that keeps every chunk.
 
 import { createReadStream } from 'node:fs';
+import { stat } from 'node:fs/promises';
 import { parse as parseStream, type Options } from 'csv-parse';
 import { parse as parseSync } from 'csv-parse/sync';
 import { InputError } from '../../errors.js';
 import type { TelemetrySession } from '../../compare/types.js';
-import { bindColumns, type ColumnBinding, type Quantity } from './columns.js';
-import { GrowableFloat64 } from './growable.js';
-import { buildSession, type RawChannel } from './session.js';
+import { HeldTooLong, RowPipeline } from './pipeline.js';
+import { SessionAssembler } from './session.js';
 
 export interface CsvDialect {
   delimiter: string;
@@ -17,8 +17,6 @@ export interface CsvDialect {
   /** 1-based line of the header. */
   headerLine: number;
 }
-
-const MISSING = new Set(['', 'nan', 'na', 'n/a', 'null', '-', '--']);
 
 /** Reads the separator, the decimal mark and the header's line from the first lines of the file. */
 export function sniffDialect(head: string, source: string): CsvDialect {
@@ -60,91 +58,6 @@ function looksNumeric(line: string): boolean {
   return first !== '' && Number.isFinite(Number(first));
 }
 
-/** Collects rows into channel buffers; the first record is the header. */
-class CsvCollector {
-  private bindings: ColumnBinding[] = [];
-  private buffers: GrowableFloat64[] = [];
-  private headers: string[] = [];
-  private ignored: string[] = [];
-  private rows = 0;
-  private firstDataLine = 0;
-  private readonly lineOfRow: number[] = [];
-
-  constructor(
-    private readonly source: string,
-    private readonly dialect: CsvDialect,
-    private readonly mapping: Record<string, string>,
-  ) {}
-
-  private records = 0;
-
-  /** One parsed record; its line is counted here (blank lines arrive as one empty field). */
-  record(cells: string[]): void {
-    const line = this.dialect.headerLine + this.records++;
-    if (cells.length === 1 && cells[0]!.trim() === '') return;
-    if (this.headers.length === 0) {
-      const headers = cells.map((cell, index) => (index === 0 ? cell.replace(/^\uFEFF/, '').replace(/^\s*#\s*/, '') : cell).trim());
-      this.headers = headers;
-      const { bindings, ignored } = bindColumns(headers, this.mapping, this.source);
-      this.bindings = bindings;
-      this.ignored = ignored;
-      this.buffers = bindings.map(() => new GrowableFloat64());
-      return;
-    }
-    if (this.rows === 0) this.firstDataLine = line;
-    // Lines are recorded only when they stop following rows one to one (blank lines, quoted line breaks).
-    if (this.lineOfRow.length > 0 || line !== this.firstDataLine + this.rows) {
-      if (this.lineOfRow.length === 0) for (let r = 0; r < this.rows; r++) this.lineOfRow.push(this.firstDataLine + r);
-      this.lineOfRow.push(line);
-    }
-    const decimalComma = this.dialect.decimalComma;
-    for (let b = 0; b < this.bindings.length; b++) {
-      const binding = this.bindings[b]!;
-      const cell = cells[binding.index];
-      let value: number;
-      if (cell === undefined || cell.length === 0) value = NaN;
-      else {
-        // Number() trims white space itself; only a failed parse looks further (missing-value markers, text).
-        value = Number(decimalComma ? cell.replace(',', '.') : cell);
-        if (value === 0 && cell.trim() === '') value = NaN;
-        else if (!Number.isFinite(value)) {
-          if (!MISSING.has(cell.trim().toLowerCase())) {
-            const shown = cell.length > 40 ? `${cell.slice(0, 40)}...` : cell;
-            throw new InputError(`${this.source}: line ${line}, column ${binding.header}: '${shown}' is not a number`);
-          }
-          value = NaN;
-        }
-      }
-      this.buffers[b]!.push(value);
-    }
-    this.rows++;
-  }
-
-  finish(notes: string[]): TelemetrySession {
-    if (this.headers.length === 0) throw new InputError(`${this.source}: empty file (no header)`);
-    if (this.rows === 0) {
-      const listed = this.headers.join(', ');
-      const shown = listed.length > 200 ? `${listed.slice(0, 200)}... (${this.headers.length} columns)` : listed;
-      throw new InputError(`${this.source}: header only, no data rows (header: ${shown})`);
-    }
-    const channels = new Map<Quantity, RawChannel>();
-    this.bindings.forEach((binding, b) => {
-      channels.set(binding.quantity, { values: this.buffers[b]!.toArray(), header: binding.header, scale: binding.scale });
-    });
-    if (this.ignored.length > 0) notes.push(`columns not used: ${this.ignored.join(', ')}`);
-    if (this.dialect.decimalComma) notes.push('decimal commas read');
-    const lineOfRow = this.lineOfRow;
-    const firstDataLine = this.firstDataLine;
-    return buildSession({
-      source: this.source,
-      channels,
-      placeOfSample: (index) => `line ${lineOfRow.length > 0 ? lineOfRow[index] : firstDataLine + index}`,
-      found: this.headers,
-      notes,
-    });
-  }
-}
-
 function parserOptions(dialect: CsvDialect): Options {
   return {
     delimiter: dialect.delimiter,
@@ -159,37 +72,39 @@ function parserOptions(dialect: CsvDialect): Options {
 
 /** Wraps csv-parse's own errors (unclosed quotes and the like) as one-line input errors; passes ours through. */
 function asInputError(error: unknown, source: string): Error {
-  if (error instanceof InputError) return error;
+  if (error instanceof InputError || error instanceof HeldTooLong) return error;
   const cause = (error as { cause?: unknown }).cause;
   if (cause instanceof InputError) return cause;
   const message = error instanceof Error ? error.message.split('\n')[0] : String(error);
   return new InputError(`${source}: cannot read as CSV: ${message}`);
 }
 
-export function parseCsvText(text: string, source: string, mapping: Record<string, string>): TelemetrySession {
-  const dialect = sniffDialect(text.slice(0, 65536), source);
-  const collector = new CsvCollector(source, dialect, mapping);
+/** Hands every record of the text to `record` as csv-parse reads it, keeping none (the text is memory enough). */
+export function feedCsvText(text: string, source: string, dialect: CsvDialect, record: (cells: string[]) => void): void {
   try {
-    for (const record of parseSync(text, parserOptions(dialect)) as string[][]) collector.record(record);
+    parseSync(text, {
+      ...parserOptions(dialect),
+      on_record: (cells: string[]) => {
+        record(cells);
+        return null;
+      },
+    });
   } catch (error) {
     throw asInputError(error, source);
   }
-  return collector.finish([]);
 }
 
-/** Streams the file through csv-parse; `head` is the file's first bytes, already read for sniffing. */
-export async function readCsvFile(file: string, head: string, mapping: Record<string, string>): Promise<TelemetrySession> {
-  const dialect = sniffDialect(head, file);
-  const collector = new CsvCollector(file, dialect, mapping);
+/** Streams the file's records through csv-parse to `record`; an error thrown by `record` ends the read. */
+export async function feedCsvFile(file: string, dialect: CsvDialect, record: (cells: string[]) => void): Promise<void> {
   const parser = parseStream(parserOptions(dialect));
   try {
     const input = createReadStream(file, { highWaterMark: 1 << 20 });
     await new Promise<void>((resolve, reject) => {
       input.on('error', reject);
       parser.on('error', reject);
-      parser.on('data', (record: string[]) => {
+      parser.on('data', (cells: string[]) => {
         try {
-          collector.record(record);
+          record(cells);
         } catch (error) {
           input.destroy();
           parser.destroy();
@@ -202,5 +117,50 @@ export async function readCsvFile(file: string, head: string, mapping: Record<st
   } catch (error) {
     throw asInputError(error, file);
   }
-  return collector.finish([]);
+}
+
+function sessionPipeline(source: string, dialect: CsvDialect, mapping: Record<string, string>, assembler: SessionAssembler): RowPipeline {
+  return new RowPipeline({
+    source,
+    headerLine: dialect.headerLine,
+    decimalComma: dialect.decimalComma,
+    mapping,
+    decided: null,
+    scan: null,
+    mode: 'read',
+    // The session holds every row anyway; rows held for a gap are no extra.
+    maxHeldChunks: Infinity,
+    skipRows: 0,
+    sink: (chunk, layout) => assembler.add(chunk, layout),
+  });
+}
+
+/**
+ * Rows a file of `totalLength` probably holds, from the line length in its head, with 2 % to spare. Later rows
+ * are usually a little longer (time stamps gain digits), so this errs on the high side.
+ */
+function expectedRows(head: string, totalLength: number): number {
+  let lines = 0;
+  for (let i = head.indexOf('\n'); i >= 0; i = head.indexOf('\n', i + 1)) lines++;
+  if (lines === 0 || head.length === 0) return 0;
+  return (totalLength / (head.length / lines)) * 1.02;
+}
+
+export function parseCsvText(text: string, source: string, mapping: Record<string, string>): TelemetrySession {
+  const head = text.slice(0, 65536);
+  const dialect = sniffDialect(head, source);
+  const assembler = new SessionAssembler(source, expectedRows(head, text.length));
+  const pipeline = sessionPipeline(source, dialect, mapping, assembler);
+  feedCsvText(text, source, dialect, (cells) => pipeline.record(cells));
+  return assembler.finish(pipeline.finish());
+}
+
+/** Streams the file through the row pipeline into a session; `head` is the file's first bytes, already read for sniffing. */
+export async function readCsvFile(file: string, head: string, mapping: Record<string, string>): Promise<TelemetrySession> {
+  const dialect = sniffDialect(head, file);
+  // The head is text and the size bytes: the same for ASCII logs, which nearly all are.
+  const assembler = new SessionAssembler(file, expectedRows(head, (await stat(file)).size));
+  const pipeline = sessionPipeline(file, dialect, mapping, assembler);
+  await feedCsvFile(file, dialect, (cells) => pipeline.record(cells));
+  return assembler.finish(pipeline.finish());
 }
