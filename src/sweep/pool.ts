@@ -30,6 +30,9 @@ export interface RunOptions {
   onProgress?: (doneRuns: number, totalRuns: number) => void;
 }
 
+/** Each run allocates its traces afresh; a roomier young generation means fewer scavenges competing for the cores. */
+const WORKER_YOUNG_GENERATION_MB = 64;
+
 export function defaultWorkerCount(): number {
   return availableParallelism();
 }
@@ -95,7 +98,7 @@ export async function runSetups(context: SweepContext, values: Float64Array, fir
       worker.postMessage(task, [task.values.buffer as ArrayBuffer]);
     };
     for (let w = 0; w < workerCount; w++) {
-      const worker = new Worker(url, { workerData: context });
+      const worker = new Worker(url, { workerData: context, resourceLimits: { maxYoungGenerationSizeMb: WORKER_YOUNG_GENERATION_MB } });
       workers.push(worker);
       worker.on('message', (reply: WorkerReply) => {
         if (reply.out === undefined) {
