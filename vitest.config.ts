@@ -4,6 +4,7 @@ export default defineConfig({
   test: {
     include: ['test/**/*.test.ts'],
     globalSetup: ['test/global-setup.ts'],
+    reporters: ['default', './test/plain-summary-reporter.ts'],
     testTimeout: 60_000,
     hookTimeout: 120_000,
     pool: 'forks',
