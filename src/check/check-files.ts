@@ -37,18 +37,12 @@ function inputMessage(error: unknown): string {
   throw error;
 }
 
-/** The car reader joins every schema issue with '; ' after the file name: one problem each. */
-function carProblems(text: string, source: string): string[] {
-  try {
-    parseCarJson(text, source);
-    return [];
-  } catch (error) {
-    const message = inputMessage(error);
-    const prefix = `${source}: `;
-    const body = message.startsWith(prefix) ? message.slice(prefix.length) : message;
-    if (body.startsWith('not valid JSON')) return [message];
-    return body.split('; ').map((part) => prefix + part);
-  }
+/** The JSON readers join every schema issue with '; ' on one line: one problem each. */
+function splitProblems(message: string, source: string): string[] {
+  const prefix = `${source}: `;
+  const body = message.startsWith(prefix) ? message.slice(prefix.length) : message;
+  if (body.includes('not valid JSON')) return [message];
+  return body.split('; ').map((part) => (part.startsWith(prefix) ? part : prefix + part));
 }
 
 function sessionSummary(kind: FileKind, session: TelemetrySession): string {
@@ -73,7 +67,11 @@ export function checkText(text: string, source: string): FileCheck {
     return result;
   }
   if (kind === 'car') {
-    result.problems = carProblems(text, source);
+    try {
+      parseCarJson(text, source);
+    } catch (error) {
+      result.problems = splitProblems(inputMessage(error), source);
+    }
     if (result.problems.length === 0) result.summary = KIND_LABELS.car;
     return result;
   }
@@ -84,7 +82,8 @@ export function checkText(text: string, source: string): FileCheck {
         const track = parseTrackText(text, source, TRACK_DEFAULTS);
         result.summary = `${KIND_LABELS[kind]}: ${track.closed ? 'closed' : 'open'} track, ${track.lengthM.toFixed(0)} m`;
       } catch (error) {
-        result.problems.push(inputMessage(error));
+        const message = inputMessage(error);
+        result.problems.push(...(kind === 'track-json' ? splitProblems(message, source) : [message]));
       }
     }
     result.problems = capped(result.problems, source);

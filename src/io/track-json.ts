@@ -36,8 +36,7 @@ function fieldPath(parts: PropertyKey[]): string {
 }
 
 /** The first zod issue as "source: field: message". */
-function zodMessage(error: z.ZodError, source: string): string {
-  const issue = error.issues[0];
+function issueMessage(issue: z.core.$ZodIssue, source: string): string {
   const where = fieldPath(issue.path);
   const prefix = where ? `${source}: ${where}` : source;
   if (issue.code === 'unrecognized_keys') {
@@ -48,6 +47,11 @@ function zodMessage(error: z.ZodError, source: string): string {
     return `${prefix}: kind must be one of straight, arc, transition`;
   }
   return `${prefix}: ${issue.message}`;
+}
+
+/** Every schema problem, each naming the file and the field, joined by '; ' on the one line. */
+function zodMessage(error: z.ZodError, source: string): string {
+  return error.issues.map((issue) => issueMessage(issue, source)).join('; ');
 }
 
 /** "line L, column C" for a JSON.parse message that gives a position. */

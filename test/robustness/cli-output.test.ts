@@ -112,6 +112,18 @@ describe('reflap check', () => {
     expect(run.stdout).toContain(`${car}: ok`);
   });
 
+  it('lists every schema problem of a segment track, not only the first', () => {
+    const file = join(folder, 'track-three-problems.json');
+    // An unknown key, a negative radius and a segment kind that does not exist: three problems, one line each.
+    writeFileSync(file, JSON.stringify({ name: 'x', closed: true, widthM: 10, sgements: [], segments: [{ kind: 'arc', radiusM: -5, angleDeg: 90 }, { kind: 'spiral', lengthM: 10 }] }));
+    const run = runCli(['check', file]);
+    expectBadInput(run);
+    const problems = run.stdout.split('\n').filter((line) => line.startsWith(`  ${file}: `));
+    expect(problems).toHaveLength(3);
+    expect(run.stdout).toMatch(/unknown key 'sgements'/);
+    expect(run.stdout).toMatch(/segments\[0\]\.radiusM|segments\.0\.radiusM/);
+  });
+
   it('a file that does not exist is a problem of that file', () => {
     const run = runCli(['check', join(folder, 'missing.csv')]);
     expectBadInput(run);
