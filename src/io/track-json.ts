@@ -36,22 +36,22 @@ function fieldPath(parts: PropertyKey[]): string {
 }
 
 /** The first zod issue as "source: field: message". */
-function issueMessage(issue: z.core.$ZodIssue, source: string): string {
+function issueMessage(issue: z.core.$ZodIssue): string {
   const where = fieldPath(issue.path);
-  const prefix = where ? `${source}: ${where}` : source;
+  const prefix = where ? `${where}: ` : '';
   if (issue.code === 'unrecognized_keys') {
     const keys = issue.keys.map((key) => `'${key}'`).join(', ');
-    return `${prefix}: unknown key${issue.keys.length > 1 ? 's' : ''} ${keys}`;
+    return `${prefix}unknown key${issue.keys.length > 1 ? 's' : ''} ${keys}`;
   }
   if (issue.code === 'invalid_union' && where.endsWith('kind') === false && issue.path.length > 0) {
-    return `${prefix}: kind must be one of straight, arc, transition`;
+    return `${prefix}kind must be one of straight, arc, transition`;
   }
-  return `${prefix}: ${issue.message}`;
+  return `${prefix}${issue.message}`;
 }
 
-/** Every schema problem, each naming the file and the field, joined by '; ' on the one line. */
+/** Every schema problem after the file's name, each naming its field, joined by '; ' on the one line. */
 function zodMessage(error: z.ZodError, source: string): string {
-  return error.issues.map((issue) => issueMessage(issue, source)).join('; ');
+  return `${source}: ${error.issues.map(issueMessage).join('; ')}`;
 }
 
 /** "line L, column C" for a JSON.parse message that gives a position. */
