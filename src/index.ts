@@ -63,7 +63,10 @@ export { streamTelemetryCsv, CHUNK_ROWS, type TelemetryChunk, type TelemetryStre
 export { CANONICAL_COLUMNS } from './io/telemetry/columns.js';
 export { nmeaChecksum } from './io/telemetry/nmea.js';
 export { localPlane, projectLatLon, reprojectPlane, type GeoOrigin, type LocalPlane } from './io/telemetry/geo.js';
-export { cutLaps, placeSession, MATCH_LIMIT_M, MIN_COVERAGE, type LapCut, type CutOptions, type PlacedSession } from './compare/laps.js';
+export { cutLaps, type LapCut } from './compare/laps.js';
+export { type CutOptions } from './compare/lap-crossings.js';
+export { placeSession, MATCH_LIMIT_M, type PlacedSession } from './compare/place-session.js';
+export { MIN_COVERAGE } from './compare/lap-coverage.js';
 export { alignLap, selectLap, type SelectOptions } from './compare/align.js';
 export { axFromSpeed, pathCurvature, speedFromPositions } from './compare/derive.js';
 export { projectPath, projectGlobal, fitRigidToCentreline, applyRigid, type PathProjection, type PointProjection, type RigidTransform } from './track/project.js';
@@ -80,7 +83,9 @@ export { checkTransient, type TransientCheck, type TransientOptions, type Satura
 // The comparison of a driver's lap with the reference: corners, delta, findings, the demonstrated envelope, the demo driver.
 export type { ComparisonResult, CornerComparison, Finding, GripStretch } from './compare/types.js';
 // Named compareDriverLap here: compareLaps is already the setup-change comparison of src/sweep.
-export { compareLaps as compareDriverLap, estimatedPedal, DEFAULT_COMPARE_OPTIONS, type CompareOptions } from './compare/compare-laps.js';
+export { compareLaps as compareDriverLap } from './compare/compare-laps.js';
+export { DEFAULT_COMPARE_OPTIONS, type CompareOptions } from './compare/compare-options.js';
+export { estimatedPedal } from './compare/estimated-pedal.js';
 export { compareSession, envelopeSamplesOf, type CompareSessionOptions, type SessionComparison } from './compare/compare-session.js';
 export { detectCorners, DEFAULT_CORNER_OPTIONS, type CornerSpan, type CornerDetectionOptions } from './compare/corners.js';
 export { timeDeltaS, clockAt, distanceAsTimeS } from './compare/delta.js';

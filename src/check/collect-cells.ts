@@ -7,7 +7,7 @@ import { numberCell, parseCsvTable } from '../io/csv-table.js';
 import { TRACK_COLUMNS } from '../io/track-csv.js';
 import { sniffDialect } from '../io/telemetry/csv.js';
 import { bindColumns, type ColumnBinding } from '../io/telemetry/columns.js';
-import { MISSING_CELLS } from '../io/telemetry/pipeline.js';
+import { MISSING_CELLS } from '../io/telemetry/cell-value.js';
 
 /** Problems found, one line each, and notes that are not problems (repeated time stamps). */
 export interface CellProblems {

@@ -7,7 +7,9 @@ import { InputError } from '../errors.js';
 import type { TrackGrid } from '../track/types.js';
 import { formatLapTime } from '../units.js';
 import type { DriverLap, TelemetrySession } from './types.js';
-import { cutLaps, placeSession, sessionDistance, type LapCut } from './laps.js';
+import { cutLaps, type LapCut } from './laps.js';
+import { placeSession } from './place-session.js';
+import { sessionDistance } from './session-distance.js';
 import { axFromSpeed, ayFromCurvature, correlation, curvatureTooNoisy, pathCurvature, speedFromPositions } from './derive.js';
 
 export interface SelectOptions {

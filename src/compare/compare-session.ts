@@ -11,7 +11,8 @@ import { buildEnvelope } from '../car/build-envelope.js';
 import { demonstratedEnvelope, type DemonstratedEnvelopeRecord } from '../car/demonstrated-envelope.js';
 import { simulate } from '../solve/simulate.js';
 import { selectLap } from './align.js';
-import { compareLaps, type CompareOptions } from './compare-laps.js';
+import { compareLaps } from './compare-laps.js';
+import type { CompareOptions } from './compare-options.js';
 import { fitEnvelope, EnvelopeFitError, type EnvelopeSamples } from './envelope-fit.js';
 
 export interface CompareSessionOptions {

@@ -87,3 +87,6 @@ export function deviationRoom(result: LapResult, car: Car, fixedLimitM: number |
   }
   return { leftM, rightM, source: halfCarM > 0 ? 'track width less half the car' : 'track width' };
 }
+
+/** The reference lap as the transient check reads it: the driver's lookup, the lap's end and the room to each edge. */
+export type TransientReference = ReturnType<typeof referenceLookup>;

@@ -147,3 +147,9 @@ function recogniseHeaderUnit(header: string, quantity: Quantity): number | null 
   const recognised = recogniseHeader(header);
   return recognised && recognised.quantity === quantity ? recognised.scale : null;
 }
+
+/** The file's headers for a message, cut short past 200 characters. */
+export function listedHeaders(headers: string[]): string {
+  const text = headers.join(', ');
+  return text.length > 200 ? `${text.slice(0, 200)}... (${headers.length} columns)` : text;
+}

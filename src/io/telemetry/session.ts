@@ -5,7 +5,8 @@
 import type { TelemetrySession } from '../../compare/types.js';
 import { channelArrays, CHANNELS, CHUNK_ROWS, type TelemetryChannel, type TelemetryChunk } from './chunk.js';
 import { localPlane, projectLatLon } from './geo.js';
-import { composeNotes, type PipelineResult } from './pipeline.js';
+import type { PipelineResult } from './pipeline.js';
+import { composeNotes } from './read-notes.js';
 import { applyFactor, projectInPlace, UnitEvidence, type ChannelLayout, type DecidedUnits } from './units-from-data.js';
 
 /**

@@ -7,7 +7,10 @@ import { InputError } from '../../errors.js';
 import type { TelemetryChunk, TelemetryStreamSummary } from './chunk.js';
 import { feedCsvFile, sniffDialect, type CsvDialect } from './csv.js';
 import { readTelemetryHead, sniffTelemetryFormat } from './format.js';
-import { composeNotes, HeldTooLong, RowPipeline, type ChunkSink, type ColumnScan, type PipelineResult } from './pipeline.js';
+import type { ChunkSink } from './chunk-delivery.js';
+import type { ColumnScan } from './gap-fill.js';
+import { HeldTooLong, RowPipeline, type PipelineResult } from './pipeline.js';
+import { composeNotes } from './read-notes.js';
 import { UnitEvidence, type DecidedUnits } from './units-from-data.js';
 
 /** Chunks held back for an open gap before the reader scans the file for its long gaps (16 x 8,192 rows). */

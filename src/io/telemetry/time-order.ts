@@ -1,0 +1,20 @@
+// The time column of a telemetry read, row by row: scaled to seconds in place and checked to be present and never
+// running backwards; the first problem is kept, to be reported once the documented checks before it have run.
+
+/** Time order of the rows read so far. */
+export class TimeOrder {
+  /** The first row whose time is empty or earlier than the one before it, as a one-line message. */
+  error: string | null = null;
+  firstTimeS = NaN;
+  previousTimeS = NaN;
+
+  /** Row `r` of the time column `values`, in the file's unit until `scale` takes it to seconds; `place` names it. */
+  check(values: Float64Array, r: number, scale: number, place: string, firstRow: boolean): void {
+    const timeS = values[r]! * scale;
+    values[r] = timeS;
+    if (Number.isNaN(timeS)) this.error = `${place}: empty time`;
+    else if (timeS < this.previousTimeS) this.error = `${place}: time runs backwards (${timeS} after ${this.previousTimeS})`;
+    if (firstRow) this.firstTimeS = timeS;
+    this.previousTimeS = timeS;
+  }
+}
