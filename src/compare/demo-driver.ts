@@ -7,7 +7,7 @@ import type { LapResult } from '../solve/types.js';
 import type { TrackGrid } from '../track/types.js';
 import { localPlane } from '../io/telemetry/geo.js';
 import { detectCorners, type CornerSpan } from './corners.js';
-import { STANDARD_GRAVITY_MPS2 } from '../units.js';
+import { STANDARD_GRAVITY_MPS2, mpsToKph, kphToMps } from '../units.js';
 
 export interface DemoFault {
   kind: 'early-braking' | 'late-hard-braking' | 'coasting' | 'early-lift';
@@ -80,7 +80,7 @@ export function demoDriverLap(track: TrackGrid, reference: LapResult, envelope: 
   if (braked[1]) {
     // Too late and too hard: 12 m after the reference, 15 % beyond the car's braking limit, slowing 8 km/h too far.
     const { corner, zone } = braked[1];
-    const floor = zone.minSpeedMps * PACE - 8 / 3.6;
+    const floor = zone.minSpeedMps * PACE - kphToMps(8);
     const end = lateBraking(speed, zone.startIndex, unwrapAfter(zone.minSpeedIndex, zone.startIndex, n), Math.round(12 / step), (v) => 1.15 * envelope.brakeLimitMps2(v, 0), floor, step, n);
     recoverFrom(speed, end, envelope, track, n);
     note('late-hard-braking', corner);
@@ -264,7 +264,7 @@ export function demoLogCsv(track: TrackGrid, lap: DemoDriverLap, options: DemoLo
         (t - t0).toFixed(3),
         geo[0]!.toFixed(7),
         geo[1]!.toFixed(7),
-        (v * 3.6 + 0.3 * gaussian()).toFixed(2),
+        (mpsToKph(v) + 0.3 * gaussian()).toFixed(2),
         throttlePct.toFixed(1),
         brakePct.toFixed(1),
         (ax / STANDARD_GRAVITY_MPS2 + 0.02 * gaussian()).toFixed(3),

@@ -2,6 +2,7 @@
 // cause first with its numbers and the time at stake, ranked by that time so the biggest opportunity leads.
 
 import type { CornerComparison, Finding } from './types.js';
+import { mpsToKph } from '../units.js';
 
 export interface FindingOptions {
   /** How many findings to keep. */
@@ -39,7 +40,7 @@ export function cornerLabel(corner: Pick<CornerComparison, 'id' | 'name'>): stri
 function brakingSpeedKph(corner: CornerComparison): number {
   const m = corner.brakingPointDeltaM;
   const s = corner.brakingPointDeltaS;
-  return m !== null && s !== null && Math.abs(s) > 1e-9 ? (m / s) * 3.6 : corner.entrySpeedReferenceKph;
+  return m !== null && s !== null && Math.abs(s) > 1e-9 ? mpsToKph(m / s) : corner.entrySpeedReferenceKph;
 }
 
 /** The clauses that describe a corner, most telling first. */

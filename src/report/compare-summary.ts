@@ -3,7 +3,7 @@
 
 import type { ComparisonResult, CornerComparison, DriverLap } from '../compare/types.js';
 import type { LapResult } from '../solve/types.js';
-import { formatLapTime } from '../units.js';
+import { formatLapTime, mpsToKph } from '../units.js';
 import { formatTable } from './text-table.js';
 import { round, SAFETY_CAUTION } from './lap-summary.js';
 
@@ -131,8 +131,8 @@ export function alignedTracesCsv(result: ComparisonResult, reference: LapResult,
         fixed(driver.timeS[i], 4),
         fixed(t.timeS[i], 4),
         fixed(result.deltaS[i], 4),
-        fixed(driver.speedMps[i]! * 3.6, 2),
-        fixed(t.speedMps[i]! * 3.6, 2),
+        fixed(mpsToKph(driver.speedMps[i]!), 2),
+        fixed(mpsToKph(t.speedMps[i]!), 2),
         driver.throttle ? fixed(driver.throttle[i], 3) : '',
         fixed(t.throttle[i], 3),
         driver.brake ? fixed(driver.brake[i], 3) : '',

@@ -1,6 +1,7 @@
 // The reference lap as a CSV trace, one row per grid sample. The same columns read back as telemetry.
 
 import type { LapResult } from '../solve/types.js';
+import { mpsToKph } from '../units.js';
 
 export interface ExtraColumn {
   name: string;
@@ -21,7 +22,7 @@ export function traceCsv(result: LapResult, extraColumns: ExtraColumn[] = []): s
       fixed(t.distanceM[i]!, 3),
       fixed(t.timeS[i]!, 4),
       fixed(t.speedMps[i]!, 4),
-      fixed(t.speedMps[i]! * 3.6, 3),
+      fixed(mpsToKph(t.speedMps[i]!), 3),
       fixed(t.axMps2[i]!, 4),
       fixed(t.ayMps2[i]!, 4),
       fixed(t.curvaturePerM[i]!, 6),

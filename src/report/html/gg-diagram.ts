@@ -3,7 +3,7 @@
 // the driver demonstrated.
 
 import type { Envelope } from '../../car/envelope.js';
-import { STANDARD_GRAVITY_MPS2 } from '../../units.js';
+import { STANDARD_GRAVITY_MPS2, mpsToKph, kphToMps } from '../../units.js';
 import { escapeHtml } from './escape.js';
 import { strideIndices } from './downsample.js';
 import { coord, linearScale, niceTicks, quantileOf } from './scale.js';
@@ -42,8 +42,8 @@ export function envelopeBoundaryG(envelope: Envelope, speedMps: number): Array<[
 
 /** Speeds for the boundaries: slow, middle and fast parts of this lap, rounded to 10 km/h. */
 export function boundarySpeedsKph(model: ReportModel): number[] {
-  const topKph = model.input.reference.maxSpeedMps * 3.6;
-  const lowKph = model.input.reference.minSpeedMps * 3.6;
+  const topKph = mpsToKph(model.input.reference.maxSpeedMps);
+  const lowKph = mpsToKph(model.input.reference.minSpeedMps);
   const picks = [lowKph + 0.1 * (topKph - lowKph), (lowKph + topKph) / 2, topKph * 0.95].map((v) => Math.max(10, Math.round(v / 10) * 10));
   return [...new Set(picks)];
 }
@@ -57,7 +57,7 @@ export function ggFrame(model: ReportModel): { frame: GgFrame; maxG: number } {
   if (model.driver) maxG = Math.max(maxG, quantileOf([model.driver.axG, model.driver.ayG], 0.995, true) || 0);
   const envelope = model.input.envelope;
   for (const speed of boundarySpeedsKph(model)) {
-    for (const [a, b] of envelopeBoundaryG(envelope, speed / 3.6)) maxG = Math.max(maxG, Math.abs(a), Math.abs(b));
+    for (const [a, b] of envelopeBoundaryG(envelope, kphToMps(speed))) maxG = Math.max(maxG, Math.abs(a), Math.abs(b));
   }
   maxG = Math.min(6, Math.ceil(maxG * 1.08 * 4) / 4);
   const plotSize = GG_SIZE - 2 * PAD;
@@ -77,7 +77,7 @@ function dotsPath(ax: Float64Array, ay: Float64Array, frame: GgFrame, colour: st
 }
 
 function boundaryPath(envelope: Envelope, speedKph: number, frame: GgFrame, colour: string, dash: string | null): string {
-  const points = envelopeBoundaryG(envelope, speedKph / 3.6);
+  const points = envelopeBoundaryG(envelope, kphToMps(speedKph));
   const d = points.map(([lat, lon], k) => `${k ? 'L' : 'M'}${coord(frame.centreX + lat * frame.pxPerG)},${coord(frame.centreY - lon * frame.pxPerG)}`).join('') + 'Z';
   return `<path class="envelope" d="${d}" fill="none" stroke="${colour}" stroke-width="1" stroke-opacity="0.8"${dash ? ` stroke-dasharray="${dash}"` : ''}/>`;
 }

@@ -1,7 +1,7 @@
 // The report's HTML tables and lists: the lap summary, the per-corner table (or the reference's braking
 // zones when there is no driver) and the ranked findings. All input text goes through escapeHtml.
 
-import { formatLapTime } from '../../units.js';
+import { formatLapTime, mpsToKph } from '../../units.js';
 import { escapeHtml } from './escape.js';
 import type { ReportModel } from './model.js';
 
@@ -24,8 +24,8 @@ export function summaryHtml(model: ReportModel): string {
     tiles.push(tile('Gap to reference', `${signed(gap, 3)} s`, gap >= 0 ? 'driver slower' : 'driver faster'));
     if (result.demonstratedLapTimeS !== null) tiles.push(tile('On demonstrated grip', formatLapTime(result.demonstratedLapTimeS), 'driver’s own envelope'));
   }
-  tiles.push(tile('Top speed', `${(reference.maxSpeedMps * 3.6).toFixed(1)} km/h`, 'reference'));
-  tiles.push(tile('Lowest speed', `${(reference.minSpeedMps * 3.6).toFixed(1)} km/h`, 'reference'));
+  tiles.push(tile('Top speed', `${mpsToKph(reference.maxSpeedMps).toFixed(1)} km/h`, 'reference'));
+  tiles.push(tile('Lowest speed', `${mpsToKph(reference.minSpeedMps).toFixed(1)} km/h`, 'reference'));
   tiles.push(tile('Length', `${(reference.lengthM / 1000).toFixed(3)} km`, reference.track.closed ? 'closed circuit' : 'open stage'));
   return `<section class="summary" aria-label="Lap summary">${tiles.join('')}</section>`;
 }
@@ -69,8 +69,8 @@ function brakingZoneTableHtml(model: ReportModel): string {
       const zone = zones[index]!;
       return (
         `<tr class="corner-row" data-corner="${corner.id}" tabindex="0">${cornerCell(corner.id, corner.name)}` +
-        `<td>${fixed(zone.startM, 0)}</td><td>${fixed(zone.entrySpeedMps * 3.6, 1)}</td><td>${fixed(zone.brakingLengthM, 0)}</td>` +
-        `<td>${fixed(zone.minSpeedAtM, 0)}</td><td>${fixed(zone.minSpeedMps * 3.6, 1)}</td><td>${fixed(corner.exitM, 0)}</td></tr>`
+        `<td>${fixed(zone.startM, 0)}</td><td>${fixed(mpsToKph(zone.entrySpeedMps), 1)}</td><td>${fixed(zone.brakingLengthM, 0)}</td>` +
+        `<td>${fixed(zone.minSpeedAtM, 0)}</td><td>${fixed(mpsToKph(zone.minSpeedMps), 1)}</td><td>${fixed(corner.exitM, 0)}</td></tr>`
       );
     })
     .join('');
