@@ -40,6 +40,7 @@ describe('alignLap', () => {
     expect(lap.speedMps.every((speed) => Math.abs(speed - v) < 1e-9)).toBe(true);
     // Constant speed: no longitudinal acceleration; lateral = v^2 / R = 37.3^2 / 30 in the arcs (circular motion).
     expect(Math.max(...lap.axMps2.map(Math.abs))).toBeLessThan(1e-6);
+    // The first arc starts at 297.574 m (400 m less the 30 m and 72.426 m pieces laid out in test/fixtures/telemetry/tracks.ts).
     const arcMiddle = Math.round((297.574 + (30 * Math.PI) / 4) / track.stepM);
     expect(lap.ayMps2[arcMiddle]!).toBeCloseTo((v * v) / 30, -0.5);
     expect(lap.derivedChannels).toEqual(['axMps2', 'ayMps2']);

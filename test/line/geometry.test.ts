@@ -84,6 +84,7 @@ describe('corridor checks', () => {
 
   it('takes half the car width plus 0.3 m as the default margin', () => {
     expect(defaultMarginM({ ...testCar(), widthM: 1.8 })).toBeCloseTo(1.2, 12);
+    // Without a car width the margin is the stated default, 0.8 m.
     expect(defaultMarginM(testCar())).toBe(0.8);
   });
 });

@@ -161,6 +161,8 @@ describe('lap invariants', () => {
     const envelope = pointMassEnvelope(car, ambientFrom());
     for (let i = 0; i < lap.trace.count; i++) {
       expect(lap.trace.speedMps[i]).toBeLessThanOrEqual(lap.trace.cornerLimitMps[i]! + 1e-9);
+      // 2 %: the discretisation of one grid step where the lateral demand changes inside the step (the passes
+      // take each step's limit at one end); on the limit itself grip use is 1 by construction.
       expect(lap.trace.gripUse[i]).toBeLessThan(1.02);
       if (i > 0) expect(lap.trace.timeS[i]).toBeGreaterThan(lap.trace.timeS[i - 1]!);
       expect(Math.abs(lap.trace.ayMps2[i]!)).toBeLessThanOrEqual(envelope.lateralLimitMps2(lap.trace.speedMps[i]!, 1) * (1 + 1e-6));

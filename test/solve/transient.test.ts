@@ -21,6 +21,8 @@ describe('transient check', () => {
     const check = checkTransient(lap, car, { ambient });
     expect(check.completed).toBe(true);
     expect(check.drivable).toBe(true);
+    // 0.6 m: the turn-in transient from a standing start on the limit of the linear range (the stated "few
+    // centimetres" hold from half a lap on, next line); a bound chosen as a tenth of the 6 m half-width.
     expect(check.maxDeviationM).toBeLessThan(0.6);
     // After the first half lap the start transient has died away.
     for (let i = Math.floor(lap.trace.count / 2); i < lap.trace.count; i++) expect(Math.abs(check.lateralErrorM[i]!)).toBeLessThan(0.05);
@@ -120,7 +122,10 @@ describe('transient check', () => {
     const lap = simulate(narrow, car, { ambient });
     const check = checkTransient(lap, car, { ambient });
     expect(check.roomAtShareM).toBeCloseTo(0.2, 6);
-    if (check.completed && Math.abs(check.deviationAtShareM) > 0.2) expect(check.drivable).toBe(false);
+    // Followed at the limit, the car strays more than 0.2 m somewhere (the wide-track checks above see 1-3 m at
+    // the limit), so on this track it leaves the room: the verdict must say not drivable, whether or not it finished.
+    expect(Math.abs(check.deviationAtShareM)).toBeGreaterThan(0.2);
+    expect(check.drivable).toBe(false);
     expect(check.maxDeviationShare).toBeCloseTo(Math.abs(check.deviationAtShareM) / 0.2, 9);
   });
 
