@@ -38,7 +38,7 @@ export { ALL_FIELDS, CAR_FIELDS, AMBIENT_FIELDS, closestField, readCarField, wri
 export { parseSetting, parseVariation, applySetup, applySettings, variationValues, airInputsOf, type Setting, type Variation, type SetupBase, type AirInputs } from './sweep/settings.js';
 export { matchBrakingZones, signedLapShiftM } from './sweep/match-zones.js';
 export { brakingPointM } from './sweep/braking-point.js';
-export { compareLaps, type LapComparison, type ZoneChange } from './sweep/compare-laps.js';
+export { compareSetupChange, type LapComparison, type ZoneChange } from './sweep/compare-laps.js';
 export { planSweep, parseShard, shardRange, type SweepPlan, type SweepMode, type Shard } from './sweep/plan.js';
 export { runSweep, prepareSweep, type SweepInput, type SweepOutput } from './sweep/run-sweep.js';
 export { runSetups, runSetupsInProcess } from './sweep/pool.js';
@@ -82,8 +82,7 @@ export { checkTransient, type TransientCheck, type TransientOptions, type Satura
 
 // The comparison of a driver's lap with the reference: corners, delta, findings, the demonstrated envelope, the demo driver.
 export type { ComparisonResult, CornerComparison, Finding, GripStretch } from './compare/types.js';
-// Named compareDriverLap here: compareLaps is already the setup-change comparison of src/sweep.
-export { compareLaps as compareDriverLap } from './compare/compare-laps.js';
+export { compareLaps, compareLaps as compareDriverLap } from './compare/compare-laps.js';
 export { DEFAULT_COMPARE_OPTIONS, type CompareOptions } from './compare/compare-options.js';
 export { estimatedPedal } from './compare/estimated-pedal.js';
 export { compareSession, envelopeSamplesOf, type CompareSessionOptions, type SessionComparison } from './compare/compare-session.js';

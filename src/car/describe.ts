@@ -7,8 +7,8 @@ import type { Envelope } from './envelope.js';
 import { buildEnvelope } from './build-envelope.js';
 import { totalMassKg } from './point-mass.js';
 import { characteristicSpeedMps, criticalSpeedMps, linearAxlesOf, understeerGradientDegPerG, understeerGradientRadPerMps2 } from './understeer.js';
-import { bicycleEnvelope } from './bicycle-envelope.js';
-import { STANDARD_GRAVITY_MPS2, kphToMps, mpsToKph } from '../units.js';
+import { bicycleEnvelope, type BicycleEnvelope } from './bicycle-envelope.js';
+import { kphToMps, mps2ToG, mpsToKph } from '../units.js';
 
 export type SteerCharacter = 'understeer' | 'neutral' | 'oversteer';
 
@@ -37,22 +37,26 @@ export interface CarDescription {
   envelope: EnvelopeRow[];
 }
 
+function isBicycleEnvelope(envelope: Envelope): envelope is BicycleEnvelope {
+  return typeof (envelope as Partial<BicycleEnvelope>).lateralLimitingAxle === 'function';
+}
+
 const TABLE_SPEEDS_KPH = [40, 80, 120, 160, 200, 240, 280, 320];
 
 export function describeCar(car: Car, ambient: Ambient, envelope: Envelope = buildEnvelope(car, ambient)): CarDescription {
   const massKg = totalMassKg(car);
   const axles = linearAxlesOf(car);
   const gradient = axles ? understeerGradientRadPerMps2(axles) : null;
-  const bicycle = car.model === 'bicycle' ? bicycleEnvelope(car, ambient) : null;
+  const bicycle = car.model === 'bicycle' ? (isBicycleEnvelope(envelope) ? envelope : bicycleEnvelope(car, ambient)) : null;
   const topSpeedKph = mpsToKph(envelope.topSpeedMps);
   const speeds = TABLE_SPEEDS_KPH.filter((kph) => kph < topSpeedKph);
   const rows = speeds.map((speedKph): EnvelopeRow => {
     const v = kphToMps(speedKph);
     return {
       speedKph,
-      lateralG: envelope.lateralLimitMps2(v, 1) / STANDARD_GRAVITY_MPS2,
-      accelG: envelope.accelLimitMps2(v, 0) / STANDARD_GRAVITY_MPS2,
-      brakeG: envelope.brakeLimitMps2(v, 0) / STANDARD_GRAVITY_MPS2,
+      lateralG: mps2ToG(envelope.lateralLimitMps2(v, 1)),
+      accelG: mps2ToG(envelope.accelLimitMps2(v, 0)),
+      brakeG: mps2ToG(envelope.brakeLimitMps2(v, 0)),
       lateralLimitingAxle: bicycle ? bicycle.lateralLimitingAxle(v) : null,
     };
   });

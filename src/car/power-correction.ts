@@ -22,6 +22,8 @@ export type J1349Edition = keyof typeof SAE_J1349_EDITIONS;
 export const DEFAULT_J1349_EDITION: J1349Edition = '2004';
 
 export const J1349_REFERENCE_TEMP_C = 25;
+/** The standard's °C-to-kelvin offset: 273, not 273.15, so the 25 °C reference is 298 K exactly and CF = 1 there. */
+const J1349_KELVIN_OFFSET = 273;
 export const J1349_REFERENCE_DRY_PRESSURE_KPA = 99;
 
 export interface PowerCorrectionInput {
@@ -54,8 +56,7 @@ export function dryAirPressureKpa(pressureHpa: number, airTempC: number, relativ
 export function j1349CorrectionFactor(input: PowerCorrectionInput): number {
   const { a, b } = SAE_J1349_EDITIONS[input.edition ?? DEFAULT_J1349_EDITION];
   const dryKpa = dryAirPressureKpa(input.pressureHpa, input.airTempC, input.relativeHumidityPct ?? 0);
-  // The standard writes T + 273 (not 273.15) and 298 for the 25 °C reference; kept as written so CF = 1 there exactly.
-  return a * (J1349_REFERENCE_DRY_PRESSURE_KPA / dryKpa) * Math.sqrt((input.airTempC + 273) / 298) - b;
+  return a * (J1349_REFERENCE_DRY_PRESSURE_KPA / dryKpa) * Math.sqrt((input.airTempC + J1349_KELVIN_OFFSET) / (J1349_REFERENCE_TEMP_C + J1349_KELVIN_OFFSET)) - b;
 }
 
 /** Multiplier on the rated power for these air conditions: 1 / CF (1 at 25 °C, 99 kPa dry air). */

@@ -30,8 +30,6 @@ export interface CheckReport {
   ok: boolean;
 }
 
-const TRACK_DEFAULTS = { stepM: 1, columns: {}, widthM: null, layout: 'auto' as const, smoothingM: null };
-
 function inputMessage(error: unknown): string {
   if (error instanceof InputError) return error.message;
   throw error;
@@ -75,36 +73,42 @@ export function checkText(text: string, source: string): FileCheck {
     if (result.problems.length === 0) result.summary = KIND_LABELS.car;
     return result;
   }
+  // The real reader runs first; only a file it refuses is read again cell by cell, to list every problem rather
+  // than the first (a good file is parsed once).
   if (kind === 'track-json' || kind === 'track-csv') {
-    if (kind === 'track-csv') result.problems = centrelineCellProblems(text, source).problems;
-    if (result.problems.length === 0) {
-      try {
-        const track = parseTrackText(text, source, TRACK_DEFAULTS);
-        result.summary = `${KIND_LABELS[kind]}: ${track.closed ? 'closed' : 'open'} track, ${track.lengthM.toFixed(0)} m`;
-      } catch (error) {
-        const message = inputMessage(error);
-        result.problems.push(...(kind === 'track-json' ? splitProblems(message, source) : [message]));
-      }
+    try {
+      const track = parseTrackText(text, source);
+      result.summary = `${KIND_LABELS[kind]}: ${track.closed ? 'closed' : 'open'} track, ${track.lengthM.toFixed(0)} m`;
+    } catch (error) {
+      const message = inputMessage(error);
+      if (kind === 'track-csv') result.problems = centrelineCellProblems(text, source).problems;
+      if (result.problems.length === 0) result.problems.push(...(kind === 'track-json' ? splitProblems(message, source) : [message]));
     }
     result.problems = capped(result.problems, source);
     return result;
   }
-  if (kind === 'telemetry-csv') {
-    const cells = telemetryCellProblems(text, source);
-    result.problems = cells.problems;
-    result.notes.push(...cells.notes);
-  }
-  if (result.problems.length === 0) {
-    try {
-      const session = parseTelemetryText(text, source, { columns: {} });
-      result.notes.push(...session.notes);
-      result.summary = sessionSummary(kind, session);
-    } catch (error) {
-      result.problems.push(inputMessage(error));
+  try {
+    const session = parseTelemetryText(text, source, { columns: {} });
+    // Repeated time stamps are a note of the cell pass (it knows their lines); it runs only when the log has one.
+    if (kind === 'telemetry-csv' && hasRepeatedTime(session.timeS)) result.notes.push(...telemetryCellProblems(text, source).notes);
+    result.notes.push(...session.notes);
+    result.summary = sessionSummary(kind, session);
+  } catch (error) {
+    const message = inputMessage(error);
+    if (kind === 'telemetry-csv') {
+      const cells = telemetryCellProblems(text, source);
+      result.problems = cells.problems;
+      result.notes.push(...cells.notes);
     }
+    if (result.problems.length === 0) result.problems.push(message);
   }
   result.problems = capped(result.problems, source);
   return result;
+}
+
+function hasRepeatedTime(timeS: Float64Array): boolean {
+  for (let i = 1; i < timeS.length; i++) if (timeS[i] === timeS[i - 1]) return true;
+  return false;
 }
 
 /** Files above this are checked by streaming (a log of gigabytes does not fit in one string). */

@@ -19,10 +19,6 @@ export function addReportOptions(command: Command, page = 'the lap report: one H
     .option('--svg <dir>', 'write each chart of the report as a standalone SVG file into this folder');
 }
 
-export function wantsReport(values: ReportOptionValues): boolean {
-  return Boolean(values.html || values.svg);
-}
-
 /** Adds the lap report's files to the batch and returns their paths, for the command's closing message. */
 export function addReportOutputs(outputs: OutputBatch, values: ReportOptionValues, input: ReportInput): string[] {
   return addPageOutputs(outputs, values, { html: () => lapReportHtml(input), charts: () => chartSvgs(input) });

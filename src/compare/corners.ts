@@ -4,6 +4,7 @@
 
 import type { NamedCorner, TrackGrid } from '../track/types.js';
 import { movingAverage } from './derive.js';
+import { degToRad } from '../units.js';
 
 export interface CornerDetectionOptions {
   /** Window of the moving average applied to the curvature before detection, m. */
@@ -26,7 +27,7 @@ export const DEFAULT_CORNER_OPTIONS: CornerDetectionOptions = {
   smoothingM: 15,
   minPeakCurvaturePerM: 1 / 400,
   straightCurvaturePerM: 1 / 1000,
-  minTurnRad: (15 * Math.PI) / 180,
+  minTurnRad: degToRad(15),
   edgeShareOfPeak: 0.3,
   joinGapM: 15,
   nameToleranceM: 60,

@@ -7,7 +7,7 @@ import type { LapResult } from '../solve/types.js';
 import type { TrackGrid } from '../track/types.js';
 import { localPlane } from '../io/telemetry/geo.js';
 import { detectCorners, type CornerSpan } from './corners.js';
-import { STANDARD_GRAVITY_MPS2, mpsToKph, kphToMps } from '../units.js';
+import { mps2ToG, mpsToKph, kphToMps } from '../units.js';
 
 export interface DemoFault {
   kind: 'early-braking' | 'late-hard-braking' | 'coasting' | 'early-lift';
@@ -267,8 +267,8 @@ export function demoLogCsv(track: TrackGrid, lap: DemoDriverLap, options: DemoLo
         (mpsToKph(v) + 0.3 * gaussian()).toFixed(2),
         throttlePct.toFixed(1),
         brakePct.toFixed(1),
-        (ax / STANDARD_GRAVITY_MPS2 + 0.02 * gaussian()).toFixed(3),
-        (ay / STANDARD_GRAVITY_MPS2 + 0.02 * gaussian()).toFixed(3),
+        (mps2ToG(ax) + 0.02 * gaussian()).toFixed(3),
+        (mps2ToG(ay) + 0.02 * gaussian()).toFixed(3),
       ].join(','),
     );
   }

@@ -7,6 +7,7 @@ import type { TelemetrySession } from './types.js';
 import { applyRigid, fitRigidToCentreline, projectPath } from '../track/project.js';
 import { reprojectPlane } from '../io/telemetry/geo.js';
 import { medianOf } from './median.js';
+import { radToDeg } from '../units.js';
 
 /** The session's samples in the track's plane and their place along it, computed once per session and track. */
 export interface PlacedSession {
@@ -39,7 +40,7 @@ export function placeSession(session: TelemetrySession, track: TrackGrid): Place
   } else if (session.geoOrigin) {
     const fit = fitRigidToCentreline(track, xM, yM);
     ({ xM, yM } = applyRigid(fit, xM, yM));
-    notes.push(`the track has no geo origin: GPS path laid onto the centreline by a rigid fit (turned ${((fit.rotationRad * 180) / Math.PI).toFixed(1)} deg, median gap ${fit.medianGapM.toFixed(1)} m)`);
+    notes.push(`the track has no geo origin: GPS path laid onto the centreline by a rigid fit (turned ${radToDeg(fit.rotationRad).toFixed(1)} deg, median gap ${fit.medianGapM.toFixed(1)} m)`);
   }
   const path = projectPath(track, xM, yM);
   const progressM = path.alongM;

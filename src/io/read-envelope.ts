@@ -30,7 +30,7 @@ const schema = z.object({
 export function parseEnvelopeJson(text: string, source: string): DemonstratedEnvelopeRecord {
   let data: unknown;
   try {
-    data = JSON.parse(text);
+    data = JSON.parse(text.replace(/^\uFEFF/, ''));
   } catch (error) {
     throw new InputError(`${source}: not valid JSON (${(error as Error).message})`);
   }

@@ -67,11 +67,13 @@ function jsonPlace(text: string, message: string): string {
 
 export function parseTrackJson(text: string, source: string, options: TrackReadOptions): TrackGrid {
   let data: unknown;
+  // A byte-order mark (editors on some systems write one) is not JSON; places are counted after it.
+  const body = text.replace(/^\uFEFF/, '');
   try {
-    data = JSON.parse(text);
+    data = JSON.parse(body);
   } catch (error) {
     const message = error instanceof Error ? error.message : String(error);
-    throw new InputError(`${source}: ${jsonPlace(text, message)}not valid JSON (${message.split('\n')[0]})`);
+    throw new InputError(`${source}: ${jsonPlace(body, message)}not valid JSON (${message.split('\n')[0]})`);
   }
   const parsed = trackSchema.safeParse(data);
   if (!parsed.success) throw new InputError(zodMessage(parsed.error, source));

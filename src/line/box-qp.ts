@@ -21,35 +21,6 @@ export function emptyBand(count: number, cyclic: boolean): PentaBand {
   return { count, cyclic, diag: new Float64Array(count), off1: new Float64Array(count), off2: new Float64Array(count) };
 }
 
-/** Adds weight * r r^T for a residual row with coefficients c at columns i - 1, i, i + 1 (missing ones zero). */
-export function addOuterProduct3(band: PentaBand, i: number, cPrev: number, cMid: number, cNext: number, weight: number): void {
-  const n = band.count;
-  const ip = band.cyclic ? (i - 1 + n) % n : i - 1;
-  const inx = band.cyclic ? (i + 1) % n : i + 1;
-  const { diag, off1, off2 } = band;
-  if (ip >= 0) {
-    diag[ip] += weight * cPrev * cPrev;
-    off1[ip] += weight * cPrev * cMid;
-    if (inx < n) off2[ip] += weight * cPrev * cNext;
-  }
-  diag[i] += weight * cMid * cMid;
-  if (inx < n) {
-    off1[i] += weight * cMid * cNext;
-    diag[inx] += weight * cNext * cNext;
-  }
-}
-
-/** Adds weight * r r^T for a residual with coefficients at columns i and i + 1. */
-export function addOuterProduct2(band: PentaBand, i: number, cMid: number, cNext: number, weight: number): void {
-  const n = band.count;
-  const inx = band.cyclic ? (i + 1) % n : i + 1;
-  band.diag[i] += weight * cMid * cMid;
-  if (inx < n) {
-    band.off1[i] += weight * cMid * cNext;
-    band.diag[inx] += weight * cNext * cNext;
-  }
-}
-
 /** y = Q x. */
 export function multiplyBand(band: PentaBand, x: Float64Array, out: Float64Array = new Float64Array(band.count)): Float64Array {
   const { count: n, cyclic, diag, off1, off2 } = band;

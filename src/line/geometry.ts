@@ -34,17 +34,6 @@ export function offsetCurvaturePartials(n: number, dn: number, ddn: number, kc: 
   out[2] = a * inv15;
 }
 
-/** Index helpers for closed (cyclic) and open grids; an open grid extends linearly past its ends. */
-export interface GridStencil {
-  count: number;
-  closed: boolean;
-  stepM: number;
-}
-
-export function stencilOf(track: TrackGrid): GridStencil {
-  return { count: track.distanceM.length, closed: track.closed, stepM: track.stepM };
-}
-
 /** Derivative of the centreline curvature along s (central differences; one-sided at open ends). */
 export function centrelineCurvatureSlope(track: TrackGrid): Float64Array {
   const kc = track.curvaturePerM;

@@ -6,6 +6,7 @@ import type { CarDescription } from '../car/describe.js';
 import type { Envelope } from '../car/envelope.js';
 import { formatTable } from './text-table.js';
 import { escapeHtml } from './html/escape.js';
+import { SAFETY_CAUTION } from './lap-summary.js';
 import { envelopeBoundaryG } from './html/gg-diagram.js';
 import { kphToMps } from '../units.js';
 
@@ -74,7 +75,7 @@ export function carGgHtml(d: CarDescription, envelope: Envelope): string {
 ${grid}${curves}
 <text x="${GG_PAGE_SIZE - 6}" y="${half - 6}" text-anchor="end" font-size="11">ay</text><text x="${half + 6}" y="14" font-size="11">ax</text>
 </svg><ul>${legend}</ul></figure>
-<p><small>A model result: the limits are what the car file implies, not what a car on a given day will do. Defer to the circuit's rules and to qualified instruction.</small></p>
+<p><small>The limits are what the car file implies, not what a car on a given day will do. ${escapeHtml(SAFETY_CAUTION)}</small></p>
 </body></html>
 `;
 }

@@ -50,7 +50,7 @@ function before(a: number, b: number, count: number, closed: boolean): boolean {
 }
 
 /** Compares two laps on the same track and grid (same sample count). */
-export function compareLaps(baseline: LapResult, changed: LapResult, toleranceM = DEFAULT_MATCH_TOLERANCE_M): LapComparison {
+export function compareSetupChange(baseline: LapResult, changed: LapResult, toleranceM = DEFAULT_MATCH_TOLERANCE_M): LapComparison {
   const closed = baseline.trace.closed;
   const lengthM = baseline.track.lengthM;
   const count = baseline.trace.count;

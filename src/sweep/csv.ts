@@ -4,6 +4,7 @@
 import { parse } from 'csv-parse/sync';
 import { InputError } from '../errors.js';
 import { RUN_KINDS, type RunKind } from './plan.js';
+import { VALUES_PER_CORNER } from './evaluate.js';
 import { DIGITS, type SweepCorner, type SweepMeta, type SweepRecord, type SweepTable } from './table.js';
 
 const MAGIC = '# reflap sweep v1';
@@ -100,7 +101,7 @@ export function parseSweepCsv(text: string, source: string): SweepTable {
   if (lines[row] !== expectedColumns) throw new InputError(`${source}: line ${row + 1}: the column header does not match the '# fields' and corner lines`);
   const body = lines.slice(row + 1).join('\n');
   const cells = parse(body, { relax_column_count: false, skip_empty_lines: true }) as string[][];
-  const width = 4 + fields.length + 3 * corners.length;
+  const width = 4 + fields.length + VALUES_PER_CORNER * corners.length;
   const records: SweepRecord[] = cells.map((cell, r) => {
     const where = `${source}: line ${row + 2 + r}`;
     if (cell.length !== width) throw new InputError(`${where}: ${cell.length} cells, expected ${width}`);
@@ -120,7 +121,7 @@ export function parseSweepCsv(text: string, source: string): SweepTable {
       minSpeedKph: [],
     };
     for (let k = 0; k < corners.length; k++) {
-      const c = after + 1 + 3 * k;
+      const c = after + 1 + VALUES_PER_CORNER * k;
       record.brakingPointM.push(numberOrNaN(cell[c]!));
       record.entrySpeedKph.push(numberOrNaN(cell[c + 1]!));
       record.minSpeedKph.push(numberOrNaN(cell[c + 2]!));

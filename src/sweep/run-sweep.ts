@@ -4,7 +4,7 @@
 import type { Path, TrackGrid } from '../track/types.js';
 import type { LapResult } from '../solve/types.js';
 import { planSweep, runCount, shardRange, type Shard, type SweepMode, type SweepPlan } from './plan.js';
-import { defaultContext, solveSetup, type SweepContext } from './evaluate.js';
+import { defaultContext, outcomeWidth, solveSetup, writeOutcome, type SweepContext } from './evaluate.js';
 import { runSetups, type RunOptions } from './pool.js';
 import { cornersOf, recordsFromOutcomes, sweepMeta, type SweepTable } from './table.js';
 import type { SetupBase, Variation } from './settings.js';
@@ -44,8 +44,7 @@ export async function runSweep(input: SweepInput, options: RunOptions = {}): Pro
   const { plan, baseline, context } = prepareSweep(input);
   const total = runCount(plan);
   const { start, end } = input.shard ? shardRange(total, input.shard) : { start: 0, end: total };
-  const width = plan.fields.length;
-  const outcomes = await runSetups(context, plan.values.slice(start * width, end * width), start, options);
+  const outcomes = await solveShard(plan, baseline, context, start, end, options);
   const meta = sweepMeta({
     trackName: input.track.name,
     trackLengthM: input.track.lengthM,
@@ -57,4 +56,20 @@ export async function runSweep(input: SweepInput, options: RunOptions = {}): Pro
   });
   const records = recordsFromOutcomes(plan, context.corners.length, outcomes, start);
   return { plan, baseline, table: { meta, records }, complete: start === 0 && end === total };
+}
+
+/** The shard's outcomes; run 0 is the baseline already solved, so the pool gets only the runs after it. */
+async function solveShard(plan: SweepPlan, baseline: LapResult, context: SweepContext, start: number, end: number, options: RunOptions): Promise<Float64Array> {
+  const width = plan.fields.length;
+  if (start > 0 || end <= start || width === 0) return runSetups(context, plan.values.slice(start * width, end * width), start, options);
+  const resultWidth = outcomeWidth(context.corners.length);
+  const { onProgress } = options;
+  const rest = await runSetups(context, plan.values.slice(width, end * width), 1, {
+    ...options,
+    ...(onProgress ? { onProgress: (done: number, total: number) => onProgress(done + 1, total + 1) } : {}),
+  });
+  const outcomes = new Float64Array((end - start) * resultWidth);
+  writeOutcome(context, baseline, outcomes, 0);
+  outcomes.set(rest, resultWidth);
+  return outcomes;
 }

@@ -5,7 +5,7 @@ import type { Path, TrackGrid } from '../track/types.js';
 import type { LapResult } from '../solve/types.js';
 import { InputError } from '../errors.js';
 import { mpsToKph } from '../units.js';
-import { defaultContext, outcomeWidth, solveSetup, VALUES_PER_CORNER } from './evaluate.js';
+import { defaultContext, outcomeWidth, solveSetup, VALUES_PER_CORNER, writeOutcome } from './evaluate.js';
 import { runSetups, runSetupsInProcess, type RunOptions } from './pool.js';
 import { cornersOf, DIGITS, roundTo, type SweepCorner } from './table.js';
 import { tidy, type SetupBase } from './settings.js';
@@ -54,6 +54,15 @@ function prepare(input: StintInput): { loads: number[]; firstLap: LapResult; con
   return { loads, firstLap, context: defaultContext({ ...partial, corners: firstLap.brakingZones }) };
 }
 
+/** Lap 1 is already solved in prepare: its outcome goes first, ahead of the laps the pool solved. */
+function withFirstLap(context: ReturnType<typeof defaultContext>, firstLap: LapResult, rest: Float64Array): Float64Array {
+  const width = outcomeWidth(context.corners.length);
+  const outcomes = new Float64Array(width + rest.length);
+  writeOutcome(context, firstLap, outcomes, 0);
+  outcomes.set(rest, width);
+  return outcomes;
+}
+
 function assemble(loads: number[], firstLap: LapResult, outcomes: Float64Array): StintResult {
   const cornerCount = firstLap.brakingZones.length;
   const width = outcomeWidth(cornerCount);
@@ -76,11 +85,16 @@ function assemble(loads: number[], firstLap: LapResult, outcomes: Float64Array):
 /** The stint in the calling thread. */
 export function runStint(input: StintInput): StintResult {
   const { loads, firstLap, context } = prepare(input);
-  return assemble(loads, firstLap, runSetupsInProcess(context, Float64Array.from(loads)));
+  return assemble(loads, firstLap, withFirstLap(context, firstLap, runSetupsInProcess(context, Float64Array.from(loads.slice(1)), 1)));
 }
 
 /** The stint across worker threads (laps are independent: each starts from its own fuel load). */
 export async function runStintInWorkers(input: StintInput, options: RunOptions = {}): Promise<StintResult> {
   const { loads, firstLap, context } = prepare(input);
-  return assemble(loads, firstLap, await runSetups(context, Float64Array.from(loads), 0, options));
+  const { onProgress } = options;
+  const rest = await runSetups(context, Float64Array.from(loads.slice(1)), 1, {
+    ...options,
+    ...(onProgress ? { onProgress: (done: number, total: number) => onProgress(done + 1, total + 1) } : {}),
+  });
+  return assemble(loads, firstLap, withFirstLap(context, firstLap, rest));
 }

@@ -80,6 +80,11 @@ describe('fitting the envelope', () => {
     expect(envelope.gripUse(30, -envelope.coastDecelMps2(30), lateral)).toBeCloseTo(1, 9);
   });
 
+  it('reads an envelope file that starts with a byte-order mark', () => {
+    const back = parseEnvelopeJson(`\uFEFF${JSON.stringify(record)}`, 'bom-envelope.json');
+    expect(back).toEqual(JSON.parse(JSON.stringify(record)));
+  });
+
   it('names the bad field of an envelope file', () => {
     const broken = JSON.parse(JSON.stringify(record));
     broken.bands[0].leftMps2 = -1;

@@ -75,6 +75,13 @@ describe('track JSON', () => {
     expectInputError(() => parseTrackText(JSON.stringify({ ...stadium, closed: 'yes' }), 't.json', defaults), /^t\.json: closed: /);
   });
 
+  it('reads a segment track that starts with a byte-order mark', () => {
+    const track = parseTrackText(`\uFEFF${JSON.stringify(stadium)}`, 'bom.json', defaults);
+    // Length 2 L + 2 pi R (circle geometry).
+    expect(track.lengthM).toBeCloseTo(800 + 100 * Math.PI, 9);
+    expect(track.closed).toBe(true);
+  });
+
   it('refuses invalid JSON with the line and column', () => {
     expectInputError(() => parseTrackText('{\n  "name": "x",\n  "closed": true,,\n}', 'broken.json', defaults), /^broken\.json: line 3, column 18: not valid JSON/);
   });

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { simulate } from '../../src/solve/simulate.js';
-import { compareLaps } from '../../src/sweep/compare-laps.js';
+import { compareSetupChange } from '../../src/sweep/compare-laps.js';
 import { applySettings, parseSetting } from '../../src/sweep/settings.js';
 import { ambientFrom } from '../../src/car/ambient.js';
 import { STANDARD_GRAVITY_MPS2 } from '../../src/units.js';
@@ -29,7 +29,7 @@ describe('braking-point shift for a change of muLong', () => {
     const air = { airTempC: 25, pressureHpa: 990 };
     const changed = applySettings({ car, air }, [parseSetting(`tyre.muLong=${changedMuLong}`)]);
     const options = { ambient: ambientFrom(air), startSpeedMps: v1Mps };
-    return { changed, comparison: compareLaps(simulate(track, car, options), simulate(track, changed.car, { ...options, ambient: changed.ambient })) };
+    return { changed, comparison: compareSetupChange(simulate(track, car, options), simulate(track, changed.car, { ...options, ambient: changed.ambient })) };
   };
 
   it('equals the difference of the kinematic braking distances (v1^2 - v2^2) / (2 mu g) within 1 m', () => {

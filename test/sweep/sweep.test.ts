@@ -6,7 +6,7 @@ import { runSweep } from '../../src/sweep/run-sweep.js';
 import { sensitivities } from '../../src/sweep/table.js';
 import { mergeSweepCsv, parseSweepCsv, sweepCsv } from '../../src/sweep/csv.js';
 import { sweepChartData } from '../../src/sweep/chart-data.js';
-import { compareLaps } from '../../src/sweep/compare-laps.js';
+import { compareSetupChange } from '../../src/sweep/compare-laps.js';
 import { runStint, runStintInWorkers } from '../../src/sweep/stint.js';
 import { InputError } from '../../src/errors.js';
 import { testCar } from '../helpers/cars.js';
@@ -38,8 +38,8 @@ describe('sweep sensitivities', () => {
       // The sweep keeps lap times to 1 µs (CSV digits): over 2h that is at most 1e-6 / h s per unit.
       expect(Math.abs(s.lapTimeSPerUnit - expected)).toBeLessThan(1.01e-6 / h);
       expect(expected).not.toBe(0);
-      const minusZones = compareLaps(baseline, minus).zones;
-      const plusZones = compareLaps(baseline, plus).zones;
+      const minusZones = compareSetupChange(baseline, minus).zones;
+      const plusZones = compareSetupChange(baseline, plus).zones;
       s.brakingPointMPerUnit.forEach((perUnit, c) => {
         const shift = (plusZones[c]!.changedBrakingPointM! - minusZones[c]!.changedBrakingPointM!) / (2 * h);
         expect(perUnit!).toBeCloseTo(shift, 2);

@@ -5,7 +5,7 @@ import { addCarOptions, loadCar, numberOption, type CarOptionValues } from '../o
 import { buildEnvelope } from '../../car/build-envelope.js';
 import { gripBudget } from '../../car/budget.js';
 import { InputError } from '../../errors.js';
-import { kphToMps, STANDARD_GRAVITY_MPS2 } from '../../units.js';
+import { gToMps2, kphToMps, mps2ToG } from '../../units.js';
 import { formatTable } from '../../report/text-table.js';
 import { round } from '../../report/lap-summary.js';
 
@@ -46,7 +46,7 @@ export function runBudget(values: BudgetValues): void {
   } else {
     const lateralG = numberOption(values.lateralG, '--lateral-g', 0);
     if (!(lateralG >= 0)) throw new InputError(`option --lateral-g: ${lateralG} must not be negative`);
-    lateralMps2 = lateralG * STANDARD_GRAVITY_MPS2;
+    lateralMps2 = gToMps2(lateralG);
   }
   const { car, ambient } = loadCar(values);
   const budget = gripBudget(buildEnvelope(car, ambient), speedMps, lateralMps2);
@@ -56,7 +56,7 @@ export function runBudget(values: BudgetValues): void {
         {
           car: car.name,
           speedKph,
-          lateralDemandG: round(lateralMps2 / STANDARD_GRAVITY_MPS2, 4),
+          lateralDemandG: round(mps2ToG(lateralMps2), 4),
           lateralLimitG: round(budget.lateralLimitG, 4),
           lateralShare: round(budget.lateralShare, 4),
           brakingAvailableG: round(budget.brakingAvailableG, 4),
@@ -72,7 +72,7 @@ export function runBudget(values: BudgetValues): void {
   }
   const g = (value: number) => `${value.toFixed(2)} g`;
   const lines = [
-    `${car.name} at ${speedKph.toFixed(0)} km/h, cornering at ${g(lateralMps2 / STANDARD_GRAVITY_MPS2)}`,
+    `${car.name} at ${speedKph.toFixed(0)} km/h, cornering at ${g(mps2ToG(lateralMps2))}`,
     `Lateral limit at this speed: ${g(budget.lateralLimitG)}; in use: ${percent(budget.lateralShare)}`,
   ];
   if (budget.lateralShare > 1) {

@@ -6,6 +6,7 @@ import { InputError } from '../../errors.js';
 import type { Ambient, Car } from '../../car/types.js';
 import type { Envelope } from '../../car/envelope.js';
 import type { Path, TrackGrid } from '../../track/types.js';
+import type { LapResult } from '../../solve/types.js';
 import { buildEnvelope } from '../../car/build-envelope.js';
 import { defaultMarginM } from '../../line/corridor.js';
 import { lineCsv } from '../../line/line-csv.js';
@@ -99,6 +100,8 @@ export interface ResolvedLine {
   offsetM: Float64Array;
   xM: Float64Array;
   yM: Float64Array;
+  /** The lap the line search already drove on this line (same car, air, envelope and start speed), for `auto`. */
+  lap?: LapResult;
 }
 
 /**
@@ -115,7 +118,7 @@ export function resolveLinePath(
   if (value === 'auto') {
     const marginM = options.marginM ?? defaultMarginM(car);
     const line = racingLine(track, car, { objective: 'time', marginM, ambient, envelope: options.envelope, startSpeedMps: options.startSpeedMps });
-    return { path: line.path, offsetM: line.offsetM, xM: line.xM, yM: line.yM };
+    return { path: line.path, offsetM: line.offsetM, xM: line.xM, yM: line.yM, lap: line.lap };
   }
   const offsetM = readLineFile(value, track);
   const geometry = lineFromOffsets(track, offsetM);

@@ -39,7 +39,7 @@ export function runSimulate(values: SimulateValues): void {
   const { car, ambient } = loadCar(values);
   const envelope = values.envelope ? demonstratedEnvelope(readEnvelopeFile(values.envelope)) : buildEnvelope(car, ambient);
   const line = values.line ? resolveLinePath(track, car, ambient, values.line, { envelope, startSpeedMps: startSpeedMps(values) }) : null;
-  const result = simulate(track, car, { ambient, envelope, startSpeedMps: startSpeedMps(values), path: line?.path });
+  const result = line?.lap ?? simulate(track, car, { ambient, envelope, startSpeedMps: startSpeedMps(values), path: line?.path });
   const extraColumns: ExtraColumn[] = line
     ? [
         { name: 'offset_m', values: line.offsetM, digits: 4 },

@@ -5,7 +5,7 @@ import type { Command } from 'commander';
 import { addCarOptions, addTrackOptions, inputFilesOf, numberOption, type CarOptionValues, type TrackOptionValues } from '../options.js';
 import { simulate } from '../../solve/simulate.js';
 import { applySettings, baseValueOf, parseSetting, type Setting, type SetupBase } from '../../sweep/settings.js';
-import { compareLaps, type LapComparison } from '../../sweep/compare-laps.js';
+import { compareSetupChange, type LapComparison } from '../../sweep/compare-laps.js';
 import { DEFAULT_MATCH_TOLERANCE_M } from '../../sweep/match-zones.js';
 import { unitOf } from '../../sweep/fields.js';
 import { formatTable } from '../../report/text-table.js';
@@ -108,7 +108,7 @@ export function runWhatif(values: WhatifValues): void {
   const changed = applySettings(base, settings);
   const baseline = simulate(track, car, { ambient: ambientFrom(base.air), startSpeedMps: start, ...(path ? { path } : {}) });
   const result = simulate(track, changed.car, { ambient: changed.ambient, startSpeedMps: start, ...(path ? { path } : {}) });
-  const comparison = compareLaps(baseline, result, toleranceM);
+  const comparison = compareSetupChange(baseline, result, toleranceM);
   const described = describeSettings(base, settings, changed.values);
   const page = { comparison, described, trackName: track.name, carName: car.name };
   const outputs = outputBatch(inputFilesOf(values));

@@ -50,8 +50,8 @@ const ALIASES: Record<Quantity, string[]> = {
   y: ['y', 'pos_y', 'position_y', 'y_pos', 'north', 'northing'],
   lat: ['lat', 'latitude', 'gps_lat', 'gps_latitude'],
   lon: ['lon', 'lng', 'long', 'longitude', 'gps_lon', 'gps_long', 'gps_longitude'],
-  ax: ['ax', 'a_x', 'accel_x', 'acc_x', 'long_accel', 'accel_long', 'longitudinal_acceleration', 'longitudinal_accel', 'g_long', 'long_g', 'gx', 'inline_acc'],
-  ay: ['ay', 'a_y', 'accel_y', 'acc_y', 'lat_accel', 'accel_lat', 'lateral_acceleration', 'lateral_accel', 'g_lat', 'lat_g', 'gy', 'lateral_acc'],
+  ax: ['ax', 'a_x', 'accel_x', 'acc_x', 'long_accel', 'accel_long', 'longitudinal_acceleration', 'longitudinal_accel', 'g_long', 'long_g', 'gx'],
+  ay: ['ay', 'a_y', 'accel_y', 'acc_y', 'lat_accel', 'accel_lat', 'lateral_acceleration', 'lateral_accel', 'g_lat', 'lat_g', 'gy'],
 };
 
 const G = STANDARD_GRAVITY_MPS2;

@@ -89,7 +89,7 @@ export class RowPipeline {
     this.rows++;
     if (this.timeIndex >= 0 && this.time.error === null) {
       const binding = this.bindings[this.timeIndex]!;
-      this.time.check(block.values[this.timeIndex]!, r, binding.scale ?? 1, `${source}: line ${line}, column ${binding.header}`, this.rows === 1);
+      this.time.check(block.values[this.timeIndex]!, r, binding.scale ?? 1, source, line, binding.header, this.rows === 1);
     }
     if (block.rows === CHUNK_ROWS) this.closeBlock();
   }

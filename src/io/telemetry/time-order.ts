@@ -8,12 +8,17 @@ export class TimeOrder {
   firstTimeS = NaN;
   previousTimeS = NaN;
 
-  /** Row `r` of the time column `values`, in the file's unit until `scale` takes it to seconds; `place` names it. */
-  check(values: Float64Array, r: number, scale: number, place: string, firstRow: boolean): void {
+  /**
+   * Row `r` of the time column `values`, in the file's unit until `scale` takes it to seconds; `source`, `line` and
+   * `header` name it, and the message is only built when the row is wrong (this runs once per sample).
+   */
+  check(values: Float64Array, r: number, scale: number, source: string, line: number, header: string, firstRow: boolean): void {
     const timeS = values[r]! * scale;
     values[r] = timeS;
-    if (Number.isNaN(timeS)) this.error = `${place}: empty time`;
-    else if (timeS < this.previousTimeS) this.error = `${place}: time runs backwards (${timeS} after ${this.previousTimeS})`;
+    if (Number.isNaN(timeS)) this.error = `${source}: line ${line}, column ${header}: empty time`;
+    else if (timeS < this.previousTimeS) {
+      this.error = `${source}: line ${line}, column ${header}: time runs backwards (${timeS} after ${this.previousTimeS})`;
+    }
     if (firstRow) this.firstTimeS = timeS;
     this.previousTimeS = timeS;
   }
