@@ -24,12 +24,16 @@ export function refuseOverwritingInputs(outFile: string, inputFiles: readonly (s
   }
 }
 
+function temporaryBeside(file: string): string {
+  const folder = dirname(resolve(file));
+  mkdirSync(folder, { recursive: true });
+  return join(folder, `.${basename(file)}.tmp-${process.pid}-${Date.now()}`);
+}
+
 /** Writes text or bytes atomically: a reader sees the old file or the whole new one, never half of it. */
 export function writeFileAtomic(file: string, content: string | Uint8Array, inputFiles: readonly (string | undefined | null)[] = []): void {
   refuseOverwritingInputs(file, inputFiles);
-  const folder = dirname(resolve(file));
-  mkdirSync(folder, { recursive: true });
-  const temporary = join(folder, `.${basename(file)}.tmp-${process.pid}-${Date.now()}`);
+  const temporary = temporaryBeside(file);
   try {
     writeFileSync(temporary, content);
     renameSync(temporary, file);
@@ -53,7 +57,20 @@ export function outputBatch(inputFiles: readonly (string | undefined | null)[] =
       pending.push({ file, content });
     },
     commit() {
-      for (const { file, content } of pending) writeFileAtomic(file, content, inputFiles);
+      // Every file is written in full beside its target first; only then are they renamed into place, so a
+      // failure while writing (a full disk, a folder that cannot be made) leaves none of them behind.
+      const written: { temporary: string; file: string }[] = [];
+      try {
+        for (const { file, content } of pending) {
+          const temporary = temporaryBeside(file);
+          written.push({ temporary, file });
+          writeFileSync(temporary, content);
+        }
+      } catch (error) {
+        for (const { temporary } of written) rmSync(temporary, { force: true });
+        throw error;
+      }
+      for (const { temporary, file } of written) renameSync(temporary, file);
       pending.length = 0;
     },
   };
