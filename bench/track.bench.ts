@@ -18,7 +18,7 @@ function centrelineCsv(): { text: string; source: string; columns: Record<string
   }
   const demo = parseTrackText(readFileSync(path.join(projectRoot, 'tracks', 'velmora-downs.json'), 'utf8'), 'velmora-downs.json', { stepM: 5, columns: {}, widthM: null, layout: 'auto', smoothingM: null });
   const rows = ['x_m,y_m'];
-  for (let i = 0; i < demo.xM.length; i++) rows.push(`${demo.xM[i].toFixed(3)},${demo.yM[i].toFixed(3)}`);
+  for (let i = 0; i < demo.xM.length; i++) rows.push(`${demo.xM[i]!.toFixed(3)},${demo.yM[i]!.toFixed(3)}`);
   return { text: rows.join('\n'), source: 'velmora-downs sampled every 5 m', columns: {} };
 }
 
@@ -40,7 +40,7 @@ export async function run(): Promise<void> {
   const n = 2500;
   const lambda = 1e4;
   const penalty = [6, -4, 1];
-  const entry = (_i: number, k: number) => (k === 0 ? 1 : 0) + lambda * penalty[k];
+  const entry = (_i: number, k: number) => (k === 0 ? 1 : 0) + lambda * penalty[k]!;
   const rhs = new Float64Array(n).map((_, i) => Math.sin(i / 10));
   const out = new Float64Array(n);
   const factorMs = medianTimeMs(() => {

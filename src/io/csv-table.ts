@@ -30,8 +30,9 @@ export function parseCsvTable(text: string, source: string): CsvTable {
     const message = error instanceof Error ? error.message.split('\n')[0] : String(error);
     throw new InputError(`${source}: malformed CSV: ${message}`);
   }
-  if (records.length === 0) throw new InputError(`${source}: the file has no header row`);
-  const header = records[0].record;
+  const first = records[0];
+  if (!first) throw new InputError(`${source}: the file has no header row`);
+  const header = first.record;
   return { header, rows: records.slice(1).map((r) => r.record), lines: records.slice(1).map((r) => r.info.lines) };
 }
 

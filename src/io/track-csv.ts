@@ -25,15 +25,15 @@ const CLOSING_GAP_MIN_M = 1;
 function median(values: Float64Array): number {
   const sorted = Float64Array.from(values).sort();
   const mid = sorted.length >> 1;
-  return sorted.length % 2 ? sorted[mid] : 0.5 * (sorted[mid - 1] + sorted[mid]);
+  return sorted.length % 2 ? sorted[mid]! : 0.5 * (sorted[mid - 1]! + sorted[mid]!);
 }
 
 /** True when the ends meet: the gap from the last point to the first is under max(3 x median spacing, 1 m). */
 export function endsMeet(x: Float64Array, y: Float64Array): boolean {
   const n = x.length;
   const spacing = new Float64Array(n - 1);
-  for (let i = 0; i < n - 1; i++) spacing[i] = Math.hypot(x[i + 1] - x[i], y[i + 1] - y[i]);
-  const gap = Math.hypot(x[n - 1] - x[0], y[n - 1] - y[0]);
+  for (let i = 0; i < n - 1; i++) spacing[i] = Math.hypot(x[i + 1]! - x[i]!, y[i + 1]! - y[i]!);
+  const gap = Math.hypot(x[n - 1]! - x[0]!, y[n - 1]! - y[0]!);
   return gap < Math.max(CLOSING_GAP_SPACINGS * median(spacing), CLOSING_GAP_MIN_M);
 }
 
@@ -73,25 +73,25 @@ export function parseTrackCsv(text: string, source: string, options: TrackReadOp
   let right = hasWidths ? new Float64Array(n) : null;
   const names = header;
   for (let i = 0; i < n; i++) {
-    const row = rows[i];
-    const line = lines[i];
-    x[i] = numberCell(row[xIndex], source, line, names[xIndex]);
-    y[i] = numberCell(row[yIndex], source, line, names[yIndex]);
-    if (!(Math.abs(x[i]) <= MAX_COORDINATE_M && Math.abs(y[i]) <= MAX_COORDINATE_M)) {
+    const row = rows[i]!;
+    const line = lines[i]!;
+    x[i] = numberCell(row[xIndex] ?? '', source, line, names[xIndex]!);
+    y[i] = numberCell(row[yIndex] ?? '', source, line, names[yIndex]!);
+    if (!(Math.abs(x[i]!) <= MAX_COORDINATE_M && Math.abs(y[i]!) <= MAX_COORDINATE_M)) {
       throw new InputError(`${source}: row ${line}: point (${x[i]}, ${y[i]}) is over 10,000 km from the origin; coordinates must be metres on a local plane`);
     }
     if (left && right) {
-      left[i] = numberCell(row[leftIndex], source, line, names[leftIndex]);
-      right[i] = numberCell(row[rightIndex], source, line, names[rightIndex]);
-      if (left[i] < 0) throw new InputError(`${source}: row ${line}, column ${names[leftIndex]}: negative width ${left[i]} m`);
-      if (right[i] < 0) throw new InputError(`${source}: row ${line}, column ${names[rightIndex]}: negative width ${right[i]} m`);
+      left[i] = numberCell(row[leftIndex] ?? '', source, line, names[leftIndex]!);
+      right[i] = numberCell(row[rightIndex] ?? '', source, line, names[rightIndex]!);
+      if (left[i]! < 0) throw new InputError(`${source}: row ${line}, column ${names[leftIndex]}: negative width ${left[i]} m`);
+      if (right[i]! < 0) throw new InputError(`${source}: row ${line}, column ${names[rightIndex]}: negative width ${right[i]} m`);
     }
-    if (i > 0 && Math.hypot(x[i] - x[i - 1], y[i] - y[i - 1]) < SAME_POINT_M) {
+    if (i > 0 && Math.hypot(x[i]! - x[i - 1]!, y[i]! - y[i - 1]!) < SAME_POINT_M) {
       throw new InputError(`${source}: row ${line}: the point repeats the one before it (row ${lines[i - 1]})`);
     }
   }
 
-  const closingDuplicate = Math.hypot(x[n - 1] - x[0], y[n - 1] - y[0]) < SAME_POINT_M;
+  const closingDuplicate = Math.hypot(x[n - 1]! - x[0]!, y[n - 1]! - y[0]!) < SAME_POINT_M;
   const closed = options.layout === 'closed' || (options.layout === 'auto' && (closingDuplicate || endsMeet(x, y)));
   if (closed && closingDuplicate) {
     n -= 1;

@@ -30,13 +30,13 @@ export function multiplyBand(band: PentaBand, x: Float64Array, out: Float64Array
     const j2 = i + 2;
     if (cyclic || j1 < n) {
       const j = j1 % n;
-      out[i] += off1[i]! * x[j]!;
-      out[j] += off1[i]! * x[i]!;
+      out[i]! += off1[i]! * x[j]!;
+      out[j]! += off1[i]! * x[i]!;
     }
     if (cyclic || j2 < n) {
       const j = j2 % n;
-      out[i] += off2[i]! * x[j]!;
-      out[j] += off2[i]! * x[i]!;
+      out[i]! += off2[i]! * x[j]!;
+      out[j]! += off2[i]! * x[i]!;
     }
   }
   return out;
@@ -74,7 +74,7 @@ export function solveBoxQp(band: PentaBand, q: Float64Array, lower: Float64Array
   for (; iterations < maxIterations; iterations++) {
     // Half the gradient of x^T Q x + 2 q^T x.
     multiplyBand(band, x, gradient);
-    for (let i = 0; i < n; i++) gradient[i] += q[i]!;
+    for (let i = 0; i < n; i++) gradient[i]! += q[i]!;
     // Bertsekas' epsilon-binding set: at (or within epsilon, in metres, of) a bound the gradient pushes against.
     const epsilon = 1e-3;
     for (let i = 0; i < n; i++) {

@@ -64,18 +64,18 @@ function addResidual3(band: PentaBand, q: Float64Array, i: number, cp: number, c
   const ip = band.cyclic ? (i - 1 + n) % n : i - 1;
   const inx = band.cyclic ? (i + 1) % n : i + 1;
   const { diag, off1, off2 } = band;
-  diag[i] += weight * cm * cm;
-  q[i] += weight * e * cm;
+  diag[i]! += weight * cm * cm;
+  q[i]! += weight * e * cm;
   if (ip >= 0) {
-    diag[ip] += weight * cp * cp;
-    off1[ip] += weight * cp * cm;
-    q[ip] += weight * e * cp;
-    if (inx < n) off2[ip] += weight * cp * cn;
+    diag[ip]! += weight * cp * cp;
+    off1[ip]! += weight * cp * cm;
+    q[ip]! += weight * e * cp;
+    if (inx < n) off2[ip]! += weight * cp * cn;
   }
   if (inx < n) {
-    diag[inx] += weight * cn * cn;
-    off1[i] += weight * cm * cn;
-    q[inx] += weight * e * cn;
+    diag[inx]! += weight * cn * cn;
+    off1[i]! += weight * cm * cn;
+    q[inx]! += weight * e * cn;
   }
 }
 
@@ -132,12 +132,12 @@ function buildModel(track: TrackGrid, weights: OffsetWeights, offsetM: Float64Ar
 function addResidual2(band: PentaBand, q: Float64Array, i: number, cm: number, cn: number, e: number, weight: number): void {
   const n = band.count;
   const inx = band.cyclic ? (i + 1) % n : i + 1;
-  band.diag[i] += weight * cm * cm;
-  q[i] += weight * e * cm;
+  band.diag[i]! += weight * cm * cm;
+  q[i]! += weight * e * cm;
   if (inx < n) {
-    band.off1[i] += weight * cm * cn;
-    band.diag[inx] += weight * cn * cn;
-    q[inx] += weight * e * cn;
+    band.off1[i]! += weight * cm * cn;
+    band.diag[inx]! += weight * cn * cn;
+    q[inx]! += weight * e * cn;
   }
 }
 
@@ -161,13 +161,13 @@ export function optimiseOffsets(track: TrackGrid, corridor: Corridor, weights: O
     for (let attempt = 0; attempt < 6 && !accepted; attempt++) {
       // Damping mu |x - n0|^2 adds mu to the diagonal and -mu n0 to q.
       for (let i = 0; i < count; i++) {
-        band.diag[i] += damping;
-        q[i] -= damping * current[i]!;
+        band.diag[i]! += damping;
+        q[i]! -= damping * current[i]!;
       }
       const { x } = solveBoxQp(band, q, corridor.lowerM, corridor.upperM, current, QP_ITERATIONS);
       for (let i = 0; i < count; i++) {
-        band.diag[i] -= damping;
-        q[i] += damping * current[i]!;
+        band.diag[i]! -= damping;
+        q[i]! += damping * current[i]!;
       }
       // Backtracking along the step; the corridor is convex, so every point of the step stays inside.
       for (let t = 1; t > 0.01 && !accepted; t *= 0.5) {

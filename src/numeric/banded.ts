@@ -59,12 +59,12 @@ export function factorBanded(n: number, halfBandwidth: number, entry: BandEntry)
       // A[i][j] = A[j][i] = entry(j, i - j)
       let sum = entry(j, i - j);
       const mStart = Math.max(jStart, j - p);
-      for (let m = mStart; m < j; m++) sum -= band[i * w + (i - m)] * band[j * w + (j - m)];
+      for (let m = mStart; m < j; m++) sum -= band[i * w + (i - m)]! * band[j * w + (j - m)]!;
       if (j === i) {
         if (!(sum > 0)) throw new RangeError(`banded matrix is not positive definite (pivot ${sum} at row ${i})`);
         band[i * w] = Math.sqrt(sum);
       } else {
-        band[i * w + (i - j)] = sum / band[j * w];
+        band[i * w + (i - j)] = sum / band[j * w]!;
       }
     }
   }
@@ -79,17 +79,17 @@ export function solveBanded(factor: BandedFactor, rhs: Float64Array, out: Float6
   if (rhs.length !== n || out.length !== n) throw new RangeError(`banded solve: expected vectors of length ${n}`);
   // Forward: L y = rhs.
   for (let i = 0; i < n; i++) {
-    let sum = rhs[i];
+    let sum = rhs[i]!;
     const mStart = Math.max(0, i - p);
-    for (let m = mStart; m < i; m++) sum -= band[i * w + (i - m)] * out[m];
-    out[i] = sum / band[i * w];
+    for (let m = mStart; m < i; m++) sum -= band[i * w + (i - m)]! * out[m]!;
+    out[i] = sum / band[i * w]!;
   }
   // Backward: L^T x = y; L^T[i][m] = L[m][i] for m = i + 1..i + p.
   for (let i = n - 1; i >= 0; i--) {
-    let sum = out[i];
+    let sum = out[i]!;
     const mEnd = Math.min(n - 1, i + p);
-    for (let m = i + 1; m <= mEnd; m++) sum -= band[m * w + (m - i)] * out[m];
-    out[i] = sum / band[i * w];
+    for (let m = i + 1; m <= mEnd; m++) sum -= band[m * w + (m - i)]! * out[m]!;
+    out[i] = sum / band[i * w]!;
   }
   return out;
 }
@@ -145,7 +145,7 @@ export function factorCyclicBanded(n: number, halfBandwidth: number, entry: Band
   for (let a = 0; a < p; a++) {
     for (let b = 0; b < p; b++) {
       let sum = 0;
-      for (let t = 0; t < p; t++) sum += e[t * p + a] * e[t * p + b];
+      for (let t = 0; t < p; t++) sum += e[t * p + a]! * e[t * p + b]!;
       g[a * p + b] = sum / alpha;
     }
   }
@@ -154,28 +154,28 @@ export function factorCyclicBanded(n: number, halfBandwidth: number, entry: Band
     if (i + k >= n) return 0; // the wrapped entries are carried by U U^T
     let v = entry(i, k);
     if (k === 0 && i < p) v += alpha;
-    if (i >= tailStart) v += g[(i - tailStart) * p + (i + k - tailStart)];
+    if (i >= tailStart) v += g[(i - tailStart) * p + (i + k - tailStart)]!;
     return v;
   };
   const inner = factorBanded(n, p, modifiedEntry);
   const sqrtAlpha = Math.sqrt(alpha);
   // U's tail rows: U[n - p + r][j] = -E[j][r] / sqrt(alpha).
   const uTail = new Float64Array(p * p);
-  for (let r = 0; r < p; r++) for (let j = 0; j < p; j++) uTail[r * p + j] = -e[j * p + r] / sqrtAlpha;
+  for (let r = 0; r < p; r++) for (let j = 0; j < p; j++) uTail[r * p + j] = -e[j * p + r]! / sqrtAlpha;
   const z = new Float64Array(p * n);
   const column = new Float64Array(n);
   for (let j = 0; j < p; j++) {
     column.fill(0);
     column[j] = sqrtAlpha;
-    for (let r = 0; r < p; r++) column[tailStart + r] = uTail[r * p + j];
+    for (let r = 0; r < p; r++) column[tailStart + r] = uTail[r * p + j]!;
     solveBanded(inner, column, z.subarray(j * n, (j + 1) * n));
   }
   // C = I - U^T Z.
   const capacitance = Matrix.zeros(p, p);
   for (let a = 0; a < p; a++) {
     for (let b = 0; b < p; b++) {
-      let sum = sqrtAlpha * z[b * n + a];
-      for (let r = 0; r < p; r++) sum += uTail[r * p + a] * z[b * n + tailStart + r];
+      let sum = sqrtAlpha * z[b * n + a]!;
+      for (let r = 0; r < p; r++) sum += uTail[r * p + a]! * z[b * n + tailStart + r]!;
       capacitance.set(a, b, (a === b ? 1 : 0) - sum);
     }
   }
@@ -211,15 +211,15 @@ export function solveCyclicBanded(factor: CyclicBandedFactor, rhs: Float64Array,
   // w = C^-1 U^T y, then x = y + Z w.
   const uty = new Float64Array(p);
   for (let j = 0; j < p; j++) {
-    let sum = sqrtAlpha * out[j];
-    for (let r = 0; r < p; r++) sum += uTail[r * p + j] * out[tailStart + r];
+    let sum = sqrtAlpha * out[j]!;
+    for (let r = 0; r < p; r++) sum += uTail[r * p + j]! * out[tailStart + r]!;
     uty[j] = sum;
   }
   for (let a = 0; a < p; a++) {
     let wa = 0;
-    for (let b = 0; b < p; b++) wa += capacitanceInverse[a * p + b] * uty[b];
+    for (let b = 0; b < p; b++) wa += capacitanceInverse[a * p + b]! * uty[b]!;
     const zj = z.subarray(a * n, (a + 1) * n);
-    for (let i = 0; i < n; i++) out[i] += zj[i] * wa;
+    for (let i = 0; i < n; i++) out[i]! += zj[i]! * wa;
   }
   return out;
 }

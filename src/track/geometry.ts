@@ -24,25 +24,25 @@ export function headingAndCurvature(
     if (closed || (i > 0 && i < n - 1)) {
       const p = i === 0 ? n - 1 : i - 1;
       const q = i === n - 1 ? 0 : i + 1;
-      dx = 0.5 * (x[q] - x[p]);
-      dy = 0.5 * (y[q] - y[p]);
-      ddx = x[q] - 2 * x[i] + x[p];
-      ddy = y[q] - 2 * y[i] + y[p];
+      dx = 0.5 * (x[q]! - x[p]!);
+      dy = 0.5 * (y[q]! - y[p]!);
+      ddx = x[q]! - 2 * x[i]! + x[p]!;
+      ddy = y[q]! - 2 * y[i]! + y[p]!;
     } else if (i === 0) {
-      dx = 0.5 * (-3 * x[0] + 4 * x[1] - x[2]);
-      dy = 0.5 * (-3 * y[0] + 4 * y[1] - y[2]);
-      ddx = 2 * x[0] - 5 * x[1] + 4 * x[2] - x[3];
-      ddy = 2 * y[0] - 5 * y[1] + 4 * y[2] - y[3];
+      dx = 0.5 * (-3 * x[0]! + 4 * x[1]! - x[2]!);
+      dy = 0.5 * (-3 * y[0]! + 4 * y[1]! - y[2]!);
+      ddx = 2 * x[0]! - 5 * x[1]! + 4 * x[2]! - x[3]!;
+      ddy = 2 * y[0]! - 5 * y[1]! + 4 * y[2]! - y[3]!;
     } else {
-      dx = 0.5 * (3 * x[i] - 4 * x[i - 1] + x[i - 2]);
-      dy = 0.5 * (3 * y[i] - 4 * y[i - 1] + y[i - 2]);
-      ddx = 2 * x[i] - 5 * x[i - 1] + 4 * x[i - 2] - x[i - 3];
-      ddy = 2 * y[i] - 5 * y[i - 1] + 4 * y[i - 2] - y[i - 3];
+      dx = 0.5 * (3 * x[i]! - 4 * x[i - 1]! + x[i - 2]!);
+      dy = 0.5 * (3 * y[i]! - 4 * y[i - 1]! + y[i - 2]!);
+      ddx = 2 * x[i]! - 5 * x[i - 1]! + 4 * x[i - 2]! - x[i - 3]!;
+      ddy = 2 * y[i]! - 5 * y[i - 1]! + 4 * y[i - 2]! - y[i - 3]!;
     }
     const speed2 = dx * dx + dy * dy;
     outCurvaturePerM[i] = (dx * ddy - dy * ddx) / (speed2 * Math.sqrt(speed2));
     const heading = Math.atan2(dy, dx);
-    outHeadingRad[i] = i === 0 ? heading : outHeadingRad[i - 1] + wrapAngleRad(heading - outHeadingRad[i - 1]);
+    outHeadingRad[i] = i === 0 ? heading : outHeadingRad[i - 1]! + wrapAngleRad(heading - outHeadingRad[i - 1]!);
   }
 }
 
@@ -57,8 +57,8 @@ export function arcLengths(x: Float64Array, y: Float64Array, curvaturePerM: Floa
   const count = closed ? n : n - 1;
   for (let i = 0; i < count; i++) {
     const j = i + 1 === n ? 0 : i + 1;
-    const chord = Math.hypot(x[j] - x[i], y[j] - y[i]);
-    const kc = 0.5 * (curvaturePerM[i] + curvaturePerM[j]) * chord;
+    const chord = Math.hypot(x[j]! - x[i]!, y[j]! - y[i]!);
+    const kc = 0.5 * (curvaturePerM[i]! + curvaturePerM[j]!) * chord;
     total += chord * (1 + (kc * kc) / 24);
     if (j !== 0) distanceM[j] = total;
   }
@@ -81,15 +81,15 @@ export function resampleLinear(sourceDistanceM: Float64Array, totalM: number, cl
   let j = 0;
   for (let i = 0; i < count; i++) {
     const s = Math.min(i * stepM, totalM);
-    while (j < m - 2 && sourceDistanceM[j + 1] <= s) j++;
-    if (j === m - 2 && closed && sourceDistanceM[m - 1] <= s) j = m - 1;
+    while (j < m - 2 && sourceDistanceM[j + 1]! <= s) j++;
+    if (j === m - 2 && closed && sourceDistanceM[m - 1]! <= s) j = m - 1;
     const wraps = j === m - 1;
-    const s0 = sourceDistanceM[j];
-    const s1 = wraps ? totalM : sourceDistanceM[j + 1];
+    const s0 = sourceDistanceM[j]!;
+    const s1 = wraps ? totalM : sourceDistanceM[j + 1]!;
     const f = s1 > s0 ? (s - s0) / (s1 - s0) : 0;
     for (const channel of channels) {
-      const v0 = channel.values[j];
-      const v1 = wraps ? channel.values[0] + (channel.lapOffset ?? 0) : channel.values[j + 1];
+      const v0 = channel.values[j]!;
+      const v1 = wraps ? channel.values[0]! + (channel.lapOffset ?? 0) : channel.values[j + 1]!;
       channel.out[i] = v0 + f * (v1 - v0);
     }
   }

@@ -91,7 +91,7 @@ export function trackFromCentreline(points: CentrelinePoints, options: Centrelin
     source,
   };
   for (let i = 0; i < count; i++) track.distanceM[i] = i * grid.stepM;
-  const lapTurning = closed ? heading[m - 1] + wrapAngleRad(heading[0] - heading[m - 1]) - heading[0] : 0;
+  const lapTurning = closed ? heading[m - 1]! + wrapAngleRad(heading[0]! - heading[m - 1]!) - heading[0]! : 0;
   const channels: ResampleChannel[] = [
     { values: x, out: track.xM },
     { values: y, out: track.yM },

@@ -69,9 +69,9 @@ function displacement(piece: Piece, ua: number, ub: number, out: Float64Array): 
   for (let p = 0; p < parts; p++) {
     const u0 = ua + p * h;
     for (let g = 0; g < 3; g++) {
-      const theta = headingAt(piece, u0 + GAUSS_NODES[g] * h);
-      dx += GAUSS_WEIGHTS[g] * Math.cos(theta);
-      dy += GAUSS_WEIGHTS[g] * Math.sin(theta);
+      const theta = headingAt(piece, u0 + GAUSS_NODES[g]! * h);
+      dx += GAUSS_WEIGHTS[g]! * Math.cos(theta);
+      dy += GAUSS_WEIGHTS[g]! * Math.sin(theta);
     }
   }
   out[0] = dx * h;
@@ -110,8 +110,8 @@ function toPieces(segments: TrackSegment[], startHeadingRad: number, source: str
     const piece: Piece = { startM: s, lengthM, startCurvature: k0, endCurvature: k1, startHeadingRad: heading, startX: x, startY: y };
     pieces.push(piece);
     displacement(piece, 0, lengthM, d);
-    x += d[0];
-    y += d[1];
+    x += d[0]!;
+    y += d[1]!;
     heading = headingAt(piece, lengthM);
     s += lengthM;
   });
@@ -155,22 +155,22 @@ export function trackFromSegments(spec: SegmentTrackSpec, stepM: number, source:
   const d = new Float64Array(2);
   let k = 0;
   let u = 0;
-  let px = pieces[0].startX;
-  let py = pieces[0].startY;
+  let px = pieces[0]!.startX;
+  let py = pieces[0]!.startY;
   for (let i = 0; i < count; i++) {
     const s = i === count - 1 && !closed ? lengthM : i * grid.stepM;
-    while (k < pieces.length - 1 && s >= pieces[k + 1].startM) {
+    while (k < pieces.length - 1 && s >= pieces[k + 1]!.startM) {
       k++;
       u = 0;
-      px = pieces[k].startX;
-      py = pieces[k].startY;
+      px = pieces[k]!.startX;
+      py = pieces[k]!.startY;
     }
-    const piece = pieces[k];
+    const piece = pieces[k]!;
     const target = Math.min(s - piece.startM, piece.lengthM);
     if (target > u) {
       displacement(piece, u, target, d);
-      px += d[0];
-      py += d[1];
+      px += d[0]!;
+      py += d[1]!;
       u = target;
     }
     // Spread the closure gap (under 1 m) along the lap so the loop joins.

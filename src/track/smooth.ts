@@ -21,7 +21,7 @@ function openPenaltyEntry(n: number, i: number, k: number): number {
   const c0 = SECOND_DIFFERENCE;
   let sum = 0;
   // Row r of D touches columns r, r + 1, r + 2.
-  for (let r = Math.max(0, i + k - 2); r <= Math.min(i, n - 3); r++) sum += c0[i - r] * c0[i + k - r];
+  for (let r = Math.max(0, i + k - 2); r <= Math.min(i, n - 3); r++) sum += c0[i - r]! * c0[i + k - r]!;
   return sum;
 }
 
@@ -32,6 +32,6 @@ const CYCLIC_PENALTY = [6, -4, 1];
  * Needs n >= 3 for an open series.
  */
 export function whittakerSmoother(n: number, lambda: number, closed: boolean): BandedSolve {
-  if (closed) return cyclicBandedSolver(n, 2, (_i, k) => (k === 0 ? 1 : 0) + lambda * CYCLIC_PENALTY[k]);
+  if (closed) return cyclicBandedSolver(n, 2, (_i, k) => (k === 0 ? 1 : 0) + lambda * CYCLIC_PENALTY[k]!);
   return bandedSolver(n, 2, (i, k) => (i + k >= n ? 0 : (k === 0 ? 1 : 0) + lambda * openPenaltyEntry(n, i, k)));
 }

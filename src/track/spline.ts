@@ -24,7 +24,7 @@ function chordLengths(x: Float64Array, y: Float64Array, closed: boolean): Float6
   const h = new Float64Array(count);
   for (let i = 0; i < count; i++) {
     const j = i + 1 === n ? 0 : i + 1;
-    h[i] = Math.hypot(x[j] - x[i], y[j] - y[i]);
+    h[i] = Math.hypot(x[j]! - x[i]!, y[j]! - y[i]!);
   }
   return h;
 }
@@ -36,12 +36,12 @@ function secondDerivativeRhs(v: Float64Array, h: Float64Array, closed: boolean):
     for (let i = 0; i < n; i++) {
       const prev = i === 0 ? n - 1 : i - 1;
       const next = i + 1 === n ? 0 : i + 1;
-      rhs[i] = 6 * ((v[next] - v[i]) / h[i] - (v[i] - v[prev]) / h[prev]);
+      rhs[i] = 6 * ((v[next]! - v[i]!) / h[i]! - (v[i]! - v[prev]!) / h[prev]!);
     }
     return rhs;
   }
   const rhs = new Float64Array(n - 2);
-  for (let i = 1; i < n - 1; i++) rhs[i - 1] = 6 * ((v[i + 1] - v[i]) / h[i] - (v[i] - v[i - 1]) / h[i - 1]);
+  for (let i = 1; i < n - 1; i++) rhs[i - 1] = 6 * ((v[i + 1]! - v[i]!) / h[i]! - (v[i]! - v[i - 1]!) / h[i - 1]!);
   return rhs;
 }
 
@@ -50,12 +50,12 @@ export function chordSpline(x: Float64Array, y: Float64Array, closed: boolean): 
   const n = x.length;
   const h = chordLengths(x, y, closed);
   const knotT = new Float64Array(n);
-  for (let i = 1; i < n; i++) knotT[i] = knotT[i - 1] + h[i - 1];
-  const totalT = closed ? knotT[n - 1] + h[n - 1] : knotT[n - 1];
+  for (let i = 1; i < n; i++) knotT[i] = knotT[i - 1]! + h[i - 1]!;
+  const totalT = closed ? knotT[n - 1]! + h[n - 1]! : knotT[n - 1]!;
   const x2 = new Float64Array(n);
   const y2 = new Float64Array(n);
   if (closed) {
-    const solve = cyclicBandedSolver(n, 1, (i, k) => (k === 0 ? 2 * (h[i === 0 ? n - 1 : i - 1] + h[i]) : h[i]));
+    const solve = cyclicBandedSolver(n, 1, (i, k) => (k === 0 ? 2 * (h[i === 0 ? n - 1 : i - 1]! + h[i]!) : h[i]!));
     solve(secondDerivativeRhs(x, h, true), x2);
     solve(secondDerivativeRhs(y, h, true), y2);
   } else if (n > 2) {
@@ -63,15 +63,15 @@ export function chordSpline(x: Float64Array, y: Float64Array, closed: boolean): 
     // where natural ends would force it to zero. Unknowns 1..n-2; the end terms fold into the diagonal.
     const last = n - 3;
     const solve = bandedSolver(n - 2, 1, (j, k) => {
-      if (k === 1) return h[j + 1];
-      return 2 * (h[j] + h[j + 1]) + (j === 0 ? h[0] : 0) + (j === last ? h[n - 2] : 0);
+      if (k === 1) return h[j + 1]!;
+      return 2 * (h[j]! + h[j + 1]!) + (j === 0 ? h[0]! : 0) + (j === last ? h[n - 2]! : 0);
     });
     x2.set(solve(secondDerivativeRhs(x, h, false)), 1);
     y2.set(solve(secondDerivativeRhs(y, h, false)), 1);
-    x2[0] = x2[1];
-    y2[0] = y2[1];
-    x2[n - 1] = x2[n - 2];
-    y2[n - 1] = y2[n - 2];
+    x2[0] = x2[1]!;
+    y2[0] = y2[1]!;
+    x2[n - 1] = x2[n - 2]!;
+    y2[n - 1] = y2[n - 2]!;
   }
   return { closed, knotT, totalT, x, y, x2, y2 };
 }
@@ -93,19 +93,19 @@ export function sampleSpline(
   let i = 0;
   for (let j = 0; j < m; j++) {
     const t = j === m - 1 && !closed ? totalT : j * dt;
-    while (i < n - 1 && knotT[i + 1] <= t) i++;
+    while (i < n - 1 && knotT[i + 1]! <= t) i++;
     if (!closed && i === n - 1) i = n - 2;
     const next = i + 1 === n ? 0 : i + 1;
-    const tNext = i + 1 === n ? totalT : knotT[i + 1];
-    const hi = tNext - knotT[i];
+    const tNext = i + 1 === n ? totalT : knotT[i + 1]!;
+    const hi = tNext - knotT[i]!;
     const a = tNext - t;
-    const b = t - knotT[i];
+    const b = t - knotT[i]!;
     const ca = a / hi;
     const cb = b / hi;
     const cubicA = (a * a * a) / (6 * hi) - (hi * a) / 6;
     const cubicB = (b * b * b) / (6 * hi) - (hi * b) / 6;
-    outX[j] = x[i] * ca + x[next] * cb + x2[i] * cubicA + x2[next] * cubicB;
-    outY[j] = y[i] * ca + y[next] * cb + y2[i] * cubicA + y2[next] * cubicB;
-    for (const channel of channels) channel.out[j] = channel.values[i] * ca + channel.values[next] * cb;
+    outX[j] = x[i]! * ca + x[next]! * cb + x2[i]! * cubicA + x2[next]! * cubicB;
+    outY[j] = y[i]! * ca + y[next]! * cb + y2[i]! * cubicA + y2[next]! * cubicB;
+    for (const channel of channels) channel.out[j] = channel.values[i]! * ca + channel.values[next]! * cb;
   }
 }

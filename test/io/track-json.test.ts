@@ -61,8 +61,8 @@ describe('track JSON', () => {
 
   it('refuses an unknown key, naming it and where it is', () => {
     expectInputError(() => parseTrackText(JSON.stringify({ ...stadium, surface: 'asphalt' }), 't.json', defaults), /^t\.json: unknown key 'surface'$/);
-    const segments = [...stadium.segments];
-    segments[1] = { ...segments[1], bank: 3 } as (typeof segments)[number];
+    const segments: object[] = [...stadium.segments];
+    segments[1] = { ...segments[1], bank: 3 };
     expectInputError(() => parseTrackText(JSON.stringify({ ...stadium, segments }), 't.json', defaults), /^t\.json: segments\[1\]: unknown key 'bank'$/);
   });
 
@@ -116,7 +116,7 @@ describe('track JSON', () => {
       // cost up to half a step each); the heading itself turns by exactly 2 pi.
       expect(Math.abs(turning / (2 * Math.PI) - 1)).toBeLessThan(0.01);
       const n = track.headingRad.length;
-      expect(track.headingRad[n - 1] - track.headingRad[0]).toBeCloseTo(2 * Math.PI - track.stepM * track.curvaturePerM[n - 1], 3);
+      expect(track.headingRad[n - 1]! - track.headingRad[0]!).toBeCloseTo(2 * Math.PI - track.stepM * track.curvaturePerM[n - 1]!, 3);
       expect(tightest).toBeLessThan(20); // hairpin
       expect(longestStraight).toBeGreaterThan(900);
       expect(track.corners.length).toBeGreaterThanOrEqual(5);
@@ -127,7 +127,7 @@ describe('track JSON', () => {
         expect(near).toBeGreaterThan(1 / 300);
       }
       // The loop joins: the last sample is about one step from the first.
-      expect(Math.hypot(track.xM[n - 1] - track.xM[0], track.yM[n - 1] - track.yM[0])).toBeLessThan(track.stepM * 1.01);
+      expect(Math.hypot(track.xM[n - 1]! - track.xM[0]!, track.yM[n - 1]! - track.yM[0]!)).toBeLessThan(track.stepM * 1.01);
     });
 
     it('tarnwick-club.json closes, 1.6 to 2 km, 9 m wide', () => {

@@ -21,7 +21,9 @@ function publishedLengths(): Map<string, number> {
   const lengths = new Map<string, number>();
   for (const line of readFileSync(path.join(dataDir, 'README.md'), 'utf8').split('\n')) {
     const match = /^\|\s*([\w.-]+\.csv)\s*\|\s*([0-9.]+)\s*\|/.exec(line);
-    if (match) lengths.set(match[1], Number(match[2]));
+    const file = match?.[1];
+    const km = match?.[2];
+    if (file !== undefined && km !== undefined) lengths.set(file, Number(km));
   }
   return lengths;
 }

@@ -13,7 +13,7 @@ function spdFrom(n: number, q: number, cyclic: boolean, values: number[]): Matri
   for (let i = 0; i < n; i++) {
     for (let k = 0; k <= q; k++) {
       const j = i - k;
-      const v = values[next++ % values.length];
+      const v = values[next++ % values.length]!;
       if (j < 0 && !cyclic) continue;
       r.set(i, (j + n) % n, v + (k === 0 ? 1.5 : 0));
     }
@@ -27,7 +27,7 @@ function relativeError(x: Float64Array, reference: Matrix): number {
   let num = 0;
   let den = 0;
   for (let i = 0; i < x.length; i++) {
-    num += (x[i] - reference.get(i, 0)) ** 2;
+    num += (x[i]! - reference.get(i, 0)) ** 2;
     den += reference.get(i, 0) ** 2;
   }
   return Math.sqrt(num / den);
@@ -50,7 +50,7 @@ describe('banded solvers against ml-matrix dense solve', () => {
     fc.assert(
       fc.property(system, ({ n, q, values, rhs }) => {
         const a = spdFrom(n, q, cyclic, values);
-        const b = Float64Array.from({ length: n }, (_, i) => rhs[i % rhs.length] + 1e-3 * i);
+        const b = Float64Array.from({ length: n }, (_, i) => rhs[i % rhs.length]! + 1e-3 * i);
         // For tiny cyclic n the wrapped entries overlap; give each matrix entry only once.
         const seen = new Set<number>();
         const entry = (i: number, k: number): number => {
@@ -74,8 +74,8 @@ describe('banded solvers against ml-matrix dense solve', () => {
     const lambda = 1e5;
     const coefficients = [1 + 6 * lambda, -4 * lambda, lambda];
     const a = Matrix.zeros(n, n);
-    for (let i = 0; i < n; i++) for (let k = -2; k <= 2; k++) a.set(i, (i + k + n) % n, coefficients[Math.abs(k)]);
-    const factor = factorCyclicBanded(n, 2, (_i, k) => coefficients[k]);
+    for (let i = 0; i < n; i++) for (let k = -2; k <= 2; k++) a.set(i, (i + k + n) % n, coefficients[Math.abs(k)]!);
+    const factor = factorCyclicBanded(n, 2, (_i, k) => coefficients[k]!);
     for (let trial = 1; trial <= 3; trial++) {
       const b = Float64Array.from({ length: n }, (_, i) => Math.sin(i * trial * 0.37) + (i % 7) / 7);
       const reference = denseReference(a, b);
@@ -89,12 +89,12 @@ describe('banded solvers against ml-matrix dense solve', () => {
     const h = Array.from({ length: n }, (_, i) => 1 + 4 * Math.abs(Math.sin(i * 1.7)));
     const a = Matrix.zeros(n, n);
     for (let i = 0; i < n; i++) {
-      a.set(i, i, 2 * (h[(i - 1 + n) % n] + h[i]));
-      a.set(i, (i + 1) % n, h[i]);
-      a.set((i + 1) % n, i, h[i]);
+      a.set(i, i, 2 * (h[(i - 1 + n) % n]! + h[i]!));
+      a.set(i, (i + 1) % n, h[i]!);
+      a.set((i + 1) % n, i, h[i]!);
     }
     const b = Float64Array.from({ length: n }, (_, i) => Math.cos(i));
-    const x = cyclicBandedSolver(n, 1, (i, k) => (k === 0 ? 2 * (h[(i - 1 + n) % n] + h[i]) : h[i]))(b);
+    const x = cyclicBandedSolver(n, 1, (i, k) => (k === 0 ? 2 * (h[(i - 1 + n) % n]! + h[i]!) : h[i]!))(b);
     expect(relativeError(x, denseReference(a, b))).toBeLessThan(1e-9);
   });
 

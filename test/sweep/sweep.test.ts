@@ -57,7 +57,7 @@ describe('shards and workers', () => {
     expect(whole.complete).toBe(true);
     expect(whole.table.records).toHaveLength(1 + 6 + 27);
     const wholeCsv = sweepCsv(whole.table);
-    const shards = [];
+    const shards: { text: string; source: string }[] = [];
     for (let i = 0; i < 4; i++) {
       const part = await runSweep({ track, base, variations, mode: 'grid', shard: { index: i, count: 4 } }, { workers: i % 2 === 0 ? 0 : 1 });
       expect(part.complete).toBe(false);

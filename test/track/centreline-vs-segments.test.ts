@@ -17,7 +17,7 @@ describe('centreline from sampled segments', () => {
     const design = JSON.parse(text) as { segments: { kind: string; radiusM?: number; angleDeg?: number; lengthM?: number }[]; corners: { atM: number; name: string }[] };
     const coarse = parseTrackText(text, 'velmora-downs.json', { ...options, stepM: 5 });
     const rows = ['x_m,y_m'];
-    for (let i = 0; i < coarse.xM.length; i++) rows.push(`${coarse.xM[i].toFixed(3)},${coarse.yM[i].toFixed(3)}`);
+    for (let i = 0; i < coarse.xM.length; i++) rows.push(`${coarse.xM[i]!.toFixed(3)},${coarse.yM[i]!.toFixed(3)}`);
     const track = parseTrackText(rows.join('\n'), 'velmora-sampled.csv', options);
     expect(track.closed).toBe(true);
 
@@ -26,10 +26,10 @@ describe('centreline from sampled segments', () => {
     expect(Math.abs(track.lengthM / designLengthM - 1)).toBeLessThan(5e-4);
 
     const at = (name: string) => Math.round(design.corners.find((corner) => corner.name === name)!.atM / track.stepM);
-    expect(Math.abs(-1 / track.curvaturePerM[at('Larkspur Sweep')] / 190 - 1)).toBeLessThan(0.01);
+    expect(Math.abs(-1 / track.curvaturePerM[at('Larkspur Sweep')]! / 190 - 1)).toBeLessThan(0.01);
     let hairpinPeak = 0;
     const hairpin = at('Corvel Hairpin');
-    for (let i = hairpin - 30; i < hairpin + 30; i++) hairpinPeak = Math.max(hairpinPeak, track.curvaturePerM[i]);
+    for (let i = hairpin - 30; i < hairpin + 30; i++) hairpinPeak = Math.max(hairpinPeak, track.curvaturePerM[i]!);
     expect(Math.abs(1 / hairpinPeak / 16 - 1)).toBeLessThan(0.1);
   });
 });

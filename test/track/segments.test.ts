@@ -18,9 +18,9 @@ describe('trackFromSegments', () => {
     expect(track.curvaturePerM.every((k) => k === 1 / radiusM)).toBe(true);
     // Start at the origin heading east, turning left: the centre is (0, R).
     let worst = 0;
-    for (let i = 0; i < track.xM.length; i++) worst = Math.max(worst, Math.abs(Math.hypot(track.xM[i], track.yM[i] - radiusM) - radiusM));
+    for (let i = 0; i < track.xM.length; i++) worst = Math.max(worst, Math.abs(Math.hypot(track.xM[i]!, track.yM[i]! - radiusM) - radiusM));
     expect(worst).toBeLessThan(1e-6);
-    expect(track.headingRad[track.headingRad.length - 1] + track.stepM / radiusM - track.headingRad[0]).toBeCloseTo(2 * Math.PI, 9);
+    expect(track.headingRad[track.headingRad.length - 1]! + track.stepM / radiusM - track.headingRad[0]!).toBeCloseTo(2 * Math.PI, 9);
   });
 
   it('a stadium (straight, half circle, straight, half circle) closes and has length 2 L + 2 pi R', () => {
@@ -37,7 +37,7 @@ describe('trackFromSegments', () => {
     expect(track.lengthM).toBeCloseTo(600 + 2 * Math.PI * 60, 9);
     const n = track.xM.length;
     // The last sample lies one step back along the closing arc: the gap to the first is the chord 2 R sin(h / 2R).
-    expect(Math.hypot(track.xM[0] - track.xM[n - 1], track.yM[0] - track.yM[n - 1])).toBeCloseTo(120 * Math.sin(track.stepM / 120), 9);
+    expect(Math.hypot(track.xM[0]! - track.xM[n - 1]!, track.yM[0]! - track.yM[n - 1]!)).toBeCloseTo(120 * Math.sin(track.stepM / 120), 9);
     // Far straight runs west at y = 2R.
     const mid = Math.round((300 + 60 * Math.PI + 150) / track.stepM);
     expect(track.yM[mid]).toBeCloseTo(120, 6);

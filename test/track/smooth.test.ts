@@ -73,7 +73,7 @@ describe('trackFromCentreline', () => {
       expect(track.lengthM).toBeCloseTo(200 * Math.PI, 1);
       // Heading turns by 2 pi over the lap.
       const n = track.headingRad.length;
-      expect(track.headingRad[n - 1] - track.headingRad[0] + track.stepM / 100).toBeCloseTo(2 * Math.PI, 3);
+      expect(track.headingRad[n - 1]! - track.headingRad[0]! + track.stepM / 100).toBeCloseTo(2 * Math.PI, 3);
     }
   });
 
