@@ -1,7 +1,8 @@
 // The option groups shared by every command that reads a track or a car, declared once so every command
 // takes the same names, and the loaders that turn them into validated records.
 
-import { Command, Option } from 'commander';
+import type { Command } from 'commander';
+import { Option } from 'commander';
 import { InputError } from '../errors.js';
 import { readTrackFile, type TrackReadOptions } from '../io/read-track.js';
 import { parseColumnMapping } from '../io/columns.js';

@@ -101,7 +101,7 @@ describe.skipIf(!haveChromium)('lap report in Chromium', () => {
     expect(existsSync(file)).toBe(true);
     const { page, problems, requests, dialogs } = await open(file);
     const apex = await page.evaluate(() => {
-      const data = JSON.parse(document.getElementById('lap-data')!.textContent!) as { corners: { id: number; from: number; to: number }[] };
+      const data = JSON.parse(document.getElementById('lap-data')!.textContent) as { corners: { id: number; from: number; to: number }[] };
       const corner = data.corners.find((c) => c.id === 2)!;
       return (corner.from + corner.to) / 2;
     });

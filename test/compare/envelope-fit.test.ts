@@ -2,7 +2,7 @@
 // from the fitted record driving a ring at the speed uniform circular motion allows.
 
 import { describe, expect, it } from 'vitest';
-import { fitEnvelope, quantileSorted, directionOf } from '../../src/compare/envelope-fit.js';
+import { fitEnvelope, quantileSorted } from '../../src/compare/envelope-fit.js';
 import { demonstratedEnvelope } from '../../src/car/demonstrated-envelope.js';
 import { parseEnvelopeJson } from '../../src/io/read-envelope.js';
 import { simulate } from '../../src/solve/simulate.js';

@@ -3,7 +3,7 @@
 
 import { describe, expect, it, beforeAll, afterAll } from 'vitest';
 import fc from 'fast-check';
-import { existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { runCli, projectRoot } from '../helpers/cli.js';

@@ -4,9 +4,10 @@
 import { describe, expect, it, vi, afterEach } from 'vitest';
 import { join } from 'node:path';
 import { projectRoot } from '../helpers/cli.js';
+import type * as simulateModule from '../../src/solve/simulate.js';
 
 vi.mock('../../src/solve/simulate.js', async (original) => ({
-  ...(await original<typeof import('../../src/solve/simulate.js')>()),
+  ...(await original<typeof simulateModule>()),
   simulate: () => {
     throw new TypeError('simulated fault inside the solver');
   },
