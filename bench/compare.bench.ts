@@ -23,7 +23,13 @@ export async function run(): Promise<void> {
   try {
     const { rows } = await writeSession(file, 100, 3600);
     process.stdout.write(`generated ${rows} rows x 20 channels (${(statSync(file).size / 1e6).toFixed(0)} MB)\n`);
-    const track = readTrackFile(path.join(projectRoot, 'tracks', 'tarnwick-club.json'), { stepM: 1, columns: {}, widthM: null, layout: 'auto', smoothingM: null });
+    const track = readTrackFile(path.join(projectRoot, 'tracks', 'tarnwick-club.json'), {
+      stepM: 1,
+      columns: {},
+      widthM: null,
+      layout: 'auto',
+      smoothingM: null,
+    });
     const car = readCarFile(path.join(projectRoot, 'cars', 'brackle-club.json'));
     const ambient = ambientFrom();
     const read: number[] = [];
@@ -44,7 +50,9 @@ export async function run(): Promise<void> {
     }
     process.stdout.write(`${summary}\n`);
     process.stdout.write(`read (streamed CSV): median ${median(read).toFixed(0)} ms\n`);
-    process.stdout.write(`cut + align + two reference laps + envelope fit + compare: median ${median(rest).toFixed(0)} ms\n`);
+    process.stdout.write(
+      `cut + align + two reference laps + envelope fit + compare: median ${median(rest).toFixed(0)} ms\n`,
+    );
     process.stdout.write(`whole comparison: median ${median(total).toFixed(0)} ms (target under 15000 ms)\n`);
     process.stdout.write(`peak RSS of the process: ${peakRssMb().toFixed(0)} MB (target under 1024 MB)\n`);
   } finally {

@@ -32,7 +32,9 @@ async function writeLog(file: string, bytes: number): Promise<number> {
       const speed = 120 + 60 * Math.sin(2 * Math.PI * phase * 7);
       distanceM += (speed / 3.6) * 0.05;
       if (distanceM >= LAP_M) distanceM -= LAP_M;
-      lines.push(`${t.toFixed(2)},${distanceM.toFixed(2)},${speed.toFixed(2)},${(50 + 50 * Math.cos(phase * 40)).toFixed(1)},${(phase * 100 % 30).toFixed(1)},${(0.4 * Math.sin(phase * 90)).toFixed(3)},${(1.1 * Math.cos(phase * 60)).toFixed(3)}`);
+      lines.push(
+        `${t.toFixed(2)},${distanceM.toFixed(2)},${speed.toFixed(2)},${(50 + 50 * Math.cos(phase * 40)).toFixed(1)},${((phase * 100) % 30).toFixed(1)},${(0.4 * Math.sin(phase * 90)).toFixed(3)},${(1.1 * Math.cos(phase * 60)).toFixed(3)}`,
+      );
     }
     const chunk = lines.join('\n') + '\n';
     written += chunk.length;
@@ -78,7 +80,9 @@ class LapScan {
 }
 
 /** Runs `work` with the resident memory sampled every 50 ms: its time, and the RSS before (after a GC) and at the peak, MB. */
-export async function sampledPeak<T>(work: () => Promise<T>): Promise<{ value: T; seconds: number; baseMb: number; peakMb: number }> {
+export async function sampledPeak<T>(
+  work: () => Promise<T>,
+): Promise<{ value: T; seconds: number; baseMb: number; peakMb: number }> {
   (globalThis as { gc?: () => void }).gc?.();
   const baseMb = process.memoryUsage().rss / MB;
   let peakMb = baseMb;
@@ -112,7 +116,9 @@ async function measure(sizeMb: number, withSession: boolean): Promise<void> {
     if (!withSession) return;
     const session = await sampledPeak(() => readTelemetryFile(file, { columns: {} }));
     const s = session.value;
-    const channels = [s.timeS, s.distanceM, s.speedMps, s.throttle, s.brake, s.axMps2, s.ayMps2].filter((values) => values !== null);
+    const channels = [s.timeS, s.distanceM, s.speedMps, s.throttle, s.brake, s.axMps2, s.ayMps2].filter(
+      (values) => values !== null,
+    );
     const keptMb = channels.reduce((sum, values) => sum + values.byteLength, 0) / MB;
     // The arrays may be views into buffers sized from an estimate of the rows; their spare pages are never written.
     const allocatedMb = channels.reduce((sum, values) => sum + values.buffer.byteLength, 0) / MB;
@@ -127,12 +133,17 @@ async function measure(sizeMb: number, withSession: boolean): Promise<void> {
 }
 
 function sizes(variable: string, fallback: string): number[] {
-  return (process.env[variable] ?? fallback).split(',').map(Number).filter((size) => size > 0);
+  return (process.env[variable] ?? fallback)
+    .split(',')
+    .map(Number)
+    .filter((size) => size > 0);
 }
 
 export async function run(): Promise<void> {
   const sessionSizes = new Set(sizes('REFLAP_BENCH_SESSION_MB', '256'));
   process.stdout.write('Telemetry CSV read in chunks (streamTelemetryCsv), files generated in the temporary folder:\n');
   for (const size of sizes('REFLAP_BENCH_TELEMETRY_MB', '64,256,1024')) await measure(size, sessionSizes.has(size));
-  process.stdout.write(`  Memory that does not grow with the file shows as the same streamed peak at every size; maxRSS of the process ${peakRssMb().toFixed(0)} MB.\n`);
+  process.stdout.write(
+    `  Memory that does not grow with the file shows as the same streamed peak at every size; maxRSS of the process ${peakRssMb().toFixed(0)} MB.\n`,
+  );
 }

@@ -28,7 +28,12 @@ export async function run(): Promise<void> {
   const car = parseCarJson(readFileSync(`${projectRoot}cars/tarnfell-gt.json`, 'utf8'), 'cars/tarnfell-gt.json');
   const ambient = ambientFrom();
   const envelope = buildEnvelope(car, ambient);
-  const circuit = (stepM: number) => trackFromSegments({ name: 'benchmark circuit', closed: true, widthM: 12, segments: benchmarkCircuitSegments() }, stepM, 'benchmark');
+  const circuit = (stepM: number) =>
+    trackFromSegments(
+      { name: 'benchmark circuit', closed: true, widthM: 12, segments: benchmarkCircuitSegments() },
+      stepM,
+      'benchmark',
+    );
   const report = (label: string, track: TrackGrid, runs: number, objectives: ('curvature' | 'time')[]) => {
     for (const objective of objectives) {
       let lapS = 0;
@@ -53,7 +58,13 @@ export async function run(): Promise<void> {
   const openTracks = path.resolve(projectRoot, '..', 'shared', 'data', 'open-tracks');
   const catalunya = path.join(openTracks, 'Catalunya.csv');
   if (existsSync(catalunya)) {
-    const track = readTrackFile(catalunya, { stepM: 2, columns: { width_left_m: 'w_tr_left_m', width_right_m: 'w_tr_right_m' }, widthM: null, layout: 'auto', smoothingM: null });
+    const track = readTrackFile(catalunya, {
+      stepM: 2,
+      columns: { width_left_m: 'w_tr_left_m', width_right_m: 'w_tr_right_m' },
+      widthM: null,
+      layout: 'auto',
+      smoothingM: null,
+    });
     report('Catalunya (TUM racetrack-database) at 2 m', track, 3, ['curvature', 'time']);
   } else {
     process.stdout.write(`(open-track timing skipped: ${openTracks} is absent)\n`);

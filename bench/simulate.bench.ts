@@ -20,10 +20,16 @@ export function benchmarkCircuitSegments(): TrackSegment[] {
     { kind: 'arc', radiusM: 120, angleDeg: 40 },
   ];
   return [
-    straight(1450), ...sBend, straight(720),
+    straight(1450),
+    ...sBend,
+    straight(720),
     { kind: 'arc', radiusM: 60, angleDeg: 180 },
-    straight(1450), ...sBend, straight(720),
-    { kind: 'arc', radiusM: 30, angleDeg: 90 }, straight(60), { kind: 'arc', radiusM: 30, angleDeg: 90 },
+    straight(1450),
+    ...sBend,
+    straight(720),
+    { kind: 'arc', radiusM: 30, angleDeg: 90 },
+    straight(60),
+    { kind: 'arc', radiusM: 30, angleDeg: 90 },
   ];
 }
 
@@ -33,17 +39,27 @@ export async function run(): Promise<void> {
   const envelope = buildEnvelope(car, ambient);
   const perPointNs: number[] = [];
   for (const stepM of [1, 0.25]) {
-    const track = trackFromSegments({ name: 'benchmark circuit', closed: true, widthM: 12, segments: benchmarkCircuitSegments() }, stepM, 'benchmark');
+    const track = trackFromSegments(
+      { name: 'benchmark circuit', closed: true, widthM: 12, segments: benchmarkCircuitSegments() },
+      stepM,
+      'benchmark',
+    );
     let lapTimeS = 0;
-    const ms = medianTimeMs(() => {
-      lapTimeS = simulate(track, car, { ambient, envelope }).lapTimeS;
-    }, 20, 5);
+    const ms = medianTimeMs(
+      () => {
+        lapTimeS = simulate(track, car, { ambient, envelope }).lapTimeS;
+      },
+      20,
+      5,
+    );
     perPointNs.push((ms * 1e6) / track.distanceM.length);
     process.stdout.write(
       `simulate: ${(track.lengthM / 1000).toFixed(2)} km at ${stepM} m step (${track.distanceM.length} points): median ${ms.toFixed(2)} ms per lap` +
         `${stepM === 1 ? ' (target < 5 ms)' : ''}; lap ${lapTimeS.toFixed(3)} s\n`,
     );
   }
-  process.stdout.write(`cost per point: ${perPointNs.map((ns) => ns.toFixed(0)).join(' ns and ')} ns (linear cost: about equal)\n`);
+  process.stdout.write(
+    `cost per point: ${perPointNs.map((ns) => ns.toFixed(0)).join(' ns and ')} ns (linear cost: about equal)\n`,
+  );
   process.stdout.write(`peak RSS ${peakRssMb().toFixed(0)} MB\n`);
 }

@@ -16,9 +16,17 @@ const projectRoot = fileURLToPath(new URL('../..', import.meta.url));
 
 export async function run(): Promise<void> {
   const car = parseCarJson(readFileSync(`${projectRoot}cars/tarnfell-gt.json`, 'utf8'), 'cars/tarnfell-gt.json');
-  const track = trackFromSegments({ name: 'benchmark circuit', closed: true, widthM: 12, segments: benchmarkCircuitSegments() }, 1, 'benchmark');
+  const track = trackFromSegments(
+    { name: 'benchmark circuit', closed: true, widthM: 12, segments: benchmarkCircuitSegments() },
+    1,
+    'benchmark',
+  );
   const base = { car, air: airInputsOf(ambientFrom()) };
-  const variations = [parseVariation('massKg=-45:+45:10'), parseVariation('tyre.muLat=-9%:+9%:2%'), parseVariation('airTempC=0:45:5')];
+  const variations = [
+    parseVariation('massKg=-45:+45:10'),
+    parseVariation('tyre.muLat=-9%:+9%:2%'),
+    parseVariation('airTempC=0:45:5'),
+  ];
   const times: Record<number, number> = {};
   const cpuS: Record<number, number> = {};
   const loadBefore = loadavg()[0]!;

@@ -20,18 +20,47 @@ import { sampledPeak } from './large-telemetry.bench.js';
 const projectRoot = fileURLToPath(new URL('../..', import.meta.url));
 
 const HEADER = [
-  'time_s', 'lap_distance_m', 'speed_kph', 'throttle_pct', 'brake_pct', 'steering_deg', 'gear', 'rpm', 'x_m', 'y_m',
-  'ax_g', 'ay_g', 'yaw_rate_dps', 'susp_fl_mm', 'susp_fr_mm', 'susp_rl_mm', 'susp_rr_mm', 'water_temp_c', 'oil_temp_c', 'fuel_l',
+  'time_s',
+  'lap_distance_m',
+  'speed_kph',
+  'throttle_pct',
+  'brake_pct',
+  'steering_deg',
+  'gear',
+  'rpm',
+  'x_m',
+  'y_m',
+  'ax_g',
+  'ay_g',
+  'yaw_rate_dps',
+  'susp_fl_mm',
+  'susp_fr_mm',
+  'susp_rl_mm',
+  'susp_rr_mm',
+  'water_temp_c',
+  'oil_temp_c',
+  'fuel_l',
 ];
 
-export async function writeSession(file: string, rateHz: number, durationS: number): Promise<{ rows: number; laps: number }> {
-  const track = readTrackFile(path.join(projectRoot, 'tracks', 'tarnwick-club.json'), { stepM: 1, columns: {}, widthM: null, layout: 'auto', smoothingM: null });
+export async function writeSession(
+  file: string,
+  rateHz: number,
+  durationS: number,
+): Promise<{ rows: number; laps: number }> {
+  const track = readTrackFile(path.join(projectRoot, 'tracks', 'tarnwick-club.json'), {
+    stepM: 1,
+    columns: {},
+    widthM: null,
+    layout: 'auto',
+    smoothingM: null,
+  });
   const car = readCarFile(path.join(projectRoot, 'cars', 'brackle-club.json'));
   const lap = simulate(track, car);
   const trace = lap.trace;
   const n = trace.count;
   const out = createWriteStream(file);
-  const write = (text: string) => new Promise<void>((resolve) => (out.write(text) ? resolve() : out.once('drain', () => resolve())));
+  const write = (text: string) =>
+    new Promise<void>((resolve) => (out.write(text) ? resolve() : out.once('drain', () => resolve())));
   await write(HEADER.join(',') + '\n');
   const rows = Math.round(durationS * rateHz);
   let lapStart = 0;
@@ -60,13 +89,29 @@ export async function writeSession(file: string, rateHz: number, durationS: numb
     const x = mix(track.xM);
     const y = mix(track.yM);
     const curvature = mix(track.curvaturePerM);
-    chunk += [
-      t.toFixed(2), s.toFixed(2), (v * 3.6).toFixed(2), (mix(trace.throttle) * 100).toFixed(1), (mix(trace.brake) * 100).toFixed(1),
-      (curvature * 2.6 * 15 * 57.2958).toFixed(1), String(Math.max(1, trace.gear[j]!)), (v * 95).toFixed(0), x.toFixed(3), y.toFixed(3),
-      (mix(trace.axMps2) / 9.80665).toFixed(3), (mix(trace.ayMps2) / 9.80665).toFixed(3), (v * curvature * 57.2958).toFixed(2),
-      (30 + Math.sin(t)).toFixed(1), (30 + Math.cos(t)).toFixed(1), (28 + Math.sin(t * 1.3)).toFixed(1), (28 + Math.cos(t * 1.3)).toFixed(1),
-      (88 + t / 600).toFixed(1), (101 + t / 500).toFixed(1), (45 - t / 120).toFixed(2),
-    ].join(',') + '\n';
+    chunk +=
+      [
+        t.toFixed(2),
+        s.toFixed(2),
+        (v * 3.6).toFixed(2),
+        (mix(trace.throttle) * 100).toFixed(1),
+        (mix(trace.brake) * 100).toFixed(1),
+        (curvature * 2.6 * 15 * 57.2958).toFixed(1),
+        String(Math.max(1, trace.gear[j]!)),
+        (v * 95).toFixed(0),
+        x.toFixed(3),
+        y.toFixed(3),
+        (mix(trace.axMps2) / 9.80665).toFixed(3),
+        (mix(trace.ayMps2) / 9.80665).toFixed(3),
+        (v * curvature * 57.2958).toFixed(2),
+        (30 + Math.sin(t)).toFixed(1),
+        (30 + Math.cos(t)).toFixed(1),
+        (28 + Math.sin(t * 1.3)).toFixed(1),
+        (28 + Math.cos(t * 1.3)).toFixed(1),
+        (88 + t / 600).toFixed(1),
+        (101 + t / 500).toFixed(1),
+        (45 - t / 120).toFixed(2),
+      ].join(',') + '\n';
     if (chunk.length > 1 << 20) {
       await write(chunk);
       chunk = '';
@@ -82,8 +127,16 @@ export async function run(): Promise<void> {
   const file = path.join(dir, 'session-1h-100hz.csv');
   try {
     const { rows, laps } = await writeSession(file, 100, 3600);
-    process.stdout.write(`generated ${rows} rows x ${HEADER.length} channels (${(statSync(file).size / 1e6).toFixed(0)} MB, ~${laps} laps)\n`);
-    const track = readTrackFile(path.join(projectRoot, 'tracks', 'tarnwick-club.json'), { stepM: 1, columns: {}, widthM: null, layout: 'auto', smoothingM: null });
+    process.stdout.write(
+      `generated ${rows} rows x ${HEADER.length} channels (${(statSync(file).size / 1e6).toFixed(0)} MB, ~${laps} laps)\n`,
+    );
+    const track = readTrackFile(path.join(projectRoot, 'tracks', 'tarnwick-club.json'), {
+      stepM: 1,
+      columns: {},
+      widthM: null,
+      layout: 'auto',
+      smoothingM: null,
+    });
     const read: number[] = [];
     const cut: number[] = [];
     const align: number[] = [];
@@ -97,9 +150,25 @@ export async function run(): Promise<void> {
       const measured = await sampledPeak(() => readTelemetryFile(file, { columns: {} }));
       const session = measured.value;
       const t1 = performance.now();
-      const keptMb = [session.timeS, session.distanceM, session.speedMps, session.throttle, session.brake, session.axMps2, session.ayMps2, session.steeringDeg, session.gear, session.rpm, session.xM, session.yM]
-        .reduce((sum, values) => sum + (values?.byteLength ?? 0), 0) / (1024 * 1024);
-      readPeak.push(`+${(measured.peakMb - measured.baseMb).toFixed(0)} MB over ${measured.baseMb.toFixed(0)} MB for ${keptMb.toFixed(1)} MB of channels kept`);
+      const keptMb =
+        [
+          session.timeS,
+          session.distanceM,
+          session.speedMps,
+          session.throttle,
+          session.brake,
+          session.axMps2,
+          session.ayMps2,
+          session.steeringDeg,
+          session.gear,
+          session.rpm,
+          session.xM,
+          session.yM,
+        ].reduce((sum, values) => sum + (values?.byteLength ?? 0), 0) /
+        (1024 * 1024);
+      readPeak.push(
+        `+${(measured.peakMb - measured.baseMb).toFixed(0)} MB over ${measured.baseMb.toFixed(0)} MB for ${keptMb.toFixed(1)} MB of channels kept`,
+      );
       const { laps: cuts } = cutLaps(session, track, {});
       const t2 = performance.now();
       const { lap } = selectLap(session, track);
@@ -113,11 +182,15 @@ export async function run(): Promise<void> {
       summary = `${cuts.filter((c) => c.complete).length} complete laps of ${cuts.length}; fastest lap ${lap.lapNumber}, ${lap.lapTimeS.toFixed(3)} s`;
     }
     process.stdout.write(`${summary}\n`);
-    process.stdout.write(`read (streamed CSV): median ${median(read).toFixed(0)} ms; resident memory during the read, runs 1-3: ${readPeak.join('; ')}\n`);
+    process.stdout.write(
+      `read (streamed CSV): median ${median(read).toFixed(0)} ms; resident memory during the read, runs 1-3: ${readPeak.join('; ')}\n`,
+    );
     process.stdout.write(`cut into laps (projection of every sample): median ${median(cut).toFixed(0)} ms\n`);
     process.stdout.write(`select + align fastest lap: median ${median(align).toFixed(0)} ms\n`);
     process.stdout.write(`read + cut + align: median ${median(total).toFixed(0)} ms (target well under 10000 ms)\n`);
-    process.stdout.write(`read + cut + align, CPU time (user + system): median ${median(cpu).toFixed(0)} ms; the machine's load average was ${os.loadavg()[0]!.toFixed(1)} on ${os.cpus().length} cores\n`);
+    process.stdout.write(
+      `read + cut + align, CPU time (user + system): median ${median(cpu).toFixed(0)} ms; the machine's load average was ${os.loadavg()[0]!.toFixed(1)} on ${os.cpus().length} cores\n`,
+    );
     process.stdout.write(`peak RSS of the process: ${peakRssMb().toFixed(0)} MB (target under 1024 MB)\n`);
   } finally {
     rmSync(dir, { recursive: true, force: true });

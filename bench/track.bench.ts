@@ -14,9 +14,17 @@ const projectRoot = fileURLToPath(new URL('../..', import.meta.url));
 function centrelineCsv(): { text: string; source: string; columns: Record<string, string> } {
   const shared = path.resolve(projectRoot, '..', 'shared', 'data', 'open-tracks', 'Silverstone.csv');
   if (existsSync(shared)) {
-    return { text: readFileSync(shared, 'utf8'), source: 'Silverstone.csv (TUM racetrack-database, OpenStreetMap)', columns: { width_left_m: 'w_tr_left_m', width_right_m: 'w_tr_right_m' } };
+    return {
+      text: readFileSync(shared, 'utf8'),
+      source: 'Silverstone.csv (TUM racetrack-database, OpenStreetMap)',
+      columns: { width_left_m: 'w_tr_left_m', width_right_m: 'w_tr_right_m' },
+    };
   }
-  const demo = parseTrackText(readFileSync(path.join(projectRoot, 'tracks', 'velmora-downs.json'), 'utf8'), 'velmora-downs.json', { stepM: 5, columns: {}, widthM: null, layout: 'auto', smoothingM: null });
+  const demo = parseTrackText(
+    readFileSync(path.join(projectRoot, 'tracks', 'velmora-downs.json'), 'utf8'),
+    'velmora-downs.json',
+    { stepM: 5, columns: {}, widthM: null, layout: 'auto', smoothingM: null },
+  );
   const rows = ['x_m,y_m'];
   for (let i = 0; i < demo.xM.length; i++) rows.push(`${demo.xM[i]!.toFixed(3)},${demo.yM[i]!.toFixed(3)}`);
   return { text: rows.join('\n'), source: 'velmora-downs sampled every 5 m', columns: {} };
@@ -26,15 +34,25 @@ export async function run(): Promise<void> {
   const csv = centrelineCsv();
   const options: TrackReadOptions = { stepM: 1, columns: csv.columns, widthM: null, layout: 'auto', smoothingM: null };
   let points = 0;
-  const csvMs = medianTimeMs(() => {
-    points = parseTrackText(csv.text, 'bench.csv', options).xM.length;
-  }, 30, 5);
-  process.stdout.write(`centreline CSV ${csv.source}: read + resample + smooth at 1 m, ${points} points: median ${csvMs.toFixed(2)} ms (target < 50 ms)\n`);
+  const csvMs = medianTimeMs(
+    () => {
+      points = parseTrackText(csv.text, 'bench.csv', options).xM.length;
+    },
+    30,
+    5,
+  );
+  process.stdout.write(
+    `centreline CSV ${csv.source}: read + resample + smooth at 1 m, ${points} points: median ${csvMs.toFixed(2)} ms (target < 50 ms)\n`,
+  );
 
   const demoText = readFileSync(path.join(projectRoot, 'tracks', 'velmora-downs.json'), 'utf8');
-  const segmentMs = medianTimeMs(() => {
-    points = parseTrackText(demoText, 'velmora-downs.json', { ...options, columns: {} }).xM.length;
-  }, 30, 5);
+  const segmentMs = medianTimeMs(
+    () => {
+      points = parseTrackText(demoText, 'velmora-downs.json', { ...options, columns: {} }).xM.length;
+    },
+    30,
+    5,
+  );
   process.stdout.write(`segment JSON velmora-downs at 1 m, ${points} points: median ${segmentMs.toFixed(2)} ms\n`);
 
   const n = 2500;
@@ -43,13 +61,23 @@ export async function run(): Promise<void> {
   const entry = (_i: number, k: number) => (k === 0 ? 1 : 0) + lambda * penalty[k]!;
   const rhs = new Float64Array(n).map((_, i) => Math.sin(i / 10));
   const out = new Float64Array(n);
-  const factorMs = medianTimeMs(() => {
-    cyclicBandedSolver(n, 2, entry)(rhs, out);
-  }, 50, 10);
+  const factorMs = medianTimeMs(
+    () => {
+      cyclicBandedSolver(n, 2, entry)(rhs, out);
+    },
+    50,
+    10,
+  );
   const factor = factorCyclicBanded(n, 2, entry);
-  const solveMs = medianTimeMs(() => {
-    solveCyclicBanded(factor, rhs, out);
-  }, 200, 20);
-  process.stdout.write(`cyclic pentadiagonal n = ${n}: factor + solve median ${factorMs.toFixed(3)} ms, solve alone ${solveMs.toFixed(3)} ms\n`);
+  const solveMs = medianTimeMs(
+    () => {
+      solveCyclicBanded(factor, rhs, out);
+    },
+    200,
+    20,
+  );
+  process.stdout.write(
+    `cyclic pentadiagonal n = ${n}: factor + solve median ${factorMs.toFixed(3)} ms, solve alone ${solveMs.toFixed(3)} ms\n`,
+  );
   process.stdout.write(`peak RSS ${peakRssMb().toFixed(0)} MB\n`);
 }

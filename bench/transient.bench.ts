@@ -19,13 +19,20 @@ import { medianTimeMs, peakRssMb } from './stats.js';
 const projectRoot = fileURLToPath(new URL('../..', import.meta.url));
 
 function benchOne(label: string, track: TrackGrid): void {
-  const car = { ...parseCarJson(readFileSync(`${projectRoot}cars/tarnfell-gt.json`, 'utf8'), 'cars/tarnfell-gt.json'), model: 'bicycle' as const };
+  const car = {
+    ...parseCarJson(readFileSync(`${projectRoot}cars/tarnfell-gt.json`, 'utf8'), 'cars/tarnfell-gt.json'),
+    model: 'bicycle' as const,
+  };
   const ambient = ambientFrom();
   const lap = simulate(track, car, { ambient });
   let check: TransientCheck | null = null;
-  const ms = medianTimeMs(() => {
-    check = checkTransient(lap, car, { ambient });
-  }, 5, 1);
+  const ms = medianTimeMs(
+    () => {
+      check = checkTransient(lap, car, { ambient });
+    },
+    5,
+    1,
+  );
   const c = check! as TransientCheck;
   process.stdout.write(
     `transient check, ${label} (${(track.lengthM / 1000).toFixed(2)} km, ${track.distanceM.length} points): median ${(ms / 1000).toFixed(3)} s per lap (target < 5 s); ` +
@@ -36,10 +43,26 @@ function benchOne(label: string, track: TrackGrid): void {
 }
 
 export async function run(): Promise<void> {
-  benchOne('benchmark circuit', trackFromSegments({ name: 'benchmark circuit', closed: true, widthM: 12, segments: benchmarkCircuitSegments() }, 1, 'benchmark'));
+  benchOne(
+    'benchmark circuit',
+    trackFromSegments(
+      { name: 'benchmark circuit', closed: true, widthM: 12, segments: benchmarkCircuitSegments() },
+      1,
+      'benchmark',
+    ),
+  );
   const monza = resolve(projectRoot, '..', 'shared', 'data', 'open-tracks', 'Monza.csv');
   if (existsSync(monza)) {
-    benchOne('Monza centreline', readTrackFile(monza, { stepM: 1, columns: parseColumnMapping('width_left_m=w_tr_left_m,width_right_m=w_tr_right_m', '--columns'), widthM: null, layout: 'auto', smoothingM: null }));
+    benchOne(
+      'Monza centreline',
+      readTrackFile(monza, {
+        stepM: 1,
+        columns: parseColumnMapping('width_left_m=w_tr_left_m,width_right_m=w_tr_right_m', '--columns'),
+        widthM: null,
+        layout: 'auto',
+        smoothingM: null,
+      }),
+    );
   } else {
     process.stdout.write('transient check on a real circuit: skipped (../shared/data/open-tracks is absent)\n');
   }

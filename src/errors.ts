@@ -3,7 +3,15 @@
 
 /** Control characters quoted from a user's file (a line break in a quoted cell, a stray CR) are shown escaped. */
 function oneLine(message: string): string {
-  return message.replace(/[\u0000-\u001f\u007f\u0085\u2028\u2029]/g, (c) => (c === '\n' ? '\\n' : c === '\r' ? '\\r' : c === '\t' ? '\\t' : `\\u${c.charCodeAt(0).toString(16).padStart(4, '0')}`));
+  return message.replace(/[\u0000-\u001f\u007f\u0085\u2028\u2029]/g, (c) =>
+    c === '\n'
+      ? '\\n'
+      : c === '\r'
+        ? '\\r'
+        : c === '\t'
+          ? '\\t'
+          : `\\u${c.charCodeAt(0).toString(16).padStart(4, '0')}`,
+  );
 }
 
 /** A problem with the user's input: one line, naming the file and the place. */

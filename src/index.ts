@@ -12,10 +12,31 @@ export * from './units.js';
 // Track input and geometry.
 export { readTrackFile, parseTrackText, type TrackReadOptions } from './io/read-track.js';
 export { parseColumnMapping } from './io/columns.js';
-export { trackFromSegments, CLOSURE_TOLERANCE_M, CLOSURE_TOLERANCE_DEG, type TrackSegment, type SegmentTrackSpec } from './track/segments.js';
-export { trackFromCentreline, centrelinePath, uniformGrid, type CentrelinePoints, type CentrelineOptions } from './track/resample.js';
+export {
+  trackFromSegments,
+  CLOSURE_TOLERANCE_M,
+  CLOSURE_TOLERANCE_DEG,
+  type TrackSegment,
+  type SegmentTrackSpec,
+} from './track/segments.js';
+export {
+  trackFromCentreline,
+  centrelinePath,
+  uniformGrid,
+  type CentrelinePoints,
+  type CentrelineOptions,
+} from './track/resample.js';
 export { whittakerSmoother, smoothingLambda } from './track/smooth.js';
-export { bandedSolver, cyclicBandedSolver, factorBanded, solveBanded, factorCyclicBanded, solveCyclicBanded, type BandEntry, type BandedSolve } from './numeric/banded.js';
+export {
+  bandedSolver,
+  cyclicBandedSolver,
+  factorBanded,
+  solveBanded,
+  factorCyclicBanded,
+  solveCyclicBanded,
+  type BandEntry,
+  type BandedSolve,
+} from './numeric/banded.js';
 
 export { ambientFrom, airDensityKgPerM3, ISA_SEA_LEVEL } from './car/ambient.js';
 export { readCarFile, parseCarJson, carFromJson, validateCar } from './io/read-car.js';
@@ -33,9 +54,27 @@ export { sweepReportHtml, sweepChartSvgs } from './report/sweep-page.js';
 export { whatifReportHtml, whatifChartSvgs, type WhatifPageInput } from './report/sweep-whatif.js';
 
 // Setup assumptions: what-ifs, sweeps, stints and the SAE J1349 power correction.
-export { j1349CorrectionFactor, j1349PowerFactor, dryAirPressureKpa, saturationVapourPressureHpa, SAE_J1349_EDITIONS, type J1349Edition } from './car/power-correction.js';
+export {
+  j1349CorrectionFactor,
+  j1349PowerFactor,
+  dryAirPressureKpa,
+  saturationVapourPressureHpa,
+  SAE_J1349_EDITIONS,
+  type J1349Edition,
+} from './car/power-correction.js';
 export { ALL_FIELDS, CAR_FIELDS, AMBIENT_FIELDS, closestField, readCarField, writeCarField } from './sweep/fields.js';
-export { parseSetting, parseVariation, applySetup, applySettings, variationValues, airInputsOf, type Setting, type Variation, type SetupBase, type AirInputs } from './sweep/settings.js';
+export {
+  parseSetting,
+  parseVariation,
+  applySetup,
+  applySettings,
+  variationValues,
+  airInputsOf,
+  type Setting,
+  type Variation,
+  type SetupBase,
+  type AirInputs,
+} from './sweep/settings.js';
 export { matchBrakingZones, signedLapShiftM } from './sweep/match-zones.js';
 export { brakingPointM } from './sweep/braking-point.js';
 export { compareSetupChange, type LapComparison, type ZoneChange } from './sweep/compare-laps.js';
@@ -58,8 +97,21 @@ export { lineCsv, LINE_CSV_COLUMNS } from './line/line-csv.js';
 export { readLineFile, parseLineCsv } from './io/read-line.js';
 
 // Telemetry in: reading driver logs (CSV, NMEA 0183, GPX 1.1), cutting laps, alignment onto the track grid.
-export { readTelemetryFile, parseTelemetryText, sniffTelemetryFormat, type TelemetryReadOptions, type TelemetryFormat } from './io/telemetry/read-telemetry.js';
-export { streamTelemetryCsv, CHUNK_ROWS, type TelemetryChunk, type TelemetryStreamSummary, type TelemetryChannel, type TelemetryStreamOptions } from './io/telemetry/read-telemetry.js';
+export {
+  readTelemetryFile,
+  parseTelemetryText,
+  sniffTelemetryFormat,
+  type TelemetryReadOptions,
+  type TelemetryFormat,
+} from './io/telemetry/read-telemetry.js';
+export {
+  streamTelemetryCsv,
+  CHUNK_ROWS,
+  type TelemetryChunk,
+  type TelemetryStreamSummary,
+  type TelemetryChannel,
+  type TelemetryStreamOptions,
+} from './io/telemetry/read-telemetry.js';
 export { CANONICAL_COLUMNS } from './io/telemetry/columns.js';
 export { nmeaChecksum } from './io/telemetry/nmea.js';
 export { localPlane, projectLatLon, reprojectPlane, type GeoOrigin, type LocalPlane } from './io/telemetry/geo.js';
@@ -69,13 +121,28 @@ export { placeSession, MATCH_LIMIT_M, type PlacedSession } from './compare/place
 export { MIN_COVERAGE } from './compare/lap-coverage.js';
 export { alignLap, selectLap, type SelectOptions } from './compare/align.js';
 export { axFromSpeed, pathCurvature, speedFromPositions } from './compare/derive.js';
-export { projectPath, projectGlobal, fitRigidToCentreline, applyRigid, type PathProjection, type PointProjection, type RigidTransform } from './track/project.js';
+export {
+  projectPath,
+  projectGlobal,
+  fitRigidToCentreline,
+  applyRigid,
+  type PathProjection,
+  type PointProjection,
+  type RigidTransform,
+} from './track/project.js';
 
 // The bicycle model: axle-limited envelope, understeer and steering, transient check.
 export { bicycleEnvelope, type BicycleEnvelope } from './car/bicycle-envelope.js';
 export { bicycleParams, bicycleMissingFields, type BicycleParams } from './car/bicycle-params.js';
 export { longitudinalLoadTransferN, lateralLoadTransferN } from './car/load-transfer.js';
-export { understeerGradientRadPerMps2, understeerGradientDegPerG, steadyStateSteerRad, characteristicSpeedMps, criticalSpeedMps, yawRateGainPerS } from './car/understeer.js';
+export {
+  understeerGradientRadPerMps2,
+  understeerGradientDegPerG,
+  steadyStateSteerRad,
+  characteristicSpeedMps,
+  criticalSpeedMps,
+  yawRateGainPerS,
+} from './car/understeer.js';
 export { describeCar, type CarDescription } from './car/describe.js';
 export { steeringTraceDeg, criticalSpeedWarning } from './solve/steering.js';
 export { checkTransient, type TransientCheck, type TransientOptions, type SaturationZone } from './solve/transient.js';
@@ -85,14 +152,41 @@ export type { ComparisonResult, CornerComparison, Finding, GripStretch } from '.
 export { compareLaps, compareLaps as compareDriverLap } from './compare/compare-laps.js';
 export { DEFAULT_COMPARE_OPTIONS, type CompareOptions } from './compare/compare-options.js';
 export { estimatedPedal } from './compare/estimated-pedal.js';
-export { compareSession, envelopeSamplesOf, type CompareSessionOptions, type SessionComparison } from './compare/compare-session.js';
-export { detectCorners, DEFAULT_CORNER_OPTIONS, type CornerSpan, type CornerDetectionOptions } from './compare/corners.js';
+export {
+  compareSession,
+  envelopeSamplesOf,
+  type CompareSessionOptions,
+  type SessionComparison,
+} from './compare/compare-session.js';
+export {
+  detectCorners,
+  DEFAULT_CORNER_OPTIONS,
+  type CornerSpan,
+  type CornerDetectionOptions,
+} from './compare/corners.js';
 export { timeDeltaS, clockAt, distanceAsTimeS } from './compare/delta.js';
 export { rankFindings, cornerFindingText, DEFAULT_FINDING_OPTIONS, type FindingOptions } from './compare/findings.js';
-export { fitEnvelope, quantileSorted, DEFAULT_ENVELOPE_FIT, type EnvelopeFitOptions, type EnvelopeSamples } from './compare/envelope-fit.js';
-export { demonstratedEnvelope, type DemonstratedEnvelopeRecord, type EnvelopeBand } from './car/demonstrated-envelope.js';
+export {
+  fitEnvelope,
+  quantileSorted,
+  DEFAULT_ENVELOPE_FIT,
+  type EnvelopeFitOptions,
+  type EnvelopeSamples,
+} from './compare/envelope-fit.js';
+export {
+  demonstratedEnvelope,
+  type DemonstratedEnvelopeRecord,
+  type EnvelopeBand,
+} from './car/demonstrated-envelope.js';
 export { readEnvelopeFile, parseEnvelopeJson } from './io/read-envelope.js';
-export { demoDriverLap, demoLogCsv, seededRandom, DEFAULT_DEMO_LOG, type DemoDriverLap, type DemoFault } from './compare/demo-driver.js';
+export {
+  demoDriverLap,
+  demoLogCsv,
+  seededRandom,
+  DEFAULT_DEMO_LOG,
+  type DemoDriverLap,
+  type DemoFault,
+} from './compare/demo-driver.js';
 export { compareSummaryText, compareSummaryJson, alignedTracesCsv } from './report/compare-summary.js';
 
 // Validation that lists every problem in car, track and telemetry files (`reflap check`).

@@ -12,7 +12,9 @@ export function airDensityKgPerM3(airTempC: number, pressureHpa: number): number
 }
 
 /** Engine power follows SAE J1349 (see power-correction.ts); humidity, when given, lowers the dry-air pressure. */
-export function ambientFrom(conditions: { airTempC: number; pressureHpa: number; relativeHumidityPct?: number } = ISA_SEA_LEVEL): Ambient {
+export function ambientFrom(
+  conditions: { airTempC: number; pressureHpa: number; relativeHumidityPct?: number } = ISA_SEA_LEVEL,
+): Ambient {
   return {
     airTempC: conditions.airTempC,
     pressureHpa: conditions.pressureHpa,

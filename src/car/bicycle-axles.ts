@@ -35,22 +35,52 @@ export const newAxleState = (): AxleState => ({
  * Sum over the axle's two tyres of (mu(Fz) / mu0) Fz: the axle's friction capacity per unit of friction coefficient.
  * The inner tyre lifts when the transfer exceeds half the axle load; the outer then carries it all.
  */
-export function frictionLoadN(axleLoadN: number, transferN: number, staticTyreLoadN: number, sensitivity: number): number {
+export function frictionLoadN(
+  axleLoadN: number,
+  transferN: number,
+  staticTyreLoadN: number,
+  sensitivity: number,
+): number {
   const half = 0.5 * axleLoadN;
   const moved = Math.min(Math.abs(transferN), half);
   const outer = half + moved;
   const inner = half - moved;
   if (sensitivity === 0) return axleLoadN;
-  return loadSensitiveMu(1, outer, staticTyreLoadN, sensitivity) * outer + loadSensitiveMu(1, inner, staticTyreLoadN, sensitivity) * inner;
+  return (
+    loadSensitiveMu(1, outer, staticTyreLoadN, sensitivity) * outer +
+    loadSensitiveMu(1, inner, staticTyreLoadN, sensitivity) * inner
+  );
 }
 
 /** Fills `out` with the axle loads, capacities and cornering demands at this downforce, ax and ay. */
-export function axleState(p: BicycleParams, tyre: Car['tyre'], downforceN: number, axMps2: number, ayMps2: number, out: AxleState): AxleState {
+export function axleState(
+  p: BicycleParams,
+  tyre: Car['tyre'],
+  downforceN: number,
+  axMps2: number,
+  ayMps2: number,
+  out: AxleState,
+): AxleState {
   const shiftN = longitudinalLoadTransferN(p.massKg, axMps2, p.cgHeightM, p.wheelbaseM);
   const frontLoadN = Math.max(0, p.weightN * p.frontWeightFraction + downforceN * p.frontDownforceFraction - shiftN);
-  const rearLoadN = Math.max(0, p.weightN * (1 - p.frontWeightFraction) + downforceN * (1 - p.frontDownforceFraction) + shiftN);
-  const frontTransferN = lateralLoadTransferN(p.massKg, ayMps2, p.cgHeightM, p.trackFrontM, p.rollStiffnessFrontFraction);
-  const rearTransferN = lateralLoadTransferN(p.massKg, ayMps2, p.cgHeightM, p.trackRearM, 1 - p.rollStiffnessFrontFraction);
+  const rearLoadN = Math.max(
+    0,
+    p.weightN * (1 - p.frontWeightFraction) + downforceN * (1 - p.frontDownforceFraction) + shiftN,
+  );
+  const frontTransferN = lateralLoadTransferN(
+    p.massKg,
+    ayMps2,
+    p.cgHeightM,
+    p.trackFrontM,
+    p.rollStiffnessFrontFraction,
+  );
+  const rearTransferN = lateralLoadTransferN(
+    p.massKg,
+    ayMps2,
+    p.cgHeightM,
+    p.trackRearM,
+    1 - p.rollStiffnessFrontFraction,
+  );
   const frontFrictionN = frictionLoadN(frontLoadN, frontTransferN, p.staticTyreLoadFrontN, tyre.loadSensitivity);
   const rearFrictionN = frictionLoadN(rearLoadN, rearTransferN, p.staticTyreLoadRearN, tyre.loadSensitivity);
   const lateralN = p.massKg * Math.abs(ayMps2);

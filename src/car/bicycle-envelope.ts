@@ -26,7 +26,8 @@ const TABLE_STEP_MPS = 0.1;
 const TABLE_TOP_MPS = 160;
 const BISECTION_STEPS = 60;
 
-const share = (demandN: number, capacityN: number): number => (capacityN > 0 ? demandN / capacityN : demandN > 0 ? Infinity : 0);
+const share = (demandN: number, capacityN: number): number =>
+  capacityN > 0 ? demandN / capacityN : demandN > 0 ? Infinity : 0;
 
 export function bicycleEnvelope(car: Car, ambient: Ambient): BicycleEnvelope {
   const p = bicycleParams(car);
@@ -40,7 +41,8 @@ export function bicycleEnvelope(car: Car, ambient: Ambient): BicycleEnvelope {
   const bias = p.brakeFrontBias;
   const scratch: AxleState = newAxleState();
   const downforceN = (speedMps: number) => halfRhoLift * speedMps * speedMps;
-  const upperForceN = (speedMps: number, mu: number) => 2 * mu * (1 + tyre.loadSensitivity) * (p.weightN + Math.max(0, downforceN(speedMps))) + 1;
+  const upperForceN = (speedMps: number, mu: number) =>
+    2 * mu * (1 + tyre.loadSensitivity) * (p.weightN + Math.max(0, downforceN(speedMps))) + 1;
 
   const lateralFits = (speedMps: number, ayMps2: number): boolean => {
     const s = axleState(p, tyre, downforceN(speedMps), 0, ayMps2, scratch);
@@ -125,7 +127,10 @@ export function bicycleEnvelope(car: Car, ambient: Ambient): BicycleEnvelope {
   const brakeLimitMps2 = (speedMps: number, lateralMps2: number): number => {
     const coastMps2 = base.coastDecelMps2(speedMps);
     if (Math.abs(lateralMps2) >= lateralLimitMps2(speedMps)) return coastMps2;
-    const forceN = largestFitting((f) => brakeFits(speedMps, lateralMps2, f, coastMps2), Math.min(brakeCapN, upperForceN(speedMps, tyre.muLong)));
+    const forceN = largestFitting(
+      (f) => brakeFits(speedMps, lateralMps2, f, coastMps2),
+      Math.min(brakeCapN, upperForceN(speedMps, tyre.muLong)),
+    );
     return forceN / massKg + coastMps2;
   };
 
@@ -150,7 +155,11 @@ export function bicycleEnvelope(car: Car, ambient: Ambient): BicycleEnvelope {
       frontLong = share(-bias * tyreForceN, cap * s.frontLongCapN);
       rearLong = share(-(1 - bias) * tyreForceN, cap * s.rearLongCapN);
     }
-    return Math.max(combinedShare(frontLong, frontLat, exponent), combinedShare(rearLong, rearLat, exponent), engineShare);
+    return Math.max(
+      combinedShare(frontLong, frontLat, exponent),
+      combinedShare(rearLong, rearLat, exponent),
+      engineShare,
+    );
   };
 
   const lateralLimitingAxle = (speedMps: number): Axle => {

@@ -59,8 +59,10 @@ export function demonstratedEnvelope(record: DemonstratedEnvelopeRecord): Envelo
     const w = (speedMps - speeds[lo]!) / (speeds[hi]! - speeds[lo]!);
     return values[lo]! + w * (values[hi]! - values[lo]!);
   };
-  const coastDecelMps2 = (speedMps: number) => record.coast.constantMps2 + record.coast.quadraticPerM * speedMps * speedMps;
-  const lateralLimitMps2 = (speedMps: number, side: number) => Math.max(0.1, lookup(side >= 0 ? left : right, speedMps));
+  const coastDecelMps2 = (speedMps: number) =>
+    record.coast.constantMps2 + record.coast.quadraticPerM * speedMps * speedMps;
+  const lateralLimitMps2 = (speedMps: number, side: number) =>
+    Math.max(0.1, lookup(side >= 0 ? left : right, speedMps));
   // Tyre share of forward drive: the demonstrated net value plus the drag it overcame, fading to nothing at the
   // top speed reached, so the envelope never drives faster than the driver has.
   const driveMps2 = (speedMps: number) => {

@@ -6,7 +6,13 @@ import type { Ambient, Car } from './types.js';
 import type { Envelope } from './envelope.js';
 import { buildEnvelope } from './build-envelope.js';
 import { totalMassKg } from './point-mass.js';
-import { characteristicSpeedMps, criticalSpeedMps, linearAxlesOf, understeerGradientDegPerG, understeerGradientRadPerMps2 } from './understeer.js';
+import {
+  characteristicSpeedMps,
+  criticalSpeedMps,
+  linearAxlesOf,
+  understeerGradientDegPerG,
+  understeerGradientRadPerMps2,
+} from './understeer.js';
 import { bicycleEnvelope, type BicycleEnvelope } from './bicycle-envelope.js';
 import { kphToMps, mps2ToG, mpsToKph } from '../units.js';
 
@@ -43,11 +49,16 @@ function isBicycleEnvelope(envelope: Envelope): envelope is BicycleEnvelope {
 
 const TABLE_SPEEDS_KPH = [40, 80, 120, 160, 200, 240, 280, 320];
 
-export function describeCar(car: Car, ambient: Ambient, envelope: Envelope = buildEnvelope(car, ambient)): CarDescription {
+export function describeCar(
+  car: Car,
+  ambient: Ambient,
+  envelope: Envelope = buildEnvelope(car, ambient),
+): CarDescription {
   const massKg = totalMassKg(car);
   const axles = linearAxlesOf(car);
   const gradient = axles ? understeerGradientRadPerMps2(axles) : null;
-  const bicycle = car.model === 'bicycle' ? (isBicycleEnvelope(envelope) ? envelope : bicycleEnvelope(car, ambient)) : null;
+  const bicycle =
+    car.model === 'bicycle' ? (isBicycleEnvelope(envelope) ? envelope : bicycleEnvelope(car, ambient)) : null;
   const topSpeedKph = mpsToKph(envelope.topSpeedMps);
   const speeds = TABLE_SPEEDS_KPH.filter((kph) => kph < topSpeedKph);
   const rows = speeds.map((speedKph): EnvelopeRow => {

@@ -44,7 +44,9 @@ export function driveForceTable(car: Car, powerFactor: number): DriveForceTable 
       const ratio = gearing.gearRatios[g]! * gearing.finalDrive;
       const rpm = (speedMps / gearing.wheelRadiusM) * ratio * radPerSToRpm;
       if (rpm > gearing.maxRpm) continue;
-      const wheelForce = (torqueAt(gearing.torqueCurve.rpm, gearing.torqueCurve.torqueNm, rpm) * ratio * gearing.drivetrainEfficiency) / gearing.wheelRadiusM;
+      const wheelForce =
+        (torqueAt(gearing.torqueCurve.rpm, gearing.torqueCurve.torqueNm, rpm) * ratio * gearing.drivetrainEfficiency) /
+        gearing.wheelRadiusM;
       if (wheelForce > best) {
         best = wheelForce;
         bestGear = g + 1;

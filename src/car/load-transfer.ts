@@ -4,11 +4,22 @@
 // taken as zero so that all lateral transfer goes through the springs and bars).
 
 /** Load moved from the front axle to the rear by a forward acceleration, N (negative under braking). */
-export function longitudinalLoadTransferN(massKg: number, axMps2: number, cgHeightM: number, wheelbaseM: number): number {
+export function longitudinalLoadTransferN(
+  massKg: number,
+  axMps2: number,
+  cgHeightM: number,
+  wheelbaseM: number,
+): number {
   return (massKg * axMps2 * cgHeightM) / wheelbaseM;
 }
 
 /** Load moved from the inner to the outer tyre of one axle by a lateral acceleration, N (signed like ay). */
-export function lateralLoadTransferN(massKg: number, ayMps2: number, cgHeightM: number, trackM: number, rollStiffnessShare: number): number {
+export function lateralLoadTransferN(
+  massKg: number,
+  ayMps2: number,
+  cgHeightM: number,
+  trackM: number,
+  rollStiffnessShare: number,
+): number {
   return (rollStiffnessShare * massKg * ayMps2 * cgHeightM) / trackM;
 }

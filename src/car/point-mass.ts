@@ -42,7 +42,10 @@ function drivenLoadN(car: Car, weightN: number, downforceN: number): number {
 }
 
 /** Top speed where the net forward acceleration at zero lateral demand reaches zero, by bisection. */
-export function topSpeedOf(accelLimitMps2: (speedMps: number, lateralMps2: number) => number, ceilingMps = 250): number {
+export function topSpeedOf(
+  accelLimitMps2: (speedMps: number, lateralMps2: number) => number,
+  ceilingMps = 250,
+): number {
   if (accelLimitMps2(ceilingMps, 0) > 0) return ceilingMps;
   let lo = 0.5;
   let hi = ceilingMps;
@@ -63,7 +66,8 @@ export function pointMassEnvelope(car: Car, ambient: Ambient): Envelope {
   const brakeCapMps2 = car.brakes.maxDecelG === null ? Infinity : car.brakes.maxDecelG * STANDARD_GRAVITY_MPS2;
   const drive = driveForceTable(car, ambient.powerFactor);
 
-  const normalLoadN = (speedMps: number) => Math.max(0.1 * weightN, weightN + halfRho * car.aero.liftAreaM2 * speedMps * speedMps);
+  const normalLoadN = (speedMps: number) =>
+    Math.max(0.1 * weightN, weightN + halfRho * car.aero.liftAreaM2 * speedMps * speedMps);
   const coastDecelMps2 = (speedMps: number) =>
     (halfRho * car.aero.dragAreaM2 * speedMps * speedMps + car.rollingResistanceCoeff * normalLoadN(speedMps)) / massKg;
   const lateralLimitMps2 = (speedMps: number) => {

@@ -56,7 +56,12 @@ export function dryAirPressureKpa(pressureHpa: number, airTempC: number, relativ
 export function j1349CorrectionFactor(input: PowerCorrectionInput): number {
   const { a, b } = SAE_J1349_EDITIONS[input.edition ?? DEFAULT_J1349_EDITION];
   const dryKpa = dryAirPressureKpa(input.pressureHpa, input.airTempC, input.relativeHumidityPct ?? 0);
-  return a * (J1349_REFERENCE_DRY_PRESSURE_KPA / dryKpa) * Math.sqrt((input.airTempC + J1349_KELVIN_OFFSET) / (J1349_REFERENCE_TEMP_C + J1349_KELVIN_OFFSET)) - b;
+  return (
+    a *
+      (J1349_REFERENCE_DRY_PRESSURE_KPA / dryKpa) *
+      Math.sqrt((input.airTempC + J1349_KELVIN_OFFSET) / (J1349_REFERENCE_TEMP_C + J1349_KELVIN_OFFSET)) -
+    b
+  );
 }
 
 /** Multiplier on the rated power for these air conditions: 1 / CF (1 at 25 °C, 99 kPa dry air). */

@@ -27,10 +27,16 @@ export function understeerGradientRadPerMps2(car: LinearAxles): number {
 }
 
 /** The same gradient in the handbook's unit, degrees per g. */
-export const understeerGradientDegPerG = (car: LinearAxles): number => radToDeg(understeerGradientRadPerMps2(car) * STANDARD_GRAVITY_MPS2);
+export const understeerGradientDegPerG = (car: LinearAxles): number =>
+  radToDeg(understeerGradientRadPerMps2(car) * STANDARD_GRAVITY_MPS2);
 
 /** Road-wheel steer angle in steady cornering, rad: kinematic L kappa plus K ay (kappa and ay signed alike). */
-export function steadyStateSteerRad(wheelbaseM: number, curvaturePerM: number, gradientRadPerMps2: number, ayMps2: number): number {
+export function steadyStateSteerRad(
+  wheelbaseM: number,
+  curvaturePerM: number,
+  gradientRadPerMps2: number,
+  ayMps2: number,
+): number {
   return wheelbaseM * curvaturePerM + gradientRadPerMps2 * ayMps2;
 }
 

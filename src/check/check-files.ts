@@ -49,7 +49,10 @@ function sessionSummary(kind: FileKind, session: TelemetrySession): string {
 
 function capped(problems: string[], file: string): string[] {
   if (problems.length <= MAX_PROBLEMS_PER_FILE) return problems;
-  return [...problems.slice(0, MAX_PROBLEMS_PER_FILE), `${file}: ... and ${problems.length - MAX_PROBLEMS_PER_FILE} more problems`];
+  return [
+    ...problems.slice(0, MAX_PROBLEMS_PER_FILE),
+    `${file}: ... and ${problems.length - MAX_PROBLEMS_PER_FILE} more problems`,
+  ];
 }
 
 /** Checks one file's text; `source` names it in messages and its extension helps tell the kind. */
@@ -61,7 +64,9 @@ export function checkText(text: string, source: string): FileCheck {
     return result;
   }
   if (kind === 'unknown') {
-    result.problems.push(`${source}: not a file reflap reads: expected a car or segment track (JSON), a centreline CSV (x_m, y_m), or a log (CSV with a time column, NMEA 0183, GPX)`);
+    result.problems.push(
+      `${source}: not a file reflap reads: expected a car or segment track (JSON), a centreline CSV (x_m, y_m), or a log (CSV with a time column, NMEA 0183, GPX)`,
+    );
     return result;
   }
   if (kind === 'car') {
@@ -82,7 +87,8 @@ export function checkText(text: string, source: string): FileCheck {
     } catch (error) {
       const message = inputMessage(error);
       if (kind === 'track-csv') result.problems = centrelineCellProblems(text, source).problems;
-      if (result.problems.length === 0) result.problems.push(...(kind === 'track-json' ? splitProblems(message, source) : [message]));
+      if (result.problems.length === 0)
+        result.problems.push(...(kind === 'track-json' ? splitProblems(message, source) : [message]));
     }
     result.problems = capped(result.problems, source);
     return result;
@@ -90,7 +96,8 @@ export function checkText(text: string, source: string): FileCheck {
   try {
     const session = parseTelemetryText(text, source, { columns: {} });
     // Repeated time stamps are a note of the cell pass (it knows their lines); it runs only when the log has one.
-    if (kind === 'telemetry-csv' && hasRepeatedTime(session.timeS)) result.notes.push(...telemetryCellProblems(text, source).notes);
+    if (kind === 'telemetry-csv' && hasRepeatedTime(session.timeS))
+      result.notes.push(...telemetryCellProblems(text, source).notes);
     result.notes.push(...session.notes);
     result.summary = sessionSummary(kind, session);
   } catch (error) {
@@ -116,7 +123,14 @@ export const STREAMED_CHECK_BYTES = 128 * 1024 * 1024;
 
 function unreadable(file: string, error: unknown): FileCheck {
   const code = (error as NodeJS.ErrnoException).code;
-  const reason = code === 'ENOENT' ? 'no such file' : code === 'EISDIR' ? 'is a directory' : code === 'EACCES' ? 'permission denied' : (code ?? 'unreadable');
+  const reason =
+    code === 'ENOENT'
+      ? 'no such file'
+      : code === 'EISDIR'
+        ? 'is a directory'
+        : code === 'EACCES'
+          ? 'permission denied'
+          : (code ?? 'unreadable');
   return { file, kind: 'unknown', problems: [`${file}: cannot read the file (${reason})`], notes: [], summary: null };
 }
 
@@ -135,9 +149,17 @@ function headOf(file: string): string {
 async function checkLargeFile(file: string, limitBytes: number): Promise<FileCheck> {
   const head = headOf(file);
   const kind = detectKind(head, file);
-  const result: FileCheck = { file, kind, problems: [], notes: [`large file: read by streaming, so only the first problem is listed`], summary: null };
+  const result: FileCheck = {
+    file,
+    kind,
+    problems: [],
+    notes: [`large file: read by streaming, so only the first problem is listed`],
+    summary: null,
+  };
   if (kind !== 'telemetry-csv') {
-    result.problems.push(`${file}: ${KIND_LABELS[kind]} of over ${(limitBytes / 1024 / 1024).toFixed(0)} MB; only telemetry CSV files may be that large`);
+    result.problems.push(
+      `${file}: ${KIND_LABELS[kind]} of over ${(limitBytes / 1024 / 1024).toFixed(0)} MB; only telemetry CSV files may be that large`,
+    );
     return result;
   }
   try {
@@ -152,12 +174,19 @@ async function checkLargeFile(file: string, limitBytes: number): Promise<FileChe
 }
 
 /** Checks every file; a file that cannot be read is a problem of that file, not the end of the check. */
-export async function checkFiles(files: readonly string[], options: { streamAboveBytes?: number } = {}): Promise<CheckReport> {
+export async function checkFiles(
+  files: readonly string[],
+  options: { streamAboveBytes?: number } = {},
+): Promise<CheckReport> {
   const streamAboveBytes = options.streamAboveBytes ?? STREAMED_CHECK_BYTES;
   const checks: FileCheck[] = [];
   for (const file of files) {
     try {
-      checks.push(statSync(file).size > streamAboveBytes ? await checkLargeFile(file, streamAboveBytes) : checkText(readFileSync(file, 'utf8'), file));
+      checks.push(
+        statSync(file).size > streamAboveBytes
+          ? await checkLargeFile(file, streamAboveBytes)
+          : checkText(readFileSync(file, 'utf8'), file),
+      );
     } catch (error) {
       if (error instanceof InputError) throw error;
       if ((error as NodeJS.ErrnoException).code === undefined) throw error;

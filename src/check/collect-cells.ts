@@ -33,14 +33,16 @@ export function centrelineCellProblems(text: string, source: string): CellProble
   const indexOf = (name: (typeof TRACK_COLUMNS)[number]) => header.indexOf(name);
   const columns = TRACK_COLUMNS.map((name) => ({ name, index: indexOf(name) })).filter((column) => column.index >= 0);
   for (const required of ['x_m', 'y_m']) {
-    if (header.indexOf(required) < 0) problems.push(`${source}: required column ${required} not found; columns found: ${header.join(', ')}`);
+    if (header.indexOf(required) < 0)
+      problems.push(`${source}: required column ${required} not found; columns found: ${header.join(', ')}`);
   }
   if (problems.length > 0) return { problems, notes: [] };
   rows.forEach((row, r) => {
     for (const column of columns) {
       try {
         const value = numberCell(row[column.index] ?? '', source, lines[r]!, column.name);
-        if (column.name.startsWith('width') && value < 0) problems.push(`${source}: row ${lines[r]}, column ${column.name}: negative width ${value} m`);
+        if (column.name.startsWith('width') && value < 0)
+          problems.push(`${source}: row ${lines[r]}, column ${column.name}: negative width ${value} m`);
       } catch (error) {
         problems.push(messageOf(error));
       }
@@ -64,7 +66,9 @@ export function telemetryCellProblems(text: string, source: string): CellProblem
   // twice over as rows of strings.
   const check = (record: string[], line: number): void => {
     if (headers === null) {
-      headers = record.map((cell, index) => (index === 0 ? cell.replace(/^\uFEFF/, '').replace(/^\s*#\s*/, '') : cell).trim());
+      headers = record.map((cell, index) =>
+        (index === 0 ? cell.replace(/^\uFEFF/, '').replace(/^\s*#\s*/, '') : cell).trim(),
+      );
       bindings = bindColumns(headers, {}, source).bindings;
       time = bindings.find((binding) => binding.quantity === 'time');
       return;
@@ -74,11 +78,16 @@ export function telemetryCellProblems(text: string, source: string): CellProblem
       if (MISSING_CELLS.has(cell.toLowerCase())) continue;
       const value = Number(dialect!.decimalComma ? cell.replace(',', '.') : cell);
       if (!Number.isFinite(value)) {
-        problems.push(`${source}: line ${line}, column ${binding.header}: '${cell.length > 40 ? `${cell.slice(0, 40)}...` : cell}' is not a number`);
+        problems.push(
+          `${source}: line ${line}, column ${binding.header}: '${cell.length > 40 ? `${cell.slice(0, 40)}...` : cell}' is not a number`,
+        );
         continue;
       }
       if (binding === time) {
-        if (value < previousTime) problems.push(`${source}: line ${line}, column ${binding.header}: time runs backwards (${value} after ${previousTime})`);
+        if (value < previousTime)
+          problems.push(
+            `${source}: line ${line}, column ${binding.header}: time runs backwards (${value} after ${previousTime})`,
+          );
         if (value === previousTime && repeats++ === 0) firstRepeatLine = line;
         previousTime = value;
       }
@@ -87,7 +96,12 @@ export function telemetryCellProblems(text: string, source: string): CellProblem
   try {
     dialect = sniffDialect(text.slice(0, 65536), source);
     parse(text, {
-      delimiter: dialect.delimiter, bom: true, from_line: dialect.headerLine, relax_column_count: true, relax_quotes: true, skip_empty_lines: true,
+      delimiter: dialect.delimiter,
+      bom: true,
+      from_line: dialect.headerLine,
+      relax_column_count: true,
+      relax_quotes: true,
+      skip_empty_lines: true,
       on_record: (record: string[], context: { lines: number }) => {
         check(record, context.lines);
         return null;
@@ -95,9 +109,17 @@ export function telemetryCellProblems(text: string, source: string): CellProblem
     });
   } catch (error) {
     if (error instanceof InputError) return { problems: [error.message], notes };
-    return { problems: [`${source}: cannot read as CSV: ${error instanceof Error ? error.message.split('\n')[0] : String(error)}`], notes };
+    return {
+      problems: [
+        `${source}: cannot read as CSV: ${error instanceof Error ? error.message.split('\n')[0] : String(error)}`,
+      ],
+      notes,
+    };
   }
   if (headers === null) return { problems: [`${source}: empty file (no header)`], notes };
-  if (repeats > 0) notes.push(`${repeats} row${repeats > 1 ? 's repeat' : ' repeats'} the time stamp of the row before (first at line ${firstRepeatLine})`);
+  if (repeats > 0)
+    notes.push(
+      `${repeats} row${repeats > 1 ? 's repeat' : ' repeats'} the time stamp of the row before (first at line ${firstRepeatLine})`,
+    );
   return { problems, notes };
 }

@@ -6,7 +6,8 @@ import { looksLikeGpx } from '../io/telemetry/gpx.js';
 import { looksLikeNmea } from '../io/telemetry/nmea.js';
 import { recogniseHeader } from '../io/telemetry/columns.js';
 
-export type FileKind = 'car' | 'track-json' | 'track-csv' | 'telemetry-csv' | 'telemetry-nmea' | 'telemetry-gpx' | 'unknown';
+export type FileKind =
+  'car' | 'track-json' | 'track-csv' | 'telemetry-csv' | 'telemetry-nmea' | 'telemetry-gpx' | 'unknown';
 
 export const KIND_LABELS: Record<FileKind, string> = {
   car: 'car JSON',
@@ -37,7 +38,10 @@ export function detectKind(head: string, source: string): FileKind {
   }
   const firstLine = start.split(/\r?\n/, 1)[0] ?? '';
   if (firstLine === '') return 'unknown';
-  const names = firstLine.replace(/^#\s*/, '').split(/[,;\t]/).map((name) => name.trim().replace(/^"|"$/g, ''));
+  const names = firstLine
+    .replace(/^#\s*/, '')
+    .split(/[,;\t]/)
+    .map((name) => name.trim().replace(/^"|"$/g, ''));
   if (names.some((name) => recogniseHeader(name)?.quantity === 'time')) return 'telemetry-csv';
   if (names.includes('x_m') && names.includes('y_m')) return 'track-csv';
   return 'unknown';

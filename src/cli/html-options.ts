@@ -25,7 +25,11 @@ export function addReportOutputs(outputs: OutputBatch, values: ReportOptionValue
 }
 
 /** Adds any report page's files (built only when asked for) to the batch and returns their paths. */
-export function addPageOutputs(outputs: OutputBatch, values: ReportOptionValues, page: { html: () => string; charts: () => ChartSvg[] }): string[] {
+export function addPageOutputs(
+  outputs: OutputBatch,
+  values: ReportOptionValues,
+  page: { html: () => string; charts: () => ChartSvg[] },
+): string[] {
   const files: string[] = [];
   if (values.html) {
     outputs.add(values.html, page.html());
@@ -45,6 +49,9 @@ export function reportWrittenText(files: string[]): string {
   if (files.length === 0) return '';
   const html = files.filter((file) => file.endsWith('.html'));
   const svgs = files.length - html.length;
-  const parts = [...html.map((file) => `Report written to ${file}`), ...(svgs ? [`${svgs} chart SVG files written to ${path.dirname(files[files.length - 1]!)}`] : [])];
+  const parts = [
+    ...html.map((file) => `Report written to ${file}`),
+    ...(svgs ? [`${svgs} chart SVG files written to ${path.dirname(files[files.length - 1]!)}`] : []),
+  ];
   return parts.join('\n') + '\n';
 }

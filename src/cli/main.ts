@@ -20,7 +20,19 @@ interface CommandModule {
 }
 
 // Order here is the order of `reflap --help`.
-const commandModules: CommandModule[] = [simulateCommand, budgetCommand, whatifCommand, sweepCommand, stintCommand, compareCommand, envelopeCommand, lineCommand, carCommand, checkCommand, demoCommand];
+const commandModules: CommandModule[] = [
+  simulateCommand,
+  budgetCommand,
+  whatifCommand,
+  sweepCommand,
+  stintCommand,
+  compareCommand,
+  envelopeCommand,
+  lineCommand,
+  carCommand,
+  checkCommand,
+  demoCommand,
+];
 
 export function buildProgram(): Command {
   const program = new Command();
@@ -44,7 +56,8 @@ export async function main(argv: string[]): Promise<number> {
   } catch (error) {
     if (error instanceof CommanderError) {
       // Help and version end through here with code 0; usage errors are bad input.
-      if (error.exitCode === 0 || error.code === 'commander.helpDisplayed' || error.code === 'commander.version') return 0;
+      if (error.exitCode === 0 || error.code === 'commander.helpDisplayed' || error.code === 'commander.version')
+        return 0;
       return 2;
     }
     if (isInputError(error)) {
@@ -52,7 +65,9 @@ export async function main(argv: string[]): Promise<number> {
       return 2;
     }
     const message = error instanceof Error ? (error.stack ?? error.message) : String(error);
-    process.stderr.write(`reflap: internal error: ${message}\nThis is a fault in reflap, not in your files; please report it with the command you ran.\n`);
+    process.stderr.write(
+      `reflap: internal error: ${message}\nThis is a fault in reflap, not in your files; please report it with the command you ran.\n`,
+    );
     return 1;
   }
 }

@@ -48,7 +48,13 @@ export function addTrackOptions(command: Command): Command {
     .option('--step-m <m>', 'grid step along the track, m (default 1)')
     .option('--width-m <m>', 'track width where the file gives none, m (split evenly left and right)')
     .option('--start-speed-kph <v>', 'speed at the start of an open track, km/h (default 0)')
-    .addOption(new Option('--layout <kind>', 'closed circuit or open stage (default: closed when the ends meet)').choices(['auto', 'closed', 'open']))
+    .addOption(
+      new Option('--layout <kind>', 'closed circuit or open stage (default: closed when the ends meet)').choices([
+        'auto',
+        'closed',
+        'open',
+      ]),
+    )
     .option('--smoothing-m <m>', 'shortest wavelength kept by the centreline smoothing, m (default 30)');
 }
 
@@ -57,7 +63,11 @@ export function addCarOptions(command: Command): Command {
     .requiredOption('--car <file>', 'car file (JSON)')
     .option('--air-temp-c <c>', 'air temperature, °C (default 15, ISA sea level)')
     .option('--pressure-hpa <p>', 'air pressure, hPa (default 1013.25, ISA sea level)')
-    .addOption(new Option('--model <kind>', 'vehicle model for the envelope (default: the car file\'s, else point-mass)').choices(['point-mass', 'bicycle']));
+    .addOption(
+      new Option('--model <kind>', "vehicle model for the envelope (default: the car file's, else point-mass)").choices(
+        ['point-mass', 'bicycle'],
+      ),
+    );
 }
 
 export function trackReadOptions(values: TrackOptionValues): TrackReadOptions {
@@ -66,7 +76,8 @@ export function trackReadOptions(values: TrackOptionValues): TrackReadOptions {
   const widthM = numberOption(values.widthM, '--width-m', null);
   if (widthM !== null && !(widthM > 0)) throw new InputError(`option --width-m: ${widthM} must be positive`);
   const smoothingM = numberOption(values.smoothingM, '--smoothing-m', null);
-  if (smoothingM !== null && !(smoothingM >= 0)) throw new InputError(`option --smoothing-m: ${smoothingM} must not be negative`);
+  if (smoothingM !== null && !(smoothingM >= 0))
+    throw new InputError(`option --smoothing-m: ${smoothingM} must not be negative`);
   const layout = (values.layout ?? 'auto') as TrackReadOptions['layout'];
   return {
     stepM,
@@ -90,8 +101,10 @@ export function startSpeedMps(values: TrackOptionValues): number {
 export function ambientOptions(values: CarOptionValues): Ambient {
   const airTempC = numberOption(values.airTempC, '--air-temp-c', 15);
   const pressureHpa = numberOption(values.pressureHpa, '--pressure-hpa', 1013.25);
-  if (!(airTempC > -60 && airTempC < 70)) throw new InputError(`option --air-temp-c: ${airTempC} °C is outside -60 to 70 °C`);
-  if (!(pressureHpa > 300 && pressureHpa < 1200)) throw new InputError(`option --pressure-hpa: ${pressureHpa} hPa is outside 300 to 1200 hPa`);
+  if (!(airTempC > -60 && airTempC < 70))
+    throw new InputError(`option --air-temp-c: ${airTempC} °C is outside -60 to 70 °C`);
+  if (!(pressureHpa > 300 && pressureHpa < 1200))
+    throw new InputError(`option --pressure-hpa: ${pressureHpa} hPa is outside 300 to 1200 hPa`);
   return ambientFrom({ airTempC, pressureHpa });
 }
 

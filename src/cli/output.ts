@@ -31,7 +31,11 @@ function temporaryBeside(file: string): string {
 }
 
 /** Writes text or bytes atomically: a reader sees the old file or the whole new one, never half of it. */
-export function writeFileAtomic(file: string, content: string | Uint8Array, inputFiles: readonly (string | undefined | null)[] = []): void {
+export function writeFileAtomic(
+  file: string,
+  content: string | Uint8Array,
+  inputFiles: readonly (string | undefined | null)[] = [],
+): void {
   refuseOverwritingInputs(file, inputFiles);
   const temporary = temporaryBeside(file);
   try {

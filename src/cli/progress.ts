@@ -36,7 +36,13 @@ export function createProgress(options: ProgressOptions): Progress {
       if (!bar) {
         if (Date.now() - startedAt < delayMs || done >= total) return;
         bar = new cliProgress.SingleBar(
-          { stream, format: `${options.label} [{bar}] {value}/{total} runs, {eta_formatted} left`, hideCursor: true, clearOnComplete: true, etaBuffer: 50 },
+          {
+            stream,
+            format: `${options.label} [{bar}] {value}/{total} runs, {eta_formatted} left`,
+            hideCursor: true,
+            clearOnComplete: true,
+            etaBuffer: 50,
+          },
           cliProgress.Presets.shades_classic,
         );
         bar.start(total, done);

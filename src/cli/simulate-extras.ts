@@ -10,7 +10,13 @@ import { transientJson, transientSummaryText } from '../report/transient-summary
 
 /** The bicycle-model additions to `reflap simulate`: the steering column, the transient check, the stability warning. */
 /** `lineOffsetM`: the racing line's offsets when the reference drove one, so the check measures the room to the edges from the line. */
-export function bicycleSimulateExtras(result: LapResult, car: Car, ambient: Ambient, withTransient: boolean, lineOffsetM?: Float64Array): { columns: ExtraColumn[]; text: string; json: Record<string, unknown> } {
+export function bicycleSimulateExtras(
+  result: LapResult,
+  car: Car,
+  ambient: Ambient,
+  withTransient: boolean,
+  lineOffsetM?: Float64Array,
+): { columns: ExtraColumn[]; text: string; json: Record<string, unknown> } {
   const columns: ExtraColumn[] = [];
   if (canTraceSteering(car)) columns.push({ name: 'steering_deg', values: steeringTraceDeg(result, car), digits: 3 });
   const warning = criticalSpeedWarning(result, car);
@@ -18,7 +24,10 @@ export function bicycleSimulateExtras(result: LapResult, car: Car, ambient: Ambi
   const json: Record<string, unknown> = { warnings: warning ? [warning] : [] };
   if (withTransient) {
     const check = checkTransient(result, car, { ambient, ...(lineOffsetM ? { pathOffsetM: lineOffsetM } : {}) });
-    columns.push({ name: 'transient_error_m', values: check.lateralErrorM, digits: 3 }, { name: 'transient_speed_mps', values: check.followedSpeedMps, digits: 3 });
+    columns.push(
+      { name: 'transient_error_m', values: check.lateralErrorM, digits: 3 },
+      { name: 'transient_speed_mps', values: check.followedSpeedMps, digits: 3 },
+    );
     text += transientSummaryText(check);
     json.transient = transientJson(check);
   }

@@ -10,7 +10,14 @@ import type { DriverLap, TelemetrySession } from './types.js';
 import { cutLaps, type LapCut } from './laps.js';
 import { placeSession } from './place-session.js';
 import { sessionDistance } from './session-distance.js';
-import { axFromSpeed, ayFromCurvature, correlation, curvatureTooNoisy, pathCurvature, speedFromPositions } from './derive.js';
+import {
+  axFromSpeed,
+  ayFromCurvature,
+  correlation,
+  curvatureTooNoisy,
+  pathCurvature,
+  speedFromPositions,
+} from './derive.js';
 
 export interface SelectOptions {
   lap?: number;
@@ -29,7 +36,11 @@ function atTime(values: Float64Array, timeS: Float64Array, i: number, tq: number
   return values[i]! + w * (values[j]! - values[i]!);
 }
 
-export function alignLapWithNotes(session: TelemetrySession, lap: LapCut, track: TrackGrid): { lap: DriverLap; notes: string[] } {
+export function alignLapWithNotes(
+  session: TelemetrySession,
+  lap: LapCut,
+  track: TrackGrid,
+): { lap: DriverLap; notes: string[] } {
   const notes: string[] = [];
   if (lap.startTimeS === undefined || lap.endTimeS === undefined || lap.progressStartM === undefined) {
     throw new Error('alignLap needs a LapCut made by cutLaps');
@@ -107,7 +118,8 @@ export function alignLapWithNotes(session: TelemetrySession, lap: LapCut, track:
     for (let j = 0; j < n; j++) out[j] = weight[j]! < 0.5 ? values[weightIndex[j]!]! : values[weightIndex[j]! + 1]!;
     return out;
   };
-  const channel = (values: Float64Array | null, held = false) => (values ? (held ? resampleHeld : resample)(channelAt(values)) : null);
+  const channel = (values: Float64Array | null, held = false) =>
+    values ? (held ? resampleHeld : resample)(channelAt(values)) : null;
 
   // Time from station 0 (rotated when the line is elsewhere, so timeS[0] = 0 and the lap time is kept).
   const passTime = resample(elapsed);
@@ -155,13 +167,16 @@ export function alignLapWithNotes(session: TelemetrySession, lap: LapCut, track:
     derivedChannels.push('axMps2');
   } else if (correlation(axMps2, derivedAx) < -0.5) {
     for (let j = 0; j < n; j++) axMps2[j] = -axMps2[j]!;
-    notes.push('the logged longitudinal acceleration runs opposite to the speed trace: sign turned (positive = speeding up)');
+    notes.push(
+      'the logged longitudinal acceleration runs opposite to the speed trace: sign turned (positive = speeding up)',
+    );
   }
 
   let curvature = track.curvaturePerM;
   if (xM && yM) {
     const own = pathCurvature(xM, yM, track.stepM, track.closed);
-    if (curvatureTooNoisy(own, track.curvaturePerM)) notes.push("the driver's path is too noisy for its curvature: lateral acceleration uses the track's");
+    if (curvatureTooNoisy(own, track.curvaturePerM))
+      notes.push("the driver's path is too noisy for its curvature: lateral acceleration uses the track's");
     else curvature = own;
   }
   const derivedAy = ayFromCurvature(speedMps, curvature);
@@ -197,7 +212,11 @@ export function alignLapWithNotes(session: TelemetrySession, lap: LapCut, track:
 }
 
 /** Cuts the session and aligns one lap: the given lap number, else the fastest complete lap. */
-export function selectLap(session: TelemetrySession, track: TrackGrid, options: SelectOptions = {}): { lap: DriverLap; laps: LapCut[]; notes: string[] } {
+export function selectLap(
+  session: TelemetrySession,
+  track: TrackGrid,
+  options: SelectOptions = {},
+): { lap: DriverLap; laps: LapCut[]; notes: string[] } {
   const cut = cutLaps(session, track, options.startFinish ? { startFinish: options.startFinish } : {});
   const notes = [...session.notes, ...cut.notes];
   const complete = cut.laps.filter((lap) => lap.complete);
@@ -205,16 +224,23 @@ export function selectLap(session: TelemetrySession, track: TrackGrid, options: 
   if (options.lap !== undefined) {
     chosen = cut.laps.find((lap) => lap.lapNumber === options.lap);
     if (!chosen) {
-      throw new InputError(`${session.source}: --lap ${options.lap}: no such lap (laps found: ${cut.laps.map((lap) => lap.lapNumber).join(', ') || 'none'})`);
+      throw new InputError(
+        `${session.source}: --lap ${options.lap}: no such lap (laps found: ${cut.laps.map((lap) => lap.lapNumber).join(', ') || 'none'})`,
+      );
     }
-    if (!chosen.complete) throw new InputError(`${session.source}: --lap ${options.lap} is not a complete lap: ${chosen.reason}`);
+    if (!chosen.complete)
+      throw new InputError(`${session.source}: --lap ${options.lap} is not a complete lap: ${chosen.reason}`);
   } else {
     if (complete.length === 0) {
       const why = cut.laps.map((lap) => `lap ${lap.lapNumber}: ${lap.reason}`).join('; ');
-      throw new InputError(`${session.source}: no complete lap in the session on track ${track.name} (${why || 'no laps'})`);
+      throw new InputError(
+        `${session.source}: no complete lap in the session on track ${track.name} (${why || 'no laps'})`,
+      );
     }
     chosen = complete.reduce((best, lap) => (lap.lapTimeS < best.lapTimeS ? lap : best));
-    notes.push(`lap ${chosen.lapNumber} chosen: the fastest of ${complete.length} complete lap${complete.length > 1 ? 's' : ''} (${formatLapTime(chosen.lapTimeS)})`);
+    notes.push(
+      `lap ${chosen.lapNumber} chosen: the fastest of ${complete.length} complete lap${complete.length > 1 ? 's' : ''} (${formatLapTime(chosen.lapTimeS)})`,
+    );
   }
   const aligned = alignLapWithNotes(session, chosen, track);
   return { lap: aligned.lap, laps: cut.laps, notes: [...notes, ...aligned.notes] };

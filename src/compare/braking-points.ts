@@ -82,6 +82,14 @@ export function compareBraking(
     brakingPointDeltaM = (drvSlowU - refSlowU) * step;
     brakingPointDeltaS = distanceAsTimeS(brakingPointDeltaM, interpolate(refView.speedMps, refSlowU, n));
   }
-  const liftPointDeltaM = refBrake === null && drvBrake === null && drvLift !== null && refLift !== null ? (drvLift - refLift) * step : null;
-  return { referenceBrake: refBrake, driverBrake: drvBrake, driverLift: drvLift, brakingPointDeltaM, brakingPointDeltaS, liftPointDeltaM };
+  const liftPointDeltaM =
+    refBrake === null && drvBrake === null && drvLift !== null && refLift !== null ? (drvLift - refLift) * step : null;
+  return {
+    referenceBrake: refBrake,
+    driverBrake: drvBrake,
+    driverLift: drvLift,
+    brakingPointDeltaM,
+    brakingPointDeltaS,
+    liftPointDeltaM,
+  };
 }

@@ -31,10 +31,17 @@ export function compareLaps(
   const n = track.distanceM.length;
   const step = track.stepM;
   const closed = track.closed;
-  for (const [name, values] of [['time', driver.timeS], ['speed', driver.speedMps], ['ax', driver.axMps2], ['ay', driver.ayMps2]] as const) {
-    if (values.length !== n) throw new Error(`driver lap ${name} has ${values.length} stations but the track grid has ${n}`);
+  for (const [name, values] of [
+    ['time', driver.timeS],
+    ['speed', driver.speedMps],
+    ['ax', driver.axMps2],
+    ['ay', driver.ayMps2],
+  ] as const) {
+    if (values.length !== n)
+      throw new Error(`driver lap ${name} has ${values.length} stations but the track grid has ${n}`);
   }
-  if (reference.trace.count !== n) throw new Error(`reference lap has ${reference.trace.count} samples but the track grid has ${n}`);
+  if (reference.trace.count !== n)
+    throw new Error(`reference lap has ${reference.trace.count} samples but the track grid has ${n}`);
   const ref = reference.trace;
   const deltaS = timeDeltaS(driver.timeS, ref.timeS);
   const notes: string[] = [];
@@ -42,12 +49,18 @@ export function compareLaps(
   const driverBrake = driver.brake ?? estimatedPedal(driver, envelope, 'brake');
   if (!driver.brake) notes.push('the log has no brake channel: braking points are estimated from the deceleration');
   const driverGripUse = new Float64Array(n);
-  for (let i = 0; i < n; i++) driverGripUse[i] = envelope.gripUse(driver.speedMps[i]!, driver.axMps2[i]!, driver.ayMps2[i]!);
+  for (let i = 0; i < n; i++)
+    driverGripUse[i] = envelope.gripUse(driver.speedMps[i]!, driver.axMps2[i]!, driver.ayMps2[i]!);
   const smoothHalf = Math.round(2.5 / step);
   const driverGripSmooth = movingAverage(driverGripUse, smoothHalf, closed);
   const referenceGripSmooth = movingAverage(ref.gripUse, smoothHalf, closed);
 
-  const drv: LapView = { speedMps: driver.speedMps, timeS: driver.timeS, lapTimeS: driver.lapTimeS, brake: driverBrake };
+  const drv: LapView = {
+    speedMps: driver.speedMps,
+    timeS: driver.timeS,
+    lapTimeS: driver.lapTimeS,
+    brake: driverBrake,
+  };
   const refView: LapView = { speedMps: ref.speedMps, timeS: ref.timeS, lapTimeS: reference.lapTimeS, brake: ref.brake };
   const stationM = track.distanceM;
   const driverZones = findBrakingZones({ closed, count: n, speedMps: driver.speedMps, stationM, brake: driverBrake });
@@ -57,12 +70,23 @@ export function compareLaps(
   if (spans.length === 0) notes.push('no corners found on this track: the whole lap is reported as one stretch');
   const bounds = ownershipBounds(spans, refView, drv, n, step, closed);
   const at = (values: Float64Array, u: number) => values[((u % n) + n) % n]!;
-  const deltaAt = (u: number) => clockAt(driver.timeS, driver.lapTimeS, u, closed) - clockAt(ref.timeS, reference.lapTimeS, u, closed);
+  const deltaAt = (u: number) =>
+    clockAt(driver.timeS, driver.lapTimeS, u, closed) - clockAt(ref.timeS, reference.lapTimeS, u, closed);
 
   const corners: CornerComparison[] = spans.map((span, c) => {
     const ownStart = bounds[c]!;
     const ownEnd = bounds[c + 1]!;
-    const braking = compareBraking(referenceZones, driverZones, refView, drv, span, ownStart, n, step, settings.pedalThreshold);
+    const braking = compareBraking(
+      referenceZones,
+      driverZones,
+      refView,
+      drv,
+      span,
+      ownStart,
+      n,
+      step,
+      settings.pedalThreshold,
+    );
     const refBrake = braking.referenceBrake;
     const drvBrake = braking.driverBrake;
     const drvLift = braking.driverLift;
@@ -72,12 +96,37 @@ export function compareLaps(
     const entryLost = lost.entryS;
     const middleLost = lost.middleS;
     const exitLost = lost.exitS;
-    const coastingS = driver.throttle && driver.brake ? coastingTime(driver.throttle, driver.brake, driver.timeS, driver.lapTimeS, ownStart, ownEnd, closed, settings.pedalThreshold) : null;
-    const referenceCoastingS = coastingS === null ? null : coastingTime(ref.throttle, ref.brake, ref.timeS, reference.lapTimeS, ownStart, ownEnd, closed, settings.pedalThreshold);
+    const coastingS =
+      driver.throttle && driver.brake
+        ? coastingTime(
+            driver.throttle,
+            driver.brake,
+            driver.timeS,
+            driver.lapTimeS,
+            ownStart,
+            ownEnd,
+            closed,
+            settings.pedalThreshold,
+          )
+        : null;
+    const referenceCoastingS =
+      coastingS === null
+        ? null
+        : coastingTime(
+            ref.throttle,
+            ref.brake,
+            ref.timeS,
+            reference.lapTimeS,
+            ownStart,
+            ownEnd,
+            closed,
+            settings.pedalThreshold,
+          );
     const grip = gripFigures(driverGripUse, driverGripSmooth, span.entryIndex, span.exitIndex, n);
     const referenceGrip = gripFigures(ref.gripUse, referenceGripSmooth, span.entryIndex, span.exitIndex, n);
     const fold = (u: number) => (closed ? (((u % n) + n) % n) * step : Math.min(Math.max(u, 0), n - 1) * step);
-    const foldM = (u: number | null) => (u === null ? null : closed ? (((u * step) % track.lengthM) + track.lengthM) % track.lengthM : u * step);
+    const foldM = (u: number | null) =>
+      u === null ? null : closed ? (((u * step) % track.lengthM) + track.lengthM) % track.lengthM : u * step;
     return {
       id: span.id,
       name: span.name,

@@ -43,16 +43,34 @@ export interface SessionComparison {
 /** Samples for the envelope fit: the session's own channels when it logged both accelerations, else the aligned lap. */
 export function envelopeSamplesOf(session: TelemetrySession, lap: DriverLap): EnvelopeSamples {
   if (session.speedMps && session.axMps2 && session.ayMps2) {
-    return { speedMps: session.speedMps, axMps2: session.axMps2, ayMps2: session.ayMps2, throttle: session.throttle, brake: session.brake };
+    return {
+      speedMps: session.speedMps,
+      axMps2: session.axMps2,
+      ayMps2: session.ayMps2,
+      throttle: session.throttle,
+      brake: session.brake,
+    };
   }
   return { speedMps: lap.speedMps, axMps2: lap.axMps2, ayMps2: lap.ayMps2, throttle: lap.throttle, brake: lap.brake };
 }
 
-export function compareSession(track: TrackGrid, car: Car, session: TelemetrySession, options: CompareSessionOptions): SessionComparison {
-  const selected = selectLap(session, track, { ...(options.lap !== undefined ? { lap: options.lap } : {}), ...(options.startFinish ? { startFinish: options.startFinish } : {}) });
+export function compareSession(
+  track: TrackGrid,
+  car: Car,
+  session: TelemetrySession,
+  options: CompareSessionOptions,
+): SessionComparison {
+  const selected = selectLap(session, track, {
+    ...(options.lap !== undefined ? { lap: options.lap } : {}),
+    ...(options.startFinish ? { startFinish: options.startFinish } : {}),
+  });
   const notes = [...selected.notes];
   const lap = selected.lap;
-  const drive = { ambient: options.ambient, ...(options.path ? { path: options.path } : {}), startSpeedMps: options.startSpeedMps ?? 0 };
+  const drive = {
+    ambient: options.ambient,
+    ...(options.path ? { path: options.path } : {}),
+    startSpeedMps: options.startSpeedMps ?? 0,
+  };
   const carEnvelope = buildEnvelope(car, options.ambient);
   const carModelLap = simulate(track, car, { ...drive, envelope: carEnvelope });
   let record = options.envelopeRecord ?? null;
@@ -76,5 +94,14 @@ export function compareSession(track: TrackGrid, car: Car, session: TelemetrySes
     referenceEnvelopeKind: useDemonstrated ? 'demonstrated' : `car model (${carEnvelope.kind})`,
   });
   result.notes.unshift(...notes);
-  return { result, lap, reference, envelope, carModelLap, demonstratedLap, demonstratedRecord: record, notes: result.notes };
+  return {
+    result,
+    lap,
+    reference,
+    envelope,
+    carModelLap,
+    demonstratedLap,
+    demonstratedRecord: record,
+    notes: result.notes,
+  };
 }

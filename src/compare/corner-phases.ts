@@ -14,7 +14,14 @@ const SPLIT_MARGIN_M = 10;
  * Between two corners the split sits just before the earlier of the two laps' speed peaks on the straight, so a
  * slow exit is charged to the corner before it and an early lift or brake to the corner after it.
  */
-export function ownershipBounds(spans: CornerSpan[], ref: LapView, drv: LapView, n: number, step: number, closed: boolean): number[] {
+export function ownershipBounds(
+  spans: CornerSpan[],
+  ref: LapView,
+  drv: LapView,
+  n: number,
+  step: number,
+  closed: boolean,
+): number[] {
   const count = spans.length;
   if (count === 0) return closed ? [0, n] : [0, n - 1];
   const margin = Math.round(SPLIT_MARGIN_M / step);
@@ -35,7 +42,12 @@ export function ownershipBounds(spans: CornerSpan[], ref: LapView, drv: LapView,
  * Time lost over the corner's stretch [ownStart, ownEnd] in three phases split at the midpoints between entry, apex
  * and exit; deltaAt(u) is the driver's clock minus the reference's at unwrapped station u.
  */
-export function phaseTimesLost(span: CornerSpan, ownStart: number, ownEnd: number, deltaAt: (u: number) => number): { entryS: number; middleS: number; exitS: number } {
+export function phaseTimesLost(
+  span: CornerSpan,
+  ownStart: number,
+  ownEnd: number,
+  deltaAt: (u: number) => number,
+): { entryS: number; middleS: number; exitS: number } {
   const entryMid = clampIndex(Math.round((span.entryIndex + span.apexIndex) / 2), ownStart, ownEnd);
   const exitMid = clampIndex(Math.round((span.apexIndex + span.exitIndex) / 2), entryMid, ownEnd);
   return {
@@ -45,12 +57,22 @@ export function phaseTimesLost(span: CornerSpan, ownStart: number, ownEnd: numbe
   };
 }
 
-export function coastingTime(throttle: Float64Array, brake: Float64Array, timeS: Float64Array, lapTimeS: number, from: number, to: number, closed: boolean, threshold: number): number {
+export function coastingTime(
+  throttle: Float64Array,
+  brake: Float64Array,
+  timeS: Float64Array,
+  lapTimeS: number,
+  from: number,
+  to: number,
+  closed: boolean,
+  threshold: number,
+): number {
   const n = timeS.length;
   let total = 0;
   for (let u = from; u < to; u++) {
     const i = ((u % n) + n) % n;
-    if (throttle[i]! <= threshold && brake[i]! <= threshold) total += clockAt(timeS, lapTimeS, u + 1, closed) - clockAt(timeS, lapTimeS, u, closed);
+    if (throttle[i]! <= threshold && brake[i]! <= threshold)
+      total += clockAt(timeS, lapTimeS, u + 1, closed) - clockAt(timeS, lapTimeS, u, closed);
   }
   return total;
 }

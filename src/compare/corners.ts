@@ -60,7 +60,10 @@ interface Run {
   side: number;
 }
 
-export function detectCorners(track: TrackGrid, options: CornerDetectionOptions = DEFAULT_CORNER_OPTIONS): CornerSpan[] {
+export function detectCorners(
+  track: TrackGrid,
+  options: CornerDetectionOptions = DEFAULT_CORNER_OPTIONS,
+): CornerSpan[] {
   const n = track.distanceM.length;
   const step = track.stepM;
   if (n < 3) return [];
@@ -164,7 +167,14 @@ function wholeLapCorner(track: TrackGrid, kappa: Float64Array): CornerSpan {
 }
 
 /** Gives each named place to the corner whose span holds it, else to the nearest apex within the tolerance. */
-function nameCorners(corners: CornerSpan[], names: readonly NamedCorner[], lengthM: number, closed: boolean, toleranceM: number, stepM: number): void {
+function nameCorners(
+  corners: CornerSpan[],
+  names: readonly NamedCorner[],
+  lengthM: number,
+  closed: boolean,
+  toleranceM: number,
+  stepM: number,
+): void {
   for (const named of names) {
     let best: CornerSpan | null = null;
     let bestDistance = Infinity;

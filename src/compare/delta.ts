@@ -4,7 +4,8 @@
 /** Driver minus reference elapsed time at each station, s. */
 export function timeDeltaS(driverTimeS: Float64Array, referenceTimeS: Float64Array): Float64Array {
   const n = driverTimeS.length;
-  if (referenceTimeS.length !== n) throw new Error(`driver lap has ${n} stations but the reference has ${referenceTimeS.length}`);
+  if (referenceTimeS.length !== n)
+    throw new Error(`driver lap has ${n} stations but the reference has ${referenceTimeS.length}`);
   const delta = new Float64Array(n);
   for (let i = 0; i < n; i++) delta[i] = driverTimeS[i]! - referenceTimeS[i]!;
   return delta;

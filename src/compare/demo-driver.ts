@@ -66,7 +66,8 @@ export function demoDriverLap(track: TrackGrid, reference: LapResult, envelope: 
     .filter((corner) => !braked.slice(0, 3).some((entry) => entry.corner === corner))
     .sort((a, b) => ref.speedMps[b.apexIndex]! - ref.speedMps[a.apexIndex]!);
   const faults: DemoFault[] = [];
-  const note = (kind: DemoFault['kind'], corner: CornerSpan) => faults.push({ kind, cornerId: corner.id, cornerName: corner.name });
+  const note = (kind: DemoFault['kind'], corner: CornerSpan) =>
+    faults.push({ kind, cornerId: corner.id, cornerName: corner.name });
 
   // Mean deceleration of the reference over a braking zone, from v^2 = v0^2 - 2 a d.
   const meanDecel = (zone: (typeof zones)[number]) =>
@@ -74,14 +75,30 @@ export function demoDriverLap(track: TrackGrid, reference: LapResult, envelope: 
   if (braked[0]) {
     // Too early: the braking starts 25 m before the reference's, at 90 % of its deceleration, then holds the speed.
     const { corner, zone } = braked[0];
-    earlyBraking(speed, zone.startIndex - Math.round(25 / step), unwrapAfter(zone.minSpeedIndex, zone.startIndex, n), 0.9 * meanDecel(zone), step, n);
+    earlyBraking(
+      speed,
+      zone.startIndex - Math.round(25 / step),
+      unwrapAfter(zone.minSpeedIndex, zone.startIndex, n),
+      0.9 * meanDecel(zone),
+      step,
+      n,
+    );
     note('early-braking', corner);
   }
   if (braked[1]) {
     // Too late and too hard: 12 m after the reference, 15 % beyond the car's braking limit, slowing 8 km/h too far.
     const { corner, zone } = braked[1];
     const floor = zone.minSpeedMps * PACE - kphToMps(8);
-    const end = lateBraking(speed, zone.startIndex, unwrapAfter(zone.minSpeedIndex, zone.startIndex, n), Math.round(12 / step), (v) => 1.15 * envelope.brakeLimitMps2(v, 0), floor, step, n);
+    const end = lateBraking(
+      speed,
+      zone.startIndex,
+      unwrapAfter(zone.minSpeedIndex, zone.startIndex, n),
+      Math.round(12 / step),
+      (v) => 1.15 * envelope.brakeLimitMps2(v, 0),
+      floor,
+      step,
+      n,
+    );
     recoverFrom(speed, end, envelope, track, n);
     note('late-hard-braking', corner);
   }
@@ -130,14 +147,22 @@ export function demoDriverLap(track: TrackGrid, reference: LapResult, envelope: 
 }
 
 function near(index: number, corner: CornerSpan, n: number): boolean {
-  for (const shift of [-n, 0, n]) if (index + shift >= corner.entryIndex - 40 && index + shift <= corner.exitIndex + 10) return true;
+  for (const shift of [-n, 0, n])
+    if (index + shift >= corner.entryIndex - 40 && index + shift <= corner.exitIndex + 10) return true;
   return false;
 }
 
 const unwrapAfter = (index: number, from: number, n: number) => (index < from ? index + n : index);
 
 /** Braking from `start` at a constant deceleration, never faster than planned, held at the slowest planned speed. */
-function earlyBraking(speed: Float64Array, start: number, minIndex: number, decelMps2: number, step: number, n: number): void {
+function earlyBraking(
+  speed: Float64Array,
+  start: number,
+  minIndex: number,
+  decelMps2: number,
+  step: number,
+  n: number,
+): void {
   const floor = speed[wrap(minIndex, n)]!;
   let v = speed[wrap(start, n)]!;
   for (let i = start; i <= minIndex; i++) {
@@ -149,7 +174,16 @@ function earlyBraking(speed: Float64Array, start: number, minIndex: number, dece
 
 /** Holds the braking-point speed `lateSamples` further, then brakes at `decelMps2` down to `floor`, held to the
  * slowest point; returns the index where the driver starts to accelerate again. */
-function lateBraking(speed: Float64Array, start: number, minIndex: number, lateSamples: number, decelMps2: (speedMps: number) => number, floor: number, step: number, n: number): number {
+function lateBraking(
+  speed: Float64Array,
+  start: number,
+  minIndex: number,
+  lateSamples: number,
+  decelMps2: (speedMps: number) => number,
+  floor: number,
+  step: number,
+  n: number,
+): number {
   const peak = speed[wrap(start, n)]!;
   let i = start;
   for (; i < start + lateSamples; i++) speed[wrap(i, n)] = Math.max(speed[wrap(i, n)]!, peak);
@@ -177,7 +211,12 @@ function recoverFrom(speed: Float64Array, from: number, envelope: Envelope, trac
 }
 
 /** Throttle and brake shares that produce the speed profile on this envelope (none where the driver coasts). */
-function pedalsFor(speed: Float64Array, track: TrackGrid, envelope: Envelope, coastMask: Uint8Array): { throttle: Float64Array; brake: Float64Array } {
+function pedalsFor(
+  speed: Float64Array,
+  track: TrackGrid,
+  envelope: Envelope,
+  coastMask: Uint8Array,
+): { throttle: Float64Array; brake: Float64Array } {
   const n = speed.length;
   const throttle = new Float64Array(n);
   const brake = new Float64Array(n);
@@ -188,7 +227,8 @@ function pedalsFor(speed: Float64Array, track: TrackGrid, envelope: Envelope, co
     const ax = (next * next - v * v) / (2 * track.stepM);
     const ay = v * v * track.curvaturePerM[i]!;
     const tyreAx = ax + envelope.coastDecelMps2(v);
-    if (tyreAx >= 0) throttle[i] = Math.min(1, tyreAx / Math.max(1e-6, envelope.accelLimitMps2(v, ay) + envelope.coastDecelMps2(v)));
+    if (tyreAx >= 0)
+      throttle[i] = Math.min(1, tyreAx / Math.max(1e-6, envelope.accelLimitMps2(v, ay) + envelope.coastDecelMps2(v)));
     else brake[i] = Math.min(1, -tyreAx / Math.max(1e-6, envelope.brakeLimitMps2(v, ay) - envelope.coastDecelMps2(v)));
   }
   return { throttle, brake };

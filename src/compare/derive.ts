@@ -32,7 +32,12 @@ export function movingAverage(values: Float64Array, half: number, cyclic: boolea
 }
 
 /** Path speed from positions, m/s: distance between samples i - h and i + h over their time apart. */
-export function speedFromPositions(timeS: Float64Array, xM: Float64Array, yM: Float64Array, windowS = 0.2): Float64Array {
+export function speedFromPositions(
+  timeS: Float64Array,
+  xM: Float64Array,
+  yM: Float64Array,
+  windowS = 0.2,
+): Float64Array {
   const n = timeS.length;
   const out = new Float64Array(n);
   if (n < 2) return out;
@@ -75,7 +80,14 @@ export function axFromSpeed(speedMps: Float64Array, stepM: number, closed: boole
  * Signed curvature of the driver's path from positions on the distance grid, 1/m (positive left): the heading of
  * the chord over +-h stations, differenced over its own path length, then smoothed over ~smoothM.
  */
-export function pathCurvature(xM: Float64Array, yM: Float64Array, stepM: number, closed: boolean, chordM = 6, smoothM = 16): Float64Array {
+export function pathCurvature(
+  xM: Float64Array,
+  yM: Float64Array,
+  stepM: number,
+  closed: boolean,
+  chordM = 6,
+  smoothM = 16,
+): Float64Array {
   const n = xM.length;
   const h = Math.max(1, Math.round(chordM / stepM / 2));
   const index = (i: number) => (closed ? ((i % n) + n) % n : Math.min(n - 1, Math.max(0, i)));
@@ -92,7 +104,8 @@ export function pathCurvature(xM: Float64Array, yM: Float64Array, stepM: number,
     let turn = heading[b]! - heading[a]!;
     turn -= 2 * Math.PI * Math.round(turn / (2 * Math.PI));
     let length = 0;
-    for (let k = i - h; k < i + h; k++) length += Math.hypot(xM[index(k + 1)]! - xM[index(k)]!, yM[index(k + 1)]! - yM[index(k)]!);
+    for (let k = i - h; k < i + h; k++)
+      length += Math.hypot(xM[index(k + 1)]! - xM[index(k)]!, yM[index(k + 1)]! - yM[index(k)]!);
     raw[i] = length > 0 ? turn / length : 0;
   }
   return movingAverage(raw, Math.round(smoothM / stepM / 2), closed);

@@ -24,7 +24,12 @@ export interface EnvelopeFitOptions {
   minSpeedMps: number;
 }
 
-export const DEFAULT_ENVELOPE_FIT: EnvelopeFitOptions = { quantile: 0.98, bandWidthMps: 2.5, minSamples: 30, minSpeedMps: 5 };
+export const DEFAULT_ENVELOPE_FIT: EnvelopeFitOptions = {
+  quantile: 0.98,
+  bandWidthMps: 2.5,
+  minSamples: 30,
+  minSpeedMps: 5,
+};
 
 /** Coasting deceleration used when the log has no coasting samples: rolling resistance about 0.013 g plus drag of
  * a road car, 0.5 rho CdA / m with CdA 0.7 m^2 and m 1400 kg (from memory: typical figures). */
@@ -50,15 +55,23 @@ export function quantileSorted(sorted: Float64Array, q: number): number {
 
 export class EnvelopeFitError extends Error {}
 
-export function fitEnvelope(samples: EnvelopeSamples, source: string, options: EnvelopeFitOptions = DEFAULT_ENVELOPE_FIT): DemonstratedEnvelopeRecord {
+export function fitEnvelope(
+  samples: EnvelopeSamples,
+  source: string,
+  options: EnvelopeFitOptions = DEFAULT_ENVELOPE_FIT,
+): DemonstratedEnvelopeRecord {
   const { speedMps, axMps2, ayMps2 } = samples;
   const n = speedMps.length;
   const speeds: number[] = [];
   for (let i = 0; i < n; i++) {
     const v = speedMps[i]!;
-    if (v >= options.minSpeedMps && Number.isFinite(v) && Number.isFinite(axMps2[i]!) && Number.isFinite(ayMps2[i]!)) speeds.push(v);
+    if (v >= options.minSpeedMps && Number.isFinite(v) && Number.isFinite(axMps2[i]!) && Number.isFinite(ayMps2[i]!))
+      speeds.push(v);
   }
-  if (speeds.length < options.minSamples) throw new EnvelopeFitError(`only ${speeds.length} moving samples; at least ${options.minSamples} are needed to fit an envelope`);
+  if (speeds.length < options.minSamples)
+    throw new EnvelopeFitError(
+      `only ${speeds.length} moving samples; at least ${options.minSamples} are needed to fit an envelope`,
+    );
   const sortedSpeeds = Float64Array.from(speeds).sort();
   const topSpeedMps = quantileSorted(sortedSpeeds, 0.999);
   const bandCount = Math.max(1, Math.ceil(topSpeedMps / options.bandWidthMps));
@@ -74,7 +87,9 @@ export function fitEnvelope(samples: EnvelopeSamples, source: string, options: E
     // The component along the sector's axis: on a friction ellipse it peaks on the axis at the pure limit, where the
     // magnitude would overstate the lesser axis with the greater one's combined points.
     const direction = directionOf(ax, ay);
-    cells[band]![DIRECTIONS.indexOf(direction)]!.push(direction === 'brake' || direction === 'accel' ? Math.abs(ax) : Math.abs(ay));
+    cells[band]![DIRECTIONS.indexOf(direction)]!.push(
+      direction === 'brake' || direction === 'accel' ? Math.abs(ax) : Math.abs(ay),
+    );
     counts[band]!++;
   }
   const sortedCells = cells.map((band) => band.map((values) => Float64Array.from(values).sort()));
@@ -97,7 +112,10 @@ export function fitEnvelope(samples: EnvelopeSamples, source: string, options: E
   }
   for (const [d, direction] of DIRECTIONS.entries()) {
     const total = sortedCells.reduce((sum, band) => sum + band[d]!.length, 0);
-    if (total < options.minSamples) throw new EnvelopeFitError(`only ${total} samples of ${direction === 'accel' ? 'acceleration' : direction === 'brake' ? 'braking' : `${direction} turns`}; at least ${options.minSamples} are needed`);
+    if (total < options.minSamples)
+      throw new EnvelopeFitError(
+        `only ${total} samples of ${direction === 'accel' ? 'acceleration' : direction === 'brake' ? 'braking' : `${direction} turns`}; at least ${options.minSamples} are needed`,
+      );
   }
   return {
     format: 'reflap-demonstrated-envelope',
@@ -150,6 +168,7 @@ function fitCoast(samples: EnvelopeSamples, minSpeedMps: number): DemonstratedEn
   if (count < 50 || !(Math.abs(det) > 1e-9 * Math.max(1, count * sxx))) return { ...FALLBACK_COAST, fitted: false };
   const quadraticPerM = (count * sxy - sx * sy) / det;
   const constantMps2 = (sy - quadraticPerM * sx) / count;
-  if (!(quadraticPerM >= 0 && constantMps2 >= 0 && quadraticPerM < 0.01 && constantMps2 < 3)) return { ...FALLBACK_COAST, fitted: false };
+  if (!(quadraticPerM >= 0 && constantMps2 >= 0 && quadraticPerM < 0.01 && constantMps2 < 3))
+    return { ...FALLBACK_COAST, fitted: false };
   return { constantMps2, quadraticPerM, fitted: true };
 }

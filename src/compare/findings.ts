@@ -49,39 +49,55 @@ export function cornerClauses(corner: CornerComparison, options: FindingOptions 
   const braking = corner.brakingPointDeltaM;
   // Over the envelope, and beyond what the reference itself uses there (an envelope whose longitudinal cap
   // includes the power limit puts even the reference above 1 when it accelerates out of a fast corner).
-  const overDriven = corner.peakGripUse > Math.max(options.exceededAbove, (corner.referencePeakGripUse ?? 0) + options.exceededAbove - 1);
+  const overDriven =
+    corner.peakGripUse >
+    Math.max(options.exceededAbove, (corner.referencePeakGripUse ?? 0) + options.exceededAbove - 1);
   const underSpeed = corner.minSpeedDeltaKph <= -options.speedKph;
   if (braking !== null && braking >= options.brakingPointM && (overDriven || underSpeed)) {
-    const how = overDriven ? `grip use peaks at ${percent(corner.peakGripUse)} of the envelope` : 'the car is slowed too far';
-    clauses.push(`braking begins ${metres(braking)} after the reference at ${kph(brakingSpeedKph(corner))} and too hard: ${how}`);
+    const how = overDriven
+      ? `grip use peaks at ${percent(corner.peakGripUse)} of the envelope`
+      : 'the car is slowed too far';
+    clauses.push(
+      `braking begins ${metres(braking)} after the reference at ${kph(brakingSpeedKph(corner))} and too hard: ${how}`,
+    );
   } else if (braking !== null && braking <= -options.brakingPointM && corner.driverBrakingPointM === null) {
-    clauses.push(`the lift comes ${metres(braking)} before the reference's braking point at ${kph(brakingSpeedKph(corner))}`);
+    clauses.push(
+      `the lift comes ${metres(braking)} before the reference's braking point at ${kph(brakingSpeedKph(corner))}`,
+    );
   } else if (braking !== null && braking <= -options.brakingPointM) {
-    const seconds = corner.brakingPointDeltaS === null ? '' : ` (${Math.abs(corner.brakingPointDeltaS).toFixed(2)} s at that speed)`;
+    const seconds =
+      corner.brakingPointDeltaS === null ? '' : ` (${Math.abs(corner.brakingPointDeltaS).toFixed(2)} s at that speed)`;
     clauses.push(`braking begins ${metres(braking)} before the reference at ${kph(brakingSpeedKph(corner))}${seconds}`);
   } else if (braking !== null && braking >= options.brakingPointM) {
     clauses.push(`braking begins ${metres(braking)} after the reference at ${kph(brakingSpeedKph(corner))}`);
   }
   const lift = corner.liftPointDeltaM ?? null;
   if (braking === null && corner.driverLiftPointM !== null && corner.driverLiftPointM !== undefined) {
-    if (lift === null) clauses.push(`the throttle comes off at ${kph(corner.entrySpeedDriverKph)} where the reference stays flat out`);
+    if (lift === null)
+      clauses.push(`the throttle comes off at ${kph(corner.entrySpeedDriverKph)} where the reference stays flat out`);
     else if (lift <= -options.brakingPointM) clauses.push(`the lift comes ${metres(lift)} before the reference's`);
   }
   const coastingBeyond = (corner.coastingS ?? 0) - (corner.referenceCoastingS ?? 0);
   if (corner.coastingS !== null && coastingBeyond >= options.coastingS) {
     clauses.push(`${corner.coastingS.toFixed(1)} s spent coasting with neither pedal pressed`);
   }
-  if (underSpeed) clauses.push(`the slowest point is ${kph(corner.minSpeedDeltaKph)} under the reference's ${corner.minSpeedReferenceKph.toFixed(0)} km/h`);
+  if (underSpeed)
+    clauses.push(
+      `the slowest point is ${kph(corner.minSpeedDeltaKph)} under the reference's ${corner.minSpeedReferenceKph.toFixed(0)} km/h`,
+    );
   const referenceOffset = corner.referenceMinSpeedOffsetFromApexM ?? 0;
   if (Math.abs(corner.minSpeedOffsetFromApexM - referenceOffset) >= 5) {
     const side = corner.minSpeedOffsetFromApexM >= 0 ? 'after' : 'before';
-    clauses.push(`the slowest point falls ${metres(corner.minSpeedOffsetFromApexM)} ${side} the apex (reference ${referenceOffset.toFixed(0)} m)`);
+    clauses.push(
+      `the slowest point falls ${metres(corner.minSpeedOffsetFromApexM)} ${side} the apex (reference ${referenceOffset.toFixed(0)} m)`,
+    );
   }
   const exitDeltaKph = corner.exitSpeedDriverKph - corner.exitSpeedReferenceKph;
   if (exitDeltaKph <= -options.speedKph) clauses.push(`the exit is ${kph(exitDeltaKph)} slower`);
   const unusedM = corner.stretches.filter((s) => s.kind === 'unused').reduce((sum, s) => sum + stretchLength(s), 0);
   if (unusedM >= 10) clauses.push(`grip is left unused over ${metres(unusedM)} where the reference is on the limit`);
-  if (overDriven && !clauses[0]?.includes('too hard')) clauses.push(`grip use reaches ${percent(corner.peakGripUse)} of the envelope (sliding or locking)`);
+  if (overDriven && !clauses[0]?.includes('too hard'))
+    clauses.push(`grip use reaches ${percent(corner.peakGripUse)} of the envelope (sliding or locking)`);
   return clauses;
 }
 
@@ -109,7 +125,10 @@ export function cornerFindingText(corner: CornerComparison, options: FindingOpti
 }
 
 /** The corners that lose time, biggest loss first, each as one finding. */
-export function rankFindings(corners: readonly CornerComparison[], options: FindingOptions = DEFAULT_FINDING_OPTIONS): Finding[] {
+export function rankFindings(
+  corners: readonly CornerComparison[],
+  options: FindingOptions = DEFAULT_FINDING_OPTIONS,
+): Finding[] {
   return corners
     .filter((corner) => corner.timeLostS >= options.minTimeS)
     .sort((a, b) => b.timeLostS - a.timeLostS || a.id - b.id)

@@ -4,7 +4,13 @@
 import type { GripStretch } from './types.js';
 import type { CompareOptions } from './compare-options.js';
 
-export function gripFigures(raw: Float64Array, smooth: Float64Array, from: number, to: number, n: number): { mean: number; peak: number } {
+export function gripFigures(
+  raw: Float64Array,
+  smooth: Float64Array,
+  from: number,
+  to: number,
+  n: number,
+): { mean: number; peak: number } {
   let sum = 0;
   let peak = 0;
   let count = 0;
@@ -35,7 +41,14 @@ export function gripStretches(
   let start = from;
   let sum = 0;
   const close = (end: number) => {
-    if (kind && end - start >= minSamples) stretches.push({ startM: fold(start), endM: fold(end), kind, meanGripUse: sum / (end - start), lengthM: (end - start) * step });
+    if (kind && end - start >= minSamples)
+      stretches.push({
+        startM: fold(start),
+        endM: fold(end),
+        kind,
+        meanGripUse: sum / (end - start),
+        lengthM: (end - start) * step,
+      });
   };
   for (let u = from; u <= to; u++) {
     const i = ((u % n) + n) % n;

@@ -32,7 +32,10 @@ export interface PositionCoverage {
  * A measure of laps of placed samples: for samples first..last (inclusive) over progress [startP, endP], the share
  * of stations passed on track and the longest run off it. One station buffer serves every lap of the session.
  */
-export function positionCoverage(track: TrackGrid, placed: PlacedSession): (first: number, last: number, startP: number, endP: number) => PositionCoverage {
+export function positionCoverage(
+  track: TrackGrid,
+  placed: PlacedSession,
+): (first: number, last: number, startP: number, endP: number) => PositionCoverage {
   const L = track.lengthM;
   const p = placed.progressM;
   const stations = track.xM.length;
@@ -42,7 +45,7 @@ export function positionCoverage(track: TrackGrid, placed: PlacedSession): (firs
     const gap = placed.gapM[i]!;
     const widths = placed.offsetM[i]! >= 0 ? track.widthLeftM : track.widthRightM;
     if (!widths) return gap <= NO_WIDTH_LIMIT_M;
-    let station = Math.round((p[i]! % L + L) % L / track.stepM);
+    let station = Math.round((((p[i]! % L) + L) % L) / track.stepM);
     if (station >= stations) station = track.closed ? 0 : stations - 1;
     return gap <= widths[station]! + EDGE_MARGIN_M;
   };
@@ -79,16 +82,28 @@ export function positionCoverage(track: TrackGrid, placed: PlacedSession): (firs
 }
 
 /** Why a lap of placed samples is left out (none when it is complete). */
-export function positionLapProblems(lapNumber: number, missingStart: number, missingEnd: number, measured: PositionCoverage, allowance: number): string[] {
+export function positionLapProblems(
+  lapNumber: number,
+  missingStart: number,
+  missingEnd: number,
+  measured: PositionCoverage,
+  allowance: number,
+): string[] {
   const reasons: string[] = [];
   if (missingStart > allowance) {
-    reasons.push(lapNumber === 0 ? `out lap: the log starts ${missingStart.toFixed(0)} m after the line` : `the log starts ${missingStart.toFixed(0)} m into the lap`);
+    reasons.push(
+      lapNumber === 0
+        ? `out lap: the log starts ${missingStart.toFixed(0)} m after the line`
+        : `the log starts ${missingStart.toFixed(0)} m into the lap`,
+    );
   }
   if (missingEnd > allowance) {
     reasons.push(`the log ends ${missingEnd.toFixed(0)} m before the line`);
   }
   if (measured.coverage < MIN_COVERAGE) {
-    reasons.push(`covers ${(measured.coverage * 100).toFixed(0)} % of the track (under ${MIN_COVERAGE * 100} %: pit lane, off track or a gap in the log)`);
+    reasons.push(
+      `covers ${(measured.coverage * 100).toFixed(0)} % of the track (under ${MIN_COVERAGE * 100} %: pit lane, off track or a gap in the log)`,
+    );
   }
   if (measured.worstOffM > MAX_OFF_TRACK_M) {
     reasons.push(`leaves the track for ${measured.worstOffM.toFixed(0)} m at ${measured.worstOffAtM.toFixed(0)} m`);
@@ -100,18 +115,29 @@ export function positionLapProblems(lapNumber: number, missingStart: number, mis
 export function checkDistanceLapsMatch(session: TelemetrySession, track: TrackGrid, spans: number[]): void {
   const L = track.lengthM;
   if (spans.length > 0 && spans.every((span) => Math.abs(span / L - 1) > 0.2)) {
-    throw new InputError(`${session.source}: the telemetry does not match track ${track.name}: its laps measure about ${medianOf(Float64Array.from(spans)).toFixed(0)} m by the distance channel, the track ${L.toFixed(0)} m`);
+    throw new InputError(
+      `${session.source}: the telemetry does not match track ${track.name}: its laps measure about ${medianOf(Float64Array.from(spans)).toFixed(0)} m by the distance channel, the track ${L.toFixed(0)} m`,
+    );
   }
 }
 
 /** Why a lap between two resets of the distance channel is left out, or undefined when it is complete. */
 export function distanceLapProblem(span: number, medianSpan: number, L: number): string | undefined {
   const complete = span >= MIN_COVERAGE * medianSpan && Math.abs(span / L - 1) <= 0.1;
-  return complete ? undefined : `measures ${span.toFixed(0)} m by the distance channel, laps measure ${medianSpan.toFixed(0)} m`;
+  return complete
+    ? undefined
+    : `measures ${span.toFixed(0)} m by the distance channel, laps measure ${medianSpan.toFixed(0)} m`;
 }
 
 /** Whether a lap at an end of a log placed by distance (over [startM, endM] of the track) is complete, and why not or how finished. */
-export function distanceEdgeCheck(startM: number, endM: number, missingStart: number, missingEnd: number, L: number, allowance: number): { complete: boolean; reason: string | undefined } {
+export function distanceEdgeCheck(
+  startM: number,
+  endM: number,
+  missingStart: number,
+  missingEnd: number,
+  L: number,
+  allowance: number,
+): { complete: boolean; reason: string | undefined } {
   let reason: string | undefined;
   let complete = true;
   if (endM - startM > 1.5 * L) {
@@ -119,7 +145,10 @@ export function distanceEdgeCheck(startM: number, endM: number, missingStart: nu
     reason = `the distance channel runs ${((endM - startM) / L).toFixed(1)} track lengths without resetting; without positions the line cannot be found`;
   } else if (missingStart > allowance || missingEnd > allowance) {
     complete = false;
-    reason = missingStart > allowance ? `out lap: starts ${missingStart.toFixed(0)} m into the lap` : `the log ends ${missingEnd.toFixed(0)} m before the line`;
+    reason =
+      missingStart > allowance
+        ? `out lap: starts ${missingStart.toFixed(0)} m into the lap`
+        : `the log ends ${missingEnd.toFixed(0)} m before the line`;
   } else if (missingStart > 0 || missingEnd > 0) {
     reason = 'lap time extrapolated over the last metres before the line';
   }

@@ -32,7 +32,9 @@ export function startFinishAlong(track: TrackGrid, options: CutOptions, source: 
   const projection = emptyProjection();
   projectGlobal(track, options.startFinish.xM, options.startFinish.yM, projection);
   if (projection.gapM > MATCH_LIMIT_M) {
-    throw new InputError(`${source}: --start-finish ${options.startFinish.xM},${options.startFinish.yM} is ${projection.gapM.toFixed(0)} m from the centreline of ${track.name}`);
+    throw new InputError(
+      `${source}: --start-finish ${options.startFinish.xM},${options.startFinish.yM} is ${projection.gapM.toFixed(0)} m from the centreline of ${track.name}`,
+    );
   }
   return projection.alongM;
 }
@@ -49,7 +51,8 @@ export function lineCrossings(p: Float64Array, t: Float64Array, n: number, lineM
       passed++;
       const target = lineM + passed * L;
       let crossingT = t[i]!;
-      if (i > 0 && p[i]! > p[i - 1]!) crossingT = t[i - 1]! + ((target - p[i - 1]!) / (p[i]! - p[i - 1]!)) * (t[i]! - t[i - 1]!);
+      if (i > 0 && p[i]! > p[i - 1]!)
+        crossingT = t[i - 1]! + ((target - p[i - 1]!) / (p[i]! - p[i - 1]!)) * (t[i]! - t[i - 1]!);
       crossingTimes.push(crossingT);
       crossingProgress.push(target);
       crossingAfter.push(i);

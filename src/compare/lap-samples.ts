@@ -22,7 +22,12 @@ export function interpolate(values: Float64Array, u: number, n: number): number 
   return a + frac * (b - a);
 }
 
-export function minimumOver(values: Float64Array, from: number, to: number, n: number): { value: number; index: number } {
+export function minimumOver(
+  values: Float64Array,
+  from: number,
+  to: number,
+  n: number,
+): { value: number; index: number } {
   let value = Infinity;
   let index = from;
   for (let u = from; u <= to; u++) {
@@ -39,7 +44,12 @@ export function minimumOver(values: Float64Array, from: number, to: number, n: n
 const SLOWEST_TOLERANCE_MPS = 0.15;
 
 /** The slowest point of [from, to]: the minimum, placed at the middle of the stretch around it that stays that slow. */
-export function slowestPoint(values: Float64Array, from: number, to: number, n: number): { value: number; index: number } {
+export function slowestPoint(
+  values: Float64Array,
+  from: number,
+  to: number,
+  n: number,
+): { value: number; index: number } {
   const min = minimumOver(values, from, to, n);
   const limit = min.value + SLOWEST_TOLERANCE_MPS;
   let lo = min.index;

@@ -6,8 +6,22 @@ import type { TrackGrid } from '../track/types.js';
 import type { TelemetrySession } from './types.js';
 import { placeSession, type PlacedSession } from './place-session.js';
 import { sampleSpeed, sessionDistance } from './session-distance.js';
-import { distanceResets, distanceSpeedAt, lineCrossings, startFinishAlong, type CutOptions, type LineCrossings } from './lap-crossings.js';
-import { checkDistanceLapsMatch, distanceEdgeCheck, distanceLapProblem, extrapolationAllowanceM, positionCoverage, positionLapProblems } from './lap-coverage.js';
+import {
+  distanceResets,
+  distanceSpeedAt,
+  lineCrossings,
+  startFinishAlong,
+  type CutOptions,
+  type LineCrossings,
+} from './lap-crossings.js';
+import {
+  checkDistanceLapsMatch,
+  distanceEdgeCheck,
+  distanceLapProblem,
+  extrapolationAllowanceM,
+  positionCoverage,
+  positionLapProblems,
+} from './lap-coverage.js';
 import { medianOf } from './median.js';
 
 export interface LapCut {
@@ -32,7 +46,11 @@ export interface LapCut {
   distanceScale?: number;
 }
 
-export function cutLaps(session: TelemetrySession, track: TrackGrid, options: CutOptions = {}): { laps: LapCut[]; notes: string[] } {
+export function cutLaps(
+  session: TelemetrySession,
+  track: TrackGrid,
+  options: CutOptions = {},
+): { laps: LapCut[]; notes: string[] } {
   const placed = placeSession(session, track);
   const result = placed ? cutByPosition(session, track, placed, options) : cutByDistance(session, track);
   if (placed) result.notes.unshift(...placed.notes);
@@ -43,7 +61,12 @@ export function cutLaps(session: TelemetrySession, track: TrackGrid, options: Cu
   return result;
 }
 
-function cutByPosition(session: TelemetrySession, track: TrackGrid, placed: PlacedSession, options: CutOptions): { laps: LapCut[]; notes: string[] } {
+function cutByPosition(
+  session: TelemetrySession,
+  track: TrackGrid,
+  placed: PlacedSession,
+  options: CutOptions,
+): { laps: LapCut[]; notes: string[] } {
   const notes: string[] = [];
   const L = track.lengthM;
   const n = session.count;
@@ -52,7 +75,9 @@ function cutByPosition(session: TelemetrySession, track: TrackGrid, placed: Plac
   const lineM = track.closed ? startFinishAlong(track, options, session.source) : 0;
   if (p[n - 1]! < p[0]! - 0.5 * L) notes.push('the log runs against the direction of the track');
 
-  const crossings: LineCrossings = track.closed ? lineCrossings(p, t, n, lineM, L) : { timeS: [], progressM: [], afterIndex: [] };
+  const crossings: LineCrossings = track.closed
+    ? lineCrossings(p, t, n, lineM, L)
+    : { timeS: [], progressM: [], afterIndex: [] };
   const crossingTimes = crossings.timeS;
   const crossingProgress = crossings.progressM;
   const crossingAfter = crossings.afterIndex;
@@ -62,7 +87,15 @@ function cutByPosition(session: TelemetrySession, track: TrackGrid, placed: Plac
   const laps: LapCut[] = [];
 
   /** Builds the lap over progress [startP, endP] using samples first..last (inclusive). */
-  const makeLap = (lapNumber: number, first: number, last: number, startP: number, endP: number, startT: number | null, endT: number | null): LapCut => {
+  const makeLap = (
+    lapNumber: number,
+    first: number,
+    last: number,
+    startP: number,
+    endP: number,
+    startT: number | null,
+    endT: number | null,
+  ): LapCut => {
     const measured = measure(first, last, startP, endP);
     const missingStart = p[first]! > startP ? p[first]! - startP : 0;
     const missingEnd = p[last]! < endP ? endP - p[last]! : 0;
@@ -75,14 +108,19 @@ function cutByPosition(session: TelemetrySession, track: TrackGrid, placed: Plac
     if (start === null) {
       const v = sampleSpeed(session, placed, first);
       start = t[first]! - (missingStart > 0 && v > 0 ? missingStart / v : 0);
-      if (complete && missingStart > 0) reason = `the log starts ${missingStart.toFixed(1)} m after the line; start time extrapolated`;
+      if (complete && missingStart > 0)
+        reason = `the log starts ${missingStart.toFixed(1)} m after the line; start time extrapolated`;
     }
     if (end === null) {
       const v = sampleSpeed(session, placed, last);
       end = t[last]! + (missingEnd > 0 && v > 0 ? missingEnd / v : 0);
-      if (complete && missingEnd > 0) reason = `${reason ? reason + '; ' : ''}the log ends ${missingEnd.toFixed(1)} m before the line; lap time extrapolated`;
+      if (complete && missingEnd > 0)
+        reason = `${reason ? reason + '; ' : ''}the log ends ${missingEnd.toFixed(1)} m before the line; lap time extrapolated`;
     }
-    return lapRecord(lapNumber, first, last, start, end, complete, reason, { startFinishM: lineM, progressStartM: startP });
+    return lapRecord(lapNumber, first, last, start, end, complete, reason, {
+      startFinishM: lineM,
+      progressStartM: startP,
+    });
   };
 
   if (!track.closed) {
@@ -106,7 +144,17 @@ function cutByPosition(session: TelemetrySession, track: TrackGrid, placed: Plac
     const hasNext = c + 1 < m;
     const last = hasNext ? crossingAfter[c + 1]! : n - 1;
     if (!hasNext && p[n - 1]! - crossingProgress[c]! < allowance) break;
-    laps.push(makeLap(c + 1, first, last, crossingProgress[c]!, crossingProgress[c]! + L, crossingTimes[c]!, hasNext ? crossingTimes[c + 1]! : null));
+    laps.push(
+      makeLap(
+        c + 1,
+        first,
+        last,
+        crossingProgress[c]!,
+        crossingProgress[c]! + L,
+        crossingTimes[c]!,
+        hasNext ? crossingTimes[c + 1]! : null,
+      ),
+    );
   }
   // A log that starts just after the line makes its part before the first crossing a full lap: number it 1.
   if (laps[0]?.lapNumber === 0 && laps[0].complete) for (const lap of laps) lap.lapNumber++;
@@ -119,7 +167,11 @@ function cutByDistance(session: TelemetrySession, track: TrackGrid): { laps: Lap
   const n = session.count;
   const t = session.timeS;
   const d = sessionDistance(session);
-  notes.push(session.distanceM ? 'no positions: laps placed by the distance channel, scaled to the track length' : 'no positions and no distance channel: distance integrated from the speed');
+  notes.push(
+    session.distanceM
+      ? 'no positions: laps placed by the distance channel, scaled to the track length'
+      : 'no positions and no distance channel: distance integrated from the speed',
+  );
 
   const crossings = distanceResets(session, d, L);
   const laps: LapCut[] = [];
@@ -133,10 +185,28 @@ function cutByDistance(session: TelemetrySession, track: TrackGrid): { laps: Lap
     const span = spans[c]!;
     const reason = distanceLapProblem(span, medianSpan, L);
     const complete = reason === undefined;
-    laps.push(lapRecord(c + 1, crossings[c]!.index - 1, crossings[c + 1]!.index, crossings[c]!.timeS, crossings[c + 1]!.timeS, complete, reason, { startFinishM: 0, progressStartM: 0, distanceScale: L / span }));
+    laps.push(
+      lapRecord(
+        c + 1,
+        crossings[c]!.index - 1,
+        crossings[c + 1]!.index,
+        crossings[c]!.timeS,
+        crossings[c + 1]!.timeS,
+        complete,
+        reason,
+        { startFinishM: 0, progressStartM: 0, distanceScale: L / span },
+      ),
+    );
   }
   // The ends of the log (or the whole log when the channel never resets): complete only if they miss little.
-  const edge = (lapNumber: number, first: number, last: number, startT: number | null, endT: number | null, offsetM: number) => {
+  const edge = (
+    lapNumber: number,
+    first: number,
+    last: number,
+    startT: number | null,
+    endT: number | null,
+    offsetM: number,
+  ) => {
     const scale = interiorScale;
     const startM = startT === null ? (d[first]! - offsetM) * scale : 0;
     const endM = endT === null ? (d[last]! - offsetM) * scale : L;
@@ -147,7 +217,13 @@ function cutByDistance(session: TelemetrySession, track: TrackGrid): { laps: Lap
     const vEnd = distanceSpeedAt(session, last);
     const start = startT ?? t[first]! - (missingStart > 0 && vStart > 0 ? missingStart / vStart : 0);
     const end = endT ?? t[last]! + (missingEnd > 0 && vEnd > 0 ? missingEnd / vEnd : 0);
-    laps.push(lapRecord(lapNumber, first, last, start, end, complete, reason, { startFinishM: 0, progressStartM: offsetM * scale, distanceScale: scale }));
+    laps.push(
+      lapRecord(lapNumber, first, last, start, end, complete, reason, {
+        startFinishM: 0,
+        progressStartM: offsetM * scale,
+        distanceScale: scale,
+      }),
+    );
   };
   if (crossings.length === 0) {
     // No reset: the whole file is one lap from its first sample.
@@ -163,8 +239,24 @@ function cutByDistance(session: TelemetrySession, track: TrackGrid): { laps: Lap
 }
 
 function lapRecord(
-  lapNumber: number, startIndex: number, endIndex: number, startTimeS: number, endTimeS: number, complete: boolean, reason: string | undefined,
+  lapNumber: number,
+  startIndex: number,
+  endIndex: number,
+  startTimeS: number,
+  endTimeS: number,
+  complete: boolean,
+  reason: string | undefined,
   basis: { startFinishM: number; progressStartM: number; distanceScale?: number },
 ): LapCut {
-  return { lapNumber, startIndex, endIndex, lapTimeS: endTimeS - startTimeS, complete, ...(reason ? { reason } : {}), startTimeS, endTimeS, ...basis };
+  return {
+    lapNumber,
+    startIndex,
+    endIndex,
+    lapTimeS: endTimeS - startTimeS,
+    complete,
+    ...(reason ? { reason } : {}),
+    startTimeS,
+    endTimeS,
+    ...basis,
+  };
 }

@@ -40,7 +40,9 @@ export function placeSession(session: TelemetrySession, track: TrackGrid): Place
   } else if (session.geoOrigin) {
     const fit = fitRigidToCentreline(track, xM, yM);
     ({ xM, yM } = applyRigid(fit, xM, yM));
-    notes.push(`the track has no geo origin: GPS path laid onto the centreline by a rigid fit (turned ${radToDeg(fit.rotationRad).toFixed(1)} deg, median gap ${fit.medianGapM.toFixed(1)} m)`);
+    notes.push(
+      `the track has no geo origin: GPS path laid onto the centreline by a rigid fit (turned ${radToDeg(fit.rotationRad).toFixed(1)} deg, median gap ${fit.medianGapM.toFixed(1)} m)`,
+    );
   }
   const path = projectPath(track, xM, yM);
   const progressM = path.alongM;
@@ -60,7 +62,9 @@ export function placeSession(session: TelemetrySession, track: TrackGrid): Place
   }
   const medianGapM = medianOf(path.gapM);
   if (!(medianGapM <= MATCH_LIMIT_M)) {
-    throw new InputError(`${session.source}: the telemetry does not match track ${track.name}: its median distance to the centreline is ${medianGapM.toFixed(0)} m (more than ${MATCH_LIMIT_M} m)`);
+    throw new InputError(
+      `${session.source}: the telemetry does not match track ${track.name}: its median distance to the centreline is ${medianGapM.toFixed(0)} m (more than ${MATCH_LIMIT_M} m)`,
+    );
   }
   const placed = { xM, yM, progressM, offsetM: path.offsetM, gapM: path.gapM, medianGapM, notes };
   let byTrack = placedCache.get(session);

@@ -23,7 +23,8 @@ export function sessionDistance(session: TelemetrySession): Float64Array {
   if (session.distanceM) return session.distanceM;
   const cached = distanceCache.get(session);
   if (cached) return cached;
-  if (!session.speedMps) throw new InputError(`${session.source}: no positions, distance or speed to place the samples along the track`);
+  if (!session.speedMps)
+    throw new InputError(`${session.source}: no positions, distance or speed to place the samples along the track`);
   const t = session.timeS;
   const v = session.speedMps;
   const d = new Float64Array(session.count);

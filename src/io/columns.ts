@@ -13,11 +13,14 @@ export function parseColumnMapping(text: string, optionName: string): Record<str
     const ours = parts[0]?.trim() ?? '';
     const theirs = parts[1]?.trim() ?? '';
     if (parts.length !== 2 || ours === '' || theirs === '') {
-      throw new InputError(`option ${optionName}: '${pair}' is not of the form name=column (e.g. width_left_m=w_tr_left_m)`);
+      throw new InputError(
+        `option ${optionName}: '${pair}' is not of the form name=column (e.g. width_left_m=w_tr_left_m)`,
+      );
     }
     if (Object.hasOwn(mapping, ours)) throw new InputError(`option ${optionName}: '${ours}' is mapped twice`);
     mapping[ours] = theirs;
   }
-  if (Object.keys(mapping).length === 0) throw new InputError(`option ${optionName}: no name=column pairs in '${text}'`);
+  if (Object.keys(mapping).length === 0)
+    throw new InputError(`option ${optionName}: no name=column pairs in '${text}'`);
   return mapping;
 }

@@ -22,10 +22,23 @@ export function parseCsvTable(text: string, source: string): CsvTable {
   if (body[headerStart] === '#') body = body.slice(0, headerStart) + ' ' + body.slice(headerStart + 1);
   const headerEnd = body.indexOf('\n', headerStart);
   const headerLine = body.slice(headerStart, headerEnd < 0 ? undefined : headerEnd);
-  const delimiter = headerLine.includes(',') ? ',' : headerLine.includes(';') ? ';' : headerLine.includes('\t') ? '\t' : ',';
+  const delimiter = headerLine.includes(',')
+    ? ','
+    : headerLine.includes(';')
+      ? ';'
+      : headerLine.includes('\t')
+        ? '\t'
+        : ',';
   let records: { record: string[]; info: { lines: number } }[];
   try {
-    records = parse(body, { delimiter, trim: true, skip_empty_lines: true, comment: '#', comment_no_infix: true, info: true }) as unknown as typeof records;
+    records = parse(body, {
+      delimiter,
+      trim: true,
+      skip_empty_lines: true,
+      comment: '#',
+      comment_no_infix: true,
+      info: true,
+    }) as unknown as typeof records;
   } catch (error) {
     const message = error instanceof Error ? error.message.split('\n')[0] : String(error);
     throw new InputError(`${source}: malformed CSV: ${message}`);

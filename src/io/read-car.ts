@@ -95,10 +95,13 @@ function gearingOf(powertrain: CarFile['powertrain'], source: string): Car['powe
   }
   const curve = torqueCurve!;
   if (curve.rpm.length !== curve.torqueNm.length) {
-    throw new InputError(`${source}: field powertrain.torqueCurve: rpm has ${curve.rpm.length} values but torqueNm has ${curve.torqueNm.length}`);
+    throw new InputError(
+      `${source}: field powertrain.torqueCurve: rpm has ${curve.rpm.length} values but torqueNm has ${curve.torqueNm.length}`,
+    );
   }
   for (let i = 1; i < curve.rpm.length; i++) {
-    if (!(curve.rpm[i]! > curve.rpm[i - 1]!)) throw new InputError(`${source}: field powertrain.torqueCurve.rpm.${i}: rpm must increase`);
+    if (!(curve.rpm[i]! > curve.rpm[i - 1]!))
+      throw new InputError(`${source}: field powertrain.torqueCurve.rpm.${i}: rpm must increase`);
   }
   return {
     torqueCurve: { rpm: [...curve.rpm], torqueNm: [...curve.torqueNm] },
@@ -195,9 +198,12 @@ export function validateCar(car: Car, source: string): Car {
   requireNonNegative(car.aero.dragAreaM2, 'aero.dragAreaM2');
   requireNonNegative(car.fuel.massKg, 'fuel.massKg');
   requireNonNegative(car.rollingResistanceCoeff, 'rollingResistanceCoeff');
-  if (!Number.isFinite(car.aero.liftAreaM2)) problems.push(`field aero.liftAreaM2 must be a number (got ${car.aero.liftAreaM2})`);
-  if (!(car.frontWeightFraction > 0 && car.frontWeightFraction < 1)) problems.push(`field frontWeightFraction must be between 0 and 1 (got ${car.frontWeightFraction})`);
-  if (!(car.tyre.ggExponent >= 1)) problems.push(`field tyre.ggExponent must be at least 1 (got ${car.tyre.ggExponent})`);
+  if (!Number.isFinite(car.aero.liftAreaM2))
+    problems.push(`field aero.liftAreaM2 must be a number (got ${car.aero.liftAreaM2})`);
+  if (!(car.frontWeightFraction > 0 && car.frontWeightFraction < 1))
+    problems.push(`field frontWeightFraction must be between 0 and 1 (got ${car.frontWeightFraction})`);
+  if (!(car.tyre.ggExponent >= 1))
+    problems.push(`field tyre.ggExponent must be at least 1 (got ${car.tyre.ggExponent})`);
   if (problems.length > 0) throw new InputError(`${source}: ${problems.join('; ')}`);
   return car;
 }

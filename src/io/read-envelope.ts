@@ -23,7 +23,11 @@ const schema = z.object({
   quantile: z.number().gt(0).lte(1),
   bandWidthMps: positive,
   topSpeedMps: positive,
-  coast: z.object({ constantMps2: z.number().finite().nonnegative(), quadraticPerM: z.number().finite().nonnegative(), fitted: z.boolean() }),
+  coast: z.object({
+    constantMps2: z.number().finite().nonnegative(),
+    quadraticPerM: z.number().finite().nonnegative(),
+    fitted: z.boolean(),
+  }),
   bands: z.array(band).min(1),
 });
 

@@ -17,7 +17,13 @@ export function readLineFile(file: string, track: TrackGrid): Float64Array {
   return parseLineCsv(readTextFile(file, 'line file'), file, track);
 }
 
-function interpolateStation(stations: Float64Array, values: Float64Array, s: number, closed: boolean, lengthM: number): number {
+function interpolateStation(
+  stations: Float64Array,
+  values: Float64Array,
+  s: number,
+  closed: boolean,
+  lengthM: number,
+): number {
   const n = stations.length;
   // Binary search for the last station <= s.
   let lo = 0;
@@ -48,7 +54,10 @@ export function parseLineCsv(text: string, source: string, track: TrackGrid): Fl
   const { header, rows, lines } = parseCsvTable(text, source);
   const column = (name: string, required: boolean) => {
     const index = header.indexOf(name);
-    if (index < 0 && required) throw new InputError(`${source}: required column ${name} not found; a line file has s_m,offset_m,x_m,y_m,curvature_1pm (columns found: ${header.join(', ')})`);
+    if (index < 0 && required)
+      throw new InputError(
+        `${source}: required column ${name} not found; a line file has s_m,offset_m,x_m,y_m,curvature_1pm (columns found: ${header.join(', ')})`,
+      );
     return index;
   };
   const sIndex = column('s_m', true);
@@ -65,7 +74,9 @@ export function parseLineCsv(text: string, source: string, track: TrackGrid): Fl
     stations[r] = numberCell(row[sIndex] ?? '', source, line, 's_m');
     offsets[r] = numberCell(row[offsetIndex] ?? '', source, line, 'offset_m');
     if (r > 0 && !(stations[r]! > stations[r - 1]!)) {
-      throw new InputError(`${source}: row ${line}, column s_m: ${stations[r]} does not increase (previous row ${stations[r - 1]})`);
+      throw new InputError(
+        `${source}: row ${line}, column s_m: ${stations[r]} does not increase (previous row ${stations[r - 1]})`,
+      );
     }
   }
   // The line must span this track: first station at the start, last one lap (closed) or the length (open) on.
@@ -91,7 +102,9 @@ export function parseLineCsv(text: string, source: string, track: TrackGrid): Fl
       const expectedY = track.yM[i]! + ds * Math.sin(psi) + offsets[r]! * Math.cos(psi);
       const missM = Math.hypot(x - expectedX, y - expectedY);
       if (missM > POSITION_TOLERANCE_M + step) {
-        throw new InputError(`${source}: row ${line}: x_m, y_m lie ${missM.toFixed(1)} m from where offset_m puts the line on ${track.source}; the line belongs to another track`);
+        throw new InputError(
+          `${source}: row ${line}: x_m, y_m lie ${missM.toFixed(1)} m from where offset_m puts the line on ${track.source}; the line belongs to another track`,
+        );
       }
     }
   }
@@ -99,7 +112,10 @@ export function parseLineCsv(text: string, source: string, track: TrackGrid): Fl
   const n = track.distanceM.length;
   const sameGrid = count === n && stations.every((s, i) => Math.abs(s - track.distanceM[i]!) <= 1e-3 * step + 1e-6);
   const out = new Float64Array(n);
-  for (let i = 0; i < n; i++) out[i] = sameGrid ? offsets[i]! : interpolateStation(stations, offsets, track.distanceM[i]!, track.closed, track.lengthM);
+  for (let i = 0; i < n; i++)
+    out[i] = sameGrid
+      ? offsets[i]!
+      : interpolateStation(stations, offsets, track.distanceM[i]!, track.closed, track.lengthM);
   // Inside the edges (the margin is the maker's choice, the edges are not).
   if (track.widthLeftM && track.widthRightM) {
     for (let i = 0; i < n; i++) {

@@ -19,14 +19,24 @@ export interface TrackReadOptions {
   smoothingM: number | null;
 }
 
-export const DEFAULT_TRACK_READ_OPTIONS: TrackReadOptions = { stepM: 1, columns: {}, widthM: null, layout: 'auto', smoothingM: null };
+export const DEFAULT_TRACK_READ_OPTIONS: TrackReadOptions = {
+  stepM: 1,
+  columns: {},
+  widthM: null,
+  layout: 'auto',
+  smoothingM: null,
+};
 
 /** Options left out take their defaults (1 m step, no column mapping, widths from the file, layout from the file). */
 export function readTrackFile(file: string, options: Partial<TrackReadOptions> = {}): TrackGrid {
   return parseTrackText(readTextFile(file, 'track file'), file, options);
 }
 
-export function parseTrackText(text: string, source: string, partialOptions: Partial<TrackReadOptions> = {}): TrackGrid {
+export function parseTrackText(
+  text: string,
+  source: string,
+  partialOptions: Partial<TrackReadOptions> = {},
+): TrackGrid {
   const options: TrackReadOptions = { ...DEFAULT_TRACK_READ_OPTIONS, ...partialOptions };
   const extension = path.extname(source).toLowerCase();
   const isJson = extension === '.json' || (extension !== '.csv' && text.trimStart().startsWith('{'));

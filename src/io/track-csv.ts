@@ -37,7 +37,13 @@ export function endsMeet(x: Float64Array, y: Float64Array): boolean {
   return gap < Math.max(CLOSING_GAP_SPACINGS * median(spacing), CLOSING_GAP_MIN_M);
 }
 
-function columnIndex(header: string[], ours: TrackColumn, mapping: Record<string, string>, required: boolean, source: string): number {
+function columnIndex(
+  header: string[],
+  ours: TrackColumn,
+  mapping: Record<string, string>,
+  required: boolean,
+  source: string,
+): number {
   const theirs = mapping[ours] ?? ours;
   const index = header.indexOf(theirs);
   if (index < 0 && required) {
@@ -50,7 +56,9 @@ function columnIndex(header: string[], ours: TrackColumn, mapping: Record<string
 export function parseTrackCsv(text: string, source: string, options: TrackReadOptions): TrackGrid {
   for (const key of Object.keys(options.columns)) {
     if (!(TRACK_COLUMNS as readonly string[]).includes(key)) {
-      throw new InputError(`${source}: --columns names '${key}', which is not a track column (${TRACK_COLUMNS.join(', ')})`);
+      throw new InputError(
+        `${source}: --columns names '${key}', which is not a track column (${TRACK_COLUMNS.join(', ')})`,
+      );
     }
   }
   const table = parseCsvTable(text, source);
@@ -59,9 +67,11 @@ export function parseTrackCsv(text: string, source: string, options: TrackReadOp
   const yIndex = columnIndex(header, 'y_m', options.columns, true, source);
   const leftIndex = columnIndex(header, 'width_left_m', options.columns, false, source);
   const rightIndex = columnIndex(header, 'width_right_m', options.columns, false, source);
-  if ((leftIndex < 0) !== (rightIndex < 0)) {
+  if (leftIndex < 0 !== rightIndex < 0) {
     const [has, lacks] = leftIndex >= 0 ? ['width_left_m', 'width_right_m'] : ['width_right_m', 'width_left_m'];
-    throw new InputError(`${source}: column ${has} found but ${lacks} missing; give both or neither (columns found: ${header.join(', ')})`);
+    throw new InputError(
+      `${source}: column ${has} found but ${lacks} missing; give both or neither (columns found: ${header.join(', ')})`,
+    );
   }
   const hasWidths = leftIndex >= 0;
 
@@ -78,13 +88,17 @@ export function parseTrackCsv(text: string, source: string, options: TrackReadOp
     x[i] = numberCell(row[xIndex] ?? '', source, line, names[xIndex]!);
     y[i] = numberCell(row[yIndex] ?? '', source, line, names[yIndex]!);
     if (!(Math.abs(x[i]!) <= MAX_COORDINATE_M && Math.abs(y[i]!) <= MAX_COORDINATE_M)) {
-      throw new InputError(`${source}: row ${line}: point (${x[i]}, ${y[i]}) is over 10,000 km from the origin; coordinates must be metres on a local plane`);
+      throw new InputError(
+        `${source}: row ${line}: point (${x[i]}, ${y[i]}) is over 10,000 km from the origin; coordinates must be metres on a local plane`,
+      );
     }
     if (left && right) {
       left[i] = numberCell(row[leftIndex] ?? '', source, line, names[leftIndex]!);
       right[i] = numberCell(row[rightIndex] ?? '', source, line, names[rightIndex]!);
-      if (left[i]! < 0) throw new InputError(`${source}: row ${line}, column ${names[leftIndex]}: negative width ${left[i]} m`);
-      if (right[i]! < 0) throw new InputError(`${source}: row ${line}, column ${names[rightIndex]}: negative width ${right[i]} m`);
+      if (left[i]! < 0)
+        throw new InputError(`${source}: row ${line}, column ${names[leftIndex]}: negative width ${left[i]} m`);
+      if (right[i]! < 0)
+        throw new InputError(`${source}: row ${line}, column ${names[rightIndex]}: negative width ${right[i]} m`);
     }
     if (i > 0 && Math.hypot(x[i]! - x[i - 1]!, y[i]! - y[i - 1]!) < SAME_POINT_M) {
       throw new InputError(`${source}: row ${line}: the point repeats the one before it (row ${lines[i - 1]})`);

@@ -12,8 +12,20 @@ const positive = z.number().finite().positive();
 
 const segmentSchema = z.discriminatedUnion('kind', [
   z.strictObject({ kind: z.literal('straight'), lengthM: positive }),
-  z.strictObject({ kind: z.literal('arc'), radiusM: positive, angleDeg: z.number().finite().refine((v) => v !== 0, 'must not be 0') }),
-  z.strictObject({ kind: z.literal('transition'), lengthM: positive, startCurvature: z.number().finite(), endCurvature: z.number().finite() }),
+  z.strictObject({
+    kind: z.literal('arc'),
+    radiusM: positive,
+    angleDeg: z
+      .number()
+      .finite()
+      .refine((v) => v !== 0, 'must not be 0'),
+  }),
+  z.strictObject({
+    kind: z.literal('transition'),
+    lengthM: positive,
+    startCurvature: z.number().finite(),
+    endCurvature: z.number().finite(),
+  }),
 ]);
 
 const trackSchema = z.strictObject({
@@ -31,7 +43,8 @@ const trackSchema = z.strictObject({
 
 function fieldPath(parts: PropertyKey[]): string {
   let text = '';
-  for (const part of parts) text += typeof part === 'number' ? `[${part}]` : text === '' ? String(part) : `.${String(part)}`;
+  for (const part of parts)
+    text += typeof part === 'number' ? `[${part}]` : text === '' ? String(part) : `.${String(part)}`;
   return text;
 }
 
@@ -80,7 +93,9 @@ export function parseTrackJson(text: string, source: string, options: TrackReadO
   const spec = parsed.data;
   const widthM = spec.widthM ?? options.widthM;
   if ((spec.widthLeftM === undefined) !== (spec.widthRightM === undefined) && spec.widthM === undefined) {
-    throw new InputError(`${source}: ${spec.widthLeftM === undefined ? 'widthRightM' : 'widthLeftM'} given without the other side (or widthM)`);
+    throw new InputError(
+      `${source}: ${spec.widthLeftM === undefined ? 'widthRightM' : 'widthLeftM'} given without the other side (or widthM)`,
+    );
   }
   const closed = options.layout === 'auto' ? spec.closed : options.layout === 'closed';
   return trackFromSegments(

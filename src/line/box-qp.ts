@@ -22,7 +22,11 @@ export function emptyBand(count: number, cyclic: boolean): PentaBand {
 }
 
 /** y = Q x. */
-export function multiplyBand(band: PentaBand, x: Float64Array, out: Float64Array = new Float64Array(band.count)): Float64Array {
+export function multiplyBand(
+  band: PentaBand,
+  x: Float64Array,
+  out: Float64Array = new Float64Array(band.count),
+): Float64Array {
   const { count: n, cyclic, diag, off1, off2 } = band;
   for (let i = 0; i < n; i++) out[i] = diag[i]! * x[i]!;
   for (let i = 0; i < n; i++) {
@@ -59,7 +63,15 @@ function objectiveOf(band: PentaBand, q: Float64Array, x: Float64Array, work: Fl
  * Solves the box QP from a starting point (clipped into the box), to a step below toleranceX. Each iterate is
  * feasible and lowers the objective, so stopping early still gives a usable point.
  */
-export function solveBoxQp(band: PentaBand, q: Float64Array, lower: Float64Array, upper: Float64Array, start: Float64Array, maxIterations = 30, toleranceX = 1e-6): BoxQpResult {
+export function solveBoxQp(
+  band: PentaBand,
+  q: Float64Array,
+  lower: Float64Array,
+  upper: Float64Array,
+  start: Float64Array,
+  maxIterations = 30,
+  toleranceX = 1e-6,
+): BoxQpResult {
   const n = band.count;
   const x = new Float64Array(n);
   for (let i = 0; i < n; i++) x[i] = Math.min(upper[i]!, Math.max(lower[i]!, start[i]!));

@@ -29,11 +29,14 @@ const at = (track: TrackGrid, i: number) => `${track.distanceM[i]!.toFixed(1)} m
 
 /** Validates the track's widths against the margin and returns the corridor; InputError on bad input. */
 export function corridorOf(track: TrackGrid, marginM: number): Corridor {
-  if (!(marginM >= 0) || !Number.isFinite(marginM)) throw new InputError(`margin ${marginM} m: must be a number of metres, zero or more`);
+  if (!(marginM >= 0) || !Number.isFinite(marginM))
+    throw new InputError(`margin ${marginM} m: must be a number of metres, zero or more`);
   const left = track.widthLeftM;
   const right = track.widthRightM;
   if (!left || !right) {
-    throw new InputError(`${track.source}: the track gives no widths, so there is no room for a line; give them with --width-m <m> or with width columns (width_left_m, width_right_m; see --columns)`);
+    throw new InputError(
+      `${track.source}: the track gives no widths, so there is no room for a line; give them with --width-m <m> or with width columns (width_left_m, width_right_m; see --columns)`,
+    );
   }
   const count = track.distanceM.length;
   const lowerM = new Float64Array(count);
@@ -42,9 +45,14 @@ export function corridorOf(track: TrackGrid, marginM: number): Corridor {
     const wl = left[i]!;
     const wr = right[i]!;
     const kc = track.curvaturePerM[i]!;
-    if (!(wl >= 0 && wr >= 0)) throw new InputError(`${track.source}: at ${at(track, i)} the width is missing or negative (left ${wl} m, right ${wr} m)`);
+    if (!(wl >= 0 && wr >= 0))
+      throw new InputError(
+        `${track.source}: at ${at(track, i)} the width is missing or negative (left ${wl} m, right ${wr} m)`,
+      );
     if (wl + wr < 2 * marginM) {
-      throw new InputError(`${track.source}: at ${at(track, i)} the track is ${(wl + wr).toFixed(2)} m wide, less than twice the margin of ${marginM} m; lower --margin-m`);
+      throw new InputError(
+        `${track.source}: at ${at(track, i)} the track is ${(wl + wr).toFixed(2)} m wide, less than twice the margin of ${marginM} m; lower --margin-m`,
+      );
     }
     // The line keeps the margin from the edges, so what must not fold is the edge less the margin.
     const usableLeft = wl - marginM;

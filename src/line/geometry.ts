@@ -17,7 +17,14 @@ export function offsetCurvature(n: number, dn: number, ddn: number, kc: number, 
 }
 
 /** Partial derivatives of offsetCurvature with respect to n, n' and n'', written into out[0..2]. */
-export function offsetCurvaturePartials(n: number, dn: number, ddn: number, kc: number, dkc: number, out: Float64Array): void {
+export function offsetCurvaturePartials(
+  n: number,
+  dn: number,
+  ddn: number,
+  kc: number,
+  dkc: number,
+  out: Float64Array,
+): void {
   const a = 1 - n * kc;
   const big = a * a + dn * dn;
   const num = kc * big + a * ddn + dn * (dn * kc + n * dkc);
@@ -67,7 +74,12 @@ export function neighbourOffsets(offsetM: Float64Array, i: number, closed: boole
 }
 
 /** Signed curvature of the line at every sample, 1/m. */
-export function lineCurvature(track: TrackGrid, offsetM: Float64Array, curvatureSlope: Float64Array = centrelineCurvatureSlope(track), out: Float64Array = new Float64Array(offsetM.length)): Float64Array {
+export function lineCurvature(
+  track: TrackGrid,
+  offsetM: Float64Array,
+  curvatureSlope: Float64Array = centrelineCurvatureSlope(track),
+  out: Float64Array = new Float64Array(offsetM.length),
+): Float64Array {
   const h = track.stepM;
   const kc = track.curvaturePerM;
   for (let i = 0; i < offsetM.length; i++) {
@@ -101,7 +113,11 @@ export function lineSegmentLengths(track: TrackGrid, offsetM: Float64Array): Flo
 
 /** The line as a Path for the solver, on the track's grid. */
 export function linePath(track: TrackGrid, offsetM: Float64Array): Path {
-  return { closed: track.closed, curvaturePerM: lineCurvature(track, offsetM), segmentLengthM: lineSegmentLengths(track, offsetM) };
+  return {
+    closed: track.closed,
+    curvaturePerM: lineCurvature(track, offsetM),
+    segmentLengthM: lineSegmentLengths(track, offsetM),
+  };
 }
 
 /** Plane positions of the line: centreline point plus n times the left normal (-sin psi, cos psi). */

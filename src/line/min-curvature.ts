@@ -13,7 +13,11 @@ export function corridorMiddle(corridor: Corridor): Float64Array {
   return out;
 }
 
-export function minimumCurvatureOffsets(track: TrackGrid, corridor: Corridor, start: Float64Array = corridorMiddle(corridor)): OptimiseResult {
+export function minimumCurvatureOffsets(
+  track: TrackGrid,
+  corridor: Corridor,
+  start: Float64Array = corridorMiddle(corridor),
+): OptimiseResult {
   const weights = { curvature: new Float64Array(start.length).fill(1), length: null, lengthWeight: 0 };
   return optimiseOffsets(track, corridor, weights, start);
 }

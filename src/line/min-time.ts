@@ -42,7 +42,12 @@ export interface MinimumTimeResult {
 const FIRST_ROUND_LENGTH_WEIGHTS = [1, 2, 4, 8] as const;
 
 export function driveLine(track: TrackGrid, car: Car, offsetM: Float64Array, options: MinimumTimeOptions): LapResult {
-  return simulate(track, car, { ambient: options.ambient, envelope: options.envelope, path: linePath(track, offsetM), startSpeedMps: options.startSpeedMps });
+  return simulate(track, car, {
+    ambient: options.ambient,
+    envelope: options.envelope,
+    path: linePath(track, offsetM),
+    startSpeedMps: options.startSpeedMps,
+  });
 }
 
 /** Step (2)'s weights from step (1)'s lap, each term scaled to 1 on the reference line. */
@@ -65,7 +70,14 @@ export function timeWeights(lap: LapResult, lengthWeight: number): OffsetWeights
 }
 
 /** Starts from `start` (normally the minimum-curvature line); `startLap` is the lap on it, if already driven. */
-export function minimumTimeOffsets(track: TrackGrid, car: Car, corridor: Corridor, start: Float64Array, options: MinimumTimeOptions, startLap?: LapResult): MinimumTimeResult {
+export function minimumTimeOffsets(
+  track: TrackGrid,
+  car: Car,
+  corridor: Corridor,
+  start: Float64Array,
+  options: MinimumTimeOptions,
+  startLap?: LapResult,
+): MinimumTimeResult {
   let bestOffsets = start;
   let bestLap = startLap ?? driveLine(track, car, start, options);
   let evaluations = startLap ? 0 : 1;
@@ -78,7 +90,10 @@ export function minimumTimeOffsets(track: TrackGrid, car: Car, corridor: Corrido
     let bestWeight = lengthWeights[0]!;
     for (const lengthWeight of lengthWeights) {
       const weights = timeWeights(reference, lengthWeight);
-      const candidate = optimiseOffsets(track, corridor, weights, referenceOffsets, { maxIterations: 12, relativeTolerance: 1e-6 }).offsetM;
+      const candidate = optimiseOffsets(track, corridor, weights, referenceOffsets, {
+        maxIterations: 12,
+        relativeTolerance: 1e-6,
+      }).offsetM;
       const lap = driveLine(track, car, candidate, options);
       evaluations++;
       if (lap.lapTimeS < bestLap.lapTimeS) {

@@ -10,7 +10,15 @@
 
 import type { TrackGrid } from '../track/types.js';
 import type { Corridor } from './corridor.js';
-import { centrelineCurvatureSlope, lineCurvature, offsetCurvature, lineSegmentLengths, neighbourOffsets, offsetCurvaturePartials, segmentCurvature } from './geometry.js';
+import {
+  centrelineCurvatureSlope,
+  lineCurvature,
+  offsetCurvature,
+  lineSegmentLengths,
+  neighbourOffsets,
+  offsetCurvaturePartials,
+  segmentCurvature,
+} from './geometry.js';
 import { emptyBand, solveBoxQp, type PentaBand } from './box-qp.js';
 
 export interface OffsetWeights {
@@ -40,12 +48,18 @@ export interface OptimiseResult {
 
 function clampInto(corridor: Corridor, offsetM: Float64Array): Float64Array {
   const out = new Float64Array(offsetM.length);
-  for (let i = 0; i < out.length; i++) out[i] = Math.min(corridor.upperM[i]!, Math.max(corridor.lowerM[i]!, offsetM[i]!));
+  for (let i = 0; i < out.length; i++)
+    out[i] = Math.min(corridor.upperM[i]!, Math.max(corridor.lowerM[i]!, offsetM[i]!));
   return out;
 }
 
 /** F(n), the exact objective. */
-export function offsetObjective(track: TrackGrid, weights: OffsetWeights, offsetM: Float64Array, slope: Float64Array): number {
+export function offsetObjective(
+  track: TrackGrid,
+  weights: OffsetWeights,
+  offsetM: Float64Array,
+  slope: Float64Array,
+): number {
   const kappa = lineCurvature(track, offsetM, slope);
   let sum = 0;
   for (let i = 0; i < kappa.length; i++) sum += weights.curvature[i]! * kappa[i]! * kappa[i]!;
@@ -59,7 +73,16 @@ export function offsetObjective(track: TrackGrid, weights: OffsetWeights, offset
 }
 
 /** Adds weight * (e + c . x)^2 for a residual over columns i - 1, i, i + 1 to the band and to q. */
-function addResidual3(band: PentaBand, q: Float64Array, i: number, cp: number, cm: number, cn: number, e: number, weight: number): void {
+function addResidual3(
+  band: PentaBand,
+  q: Float64Array,
+  i: number,
+  cp: number,
+  cm: number,
+  cn: number,
+  e: number,
+  weight: number,
+): void {
   const n = band.count;
   const ip = band.cyclic ? (i - 1 + n) % n : i - 1;
   const inx = band.cyclic ? (i + 1) % n : i + 1;
@@ -80,7 +103,12 @@ function addResidual3(band: PentaBand, q: Float64Array, i: number, cp: number, c
 }
 
 /** The Gauss-Newton quadratic model about `offsetM` (without damping): band Q and vector q of x^T Q x + 2 q^T x. */
-function buildModel(track: TrackGrid, weights: OffsetWeights, offsetM: Float64Array, slope: Float64Array): { band: PentaBand; q: Float64Array } {
+function buildModel(
+  track: TrackGrid,
+  weights: OffsetWeights,
+  offsetM: Float64Array,
+  slope: Float64Array,
+): { band: PentaBand; q: Float64Array } {
   const count = offsetM.length;
   const closed = track.closed;
   const band = emptyBand(count, closed);
@@ -129,7 +157,15 @@ function buildModel(track: TrackGrid, weights: OffsetWeights, offsetM: Float64Ar
   return { band, q };
 }
 
-function addResidual2(band: PentaBand, q: Float64Array, i: number, cm: number, cn: number, e: number, weight: number): void {
+function addResidual2(
+  band: PentaBand,
+  q: Float64Array,
+  i: number,
+  cm: number,
+  cn: number,
+  e: number,
+  weight: number,
+): void {
   const n = band.count;
   const inx = band.cyclic ? (i + 1) % n : i + 1;
   band.diag[i]! += weight * cm * cm;
@@ -142,7 +178,13 @@ function addResidual2(band: PentaBand, q: Float64Array, i: number, cm: number, c
 }
 
 /** Minimises F inside the corridor, starting from `start` (clipped into the corridor). */
-export function optimiseOffsets(track: TrackGrid, corridor: Corridor, weights: OffsetWeights, start: Float64Array, options: OptimiseOptions = DEFAULT_OPTIMISE_OPTIONS): OptimiseResult {
+export function optimiseOffsets(
+  track: TrackGrid,
+  corridor: Corridor,
+  weights: OffsetWeights,
+  start: Float64Array,
+  options: OptimiseOptions = DEFAULT_OPTIMISE_OPTIONS,
+): OptimiseResult {
   const count = start.length;
   const slope = centrelineCurvatureSlope(track);
   let current = clampInto(corridor, start);

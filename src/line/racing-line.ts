@@ -74,5 +74,13 @@ export function racingLine(track: TrackGrid, car: Car, options: RacingLineOption
     lap = best.lap;
     lapEvaluations += best.evaluations;
   }
-  return { ...lineFromOffsets(track, offsetM), objective, marginM, lap, centrelineLap, curvatureLineLapTimeS: curvatureLap.lapTimeS, lapEvaluations };
+  return {
+    ...lineFromOffsets(track, offsetM),
+    objective,
+    marginM,
+    lap,
+    centrelineLap,
+    curvatureLineLapTimeS: curvatureLap.lapTimeS,
+    lapEvaluations,
+  };
 }

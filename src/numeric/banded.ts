@@ -72,7 +72,11 @@ export function factorBanded(n: number, halfBandwidth: number, entry: BandEntry)
 }
 
 /** Solves A x = rhs with a factor from factorBanded; out may be rhs itself. */
-export function solveBanded(factor: BandedFactor, rhs: Float64Array, out: Float64Array = new Float64Array(factor.n)): Float64Array {
+export function solveBanded(
+  factor: BandedFactor,
+  rhs: Float64Array,
+  out: Float64Array = new Float64Array(factor.n),
+): Float64Array {
   const { n, band } = factor;
   const p = factor.halfBandwidth;
   const w = p + 1;
@@ -118,11 +122,29 @@ function denseCyclic(n: number, p: number, entry: BandEntry): Matrix {
 export function factorCyclicBanded(n: number, halfBandwidth: number, entry: BandEntry): CyclicBandedFactor {
   const p = halfBandwidth;
   if (p === 0) {
-    return { n, halfBandwidth: p, inner: factorBanded(n, 0, entry), z: new Float64Array(0), sqrtAlpha: 0, uTail: new Float64Array(0), capacitanceInverse: new Float64Array(0), dense: null };
+    return {
+      n,
+      halfBandwidth: p,
+      inner: factorBanded(n, 0, entry),
+      z: new Float64Array(0),
+      sqrtAlpha: 0,
+      uTail: new Float64Array(0),
+      capacitanceInverse: new Float64Array(0),
+      dense: null,
+    };
   }
   if (n < 2 * p + 2) {
     const dense = denseCyclic(n, p, entry);
-    return { n, halfBandwidth: p, inner: null, z: new Float64Array(0), sqrtAlpha: 0, uTail: new Float64Array(0), capacitanceInverse: new Float64Array(0), dense };
+    return {
+      n,
+      halfBandwidth: p,
+      inner: null,
+      z: new Float64Array(0),
+      sqrtAlpha: 0,
+      uTail: new Float64Array(0),
+      capacitanceInverse: new Float64Array(0),
+      dense,
+    };
   }
   // Corner block E[t][s] = A[t][n - p + s] for t, s = 0..p-1; non-zero only where the cyclic offset
   // k = t + p - s is at most p, i.e. s >= t: entry(n - p + s, t + p - s) (row n-p+s reaching column t).
@@ -138,7 +160,16 @@ export function factorCyclicBanded(n: number, halfBandwidth: number, entry: Band
   const alpha = Math.sqrt(norm2);
   if (alpha === 0) {
     const inner = factorBanded(n, p, entry);
-    return { n, halfBandwidth: p, inner, z: new Float64Array(0), sqrtAlpha: 0, uTail: new Float64Array(0), capacitanceInverse: new Float64Array(0), dense: null };
+    return {
+      n,
+      halfBandwidth: p,
+      inner,
+      z: new Float64Array(0),
+      sqrtAlpha: 0,
+      uTail: new Float64Array(0),
+      capacitanceInverse: new Float64Array(0),
+      dense: null,
+    };
   }
   // Bottom-right addition G = E^T E / alpha (p x p, symmetric).
   const g = new Float64Array(p * p);
@@ -189,17 +220,24 @@ export function factorCyclicBanded(n: number, halfBandwidth: number, entry: Band
   }
   const identity = Matrix.eye(p, p);
   const cholesky = new CholeskyDecomposition(capacitance);
-  const inverse = cholesky.isPositiveDefinite() ? cholesky.solve(identity) : new LuDecomposition(capacitance).solve(identity);
+  const inverse = cholesky.isPositiveDefinite()
+    ? cholesky.solve(identity)
+    : new LuDecomposition(capacitance).solve(identity);
   const capacitanceInverse = new Float64Array(p * p);
   for (let a = 0; a < p; a++) for (let b = 0; b < p; b++) capacitanceInverse[a * p + b] = inverse.get(a, b);
   return { n, halfBandwidth: p, inner, z, sqrtAlpha, uTail, capacitanceInverse, dense: null };
 }
 
 /** Solves A x = rhs with a factor from factorCyclicBanded; out may be rhs itself. */
-export function solveCyclicBanded(factor: CyclicBandedFactor, rhs: Float64Array, out: Float64Array = new Float64Array(factor.n)): Float64Array {
+export function solveCyclicBanded(
+  factor: CyclicBandedFactor,
+  rhs: Float64Array,
+  out: Float64Array = new Float64Array(factor.n),
+): Float64Array {
   const { n, inner, z, uTail, capacitanceInverse, sqrtAlpha } = factor;
   const p = factor.halfBandwidth;
-  if (rhs.length !== n || out.length !== n) throw new RangeError(`cyclic banded solve: expected vectors of length ${n}`);
+  if (rhs.length !== n || out.length !== n)
+    throw new RangeError(`cyclic banded solve: expected vectors of length ${n}`);
   if (factor.dense) {
     const x = new LuDecomposition(factor.dense).solve(Matrix.columnVector(Array.from(rhs)));
     for (let i = 0; i < n; i++) out[i] = x.get(i, 0);

@@ -19,8 +19,12 @@ export function carDescriptionText(d: CarDescription): string {
     lines.push('Understeer gradient: not known (the car file gives no wheelbase or cornering stiffnesses)');
   } else {
     lines.push(`Understeer gradient ${d.understeerGradientDegPerG.toFixed(2)} deg/g (${d.steer})`);
-    if (d.characteristicSpeedKph !== null) lines.push(`Characteristic speed ${d.characteristicSpeedKph.toFixed(0)} km/h (steer doubles its kinematic value)`);
-    if (d.criticalSpeedKph !== null) lines.push(`Critical speed ${d.criticalSpeedKph.toFixed(0)} km/h: directionally unstable above it`);
+    if (d.characteristicSpeedKph !== null)
+      lines.push(
+        `Characteristic speed ${d.characteristicSpeedKph.toFixed(0)} km/h (steer doubles its kinematic value)`,
+      );
+    if (d.criticalSpeedKph !== null)
+      lines.push(`Critical speed ${d.criticalSpeedKph.toFixed(0)} km/h: directionally unstable above it`);
   }
   lines.push(`Top speed ${d.topSpeedKph.toFixed(0)} km/h`, '');
   const header = ['speed km/h', 'lateral g', 'accel g', 'brake g'];
@@ -40,8 +44,14 @@ const CURVE_COLOURS = ['#1b6f8a', '#c2571a', '#5b8a1b', '#8a1b6f', '#6f6f6f', '#
 
 /** One self-contained page: the envelope's g-g boundary at each table speed, drawn with d3-shape. */
 export function carGgHtml(d: CarDescription, envelope: Envelope): string {
-  const boundaries = d.envelope.map((row) => ({ speedKph: row.speedKph, points: envelopeBoundaryG(envelope, kphToMps(row.speedKph)) }));
-  const maxG = Math.max(0.5, ...boundaries.flatMap((b) => b.points.map(([x, y]) => Math.max(Math.abs(x), Math.abs(y)))));
+  const boundaries = d.envelope.map((row) => ({
+    speedKph: row.speedKph,
+    points: envelopeBoundaryG(envelope, kphToMps(row.speedKph)),
+  }));
+  const maxG = Math.max(
+    0.5,
+    ...boundaries.flatMap((b) => b.points.map(([x, y]) => Math.max(Math.abs(x), Math.abs(y)))),
+  );
   const half = GG_PAGE_SIZE / 2;
   const scale = (half - 40) / (Math.ceil(maxG * 2) / 2);
   const path = d3Line<[number, number]>()
@@ -50,13 +60,22 @@ export function carGgHtml(d: CarDescription, envelope: Envelope): string {
   const gridG: number[] = [];
   for (let g = 0.5; g <= maxG + 0.25; g += 0.5) gridG.push(g);
   const grid = gridG
-    .map((g) => `<circle cx="${half}" cy="${half}" r="${(g * scale).toFixed(1)}" fill="none" stroke="#ddd"/><text x="${(half + g * scale + 2).toFixed(1)}" y="${half - 3}" font-size="10" fill="#888">${g.toFixed(1)} g</text>`)
+    .map(
+      (g) =>
+        `<circle cx="${half}" cy="${half}" r="${(g * scale).toFixed(1)}" fill="none" stroke="#ddd"/><text x="${(half + g * scale + 2).toFixed(1)}" y="${half - 3}" font-size="10" fill="#888">${g.toFixed(1)} g</text>`,
+    )
     .join('');
   const curves = boundaries
-    .map((b, k) => `<path d="${path([...b.points, b.points[0]!]) ?? ''}" fill="none" stroke="${CURVE_COLOURS[k % CURVE_COLOURS.length]}" stroke-width="1.6"/>`)
+    .map(
+      (b, k) =>
+        `<path d="${path([...b.points, b.points[0]!]) ?? ''}" fill="none" stroke="${CURVE_COLOURS[k % CURVE_COLOURS.length]}" stroke-width="1.6"/>`,
+    )
     .join('');
   const legend = boundaries
-    .map((b, k) => `<li><span style="color:${CURVE_COLOURS[k % CURVE_COLOURS.length]}">&#9632;</span> ${escapeHtml(`${b.speedKph} km/h`)}</li>`)
+    .map(
+      (b, k) =>
+        `<li><span style="color:${CURVE_COLOURS[k % CURVE_COLOURS.length]}">&#9632;</span> ${escapeHtml(`${b.speedKph} km/h`)}</li>`,
+    )
     .join('');
   const title = escapeHtml(`${d.name}: g-g-v envelope (${d.model} model)`);
   const facts = escapeHtml(
@@ -79,4 +98,3 @@ ${grid}${curves}
 </body></html>
 `;
 }
-

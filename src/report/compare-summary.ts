@@ -9,7 +9,11 @@ import { round, SAFETY_CAUTION } from './lap-summary.js';
 
 const signed = (value: number, digits: number) => `${value >= 0 ? '+' : ''}${value.toFixed(digits)}`;
 const orDash = (value: number | null | undefined, digits: number, sign = true) =>
-  value === null || value === undefined || !Number.isFinite(value) ? '-' : sign ? signed(value, digits) : value.toFixed(digits);
+  value === null || value === undefined || !Number.isFinite(value)
+    ? '-'
+    : sign
+      ? signed(value, digits)
+      : value.toFixed(digits);
 
 /** The gaps a driver reads first: to the reference used, and to the other envelope when it is known. */
 function gapLines(result: ComparisonResult): string[] {
@@ -20,9 +24,15 @@ function gapLines(result: ComparisonResult): string[] {
   ];
   if (result.referenceEnvelopeKind !== 'demonstrated' && result.demonstratedLapTimeS !== null) {
     const demo = result.driverLapTimeS - result.demonstratedLapTimeS;
-    lines.push(`With the grip already shown  ${formatLapTime(result.demonstratedLapTimeS)}  (gap ${signed(demo, 3)} s)`);
+    lines.push(
+      `With the grip already shown  ${formatLapTime(result.demonstratedLapTimeS)}  (gap ${signed(demo, 3)} s)`,
+    );
   }
-  if (result.referenceEnvelopeKind === 'demonstrated' && result.carModelLapTimeS !== null && result.carModelLapTimeS !== undefined) {
+  if (
+    result.referenceEnvelopeKind === 'demonstrated' &&
+    result.carModelLapTimeS !== null &&
+    result.carModelLapTimeS !== undefined
+  ) {
     const model = result.driverLapTimeS - result.carModelLapTimeS;
     lines.push(`On the car model's envelope  ${formatLapTime(result.carModelLapTimeS)}  (gap ${signed(model, 3)} s)`);
   }
@@ -54,12 +64,26 @@ export function compareSummaryText(result: ComparisonResult): string {
     'Corners (speeds driver/reference in km/h; brake = driver minus reference braking point, m, negative = earlier;',
     'slowest vs apex in m, positive = after; grip = mean/peak % of the envelope; lost = entry middle exit, s)',
     formatTable(
-      ['#', 'name', 'apex m', 'brake m', 'entry', 'slowest', 'vs apex', 'exit', 'coast s', 'grip %', 'lost by phase', 'lost s'],
+      [
+        '#',
+        'name',
+        'apex m',
+        'brake m',
+        'entry',
+        'slowest',
+        'vs apex',
+        'exit',
+        'coast s',
+        'grip %',
+        'lost by phase',
+        'lost s',
+      ],
       result.corners.map(cornerRow),
     ),
     '',
   ];
-  if (result.findings.length === 0) lines.push('No corner costs more than a hundredth of a second against the reference.');
+  if (result.findings.length === 0)
+    lines.push('No corner costs more than a hundredth of a second against the reference.');
   else {
     lines.push('Where the time is (largest first):');
     result.findings.forEach((finding, index) => lines.push(`${index + 1}. ${finding.text}`));
@@ -69,7 +93,8 @@ export function compareSummaryText(result: ComparisonResult): string {
   return lines.join('\n') + '\n';
 }
 
-const roundOrNull = (value: number | null | undefined, digits: number) => (value === null || value === undefined ? null : round(value, digits));
+const roundOrNull = (value: number | null | undefined, digits: number) =>
+  value === null || value === undefined ? null : round(value, digits);
 
 export function compareSummaryJson(result: ComparisonResult) {
   return {
@@ -106,22 +131,41 @@ export function compareSummaryJson(result: ComparisonResult) {
       coastingS: roundOrNull(c.coastingS, 2),
       meanGripUse: round(c.meanGripUse, 3),
       peakGripUse: round(c.peakGripUse, 3),
-      stretches: c.stretches.map((s) => ({ kind: s.kind, startM: round(s.startM, 1), endM: round(s.endM, 1), meanGripUse: round(s.meanGripUse, 3) })),
+      stretches: c.stretches.map((s) => ({
+        kind: s.kind,
+        startM: round(s.startM, 1),
+        endM: round(s.endM, 1),
+        meanGripUse: round(s.meanGripUse, 3),
+      })),
     })),
     findings: result.findings.map((f) => ({ corner: f.corner, timeS: round(f.timeS, 3), text: f.text })),
     notes: result.notes,
   };
 }
 
-const fixed = (value: number | undefined, digits: number) => (value !== undefined && Number.isFinite(value) ? value.toFixed(digits) : '');
+const fixed = (value: number | undefined, digits: number) =>
+  value !== undefined && Number.isFinite(value) ? value.toFixed(digits) : '';
 
 /** Both laps on the track grid, one row per station, with the delta and both grip uses. */
 export function alignedTracesCsv(result: ComparisonResult, reference: LapResult, driver: DriverLap): string {
   const t = reference.trace;
   const header = [
-    'station_m', 'time_driver_s', 'time_reference_s', 'delta_s', 'speed_driver_kph', 'speed_reference_kph',
-    'throttle_driver', 'throttle_reference', 'brake_driver', 'brake_reference', 'ax_driver_mps2', 'ax_reference_mps2',
-    'ay_driver_mps2', 'ay_reference_mps2', 'grip_use_driver', 'grip_use_reference',
+    'station_m',
+    'time_driver_s',
+    'time_reference_s',
+    'delta_s',
+    'speed_driver_kph',
+    'speed_reference_kph',
+    'throttle_driver',
+    'throttle_reference',
+    'brake_driver',
+    'brake_reference',
+    'ax_driver_mps2',
+    'ax_reference_mps2',
+    'ay_driver_mps2',
+    'ay_reference_mps2',
+    'grip_use_driver',
+    'grip_use_reference',
   ];
   const lines = [header.join(',')];
   for (let i = 0; i < t.count; i++) {

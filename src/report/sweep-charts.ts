@@ -40,9 +40,18 @@ function lapTimeSeries(table: SweepTable, k: number, series: SweepSeries): XySer
     return `run ${record.run}: ${field} ${valueWithUnit(record.values[k]!, unit)}${others ? ` (${others})` : ''}: lap ${lapText(record.lapTimeS)}`;
   };
   if (meta.mode === 'one-at-a-time' || meta.fields.length === 1) {
-    const runs = meta.mode === 'one-at-a-time' ? records.filter((r) => r.kind === 'oat' && r.varies === field) : records.filter((r) => r.kind === 'grid');
+    const runs =
+      meta.mode === 'one-at-a-time'
+        ? records.filter((r) => r.kind === 'oat' && r.varies === field)
+        : records.filter((r) => r.kind === 'grid');
     const sorted = [...runs].sort((a, b) => a.values[k]! - b.values[k]!);
-    return [{ label: `${field} alone`, colour: PALETTE.reference, points: sorted.map((r) => ({ x: r.values[k]!, y: r.lapTimeS, title: pointTitle(r) })) }];
+    return [
+      {
+        label: `${field} alone`,
+        colour: PALETTE.reference,
+        points: sorted.map((r) => ({ x: r.values[k]!, y: r.lapTimeS, title: pointTitle(r) })),
+      },
+    ];
   }
   const groups = new Map<string, SweepRecord[]>();
   for (const record of records) {
@@ -56,16 +65,28 @@ function lapTimeSeries(table: SweepTable, k: number, series: SweepSeries): XySer
     return [...groups.entries()].map(([key, runs], index) => ({
       label: key,
       ...seriesStyle(index),
-      points: [...runs].sort((a, b) => a.values[k]! - b.values[k]!).map((r) => ({ x: r.values[k]!, y: r.lapTimeS, title: pointTitle(r) })),
+      points: [...runs]
+        .sort((a, b) => a.values[k]! - b.values[k]!)
+        .map((r) => ({ x: r.values[k]!, y: r.lapTimeS, title: pointTitle(r) })),
     }));
   }
   const grid = records.filter((r) => r.kind === 'grid');
   return [
-    { label: 'every run of the grid', colour: PALETTE.gridPoint, line: false, markerRadius: 2.2, points: grid.map((r) => ({ x: r.values[k]!, y: r.lapTimeS, title: pointTitle(r) })) },
+    {
+      label: 'every run of the grid',
+      colour: PALETTE.gridPoint,
+      line: false,
+      markerRadius: 2.2,
+      points: grid.map((r) => ({ x: r.values[k]!, y: r.lapTimeS, title: pointTitle(r) })),
+    },
     {
       label: 'others nearest the baseline',
       colour: PALETTE.reference,
-      points: series.values.map((value, v) => ({ x: value, y: series.lapTimeS[v]!, title: `${field} ${valueWithUnit(value, unit)}: lap ${lapText(series.lapTimeS[v]!)}` })),
+      points: series.values.map((value, v) => ({
+        x: value,
+        y: series.lapTimeS[v]!,
+        title: `${field} ${valueWithUnit(value, unit)}: lap ${lapText(series.lapTimeS[v]!)}`,
+      })),
     },
   ];
 }
@@ -79,7 +100,9 @@ function shiftSeries(table: SweepTable, k: number, series: SweepSeries): XySerie
     markerRadius: 2.4,
     points: series.values.map((value, v) => {
       const shift = series.brakingPointShiftM[c]![v]!;
-      const text = Number.isFinite(shift) ? `${shift >= 0 ? '+' : ''}${shift.toFixed(2)} m (${shift < 0 ? 'earlier' : shift > 0 ? 'later' : 'unchanged'})` : 'no braking';
+      const text = Number.isFinite(shift)
+        ? `${shift >= 0 ? '+' : ''}${shift.toFixed(2)} m (${shift < 0 ? 'earlier' : shift > 0 ? 'later' : 'unchanged'})`
+        : 'no braking';
       return { x: value, y: shift, title: `c${corner.corner} at ${field} ${valueWithUnit(value, unit)}: ${text}` };
     }),
   }));
@@ -96,7 +119,9 @@ export function sweepChartSpecs(table: SweepTable): XyChartSpec[] {
     const xGuides = baselineGuide(table, k);
     // A percent step of a field the car gives as 0 moves nothing: say so rather than draw a dot as a chart.
     const unmoved = series.values.length > 0 && series.values.every((v) => v === series.values[0]);
-    const unmovedNote = unmoved ? { note: `every run has ${field} = ${series.values[0]}: the variation does not move this field` } : {};
+    const unmovedNote = unmoved
+      ? { note: `every run has ${field} = ${series.values[0]}: the variation does not move this field` }
+      : {};
     specs.push({
       name: `lap-time-${fieldSlug(field)}`,
       title: `Lap time against ${field}`,

@@ -5,7 +5,9 @@ export function perUnit(value: number | null): string {
   if (value === null || !Number.isFinite(value)) return '';
   if (value === 0) return '0';
   const magnitude = Math.abs(value);
-  return magnitude >= 0.01 && magnitude < 1e5 ? value.toFixed(Math.max(0, 4 - Math.floor(Math.log10(magnitude)) - 1)) : value.toExponential(3);
+  return magnitude >= 0.01 && magnitude < 1e5
+    ? value.toFixed(Math.max(0, 4 - Math.floor(Math.log10(magnitude)) - 1))
+    : value.toExponential(3);
 }
 
 /** 'massKg, kg', or the field alone for a dimensionless one (unit '1' or none). */

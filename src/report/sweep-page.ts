@@ -14,7 +14,11 @@ import { sweepChartSpecs } from './sweep-charts.js';
 import { perUnit } from './sweep-format.js';
 
 function charts(table: SweepTable, options: SvgOptions): ChartSvg[] {
-  return sweepChartSpecs(table).map((spec) => ({ name: `${spec.name}.svg`, title: spec.title, svg: xyChartSvg(spec, options) }));
+  return sweepChartSpecs(table).map((spec) => ({
+    name: `${spec.name}.svg`,
+    title: spec.title,
+    svg: xyChartSvg(spec, options),
+  }));
 }
 
 /** Each chart of the sweep page as a standalone SVG file. */
@@ -24,15 +28,31 @@ export function sweepChartSvgs(table: SweepTable): ChartSvg[] {
 
 function summaryTiles(table: SweepTable): string {
   const { meta, records } = table;
-  const tiles = [tile('Runs', `${records.length}`, records.length === meta.totalRuns ? `${meta.mode} sweep` : `of ${meta.totalRuns} (one shard)`)];
+  const tiles = [
+    tile(
+      'Runs',
+      `${records.length}`,
+      records.length === meta.totalRuns ? `${meta.mode} sweep` : `of ${meta.totalRuns} (one shard)`,
+    ),
+  ];
   const baseline = records.find((r) => r.kind === 'baseline');
-  if (baseline) tiles.push(tile('Baseline lap', formatLapTime(baseline.lapTimeS), meta.fields.map((f, k) => `${f} ${meta.baseValues[k]}`).join(', ')));
+  if (baseline)
+    tiles.push(
+      tile(
+        'Baseline lap',
+        formatLapTime(baseline.lapTimeS),
+        meta.fields.map((f, k) => `${f} ${meta.baseValues[k]}`).join(', '),
+      ),
+    );
   const swept = records.filter((r) => r.kind === 'grid' || r.kind === 'oat');
   if (swept.length > 0) {
     const at = (r: (typeof swept)[number]) => meta.fields.map((f, k) => `${f} ${r.values[k]}`).join(', ');
     const best = swept.reduce((a, b) => (b.lapTimeS < a.lapTimeS ? b : a));
     const worst = swept.reduce((a, b) => (b.lapTimeS > a.lapTimeS ? b : a));
-    tiles.push(tile('Quickest', formatLapTime(best.lapTimeS), at(best)), tile('Slowest', formatLapTime(worst.lapTimeS), at(worst)));
+    tiles.push(
+      tile('Quickest', formatLapTime(best.lapTimeS), at(best)),
+      tile('Slowest', formatLapTime(worst.lapTimeS), at(worst)),
+    );
   }
   tiles.push(tile('Corners', String(meta.corners.length), 'braking zones of the baseline'));
   return `<section class="summary" aria-label="Sweep summary">${tiles.join('')}</section>`;
@@ -40,13 +60,26 @@ function summaryTiles(table: SweepTable): string {
 
 export function sensitivityTableHtml(table: SweepTable, found: Sensitivity[]): string {
   const heading = '<h2>Sensitivity around the baseline</h2>';
-  if (found.length === 0) return `<section class="sensitivity">${heading}<p>No sensitivities: the runs around the baseline are not in this table.</p></section>`;
+  if (found.length === 0)
+    return `<section class="sensitivity">${heading}<p>No sensitivities: the runs around the baseline are not in this table.</p></section>`;
   const head = `<tr><th>per unit of</th>${found.map((s) => `<th>${escapeHtml(s.unit && s.unit !== '1' ? `${s.field} (${s.unit})` : s.field)}</th>`).join('')}</tr>`;
-  const row = (label: string, cells: string[]) => `<tr><td>${escapeHtml(label)}</td>${cells.map((cell) => `<td>${escapeHtml(cell)}</td>`).join('')}</tr>`;
+  const row = (label: string, cells: string[]) =>
+    `<tr><td>${escapeHtml(label)}</td>${cells.map((cell) => `<td>${escapeHtml(cell)}</td>`).join('')}</tr>`;
   const rows = [
-    row('lap time, s', found.map((s) => perUnit(s.lapTimeSPerUnit))),
-    ...table.meta.corners.map((corner, c) => row(`c${corner.corner} braking point, m`, found.map((s) => perUnit(s.brakingPointMPerUnit[c] ?? null)))),
-    row('difference step ±', found.map((s) => `${s.stepUsed}${s.scheme === 'central' ? '' : ` (${s.scheme})`}`)),
+    row(
+      'lap time, s',
+      found.map((s) => perUnit(s.lapTimeSPerUnit)),
+    ),
+    ...table.meta.corners.map((corner, c) =>
+      row(
+        `c${corner.corner} braking point, m`,
+        found.map((s) => perUnit(s.brakingPointMPerUnit[c] ?? null)),
+      ),
+    ),
+    row(
+      'difference step ±',
+      found.map((s) => `${s.stepUsed}${s.scheme === 'central' ? '' : ` (${s.scheme})`}`),
+    ),
   ];
   return (
     `<section class="sensitivity">${heading}<p class="hint">Central differences (f(x + h) − f(x − h)) / 2h around the baseline. Braking point: negative = earlier for more of the field.</p>` +
@@ -58,7 +91,10 @@ export function sensitivityTableHtml(table: SweepTable, found: Sensitivity[]): s
 export function sweepReportHtml(table: SweepTable): string {
   const { meta } = table;
   const svgs = charts(table, { standalone: false });
-  const byField = meta.fields.map((field, k) => `<section class="panel" aria-label="${escapeHtml(field)}"><div class="chart-pair">${svgs[2 * k]!.svg}${svgs[2 * k + 1]!.svg}</div></section>`);
+  const byField = meta.fields.map(
+    (field, k) =>
+      `<section class="panel" aria-label="${escapeHtml(field)}"><div class="chart-pair">${svgs[2 * k]!.svg}${svgs[2 * k + 1]!.svg}</div></section>`,
+  );
   const changes = [...meta.variations.map((v) => `vary ${v}`), ...meta.settings.map((s) => `set ${s}`)].join('; ');
   return htmlPage({
     title: `Setup sweep: ${meta.trackName} · ${meta.carName}`,

@@ -55,7 +55,11 @@ export function whatifReportHtml(input: WhatifPageInput): string {
   const tiles = [
     tile('Baseline lap', formatLapTime(comparison.baselineLapTimeS)),
     tile('Changed lap', formatLapTime(comparison.changedLapTimeS)),
-    tile('Lap time change', `${delta >= 0 ? '+' : '−'}${Math.abs(delta).toFixed(3)} s`, delta >= 0 ? 'slower' : 'quicker'),
+    tile(
+      'Lap time change',
+      `${delta >= 0 ? '+' : '−'}${Math.abs(delta).toFixed(3)} s`,
+      delta >= 0 ? 'slower' : 'quicker',
+    ),
     tile('Corners', String(comparison.zones.length), 'braking zones of the baseline'),
   ];
   const [chart] = charts(input, { standalone: false });
@@ -64,6 +68,7 @@ export function whatifReportHtml(input: WhatifPageInput): string {
     subtitle: `Change: ${input.described.join('; ')}`,
     header: `<section class="summary" aria-label="What-if summary">${tiles.join('')}</section>`,
     main: `<section class="panel">${chart!.svg}</section>`,
-    footerNote: 'Made by reflap. Hold the pointer on a bar for its values. Colours: Okabe–Ito palette, chosen to stay readable for colour-blind readers.',
+    footerNote:
+      'Made by reflap. Hold the pointer on a bar for its values. Colours: Okabe–Ito palette, chosen to stay readable for colour-blind readers.',
   });
 }

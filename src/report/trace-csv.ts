@@ -13,7 +13,18 @@ const fixed = (value: number, digits: number) => (Number.isFinite(value) ? value
 
 export function traceCsv(result: LapResult, extraColumns: ExtraColumn[] = []): string {
   const t = result.trace;
-  const header = ['distance_m', 'time_s', 'speed_mps', 'speed_kph', 'ax_mps2', 'ay_mps2', 'curvature_1pm', 'throttle', 'brake', 'grip_use'];
+  const header = [
+    'distance_m',
+    'time_s',
+    'speed_mps',
+    'speed_kph',
+    'ax_mps2',
+    'ay_mps2',
+    'curvature_1pm',
+    'throttle',
+    'brake',
+    'grip_use',
+  ];
   if (t.hasGears) header.push('gear');
   for (const column of extraColumns) header.push(column.name);
   const lines: string[] = [header.join(',')];

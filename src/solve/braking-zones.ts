@@ -17,7 +17,11 @@ const PLATEAU_RISE_MPS = 0.01;
 /** Samples within this of the minimum speed form its plateau, m/s. */
 const PLATEAU_BAND_MPS = 0.05;
 
-export const DEFAULT_BRAKING_ZONE_OPTIONS: BrakingZoneOptions = { brakeThreshold: 0.05, mergeGapM: 10, minSpeedDropMps: 1 };
+export const DEFAULT_BRAKING_ZONE_OPTIONS: BrakingZoneOptions = {
+  brakeThreshold: 0.05,
+  mergeGapM: 10,
+  minSpeedDropMps: 1,
+};
 
 /** Finds the zones on any trace with speed and a brake share (the reference lap or a driver's lap). */
 export function findBrakingZones(
@@ -54,7 +58,8 @@ export function findBrakingZones(
     // plateau around the minimum (a constant-radius corner holds its speed for a while).
     let probe = startK;
     const span = closed ? n : n - 1;
-    while (probe - startK < span - 1 && speedMps[index(probe + 1)]! <= speedMps[index(probe)]! + PLATEAU_RISE_MPS) probe++;
+    while (probe - startK < span - 1 && speedMps[index(probe + 1)]! <= speedMps[index(probe)]! + PLATEAU_RISE_MPS)
+      probe++;
     let minK = startK;
     for (let q = startK; q <= Math.max(probe, lastOnK); q++) if (speedMps[index(q)]! < speedMps[index(minK)]!) minK = q;
     const floor = speedMps[index(minK)]! + PLATEAU_BAND_MPS;

@@ -5,7 +5,13 @@ import type { Envelope } from '../car/envelope.js';
 import type { Path } from '../track/types.js';
 import type { LapTrace } from './types.js';
 
-export function lapChannels(path: Path, envelope: Envelope, speedMps: Float64Array, cornerLimitMps: Float64Array, stationM: Float64Array): { trace: LapTrace; lapTimeS: number; lengthM: number } {
+export function lapChannels(
+  path: Path,
+  envelope: Envelope,
+  speedMps: Float64Array,
+  cornerLimitMps: Float64Array,
+  stationM: Float64Array,
+): { trace: LapTrace; lapTimeS: number; lengthM: number } {
   const n = speedMps.length;
   const kappa = path.curvaturePerM;
   const ds = path.segmentLengthM;
@@ -39,7 +45,10 @@ export function lapChannels(path: Path, envelope: Envelope, speedMps: Float64Arr
       // The last sample of an open stage has no step after it: carry the previous step's acceleration,
       // clipped to what the envelope allows at this sample's own lateral demand.
       const coastHere = envelope.coastDecelMps2(speed);
-      ax = Math.min(Math.max(axMps2[i - 1]!, -envelope.brakeLimitMps2(speed, ay)), Math.max(envelope.accelLimitMps2(speed, ay), -coastHere));
+      ax = Math.min(
+        Math.max(axMps2[i - 1]!, -envelope.brakeLimitMps2(speed, ay)),
+        Math.max(envelope.accelLimitMps2(speed, ay), -coastHere),
+      );
     }
     axMps2[i] = ax;
     const coast = envelope.coastDecelMps2(speed);

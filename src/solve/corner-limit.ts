@@ -24,7 +24,11 @@ export function cornerLimitSpeedMps(envelope: Envelope, curvaturePerM: number): 
   return lo;
 }
 
-export function cornerLimitProfile(envelope: Envelope, curvaturePerM: Float64Array, out = new Float64Array(curvaturePerM.length)): Float64Array {
+export function cornerLimitProfile(
+  envelope: Envelope,
+  curvaturePerM: Float64Array,
+  out = new Float64Array(curvaturePerM.length),
+): Float64Array {
   for (let i = 0; i < curvaturePerM.length; i++) out[i] = cornerLimitSpeedMps(envelope, curvaturePerM[i]!);
   return out;
 }

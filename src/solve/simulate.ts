@@ -33,7 +33,13 @@ export function simulate(track: TrackGrid, car: Car, options: SimulateOptions = 
     startSpeedMps: options.startSpeedMps ?? 0,
     shiftTimeS: car.powertrain.gearing?.shiftTimeS ?? 0,
   });
-  const { trace, lapTimeS, lengthM } = lapChannels(path, envelope, profile.speedMps, profile.cornerLimitMps, track.distanceM);
+  const { trace, lapTimeS, lengthM } = lapChannels(
+    path,
+    envelope,
+    profile.speedMps,
+    profile.cornerLimitMps,
+    track.distanceM,
+  );
   let maxSpeedMps = -Infinity;
   let minSpeedMps = Infinity;
   for (let i = 0; i < trace.count; i++) {

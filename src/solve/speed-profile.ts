@@ -28,7 +28,15 @@ function argMin(values: Float64Array): number {
   return best;
 }
 
-function forwardPass(path: Path, envelope: Envelope, limit: Float64Array, first: number, firstSpeedMps: number, shiftTimeS: number, out: Float64Array): void {
+function forwardPass(
+  path: Path,
+  envelope: Envelope,
+  limit: Float64Array,
+  first: number,
+  firstSpeedMps: number,
+  shiftTimeS: number,
+  out: Float64Array,
+): void {
   const n = limit.length;
   const steps = path.closed ? n : n - 1;
   const kappa = path.curvaturePerM;
@@ -47,7 +55,9 @@ function forwardPass(path: Path, envelope: Envelope, limit: Float64Array, first:
       // The shift may end part-way through this step: drive for the rest of it.
       const stepTimeS = lengthM / Math.max(speed, 0.5);
       const coastShare = Math.min(1, shiftLeftS / stepTimeS);
-      accel = -coastShare * envelope.coastDecelMps2(speed) + (1 - coastShare) * envelope.accelLimitMps2(speed, speed * speed * kappa[i]!);
+      accel =
+        -coastShare * envelope.coastDecelMps2(speed) +
+        (1 - coastShare) * envelope.accelLimitMps2(speed, speed * speed * kappa[i]!);
       shiftLeftS -= stepTimeS;
     } else {
       accel = envelope.accelLimitMps2(speed, speed * speed * kappa[i]!);
@@ -72,7 +82,12 @@ function forwardPass(path: Path, envelope: Envelope, limit: Float64Array, first:
  * car actually has there (an explicit step would use the lower exit speed and ask for more than the envelope).
  * The explicit step bounds the root from above when b falls with speed; a few secant steps close in on it.
  */
-function brakingEntrySpeedMps(envelope: Envelope, exitSpeedMps: number, curvaturePerM: number, lengthM: number): number {
+function brakingEntrySpeedMps(
+  envelope: Envelope,
+  exitSpeedMps: number,
+  curvaturePerM: number,
+  lengthM: number,
+): number {
   const exitSquared = exitSpeedMps * exitSpeedMps;
   const residual = (speed: number) =>
     Math.sqrt(exitSquared + 2 * envelope.brakeLimitMps2(speed, speed * speed * curvaturePerM) * lengthM) - speed;
@@ -98,7 +113,14 @@ function brakingEntrySpeedMps(envelope: Envelope, exitSpeedMps: number, curvatur
   return lo;
 }
 
-function backwardPass(path: Path, envelope: Envelope, limit: Float64Array, last: number, lastSpeedMps: number, out: Float64Array): void {
+function backwardPass(
+  path: Path,
+  envelope: Envelope,
+  limit: Float64Array,
+  last: number,
+  lastSpeedMps: number,
+  out: Float64Array,
+): void {
   const n = limit.length;
   const steps = path.closed ? n : n - 1;
   const kappa = path.curvaturePerM;
@@ -134,7 +156,15 @@ export function solveSpeedProfile(path: Path, envelope: Envelope, options: Speed
     }
     backwardPass(path, envelope, cornerLimitMps, slowest, cornerLimitMps[slowest]!, backward);
   } else {
-    forwardPass(path, envelope, cornerLimitMps, 0, Math.min(options.startSpeedMps, cornerLimitMps[0]!), options.shiftTimeS, forward);
+    forwardPass(
+      path,
+      envelope,
+      cornerLimitMps,
+      0,
+      Math.min(options.startSpeedMps, cornerLimitMps[0]!),
+      options.shiftTimeS,
+      forward,
+    );
     backwardPass(path, envelope, cornerLimitMps, n - 1, cornerLimitMps[n - 1]!, backward);
   }
   for (let i = 0; i < n; i++) if (backward[i]! < forward[i]!) forward[i] = backward[i]!;

@@ -15,7 +15,9 @@ export const canTraceSteering = (car: Car): boolean => linearAxlesOf(car) !== nu
 export function steeringTraceDeg(result: LapResult, car: Car): Float64Array {
   const axles = linearAxlesOf(car);
   if (!axles) {
-    throw new InputError(`car ${car.name}: the steering trace needs fields wheelbaseM, tyre.corneringStiffnessFrontNPerRad and tyre.corneringStiffnessRearNPerRad`);
+    throw new InputError(
+      `car ${car.name}: the steering trace needs fields wheelbaseM, tyre.corneringStiffnessFrontNPerRad and tyre.corneringStiffnessRearNPerRad`,
+    );
   }
   const gradient = understeerGradientRadPerMps2(axles);
   const t = result.trace;

@@ -70,7 +70,15 @@ export interface DriverContext {
   reference: ReferenceLookup;
 }
 
-export type Driver = (stationM: number, lateralErrorM: number, headingErrorRad: number, lateralVelocityMps: number, yawRateRadPerS: number, speedMps: number, out: SingleTrackInput) => SingleTrackInput;
+export type Driver = (
+  stationM: number,
+  lateralErrorM: number,
+  headingErrorRad: number,
+  lateralVelocityMps: number,
+  yawRateRadPerS: number,
+  speedMps: number,
+  out: SingleTrackInput,
+) => SingleTrackInput;
 
 /** How far a slip angle goes beyond the planned one, as a share of the sliding angle (0 when within it). */
 function excessShare(slipRad: number, plannedRad: number, peakRad: number): number {
@@ -95,10 +103,13 @@ export function newDriver(context: DriverContext): Driver {
 
     // Pedals: the reference's acceleration plus a speed correction, plus what drag, rolling resistance and the
     // front axle's cornering drag (Fyf sin delta, less the m vy r the body gains from the yaw) take away.
-    const axWantedMps2 = reference.axMps2(stationM) + settings.speedGainPerS * (reference.speedMps(stationM) - speedMps);
+    const axWantedMps2 =
+      reference.axMps2(stationM) + settings.speedGainPerS * (reference.speedMps(stationM) - speedMps);
     const ayNowMps2 = u * yawRateRadPerS;
     const steerEstimateRad = L * kappaAhead + context.understeerGradientRadPerMps2 * u * u * kappaAhead;
-    const corneringDragN = Math.abs((m * ayNowMps2 * p.cgToRearAxleM) / L) * Math.abs(Math.sin(steerEstimateRad)) - m * lateralVelocityMps * yawRateRadPerS;
+    const corneringDragN =
+      Math.abs((m * ayNowMps2 * p.cgToRearAxleM) / L) * Math.abs(Math.sin(steerEstimateRad)) -
+      m * lateralVelocityMps * yawRateRadPerS;
     const wantedN = m * axWantedMps2 + resistance + corneringDragN;
     // Each axle's ellipse, after the path's steady cornering demand here or where the steering already aims (not
     // u r: while the sideslip builds, the yaw rate runs ahead of the lateral acceleration); the loads follow the
@@ -108,8 +119,14 @@ export function newDriver(context: DriverContext): Driver {
     let axMps2 = Math.max(-axBoundMps2, Math.min(axBoundMps2, (wantedN - resistance) / m));
     for (let pass = 0; pass < 2; pass++) {
       const s = axleState(p, tyre, downforceN, axMps2, ayDemandMps2, scratch);
-      const frontLeftN = settings.pedalShare * s.frontLongCapN * remainingShare(s.frontLatCapN > 0 ? s.frontLatDemandN / s.frontLatCapN : 1, n);
-      const rearLeftN = settings.pedalShare * s.rearLongCapN * remainingShare(s.rearLatCapN > 0 ? s.rearLatDemandN / s.rearLatCapN : 1, n);
+      const frontLeftN =
+        settings.pedalShare *
+        s.frontLongCapN *
+        remainingShare(s.frontLatCapN > 0 ? s.frontLatDemandN / s.frontLatCapN : 1, n);
+      const rearLeftN =
+        settings.pedalShare *
+        s.rearLongCapN *
+        remainingShare(s.rearLatCapN > 0 ? s.rearLatDemandN / s.rearLatCapN : 1, n);
       if (wantedN >= 0) {
         const engineN = context.engineForceN(speedMps);
         if (p.drive === 'rear') {
@@ -125,7 +142,11 @@ export function newDriver(context: DriverContext): Driver {
           out.rearLongN = total - out.frontLongN;
         }
       } else {
-        const limitN = Math.min(context.brakeCapN, bias > 0 ? frontLeftN / bias : Infinity, bias < 1 ? rearLeftN / (1 - bias) : Infinity);
+        const limitN = Math.min(
+          context.brakeCapN,
+          bias > 0 ? frontLeftN / bias : Infinity,
+          bias < 1 ? rearLeftN / (1 - bias) : Infinity,
+        );
         const brakeN = Math.min(-wantedN, Math.max(0, limitN));
         out.frontLongN = -bias * brakeN;
         out.rearLongN = -(1 - bias) * brakeN;
@@ -138,11 +159,25 @@ export function newDriver(context: DriverContext): Driver {
     // the cornering force and at what its ellipse leaves after the pedals; with linear tyres L kappa + K ay.
     const ayAheadMps2 = u * u * kappaAhead;
     const t = axleState(p, tyre, downforceN, axMps2, ayAheadMps2, scratch);
-    const frontCapN = t.frontLatCapN * remainingShare(t.frontLongCapN > 0 ? Math.abs(out.frontLongN) / t.frontLongCapN : 1, n);
-    const rearCapN = t.rearLatCapN * remainingShare(t.rearLongCapN > 0 ? Math.abs(out.rearLongN) / t.rearLongCapN : 1, n);
+    const frontCapN =
+      t.frontLatCapN * remainingShare(t.frontLongCapN > 0 ? Math.abs(out.frontLongN) / t.frontLongCapN : 1, n);
+    const rearCapN =
+      t.rearLatCapN * remainingShare(t.rearLongCapN > 0 ? Math.abs(out.rearLongN) / t.rearLongCapN : 1, n);
     const sign = kappaAhead >= 0 ? 1 : -1;
-    const frontSlipRad = axleSlipForForceRad(p.corneringStiffnessFrontNPerRad, sign * t.frontLatDemandN, frontCapN, law, settings.maxPlannedShare);
-    const rearSlipRad = axleSlipForForceRad(p.corneringStiffnessRearNPerRad, sign * t.rearLatDemandN, rearCapN, law, settings.maxPlannedShare);
+    const frontSlipRad = axleSlipForForceRad(
+      p.corneringStiffnessFrontNPerRad,
+      sign * t.frontLatDemandN,
+      frontCapN,
+      law,
+      settings.maxPlannedShare,
+    );
+    const rearSlipRad = axleSlipForForceRad(
+      p.corneringStiffnessRearNPerRad,
+      sign * t.rearLatDemandN,
+      rearCapN,
+      law,
+      settings.maxPlannedShare,
+    );
     const feedforwardRad = L * kappaAhead + frontSlipRad - rearSlipRad;
 
     // Feedback at the look-ahead point (Kapania and Gerdes's lookahead error with the steady-state sideslip
@@ -155,13 +190,23 @@ export function newDriver(context: DriverContext): Driver {
     // feel of the front tyres lets a driver do, so a turn-in never asks the front for more than the corner needs.
     const frontCourseRad = Math.atan2(lateralVelocityMps + p.frontAxleToCgM * yawRateRadPerS, u);
     const frontCourseCorrectionRad = settings.frontSlipHold * (frontCourseRad - (L * kappaAhead - rearSlipRad));
-    out.steerRad = clampSteer(feedforwardRad + frontCourseCorrectionRad - settings.lateralGainRadPerM * lookAheadErrorM);
+    out.steerRad = clampSteer(
+      feedforwardRad + frontCourseCorrectionRad - settings.lateralGainRadPerM * lookAheadErrorM,
+    );
 
     // A driver at the threshold eases the pedals when an axle slides beyond the slip the steady state plans for
     // (it has then run out of lateral force): fully off once the excess reaches `slideBand` of the axle's sliding
     // angle with no longitudinal force.
-    const frontExcess = excessShare(out.steerRad - frontCourseRad, frontSlipRad, axlePeakSlipRad(p.corneringStiffnessFrontNPerRad, t.frontLatCapN, law));
-    const rearExcess = excessShare(-Math.atan2(lateralVelocityMps - p.cgToRearAxleM * yawRateRadPerS, u), rearSlipRad, axlePeakSlipRad(p.corneringStiffnessRearNPerRad, t.rearLatCapN, law));
+    const frontExcess = excessShare(
+      out.steerRad - frontCourseRad,
+      frontSlipRad,
+      axlePeakSlipRad(p.corneringStiffnessFrontNPerRad, t.frontLatCapN, law),
+    );
+    const rearExcess = excessShare(
+      -Math.atan2(lateralVelocityMps - p.cgToRearAxleM * yawRateRadPerS, u),
+      rearSlipRad,
+      axlePeakSlipRad(p.corneringStiffnessRearNPerRad, t.rearLatCapN, law),
+    );
     const ease = Math.max(0, 1 - Math.max(frontExcess, rearExcess) / settings.slideBand);
     // Both axles' forces scale together, so braking keeps the fixed brake balance.
     out.frontLongN *= ease;

@@ -10,7 +10,15 @@ import { driveForceTable } from '../car/drive-force.js';
 import { axleState, newAxleState } from '../car/bicycle-axles.js';
 import { STANDARD_GRAVITY_MPS2 } from '../units.js';
 import { newOdexSolver } from './transient-odex.js';
-import { axleSlipForForceRad, newSingleTrackForces, pathRates, singleTrackForces, singleTrackModel, type AxleForceLaw, type SingleTrackInput } from './transient-model.js';
+import {
+  axleSlipForForceRad,
+  newSingleTrackForces,
+  pathRates,
+  singleTrackForces,
+  singleTrackModel,
+  type AxleForceLaw,
+  type SingleTrackInput,
+} from './transient-model.js';
 import { newDriver, type DriverSettings } from './transient-driver.js';
 import type { TransientReference } from './transient-reference.js';
 
@@ -80,7 +88,14 @@ export function followLap(result: LapResult, car: Car, setup: FollowSetup): Foll
   };
   const derivative = (_t: number, y: number[]): number[] => {
     evaluate(y);
-    return [kinematics[0]!, kinematics[1]!, kinematics[2]!, forces.lateralVelocityRate, forces.yawAcceleration, forces.speedRate];
+    return [
+      kinematics[0]!,
+      kinematics[1]!,
+      kinematics[2]!,
+      forces.lateralVelocityRate,
+      forces.yawAcceleration,
+      forces.speedRate,
+    ];
   };
 
   // Recorded at every accepted step.
@@ -104,8 +119,14 @@ export function followLap(result: LapResult, car: Car, setup: FollowSetup): Foll
     // A spin shows as a large sideslip or heading error (the course, heading plus sideslip, can stay on the path).
     const sideslip = Math.atan2(y[3]!, Math.max(y[5]!, 1));
     const at = (y[0]! % wrapM).toFixed(0);
-    if (Math.abs(sideslip) > SPIN_SIDESLIP_RAD || Math.abs(y[2]!) > SPIN_HEADING_ERROR_RAD || Math.abs(y[2]! + sideslip) > SPIN_HEADING_ERROR_RAD) lost = `the car spins at ${at} m`;
-    else if (Math.abs(y[1]!) > LOST_DEVIATION_M) lost = `the car leaves the line by more than ${LOST_DEVIATION_M} m at ${at} m`;
+    if (
+      Math.abs(sideslip) > SPIN_SIDESLIP_RAD ||
+      Math.abs(y[2]!) > SPIN_HEADING_ERROR_RAD ||
+      Math.abs(y[2]! + sideslip) > SPIN_HEADING_ERROR_RAD
+    )
+      lost = `the car spins at ${at} m`;
+    else if (Math.abs(y[1]!) > LOST_DEVIATION_M)
+      lost = `the car leaves the line by more than ${LOST_DEVIATION_M} m at ${at} m`;
     else if (y[5]! < 0.5) lost = `the car stops at ${at} m`;
   };
 
@@ -117,8 +138,21 @@ export function followLap(result: LapResult, car: Car, setup: FollowSetup): Foll
   // Start in steady cornering: r = u kappa, and the lateral velocity that gives the rear axle its share m ay a / L
   // on the tyre law (vy = b r - u tan alpha_r), heading error -sideslip so that the car moves along the line.
   const startYawRate = startSpeed * reference.curvaturePerM(startM);
-  const startAxles = axleState(p, car.tyre, model.halfRhoLift * startSpeed * startSpeed, 0, startSpeed * startYawRate, newAxleState());
-  const rearSlipRad = axleSlipForForceRad(p.corneringStiffnessRearNPerRad, Math.sign(startYawRate) * startAxles.rearLatDemandN, startAxles.rearLatCapN, law, 0.995);
+  const startAxles = axleState(
+    p,
+    car.tyre,
+    model.halfRhoLift * startSpeed * startSpeed,
+    0,
+    startSpeed * startYawRate,
+    newAxleState(),
+  );
+  const rearSlipRad = axleSlipForForceRad(
+    p.corneringStiffnessRearNPerRad,
+    Math.sign(startYawRate) * startAxles.rearLatDemandN,
+    startAxles.rearLatCapN,
+    law,
+    0.995,
+  );
   const startVy = p.cgToRearAxleM * startYawRate - startSpeed * Math.tan(rearSlipRad);
   const y0 = [startM, 0, -Math.atan2(startVy, startSpeed), startVy, startYawRate, startSpeed];
   const solver = newOdexSolver(6);
@@ -162,7 +196,9 @@ export function followedLapTimeS(lap: FollowedLap, completed: boolean): number {
   const count = times.length;
   const before = count >= 2 ? count - 2 : 0;
   const span = stations[count - 1]! - stations[before]!;
-  return span > 0 ? times[before]! + ((endM - stations[before]!) / span) * (times[count - 1]! - times[before]!) : times[count - 1]!;
+  return span > 0
+    ? times[before]! + ((endM - stations[before]!) / span) * (times[count - 1]! - times[before]!)
+    : times[count - 1]!;
 }
 
 /** The stations of the step records on the lap (wrapped, and held at the lap's end). */
@@ -198,7 +234,14 @@ function calmStartIndex(result: LapResult): number {
  * Linear interpolation of step records (by station, increasing from the start sample) onto the grid, taking the
  * grid in driving order from startIndex; beyond the records, the last value.
  */
-export function resampleOnGrid(gridM: Float64Array, startIndex: number, lengthM: number, stations: number[], columns: number[][], outs: Float64Array[]): void {
+export function resampleOnGrid(
+  gridM: Float64Array,
+  startIndex: number,
+  lengthM: number,
+  stations: number[],
+  columns: number[][],
+  outs: Float64Array[],
+): void {
   let k = 0;
   const last = stations.length - 1;
   const n = gridM.length;

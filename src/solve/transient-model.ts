@@ -20,7 +20,12 @@ export type AxleForceLaw = 'linear' | 'saturating' | 'brush';
  *   tan(alpha_sl) = 3 capacity / C and flat beyond (Pacejka, Tire and Vehicle Dynamics, 2nd ed. 2006, sec. 3.2; the
  *   tyre law of Kapania and Gerdes, Vehicle System Dynamics 53 (2015)).
  */
-export function axleLateralForceN(stiffnessNPerRad: number, slipRad: number, capacityN: number, law: AxleForceLaw): number {
+export function axleLateralForceN(
+  stiffnessNPerRad: number,
+  slipRad: number,
+  capacityN: number,
+  law: AxleForceLaw,
+): number {
   if (law === 'linear') return stiffnessNPerRad * slipRad;
   if (!(capacityN > 0)) return 0;
   if (law === 'saturating') return capacityN * Math.tanh((stiffnessNPerRad * slipRad) / capacityN);
@@ -41,11 +46,18 @@ export function axlePeakSlipRad(stiffnessNPerRad: number, capacityN: number, law
  * The slip angle at which an axle gives forceN (magnitude, the inverse of axleLateralForceN), rad; the demand is
  * held at `maxShare` of the capacity at most (the tanh law reaches the capacity only at infinite slip).
  */
-export function axleSlipForForceRad(stiffnessNPerRad: number, forceN: number, capacityN: number, law: AxleForceLaw, maxShare: number): number {
+export function axleSlipForForceRad(
+  stiffnessNPerRad: number,
+  forceN: number,
+  capacityN: number,
+  law: AxleForceLaw,
+  maxShare: number,
+): number {
   if (law === 'linear') return forceN / stiffnessNPerRad;
   if (!(capacityN > 0)) return 0;
   const share = Math.min(Math.abs(forceN) / capacityN, maxShare);
-  if (law === 'saturating') return (Math.sign(forceN) * capacityN * Math.atanh(Math.min(share, 0.999))) / stiffnessNPerRad;
+  if (law === 'saturating')
+    return (Math.sign(forceN) * capacityN * Math.atanh(Math.min(share, 0.999))) / stiffnessNPerRad;
   // 1 - (1 - z)^3 = share, the brush curve's inverse in closed form.
   const z = 1 - Math.cbrt(1 - share);
   return Math.sign(forceN) * Math.atan((3 * capacityN * z) / stiffnessNPerRad);
@@ -95,8 +107,21 @@ export interface SingleTrackModel {
   axles: AxleState;
 }
 
-export function singleTrackModel(params: BicycleParams, car: Car, airDensityKgPerM3: number, law: AxleForceLaw, resistanceN: (speedMps: number) => number): SingleTrackModel {
-  return { params, tyre: car.tyre, law, halfRhoLift: 0.5 * airDensityKgPerM3 * car.aero.liftAreaM2, resistanceN, axles: newAxleState() };
+export function singleTrackModel(
+  params: BicycleParams,
+  car: Car,
+  airDensityKgPerM3: number,
+  law: AxleForceLaw,
+  resistanceN: (speedMps: number) => number,
+): SingleTrackModel {
+  return {
+    params,
+    tyre: car.tyre,
+    law,
+    halfRhoLift: 0.5 * airDensityKgPerM3 * car.aero.liftAreaM2,
+    resistanceN,
+    axles: newAxleState(),
+  };
 }
 
 const ratio = (a: number, b: number) => (b > 0 ? Math.abs(a) / b : a === 0 ? 0 : Infinity);
@@ -105,7 +130,14 @@ const ratio = (a: number, b: number) => (b > 0 ? Math.abs(a) / b : a === 0 ? 0 :
  * Body-frame derivatives of (vy, r, u). Loads follow the quasi-static load transfer at the commanded ax and at
  * ay = u r; each axle's lateral capacity shrinks by its longitudinal force on the friction ellipse.
  */
-export function singleTrackForces(model: SingleTrackModel, lateralVelocityMps: number, yawRateRadPerS: number, speedMps: number, input: SingleTrackInput, out: SingleTrackForces): SingleTrackForces {
+export function singleTrackForces(
+  model: SingleTrackModel,
+  lateralVelocityMps: number,
+  yawRateRadPerS: number,
+  speedMps: number,
+  input: SingleTrackInput,
+  out: SingleTrackForces,
+): SingleTrackForces {
   const p = model.params;
   const u = Math.max(speedMps, 1);
   const vy = lateralVelocityMps;
@@ -148,7 +180,15 @@ export function singleTrackForces(model: SingleTrackModel, lateralVelocityMps: n
 }
 
 /** Path-frame kinematics: ds/dt, de/dt and d(heading error)/dt on a path of curvature kappa at the car's station. */
-export function pathRates(speedMps: number, lateralVelocityMps: number, yawRateRadPerS: number, lateralErrorM: number, headingErrorRad: number, curvaturePerM: number, out: Float64Array): Float64Array {
+export function pathRates(
+  speedMps: number,
+  lateralVelocityMps: number,
+  yawRateRadPerS: number,
+  lateralErrorM: number,
+  headingErrorRad: number,
+  curvaturePerM: number,
+  out: Float64Array,
+): Float64Array {
   const cos = Math.cos(headingErrorRad);
   const sin = Math.sin(headingErrorRad);
   const stationRate = (speedMps * cos - lateralVelocityMps * sin) / (1 - curvaturePerM * lateralErrorM);

@@ -6,7 +6,13 @@ import { createRequire } from 'node:module';
 
 export type Derivative = (t: number, y: number[]) => number[];
 /** Called after each accepted step; return false to stop the integration there. */
-export type StepObserver = (step: number, tOld: number, t: number, y: number[], dense?: (component: number, t: number) => number) => boolean | void;
+export type StepObserver = (
+  step: number,
+  tOld: number,
+  t: number,
+  y: number[],
+  dense?: (component: number, t: number) => number,
+) => boolean | void;
 
 export interface OdexResult {
   y: number[];

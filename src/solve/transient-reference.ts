@@ -17,7 +17,11 @@ const MIN_ROOM_M = 0.1;
  * linear between samples (constant acceleration over each segment, as the solver's profile has it) and that
  * acceleration, and the room to each edge of the track.
  */
-export function referenceLookup(result: LapResult, roomLeftM: Float64Array, roomRightM: Float64Array): ReferenceLookup & { endM: number; roomLeftM(s: number): number; roomRightM(s: number): number } {
+export function referenceLookup(
+  result: LapResult,
+  roomLeftM: Float64Array,
+  roomRightM: Float64Array,
+): ReferenceLookup & { endM: number; roomLeftM(s: number): number; roomRightM(s: number): number } {
   const t = result.trace;
   const n = t.count;
   const d = t.distanceM;
@@ -30,7 +34,12 @@ export function referenceLookup(result: LapResult, roomLeftM: Float64Array, room
   for (let i = 0; i < n; i++) {
     const j = i + 1 < n ? i + 1 : closed ? 0 : -1;
     const lengthOfSegment = (i + 1 < n ? d[i + 1]! : lengthM) - d[i]!;
-    axMps2[i] = j >= 0 && lengthOfSegment > 0 ? (speedSquared[j]! - speedSquared[i]!) / (2 * lengthOfSegment) : i > 0 ? axMps2[i - 1]! : 0;
+    axMps2[i] =
+      j >= 0 && lengthOfSegment > 0
+        ? (speedSquared[j]! - speedSquared[i]!) / (2 * lengthOfSegment)
+        : i > 0
+          ? axMps2[i - 1]!
+          : 0;
   }
   let k = 0;
   let next = 1;
@@ -67,7 +76,12 @@ export function referenceLookup(result: LapResult, roomLeftM: Float64Array, room
  * file gives it: the track's widths to the left and right of the centreline, moved by the line's offset when the
  * reference drives a racing line. Without widths (or, on a racing line, without its offsets) a fixed limit applies.
  */
-export function deviationRoom(result: LapResult, car: Car, fixedLimitM: number | undefined, pathOffsetM: Float64Array | undefined): { leftM: Float64Array; rightM: Float64Array; source: DeviationLimitSource } {
+export function deviationRoom(
+  result: LapResult,
+  car: Car,
+  fixedLimitM: number | undefined,
+  pathOffsetM: Float64Array | undefined,
+): { leftM: Float64Array; rightM: Float64Array; source: DeviationLimitSource } {
   const n = result.trace.count;
   const leftM = new Float64Array(n);
   const rightM = new Float64Array(n);

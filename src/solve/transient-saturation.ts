@@ -9,7 +9,12 @@ export interface SaturationZone {
 }
 
 /** Runs of step records in which either axle's use reaches saturationUse, on the lap's stations. */
-export function saturationZones(lapStationsM: Float64Array, frontUses: number[], rearUses: number[], saturationUse: number): SaturationZone[] {
+export function saturationZones(
+  lapStationsM: Float64Array,
+  frontUses: number[],
+  rearUses: number[],
+  saturationUse: number,
+): SaturationZone[] {
   const saturation: SaturationZone[] = [];
   let open: SaturationZone | null = null;
   let frontPeak = 0;

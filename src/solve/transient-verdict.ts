@@ -18,7 +18,12 @@ export interface DeviationFigures {
 }
 
 /** Scans the step records (lap stations, lateral errors, speeds) for the largest deviation and largest share of room. */
-export function deviationFigures(lapStationsM: Float64Array, lateralErrorsM: number[], speedsMps: number[], reference: TransientReference): DeviationFigures {
+export function deviationFigures(
+  lapStationsM: Float64Array,
+  lateralErrorsM: number[],
+  speedsMps: number[],
+  reference: TransientReference,
+): DeviationFigures {
   const f: DeviationFigures = {
     maxDeviationM: 0,
     maxDeviationAtM: 0,
@@ -66,14 +71,19 @@ export interface VerdictInput {
 /** The one-line verdict: not drivable (and why), not drivable as computed (the worst deviation), or drivable. */
 export function transientVerdict(v: VerdictInput, d: DeviationFigures): string {
   const side = d.deviationAtShareM >= 0 ? 'left' : 'right';
-  const limitText = v.limitSource === 'fixed' ? `the fixed limit ${d.roomAtShareM.toFixed(2)} m` : `the ${d.roomAtShareM.toFixed(2)} m of room to the ${side} edge`;
+  const limitText =
+    v.limitSource === 'fixed'
+      ? `the fixed limit ${d.roomAtShareM.toFixed(2)} m`
+      : `the ${d.roomAtShareM.toFixed(2)} m of room to the ${side} edge`;
   const worst = `${Math.abs(d.deviationAtShareM).toFixed(2)} m to the ${side} at ${d.maxDeviationShareAtM.toFixed(0)} m, ${(100 * d.maxDeviationShare).toFixed(0)} % of ${limitText}`;
   let verdict: string;
   const stalledAt = `the integration stalled at ${v.lastLapStationM.toFixed(0)} m after ${v.steps} steps (the driver model's inputs chatter there)`;
   if (!v.completed) verdict = `not drivable: ${v.lost || stalledAt}`;
-  else if (!v.drivable) verdict = `not drivable as computed: the followed car runs ${worst}, at ${mpsToKph(d.speedAtShareMps).toFixed(0)} km/h against the reference's ${mpsToKph(d.referenceSpeedAtShareMps).toFixed(0)} km/h`;
+  else if (!v.drivable)
+    verdict = `not drivable as computed: the followed car runs ${worst}, at ${mpsToKph(d.speedAtShareMps).toFixed(0)} km/h against the reference's ${mpsToKph(d.referenceSpeedAtShareMps).toFixed(0)} km/h`;
   else verdict = `drivable: the followed car stays on the track, at most ${worst}`;
   const critical = v.criticalSpeedMps;
-  if (critical !== null && v.referenceMaxSpeedMps > critical) verdict += `; the car is above its critical speed ${mpsToKph(critical).toFixed(0)} km/h`;
+  if (critical !== null && v.referenceMaxSpeedMps > critical)
+    verdict += `; the car is above its critical speed ${mpsToKph(critical).toFixed(0)} km/h`;
   return verdict;
 }

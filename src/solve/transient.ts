@@ -89,7 +89,14 @@ export function checkTransient(result: LapResult, car: Car, options: TransientOp
   const steerDeg = new Float64Array(n);
   const frontUse = new Float64Array(n);
   const rearUse = new Float64Array(n);
-  resampleOnGrid(result.trace.distanceM, lap.startIndex, result.lengthM, lap.stationsM, [lap.lateralErrorsM, lap.speedsMps, lap.steersRad, lap.frontUses, lap.rearUses], [lateralErrorM, followedSpeedMps, steerDeg, frontUse, rearUse]);
+  resampleOnGrid(
+    result.trace.distanceM,
+    lap.startIndex,
+    result.lengthM,
+    lap.stationsM,
+    [lap.lateralErrorsM, lap.speedsMps, lap.steersRad, lap.frontUses, lap.rearUses],
+    [lateralErrorM, followedSpeedMps, steerDeg, frontUse, rearUse],
+  );
   for (let i = 0; i < n; i++) steerDeg[i] = radToDeg(steerDeg[i]!);
 
   const drivable = completed && deviation.maxDeviationShare <= 1;

@@ -50,7 +50,11 @@ function before(a: number, b: number, count: number, closed: boolean): boolean {
 }
 
 /** Compares two laps on the same track and grid (same sample count). */
-export function compareSetupChange(baseline: LapResult, changed: LapResult, toleranceM = DEFAULT_MATCH_TOLERANCE_M): LapComparison {
+export function compareSetupChange(
+  baseline: LapResult,
+  changed: LapResult,
+  toleranceM = DEFAULT_MATCH_TOLERANCE_M,
+): LapComparison {
   const closed = baseline.trace.closed;
   const lengthM = baseline.track.lengthM;
   const count = baseline.trace.count;
@@ -60,13 +64,23 @@ export function compareSetupChange(baseline: LapResult, changed: LapResult, tole
     const other = c >= 0 ? changed.brakingZones[c]! : null;
     if (!other) {
       return {
-        corner: b + 1, startM: zone.startM, minSpeedAtM: zone.minSpeedAtM, brakingPointM: brakingPointM(baseline, zone),
-        changedBrakingPointM: null, brakingPointShiftM: null,
-        entrySpeedDeltaKph: null, minSpeedDeltaKph: null, zoneTimeDeltaS: null, baseline: zone, changed: null,
+        corner: b + 1,
+        startM: zone.startM,
+        minSpeedAtM: zone.minSpeedAtM,
+        brakingPointM: brakingPointM(baseline, zone),
+        changedBrakingPointM: null,
+        brakingPointShiftM: null,
+        entrySpeedDeltaKph: null,
+        minSpeedDeltaKph: null,
+        zoneTimeDeltaS: null,
+        baseline: zone,
+        changed: null,
       };
     }
     const i0 = before(zone.startIndex, other.startIndex, count, closed) ? zone.startIndex : other.startIndex;
-    const i1 = before(zone.minSpeedIndex, other.minSpeedIndex, count, closed) ? other.minSpeedIndex : zone.minSpeedIndex;
+    const i1 = before(zone.minSpeedIndex, other.minSpeedIndex, count, closed)
+      ? other.minSpeedIndex
+      : zone.minSpeedIndex;
     const basePointM = brakingPointM(baseline, zone);
     const changedPointM = brakingPointM(changed, other);
     return {

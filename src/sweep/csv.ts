@@ -17,7 +17,8 @@ const list = (values: readonly (number | string)[]): string =>
 /** Column names: run, kind, varies, one per field, lap_time_s, then per corner c<k>_brake_m, c<k>_entry_kph, c<k>_min_kph. */
 export function sweepColumns(meta: Pick<SweepMeta, 'fields' | 'corners'>): string[] {
   const columns = ['run', 'kind', 'varies', ...meta.fields, 'lap_time_s'];
-  for (const corner of meta.corners) columns.push(`c${corner.corner}_brake_m`, `c${corner.corner}_entry_kph`, `c${corner.corner}_min_kph`);
+  for (const corner of meta.corners)
+    columns.push(`c${corner.corner}_brake_m`, `c${corner.corner}_entry_kph`, `c${corner.corner}_min_kph`);
   return columns;
 }
 
@@ -44,9 +45,19 @@ export function sweepCsvHeader(meta: SweepMeta): string {
 }
 
 export function sweepCsvRow(record: SweepRecord): string {
-  const cells = [String(record.run), record.kind, record.varies, ...record.values.map((v) => number(v)), number(record.lapTimeS, DIGITS.lapTimeS)];
+  const cells = [
+    String(record.run),
+    record.kind,
+    record.varies,
+    ...record.values.map((v) => number(v)),
+    number(record.lapTimeS, DIGITS.lapTimeS),
+  ];
   for (let k = 0; k < record.brakingPointM.length; k++) {
-    cells.push(number(record.brakingPointM[k]!, DIGITS.brakingPointM), number(record.entrySpeedKph[k]!, DIGITS.speedKph), number(record.minSpeedKph[k]!, DIGITS.speedKph));
+    cells.push(
+      number(record.brakingPointM[k]!, DIGITS.brakingPointM),
+      number(record.entrySpeedKph[k]!, DIGITS.speedKph),
+      number(record.minSpeedKph[k]!, DIGITS.speedKph),
+    );
   }
   return cells.join(',') + '\n';
 }
@@ -81,7 +92,11 @@ export function parseSweepCsv(text: string, source: string): SweepTable {
   const fields = splitList(get('fields'));
   const brakes = splitList(get('corner-braking-points-m')).map(Number);
   const slowest = splitList(get('corner-slowest-points-m')).map(Number);
-  const corners: SweepCorner[] = brakes.map((brakingPointM, k) => ({ corner: k + 1, brakingPointM, minSpeedAtM: slowest[k] ?? Number.NaN }));
+  const corners: SweepCorner[] = brakes.map((brakingPointM, k) => ({
+    corner: k + 1,
+    brakingPointM,
+    minSpeedAtM: slowest[k] ?? Number.NaN,
+  }));
   const parsedMeta: SweepMeta = {
     trackName: get('track'),
     trackLengthM: Number(get('track-length-m')),
@@ -98,7 +113,10 @@ export function parseSweepCsv(text: string, source: string): SweepTable {
     corners,
   };
   const expectedColumns = sweepColumns(parsedMeta).join(',');
-  if (lines[row] !== expectedColumns) throw new InputError(`${source}: line ${row + 1}: the column header does not match the '# fields' and corner lines`);
+  if (lines[row] !== expectedColumns)
+    throw new InputError(
+      `${source}: line ${row + 1}: the column header does not match the '# fields' and corner lines`,
+    );
   const body = lines.slice(row + 1).join('\n');
   const cells = parse(body, { relax_column_count: false, skip_empty_lines: true }) as string[][];
   const width = 4 + fields.length + VALUES_PER_CORNER * corners.length;
@@ -108,7 +126,8 @@ export function parseSweepCsv(text: string, source: string): SweepTable {
     const kind = cell[1] as RunKind;
     if (!RUN_KINDS.includes(kind)) throw new InputError(`${where}: unknown run kind '${cell[1]}'`);
     const run = Number(cell[0]);
-    if (!Number.isInteger(run) || run < 0 || run >= parsedMeta.totalRuns) throw new InputError(`${where}: run '${cell[0]}' is not between 0 and ${parsedMeta.totalRuns - 1}`);
+    if (!Number.isInteger(run) || run < 0 || run >= parsedMeta.totalRuns)
+      throw new InputError(`${where}: run '${cell[0]}' is not between 0 and ${parsedMeta.totalRuns - 1}`);
     const after = 3 + fields.length;
     const record: SweepRecord = {
       run,
@@ -149,12 +168,15 @@ export function mergeSweepCsv(files: readonly { text: string; source: string }[]
       const a = firstHeaderText.split('\n');
       const b = headerText.split('\n');
       const line = a.findIndex((text, k) => text !== b[k]);
-      throw new InputError(`${file.source}: line ${line + 1}: not a shard of the same sweep as ${first.source} ('${b[line] ?? ''}' against '${a[line] ?? ''}')`);
+      throw new InputError(
+        `${file.source}: line ${line + 1}: not a shard of the same sweep as ${first.source} ('${b[line] ?? ''}' against '${a[line] ?? ''}')`,
+      );
     }
     for (const record of table.records) {
       const line = sweepCsvRow(record);
       const earlier = rows.get(record.run);
-      if (earlier && earlier.line !== line) throw new InputError(`${file.source}: run ${record.run} differs from the same run in ${earlier.source}`);
+      if (earlier && earlier.line !== line)
+        throw new InputError(`${file.source}: run ${record.run} differs from the same run in ${earlier.source}`);
       rows.set(record.run, { line, record, source: file.source });
     }
   }
@@ -162,7 +184,9 @@ export function mergeSweepCsv(files: readonly { text: string; source: string }[]
   if (rows.size !== total) {
     const missing: number[] = [];
     for (let run = 0; run < total && missing.length < 5; run++) if (!rows.has(run)) missing.push(run);
-    throw new InputError(`--merge: ${total - rows.size} of ${total} runs are missing (first: ${missing.join(', ')}); is a shard left out?`);
+    throw new InputError(
+      `--merge: ${total - rows.size} of ${total} runs are missing (first: ${missing.join(', ')}); is a shard left out?`,
+    );
   }
   const ordered = [...rows.values()].sort((x, y) => x.record.run - y.record.run);
   return {

@@ -28,7 +28,11 @@ export function outcomeWidth(cornerCount: number): number {
   return 1 + VALUES_PER_CORNER * cornerCount;
 }
 
-export function solveSetup(context: Pick<SweepContext, 'track' | 'base' | 'fields' | 'startSpeedMps' | 'path'>, values: ArrayLike<number>, where: string): LapResult {
+export function solveSetup(
+  context: Pick<SweepContext, 'track' | 'base' | 'fields' | 'startSpeedMps' | 'path'>,
+  values: ArrayLike<number>,
+  where: string,
+): LapResult {
   const { car, ambient } = applySetup(context.base, context.fields, values, where);
   return simulate(context.track, car, {
     ambient,
@@ -38,10 +42,21 @@ export function solveSetup(context: Pick<SweepContext, 'track' | 'base' | 'field
 }
 
 /** Writes one run's outcome into `out` at `offset` (outcomeWidth(corners) numbers). */
-export function writeOutcome(context: Pick<SweepContext, 'corners' | 'matchToleranceM'>, result: LapResult, out: Float64Array, offset: number): void {
+export function writeOutcome(
+  context: Pick<SweepContext, 'corners' | 'matchToleranceM'>,
+  result: LapResult,
+  out: Float64Array,
+  offset: number,
+): void {
   const corners = context.corners;
   out[offset] = result.lapTimeS;
-  const matching = matchBrakingZones(corners, result.brakingZones, result.track.lengthM, result.track.closed, context.matchToleranceM);
+  const matching = matchBrakingZones(
+    corners,
+    result.brakingZones,
+    result.track.lengthM,
+    result.track.closed,
+    context.matchToleranceM,
+  );
   for (let k = 0; k < corners.length; k++) {
     const c = matching.changedIndexOf[k]!;
     const zone = c >= 0 ? result.brakingZones[c]! : null;
@@ -52,10 +67,18 @@ export function writeOutcome(context: Pick<SweepContext, 'corners' | 'matchToler
   }
 }
 
-export function evaluateRun(context: SweepContext, values: ArrayLike<number>, out: Float64Array, offset: number, where = 'sweep run'): void {
+export function evaluateRun(
+  context: SweepContext,
+  values: ArrayLike<number>,
+  out: Float64Array,
+  offset: number,
+  where = 'sweep run',
+): void {
   writeOutcome(context, solveSetup(context, values, where), out, offset);
 }
 
-export function defaultContext(partial: Omit<SweepContext, 'matchToleranceM'> & { matchToleranceM?: number }): SweepContext {
+export function defaultContext(
+  partial: Omit<SweepContext, 'matchToleranceM'> & { matchToleranceM?: number },
+): SweepContext {
   return { ...partial, matchToleranceM: partial.matchToleranceM ?? DEFAULT_MATCH_TOLERANCE_M };
 }

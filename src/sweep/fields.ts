@@ -89,7 +89,9 @@ export function closestField(name: string): string {
 /** Throws a one-line InputError naming the closest known field when `field` is not one. */
 export function checkField(field: string, where: string): void {
   if (ALL_FIELDS.includes(field)) return;
-  throw new InputError(`${where}: unknown field '${field}'; did you mean '${closestField(field)}'? (see docs/setup-sweeps.md for the list)`);
+  throw new InputError(
+    `${where}: unknown field '${field}'; did you mean '${closestField(field)}'? (see docs/setup-sweeps.md for the list)`,
+  );
 }
 
 /** The car's current value of a car field; null where the car file gives none (e.g. no gearing). */
@@ -110,7 +112,9 @@ export function writeCarField(car: Car, field: string, value: number, where: str
     if (depth === parts.length - 1) return { ...node, [key]: value };
     const child = node[key];
     if (child === null || typeof child !== 'object') {
-      throw new InputError(`${where}: the car gives no '${parts.slice(0, depth + 1).join('.')}' record, so '${field}' cannot be set`);
+      throw new InputError(
+        `${where}: the car gives no '${parts.slice(0, depth + 1).join('.')}' record, so '${field}' cannot be set`,
+      );
     }
     return { ...node, [key]: write(child as Record<string, unknown>, depth + 1) };
   };

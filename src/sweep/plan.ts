@@ -2,7 +2,15 @@
 // runs the same way: the baseline, the central-difference pairs around it, then the grid or the one-at-a-time runs.
 
 import { InputError } from '../errors.js';
-import { applySetup, baseValueOf, MAX_SWEEP_RUNS, tidy, variationValues, type SetupBase, type Variation } from './settings.js';
+import {
+  applySetup,
+  baseValueOf,
+  MAX_SWEEP_RUNS,
+  tidy,
+  variationValues,
+  type SetupBase,
+  type Variation,
+} from './settings.js';
 
 export type SweepMode = 'grid' | 'one-at-a-time';
 
@@ -78,7 +86,10 @@ export function planSweep(base: SetupBase, variations: readonly Variation[], mod
   for (let k = 0; k < width; k++) {
     const h = differenceSteps[k]!;
     if (h === 0) continue;
-    for (const [kind, sign] of [['minus', -1], ['plus', 1]] as const) {
+    for (const [kind, sign] of [
+      ['minus', -1],
+      ['plus', 1],
+    ] as const) {
       const values = baseValues.slice();
       values[k] = tidy(baseValues[k]! + sign * h);
       push(kind, isValid(base, fields, values) ? values : baseValues.slice(), k);
@@ -88,10 +99,16 @@ export function planSweep(base: SetupBase, variations: readonly Variation[], mod
   if (mode === 'grid') {
     let total = 1;
     for (const axis of axes) total *= axis.length;
-    if (total > MAX_SWEEP_RUNS) throw new InputError(`--vary: the grid has ${total} runs, more than ${MAX_SWEEP_RUNS}; use larger steps or --mode one-at-a-time`);
+    if (total > MAX_SWEEP_RUNS)
+      throw new InputError(
+        `--vary: the grid has ${total} runs, more than ${MAX_SWEEP_RUNS}; use larger steps or --mode one-at-a-time`,
+      );
     const counter = new Array<number>(width).fill(0);
     for (let r = 0; r < total; r++) {
-      push('grid', counter.map((i, k) => axes[k]![i]!));
+      push(
+        'grid',
+        counter.map((i, k) => axes[k]![i]!),
+      );
       // The last field turns fastest, like nested loops written in the order of the --vary options.
       for (let k = width - 1; k >= 0; k--) {
         counter[k]!++;
@@ -102,7 +119,9 @@ export function planSweep(base: SetupBase, variations: readonly Variation[], mod
   } else {
     for (let k = 0; k < width; k++) {
       if (!Number.isFinite(baseValues[k]!) && width > 1) {
-        throw new InputError(`--vary ${fields[k]}: the car file gives no value for it, so the other fields have no baseline to hold it at; use --mode grid`);
+        throw new InputError(
+          `--vary ${fields[k]}: the car file gives no value for it, so the other fields have no baseline to hold it at; use --mode grid`,
+        );
       }
       for (const value of axes[k]!) {
         const values = baseValues.slice();
@@ -118,7 +137,16 @@ export function planSweep(base: SetupBase, variations: readonly Variation[], mod
   }
   const values = new Float64Array(rows.length * width);
   rows.forEach((row, r) => values.set(row, r * width));
-  return { mode, fields, baseValues, differenceSteps, kinds, varies: Int16Array.from(varied), values, variations: [...variations] };
+  return {
+    mode,
+    fields,
+    baseValues,
+    differenceSteps,
+    kinds,
+    varies: Int16Array.from(varied),
+    values,
+    variations: [...variations],
+  };
 }
 
 export interface Shard {
@@ -134,7 +162,8 @@ export function parseShard(text: string): Shard {
   const index = Number(match[1]);
   const count = Number(match[2]);
   if (count < 1) throw new InputError(`--shard: N must be at least 1 (got ${count})`);
-  if (index < 1 || index > count) throw new InputError(`--shard: I must be between 1 and ${count} (got ${index}); shards count from 1`);
+  if (index < 1 || index > count)
+    throw new InputError(`--shard: I must be between 1 and ${count} (got ${index}); shards count from 1`);
   return { index: index - 1, count };
 }
 

@@ -39,21 +39,37 @@ export function defaultWorkerCount(): number {
 
 /** The compiled worker: beside this file in dist/, or in dist/ when this file runs from src/ (vitest). */
 export function workerFileUrl(): URL {
-  const candidates = [new URL('./worker.js', import.meta.url), new URL('../../dist/src/sweep/worker.js', import.meta.url)];
+  const candidates = [
+    new URL('./worker.js', import.meta.url),
+    new URL('../../dist/src/sweep/worker.js', import.meta.url),
+  ];
   for (const candidate of candidates) {
     if (existsSync(fileURLToPath(candidate))) return candidate;
   }
-  throw new Error(`sweep worker not found at ${candidates.map((c) => fileURLToPath(c)).join(' or ')}; run npm run build`);
+  throw new Error(
+    `sweep worker not found at ${candidates.map((c) => fileURLToPath(c)).join(' or ')}; run npm run build`,
+  );
 }
 
 /** Solves the runs in this thread; `values` holds fields.length numbers per run. Returns outcomeWidth numbers per run. */
-export function runSetupsInProcess(context: SweepContext, values: Float64Array, firstRun = 0, onProgress?: RunOptions['onProgress']): Float64Array {
+export function runSetupsInProcess(
+  context: SweepContext,
+  values: Float64Array,
+  firstRun = 0,
+  onProgress?: RunOptions['onProgress'],
+): Float64Array {
   const width = context.fields.length;
   const runs = width === 0 ? 0 : values.length / width;
   const resultWidth = outcomeWidth(context.corners.length);
   const out = new Float64Array(runs * resultWidth);
   for (let r = 0; r < runs; r++) {
-    evaluateRun(context, values.subarray(r * width, (r + 1) * width), out, r * resultWidth, `sweep run ${firstRun + r}`);
+    evaluateRun(
+      context,
+      values.subarray(r * width, (r + 1) * width),
+      out,
+      r * resultWidth,
+      `sweep run ${firstRun + r}`,
+    );
     onProgress?.(r + 1, runs);
   }
   return out;
@@ -63,7 +79,12 @@ export function runSetupsInProcess(context: SweepContext, values: Float64Array, 
  * Solves the runs across worker threads. The outcome of run r lands at r * outcomeWidth whatever worker
  * solved it, so the result does not depend on the number of workers or on their timing.
  */
-export async function runSetups(context: SweepContext, values: Float64Array, firstRun = 0, options: RunOptions = {}): Promise<Float64Array> {
+export async function runSetups(
+  context: SweepContext,
+  values: Float64Array,
+  firstRun = 0,
+  options: RunOptions = {},
+): Promise<Float64Array> {
   const width = context.fields.length;
   const runs = width === 0 ? 0 : values.length / width;
   const requested = options.workers ?? defaultWorkerCount();
@@ -94,15 +115,27 @@ export async function runSetups(context: SweepContext, values: Float64Array, fir
       const id = nextTask++;
       const start = id * chunk;
       const count = Math.min(chunk, runs - start);
-      const task: TaskMessage = { id, firstRun: firstRun + start, runCount: count, values: values.slice(start * width, (start + count) * width) };
+      const task: TaskMessage = {
+        id,
+        firstRun: firstRun + start,
+        runCount: count,
+        values: values.slice(start * width, (start + count) * width),
+      };
       worker.postMessage(task, [task.values.buffer as ArrayBuffer]);
     };
     for (let w = 0; w < workerCount; w++) {
-      const worker = new Worker(url, { workerData: context, resourceLimits: { maxYoungGenerationSizeMb: WORKER_YOUNG_GENERATION_MB } });
+      const worker = new Worker(url, {
+        workerData: context,
+        resourceLimits: { maxYoungGenerationSizeMb: WORKER_YOUNG_GENERATION_MB },
+      });
       workers.push(worker);
       worker.on('message', (reply: WorkerReply) => {
         if (reply.out === undefined) {
-          finish(reply.inputError ? new InputError(reply.errorMessage ?? 'sweep run failed') : new Error(`sweep worker: ${reply.error}`));
+          finish(
+            reply.inputError
+              ? new InputError(reply.errorMessage ?? 'sweep run failed')
+              : new Error(`sweep worker: ${reply.error}`),
+          );
           return;
         }
         const start = reply.id * chunk;

@@ -34,9 +34,19 @@ export interface SweepOutput {
 
 export function prepareSweep(input: SweepInput): { plan: SweepPlan; baseline: LapResult; context: SweepContext } {
   const plan = planSweep(input.base, input.variations, input.mode ?? 'grid');
-  const partial = { track: input.track, base: input.base, fields: plan.fields, startSpeedMps: input.startSpeedMps ?? 0, ...(input.path ? { path: input.path } : {}) };
+  const partial = {
+    track: input.track,
+    base: input.base,
+    fields: plan.fields,
+    startSpeedMps: input.startSpeedMps ?? 0,
+    ...(input.path ? { path: input.path } : {}),
+  };
   const baseline = solveSetup(partial, plan.values.subarray(0, plan.fields.length), 'sweep baseline');
-  const context = defaultContext({ ...partial, corners: baseline.brakingZones, ...(input.matchToleranceM !== undefined ? { matchToleranceM: input.matchToleranceM } : {}) });
+  const context = defaultContext({
+    ...partial,
+    corners: baseline.brakingZones,
+    ...(input.matchToleranceM !== undefined ? { matchToleranceM: input.matchToleranceM } : {}),
+  });
   return { plan, baseline, context };
 }
 
@@ -59,9 +69,17 @@ export async function runSweep(input: SweepInput, options: RunOptions = {}): Pro
 }
 
 /** The shard's outcomes; run 0 is the baseline already solved, so the pool gets only the runs after it. */
-async function solveShard(plan: SweepPlan, baseline: LapResult, context: SweepContext, start: number, end: number, options: RunOptions): Promise<Float64Array> {
+async function solveShard(
+  plan: SweepPlan,
+  baseline: LapResult,
+  context: SweepContext,
+  start: number,
+  end: number,
+  options: RunOptions,
+): Promise<Float64Array> {
   const width = plan.fields.length;
-  if (start > 0 || end <= start || width === 0) return runSetups(context, plan.values.slice(start * width, end * width), start, options);
+  if (start > 0 || end <= start || width === 0)
+    return runSetups(context, plan.values.slice(start * width, end * width), start, options);
   const resultWidth = outcomeWidth(context.corners.length);
   const { onProgress } = options;
   const rest = await runSetups(context, plan.values.slice(width, end * width), 1, {

@@ -63,7 +63,10 @@ export function parseValueSpec(text: string, where: string): ValueSpec {
   }
   const signed = trimmed.startsWith('+') || trimmed.startsWith('-');
   if (trimmed.endsWith('%')) {
-    if (!signed) throw new InputError(`${where}: '${text}' is ambiguous; write +${trimmed} or -${trimmed} for a change in percent`);
+    if (!signed)
+      throw new InputError(
+        `${where}: '${text}' is ambiguous; write +${trimmed} or -${trimmed} for a change in percent`,
+      );
     return { kind: 'percent', amount: parseNumber(trimmed.slice(0, -1), where) };
   }
   return { kind: signed ? 'delta' : 'absolute', amount: parseNumber(trimmed, where) };
@@ -94,7 +97,8 @@ export function parseVariation(text: string, where = '--vary'): Variation {
   }
   const stepText = parts[2]!.trim();
   const stepIsPercent = stepText.endsWith('%');
-  if (stepIsPercent && from.kind !== 'percent') throw new InputError(`${place}: a step in percent needs FROM and TO in percent`);
+  if (stepIsPercent && from.kind !== 'percent')
+    throw new InputError(`${place}: a step in percent needs FROM and TO in percent`);
   const step = parseNumber(stepIsPercent ? stepText.slice(0, -1) : stepText, place);
   if (step === 0) throw new InputError(`${place}: step is zero`);
   if ((to.amount - from.amount) * step < 0) {
@@ -112,7 +116,8 @@ export function tidy(value: number): number {
 export function variationAmounts(variation: Variation): number[] {
   const span = (variation.to - variation.from) / variation.step;
   const count = Math.floor(span + 1e-9) + 1;
-  if (count > MAX_SWEEP_RUNS) throw new InputError(`--vary ${variation.field}: ${count} values is more than ${MAX_SWEEP_RUNS}`);
+  if (count > MAX_SWEEP_RUNS)
+    throw new InputError(`--vary ${variation.field}: ${count} values is more than ${MAX_SWEEP_RUNS}`);
   const amounts: number[] = [];
   for (let i = 0; i < count; i++) amounts.push(tidy(variation.from + i * variation.step));
   return amounts;
@@ -120,9 +125,12 @@ export function variationAmounts(variation: Variation): number[] {
 
 export function resolveValue(base: number | null, spec: ValueSpec, where: string): number {
   if (spec.kind === 'absolute') return spec.amount;
-  if (base === null) throw new InputError(`${where}: the car file gives no value to change; set an absolute value instead`);
+  if (base === null)
+    throw new InputError(`${where}: the car file gives no value to change; set an absolute value instead`);
   if (spec.kind === 'percent' && base === 0 && spec.amount !== 0) {
-    throw new InputError(`${where}: a change in percent of 0 leaves it 0; set an absolute value or a signed difference instead`);
+    throw new InputError(
+      `${where}: a change in percent of 0 leaves it 0; set an absolute value or a signed difference instead`,
+    );
   }
   return tidy(spec.kind === 'delta' ? base + spec.amount : base * (1 + spec.amount / 100));
 }
@@ -146,8 +154,10 @@ export function airInputsOf(ambient: Ambient): AirInputs {
 }
 
 function checkAir(air: AirInputs, where: string): void {
-  if (!(air.airTempC > -60 && air.airTempC < 70)) throw new InputError(`${where}: airTempC ${air.airTempC} °C is outside -60 to 70 °C`);
-  if (!(air.pressureHpa > 300 && air.pressureHpa < 1200)) throw new InputError(`${where}: pressureHpa ${air.pressureHpa} hPa is outside 300 to 1200 hPa`);
+  if (!(air.airTempC > -60 && air.airTempC < 70))
+    throw new InputError(`${where}: airTempC ${air.airTempC} °C is outside -60 to 70 °C`);
+  if (!(air.pressureHpa > 300 && air.pressureHpa < 1200))
+    throw new InputError(`${where}: pressureHpa ${air.pressureHpa} hPa is outside 300 to 1200 hPa`);
 }
 
 /**
@@ -155,7 +165,12 @@ function checkAir(air: AirInputs, where: string): void {
  * change that makes it invalid (a negative mass, mu of zero) is a one-line InputError naming the field.
  * A NaN value leaves its field as the base has it.
  */
-export function applySetup(base: SetupBase, fields: readonly string[], values: ArrayLike<number>, where: string): { car: Car; ambient: Ambient } {
+export function applySetup(
+  base: SetupBase,
+  fields: readonly string[],
+  values: ArrayLike<number>,
+  where: string,
+): { car: Car; ambient: Ambient } {
   let car = base.car;
   const air: AirInputs = { ...base.air };
   let airChanged = false;
@@ -178,7 +193,10 @@ export function applySetup(base: SetupBase, fields: readonly string[], values: A
 }
 
 /** Applies `--set` settings one after another (a later one sees the earlier ones). */
-export function applySettings(base: SetupBase, settings: readonly Setting[]): { car: Car; ambient: Ambient; fields: string[]; values: number[] } {
+export function applySettings(
+  base: SetupBase,
+  settings: readonly Setting[],
+): { car: Car; ambient: Ambient; fields: string[]; values: number[] } {
   let current: SetupBase = base;
   const fields: string[] = [];
   const values: number[] = [];
@@ -187,7 +205,10 @@ export function applySettings(base: SetupBase, settings: readonly Setting[]): { 
     fields.push(setting.field);
     values.push(value);
     const applied = applySetup(current, [setting.field], [value], `--set ${setting.text}`);
-    current = { car: applied.car, air: isAmbientField(setting.field) ? { ...current.air, [setting.field]: value } : current.air };
+    current = {
+      car: applied.car,
+      air: isAmbientField(setting.field) ? { ...current.air, [setting.field]: value } : current.air,
+    };
   }
   return { ...applySetup(base, fields, values, '--set'), fields, values };
 }

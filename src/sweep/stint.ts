@@ -32,7 +32,8 @@ export interface StintResult {
 
 /** Fuel at the start of each lap: the car's fuel less one lap's burn per lap done, never below zero. */
 export function stintFuelLoads(fuelKg: number, burnKgPerLap: number, laps: number): number[] {
-  if (!Number.isInteger(laps) || laps < 1 || laps > MAX_STINT_LAPS) throw new InputError(`--laps: ${laps} should be a whole number from 1 to ${MAX_STINT_LAPS}`);
+  if (!Number.isInteger(laps) || laps < 1 || laps > MAX_STINT_LAPS)
+    throw new InputError(`--laps: ${laps} should be a whole number from 1 to ${MAX_STINT_LAPS}`);
   const loads: number[] = [];
   for (let lap = 0; lap < laps; lap++) loads.push(tidy(Math.max(0, fuelKg - lap * burnKgPerLap)));
   return loads;
@@ -46,16 +47,30 @@ export interface StintInput {
   path?: Path;
 }
 
-function prepare(input: StintInput): { loads: number[]; firstLap: LapResult; context: ReturnType<typeof defaultContext> } {
+function prepare(input: StintInput): {
+  loads: number[];
+  firstLap: LapResult;
+  context: ReturnType<typeof defaultContext>;
+} {
   const { fuel } = input.base.car;
   const loads = stintFuelLoads(fuel.massKg, fuel.burnKgPerLap, input.laps);
-  const partial = { track: input.track, base: input.base, fields: ['fuel.massKg'], startSpeedMps: input.startSpeedMps ?? 0, ...(input.path ? { path: input.path } : {}) };
+  const partial = {
+    track: input.track,
+    base: input.base,
+    fields: ['fuel.massKg'],
+    startSpeedMps: input.startSpeedMps ?? 0,
+    ...(input.path ? { path: input.path } : {}),
+  };
   const firstLap = solveSetup(partial, [loads[0]!], 'stint lap 1');
   return { loads, firstLap, context: defaultContext({ ...partial, corners: firstLap.brakingZones }) };
 }
 
 /** Lap 1 is already solved in prepare: its outcome goes first, ahead of the laps the pool solved. */
-function withFirstLap(context: ReturnType<typeof defaultContext>, firstLap: LapResult, rest: Float64Array): Float64Array {
+function withFirstLap(
+  context: ReturnType<typeof defaultContext>,
+  firstLap: LapResult,
+  rest: Float64Array,
+): Float64Array {
   const width = outcomeWidth(context.corners.length);
   const outcomes = new Float64Array(width + rest.length);
   writeOutcome(context, firstLap, outcomes, 0);
@@ -68,7 +83,13 @@ function assemble(loads: number[], firstLap: LapResult, outcomes: Float64Array):
   const width = outcomeWidth(cornerCount);
   const laps: StintLap[] = loads.map((fuelKg, r) => {
     const at = r * width;
-    const lap: StintLap = { lap: r + 1, fuelKg, lapTimeS: roundTo(outcomes[at]!, DIGITS.lapTimeS), brakingPointM: [], minSpeedKph: [] };
+    const lap: StintLap = {
+      lap: r + 1,
+      fuelKg,
+      lapTimeS: roundTo(outcomes[at]!, DIGITS.lapTimeS),
+      brakingPointM: [],
+      minSpeedKph: [],
+    };
     for (let k = 0; k < cornerCount; k++) {
       const c = at + 1 + VALUES_PER_CORNER * k;
       lap.brakingPointM.push(roundTo(outcomes[c]!, DIGITS.brakingPointM));
@@ -79,13 +100,22 @@ function assemble(loads: number[], firstLap: LapResult, outcomes: Float64Array):
   const empty = loads.findIndex((fuel) => fuel === 0);
   // An empty tank on lap 1 is the car file's own choice (fuel.massKg 0), not the stint running dry.
   const emptyFromLap = empty > 0 ? empty + 1 : null;
-  return { laps, corners: cornersOf(firstLap), emptyFromLap, totalTimeS: laps.reduce((sum, lap) => sum + lap.lapTimeS, 0) };
+  return {
+    laps,
+    corners: cornersOf(firstLap),
+    emptyFromLap,
+    totalTimeS: laps.reduce((sum, lap) => sum + lap.lapTimeS, 0),
+  };
 }
 
 /** The stint in the calling thread. */
 export function runStint(input: StintInput): StintResult {
   const { loads, firstLap, context } = prepare(input);
-  return assemble(loads, firstLap, withFirstLap(context, firstLap, runSetupsInProcess(context, Float64Array.from(loads.slice(1)), 1)));
+  return assemble(
+    loads,
+    firstLap,
+    withFirstLap(context, firstLap, runSetupsInProcess(context, Float64Array.from(loads.slice(1)), 1)),
+  );
 }
 
 /** The stint across worker threads (laps are independent: each starts from its own fuel load). */

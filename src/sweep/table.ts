@@ -71,7 +71,13 @@ export function cornersOf(baseline: LapResult): SweepCorner[] {
 }
 
 export function sweepMeta(input: {
-  trackName: string; trackLengthM: number; stepM: number; carName: string; plan: SweepPlan; settings: string[]; corners: SweepCorner[];
+  trackName: string;
+  trackLengthM: number;
+  stepM: number;
+  carName: string;
+  plan: SweepPlan;
+  settings: string[];
+  corners: SweepCorner[];
 }): SweepMeta {
   const { plan } = input;
   return {
@@ -97,7 +103,12 @@ export function variedField(plan: SweepPlan, run: number): string {
 }
 
 /** Records of runs [firstRun, firstRun + n) from the packed outcomes the pool returns. */
-export function recordsFromOutcomes(plan: SweepPlan, cornerCount: number, outcomes: Float64Array, firstRun: number): SweepRecord[] {
+export function recordsFromOutcomes(
+  plan: SweepPlan,
+  cornerCount: number,
+  outcomes: Float64Array,
+  firstRun: number,
+): SweepRecord[] {
   const resultWidth = outcomeWidth(cornerCount);
   const runs = outcomes.length / resultWidth;
   const records: SweepRecord[] = [];
@@ -151,7 +162,8 @@ export function sensitivities(table: SweepTable): Sensitivity[] {
     const dx = plus.values[k]! - minus.values[k]!;
     if (!(dx > 0)) return;
     const base = meta.baseValues[k]!;
-    const scheme: DifferenceScheme = minus.values[k] === base ? 'forward' : plus.values[k] === base ? 'backward' : 'central';
+    const scheme: DifferenceScheme =
+      minus.values[k] === base ? 'forward' : plus.values[k] === base ? 'backward' : 'central';
     result.push({
       field,
       unit: meta.units[k]!,

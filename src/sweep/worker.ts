@@ -14,7 +14,13 @@ parentPort!.on('message', (task: TaskMessage) => {
   try {
     const out = new Float64Array(task.runCount * resultWidth);
     for (let r = 0; r < task.runCount; r++) {
-      evaluateRun(context, task.values.subarray(r * width, (r + 1) * width), out, r * resultWidth, `sweep run ${task.firstRun + r}`);
+      evaluateRun(
+        context,
+        task.values.subarray(r * width, (r + 1) * width),
+        out,
+        r * resultWidth,
+        `sweep run ${task.firstRun + r}`,
+      );
     }
     const reply: WorkerReply = { id: task.id, out };
     parentPort!.postMessage(reply, [out.buffer as ArrayBuffer]);

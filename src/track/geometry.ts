@@ -50,7 +50,12 @@ export function headingAndCurvature(
  * Cumulative arc length at each point (0 at the first) and the total (to the first point again when closed).
  * Each chord c is lengthened to the arc of a circle of the mean curvature, c (1 + (kappa c)^2 / 24).
  */
-export function arcLengths(x: Float64Array, y: Float64Array, curvaturePerM: Float64Array, closed: boolean): { distanceM: Float64Array; totalM: number } {
+export function arcLengths(
+  x: Float64Array,
+  y: Float64Array,
+  curvaturePerM: Float64Array,
+  closed: boolean,
+): { distanceM: Float64Array; totalM: number } {
   const n = x.length;
   const distanceM = new Float64Array(n);
   let total = 0;
@@ -76,7 +81,14 @@ export interface ResampleChannel {
  * Linearly interpolates channels given at increasing distances sourceDistanceM (first = 0, total totalM) onto
  * the uniform grid i * stepM, i = 0..count-1. One forward pass.
  */
-export function resampleLinear(sourceDistanceM: Float64Array, totalM: number, closed: boolean, stepM: number, count: number, channels: ResampleChannel[]): void {
+export function resampleLinear(
+  sourceDistanceM: Float64Array,
+  totalM: number,
+  closed: boolean,
+  stepM: number,
+  count: number,
+  channels: ResampleChannel[],
+): void {
   const m = sourceDistanceM.length;
   let j = 0;
   for (let i = 0; i < count; i++) {

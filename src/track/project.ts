@@ -55,7 +55,14 @@ function trySegment(track: TrackGrid, i: number, x: number, y: number, out: Poin
 }
 
 /** Nearest point among segments centre - half ... centre + half (wrapping on a closed track). */
-export function projectNear(track: TrackGrid, x: number, y: number, centre: number, half: number, out: PointProjection): void {
+export function projectNear(
+  track: TrackGrid,
+  x: number,
+  y: number,
+  centre: number,
+  half: number,
+  out: PointProjection,
+): void {
   const segments = segmentCount(track);
   out.gapM = Infinity;
   if (2 * half + 1 >= segments) {
@@ -114,7 +121,13 @@ export interface PathProjection {
  * grows with the distance moved; where the match is far from the track (pit lane, paddock, a GPS jump) a global
  * search is tried once the car has moved 5 m since the last one.
  */
-export function projectPath(track: TrackGrid, xM: Float64Array, yM: Float64Array, from = 0, to = xM.length): PathProjection {
+export function projectPath(
+  track: TrackGrid,
+  xM: Float64Array,
+  yM: Float64Array,
+  from = 0,
+  to = xM.length,
+): PathProjection {
   const count = to - from;
   const alongM = new Float64Array(count);
   const offsetM = new Float64Array(count);
@@ -158,7 +171,11 @@ export interface RigidTransform {
   medianGapM: number;
 }
 
-export function applyRigid(transform: RigidTransform, xM: Float64Array, yM: Float64Array): { xM: Float64Array; yM: Float64Array } {
+export function applyRigid(
+  transform: RigidTransform,
+  xM: Float64Array,
+  yM: Float64Array,
+): { xM: Float64Array; yM: Float64Array } {
   const c = Math.cos(transform.rotationRad);
   const s = Math.sin(transform.rotationRad);
   const outX = new Float64Array(xM.length);
@@ -275,7 +292,12 @@ export function fitRigidToCentreline(track: TrackGrid, xM: Float64Array, yM: Flo
     const angle = (k * Math.PI) / 6;
     const c = Math.cos(angle);
     const s = Math.sin(angle);
-    const start = { rotationRad: angle, txM: tcx - (c * pcx - s * pcy), tyM: tcy - (s * pcx + c * pcy), medianGapM: Infinity };
+    const start = {
+      rotationRad: angle,
+      txM: tcx - (c * pcx - s * pcy),
+      tyM: tcy - (s * pcx + c * pcy),
+      medianGapM: Infinity,
+    };
     const candidate = iterate(start, 12);
     if (!best || candidate.medianGapM < best.medianGapM) best = candidate;
   }

@@ -31,14 +31,23 @@ export interface CentrelineOptions {
 /** More grid points than this means coordinates in the wrong unit (1,000 km at 1 m), not a track. */
 export const MAX_GRID_POINTS = 1_000_000;
 
-export function uniformGrid(lengthM: number, stepM: number, closed: boolean, source: string): { count: number; stepM: number } {
+export function uniformGrid(
+  lengthM: number,
+  stepM: number,
+  closed: boolean,
+  source: string,
+): { count: number; stepM: number } {
   if (!(lengthM / stepM <= MAX_GRID_POINTS)) {
-    throw new InputError(`${source}: the track is ${lengthM.toPrecision(3)} m long, over ${MAX_GRID_POINTS} grid points at a step of ${stepM} m; are the coordinates in metres?`);
+    throw new InputError(
+      `${source}: the track is ${lengthM.toPrecision(3)} m long, over ${MAX_GRID_POINTS} grid points at a step of ${stepM} m; are the coordinates in metres?`,
+    );
   }
   const intervals = Math.max(1, Math.round(lengthM / stepM));
   const count = closed ? intervals : intervals + 1;
   if (count < 4) {
-    throw new InputError(`${source}: the track is only ${lengthM.toFixed(2)} m long, under 4 grid points at a step of ${stepM} m`);
+    throw new InputError(
+      `${source}: the track is only ${lengthM.toFixed(2)} m long, under 4 grid points at a step of ${stepM} m`,
+    );
   }
   return { count, stepM: lengthM / intervals };
 }

@@ -51,7 +51,11 @@ const GAUSS_WEIGHTS = [5 / 18, 8 / 18, 5 / 18];
 const MAX_TURN_PER_PIECE_RAD = 0.05;
 
 function headingAt(piece: Piece, u: number): number {
-  return piece.startHeadingRad + piece.startCurvature * u + ((piece.endCurvature - piece.startCurvature) * u * u) / (2 * piece.lengthM);
+  return (
+    piece.startHeadingRad +
+    piece.startCurvature * u +
+    ((piece.endCurvature - piece.startCurvature) * u * u) / (2 * piece.lengthM)
+  );
 }
 
 function curvatureAt(piece: Piece, u: number): number {
@@ -78,7 +82,11 @@ function displacement(piece: Piece, ua: number, ub: number, out: Float64Array): 
   out[1] = dy * h;
 }
 
-function toPieces(segments: TrackSegment[], startHeadingRad: number, source: string): { pieces: Piece[]; lengthM: number; endX: number; endY: number; endHeadingRad: number } {
+function toPieces(
+  segments: TrackSegment[],
+  startHeadingRad: number,
+  source: string,
+): { pieces: Piece[]; lengthM: number; endX: number; endY: number; endHeadingRad: number } {
   if (segments.length === 0) throw new InputError(`${source}: segments: the list is empty`);
   const pieces: Piece[] = [];
   let s = 0;
@@ -92,22 +100,35 @@ function toPieces(segments: TrackSegment[], startHeadingRad: number, source: str
     let k1: number;
     const where = `${source}: segments[${index}]`;
     if (segment.kind === 'straight') {
-      if (!(segment.lengthM > 0 && Number.isFinite(segment.lengthM))) throw new InputError(`${where}.lengthM: must be a positive length, m`);
+      if (!(segment.lengthM > 0 && Number.isFinite(segment.lengthM)))
+        throw new InputError(`${where}.lengthM: must be a positive length, m`);
       lengthM = segment.lengthM;
       k0 = k1 = 0;
     } else if (segment.kind === 'arc') {
-      if (!(segment.radiusM > 0 && Number.isFinite(segment.radiusM))) throw new InputError(`${where}.radiusM: must be a positive radius, m`);
-      if (!(segment.angleDeg !== 0 && Number.isFinite(segment.angleDeg))) throw new InputError(`${where}.angleDeg: must be a non-zero angle, degrees`);
+      if (!(segment.radiusM > 0 && Number.isFinite(segment.radiusM)))
+        throw new InputError(`${where}.radiusM: must be a positive radius, m`);
+      if (!(segment.angleDeg !== 0 && Number.isFinite(segment.angleDeg)))
+        throw new InputError(`${where}.angleDeg: must be a non-zero angle, degrees`);
       lengthM = segment.radiusM * Math.abs(degToRad(segment.angleDeg));
       k0 = k1 = Math.sign(segment.angleDeg) / segment.radiusM;
     } else {
-      if (!(segment.lengthM > 0 && Number.isFinite(segment.lengthM))) throw new InputError(`${where}.lengthM: must be a positive length, m`);
-      if (!Number.isFinite(segment.startCurvature) || !Number.isFinite(segment.endCurvature)) throw new InputError(`${where}: curvatures must be finite numbers, 1/m`);
+      if (!(segment.lengthM > 0 && Number.isFinite(segment.lengthM)))
+        throw new InputError(`${where}.lengthM: must be a positive length, m`);
+      if (!Number.isFinite(segment.startCurvature) || !Number.isFinite(segment.endCurvature))
+        throw new InputError(`${where}: curvatures must be finite numbers, 1/m`);
       lengthM = segment.lengthM;
       k0 = segment.startCurvature;
       k1 = segment.endCurvature;
     }
-    const piece: Piece = { startM: s, lengthM, startCurvature: k0, endCurvature: k1, startHeadingRad: heading, startX: x, startY: y };
+    const piece: Piece = {
+      startM: s,
+      lengthM,
+      startCurvature: k0,
+      endCurvature: k1,
+      startHeadingRad: heading,
+      startX: x,
+      startY: y,
+    };
     pieces.push(piece);
     displacement(piece, 0, lengthM, d);
     x += d[0]!;
@@ -141,7 +162,9 @@ export function trackFromSegments(spec: SegmentTrackSpec, stepM: number, source:
   const corners = spec.corners ?? [];
   corners.forEach((corner, index) => {
     if (!(corner.atM >= 0 && corner.atM <= lengthM)) {
-      throw new InputError(`${source}: corners[${index}].atM: ${corner.atM} m is outside the track (0 to ${lengthM.toFixed(1)} m)`);
+      throw new InputError(
+        `${source}: corners[${index}].atM: ${corner.atM} m is outside the track (0 to ${lengthM.toFixed(1)} m)`,
+      );
     }
   });
 

@@ -10,8 +10,10 @@ export const haveChromium = existsSync(CHROMIUM);
 
 /** Fails in CI without Chromium; elsewhere warns that the tests of `what` are skipped. */
 export function requireChromium(what: string): void {
-  if (!haveChromium && process.env.CI) throw new Error(`${CHROMIUM} is missing; .ci/run installs Debian's chromium package before the tests`);
-  if (!haveChromium) console.warn(`skipping the ${what} browser tests: ${CHROMIUM} is absent (apt-get install chromium)`);
+  if (!haveChromium && process.env.CI)
+    throw new Error(`${CHROMIUM} is missing; .ci/run installs Debian's chromium package before the tests`);
+  if (!haveChromium)
+    console.warn(`skipping the ${what} browser tests: ${CHROMIUM} is absent (apt-get install chromium)`);
 }
 
 export function launchChromium(profile: string): Promise<BrowserContext> {
@@ -19,7 +21,15 @@ export function launchChromium(profile: string): Promise<BrowserContext> {
     executablePath: CHROMIUM,
     headless: true,
     viewport: { width: 1280, height: 900 },
-    args: ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run', '--disable-quic'],
+    args: [
+      '--no-sandbox',
+      '--disable-gpu',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
+      '--no-first-run',
+      '--disable-quic',
+    ],
   });
 }
 
@@ -36,7 +46,8 @@ export async function openFile(context: BrowserContext, file: string): Promise<O
   const dialogs: string[] = [];
   const requests: string[] = [];
   page.on('console', (message) => {
-    if (message.type() === 'error' || message.type() === 'warning') problems.push(`${message.type()}: ${message.text()}`);
+    if (message.type() === 'error' || message.type() === 'warning')
+      problems.push(`${message.type()}: ${message.text()}`);
   });
   page.on('pageerror', (error) => problems.push(`page error: ${error.message}`));
   page.on('dialog', (dialog) => {

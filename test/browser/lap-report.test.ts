@@ -9,7 +9,14 @@ import type { BrowserContext, Page } from 'playwright-core';
 import { haveChromium, launchChromium, openFile, requireChromium, type OpenedPage } from './chromium.js';
 import { lapReportHtml } from '../../src/report/html/page.js';
 import { runCli } from '../helpers/cli.js';
-import { HOSTILE_CAR_NAME, HOSTILE_CORNER_NAME, HOSTILE_TRACK_NAME, pipelineInput, projectRoot, referenceInput } from '../report/report-fixtures.js';
+import {
+  HOSTILE_CAR_NAME,
+  HOSTILE_CORNER_NAME,
+  HOSTILE_TRACK_NAME,
+  pipelineInput,
+  projectRoot,
+  referenceInput,
+} from '../report/report-fixtures.js';
 
 requireChromium('lap report');
 
@@ -35,11 +42,15 @@ describe.skipIf(!haveChromium)('lap report in Chromium', () => {
   const open = (file: string): Promise<OpenedPage> => openFile(context, file);
 
   async function cursorXs(page: Page): Promise<Array<string | null>> {
-    return page.$$eval('svg[data-distance-chart] .cursor', (lines) => lines.map((line) => (line.getAttribute('visibility') === 'visible' ? line.getAttribute('x1') : null)));
+    return page.$$eval('svg[data-distance-chart] .cursor', (lines) =>
+      lines.map((line) => (line.getAttribute('visibility') === 'visible' ? line.getAttribute('x1') : null)),
+    );
   }
 
   async function axisRange(page: Page): Promise<[number, number]> {
-    const ticks = await page.$$eval('svg[data-chart="speed"] .x-axis text', (texts) => texts.map((t) => Number(t.textContent)).filter((v) => Number.isFinite(v)));
+    const ticks = await page.$$eval('svg[data-chart="speed"] .x-axis text', (texts) =>
+      texts.map((t) => Number(t.textContent)).filter((v) => Number.isFinite(v)),
+    );
     return [Math.min(...ticks), Math.max(...ticks)];
   }
 
@@ -58,7 +69,10 @@ describe.skipIf(!haveChromium)('lap report in Chromium', () => {
     for (const chart of charts) expect(chart.drawn, `${chart.name} has drawn paths`).toBeGreaterThan(0);
 
     // A viewport as tall as the page, so the hover needs no scrolling and the screenshot shows the page as laid out.
-    await page.setViewportSize({ width: 1280, height: Math.ceil(await page.evaluate(() => document.documentElement.scrollHeight)) });
+    await page.setViewportSize({
+      width: 1280,
+      height: Math.ceil(await page.evaluate(() => document.documentElement.scrollHeight)),
+    });
     expect((await cursorXs(page)).every((x) => x === null)).toBe(true);
     const area = page.locator('svg[data-chart="pedals"] .hover-area');
     const box = (await area.boundingBox())!;
@@ -83,7 +97,9 @@ describe.skipIf(!haveChromium)('lap report in Chromium', () => {
     expect(zoomed[1] - zoomed[0]).toBeLessThan((whole[1] - whole[0]) / 2);
     expect(zoomed[0]).toBeLessThanOrEqual(cornerApexM);
     expect(zoomed[1]).toBeGreaterThanOrEqual(cornerApexM);
-    const transforms = await page.$$eval('svg[data-distance-chart] .zoom', (groups) => groups.map((g) => g.getAttribute('transform')));
+    const transforms = await page.$$eval('svg[data-distance-chart] .zoom', (groups) =>
+      groups.map((g) => g.getAttribute('transform')),
+    );
     expect(new Set(transforms.map((t) => /scale\(([^ ]+)/.exec(t ?? '')?.[1])).size).toBe(1);
     expect(transforms[0]).toMatch(/scale\((?!1 )/);
     await page.screenshot({ path: path.join(outputFolder, `${screenshot}-zoomed.png`), fullPage: true });
@@ -101,7 +117,9 @@ describe.skipIf(!haveChromium)('lap report in Chromium', () => {
     expect(existsSync(file)).toBe(true);
     const { page, problems, requests, dialogs } = await open(file);
     const apex = await page.evaluate(() => {
-      const data = JSON.parse(document.getElementById('lap-data')!.textContent) as { corners: { id: number; from: number; to: number }[] };
+      const data = JSON.parse(document.getElementById('lap-data')!.textContent) as {
+        corners: { id: number; from: number; to: number }[];
+      };
       const corner = data.corners.find((c) => c.id === 2)!;
       return (corner.from + corner.to) / 2;
     });
@@ -114,7 +132,11 @@ describe.skipIf(!haveChromium)('lap report in Chromium', () => {
 
   it('runs nothing injected through car, track and corner names', async () => {
     // The bundled demo track and car through the library (simulate, then compareLaps on a synthetic driver), with hostile names.
-    const input = pipelineInput({ carName: HOSTILE_CAR_NAME, trackName: HOSTILE_TRACK_NAME, cornerName: HOSTILE_CORNER_NAME });
+    const input = pipelineInput({
+      carName: HOSTILE_CAR_NAME,
+      trackName: HOSTILE_TRACK_NAME,
+      cornerName: HOSTILE_CORNER_NAME,
+    });
     expect(input.comparison!.result.corners.length).toBeGreaterThanOrEqual(2);
     const file = path.join(workFolder, 'hostile.html');
     writeFileSync(file, lapReportHtml(input));
@@ -123,7 +145,9 @@ describe.skipIf(!haveChromium)('lap report in Chromium', () => {
 
     expect(await page.title()).toContain(HOSTILE_CAR_NAME);
     expect(await page.locator('tr.corner-row[data-corner="1"] td').first().innerText()).toContain(HOSTILE_CORNER_NAME);
-    expect(await page.evaluate(() => (window as unknown as { __reportInjected?: number }).__reportInjected)).toBeUndefined();
+    expect(
+      await page.evaluate(() => (window as unknown as { __reportInjected?: number }).__reportInjected),
+    ).toBeUndefined();
     expect(await page.$$('body img, body iframe, body object, body embed')).toHaveLength(0);
     expect(await page.$$eval('script', (scripts) => scripts.length)).toBe(2);
     expect(dialogs).toEqual([]);

@@ -28,7 +28,10 @@ describe.skipIf(!haveChromium)('sweep report in Chromium', () => {
     profile = mkdtempSync(path.join(tmpdir(), 'reflap-chromium-'));
     workFolder = mkdtempSync(path.join(tmpdir(), 'reflap-sweep-report-'));
     loop = writeTestLoop(workFolder);
-    const car = JSON.parse(readFileSync(path.join(projectRoot, 'cars', 'brackle-club.json'), 'utf8')) as Record<string, unknown>;
+    const car = JSON.parse(readFileSync(path.join(projectRoot, 'cars', 'brackle-club.json'), 'utf8')) as Record<
+      string,
+      unknown
+    >;
     hostileCar = path.join(workFolder, 'hostile-car.json');
     writeFileSync(hostileCar, JSON.stringify({ ...car, name: HOSTILE_CAR }));
     context = await launchChromium(profile);
@@ -51,18 +54,38 @@ describe.skipIf(!haveChromium)('sweep report in Chromium', () => {
           const box = (p as SVGGraphicsElement).getBBox();
           return (p.getAttribute('d') ?? '').length > 10 && box.width + box.height > 5;
         }).length,
-        points: Array.from(svg.querySelectorAll('circle.point')).filter((c) => (c as SVGGraphicsElement).getBBox().width > 0).length,
+        points: Array.from(svg.querySelectorAll('circle.point')).filter(
+          (c) => (c as SVGGraphicsElement).getBBox().width > 0,
+        ).length,
       })),
     );
   }
 
   it('opens a grid sweep page with every chart drawn and no console error', async () => {
     const file = path.join(workFolder, 'grid.html');
-    const run = runCli(['sweep', '--track', loop, '--car', hostileCar, '--vary', 'massKg=600:640:20', 'tyre.muLat=-5%:+5%:5%', '--workers', '1', '--html', file]);
+    const run = runCli([
+      'sweep',
+      '--track',
+      loop,
+      '--car',
+      hostileCar,
+      '--vary',
+      'massKg=600:640:20',
+      'tyre.muLat=-5%:+5%:5%',
+      '--workers',
+      '1',
+      '--html',
+      file,
+    ]);
     expect(run.code, run.stderr).toBe(0);
     const { page, problems, dialogs, requests } = await open(file);
     const charts = await drawn(page);
-    expect(charts.map((c) => c.name)).toEqual(['lap-time-massKg', 'braking-shift-massKg', 'lap-time-tyre.muLat', 'braking-shift-tyre.muLat']);
+    expect(charts.map((c) => c.name)).toEqual([
+      'lap-time-massKg',
+      'braking-shift-massKg',
+      'lap-time-tyre.muLat',
+      'braking-shift-tyre.muLat',
+    ]);
     for (const chart of charts) {
       // Lap time: one line per value of the other field (3); shift: one line per corner of the loop (4).
       expect(chart.paths, `${chart.name} drawn lines`).toBe(chart.name!.startsWith('lap-time') ? 3 : 4);
@@ -70,7 +93,9 @@ describe.skipIf(!haveChromium)('sweep report in Chromium', () => {
     }
     expect(await page.locator('.sensitivity table tbody tr').count()).toBe(1 + 4 + 1);
     expect(await page.title()).toContain(HOSTILE_CAR);
-    expect(await page.evaluate(() => (window as unknown as { __sweepInjected?: number }).__sweepInjected)).toBeUndefined();
+    expect(
+      await page.evaluate(() => (window as unknown as { __sweepInjected?: number }).__sweepInjected),
+    ).toBeUndefined();
     expect(await page.$$('body img, body script, body iframe, body object')).toHaveLength(0);
     expect(problems).toEqual([]);
     expect(dialogs).toEqual([]);
@@ -82,12 +107,30 @@ describe.skipIf(!haveChromium)('sweep report in Chromium', () => {
 
   it('opens a one-at-a-time sweep page and a what-if page with every chart drawn', async () => {
     const sweep = path.join(workFolder, 'oat.html');
-    const oat = runCli(['sweep', '--track', loop, '--car', hostileCar, '--vary', 'massKg=600:640:20', 'tyre.muLong=-10%:+10%:5%', '--mode', 'one-at-a-time', '--workers', '1', '--html', sweep]);
+    const oat = runCli([
+      'sweep',
+      '--track',
+      loop,
+      '--car',
+      hostileCar,
+      '--vary',
+      'massKg=600:640:20',
+      'tyre.muLong=-10%:+10%:5%',
+      '--mode',
+      'one-at-a-time',
+      '--workers',
+      '1',
+      '--html',
+      sweep,
+    ]);
     expect(oat.code, oat.stderr).toBe(0);
     const whatif = path.join(workFolder, 'whatif.html');
     const change = runCli(['whatif', '--track', loop, '--car', hostileCar, '--set', 'massKg=+20', '--html', whatif]);
     expect(change.code, change.stderr).toBe(0);
-    for (const [file, expected] of [[sweep, 4], [whatif, 1]] as const) {
+    for (const [file, expected] of [
+      [sweep, 4],
+      [whatif, 1],
+    ] as const) {
       const { page, problems, requests } = await open(file);
       const charts = await drawn(page);
       expect(charts).toHaveLength(expected);
@@ -95,7 +138,10 @@ describe.skipIf(!haveChromium)('sweep report in Chromium', () => {
       if (file === whatif) expect(charts[0]!.paths).toBe(4);
       expect(problems).toEqual([]);
       expect(requests.filter((url) => !url.startsWith('file:'))).toEqual([]);
-      await page.screenshot({ path: path.join(outputFolder, file === whatif ? 'whatif-report.png' : 'sweep-oat-report.png'), fullPage: true });
+      await page.screenshot({
+        path: path.join(outputFolder, file === whatif ? 'whatif-report.png' : 'sweep-oat-report.png'),
+        fullPage: true,
+      });
       await page.close();
     }
   });

@@ -26,7 +26,10 @@ describe('car description', () => {
   });
 
   it('gives null gradient and speeds for a car without cornering stiffnesses', () => {
-    const d = describeCar({ ...clubCar({ model: 'point-mass' }), tyre: { ...clubCar().tyre, corneringStiffnessFrontNPerRad: null } }, ambientFrom());
+    const d = describeCar(
+      { ...clubCar({ model: 'point-mass' }), tyre: { ...clubCar().tyre, corneringStiffnessFrontNPerRad: null } },
+      ambientFrom(),
+    );
     expect(d.understeerGradientDegPerG).toBeNull();
     expect(d.characteristicSpeedKph).toBeNull();
     expect(d.criticalSpeedKph).toBeNull();
@@ -36,7 +39,13 @@ describe('car description', () => {
 
 describe('car file with the bicycle model', () => {
   it('lists every missing field in one line', () => {
-    const text = JSON.stringify({ model: 'bicycle', massKg: 900, tyre: { muLong: 1.2, muLat: 1.2 }, aero: { dragAreaM2: 0.7, liftAreaM2: 1 }, powertrain: { maxPowerW: 1e5 } });
+    const text = JSON.stringify({
+      model: 'bicycle',
+      massKg: 900,
+      tyre: { muLong: 1.2, muLat: 1.2 },
+      aero: { dragAreaM2: 0.7, liftAreaM2: 1 },
+      powertrain: { maxPowerW: 1e5 },
+    });
     let message = '';
     try {
       parseCarJson(text, 'car.json');

@@ -19,7 +19,8 @@ beforeAll(() => {
   referenceLapTimeS = JSON.parse(run.stdout).lapTimeS;
 });
 
-const compare = (telemetry: string, extra: string[] = []) => runCli(['compare', '--track', track, '--car', car, '--telemetry', telemetry, ...extra]);
+const compare = (telemetry: string, extra: string[] = []) =>
+  runCli(['compare', '--track', track, '--car', car, '--telemetry', telemetry, ...extra]);
 
 describe('a simulated lap read back as telemetry', () => {
   it('matches the reference within 0.02 s, with no finding worth more than 0.02 s', () => {
@@ -30,7 +31,8 @@ describe('a simulated lap read back as telemetry', () => {
     expect(result.corners.length).toBeGreaterThanOrEqual(7);
     for (const corner of result.corners) expect(Math.abs(corner.timeLostS)).toBeLessThan(0.02);
     for (const finding of result.findings) expect(finding.timeS).toBeLessThanOrEqual(0.02);
-    for (const key of ['id', 'apexM', 'brakingPointDeltaM', 'minSpeedDeltaKph', 'minSpeedOffsetFromApexM', 'timeLostS']) expect(result.corners[0]).toHaveProperty(key);
+    for (const key of ['id', 'apexM', 'brakingPointDeltaM', 'minSpeedDeltaKph', 'minSpeedOffsetFromApexM', 'timeLostS'])
+      expect(result.corners[0]).toHaveProperty(key);
   });
 
   it('writes the aligned traces and the corner table with --out', () => {
@@ -102,7 +104,10 @@ describe('bad input', () => {
   it('refuses positions that do not belong to the track', () => {
     const file = path.join(work, 'elsewhere.csv');
     const rows = ['time_s,x_m,y_m,speed_mps'];
-    for (let k = 0; k < 2000; k++) rows.push(`${(k * 0.1).toFixed(1)},${(5000 + 100 * Math.cos(k / 100)).toFixed(2)},${(5000 + 100 * Math.sin(k / 100)).toFixed(2)},30`);
+    for (let k = 0; k < 2000; k++)
+      rows.push(
+        `${(k * 0.1).toFixed(1)},${(5000 + 100 * Math.cos(k / 100)).toFixed(2)},${(5000 + 100 * Math.sin(k / 100)).toFixed(2)},30`,
+      );
     writeFileSync(file, rows.join('\n') + '\n');
     failsCleanly(file, /track/);
   });

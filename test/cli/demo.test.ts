@@ -13,7 +13,9 @@ describe('reflap demo', () => {
 
   it('runs from any folder and writes a 20 Hz log with GPS positions', () => {
     expect(run.code).toBe(0);
-    const lines = readFileSync(path.join(folder, 'out', 'demo-lap.csv'), 'utf8').trim().split('\n');
+    const lines = readFileSync(path.join(folder, 'out', 'demo-lap.csv'), 'utf8')
+      .trim()
+      .split('\n');
     expect(lines[0]).toMatch(/time_s,lat_deg,lon_deg,speed_kph/);
     const t1 = Number(lines[1]!.split(',')[0]);
     const t2 = Number(lines[2]!.split(',')[0]);
@@ -23,9 +25,13 @@ describe('reflap demo', () => {
 
   it("finds the driver model's faults: 25 m early braking, 12 m late braking, coasting", () => {
     // The expected figures are the ones the driver model was built with (src/compare/demo-driver.ts).
-    const corners = readFileSync(path.join(folder, 'out', 'corners.csv'), 'utf8').trim().split('\n');
+    const corners = readFileSync(path.join(folder, 'out', 'corners.csv'), 'utf8')
+      .trim()
+      .split('\n');
     const header = corners[0]!.split(',');
-    const rows = corners.slice(1).map((line) => Object.fromEntries(line.split(',').map((cell, i) => [header[i], cell])));
+    const rows = corners
+      .slice(1)
+      .map((line) => Object.fromEntries(line.split(',').map((cell, i) => [header[i], cell])));
     const faultLine = /faults: (.*)\./.exec(run.stdout)![1]!;
     const cornerOf = (kind: string) => Number(new RegExp(`${kind} at corner (\\d+)`).exec(faultLine)![1]);
     const row = (id: number) => rows.find((r) => Number(r.id) === id)!;

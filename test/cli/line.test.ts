@@ -20,26 +20,67 @@ function segmentTrack(file: string, spec: object): string {
 
 beforeAll(() => {
   folder = mkdtempSync(join(tmpdir(), 'reflap-line-'));
-  ringTrack = segmentTrack('ring.json', { name: 'test ring', closed: true, widthM: 10, segments: [{ kind: 'arc', radiusM: 100, angleDeg: 360 }] });
-  bareTrack = segmentTrack('bare.json', { name: 'no widths', closed: true, segments: [{ kind: 'arc', radiusM: 100, angleDeg: 360 }] });
-  foldTrack = segmentTrack('fold.json', { name: 'too wide', closed: true, widthM: 230, segments: [{ kind: 'arc', radiusM: 100, angleDeg: 360 }] });
+  ringTrack = segmentTrack('ring.json', {
+    name: 'test ring',
+    closed: true,
+    widthM: 10,
+    segments: [{ kind: 'arc', radiusM: 100, angleDeg: 360 }],
+  });
+  bareTrack = segmentTrack('bare.json', {
+    name: 'no widths',
+    closed: true,
+    segments: [{ kind: 'arc', radiusM: 100, angleDeg: 360 }],
+  });
+  foldTrack = segmentTrack('fold.json', {
+    name: 'too wide',
+    closed: true,
+    widthM: 230,
+    segments: [{ kind: 'arc', radiusM: 100, angleDeg: 360 }],
+  });
 });
 
 describe('reflap line', () => {
   it('prints the minimum-curvature line of a ring: the outer edge, radius 105 m', () => {
-    const run = runCli(['line', '--track', ringTrack, '--car', car, '--objective', 'curvature', '--margin-m', '0', '--step-m', '2', '--json']);
+    const run = runCli([
+      'line',
+      '--track',
+      ringTrack,
+      '--car',
+      car,
+      '--objective',
+      'curvature',
+      '--margin-m',
+      '0',
+      '--step-m',
+      '2',
+      '--json',
+    ]);
     expect(run.code).toBe(0);
     const summary = JSON.parse(run.stdout);
     // Outer edge of a 100 m ring 10 m wide: radius 105 m, length 2 pi 105 (geometry), within 1 %.
     expect(Math.abs(summary.minRadiusM / 105 - 1)).toBeLessThan(0.01);
     expect(Math.abs(summary.lengthM / (2 * Math.PI * 105) - 1)).toBeLessThan(0.01);
     expect(summary.maxOffsetM).toBeCloseTo(5, 1);
-    for (const key of ['lapTimeCentrelineS', 'lapTimeLineS', 'lengthM', 'minRadiusM', 'maxOffsetM']) expect(typeof summary[key]).toBe('number');
+    for (const key of ['lapTimeCentrelineS', 'lapTimeLineS', 'lengthM', 'minRadiusM', 'maxOffsetM'])
+      expect(typeof summary[key]).toBe('number');
   });
 
   it('writes the time line as CSV, and simulate --line drives it', () => {
     const out = join(folder, 'line.csv');
-    const run = runCli(['line', '--track', ringTrack, '--car', car, '--margin-m', '0', '--step-m', '2', '--json', '--out', out]);
+    const run = runCli([
+      'line',
+      '--track',
+      ringTrack,
+      '--car',
+      car,
+      '--margin-m',
+      '0',
+      '--step-m',
+      '2',
+      '--json',
+      '--out',
+      out,
+    ]);
     expect(run.code).toBe(0);
     const summary = JSON.parse(run.stdout);
     // Inner edge: radius 95 m (T = 2 pi sqrt(R / (mu g)) falls with R), within 1 %.
@@ -50,7 +91,20 @@ describe('reflap line', () => {
     expect(lines.length - 1).toBe(Math.round((2 * Math.PI * 100) / 2));
 
     const trace = join(folder, 'trace.csv');
-    const sim = runCli(['simulate', '--track', ringTrack, '--car', car, '--step-m', '2', '--line', out, '--json', '--out', trace]);
+    const sim = runCli([
+      'simulate',
+      '--track',
+      ringTrack,
+      '--car',
+      car,
+      '--step-m',
+      '2',
+      '--line',
+      out,
+      '--json',
+      '--out',
+      trace,
+    ]);
     expect(sim.code).toBe(0);
     // The same line read back (offsets rounded to 0.1 mm) gives the same lap.
     expect(JSON.parse(sim.stdout).lapTimeS).toBeCloseTo(summary.lapTimeLineS, 2);
@@ -104,9 +158,16 @@ describe('reflap line: bad input', () => {
   });
 
   it('refuses a line file made for another track', () => {
-    const other = segmentTrack('other.json', { name: 'other', closed: true, widthM: 10, segments: [{ kind: 'arc', radiusM: 60, angleDeg: 360 }] });
+    const other = segmentTrack('other.json', {
+      name: 'other',
+      closed: true,
+      widthM: 10,
+      segments: [{ kind: 'arc', radiusM: 60, angleDeg: 360 }],
+    });
     const out = join(folder, 'other-line.csv');
-    expect(runCli(['line', '--track', other, '--car', car, '--objective', 'curvature', '--step-m', '2', '--out', out]).code).toBe(0);
+    expect(
+      runCli(['line', '--track', other, '--car', car, '--objective', 'curvature', '--step-m', '2', '--out', out]).code,
+    ).toBe(0);
     const sim = runCli(['simulate', '--track', ringTrack, '--car', car, '--step-m', '2', '--line', out]);
     expect(sim.code).toBe(2);
     expect(sim.stderr).toMatch(/other-line\.csv: .*another track/);

@@ -5,10 +5,27 @@ import { createProgress, progressWanted } from '../../src/cli/progress.js';
 function fakeStream(isTTY: boolean) {
   const written: string[] = [];
   const stream = {
-    isTTY, columns: 80,
-    write(chunk: string) { written.push(String(chunk)); return true; },
-    cursorTo() { return true; }, clearLine() { return true; }, moveCursor() { return true; },
-    on() { return stream; }, removeListener() { return stream; },
+    isTTY,
+    columns: 80,
+    write(chunk: string) {
+      written.push(String(chunk));
+      return true;
+    },
+    cursorTo() {
+      return true;
+    },
+    clearLine() {
+      return true;
+    },
+    moveCursor() {
+      return true;
+    },
+    on() {
+      return stream;
+    },
+    removeListener() {
+      return stream;
+    },
   };
   return { stream: stream as unknown as NodeJS.WriteStream, written };
 }

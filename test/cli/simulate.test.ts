@@ -45,7 +45,11 @@ describe('reflap simulate', () => {
     expect(summary.minSpeedMps).toBeLessThanOrEqual(bound + 1e-6);
     expect(summary.minSpeedMps).toBeGreaterThan(0.98 * bound);
     const lines = readFileSync(out, 'utf8').trim().split('\n');
-    expect(lines[0]!.startsWith('distance_m,time_s,speed_mps,speed_kph,ax_mps2,ay_mps2,curvature_1pm,throttle,brake,grip_use')).toBe(true);
+    expect(
+      lines[0]!.startsWith(
+        'distance_m,time_s,speed_mps,speed_kph,ax_mps2,ay_mps2,curvature_1pm,throttle,brake,grip_use',
+      ),
+    ).toBe(true);
     expect(lines.length - 1).toBe(Math.round(1200 + 2 * Math.PI * 60));
   });
 
@@ -66,17 +70,59 @@ describe('reflap simulate', () => {
   it.each([
     ['a missing track file', () => ['--track', join(folder, 'nope.json'), '--car', car], /nope\.json/],
     ['a missing car file', () => ['--track', stadium, '--car', join(folder, 'nocar.json')], /nocar\.json: cannot read/],
-    ['malformed car JSON', () => ['--track', stadium, '--car', bad('broken.json', '{"massKg": 600,')], /broken\.json: not valid JSON/],
-    ['a negative mass', () => ['--track', stadium, '--car', bad('neg.json', carJson({ massKg: -5 }))], /neg\.json: field massKg/],
-    ['zero power', () => ['--track', stadium, '--car', bad('zero.json', carJson({ powertrain: { maxPowerW: 0 } }))], /zero\.json: field powertrain\.maxPowerW/],
-    ['an unknown car key', () => ['--track', stadium, '--car', bad('typo.json', carJson({ masKg: 600 }))], /typo\.json: unknown field masKg/],
-    ['a missing required field', () => ['--track', stadium, '--car', bad('nomu.json', carJson({ tyre: { muLat: 1.2 } }))], /nomu\.json: missing required field tyre\.muLong/],
+    [
+      'malformed car JSON',
+      () => ['--track', stadium, '--car', bad('broken.json', '{"massKg": 600,')],
+      /broken\.json: not valid JSON/,
+    ],
+    [
+      'a negative mass',
+      () => ['--track', stadium, '--car', bad('neg.json', carJson({ massKg: -5 }))],
+      /neg\.json: field massKg/,
+    ],
+    [
+      'zero power',
+      () => ['--track', stadium, '--car', bad('zero.json', carJson({ powertrain: { maxPowerW: 0 } }))],
+      /zero\.json: field powertrain\.maxPowerW/,
+    ],
+    [
+      'an unknown car key',
+      () => ['--track', stadium, '--car', bad('typo.json', carJson({ masKg: 600 }))],
+      /typo\.json: unknown field masKg/,
+    ],
+    [
+      'a missing required field',
+      () => ['--track', stadium, '--car', bad('nomu.json', carJson({ tyre: { muLat: 1.2 } }))],
+      /nomu\.json: missing required field tyre\.muLong/,
+    ],
     [
       'a closed track that does not close',
-      () => ['--track', bad('open.json', JSON.stringify({ name: 'x', closed: true, widthM: 10, segments: [{ kind: 'straight', lengthM: 300 }, { kind: 'arc', radiusM: 50, angleDeg: 180 }, { kind: 'straight', lengthM: 280 }, { kind: 'arc', radiusM: 50, angleDeg: 180 }] })), '--car', car],
+      () => [
+        '--track',
+        bad(
+          'open.json',
+          JSON.stringify({
+            name: 'x',
+            closed: true,
+            widthM: 10,
+            segments: [
+              { kind: 'straight', lengthM: 300 },
+              { kind: 'arc', radiusM: 50, angleDeg: 180 },
+              { kind: 'straight', lengthM: 280 },
+              { kind: 'arc', radiusM: 50, angleDeg: 180 },
+            ],
+          }),
+        ),
+        '--car',
+        car,
+      ],
       /open\.json.*20(\.\d+)? m/,
     ],
-    ['a non-numeric option', () => ['--track', stadium, '--car', car, '--step-m', 'fast'], /--step-m: 'fast' is not a number/],
+    [
+      'a non-numeric option',
+      () => ['--track', stadium, '--car', car, '--step-m', 'fast'],
+      /--step-m: 'fast' is not a number/,
+    ],
   ])('rejects %s with one line, exit code 2 and no output', (_name, args, message) => {
     const out = join(folder, `should-not-exist-${Math.random().toString(36).slice(2)}.csv`);
     const run = runCli(['simulate', ...args(), '--out', out]);

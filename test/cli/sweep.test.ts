@@ -23,7 +23,18 @@ beforeAll(() => {
 
 describe('reflap whatif', () => {
   it('moves the braking point by the difference of the kinematic braking distances', () => {
-    const run = runCli(['whatif', '--track', hairpin, '--car', slick, '--start-speed-kph', '180', '--set', 'tyre.muLong=-20%', '--json']);
+    const run = runCli([
+      'whatif',
+      '--track',
+      hairpin,
+      '--car',
+      slick,
+      '--start-speed-kph',
+      '180',
+      '--set',
+      'tyre.muLong=-20%',
+      '--json',
+    ]);
     expect(run.stderr).toBe('');
     expect(run.code).toBe(0);
     const result = JSON.parse(run.stdout);
@@ -68,18 +79,54 @@ describe('reflap sweep', () => {
   it('writes the runs, and merged shards equal the unsharded CSV byte for byte', () => {
     const whole = join(folder, 'whole.csv');
     const wholeHtml = join(folder, 'whole.html');
-    const first = runCli(['sweep', '--track', loop, '--car', car, ...vary, '--workers', '2', '--out', whole, '--html', wholeHtml]);
+    const first = runCli([
+      'sweep',
+      '--track',
+      loop,
+      '--car',
+      car,
+      ...vary,
+      '--workers',
+      '2',
+      '--out',
+      whole,
+      '--html',
+      wholeHtml,
+    ]);
     expect(first.code).toBe(0);
     expect(first.stdout).toMatch(/Sensitivity around the baseline/);
     const shards = [1, 2, 3].map((i) => {
       const out = join(folder, `part${i}.csv`);
-      const run = runCli(['sweep', '--track', loop, '--car', car, ...vary, '--workers', '1', '--shard', `${i}/3`, '--out', out]);
+      const run = runCli([
+        'sweep',
+        '--track',
+        loop,
+        '--car',
+        car,
+        ...vary,
+        '--workers',
+        '1',
+        '--shard',
+        `${i}/3`,
+        '--out',
+        out,
+      ]);
       expect(run.code).toBe(0);
       return out;
     });
     const merged = join(folder, 'merged.csv');
     const mergedHtml = join(folder, 'merged.html');
-    const join3 = runCli(['sweep', '--merge', shards[2]!, shards[0]!, shards[1]!, '--out', merged, '--html', mergedHtml]);
+    const join3 = runCli([
+      'sweep',
+      '--merge',
+      shards[2]!,
+      shards[0]!,
+      shards[1]!,
+      '--out',
+      merged,
+      '--html',
+      mergedHtml,
+    ]);
     expect(join3.code).toBe(0);
     expect(join3.stdout).toContain(`Report written to ${mergedHtml}`);
     expect(readFileSync(merged)).toEqual(readFileSync(whole));
@@ -91,7 +138,19 @@ describe('reflap sweep', () => {
   });
 
   it('prints JSON with the sensitivities', () => {
-    const run = runCli(['sweep', '--track', loop, '--car', car, ...vary, '--mode', 'one-at-a-time', '--workers', '0', '--json']);
+    const run = runCli([
+      'sweep',
+      '--track',
+      loop,
+      '--car',
+      car,
+      ...vary,
+      '--mode',
+      'one-at-a-time',
+      '--workers',
+      '0',
+      '--json',
+    ]);
     expect(run.code).toBe(0);
     const result = JSON.parse(run.stdout);
     expect(result.complete).toBe(true);
@@ -102,7 +161,10 @@ describe('reflap sweep', () => {
 
   it('refuses a report path that is one of the shards to merge, writing nothing', () => {
     const shard = join(folder, 'lone-shard.csv');
-    expect(runCli(['sweep', '--track', loop, '--car', car, '--vary', 'massKg=600:620:20', '--workers', '0', '--out', shard]).code).toBe(0);
+    expect(
+      runCli(['sweep', '--track', loop, '--car', car, '--vary', 'massKg=600:620:20', '--workers', '0', '--out', shard])
+        .code,
+    ).toBe(0);
     const before = readFileSync(shard, 'utf8');
     const out = join(folder, 'never-merged.csv');
     const run = runCli(['sweep', '--merge', shard, '--out', out, '--html', shard]);

@@ -10,7 +10,14 @@ import { pointAt, ringTrack, sessionOf, triangleTrack } from '../fixtures/teleme
 const session = sessionOf;
 
 /** Samples at rateHz along the centreline at constant speed, starting startM along the track. */
-function constantSpeedLog(track: ReturnType<typeof triangleTrack>, speedMps: number, rateHz: number, durationS: number, startM: number, withSpeed = true) {
+function constantSpeedLog(
+  track: ReturnType<typeof triangleTrack>,
+  speedMps: number,
+  rateHz: number,
+  durationS: number,
+  startM: number,
+  withSpeed = true,
+) {
   const count = Math.floor(durationS * rateHz) + 1;
   const timeS = new Float64Array(count);
   const xM = new Float64Array(count);
@@ -34,7 +41,8 @@ describe('alignLap', () => {
     const lap = alignLap(log, complete[0]!, track);
     expect(lap.lapTimeS).toBeCloseTo(track.lengthM / v, 3);
     let worst = 0;
-    for (let j = 0; j < track.distanceM.length; j++) worst = Math.max(worst, Math.abs(lap.timeS[j]! - track.distanceM[j]! / v));
+    for (let j = 0; j < track.distanceM.length; j++)
+      worst = Math.max(worst, Math.abs(lap.timeS[j]! - track.distanceM[j]! / v));
     expect(worst).toBeLessThan(1e-3);
     expect(lap.timeS[0]).toBe(0);
     expect(lap.speedMps.every((speed) => Math.abs(speed - v) < 1e-9)).toBe(true);
@@ -51,7 +59,11 @@ describe('alignLap', () => {
     const v = 40;
     const log = constantSpeedLog(track, v, 20, (2.5 * track.lengthM) / v, 3);
     const { laps } = cutLaps(log, track, {});
-    expect(laps.map((lap) => [lap.lapNumber, lap.complete])).toEqual([[1, true], [2, true], [3, false]]);
+    expect(laps.map((lap) => [lap.lapNumber, lap.complete])).toEqual([
+      [1, true],
+      [2, true],
+      [3, false],
+    ]);
     expect(laps[0]!.reason).toMatch(/the log starts 3\.0 m after the line; start time extrapolated/);
     expect(laps[0]!.lapTimeS).toBeCloseTo(track.lengthM / v, 3);
   });
@@ -77,7 +89,8 @@ describe('alignLap', () => {
     expect(laps.filter((l) => l.complete).length).toBeGreaterThanOrEqual(1);
     expect(lap.lapTimeS).toBeCloseTo(track.lengthM / v, 3);
     expect(lap.timeS[0]).toBe(0);
-    for (const j of [1, 100, 400, 700, track.distanceM.length - 1]) expect(lap.timeS[j]!).toBeCloseTo(track.distanceM[j]! / v, 3);
+    for (const j of [1, 100, 400, 700, track.distanceM.length - 1])
+      expect(lap.timeS[j]!).toBeCloseTo(track.distanceM[j]! / v, 3);
   });
 
   it('uses the distance channel scaled to the track length when there are no positions', () => {
@@ -106,6 +119,8 @@ describe('alignLap', () => {
     const log = constantSpeedLog(track, 30, 10, 60, 0);
     for (let i = 0; i < log.count; i++) log.xM![i] = log.xM![i]! + 500;
     expect(() => selectLap(log, track)).toThrow(InputError);
-    expect(() => selectLap(log, track)).toThrow(/does not match track test triangle: its median distance to the centreline is \d+ m/);
+    expect(() => selectLap(log, track)).toThrow(
+      /does not match track test triangle: its median distance to the centreline is \d+ m/,
+    );
   });
 });

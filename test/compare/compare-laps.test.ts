@@ -90,13 +90,17 @@ function earlyBrakingLap(zoneIndex: number, earlierM: number) {
 describe('braking 10 m early at one corner', () => {
   const { lap, zone } = earlyBrakingLap(0, 10);
   const result = compareLaps(track, car, reference, lap, envelope);
-  const target = result.corners.find((c) => c.brakingPointDeltaM !== null && Math.abs((c.referenceBrakingPointM ?? -1e9) - zone.startM) < 2)!;
+  const target = result.corners.find(
+    (c) => c.brakingPointDeltaM !== null && Math.abs((c.referenceBrakingPointM ?? -1e9) - zone.startM) < 2,
+  )!;
 
   it('reports 10 m earlier at that corner and at most 2 m elsewhere', () => {
     expect(target).toBeDefined();
     expect(target.brakingPointDeltaM!).toBeGreaterThan(-11);
     expect(target.brakingPointDeltaM!).toBeLessThan(-9);
-    for (const corner of result.corners) if (corner !== target && corner.brakingPointDeltaM !== null) expect(Math.abs(corner.brakingPointDeltaM)).toBeLessThanOrEqual(2);
+    for (const corner of result.corners)
+      if (corner !== target && corner.brakingPointDeltaM !== null)
+        expect(Math.abs(corner.brakingPointDeltaM)).toBeLessThanOrEqual(2);
   });
 
   it('states the gap as time at the reference speed, and makes that corner the only finding', () => {
@@ -120,7 +124,12 @@ describe('time delta', () => {
     // At a constant speed ratio every elapsed time scales by 1 / 0.95 (time = distance / speed), so the delta at
     // the finish is T (1 / 0.95 - 1) for the reference lap time T.
     const t = reference.trace;
-    const lap = driverLapFromSpeeds(track, t.speedMps.map((v) => 0.95 * v), Float64Array.from(t.throttle), Float64Array.from(t.brake));
+    const lap = driverLapFromSpeeds(
+      track,
+      t.speedMps.map((v) => 0.95 * v),
+      Float64Array.from(t.throttle),
+      Float64Array.from(t.brake),
+    );
     const result = compareLaps(track, car, reference, lap, envelope);
     const expected = reference.lapTimeS * (1 / 0.95 - 1);
     expect(Math.abs(result.deltaS[t.count - 1]! - expected)).toBeLessThan(0.01);

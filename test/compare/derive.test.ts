@@ -2,7 +2,15 @@
 // (a = v^2 / R, curvature 1 / R), uniform straight motion.
 
 import { describe, expect, it } from 'vitest';
-import { axFromSpeed, ayFromCurvature, correlation, curvatureTooNoisy, movingAverage, pathCurvature, speedFromPositions } from '../../src/compare/derive.js';
+import {
+  axFromSpeed,
+  ayFromCurvature,
+  correlation,
+  curvatureTooNoisy,
+  movingAverage,
+  pathCurvature,
+  speedFromPositions,
+} from '../../src/compare/derive.js';
 
 describe('derived channels', () => {
   it('moving average: hand-computed values, open and cyclic', () => {
@@ -34,20 +42,39 @@ describe('derived channels', () => {
     const ay = ayFromCurvature(new Float64Array(n).fill(20), kappa);
     expect(ay[17]!).toBeCloseTo((20 * 20) / r, 1);
     // Clockwise: negative curvature (positive = left).
-    const clockwise = pathCurvature(x, y.map((value) => -value), (2 * Math.PI * r) / n, true);
+    const clockwise = pathCurvature(
+      x,
+      y.map((value) => -value),
+      (2 * Math.PI * r) / n,
+      true,
+    );
     expect(clockwise[5]!).toBeLessThan(0);
   });
 
   it('speed from positions in uniform straight motion', () => {
     const t = new Float64Array(50).map((_, i) => i * 0.05);
-    const speed = speedFromPositions(t, t.map((value) => 3 * value * 10), t.map((value) => 4 * value * 10));
+    const speed = speedFromPositions(
+      t,
+      t.map((value) => 3 * value * 10),
+      t.map((value) => 4 * value * 10),
+    );
     for (const value of speed) expect(value).toBeCloseTo(50, 9);
   });
 
   it('calls a path noisy when its curvature departs from the track more than the track curves', () => {
     const track = new Float64Array(100).fill(0.01);
-    expect(curvatureTooNoisy(track.map((value) => value * 1.1), track)).toBe(false);
-    expect(curvatureTooNoisy(track.map((_, i) => (i % 2 ? 0.05 : -0.05)), track)).toBe(true);
+    expect(
+      curvatureTooNoisy(
+        track.map((value) => value * 1.1),
+        track,
+      ),
+    ).toBe(false);
+    expect(
+      curvatureTooNoisy(
+        track.map((_, i) => (i % 2 ? 0.05 : -0.05)),
+        track,
+      ),
+    ).toBe(true);
     expect(correlation(Float64Array.of(1, 2, 3), Float64Array.of(-2, -4, -6))).toBeCloseTo(-1, 12);
   });
 });

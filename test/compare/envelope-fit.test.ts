@@ -61,7 +61,13 @@ describe('fitting the envelope', () => {
       expect(band.accelMps2 / limits.accel).toBeGreaterThan(0.99);
       expect(band.leftMps2 / limits.left).toBeGreaterThan(0.99);
       expect(band.rightMps2 / limits.right).toBeGreaterThan(0.99);
-      for (const value of [band.brakeMps2 / limits.brake, band.accelMps2 / limits.accel, band.leftMps2 / limits.left, band.rightMps2 / limits.right]) expect(value).toBeLessThanOrEqual(1 + 1e-12);
+      for (const value of [
+        band.brakeMps2 / limits.brake,
+        band.accelMps2 / limits.accel,
+        band.leftMps2 / limits.left,
+        band.rightMps2 / limits.right,
+      ])
+        expect(value).toBeLessThanOrEqual(1 + 1e-12);
     }
     expect(record.coast.fitted).toBe(false);
     expect(record.topSpeedMps).toBeGreaterThan(49.5);

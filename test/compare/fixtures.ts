@@ -43,7 +43,8 @@ export function testCircuit(stepM = 1): TrackGrid {
   };
 }
 
-export const circuitCar = () => testCar({ massKg: 1200, mu: 1.3, dragAreaM2: 0.7, maxPowerW: 220_000, rollingResistanceCoeff: 0.013 });
+export const circuitCar = () =>
+  testCar({ massKg: 1200, mu: 1.3, dragAreaM2: 0.7, maxPowerW: 220_000, rollingResistanceCoeff: 0.013 });
 
 /** Index ranges of the circuit's arcs on the grid, in running order. */
 export function arcRanges(stepM = 1): { fromM: number; toM: number; radiusM: number }[] {
@@ -58,7 +59,13 @@ export function arcRanges(stepM = 1): { fromM: number; toM: number; radiusM: num
 }
 
 /** A driver lap from given speeds on the grid: time by the trapezoid rule, ax from v^2 differences, ay = v^2 kappa. */
-export function driverLapFromSpeeds(track: TrackGrid, speedMps: Float64Array, throttle: Float64Array, brake: Float64Array, source = 'synthetic lap'): DriverLap {
+export function driverLapFromSpeeds(
+  track: TrackGrid,
+  speedMps: Float64Array,
+  throttle: Float64Array,
+  brake: Float64Array,
+  source = 'synthetic lap',
+): DriverLap {
   const n = speedMps.length;
   const timeS = new Float64Array(n);
   const axMps2 = new Float64Array(n);
@@ -94,5 +101,11 @@ export function driverLapFromSpeeds(track: TrackGrid, speedMps: Float64Array, th
 /** The reference's own trace as a driver lap (copies, so the test may change them). */
 export function driverLapFromReference(track: TrackGrid, reference: LapResult): DriverLap {
   const t = reference.trace;
-  return driverLapFromSpeeds(track, Float64Array.from(t.speedMps), Float64Array.from(t.throttle), Float64Array.from(t.brake), 'reference copy');
+  return driverLapFromSpeeds(
+    track,
+    Float64Array.from(t.speedMps),
+    Float64Array.from(t.throttle),
+    Float64Array.from(t.brake),
+    'reference copy',
+  );
 }

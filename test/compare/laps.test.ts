@@ -106,16 +106,30 @@ describe('cutLaps', () => {
 
   it('says so when no lap is complete', () => {
     const { session } = threeLapSession(10);
-    const short = { ...session, count: 200, timeS: session.timeS.subarray(0, 200), xM: session.xM!.subarray(0, 200), yM: session.yM!.subarray(0, 200), speedMps: session.speedMps!.subarray(0, 200) };
+    const short = {
+      ...session,
+      count: 200,
+      timeS: session.timeS.subarray(0, 200),
+      xM: session.xM!.subarray(0, 200),
+      yM: session.yM!.subarray(0, 200),
+      speedMps: session.speedMps!.subarray(0, 200),
+    };
     expect(() => selectLap(short, track)).toThrow(InputError);
-    expect(() => selectLap(short, track)).toThrow(/no complete lap in the session on track test triangle \(lap 0: out lap/);
+    expect(() => selectLap(short, track)).toThrow(
+      /no complete lap in the session on track test triangle \(lap 0: out lap/,
+    );
   });
 
   it('cuts a GPS session on a track without a geo origin after a rigid fit (ICP + Kabsch)', () => {
     const { session } = threeLapSession(10);
     // The same path in a GPS plane turned by 73 degrees and shifted by (1200, -800) m.
     const angle = (73 * Math.PI) / 180;
-    const gps = { ...session, xM: new Float64Array(session.count), yM: new Float64Array(session.count), geoOrigin: { latDeg: 50, lonDeg: 10 } };
+    const gps = {
+      ...session,
+      xM: new Float64Array(session.count),
+      yM: new Float64Array(session.count),
+      geoOrigin: { latDeg: 50, lonDeg: 10 },
+    };
     for (let i = 0; i < session.count; i++) {
       const x = session.xM![i]!;
       const y = session.yM![i]!;

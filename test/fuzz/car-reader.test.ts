@@ -8,11 +8,37 @@ import { anyJson, anyText, carFile, resultOrInputError, runs } from './generator
 
 const SOURCE = 'fuzz-car.json';
 
-const FIELDS = ['massKg', 'name', 'model', 'frontWeightFraction', 'tyre.muLong', 'tyre.muLat', 'tyre.ggExponent', 'aero.dragAreaM2', 'aero.liftAreaM2', 'powertrain.maxPowerW', 'powertrain.drive', 'powertrain.gearRatios', 'powertrain.torqueCurve', 'fuel.massKg', 'brakes.maxDecelG', 'tyre', 'aero', 'unknownKey', 'tyre.grip'];
+const FIELDS = [
+  'massKg',
+  'name',
+  'model',
+  'frontWeightFraction',
+  'tyre.muLong',
+  'tyre.muLat',
+  'tyre.ggExponent',
+  'aero.dragAreaM2',
+  'aero.liftAreaM2',
+  'powertrain.maxPowerW',
+  'powertrain.drive',
+  'powertrain.gearRatios',
+  'powertrain.torqueCurve',
+  'fuel.massKg',
+  'brakes.maxDecelG',
+  'tyre',
+  'aero',
+  'unknownKey',
+  'tyre.grip',
+];
 
 /** A valid car file with one field deleted, replaced by any JSON value, or added where it does not belong. */
 const mutatedCar = fc
-  .record({ car: carFile, field: fc.constantFrom(...FIELDS), value: fc.option(fc.oneof(fc.jsonValue({ maxDepth: 1 }), fc.constantFrom(-1, 0, 1e400, -0, 1e-320, '12', true)), { nil: undefined }) })
+  .record({
+    car: carFile,
+    field: fc.constantFrom(...FIELDS),
+    value: fc.option(fc.oneof(fc.jsonValue({ maxDepth: 1 }), fc.constantFrom(-1, 0, 1e400, -0, 1e-320, '12', true)), {
+      nil: undefined,
+    }),
+  })
   .map(({ car, field, value }) => {
     const copy = JSON.parse(JSON.stringify(car)) as Record<string, unknown>;
     const parts = field.split('.');
@@ -29,7 +55,13 @@ const mutatedCar = fc
 
 describe('car reader fuzz', () => {
   it('any text, any JSON, valid and mutated car files', () => {
-    const text = fc.oneof(anyText, anyJson.map((value) => JSON.stringify(value)), carFile.map((car) => JSON.stringify(car)), mutatedCar, mutatedCar);
+    const text = fc.oneof(
+      anyText,
+      anyJson.map((value) => JSON.stringify(value)),
+      carFile.map((car) => JSON.stringify(car)),
+      mutatedCar,
+      mutatedCar,
+    );
     let carsRead = 0;
     fc.assert(
       fc.property(text, (input) => {

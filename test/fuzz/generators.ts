@@ -25,8 +25,33 @@ export function resultOrInputError<T>(read: () => T, source: string): T | null {
 
 /** A cell: a plain number, an odd number (exponents, signs, decimal comma, huge), a missing marker or text. */
 export const cell: fc.Arbitrary<string> = fc.oneof(
-  { weight: 6, arbitrary: fc.double({ min: -1e4, max: 1e4, noNaN: true }).map((v) => String(Math.round(v * 1000) / 1000)) },
-  { weight: 1, arbitrary: fc.constantFrom('', 'NaN', 'nan', 'inf', '-Infinity', '1e400', '-1e-400', '1,5', '"2,25"', 'abc', '--', 'null', '0x1F', '1.2.3', ' 7 ', '+.5', '1e308', '-0') },
+  {
+    weight: 6,
+    arbitrary: fc.double({ min: -1e4, max: 1e4, noNaN: true }).map((v) => String(Math.round(v * 1000) / 1000)),
+  },
+  {
+    weight: 1,
+    arbitrary: fc.constantFrom(
+      '',
+      'NaN',
+      'nan',
+      'inf',
+      '-Infinity',
+      '1e400',
+      '-1e-400',
+      '1,5',
+      '"2,25"',
+      'abc',
+      '--',
+      'null',
+      '0x1F',
+      '1.2.3',
+      ' 7 ',
+      '+.5',
+      '1e308',
+      '-0',
+    ),
+  },
   { weight: 1, arbitrary: fc.string({ maxLength: 6 }) },
 );
 
@@ -46,7 +71,11 @@ export function csvText(headers: fc.Arbitrary<string[]>): fc.Arbitrary<string> {
       truncate: fc.nat({ max: 40 }),
     })
     .map(({ headers: names, rows, separator: sep, lineEnd: end, bom, hash, truncate }) => {
-      const text = (bom ? '\uFEFF' : '') + (hash ? '# ' : '') + [names.join(sep), ...rows.map((row) => row.join(sep))].join(end) + end;
+      const text =
+        (bom ? '\uFEFF' : '') +
+        (hash ? '# ' : '') +
+        [names.join(sep), ...rows.map((row) => row.join(sep))].join(end) +
+        end;
       // Sometimes cut the file mid-line, as an interrupted logger does.
       return truncate > 30 ? text.slice(0, Math.max(0, text.length - (truncate - 30))) : text;
     });
@@ -65,13 +94,28 @@ export const anyText: fc.Arbitrary<string> = fc.oneof(
 );
 
 /** Any JSON value, and JSON with a few keys of the formats we read (so zod sees near misses). */
-export const anyJson: fc.Arbitrary<unknown> = fc.oneof(fc.jsonValue({ maxDepth: 3 }), fc.dictionary(fc.constantFrom('name', 'closed', 'segments', 'massKg', 'tyre', 'aero', 'powertrain', 'widthM', 'x'), fc.jsonValue({ maxDepth: 2 })));
+export const anyJson: fc.Arbitrary<unknown> = fc.oneof(
+  fc.jsonValue({ maxDepth: 3 }),
+  fc.dictionary(
+    fc.constantFrom('name', 'closed', 'segments', 'massKg', 'tyre', 'aero', 'powertrain', 'widthM', 'x'),
+    fc.jsonValue({ maxDepth: 2 }),
+  ),
+);
 
 /** A segment of any kind with values from sensible to absurd. */
 export const segment: fc.Arbitrary<TrackSegment> = fc.oneof(
   fc.record({ kind: fc.constant('straight' as const), lengthM: fc.double({ min: 1, max: 800, noNaN: true }) }),
-  fc.record({ kind: fc.constant('arc' as const), radiusM: fc.double({ min: 8, max: 600, noNaN: true }), angleDeg: fc.double({ min: -270, max: 270, noNaN: true }).filter((a) => Math.abs(a) > 1) }),
-  fc.record({ kind: fc.constant('transition' as const), lengthM: fc.double({ min: 1, max: 200, noNaN: true }), startCurvature: fc.double({ min: -0.1, max: 0.1, noNaN: true }), endCurvature: fc.double({ min: -0.1, max: 0.1, noNaN: true }) }),
+  fc.record({
+    kind: fc.constant('arc' as const),
+    radiusM: fc.double({ min: 8, max: 600, noNaN: true }),
+    angleDeg: fc.double({ min: -270, max: 270, noNaN: true }).filter((a) => Math.abs(a) > 1),
+  }),
+  fc.record({
+    kind: fc.constant('transition' as const),
+    lengthM: fc.double({ min: 1, max: 200, noNaN: true }),
+    startCurvature: fc.double({ min: -0.1, max: 0.1, noNaN: true }),
+    endCurvature: fc.double({ min: -0.1, max: 0.1, noNaN: true }),
+  }),
 );
 
 /**
@@ -91,14 +135,24 @@ export const closedCircuit: fc.Arbitrary<TrackSegment[]> = fc
     // Each clothoid turns k Lt / 2; together they take transitionShare of the 90 degrees.
     const transitionM = (transitionShare * (Math.PI / 2)) / k;
     const arcDeg = 90 * (1 - transitionShare);
-    const corner: TrackSegment[] = transitionM > 0.5
-      ? [
-          { kind: 'transition', lengthM: transitionM, startCurvature: 0, endCurvature: k },
-          { kind: 'arc', radiusM, angleDeg: arcDeg },
-          { kind: 'transition', lengthM: transitionM, startCurvature: k, endCurvature: 0 },
-        ]
-      : [{ kind: 'arc', radiusM, angleDeg: 90 }];
-    return [{ kind: 'straight', lengthM: a }, ...corner, { kind: 'straight', lengthM: b }, ...corner, { kind: 'straight', lengthM: a }, ...corner, { kind: 'straight', lengthM: b }, ...corner];
+    const corner: TrackSegment[] =
+      transitionM > 0.5
+        ? [
+            { kind: 'transition', lengthM: transitionM, startCurvature: 0, endCurvature: k },
+            { kind: 'arc', radiusM, angleDeg: arcDeg },
+            { kind: 'transition', lengthM: transitionM, startCurvature: k, endCurvature: 0 },
+          ]
+        : [{ kind: 'arc', radiusM, angleDeg: 90 }];
+    return [
+      { kind: 'straight', lengthM: a },
+      ...corner,
+      { kind: 'straight', lengthM: b },
+      ...corner,
+      { kind: 'straight', lengthM: a },
+      ...corner,
+      { kind: 'straight', lengthM: b },
+      ...corner,
+    ];
   });
 
 /** A car file (JSON value) within the reader's limits: point-mass, with or without gears, downforce, brake cap. */
@@ -116,7 +170,9 @@ export const carFile: fc.Arbitrary<Record<string, unknown>> = fc
     rollingResistanceCoeff: fc.double({ min: 0, max: 0.05, noNaN: true }),
     maxDecelG: fc.option(fc.double({ min: 0.3, max: 4, noNaN: true }), { nil: undefined }),
     fuelKg: fc.double({ min: 0, max: 120, noNaN: true }),
-    gears: fc.option(fc.array(fc.double({ min: 0.6, max: 4, noNaN: true }), { minLength: 1, maxLength: 7 }), { nil: undefined }),
+    gears: fc.option(fc.array(fc.double({ min: 0.6, max: 4, noNaN: true }), { minLength: 1, maxLength: 7 }), {
+      nil: undefined,
+    }),
   })
   .map((v) => {
     const powertrain: Record<string, unknown> = { maxPowerW: v.maxPowerW, drive: v.drive };
@@ -143,16 +199,25 @@ export const carFile: fc.Arbitrary<Record<string, unknown>> = fc
 export const nmeaLine: fc.Arbitrary<string> = fc
   .record({
     talker: fc.constantFrom('GP', 'GN', 'GL'),
-    kind: fc.oneof({ weight: 6, arbitrary: fc.constantFrom('RMC', 'GGA') }, { weight: 1, arbitrary: fc.constantFrom('GSV', 'VTG') }),
+    kind: fc.oneof(
+      { weight: 6, arbitrary: fc.constantFrom('RMC', 'GGA') },
+      { weight: 1, arbitrary: fc.constantFrom('GSV', 'VTG') },
+    ),
     second: fc.nat({ max: 86399 }),
     fraction: fc.constantFrom('', '.00', '.5', '.25'),
     lat: fc.double({ min: 0, max: 89.9, noNaN: true }),
     lon: fc.double({ min: 0, max: 179.9, noNaN: true }),
-    ns: fc.oneof({ weight: 9, arbitrary: fc.constantFrom('N', 'S') }, { weight: 1, arbitrary: fc.constantFrom('X', '') }),
+    ns: fc.oneof(
+      { weight: 9, arbitrary: fc.constantFrom('N', 'S') },
+      { weight: 1, arbitrary: fc.constantFrom('X', '') },
+    ),
     ew: fc.oneof({ weight: 9, arbitrary: fc.constantFrom('E', 'W') }, { weight: 1, arbitrary: fc.constant('') }),
     knots: fc.constantFrom('', '0.0', '12.5', '88.2', 'x'),
     status: fc.oneof({ weight: 9, arbitrary: fc.constant('A') }, { weight: 1, arbitrary: fc.constant('V') }),
-    checksum: fc.oneof({ weight: 7, arbitrary: fc.constant('right') }, { weight: 1, arbitrary: fc.constantFrom('wrong', 'none', 'garbled') }),
+    checksum: fc.oneof(
+      { weight: 7, arbitrary: fc.constant('right') },
+      { weight: 1, arbitrary: fc.constantFrom('wrong', 'none', 'garbled') },
+    ),
     garbage: fc.option(fc.string({ maxLength: 8 }), { nil: undefined, freq: 8 }),
   })
   .map((v) => {
@@ -160,18 +225,41 @@ export const nmeaLine: fc.Arbitrary<string> = fc
     const mm = String(Math.floor((v.second % 3600) / 60)).padStart(2, '0');
     const ss = String(v.second % 60).padStart(2, '0');
     const time = `${hh}${mm}${ss}${v.fraction}`;
-    const angle = (deg: number, digits: number) => `${String(Math.floor(deg)).padStart(digits, '0')}${((deg % 1) * 60).toFixed(4).padStart(7, '0')}`;
+    const angle = (deg: number, digits: number) =>
+      `${String(Math.floor(deg)).padStart(digits, '0')}${((deg % 1) * 60).toFixed(4).padStart(7, '0')}`;
     const lat = angle(v.lat, 2);
     const lon = angle(v.lon, 3);
     const fields =
       v.kind === 'RMC'
         ? [`${v.talker}RMC`, time, v.status, lat, v.ns, lon, v.ew, v.knots, '0.0', '150626', '', '']
-        : [`${v.talker}${v.kind}`, time, lat, v.ns, lon, v.ew, v.status === 'A' ? '1' : '0', '08', '0.9', '100.0', 'M', '', 'M', '', ''];
+        : [
+            `${v.talker}${v.kind}`,
+            time,
+            lat,
+            v.ns,
+            lon,
+            v.ew,
+            v.status === 'A' ? '1' : '0',
+            '08',
+            '0.9',
+            '100.0',
+            'M',
+            '',
+            'M',
+            '',
+            '',
+          ];
     let body = fields.join(',');
     if (v.garbage !== undefined) body += v.garbage;
     const sum = nmeaChecksum(body);
     const star =
-      v.checksum === 'right' ? `*${sum.toString(16).toUpperCase().padStart(2, '0')}` : v.checksum === 'wrong' ? `*${((sum + 1) & 255).toString(16).toUpperCase().padStart(2, '0')}` : v.checksum === 'garbled' ? '*ZZ' : '';
+      v.checksum === 'right'
+        ? `*${sum.toString(16).toUpperCase().padStart(2, '0')}`
+        : v.checksum === 'wrong'
+          ? `*${((sum + 1) & 255).toString(16).toUpperCase().padStart(2, '0')}`
+          : v.checksum === 'garbled'
+            ? '*ZZ'
+            : '';
     return `$${body}${star}`;
   });
 
@@ -180,8 +268,20 @@ export const gpxText: fc.Arbitrary<string> = fc
   .record({
     points: fc.array(
       fc.record({
-        lat: fc.oneof({ weight: 9, arbitrary: fc.double({ min: 47, max: 47.01, noNaN: true }).map(String) }, { weight: 1, arbitrary: fc.oneof(fc.double({ min: -95, max: 95, noNaN: true }).map(String), fc.constantFrom('', 'x')) }),
-        lon: fc.oneof({ weight: 9, arbitrary: fc.double({ min: 8, max: 8.01, noNaN: true }).map(String) }, { weight: 1, arbitrary: fc.oneof(fc.double({ min: -185, max: 185, noNaN: true }).map(String), fc.constantFrom('', 'y')) }),
+        lat: fc.oneof(
+          { weight: 9, arbitrary: fc.double({ min: 47, max: 47.01, noNaN: true }).map(String) },
+          {
+            weight: 1,
+            arbitrary: fc.oneof(fc.double({ min: -95, max: 95, noNaN: true }).map(String), fc.constantFrom('', 'x')),
+          },
+        ),
+        lon: fc.oneof(
+          { weight: 9, arbitrary: fc.double({ min: 8, max: 8.01, noNaN: true }).map(String) },
+          {
+            weight: 1,
+            arbitrary: fc.oneof(fc.double({ min: -185, max: 185, noNaN: true }).map(String), fc.constantFrom('', 'y')),
+          },
+        ),
         second: fc.option(fc.nat({ max: 5000 }), { nil: undefined, freq: 12 }),
         speed: fc.option(fc.double({ min: 0, max: 90, noNaN: true }), { nil: undefined }),
       }),
@@ -195,7 +295,10 @@ export const gpxText: fc.Arbitrary<string> = fc
     if (sorted) points.sort((p, q) => (p.second ?? 0) - (q.second ?? 0));
     const body = points
       .map((p) => {
-        const time = p.second === undefined ? '' : `<time>${new Date(Date.UTC(2026, 5, 15, 10, 0, p.second)).toISOString()}</time>`;
+        const time =
+          p.second === undefined
+            ? ''
+            : `<time>${new Date(Date.UTC(2026, 5, 15, 10, 0, p.second)).toISOString()}</time>`;
         const speed = p.speed === undefined ? '' : `<extensions><speed>${p.speed}</speed></extensions>`;
         return `<trkpt lat="${p.lat}" lon="${p.lon}">${time}${speed}</trkpt>`;
       })
@@ -211,5 +314,8 @@ export const gpxText: fc.Arbitrary<string> = fc
 export function runs(numRuns: number, seed: number): fc.Parameters<unknown> {
   const scale = Number(process.env['FUZZ_RUNS_SCALE'] ?? 1);
   const chosen = process.env['FUZZ_SEED'];
-  return { numRuns: Math.max(1, Math.round(numRuns * scale)), seed: chosen !== undefined ? Number(chosen) + seed : seed };
+  return {
+    numRuns: Math.max(1, Math.round(numRuns * scale)),
+    seed: chosen !== undefined ? Number(chosen) + seed : seed,
+  };
 }

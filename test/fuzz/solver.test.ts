@@ -32,15 +32,18 @@ export function expectSoundLap(lap: LapResult): void {
   const { trace } = lap;
   expect(Number.isFinite(lap.lapTimeS) && lap.lapTimeS > 0).toBe(true);
   for (let i = 1; i < trace.count; i++) {
-    if (!(trace.timeS[i]! > trace.timeS[i - 1]!)) throw new Error(`time not increasing at sample ${i}: ${trace.timeS[i - 1]} then ${trace.timeS[i]}`);
+    if (!(trace.timeS[i]! > trace.timeS[i - 1]!))
+      throw new Error(`time not increasing at sample ${i}: ${trace.timeS[i - 1]} then ${trace.timeS[i]}`);
   }
   for (let i = 0; i < trace.count; i++) {
     const speed = trace.speedMps[i]!;
     if (!(Number.isFinite(speed) && speed >= 0)) throw new Error(`speed ${speed} at sample ${i}`);
-    if (!(speed <= trace.cornerLimitMps[i]!)) throw new Error(`speed ${speed} above the corner limit ${trace.cornerLimitMps[i]} at sample ${i}`);
+    if (!(speed <= trace.cornerLimitMps[i]!))
+      throw new Error(`speed ${speed} above the corner limit ${trace.cornerLimitMps[i]} at sample ${i}`);
   }
   for (const zone of lap.brakingZones) {
-    if (!(zone.startM >= 0 && zone.startM < lap.lengthM)) throw new Error(`braking zone starts at ${zone.startM} m on a lap of ${lap.lengthM} m`);
+    if (!(zone.startM >= 0 && zone.startM < lap.lengthM))
+      throw new Error(`braking zone starts at ${zone.startM} m on a lap of ${lap.lengthM} m`);
   }
 }
 
@@ -55,7 +58,9 @@ export function expectInsideEnvelope(lap: LapResult, envelope: Envelope): void {
     const limit = ax >= 0 ? envelope.accelLimitMps2(speed, ay) : envelope.brakeLimitMps2(speed, ay);
     const excess = Math.abs(ax) - limit;
     if (ax !== 0 && excess > ACCEL_TOLERANCE_MPS2) {
-      throw new Error(`sample ${i} (${trace.distanceM[i]!.toFixed(1)} m, ${speed.toFixed(2)} m/s): ax ${ax.toFixed(3)} m/s^2 beyond the ${ax >= 0 ? 'drive' : 'brake'} limit ${limit.toFixed(3)}`);
+      throw new Error(
+        `sample ${i} (${trace.distanceM[i]!.toFixed(1)} m, ${speed.toFixed(2)} m/s): ax ${ax.toFixed(3)} m/s^2 beyond the ${ax >= 0 ? 'drive' : 'brake'} limit ${limit.toFixed(3)}`,
+      );
     }
   }
 }
@@ -65,7 +70,10 @@ export function expectGripUseWithin(lap: LapResult): void {
   const { trace } = lap;
   const samples = trace.count;
   for (let i = 0; i < samples; i++) {
-    if (!(trace.gripUse[i]! <= 1 + GRIP_USE_TOLERANCE)) throw new Error(`grip use ${trace.gripUse[i]} at sample ${i} (${trace.distanceM[i]!.toFixed(1)} m, ${trace.speedMps[i]!.toFixed(2)} m/s)`);
+    if (!(trace.gripUse[i]! <= 1 + GRIP_USE_TOLERANCE))
+      throw new Error(
+        `grip use ${trace.gripUse[i]} at sample ${i} (${trace.distanceM[i]!.toFixed(1)} m, ${trace.speedMps[i]!.toFixed(2)} m/s)`,
+      );
   }
 }
 
@@ -73,14 +81,30 @@ const stepM = fc.constantFrom(0.5, 1, 2, 5);
 
 /** Specs, not grids, so a counterexample prints short; the grid is built inside the property. */
 const closedSpec = fc.record({ segments: closedCircuit, stepM });
-const openSpec = fc.record({ segments: fc.array(segment, { minLength: 1, maxLength: 6 }), stepM, startSpeedMps: fc.double({ min: 0, max: 90, noNaN: true }) });
+const openSpec = fc.record({
+  segments: fc.array(segment, { minLength: 1, maxLength: 6 }),
+  stepM,
+  startSpeedMps: fc.double({ min: 0, max: 90, noNaN: true }),
+});
 
 function closedTrack(spec: { segments: TrackSegment[]; stepM: number }): TrackGrid {
-  return trackFromSegments({ name: 'fuzzed circuit', closed: true, widthM: 10, segments: spec.segments }, spec.stepM, 'fuzzed circuit');
+  return trackFromSegments(
+    { name: 'fuzzed circuit', closed: true, widthM: 10, segments: spec.segments },
+    spec.stepM,
+    'fuzzed circuit',
+  );
 }
 
 function openTrack(spec: { segments: TrackSegment[]; stepM: number }): TrackGrid | null {
-  return resultOrInputError(() => trackFromSegments({ name: 'fuzzed stage', closed: false, widthM: null, segments: spec.segments }, spec.stepM, 'fuzzed stage'), 'fuzzed stage');
+  return resultOrInputError(
+    () =>
+      trackFromSegments(
+        { name: 'fuzzed stage', closed: false, widthM: null, segments: spec.segments },
+        spec.stepM,
+        'fuzzed stage',
+      ),
+    'fuzzed stage',
+  );
 }
 
 const toCar = (file: Record<string, unknown>): Car => parseCarJson(JSON.stringify(file), 'fuzzed car');
@@ -122,8 +146,17 @@ describe('solver fuzz', () => {
   // so the lap did not join: the first step showed an acceleration far beyond the envelope.
   it('regression: a closed lap whose slowest corner limit is out of reach joins without a jump in speed', () => {
     // Shrunk by fast-check from a fuzzed case: a 5 kW, 150 kg car on a small rounded square, 0.5 m grid.
-    const car = toCar({ name: 'slow car', massKg: 150, tyre: { muLong: 0.3, muLat: 0.672, ggExponent: 1 }, aero: { dragAreaM2: 2, liftAreaM2: 0 }, powertrain: { maxPowerW: 5000, drive: 'rear' } });
-    const corner: TrackSegment[] = [{ kind: 'straight', lengthM: 5 }, { kind: 'arc', radiusM: 10, angleDeg: 90 }];
+    const car = toCar({
+      name: 'slow car',
+      massKg: 150,
+      tyre: { muLong: 0.3, muLat: 0.672, ggExponent: 1 },
+      aero: { dragAreaM2: 2, liftAreaM2: 0 },
+      powertrain: { maxPowerW: 5000, drive: 'rear' },
+    });
+    const corner: TrackSegment[] = [
+      { kind: 'straight', lengthM: 5 },
+      { kind: 'arc', radiusM: 10, angleDeg: 90 },
+    ];
     const track = closedTrack({ segments: [...corner, ...corner, ...corner, ...corner], stepM: 0.5 });
     const envelope = buildEnvelope(car, ambientFrom());
     expectInsideEnvelope(simulate(track, car, { envelope }), envelope);

@@ -25,9 +25,11 @@ function expectSoundGrid(track: TrackGrid): void {
     expect(channel.length).toBe(n);
     for (let i = 0; i < n; i++) if (!Number.isFinite(channel[i]!)) throw new Error(`non-finite value at sample ${i}`);
   }
-  for (let i = 1; i < n; i++) if (!(track.distanceM[i]! > track.distanceM[i - 1]!)) throw new Error(`distance not increasing at sample ${i}`);
+  for (let i = 1; i < n; i++)
+    if (!(track.distanceM[i]! > track.distanceM[i - 1]!)) throw new Error(`distance not increasing at sample ${i}`);
   for (const width of [track.widthLeftM, track.widthRightM]) {
-    if (width) for (let i = 0; i < n; i++) if (!(width[i]! >= 0)) throw new Error(`bad width at sample ${i}: ${width[i]}`);
+    if (width)
+      for (let i = 0; i < n; i++) if (!(width[i]! >= 0)) throw new Error(`bad width at sample ${i}: ${width[i]}`);
   }
 }
 
@@ -55,13 +57,17 @@ const centreline = fc
   })
   .map(({ count, radiusM, aspect, sweep, noise, widths, seed }) => {
     let state = seed || 1;
-    const random = () => ((state = (state * 16807) % 2147483647) / 2147483647) - 0.5;
+    const random = () => (state = (state * 16807) % 2147483647) / 2147483647 - 0.5;
     const lines = [widths ? 'x_m,y_m,width_left_m,width_right_m' : 'x_m,y_m'];
     for (let i = 0; i < count; i++) {
       const angle = (2 * Math.PI * sweep * i) / count;
       const x = radiusM * (Math.cos(angle) + noise * random());
       const y = aspect * radiusM * (Math.sin(angle) + noise * random());
-      lines.push(widths ? `${x.toFixed(3)},${y.toFixed(3)},${(4 + random()).toFixed(2)},${(4 + random()).toFixed(2)}` : `${x.toFixed(3)},${y.toFixed(3)}`);
+      lines.push(
+        widths
+          ? `${x.toFixed(3)},${y.toFixed(3)},${(4 + random()).toFixed(2)},${(4 + random()).toFixed(2)}`
+          : `${x.toFixed(3)},${y.toFixed(3)}`,
+      );
     }
     return lines.join('\n') + '\n';
   });
@@ -71,16 +77,24 @@ const extremeCentreline = fc
   .record({ scale: fc.constantFrom(1e-6, 1e-3, 1e7, 1e12, 1e200, 1e307), count: fc.integer({ min: 4, max: 12 }) })
   .map(({ scale, count }) => {
     const lines = ['x_m,y_m'];
-    for (let i = 0; i < count; i++) lines.push(`${scale * Math.cos((2 * Math.PI * i) / count)},${scale * Math.sin((2 * Math.PI * i) / count)}`);
+    for (let i = 0; i < count; i++)
+      lines.push(`${scale * Math.cos((2 * Math.PI * i) / count)},${scale * Math.sin((2 * Math.PI * i) / count)}`);
     return lines.join('\n') + '\n';
   });
 
-const trackHeaders = fc.array(fc.constantFrom('x_m', 'y_m', 'width_left_m', 'width_right_m', 'z_m', 'x', ''), { minLength: 0, maxLength: 5 });
+const trackHeaders = fc.array(fc.constantFrom('x_m', 'y_m', 'width_left_m', 'width_right_m', 'z_m', 'x', ''), {
+  minLength: 0,
+  maxLength: 5,
+});
 
 describe('track reader fuzz', () => {
   it('centreline CSV: any text, CSV-like text, plausible and absurd centrelines', () => {
     fc.assert(
-      fc.property(fc.oneof(anyText, csvText(trackHeaders), centreline, centreline, extremeCentreline), options, (text, readOptions) => check(text, 'fuzz-track.csv', readOptions)),
+      fc.property(
+        fc.oneof(anyText, csvText(trackHeaders), centreline, centreline, extremeCentreline),
+        options,
+        (text, readOptions) => check(text, 'fuzz-track.csv', readOptions),
+      ),
       runs(700, 20260615),
     );
     expect(gridsRead.get('fuzz-track.csv')).toBeGreaterThan(100);
@@ -89,7 +103,14 @@ describe('track reader fuzz', () => {
   it('segment JSON: any JSON, random segment lists, circuits that close', () => {
     const spec = fc.oneof(
       anyJson.map((value) => JSON.stringify(value)),
-      fc.record({ name: fc.constant('fuzzed'), closed: fc.boolean(), widthM: fc.option(fc.double({ min: -1, max: 20, noNaN: true }), { nil: undefined }), segments: fc.array(segment, { minLength: 0, maxLength: 8 }) }).map((value) => JSON.stringify(value)),
+      fc
+        .record({
+          name: fc.constant('fuzzed'),
+          closed: fc.boolean(),
+          widthM: fc.option(fc.double({ min: -1, max: 20, noNaN: true }), { nil: undefined }),
+          segments: fc.array(segment, { minLength: 0, maxLength: 8 }),
+        })
+        .map((value) => JSON.stringify(value)),
       closedCircuit.map((segments) => JSON.stringify({ name: 'fuzzed circuit', closed: true, widthM: 10, segments })),
       anyText,
     );

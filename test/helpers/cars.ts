@@ -2,18 +2,20 @@
 
 import type { Car } from '../../src/car/types.js';
 
-export function testCar(overrides: {
-  massKg?: number;
-  mu?: number;
-  muLong?: number;
-  muLat?: number;
-  dragAreaM2?: number;
-  liftAreaM2?: number;
-  maxPowerW?: number;
-  rollingResistanceCoeff?: number;
-  drive?: Car['powertrain']['drive'];
-  ggExponent?: number;
-} = {}): Car {
+export function testCar(
+  overrides: {
+    massKg?: number;
+    mu?: number;
+    muLong?: number;
+    muLat?: number;
+    dragAreaM2?: number;
+    liftAreaM2?: number;
+    maxPowerW?: number;
+    rollingResistanceCoeff?: number;
+    drive?: Car['powertrain']['drive'];
+    ggExponent?: number;
+  } = {},
+): Car {
   const mu = overrides.mu ?? 1.2;
   return {
     name: 'test car',
@@ -35,7 +37,11 @@ export function testCar(overrides: {
       corneringStiffnessFrontNPerRad: null,
       corneringStiffnessRearNPerRad: null,
     },
-    aero: { dragAreaM2: overrides.dragAreaM2 ?? 0, liftAreaM2: overrides.liftAreaM2 ?? 0, frontDownforceFraction: null },
+    aero: {
+      dragAreaM2: overrides.dragAreaM2 ?? 0,
+      liftAreaM2: overrides.liftAreaM2 ?? 0,
+      frontDownforceFraction: null,
+    },
     powertrain: { maxPowerW: overrides.maxPowerW ?? 1e9, drive: overrides.drive ?? 'all', gearing: null },
     brakes: { maxDecelG: null, frontBias: null },
     fuel: { massKg: 0, burnKgPerLap: 0 },

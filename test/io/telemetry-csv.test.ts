@@ -27,9 +27,19 @@ const rows = [
   [0.4, 8.2, 19.75, 0.0, 1.0, -12.5, 0.0],
 ];
 
-function table(delimiter: string, header: string[], format: (value: number) => string, quote = false, lineEnd = '\n'): string {
+function table(
+  delimiter: string,
+  header: string[],
+  format: (value: number) => string,
+  quote = false,
+  lineEnd = '\n',
+): string {
   const q = (text: string) => (quote ? `"${text}"` : text);
-  return [header.map(q).join(delimiter), ...rows.map((row) => row.map((value) => q(format(value))).join(delimiter))].join(lineEnd) + lineEnd;
+  return (
+    [header.map(q).join(delimiter), ...rows.map((row) => row.map((value) => q(format(value))).join(delimiter))].join(
+      lineEnd,
+    ) + lineEnd
+  );
 }
 
 const siHeader = ['time_s', 'distance_m', 'speed_mps', 'throttle', 'brake', 'ax_mps2', 'ay_mps2'];
@@ -74,14 +84,30 @@ describe('CSV dialects', () => {
   });
 
   it('converts km/h, percent and g (1 g = 9.80665 m/s^2, CGPM 1901; 1 km/h = 1/3.6 m/s)', () => {
-    const header = ['Time [s]', 'Distance (m)', 'Speed [km/h]', 'Throttle %', 'brake_pct', 'ax_g', 'Lateral Acceleration [g]'];
-    const text = [header.join(','), ...rows.map((row) => [row[0], row[1], row[2]! * 3.6, row[3]! * 100, row[4]! * 100, row[5]! / 9.80665, row[6]! / 9.80665].join(','))].join('\n');
+    const header = [
+      'Time [s]',
+      'Distance (m)',
+      'Speed [km/h]',
+      'Throttle %',
+      'brake_pct',
+      'ax_g',
+      'Lateral Acceleration [g]',
+    ];
+    const text = [
+      header.join(','),
+      ...rows.map((row) =>
+        [row[0], row[1], row[2]! * 3.6, row[3]! * 100, row[4]! * 100, row[5]! / 9.80665, row[6]! / 9.80665].join(','),
+      ),
+    ].join('\n');
     expectClose(channels(parseTelemetryText(text, 'units.csv', none)), reference);
   });
 
   it('decides throttle % vs 0-1 and g vs m/s^2 from the data when the header has no unit, and says so', () => {
     const header = ['t', 'dist', 'speed_mps', 'tps', 'brake', 'ax', 'ay'];
-    const text = [header.join(','), ...rows.map((row) => [row[0], row[1], row[2], row[3]! * 100, row[4], row[5], row[6]].join(','))].join('\n');
+    const text = [
+      header.join(','),
+      ...rows.map((row) => [row[0], row[1], row[2], row[3]! * 100, row[4], row[5], row[6]].join(',')),
+    ].join('\n');
     const session = parseTelemetryText(text, 'guess.csv', none);
     expectClose(channels(session), reference);
     expect(session.notes).toContain('column tps: no unit in the header; read as percent from its range');
@@ -98,7 +124,15 @@ describe('CSV dialects', () => {
   it('follows a --telemetry-columns mapping for headers of its own', () => {
     const header = ['Zeit', 'Weg', 'Tempo', 'Gas', 'Bremse', 'Laengs', 'Quer'];
     const text = table(',', header, plain);
-    const mapping = { time_s: 'Zeit', distance_m: 'Weg', speed_mps: 'Tempo', throttle: 'Gas', brake: 'Bremse', ax_mps2: 'Laengs', ay_mps2: 'Quer' };
+    const mapping = {
+      time_s: 'Zeit',
+      distance_m: 'Weg',
+      speed_mps: 'Tempo',
+      throttle: 'Gas',
+      brake: 'Bremse',
+      ax_mps2: 'Laengs',
+      ay_mps2: 'Quer',
+    };
     expectClose(channels(parseTelemetryText(text, 'mapped.csv', { columns: mapping })), reference);
   });
 
@@ -115,12 +149,37 @@ describe('CSV bad input', () => {
     ['empty file', '', {}, /empty\.csv: empty file/],
     ['header only', 'time_s,speed_kph\n', {}, /header only, no data rows \(header: time_s, speed_kph\)/],
     ['no time column', 'speed_kph,throttle\n100,1\n101,1\n', {}, /no time column \(found: speed_kph, throttle\)/],
-    ['text in a numeric column', 'time_s,speed_kph\n0,100\n0.1,fast\n', {}, /line 3, column speed_kph: 'fast' is not a number/],
-    ['text after a blank line (line numbers stay exact)', 'time_s,speed_kph\n0,100\n\n0.1,fast\n', {}, /line 4, column speed_kph: 'fast' is not a number/],
-    ['time running backwards', 'time_s,speed_kph\n0,100\n0.2,100\n0.1,100\n', {}, /line 4, column time_s: time runs backwards/],
-    ['a mapping to a missing header', 'time_s,v\n0,1\n1,2\n', { speed_kph: 'Speed' }, /no column 'Speed' in the header \(found: time_s, v\)/],
+    [
+      'text in a numeric column',
+      'time_s,speed_kph\n0,100\n0.1,fast\n',
+      {},
+      /line 3, column speed_kph: 'fast' is not a number/,
+    ],
+    [
+      'text after a blank line (line numbers stay exact)',
+      'time_s,speed_kph\n0,100\n\n0.1,fast\n',
+      {},
+      /line 4, column speed_kph: 'fast' is not a number/,
+    ],
+    [
+      'time running backwards',
+      'time_s,speed_kph\n0,100\n0.2,100\n0.1,100\n',
+      {},
+      /line 4, column time_s: time runs backwards/,
+    ],
+    [
+      'a mapping to a missing header',
+      'time_s,v\n0,1\n1,2\n',
+      { speed_kph: 'Speed' },
+      /no column 'Speed' in the header \(found: time_s, v\)/,
+    ],
     ['an unknown canonical name', 'time_s,v\n0,1\n1,2\n', { velocity: 'v' }, /unknown channel name 'velocity'/],
-    ['nothing to place the samples', 'time_s,rpm\n0,5000\n1,5100\n', {}, /no position, distance or speed column \(found: time_s, rpm\)/],
+    [
+      'nothing to place the samples',
+      'time_s,rpm\n0,5000\n1,5100\n',
+      {},
+      /no position, distance or speed column \(found: time_s, rpm\)/,
+    ],
   ];
   it.each(cases)('%s', (_, text, columns, message) => {
     const name = _ === 'empty file' ? 'empty.csv' : 'bad.csv';
@@ -146,7 +205,8 @@ describe('simulate trace as telemetry (round trip)', () => {
     const { lap, notes } = selectLap(session, track);
     expect(Math.abs(lap.lapTimeS - result.lapTimeS)).toBeLessThan(0.02);
     let worst = 0;
-    for (let j = 0; j < track.distanceM.length; j++) worst = Math.max(worst, Math.abs(lap.timeS[j]! - result.trace.timeS[j]!));
+    for (let j = 0; j < track.distanceM.length; j++)
+      worst = Math.max(worst, Math.abs(lap.timeS[j]! - result.trace.timeS[j]!));
     expect(worst).toBeLessThan(0.005);
     expect(lap.derivedChannels).toEqual([]);
     expect(notes.some((note) => /lap 1 chosen/.test(note))).toBe(true);

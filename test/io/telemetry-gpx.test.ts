@@ -36,12 +36,17 @@ describe('GPX 1.1', () => {
   it('refuses a .gpx that is not XML in one line naming the file', async () => {
     const read = readTelemetryFile(path.join(fixtures, 'broken.gpx'), { columns: {} });
     await expect(read).rejects.toThrow(InputError);
-    await expect(readTelemetryFile(path.join(fixtures, 'broken.gpx'), { columns: {} })).rejects.toThrow(/broken\.gpx: not a GPX file \(not valid XML/);
+    await expect(readTelemetryFile(path.join(fixtures, 'broken.gpx'), { columns: {} })).rejects.toThrow(
+      /broken\.gpx: not a GPX file \(not valid XML/,
+    );
   });
 
   it('refuses track points without time', () => {
-    const text = '<?xml version="1.0"?><gpx version="1.1"><trk><trkseg><trkpt lat="1" lon="2"/><trkpt lat="1.0001" lon="2"/></trkseg></trk></gpx>';
-    expect(() => parseTelemetryText(text, 'notime.gpx', { columns: {} })).toThrow(/notime\.gpx: track point 1: no readable <time>/);
+    const text =
+      '<?xml version="1.0"?><gpx version="1.1"><trk><trkseg><trkpt lat="1" lon="2"/><trkpt lat="1.0001" lon="2"/></trkseg></trk></gpx>';
+    expect(() => parseTelemetryText(text, 'notime.gpx', { columns: {} })).toThrow(
+      /notime\.gpx: track point 1: no readable <time>/,
+    );
   });
 });
 
@@ -63,13 +68,13 @@ describe('local plane on WGS 84', () => {
     expect(out[0]! * 100).toBeCloseTo((2 * Math.PI * 6378137) / 360, 0);
   });
 
-  it('moves points between two origins\' planes: the second origin lands on (0, 0)', () => {
+  it("moves points between two origins' planes: the second origin lands on (0, 0)", () => {
     const from = { latDeg: 47.2, lonDeg: 8.1 };
     const to = { latDeg: 47.201, lonDeg: 8.102 };
     // East/north of `to` in the plane about `from`, by the small-area rule with WGS 84 radii (written in the test).
     const { meridianM, primeM } = wgs84Radii(from.latDeg);
-    const east = ((to.lonDeg - from.lonDeg) * Math.PI) / 180 * primeM * Math.cos((from.latDeg * Math.PI) / 180);
-    const north = ((to.latDeg - from.latDeg) * Math.PI) / 180 * meridianM;
+    const east = (((to.lonDeg - from.lonDeg) * Math.PI) / 180) * primeM * Math.cos((from.latDeg * Math.PI) / 180);
+    const north = (((to.latDeg - from.latDeg) * Math.PI) / 180) * meridianM;
     const moved = reprojectPlane(Float64Array.of(east), Float64Array.of(north), from, to);
     expect(Math.abs(moved.xM[0]!)).toBeLessThan(0.01);
     expect(Math.abs(moved.yM[0]!)).toBeLessThan(0.01);

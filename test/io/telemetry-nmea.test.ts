@@ -22,7 +22,10 @@ function nmeaAngle(deg: number, degreeDigits: number, positive: string, negative
   const a = Math.abs(deg);
   const d = Math.floor(a);
   const minutes = (a - d) * 60;
-  return [`${String(d).padStart(degreeDigits, '0')}${minutes.toFixed(5).padStart(8, '0')}`, deg >= 0 ? positive : negative];
+  return [
+    `${String(d).padStart(degreeDigits, '0')}${minutes.toFixed(5).padStart(8, '0')}`,
+    deg >= 0 ? positive : negative,
+  ];
 }
 
 function hhmmss(secondOfDay: number): string {
@@ -63,11 +66,16 @@ describe('NMEA 0183', () => {
   it('skips and counts sentences with a wrong checksum, ignores fixes without a fix, any talker id', () => {
     const good1 = sentence('GNRMC,100000.00,A,4807.000,N,01131.000,E,010.0,000.0,010125,,,A');
     const bad = `$GNRMC,100000.10,A,4807.001,N,01131.000,E,010.0,000.0,010125,,,A*${xor('GNRMC,100000.10,A,4807.001,N,01131.000,E,010.0,000.0,010125,,,A') === '00' ? '01' : '00'}`;
-    const corrupted = sentence('GLGGA,100000.20,4807.002,N,01131.000,E,1,08,0.9,545.4,M,46.9,M,,').replace('4807.002', '4807.003');
+    const corrupted = sentence('GLGGA,100000.20,4807.002,N,01131.000,E,1,08,0.9,545.4,M,46.9,M,,').replace(
+      '4807.002',
+      '4807.003',
+    );
     const noFix = sentence('GPGGA,100000.30,4807.003,N,01131.000,E,0,00,99.9,,M,,M,,');
     const void_ = sentence('GPRMC,100000.30,V,,,,,,,010125,,,N');
     const good2 = sentence('GPGGA,100000.40,4807.004,N,01131.000,E,1,08,0.9,545.4,M,46.9,M,,');
-    const session = parseTelemetryText([good1, bad, corrupted, noFix, void_, good2].join('\n'), 'log.nmea', { columns: {} });
+    const session = parseTelemetryText([good1, bad, corrupted, noFix, void_, good2].join('\n'), 'log.nmea', {
+      columns: {},
+    });
     expect(session.count).toBe(2);
     expect(session.notes).toContain('skipped 2 sentences with bad checksums');
     expect(session.notes).toContain('ignored 2 sentences without a GPS fix');
@@ -77,7 +85,9 @@ describe('NMEA 0183', () => {
   it('names the line where time runs backwards, and refuses a file with no fix', () => {
     const a = sentence('GPGGA,100001.00,4807.000,N,01131.000,E,1,08,0.9,545.4,M,46.9,M,,');
     const b = sentence('GPGGA,100000.00,4807.001,N,01131.000,E,1,08,0.9,545.4,M,46.9,M,,');
-    expect(() => parseTelemetryText(`${a}\n${b}\n`, 'back.nmea', { columns: {} })).toThrow(/back\.nmea: line 2: time 100000\.00 runs backwards/);
+    expect(() => parseTelemetryText(`${a}\n${b}\n`, 'back.nmea', { columns: {} })).toThrow(
+      /back\.nmea: line 2: time 100000\.00 runs backwards/,
+    );
     const none = sentence('GPGGA,100000.30,4807.003,N,01131.000,E,0,00,99.9,,M,,M,,');
     expect(() => parseTelemetryText(none, 'nofix.nmea', { columns: {} })).toThrow(InputError);
   });

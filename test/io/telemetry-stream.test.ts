@@ -8,7 +8,13 @@ import os from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
-import { CHUNK_ROWS, readTelemetryFile, streamTelemetryCsv, type TelemetryChannel, type TelemetryChunk } from '../../src/io/telemetry/read-telemetry.js';
+import {
+  CHUNK_ROWS,
+  readTelemetryFile,
+  streamTelemetryCsv,
+  type TelemetryChannel,
+  type TelemetryChunk,
+} from '../../src/io/telemetry/read-telemetry.js';
 import type { TelemetrySession } from '../../src/compare/types.js';
 import { InputError } from '../../src/errors.js';
 import { sniffTelemetryFormat } from '../../src/io/telemetry/read-telemetry.js';
@@ -19,7 +25,20 @@ const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', '.
 const brokenDir = path.join(root, 'test', 'fixtures', 'broken');
 const none = { columns: {} };
 const folder = mkdtempSync(path.join(os.tmpdir(), 'reflap-stream-'));
-const FIELDS: TelemetryChannel[] = ['timeS', 'distanceM', 'speedMps', 'throttle', 'brake', 'axMps2', 'ayMps2', 'steeringDeg', 'gear', 'rpm', 'xM', 'yM'];
+const FIELDS: TelemetryChannel[] = [
+  'timeS',
+  'distanceM',
+  'speedMps',
+  'throttle',
+  'brake',
+  'axMps2',
+  'ayMps2',
+  'steeringDeg',
+  'gear',
+  'rpm',
+  'xM',
+  'yM',
+];
 
 interface Streamed {
   chunks: Array<{ firstRow: number; rows: number; buffer: ArrayBufferLike }>;
@@ -85,7 +104,15 @@ async function messageOf(promise: Promise<unknown>): Promise<string> {
 }
 
 describe('streamed reader on the fixtures', () => {
-  const readable = ['bom.csv', 'crlf.csv', 'decimal-commas.csv', 'duplicate-timestamps.csv', 'missing-cells.csv', 'quoted-separators.csv', 'truncated-last-line.csv'];
+  const readable = [
+    'bom.csv',
+    'crlf.csv',
+    'decimal-commas.csv',
+    'duplicate-timestamps.csv',
+    'missing-cells.csv',
+    'quoted-separators.csv',
+    'truncated-last-line.csv',
+  ];
   it.each(readable)('%s: the same channels and notes as the session reader', async (name) => {
     await expectSameAsSession(path.join(brokenDir, name));
   });
@@ -108,7 +135,11 @@ describe('streamed reader on the fixtures', () => {
 });
 
 /** A 10 Hz log of `rows` rows with positions on a circle; `cell` may blank or change cells. */
-function circleLog(rows: number, header: string[], cell: (row: number, column: string, value: string) => string): string {
+function circleLog(
+  rows: number,
+  header: string[],
+  cell: (row: number, column: string, value: string) => string,
+): string {
   const lines = [header.join(',')];
   for (let i = 0; i < rows; i++) {
     const t = i * 0.1;
@@ -136,19 +167,29 @@ function circleLog(rows: number, header: string[], cell: (row: number, column: s
 describe('streamed reader on generated logs of many chunks', () => {
   it('units in the header, gaps: chunks of at most CHUNK_ROWS in reused buffers, the same channels', async () => {
     const rows = 5 * CHUNK_ROWS + 123;
-    const file = write('units.csv', circleLog(rows, ['time_s', 'speed_kph', 'x_m', 'y_m', 'ay_g', 'rpm'], (i, column, value) => (column === 'rpm' && i % 97 === 5 ? '' : value)));
+    const file = write(
+      'units.csv',
+      circleLog(rows, ['time_s', 'speed_kph', 'x_m', 'y_m', 'ay_g', 'rpm'], (i, column, value) =>
+        column === 'rpm' && i % 97 === 5 ? '' : value,
+      ),
+    );
     const { streamed } = await expectSameAsSession(file);
     expect(streamed.chunks.length).toBe(6);
     // Chunks are views into a few reused buffers, not new arrays per row or per chunk.
     expect(new Set(streamed.chunks.map((chunk) => chunk.buffer)).size).toBeLessThanOrEqual(3);
     // 1 g = 9.80665 m/s^2 (CGPM 1901, standard gravity).
     expect(streamed.channels.ayMps2![0]).toBeCloseTo(1.2 * 9.80665, 12);
-    expect(streamed.summary.notes).toContain(`column rpm: ${Math.ceil((rows - 5) / 97)} empty cells filled by interpolation`);
+    expect(streamed.summary.notes).toContain(
+      `column rpm: ${Math.ceil((rows - 5) / 97)} empty cells filled by interpolation`,
+    );
   });
 
   it('units from the data (speed, throttle, acceleration): decided over the whole log, as the session reader does', async () => {
     const rows = 3 * CHUNK_ROWS + 7;
-    const file = write('no-units.csv', circleLog(rows, ['time_s', 'speed', 'x_m', 'y_m', 'throttle', 'ax'], (_, __, value) => value));
+    const file = write(
+      'no-units.csv',
+      circleLog(rows, ['time_s', 'speed', 'x_m', 'y_m', 'throttle', 'ax'], (_, __, value) => value),
+    );
     const { streamed } = await expectSameAsSession(file);
     expect(streamed.summary.notes).toEqual([
       'column speed: no unit in the header; read as km/h (it matches the distance travelled)',
@@ -161,7 +202,10 @@ describe('streamed reader on generated logs of many chunks', () => {
   });
 
   it('GPS latitude/longitude: the same plane and origin as the session reader', async () => {
-    const file = write('gps.csv', circleLog(2 * CHUNK_ROWS + 50, ['time_s', 'speed_kph', 'lat', 'lon'], (_, __, value) => value));
+    const file = write(
+      'gps.csv',
+      circleLog(2 * CHUNK_ROWS + 50, ['time_s', 'speed_kph', 'lat', 'lon'], (_, __, value) => value),
+    );
     const { session } = await expectSameAsSession(file);
     // The origin is the mean fix: the circle's centre, 47.1 N 8.2 E, to within a small fraction of its radius.
     expect(session.geoOrigin!.latDeg).toBeCloseTo(47.1, 3);
@@ -172,20 +216,36 @@ describe('streamed reader on generated logs of many chunks', () => {
     const rows = 20 * CHUNK_ROWS;
     const gapFrom = 1000;
     const gapTo = 18 * CHUNK_ROWS;
-    const file = write('long-gap.csv', circleLog(rows, ['time_s', 'speed_kph', 'x_m', 'y_m', 'rpm', 'spare'], (i, column, value) => (column === 'rpm' && i >= gapFrom && i < gapTo ? '' : value)));
+    const file = write(
+      'long-gap.csv',
+      circleLog(rows, ['time_s', 'speed_kph', 'x_m', 'y_m', 'rpm', 'spare'], (i, column, value) =>
+        column === 'rpm' && i >= gapFrom && i < gapTo ? '' : value,
+      ),
+    );
     const { streamed } = await expectSameAsSession(file);
     // 20 chunks go out through a handful of buffers: the gap did not hold the rows behind it.
     expect(new Set(streamed.chunks.map((chunk) => chunk.buffer)).size).toBeLessThanOrEqual(8);
-    expect(streamed.summary.notes).toEqual(['columns not used: spare', `column rpm: ${gapTo - gapFrom} empty cells filled by interpolation`]);
+    expect(streamed.summary.notes).toEqual([
+      'columns not used: spare',
+      `column rpm: ${gapTo - gapFrom} empty cells filled by interpolation`,
+    ]);
     // Linear interpolation in time across the gap (common practice): halfway in time, halfway in value.
     const before = streamed.channels.rpm![gapFrom - 1]!;
     const after = streamed.channels.rpm![gapTo]!;
     const middle = (gapFrom - 1 + gapTo) / 2;
-    expect(streamed.channels.rpm![Math.floor(middle)]!).toBeCloseTo(before + ((Math.floor(middle) - (gapFrom - 1)) / (gapTo - (gapFrom - 1))) * (after - before), 6);
+    expect(streamed.channels.rpm![Math.floor(middle)]!).toBeCloseTo(
+      before + ((Math.floor(middle) - (gapFrom - 1)) / (gapTo - (gapFrom - 1))) * (after - before),
+      6,
+    );
   });
 
   it('a column empty throughout is left out by both readers', async () => {
-    const file = write('empty-column.csv', 'time_s,speed_kph,rpm\n' + Array.from({ length: 20 * CHUNK_ROWS }, (_, i) => `${(i * 0.05).toFixed(2)},100,`).join('\n') + '\n');
+    const file = write(
+      'empty-column.csv',
+      'time_s,speed_kph,rpm\n' +
+        Array.from({ length: 20 * CHUNK_ROWS }, (_, i) => `${(i * 0.05).toFixed(2)},100,`).join('\n') +
+        '\n',
+    );
     const { streamed } = await expectSameAsSession(file);
     expect(streamed.summary.notes).toEqual(['column rpm is empty; left out']);
     expect(streamed.summary.channels).toEqual(['timeS', 'speedMps']);
@@ -196,11 +256,37 @@ describe('streamed reader errors name the same line as the session reader', () =
   const rows = 3 * CHUNK_ROWS;
   // Data row i is on line i + 2 (the header is line 1).
   const cases: Array<[string, (i: number, column: string, value: string) => string, string, string[]]> = [
-    ['text in a numeric column in the third chunk', (i, column, value) => (i === 2 * CHUNK_ROWS + 10 && column === 'speed_kph' ? 'fast' : value), `line ${2 * CHUNK_ROWS + 12}, column speed_kph: 'fast' is not a number`, ['time_s', 'speed_kph']],
-    ['time running backwards in the second chunk', (i, column, value) => (i === CHUNK_ROWS + 3 && column === 'time_s' ? '0.05' : value), `line ${CHUNK_ROWS + 5}, column time_s: time runs backwards (0.05 after ${((CHUNK_ROWS + 2) * 0.1).toFixed(1)})`, ['time_s', 'speed_kph']],
-    ['an empty time', (i, column, value) => (i === 9000 && column === 'time_s' ? '' : value), 'line 9002, column time_s: empty time', ['time_s', 'speed_kph']],
-    ['a latitude out of range', (i, column, value) => (i === 20000 && column === 'lat' ? '91.5' : value), 'line 20002, column lat: 91.5 is not a latitude/longitude in degrees', ['time_s', 'speed_kph', 'lat', 'lon']],
-    ['text after a backwards step: the text is reported, as the session reader does', (i, column, value) => (i === 100 && column === 'time_s' ? '0' : i === 2 * CHUNK_ROWS && column === 'speed_kph' ? 'x' : value), `line ${2 * CHUNK_ROWS + 2}, column speed_kph: 'x' is not a number`, ['time_s', 'speed_kph']],
+    [
+      'text in a numeric column in the third chunk',
+      (i, column, value) => (i === 2 * CHUNK_ROWS + 10 && column === 'speed_kph' ? 'fast' : value),
+      `line ${2 * CHUNK_ROWS + 12}, column speed_kph: 'fast' is not a number`,
+      ['time_s', 'speed_kph'],
+    ],
+    [
+      'time running backwards in the second chunk',
+      (i, column, value) => (i === CHUNK_ROWS + 3 && column === 'time_s' ? '0.05' : value),
+      `line ${CHUNK_ROWS + 5}, column time_s: time runs backwards (0.05 after ${((CHUNK_ROWS + 2) * 0.1).toFixed(1)})`,
+      ['time_s', 'speed_kph'],
+    ],
+    [
+      'an empty time',
+      (i, column, value) => (i === 9000 && column === 'time_s' ? '' : value),
+      'line 9002, column time_s: empty time',
+      ['time_s', 'speed_kph'],
+    ],
+    [
+      'a latitude out of range',
+      (i, column, value) => (i === 20000 && column === 'lat' ? '91.5' : value),
+      'line 20002, column lat: 91.5 is not a latitude/longitude in degrees',
+      ['time_s', 'speed_kph', 'lat', 'lon'],
+    ],
+    [
+      'text after a backwards step: the text is reported, as the session reader does',
+      (i, column, value) =>
+        i === 100 && column === 'time_s' ? '0' : i === 2 * CHUNK_ROWS && column === 'speed_kph' ? 'x' : value,
+      `line ${2 * CHUNK_ROWS + 2}, column speed_kph: 'x' is not a number`,
+      ['time_s', 'speed_kph'],
+    ],
   ];
   it.each(cases)('%s', async (name, cell, expected, header) => {
     const file = write(`${name.replace(/\W+/g, '-')}.csv`, circleLog(rows, header, cell));
@@ -216,12 +302,50 @@ describe('streamed reader errors name the same line as the session reader', () =
 });
 
 describe('streamed reader against the session reader on fuzzed CSV', () => {
-  const headers = fc.array(fc.constantFrom('time_s', 'Time', 'time [ms]', 'speed_kph', 'speed', 'distance_m', 'throttle', 'brake', 'lat', 'lon', 'x_m', 'y_m', 'ax', 'ay_g', 'rpm', 'notes', ''), { minLength: 1, maxLength: 7 });
+  const headers = fc.array(
+    fc.constantFrom(
+      'time_s',
+      'Time',
+      'time [ms]',
+      'speed_kph',
+      'speed',
+      'distance_m',
+      'throttle',
+      'brake',
+      'lat',
+      'lon',
+      'x_m',
+      'y_m',
+      'ax',
+      'ay_g',
+      'rpm',
+      'notes',
+      '',
+    ),
+    { minLength: 1, maxLength: 7 },
+  );
   // Plausible logs: time rising (now and then standing still or stepping back), numbers with empty cells, now
   // and then a word, in any of the columns, with or without units.
   const plausible = fc
     .record({
-      columns: fc.subarray(['speed', 'speed_kph', 'distance_m', 'throttle', 'brake_pct', 'lat', 'lon', 'x_m', 'y_m', 'ax', 'ay_g', 'rpm', 'gear'], { minLength: 1, maxLength: 6 }),
+      columns: fc.subarray(
+        [
+          'speed',
+          'speed_kph',
+          'distance_m',
+          'throttle',
+          'brake_pct',
+          'lat',
+          'lon',
+          'x_m',
+          'y_m',
+          'ax',
+          'ay_g',
+          'rpm',
+          'gear',
+        ],
+        { minLength: 1, maxLength: 6 },
+      ),
       count: fc.integer({ min: 0, max: 80 }),
       blanks: fc.integer({ min: 0, max: 6 }),
       back: fc.integer({ min: -1, max: 300 }),
@@ -234,7 +358,12 @@ describe('streamed reader against the session reader on fuzzed CSV', () => {
         const cells = [String(i === back ? (i - 2) * 0.1 : i * 0.1)];
         columns.forEach((column, c) => {
           const k = i * columns.length + c;
-          const value = column === 'lat' ? 47 + 0.001 * Math.sin(i / 9) : column === 'lon' ? 8 + 0.001 * Math.cos(i / 9) : 50 + 40 * Math.sin((i + seed) / 7 + c);
+          const value =
+            column === 'lat'
+              ? 47 + 0.001 * Math.sin(i / 9)
+              : column === 'lon'
+                ? 8 + 0.001 * Math.cos(i / 9)
+                : 50 + 40 * Math.sin((i + seed) / 7 + c);
           cells.push(k === word ? 'n/a?' : blanks > 0 && (k * seed) % (11 - blanks) === 0 ? '' : value.toFixed(4));
         });
         lines.push(cells.join(','));

@@ -12,8 +12,11 @@ describe('parseColumnMapping', () => {
     });
   });
 
-  it.each([['width_left_m'], ['a=b=c'], ['=b'], ['a='], [','], ['a=b,a=c']])('refuses %j with a one-line InputError naming the option', (text) => {
-    expect(() => parseColumnMapping(text, '--columns')).toThrow(InputError);
-    expect(() => parseColumnMapping(text, '--columns')).toThrow(/^option --columns: [^\n]+$/);
-  });
+  it.each([['width_left_m'], ['a=b=c'], ['=b'], ['a='], [','], ['a=b,a=c']])(
+    'refuses %j with a one-line InputError naming the option',
+    (text) => {
+      expect(() => parseColumnMapping(text, '--columns')).toThrow(InputError);
+      expect(() => parseColumnMapping(text, '--columns')).toThrow(/^option --columns: [^\n]+$/);
+    },
+  );
 });

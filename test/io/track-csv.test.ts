@@ -50,7 +50,10 @@ describe('track CSV', () => {
   it("takes a first line starting with '#' as the header and maps other column names", () => {
     const rows = circleRows(100, 5, false).map((row) => `${row},3.5,4.5`);
     const text = ['# x_m,y_m,w_tr_right_m,w_tr_left_m', ...rows].join('\n');
-    const track = parseTrackText(text, 'mapped.csv', { ...defaults, columns: { width_left_m: 'w_tr_left_m', width_right_m: 'w_tr_right_m' } });
+    const track = parseTrackText(text, 'mapped.csv', {
+      ...defaults,
+      columns: { width_left_m: 'w_tr_left_m', width_right_m: 'w_tr_right_m' },
+    });
     expect(track.widthLeftM?.[0]).toBeCloseTo(4.5, 12);
     expect(track.widthRightM?.[0]).toBeCloseTo(3.5, 12);
   });
@@ -91,50 +94,88 @@ describe('track CSV', () => {
   describe('refuses bad input with one line naming the file and the place', () => {
     const good = circleRows(100, 5, false);
     it('missing file', () => {
-      expectInputError(() => readTrackFile('/nonexistent/track.csv', defaults), /^\/nonexistent\/track\.csv: cannot read the track file \(no such file\)$/);
+      expectInputError(
+        () => readTrackFile('/nonexistent/track.csv', defaults),
+        /^\/nonexistent\/track\.csv: cannot read the track file \(no such file\)$/,
+      );
     });
     it('malformed CSV', () => {
       const text = ['x_m,y_m', good[0], `${good[1]},9`, ...good.slice(2)].join('\n');
       expectInputError(() => parseTrackText(text, 'bad.csv', defaults), /^bad\.csv: malformed CSV: .*line 3/);
-      expectInputError(() => parseTrackText('x_m,y_m\n1,"2\n3,4\n', 'quote.csv', defaults), /^quote\.csv: malformed CSV/);
+      expectInputError(
+        () => parseTrackText('x_m,y_m\n1,"2\n3,4\n', 'quote.csv', defaults),
+        /^quote\.csv: malformed CSV/,
+      );
     });
     it('non-numeric cell, with the row number as in the file and the column name', () => {
       const plain = ['x_m,y_m', ...good.slice(0, 6), '12.5,north', ...good.slice(7)].join('\n');
-      expectInputError(() => parseTrackText(plain, 'cell.csv', defaults), /^cell\.csv: row 8, column y_m: 'north' is not a number$/);
+      expectInputError(
+        () => parseTrackText(plain, 'cell.csv', defaults),
+        /^cell\.csv: row 8, column y_m: 'north' is not a number$/,
+      );
       // A comment line and a blank line still count in the row number.
-      const commented = ['# x_m,y_m', '# surveyed by hand', '', ...good.slice(0, 6), 'x,1', ...good.slice(7)].join('\n');
-      expectInputError(() => parseTrackText(commented, 'cell.csv', defaults), /^cell\.csv: row 10, column x_m: 'x' is not a number$/);
+      const commented = ['# x_m,y_m', '# surveyed by hand', '', ...good.slice(0, 6), 'x,1', ...good.slice(7)].join(
+        '\n',
+      );
+      expectInputError(
+        () => parseTrackText(commented, 'cell.csv', defaults),
+        /^cell\.csv: row 10, column x_m: 'x' is not a number$/,
+      );
     });
     it('NaN and Infinity', () => {
       const nan = ['x_m,y_m', ...good.slice(0, 3), 'NaN,1', ...good.slice(4)].join('\n');
-      expectInputError(() => parseTrackText(nan, 'nan.csv', defaults), /^nan\.csv: row 5, column x_m: 'NaN' is not a finite number$/);
+      expectInputError(
+        () => parseTrackText(nan, 'nan.csv', defaults),
+        /^nan\.csv: row 5, column x_m: 'NaN' is not a finite number$/,
+      );
       const inf = ['x_m,y_m', ...good.slice(0, 3), '1,-Infinity', ...good.slice(4)].join('\n');
-      expectInputError(() => parseTrackText(inf, 'inf.csv', defaults), /^inf\.csv: row 5, column y_m: '-Infinity' is not a finite number$/);
+      expectInputError(
+        () => parseTrackText(inf, 'inf.csv', defaults),
+        /^inf\.csv: row 5, column y_m: '-Infinity' is not a finite number$/,
+      );
     });
     it('fewer than four points', () => {
-      expectInputError(() => parseTrackText('x_m,y_m\n0,0\n10,0\n10,10\n', 'few.csv', defaults), /^few\.csv: only 3 points; a centreline needs at least 4$/);
+      expectInputError(
+        () => parseTrackText('x_m,y_m\n0,0\n10,0\n10,10\n', 'few.csv', defaults),
+        /^few\.csv: only 3 points; a centreline needs at least 4$/,
+      );
     });
     it('repeated consecutive points, naming the row', () => {
       const text = ['x_m,y_m', ...good.slice(0, 10), good[9], ...good.slice(10)].join('\n');
-      expectInputError(() => parseTrackText(text, 'rep.csv', defaults), /^rep\.csv: row 12: the point repeats the one before it \(row 11\)$/);
+      expectInputError(
+        () => parseTrackText(text, 'rep.csv', defaults),
+        /^rep\.csv: row 12: the point repeats the one before it \(row 11\)$/,
+      );
     });
     it('negative widths', () => {
       const rows = good.map((row, i) => (i === 20 ? `${row},-1,5` : `${row},5,5`));
       const text = ['x_m,y_m,width_left_m,width_right_m', ...rows].join('\n');
-      expectInputError(() => parseTrackText(text, 'neg.csv', defaults), /^neg\.csv: row 22, column width_left_m: negative width -1 m$/);
+      expectInputError(
+        () => parseTrackText(text, 'neg.csv', defaults),
+        /^neg\.csv: row 22, column width_left_m: negative width -1 m$/,
+      );
     });
     it('a required column missing, listing the columns found', () => {
       const text = ['east,north', ...good].join('\n');
-      expectInputError(() => parseTrackText(text, 'cols.csv', defaults), /^cols\.csv: required column x_m not found; columns found: east, north$/);
+      expectInputError(
+        () => parseTrackText(text, 'cols.csv', defaults),
+        /^cols\.csv: required column x_m not found; columns found: east, north$/,
+      );
       expectInputError(
         () => parseTrackText(['x_m,y_m', ...good].join('\n'), 'cols.csv', { ...defaults, columns: { x_m: 'easting' } }),
         /^cols\.csv: required column x_m \(read from 'easting'\) not found; columns found: x_m, y_m$/,
       );
     });
     it('a mapping that names no track column, and only one width column', () => {
-      expectInputError(() => parseTrackText(['x_m,y_m', ...good].join('\n'), 'm.csv', { ...defaults, columns: { speed: 'v' } }), /^m\.csv: --columns names 'speed'/);
+      expectInputError(
+        () => parseTrackText(['x_m,y_m', ...good].join('\n'), 'm.csv', { ...defaults, columns: { speed: 'v' } }),
+        /^m\.csv: --columns names 'speed'/,
+      );
       const text = ['x_m,y_m,width_left_m', ...good.map((row) => `${row},4`)].join('\n');
-      expectInputError(() => parseTrackText(text, 'w.csv', defaults), /^w\.csv: column width_left_m found but width_right_m missing/);
+      expectInputError(
+        () => parseTrackText(text, 'w.csv', defaults),
+        /^w\.csv: column width_left_m found but width_right_m missing/,
+      );
     });
   });
 });

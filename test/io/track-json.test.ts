@@ -40,7 +40,13 @@ function expectInputError(run: () => unknown, pattern: RegExp): void {
 
 describe('track JSON', () => {
   it('reads a segment description with widths, corners and a geo origin', () => {
-    const text = JSON.stringify({ ...stadium, widthLeftM: 5, widthRightM: 7, origin: { latDeg: 51.5, lonDeg: -1.2 }, corners: [{ atM: 478.5, name: 'East' }] });
+    const text = JSON.stringify({
+      ...stadium,
+      widthLeftM: 5,
+      widthRightM: 7,
+      origin: { latDeg: 51.5, lonDeg: -1.2 },
+      corners: [{ atM: 478.5, name: 'East' }],
+    });
     const track = parseTrackText(text, 'stadium.json', defaults);
     // Length 2 L + 2 pi R (circle geometry).
     expect(track.lengthM).toBeCloseTo(800 + 100 * Math.PI, 9);
@@ -60,19 +66,34 @@ describe('track JSON', () => {
   });
 
   it('refuses an unknown key, naming it and where it is', () => {
-    expectInputError(() => parseTrackText(JSON.stringify({ ...stadium, surface: 'asphalt' }), 't.json', defaults), /^t\.json: unknown key 'surface'$/);
+    expectInputError(
+      () => parseTrackText(JSON.stringify({ ...stadium, surface: 'asphalt' }), 't.json', defaults),
+      /^t\.json: unknown key 'surface'$/,
+    );
     const segments: object[] = [...stadium.segments];
     segments[1] = { ...segments[1], bank: 3 };
-    expectInputError(() => parseTrackText(JSON.stringify({ ...stadium, segments }), 't.json', defaults), /^t\.json: segments\[1\]: unknown key 'bank'$/);
+    expectInputError(
+      () => parseTrackText(JSON.stringify({ ...stadium, segments }), 't.json', defaults),
+      /^t\.json: segments\[1\]: unknown key 'bank'$/,
+    );
   });
 
   it('refuses wrong fields and kinds with the field path', () => {
     const segments = [...stadium.segments];
     segments[2] = { kind: 'straight', lengthM: -3 };
-    expectInputError(() => parseTrackText(JSON.stringify({ ...stadium, segments }), 't.json', defaults), /^t\.json: segments\[2\]\.lengthM: /);
+    expectInputError(
+      () => parseTrackText(JSON.stringify({ ...stadium, segments }), 't.json', defaults),
+      /^t\.json: segments\[2\]\.lengthM: /,
+    );
     segments[2] = { kind: 'spiral', lengthM: 3 } as unknown as (typeof segments)[number];
-    expectInputError(() => parseTrackText(JSON.stringify({ ...stadium, segments }), 't.json', defaults), /^t\.json: segments\[2\]/);
-    expectInputError(() => parseTrackText(JSON.stringify({ ...stadium, closed: 'yes' }), 't.json', defaults), /^t\.json: closed: /);
+    expectInputError(
+      () => parseTrackText(JSON.stringify({ ...stadium, segments }), 't.json', defaults),
+      /^t\.json: segments\[2\]/,
+    );
+    expectInputError(
+      () => parseTrackText(JSON.stringify({ ...stadium, closed: 'yes' }), 't.json', defaults),
+      /^t\.json: closed: /,
+    );
   });
 
   it('reads a segment track that starts with a byte-order mark', () => {
@@ -83,13 +104,19 @@ describe('track JSON', () => {
   });
 
   it('refuses invalid JSON with the line and column', () => {
-    expectInputError(() => parseTrackText('{\n  "name": "x",\n  "closed": true,,\n}', 'broken.json', defaults), /^broken\.json: line 3, column 18: not valid JSON/);
+    expectInputError(
+      () => parseTrackText('{\n  "name": "x",\n  "closed": true,,\n}', 'broken.json', defaults),
+      /^broken\.json: line 3, column 18: not valid JSON/,
+    );
   });
 
   it('refuses unclosed segments with the distance and the angle', () => {
     const segments = [...stadium.segments];
     segments[3] = { kind: 'arc', radiusM: 50, angleDeg: 170 };
-    expectInputError(() => parseTrackText(JSON.stringify({ ...stadium, segments }), 'gap.json', defaults), /^gap\.json: segments: the closed track does not close: it ends \d+\.\d\d m from its start .*off by -10\.00 degrees/);
+    expectInputError(
+      () => parseTrackText(JSON.stringify({ ...stadium, segments }), 'gap.json', defaults),
+      /^gap\.json: segments: the closed track does not close: it ends \d+\.\d\d m from its start .*off by -10\.00 degrees/,
+    );
   });
 
   describe('demo circuits in tracks/', () => {
@@ -116,7 +143,10 @@ describe('track JSON', () => {
       // cost up to half a step each); the heading itself turns by exactly 2 pi.
       expect(Math.abs(turning / (2 * Math.PI) - 1)).toBeLessThan(0.01);
       const n = track.headingRad.length;
-      expect(track.headingRad[n - 1]! - track.headingRad[0]!).toBeCloseTo(2 * Math.PI - track.stepM * track.curvaturePerM[n - 1]!, 3);
+      expect(track.headingRad[n - 1]! - track.headingRad[0]!).toBeCloseTo(
+        2 * Math.PI - track.stepM * track.curvaturePerM[n - 1]!,
+        3,
+      );
       expect(tightest).toBeLessThan(20); // hairpin
       expect(longestStraight).toBeGreaterThan(900);
       expect(track.corners.length).toBeGreaterThanOrEqual(5);
@@ -127,7 +157,9 @@ describe('track JSON', () => {
         expect(near).toBeGreaterThan(1 / 300);
       }
       // The loop joins: the last sample is about one step from the first.
-      expect(Math.hypot(track.xM[n - 1]! - track.xM[0]!, track.yM[n - 1]! - track.yM[0]!)).toBeLessThan(track.stepM * 1.01);
+      expect(Math.hypot(track.xM[n - 1]! - track.xM[0]!, track.yM[n - 1]! - track.yM[0]!)).toBeLessThan(
+        track.stepM * 1.01,
+      );
     });
 
     it('tarnwick-club.json closes, 1.6 to 2 km, 9 m wide', () => {

@@ -36,7 +36,11 @@ describe.skipIf(!present)('open-track centrelines (TUM racetrack-database, OpenS
     layout: 'auto',
     smoothingM: null,
   };
-  const files = present ? readdirSync(dataDir).filter((file) => file.endsWith('.csv')).sort() : [];
+  const files = present
+    ? readdirSync(dataDir)
+        .filter((file) => file.endsWith('.csv'))
+        .sort()
+    : [];
   const lengths = present ? publishedLengths() : new Map<string, number>();
 
   /** Files the dataset README lists with no published length (its table says "no check value"). */
@@ -47,17 +51,20 @@ describe.skipIf(!present)('open-track centrelines (TUM racetrack-database, OpenS
     expect(lengths.size).toBeGreaterThan(10);
   });
 
-  it.each(files)('%s: closed, length within 1 %% of the published length, lap heading change 2 pi within 1 %%', (file) => {
-    const track = readTrackFile(path.join(dataDir, file), options);
-    expect(track.closed).toBe(true);
-    const publishedKm = lengths.get(file);
-    // The dataset README gives every circuit a length except the ones marked there with no check value.
-    if (WITHOUT_CHECK_VALUE.has(file)) expect(publishedKm).toBeUndefined();
-    else expect(Math.abs(track.lengthM / (publishedKm! * 1000) - 1)).toBeLessThan(0.01);
-    let turning = 0;
-    for (const k of track.curvaturePerM) turning += k * track.stepM;
-    expect(Math.abs(Math.abs(turning) / (2 * Math.PI) - 1)).toBeLessThan(0.01);
-    expect(track.widthLeftM).not.toBeNull();
-    expect(track.widthLeftM!.every((w) => w > 0)).toBe(true);
-  });
+  it.each(files)(
+    '%s: closed, length within 1 %% of the published length, lap heading change 2 pi within 1 %%',
+    (file) => {
+      const track = readTrackFile(path.join(dataDir, file), options);
+      expect(track.closed).toBe(true);
+      const publishedKm = lengths.get(file);
+      // The dataset README gives every circuit a length except the ones marked there with no check value.
+      if (WITHOUT_CHECK_VALUE.has(file)) expect(publishedKm).toBeUndefined();
+      else expect(Math.abs(track.lengthM / (publishedKm! * 1000) - 1)).toBeLessThan(0.01);
+      let turning = 0;
+      for (const k of track.curvaturePerM) turning += k * track.stepM;
+      expect(Math.abs(Math.abs(turning) / (2 * Math.PI) - 1)).toBeLessThan(0.01);
+      expect(track.widthLeftM).not.toBeNull();
+      expect(track.widthLeftM!.every((w) => w > 0)).toBe(true);
+    },
+  );
 });

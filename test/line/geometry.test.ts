@@ -128,7 +128,7 @@ function bruteForceBoxQp(q: Matrix, c: number[], lower: number[], upper: number[
 describe('banded box QP', () => {
   it('matches an exhaustive active-set search on small cyclic and plain pentadiagonal problems', () => {
     let seed = 7;
-    const random = () => ((seed = (seed * 16807) % 2147483647) / 2147483647);
+    const random = () => (seed = (seed * 16807) % 2147483647) / 2147483647;
     for (const cyclic of [true, false]) {
       for (let trial = 0; trial < 5; trial++) {
         const n = 7;
@@ -157,7 +157,15 @@ describe('banded box QP', () => {
         const lower = Array.from({ length: n }, () => -0.5 - random());
         const upper = Array.from({ length: n }, () => 0.5 + random());
         const expected = bruteForceBoxQp(dense, c, lower, upper);
-        const { x } = solveBoxQp(band, Float64Array.from(c), Float64Array.from(lower), Float64Array.from(upper), new Float64Array(n), 100, 1e-12);
+        const { x } = solveBoxQp(
+          band,
+          Float64Array.from(c),
+          Float64Array.from(lower),
+          Float64Array.from(upper),
+          new Float64Array(n),
+          100,
+          1e-12,
+        );
         for (let i = 0; i < n; i++) expect(x[i]).toBeCloseTo(expected[i]!, 6);
       }
     }

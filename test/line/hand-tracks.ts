@@ -3,7 +3,14 @@
 import type { TrackGrid } from '../../src/track/types.js';
 
 /** Integrates heading and position from curvature on a uniform grid (midpoint rule). */
-export function trackFromCurvature(name: string, closed: boolean, stepM: number, curvature: Float64Array, widthLeftM: number, widthRightM: number): TrackGrid {
+export function trackFromCurvature(
+  name: string,
+  closed: boolean,
+  stepM: number,
+  curvature: Float64Array,
+  widthLeftM: number,
+  widthRightM: number,
+): TrackGrid {
   const n = curvature.length;
   const distanceM = new Float64Array(n);
   const xM = new Float64Array(n);
@@ -39,7 +46,14 @@ export function trackFromCurvature(name: string, closed: boolean, stepM: number,
 export function ring(radiusM: number, widthM: number, stepM: number): TrackGrid {
   const n = Math.round((2 * Math.PI * radiusM) / stepM);
   const exactStep = (2 * Math.PI * radiusM) / n;
-  const track = trackFromCurvature('ring', true, exactStep, new Float64Array(n).fill(1 / radiusM), widthM / 2, widthM / 2);
+  const track = trackFromCurvature(
+    'ring',
+    true,
+    exactStep,
+    new Float64Array(n).fill(1 / radiusM),
+    widthM / 2,
+    widthM / 2,
+  );
   // Exact positions on the circle (centre at (0, R)), rather than the integrated ones.
   for (let i = 0; i < n; i++) {
     const theta = (i * exactStep) / radiusM;
@@ -51,7 +65,13 @@ export function ring(radiusM: number, widthM: number, stepM: number): TrackGrid 
 }
 
 /** An open track: straight, a left turn of `angleRad` on centreline radius radiusM, straight. */
-export function cornerBetweenStraights(straightM: number, radiusM: number, angleRad: number, widthM: number, stepM: number): TrackGrid {
+export function cornerBetweenStraights(
+  straightM: number,
+  radiusM: number,
+  angleRad: number,
+  widthM: number,
+  stepM: number,
+): TrackGrid {
   const arcM = radiusM * angleRad;
   const n = Math.round((2 * straightM + arcM) / stepM) + 1;
   const curvature = new Float64Array(n);

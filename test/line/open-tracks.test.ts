@@ -14,12 +14,27 @@ import { testCar } from '../helpers/cars.js';
 const projectRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', '..');
 const openTracksDir = path.resolve(projectRoot, '..', 'shared', 'data', 'open-tracks');
 const demoTracksDir = path.resolve(projectRoot, 'tracks');
-const openTrackFiles = existsSync(openTracksDir) ? readdirSync(openTracksDir).filter((f) => f.endsWith('.csv')).sort() : [];
-const demoTrackFiles = existsSync(demoTracksDir) ? readdirSync(demoTracksDir).filter((f) => f.endsWith('.json')).sort() : [];
+const openTrackFiles = existsSync(openTracksDir)
+  ? readdirSync(openTracksDir)
+      .filter((f) => f.endsWith('.csv'))
+      .sort()
+  : [];
+const demoTrackFiles = existsSync(demoTracksDir)
+  ? readdirSync(demoTracksDir)
+      .filter((f) => f.endsWith('.json'))
+      .sort()
+  : [];
 if (openTrackFiles.length === 0) console.warn(`open-tracks line checks skipped: ${openTracksDir} is absent`);
 
 // A car defined here: 1,000 kg, mu 1.3, 150 kW, CdA 0.7 m^2, ClA 1.0 m^2.
-const car = testCar({ massKg: 1000, mu: 1.3, maxPowerW: 150_000, dragAreaM2: 0.7, liftAreaM2: 1.0, rollingResistanceCoeff: 0.012 });
+const car = testCar({
+  massKg: 1000,
+  mu: 1.3,
+  maxPowerW: 150_000,
+  dragAreaM2: 0.7,
+  liftAreaM2: 1.0,
+  rollingResistanceCoeff: 0.012,
+});
 const MARGIN_M = 0.8;
 
 function checkLine(track: TrackGrid): void {
@@ -51,7 +66,13 @@ describe.skipIf(openTrackFiles.length === 0)('line on the open circuits at 2 m',
 
 describe.skipIf(demoTrackFiles.length === 0)('line on the demo tracks at 2 m', () => {
   it.each(demoTrackFiles)('%s', (file) => {
-    const track = readTrackFile(path.join(demoTracksDir, file), { stepM: 2, columns: {}, widthM: null, layout: 'auto', smoothingM: null });
+    const track = readTrackFile(path.join(demoTracksDir, file), {
+      stepM: 2,
+      columns: {},
+      widthM: null,
+      layout: 'auto',
+      smoothingM: null,
+    });
     checkLine(track);
   });
 });

@@ -15,14 +15,16 @@ describe('ring: radius 100 m, width 10 m, no margin', () => {
   it('the minimum-curvature line is the outer edge, radius 105 m', () => {
     const line = racingLine(track, car, { objective: 'curvature', marginM: 0 });
     // The outer edge has the largest radius, 100 + 5 m (geometry); within 1 %.
-    for (let i = 0; i < track.distanceM.length; i += 10) expect(1 / line.path.curvaturePerM[i]! / 105).toBeCloseTo(1, 2);
+    for (let i = 0; i < track.distanceM.length; i += 10)
+      expect(1 / line.path.curvaturePerM[i]! / 105).toBeCloseTo(1, 2);
     expect(Math.abs(line.minRadiusM / 105 - 1)).toBeLessThan(0.01);
   });
 
   it('the minimum-time line is the inner edge, radius 95 m, because T = 2 pi sqrt(R / (mu g))', () => {
     const line = racingLine(track, car, { objective: 'time', marginM: 0 });
     // v = sqrt(mu g R) on a circle, so T = 2 pi R / v = 2 pi sqrt(R / (mu g)) grows with R: the inner edge is fastest.
-    for (let i = 0; i < track.distanceM.length; i += 10) expect(Math.abs(1 / line.path.curvaturePerM[i]! / 95 - 1)).toBeLessThan(0.01);
+    for (let i = 0; i < track.distanceM.length; i += 10)
+      expect(Math.abs(1 / line.path.curvaturePerM[i]! / 95 - 1)).toBeLessThan(0.01);
     const expectedLapS = 2 * Math.PI * Math.sqrt(95 / (1.0 * STANDARD_GRAVITY_MPS2));
     expect(Math.abs(line.lap.lapTimeS / expectedLapS - 1)).toBeLessThan(0.01);
     // Never slower than the minimum-curvature line (105 m: 2 pi sqrt(105 / g)).
@@ -45,7 +47,7 @@ describe('90-degree corner between two long straights', () => {
     const kappa = lineCurvature(track, line.offsetM);
     let integral = 0;
     for (let i = 0; i < kappa.length; i++) integral += kappa[i]! ** 2 * track.stepM;
-    expect(integral).toBeLessThanOrEqual((Math.PI / 2) / classicRadiusM);
+    expect(integral).toBeLessThanOrEqual(Math.PI / 2 / classicRadiusM);
   });
 
   it('its smallest radius is close to the classic arc', () => {

@@ -41,7 +41,11 @@ describe('bad line files', () => {
     ['stations not increasing', csv.replace(/\n4\.\d+,/, '\n1.000,'), /row 4, column s_m: 1 does not increase/],
     ['another track (shorter lap)', csv.split('\n').slice(0, 100).join('\n'), /belongs to another track or layout/],
     // Rows are lines of the file: the header is line 1, so the third sample (s = 4.0 m) is row 4.
-    ['outside the edges', offsetsOnly.replace(/\n(4\.\d+),[-0-9.]+/, '\n$1,7.5'), /row 4: offset 7\.50 m at 4\.0 m is outside the track/],
+    [
+      'outside the edges',
+      offsetsOnly.replace(/\n(4\.\d+),[-0-9.]+/, '\n$1,7.5'),
+      /row 4: offset 7\.50 m at 4\.0 m is outside the track/,
+    ],
   ];
   it.each(cases)('%s', (_name, text, pattern) => {
     expect(() => parseLineCsv(text, 'line.csv', track)).toThrow(InputError);
@@ -49,7 +53,12 @@ describe('bad line files', () => {
   });
 
   it('refuses positions that do not match the offsets on this track', () => {
-    const shifted = csv.replace(/\n(4\.\d+),([-0-9.]+),([-0-9.]+),/, (_m, s, n, x) => `\n${s},${n},${(Number(x) + 10).toFixed(3)},`);
-    expect(() => parseLineCsv(shifted, 'line.csv', track)).toThrow(/row 4: x_m, y_m lie 10\.\d m from where offset_m puts the line/);
+    const shifted = csv.replace(
+      /\n(4\.\d+),([-0-9.]+),([-0-9.]+),/,
+      (_m, s, n, x) => `\n${s},${n},${(Number(x) + 10).toFixed(3)},`,
+    );
+    expect(() => parseLineCsv(shifted, 'line.csv', track)).toThrow(
+      /row 4: x_m, y_m lie 10\.\d m from where offset_m puts the line/,
+    );
   });
 });

@@ -6,7 +6,13 @@ import { createHash } from 'node:crypto';
 import { describe, expect, it } from 'vitest';
 import { XMLValidator } from 'fast-xml-parser';
 import { chartSvgs, lapReportHtml } from '../../src/report/html/page.js';
-import { comparisonInput, HOSTILE_CAR_NAME, HOSTILE_CORNER_NAME, HOSTILE_TRACK_NAME, referenceInput } from './report-fixtures.js';
+import {
+  comparisonInput,
+  HOSTILE_CAR_NAME,
+  HOSTILE_CORNER_NAME,
+  HOSTILE_TRACK_NAME,
+  referenceInput,
+} from './report-fixtures.js';
 import { SAFETY_CAUTION } from '../../src/report/lap-summary.js';
 
 const comparisonPage = lapReportHtml(comparisonInput());
@@ -22,7 +28,10 @@ function chartSource(html: string, name: string): string {
 }
 
 function inlineBlocks(html: string, tag: 'script' | 'style'): { attributes: string; body: string }[] {
-  return [...html.matchAll(new RegExp(`<${tag}([^>]*)>([\\s\\S]*?)</${tag}>`, 'g'))].map((m) => ({ attributes: m[1]!, body: m[2]! }));
+  return [...html.matchAll(new RegExp(`<${tag}([^>]*)>([\\s\\S]*?)</${tag}>`, 'g'))].map((m) => ({
+    attributes: m[1]!,
+    body: m[2]!,
+  }));
 }
 
 describe('lap report page', () => {
@@ -68,7 +77,9 @@ describe('lap report page', () => {
     expect(csp).toContain("connect-src 'none'");
     expect(csp).not.toMatch(/unsafe-inline|unsafe-eval|\*/);
     // Hash sources as the W3C Content Security Policy Level 3 defines them: base64 of the SHA-256 of the element's text.
-    const scripts = inlineBlocks(comparisonPage, 'script').filter((block) => !block.attributes.includes('application/json'));
+    const scripts = inlineBlocks(comparisonPage, 'script').filter(
+      (block) => !block.attributes.includes('application/json'),
+    );
     expect(scripts).toHaveLength(1);
     const scriptHash = createHash('sha256').update(scripts[0]!.body).digest('base64');
     expect(csp).toContain(`script-src 'sha256-${scriptHash}'`);
@@ -80,7 +91,11 @@ describe('lap report page', () => {
   });
 
   it('escapes hostile car, track and corner names everywhere, the page data included', () => {
-    const input = comparisonInput({ carName: HOSTILE_CAR_NAME, trackName: HOSTILE_TRACK_NAME, cornerName: HOSTILE_CORNER_NAME });
+    const input = comparisonInput({
+      carName: HOSTILE_CAR_NAME,
+      trackName: HOSTILE_TRACK_NAME,
+      cornerName: HOSTILE_CORNER_NAME,
+    });
     const page = lapReportHtml(input);
     expect(page).not.toContain('<img');
     expect(page).not.toContain('onerror="');
@@ -103,17 +118,31 @@ describe('lap report page', () => {
     expect(input.reference.track.lengthM).toBeGreaterThan(4950);
     expect(input.reference.trace.count).toBeGreaterThan(4950);
     const bytes = Buffer.byteLength(lapReportHtml(input), 'utf8');
-    const referenceBytes = Buffer.byteLength(lapReportHtml({ reference: input.reference, carName: input.carName, envelope: input.envelope }), 'utf8');
-    console.log(`lap report for ${(input.reference.track.lengthM / 1000).toFixed(2)} km at 1 m: ${(bytes / 1024).toFixed(0)} KiB with a driver, ${(referenceBytes / 1024).toFixed(0)} KiB reference only`);
+    const referenceBytes = Buffer.byteLength(
+      lapReportHtml({ reference: input.reference, carName: input.carName, envelope: input.envelope }),
+      'utf8',
+    );
+    console.log(
+      `lap report for ${(input.reference.track.lengthM / 1000).toFixed(2)} km at 1 m: ${(bytes / 1024).toFixed(0)} KiB with a driver, ${(referenceBytes / 1024).toFixed(0)} KiB reference only`,
+    );
     expect(bytes).toBeLessThan(3 * 1024 * 1024);
     expect(referenceBytes).toBeLessThan(bytes);
   });
 
   it('writes each chart as a standalone, well-formed SVG file with its namespace', () => {
     const charts = chartSvgs(comparisonInput());
-    expect(charts.map((c) => c.name).sort()).toEqual(['delta.svg', 'g-g.svg', 'grip.svg', 'pedals.svg', 'speed.svg', 'track-map.svg']);
+    expect(charts.map((c) => c.name).sort()).toEqual([
+      'delta.svg',
+      'g-g.svg',
+      'grip.svg',
+      'pedals.svg',
+      'speed.svg',
+      'track-map.svg',
+    ]);
     for (const chart of charts) {
-      expect(chart.svg.startsWith('<?xml version="1.0" encoding="UTF-8"?>\n<svg xmlns="http://www.w3.org/2000/svg"')).toBe(true);
+      expect(
+        chart.svg.startsWith('<?xml version="1.0" encoding="UTF-8"?>\n<svg xmlns="http://www.w3.org/2000/svg"'),
+      ).toBe(true);
       // Well-formed XML per fast-xml-parser's validator (an SVG viewer rejects anything less).
       expect(XMLValidator.validate(chart.svg), chart.name).toBe(true);
     }

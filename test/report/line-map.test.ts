@@ -33,7 +33,8 @@ function drawnRadiusM(html: string, pathSelector: RegExp): number {
   const surface = pointsOf(/<path class="track-surface" d="([^"]+)"/.exec(map)![1]!);
   const cx = surface.reduce((s, p) => s + p[0], 0) / surface.length;
   const cy = surface.reduce((s, p) => s + p[1], 0) / surface.length;
-  const meanRadius = (points: [number, number][]) => points.reduce((s, [x, y]) => s + Math.hypot(x - cx, y - cy), 0) / points.length;
+  const meanRadius = (points: [number, number][]) =>
+    points.reduce((s, [x, y]) => s + Math.hypot(x - cx, y - cy), 0) / points.length;
   const drawn = [...map.matchAll(pathSelector)].flatMap((m) => pointsOf(m[1]!));
   expect(drawn.length).toBeGreaterThan(50);
   // The surface is drawn along the centreline, radius RADIUS_M.
@@ -43,7 +44,15 @@ function drawnRadiusM(html: string, pathSelector: RegExp): number {
 beforeAll(() => {
   folder = mkdtempSync(join(tmpdir(), 'reflap-line-map-'));
   ring = join(folder, 'ring.json');
-  writeFileSync(ring, JSON.stringify({ name: 'test ring', closed: true, widthM: WIDTH_M, segments: [{ kind: 'arc', radiusM: RADIUS_M, angleDeg: 360 }] }));
+  writeFileSync(
+    ring,
+    JSON.stringify({
+      name: 'test ring',
+      closed: true,
+      widthM: WIDTH_M,
+      segments: [{ kind: 'arc', radiusM: RADIUS_M, angleDeg: 360 }],
+    }),
+  );
   trace = join(folder, 'trace.csv');
   expect(runCli(['simulate', '--track', ring, '--car', car, '--out', trace]).code).toBe(0);
 });
@@ -71,25 +80,60 @@ describe('the map of a lap on a racing line', () => {
     const lineCsv = join(folder, 'ring-line.csv');
     expect(runCli(['line', '--track', ring, '--car', car, '--out', lineCsv]).code).toBe(0);
     // A log with positions, driven on the centreline: a line file of the stations alone, every offset zero.
-    const stations = readFileSync(lineCsv, 'utf8').trim().split('\n').slice(1).map((l) => l.split(',')[0]);
+    const stations = readFileSync(lineCsv, 'utf8')
+      .trim()
+      .split('\n')
+      .slice(1)
+      .map((l) => l.split(',')[0]);
     const centreLine = join(folder, 'centre-line.csv');
     writeFileSync(centreLine, ['s_m,offset_m', ...stations.map((s) => `${s},0`)].join('\n') + '\n');
     const tracePositions = join(folder, 'trace-positions.csv');
-    expect(runCli(['simulate', '--track', ring, '--car', car, '--line', centreLine, '--out', tracePositions]).code).toBe(0);
+    expect(
+      runCli(['simulate', '--track', ring, '--car', car, '--line', centreLine, '--out', tracePositions]).code,
+    ).toBe(0);
     expect(readFileSync(tracePositions, 'utf8').split('\n')[0]).toMatch(/x_m,y_m/);
     for (const line of ['auto', lineCsv]) {
       const name = line === 'auto' ? 'auto' : 'file';
       // Without positions in the log, the reference itself is drawn coloured by grip use.
       const bare = join(folder, `compare-${name}.html`);
-      const run = runCli(['compare', '--track', ring, '--car', car, '--telemetry', trace, '--line', line, '--html', bare]);
+      const run = runCli([
+        'compare',
+        '--track',
+        ring,
+        '--car',
+        car,
+        '--telemetry',
+        trace,
+        '--line',
+        line,
+        '--html',
+        bare,
+      ]);
       expect(run.code, run.stderr).toBe(0);
       const radius = drawnRadiusM(readFileSync(bare, 'utf8'), /<path class="grip-[a-z]+" d="([^"]+)"/g);
       expect(Math.abs(radius - innerLineRadiusM), `--line ${line}`).toBeLessThan(0.3);
       // With positions, the driver's path is coloured and the reference is the thin line on top.
       const withDriver = join(folder, `compare-${name}-positions.html`);
-      expect(runCli(['compare', '--track', ring, '--car', car, '--telemetry', tracePositions, '--line', line, '--html', withDriver]).code).toBe(0);
+      expect(
+        runCli([
+          'compare',
+          '--track',
+          ring,
+          '--car',
+          car,
+          '--telemetry',
+          tracePositions,
+          '--line',
+          line,
+          '--html',
+          withDriver,
+        ]).code,
+      ).toBe(0);
       const page = readFileSync(withDriver, 'utf8');
-      expect(Math.abs(drawnRadiusM(page, /<path class="reference-line" d="([^"]+)"/g) - innerLineRadiusM), `--line ${line}`).toBeLessThan(0.3);
+      expect(
+        Math.abs(drawnRadiusM(page, /<path class="reference-line" d="([^"]+)"/g) - innerLineRadiusM),
+        `--line ${line}`,
+      ).toBeLessThan(0.3);
       expect(Math.abs(drawnRadiusM(page, /<path class="grip-[a-z]+" d="([^"]+)"/g) - RADIUS_M)).toBeLessThan(0.3);
     }
   });

@@ -47,7 +47,9 @@ export function loopSegments(straightM: number): TrackSegment[] {
   ];
 }
 
-export function referenceInput(options: { stepM?: number; straightM?: number; carName?: string; trackName?: string; cornerName?: string } = {}): ReportInput {
+export function referenceInput(
+  options: { stepM?: number; straightM?: number; carName?: string; trackName?: string; cornerName?: string } = {},
+): ReportInput {
   const car = demoCar(options.carName);
   const ambient = ambientFrom();
   const envelope = buildEnvelope(car, ambient);
@@ -67,7 +69,10 @@ export function referenceInput(options: { stepM?: number; straightM?: number; ca
 }
 
 /** A driver a little slower than the reference, braking later and lifting earlier, with positions beside the line. */
-export function syntheticDriver(reference: LapResult, envelope: Envelope): { driver: DriverLap; deltaS: Float64Array; gripUse: Float64Array } {
+export function syntheticDriver(
+  reference: LapResult,
+  envelope: Envelope,
+): { driver: DriverLap; deltaS: Float64Array; gripUse: Float64Array } {
   const trace = reference.trace;
   const track = reference.track;
   const n = trace.count;
@@ -156,7 +161,10 @@ export function comparisonInput(options: Parameters<typeof referenceInput>[0] = 
   };
   // The driver demonstrated 90 % of the tyre's friction: a second, smaller envelope for the g-g diagram.
   const car = demoCar(options.carName);
-  const demonstratedEnvelope = buildEnvelope({ ...car, tyre: { ...car.tyre, muLong: car.tyre.muLong * 0.9, muLat: car.tyre.muLat * 0.9 } }, ambientFrom());
+  const demonstratedEnvelope = buildEnvelope(
+    { ...car, tyre: { ...car.tyre, muLong: car.tyre.muLong * 0.9, muLat: car.tyre.muLat * 0.9 } },
+    ambientFrom(),
+  );
   result.demonstratedLapTimeS = reference.lapTimeS * 1.04;
   return { ...base, comparison: { result, driver, demonstratedEnvelope } };
 }
@@ -169,15 +177,26 @@ export function pipelineInput(names: { carName?: string; trackName?: string; cor
   const car = demoCar(names.carName);
   const ambient = ambientFrom();
   const envelope = buildEnvelope(car, ambient);
-  const read = readTrackFile(path.join(projectRoot, 'tracks', 'tarnwick-club.json'), { stepM: 1, columns: {}, widthM: null, layout: 'auto', smoothingM: null });
+  const read = readTrackFile(path.join(projectRoot, 'tracks', 'tarnwick-club.json'), {
+    stepM: 1,
+    columns: {},
+    widthM: null,
+    layout: 'auto',
+    smoothingM: null,
+  });
   const track = {
     ...read,
     name: names.trackName ?? read.name,
-    corners: read.corners.map((corner, index) => (index === 0 && names.cornerName ? { ...corner, name: names.cornerName } : corner)),
+    corners: read.corners.map((corner, index) =>
+      index === 0 && names.cornerName ? { ...corner, name: names.cornerName } : corner,
+    ),
   };
   const reference = simulate(track, car, { ambient, envelope });
   const { driver } = syntheticDriver(reference, envelope);
   const result = compareLaps(track, car, reference, driver, envelope);
-  const demonstratedEnvelope = buildEnvelope({ ...car, tyre: { ...car.tyre, muLong: car.tyre.muLong * 0.9, muLat: car.tyre.muLat * 0.9 } }, ambient);
+  const demonstratedEnvelope = buildEnvelope(
+    { ...car, tyre: { ...car.tyre, muLong: car.tyre.muLong * 0.9, muLat: car.tyre.muLat * 0.9 } },
+    ambient,
+  );
   return { reference, carName: car.name, envelope, comparison: { result, driver, demonstratedEnvelope } };
 }

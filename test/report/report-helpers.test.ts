@@ -9,7 +9,9 @@ import { gripClass } from '../../src/report/html/palette.js';
 describe('escapeHtml', () => {
   it('turns the five HTML-significant characters into entities', () => {
     // OWASP XSS Prevention Cheat Sheet, rule 1 (& < > " ').
-    expect(escapeHtml(`<a href="x" title='y'>&</a>`)).toBe('&lt;a href=&quot;x&quot; title=&#39;y&#39;&gt;&amp;&lt;/a&gt;');
+    expect(escapeHtml(`<a href="x" title='y'>&</a>`)).toBe(
+      '&lt;a href=&quot;x&quot; title=&#39;y&#39;&gt;&amp;&lt;/a&gt;',
+    );
     expect(escapeHtml('Kettle Corner')).toBe('Kettle Corner');
   });
 });
@@ -56,6 +58,13 @@ describe('drawing decimation', () => {
 
 describe('grip classes on the map', () => {
   it('splits at 90 % and 102 % of the envelope', () => {
-    expect([0.5, 0.89, 0.9, 1, 1.02, 1.03].map(gripClass)).toEqual(['unused', 'unused', 'near', 'near', 'near', 'over']);
+    expect([0.5, 0.89, 0.9, 1, 1.02, 1.03].map(gripClass)).toEqual([
+      'unused',
+      'unused',
+      'near',
+      'near',
+      'near',
+      'over',
+    ]);
   });
 });

@@ -39,27 +39,41 @@ function chartSource(html: string, name: string): string {
 
 /** The polylines of a chart's series (class="series"), with their legend labels. */
 function seriesOf(svg: string): { label: string; d: string }[] {
-  return [...svg.matchAll(/<path class="series" data-series="\d+" data-label="([^"]*)" d="([^"]*)"/g)].map((m) => ({ label: m[1]!, d: m[2]! }));
+  return [...svg.matchAll(/<path class="series" data-series="\d+" data-label="([^"]*)" d="([^"]*)"/g)].map((m) => ({
+    label: m[1]!,
+    d: m[2]!,
+  }));
 }
 
 function pointsOf(svg: string, series: number): { cy: number; x: number; y: number }[] {
   const group = svg.slice(svg.indexOf(`<g class="points" data-series="${series}"`));
   const body = group.slice(0, group.indexOf('</g>'));
-  return [...body.matchAll(/cy="([^"]+)"[^>]*data-x="([^"]+)" data-y="([^"]+)"/g)].map((m) => ({ cy: Number(m[1]), x: Number(m[2]), y: Number(m[3]) }));
+  return [...body.matchAll(/cy="([^"]+)"[^>]*data-x="([^"]+)" data-y="([^"]+)"/g)].map((m) => ({
+    cy: Number(m[1]),
+    x: Number(m[2]),
+    y: Number(m[3]),
+  }));
 }
 
 /** The y axis as drawn: tick label value against its pixel row, from two ticks; and the value of one pixel. */
 function yAxisMap(svg: string): { toValue: (pixel: number) => number; perPixel: number } {
   const axis = svg.slice(svg.indexOf('<g class="y-axis">'));
-  const ticks = [...axis.slice(0, axis.indexOf('</g>')).matchAll(/<line[^>]*y1="([^"]+)"[^>]*\/><text[^>]*>([^<]+)<\/text>/g)].map((m) => ({ px: Number(m[1]), value: Number(m[2]!.replace('−', '-')) }));
+  const ticks = [
+    ...axis.slice(0, axis.indexOf('</g>')).matchAll(/<line[^>]*y1="([^"]+)"[^>]*\/><text[^>]*>([^<]+)<\/text>/g),
+  ].map((m) => ({ px: Number(m[1]), value: Number(m[2]!.replace('−', '-')) }));
   expect(ticks.length).toBeGreaterThanOrEqual(2);
   const a = ticks[0]!;
   const b = ticks[ticks.length - 1]!;
-  return { toValue: (pixel) => a.value + ((pixel - a.px) / (b.px - a.px)) * (b.value - a.value), perPixel: Math.abs((b.value - a.value) / (b.px - a.px)) };
+  return {
+    toValue: (pixel) => a.value + ((pixel - a.px) / (b.px - a.px)) * (b.value - a.value),
+    perPixel: Math.abs((b.value - a.value) / (b.px - a.px)),
+  };
 }
 
 function csvRows(file: string): Record<string, string>[] {
-  const lines = readFileSync(file, 'utf8').split('\n').filter((l) => l && !l.startsWith('#'));
+  const lines = readFileSync(file, 'utf8')
+    .split('\n')
+    .filter((l) => l && !l.startsWith('#'));
   const header = lines[0]!.split(',');
   return lines.slice(1).map((line) => Object.fromEntries(line.split(',').map((cell, k) => [header[k]!, cell])));
 }
@@ -72,11 +86,39 @@ beforeAll(() => {
   writeFileSync(hostileCar, JSON.stringify({ ...car, name: HOSTILE_CAR }));
   oatCsv = join(folder, 'oat.csv');
   svgFolder = join(folder, 'svg');
-  const oat = runCli(['sweep', '--track', loop, '--car', hostileCar, ...vary, '--mode', 'one-at-a-time', '--workers', '1', '--out', oatCsv, '--html', join(folder, 'oat.html'), '--svg', svgFolder]);
+  const oat = runCli([
+    'sweep',
+    '--track',
+    loop,
+    '--car',
+    hostileCar,
+    ...vary,
+    '--mode',
+    'one-at-a-time',
+    '--workers',
+    '1',
+    '--out',
+    oatCsv,
+    '--html',
+    join(folder, 'oat.html'),
+    '--svg',
+    svgFolder,
+  ]);
   expect(oat.stderr).toBe('');
   expect(oat.code).toBe(0);
   expect(oat.stdout).toContain(`Report written to ${join(folder, 'oat.html')}`);
-  const grid = runCli(['sweep', '--track', loop, '--car', 'cars/brackle-club.json', ...vary, '--workers', '1', '--html', join(folder, 'grid.html')]);
+  const grid = runCli([
+    'sweep',
+    '--track',
+    loop,
+    '--car',
+    'cars/brackle-club.json',
+    ...vary,
+    '--workers',
+    '1',
+    '--html',
+    join(folder, 'grid.html'),
+  ]);
   expect(grid.code).toBe(0);
   oatPage = readFileSync(join(folder, 'oat.html'), 'utf8');
   gridPage = readFileSync(join(folder, 'grid.html'), 'utf8');
@@ -108,7 +150,8 @@ describe('sweep report page', () => {
       for (const name of expected) {
         const svg = chartSource(page, name);
         expect(svg).toContain('class="legend"');
-        for (const series of seriesOf(svg)) expect(series.d, `${name} ${series.label}`).toMatch(/^M[\d.,-]+(L[\d.,-]+)+$/);
+        for (const series of seriesOf(svg))
+          expect(series.d, `${name} ${series.label}`).toMatch(/^M[\d.,-]+(L[\d.,-]+)+$/);
         // Two axis titles with their units.
         expect(svg).toMatch(name.startsWith('lap-time') ? /lap time, s/ : /shift from baseline, m/);
         expect(svg).toMatch(name.endsWith('massKg') ? /massKg, kg/ : /tyre\.muLat</);
@@ -129,7 +172,21 @@ describe('sweep report page', () => {
 
   it('shows a grid with many combinations of the other fields as its points and the line nearest the baseline', () => {
     const html = join(folder, 'grid3.html');
-    const run = runCli(['sweep', '--track', loop, '--car', 'cars/brackle-club.json', '--vary', 'massKg=600:640:20', 'tyre.muLat=-5%:+5%:5%', 'tyre.muLong=-5%:+5%:5%', '--workers', '1', '--html', html]);
+    const run = runCli([
+      'sweep',
+      '--track',
+      loop,
+      '--car',
+      'cars/brackle-club.json',
+      '--vary',
+      'massKg=600:640:20',
+      'tyre.muLat=-5%:+5%:5%',
+      'tyre.muLong=-5%:+5%:5%',
+      '--workers',
+      '1',
+      '--html',
+      html,
+    ]);
     expect(run.code).toBe(0);
     const svg = chartSource(readFileSync(html, 'utf8'), 'lap-time-massKg');
     // 3 x 3 x 3 runs: nine combinations of the other two fields, more than the lines a chart can tell apart.
@@ -169,7 +226,9 @@ describe('sweep report page', () => {
   it('shows a hostile car name as text', () => {
     expect(oatPage).not.toContain('<img');
     expect(oatPage).not.toContain('<script>window');
-    expect(oatPage).toContain('&lt;img src=x onerror=alert(1)&gt; &amp; &lt;script&gt;window.__sweepInjected=1&lt;/script&gt;');
+    expect(oatPage).toContain(
+      '&lt;img src=x onerror=alert(1)&gt; &amp; &lt;script&gt;window.__sweepInjected=1&lt;/script&gt;',
+    );
   });
 
   it('escapes a hostile field name from a sweep CSV', () => {
@@ -182,7 +241,12 @@ describe('sweep report page', () => {
   });
 
   it('writes each chart as a well-formed standalone SVG file', () => {
-    expect(readdirSync(svgFolder).sort()).toEqual(['braking-shift-massKg.svg', 'braking-shift-tyre.muLat.svg', 'lap-time-massKg.svg', 'lap-time-tyre.muLat.svg']);
+    expect(readdirSync(svgFolder).sort()).toEqual([
+      'braking-shift-massKg.svg',
+      'braking-shift-tyre.muLat.svg',
+      'lap-time-massKg.svg',
+      'lap-time-tyre.muLat.svg',
+    ]);
     for (const file of readdirSync(svgFolder)) {
       const svg = readFileSync(join(svgFolder, file), 'utf8');
       expect(XMLValidator.validate(svg), file).toBe(true);
@@ -196,7 +260,19 @@ describe('whatif report page', () => {
     const hairpin = writeHairpin(folder);
     const slick = writeSlickCar(folder);
     const html = join(folder, 'whatif.html');
-    const run = runCli(['whatif', '--track', hairpin, '--car', slick, '--start-speed-kph', '180', '--set', 'tyre.muLong=-20%', '--html', html]);
+    const run = runCli([
+      'whatif',
+      '--track',
+      hairpin,
+      '--car',
+      slick,
+      '--start-speed-kph',
+      '180',
+      '--set',
+      'tyre.muLong=-20%',
+      '--html',
+      html,
+    ]);
     expect(run.code).toBe(0);
     expect(run.stdout).toContain(`Report written to ${html}`);
     const page = readFileSync(html, 'utf8');

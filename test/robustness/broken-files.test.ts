@@ -40,7 +40,9 @@ describe('broken telemetry files', () => {
   });
 
   it('header only', async () => {
-    expect(await failure(read('header-only.csv'))).toMatch(new RegExp(`${place('header-only.csv')}header only, no data rows \\(header: time_s, speed_kph\\)$`));
+    expect(await failure(read('header-only.csv'))).toMatch(
+      new RegExp(`${place('header-only.csv')}header only, no data rows \\(header: time_s, speed_kph\\)$`),
+    );
   });
 
   it('BOM before the header: read as if it were not there', async () => {
@@ -73,7 +75,9 @@ describe('broken telemetry files', () => {
   });
 
   it('mixed separators: the row in the other separator is named', async () => {
-    expect(await failure(read('mixed-separators.csv'))).toMatch(new RegExp(`${place('mixed-separators.csv')}line 3, column time_s: '0\\.1,101' is not a number$`));
+    expect(await failure(read('mixed-separators.csv'))).toMatch(
+      new RegExp(`${place('mixed-separators.csv')}line 3, column time_s: '0\\.1,101' is not a number$`),
+    );
   });
 
   it('truncated last line: the missing cell is filled, with a note', async () => {
@@ -96,7 +100,9 @@ describe('broken telemetry files', () => {
   });
 
   it('text in a numeric column: the line, the column and the text are named', async () => {
-    expect(await failure(read('text-in-numeric.csv'))).toMatch(new RegExp(`${place('text-in-numeric.csv')}line 3, column speed_kph: 'fast' is not a number$`));
+    expect(await failure(read('text-in-numeric.csv'))).toMatch(
+      new RegExp(`${place('text-in-numeric.csv')}line 3, column speed_kph: 'fast' is not a number$`),
+    );
   });
 
   it('duplicated timestamps: accepted (time does not run backwards); check notes them', async () => {
@@ -109,17 +115,29 @@ describe('broken telemetry files', () => {
   });
 
   it('binary garbage: refused in one line, control characters escaped', async () => {
-    expect(await failure(read('binary-garbage.bin'))).toMatch(new RegExp(`${place('binary-garbage.bin')}no time column \\(found: .*\\); name it time_s or map it with --telemetry-columns time_s=NAME$`));
+    expect(await failure(read('binary-garbage.bin'))).toMatch(
+      new RegExp(
+        `${place('binary-garbage.bin')}no time column \\(found: .*\\); name it time_s or map it with --telemetry-columns time_s=NAME$`,
+      ),
+    );
     const [report] = (await checkFiles([broken('binary-garbage.bin')])).files;
-    expect(report!.problems).toEqual([`${broken('binary-garbage.bin')}: not a file reflap reads: expected a car or segment track (JSON), a centreline CSV (x_m, y_m), or a log (CSV with a time column, NMEA 0183, GPX)`]);
+    expect(report!.problems).toEqual([
+      `${broken('binary-garbage.bin')}: not a file reflap reads: expected a car or segment track (JSON), a centreline CSV (x_m, y_m), or a log (CSV with a time column, NMEA 0183, GPX)`,
+    ]);
   });
 
   it('NMEA with bad checksums only: refused, saying why', async () => {
-    expect(await failure(read('bad-checksums.nmea'))).toMatch(new RegExp(`${place('bad-checksums.nmea')}no RMC or GGA sentence with a GPS fix \\(3 sentences skipped for bad checksums\\)$`));
+    expect(await failure(read('bad-checksums.nmea'))).toMatch(
+      new RegExp(
+        `${place('bad-checksums.nmea')}no RMC or GGA sentence with a GPS fix \\(3 sentences skipped for bad checksums\\)$`,
+      ),
+    );
   });
 
   it('GPX that is not XML: refused with the XML line', async () => {
-    expect(await failure(read('not-xml.gpx'))).toMatch(new RegExp(`${place('not-xml.gpx')}not a GPX file \\(not valid XML at line 4: .*lat.*\\)$`));
+    expect(await failure(read('not-xml.gpx'))).toMatch(
+      new RegExp(`${place('not-xml.gpx')}not a GPX file \\(not valid XML at line 4: .*lat.*\\)$`),
+    );
   });
 
   describe('a single line of several megabytes (generated, not committed)', () => {
@@ -133,7 +151,11 @@ describe('broken telemetry files', () => {
       const file = join(folder, 'one-line.csv');
       writeFileSync(file, '1.25,'.repeat(600_000));
       const message = await failure(readTelemetryFile(file, { columns: {} }));
-      expect(message).toMatch(new RegExp(`^${escape(file)}: header only, no data rows \\(header: (1\\.25, )+1\\.2?\\.\\.\\. \\(600001 columns\\)\\)$`));
+      expect(message).toMatch(
+        new RegExp(
+          `^${escape(file)}: header only, no data rows \\(header: (1\\.25, )+1\\.2?\\.\\.\\. \\(600001 columns\\)\\)$`,
+        ),
+      );
       expect(message.length).toBeLessThan(600);
     });
 
@@ -154,7 +176,9 @@ describe('check on files too large for one string', () => {
     expect(good.summary).toBe('telemetry CSV: 4 samples over 0.3 s');
     expect(good.notes).toContain('large file: read by streaming, so only the first problem is listed');
     const bad = (await checkFiles([broken('car-three-problems.json')], { streamAboveBytes: 100 })).files[0]!;
-    expect(bad.problems).toEqual([`${broken('car-three-problems.json')}: car JSON of over 0 MB; only telemetry CSV files may be that large`]);
+    expect(bad.problems).toEqual([
+      `${broken('car-three-problems.json')}: car JSON of over 0 MB; only telemetry CSV files may be that large`,
+    ]);
   });
 });
 
@@ -187,10 +211,15 @@ describe('broken car and track files', () => {
     const file = broken('track-two-bad-cells.csv');
     expect(() => readTrackFile(file, TRACK_OPTIONS)).toThrow(`${file}: row 4, column y_m: 'abc' is not a number`);
     const [report] = (await checkFiles([file])).files;
-    expect(report!.problems).toEqual([`${file}: row 4, column y_m: 'abc' is not a number`, `${file}: row 6, column x_m: the cell is empty`]);
+    expect(report!.problems).toEqual([
+      `${file}: row 4, column y_m: 'abc' is not a number`,
+      `${file}: row 6, column x_m: the cell is empty`,
+    ]);
   });
 
   it('an empty track file', () => {
-    expect(() => readTrackFile(broken('empty.csv'), TRACK_OPTIONS)).toThrow(`${broken('empty.csv')}: the file is empty`);
+    expect(() => readTrackFile(broken('empty.csv'), TRACK_OPTIONS)).toThrow(
+      `${broken('empty.csv')}: the file is empty`,
+    );
   });
 });

@@ -18,7 +18,20 @@ const brokenFile = (name: string) => join(projectRoot, 'test', 'fixtures', 'brok
 beforeAll(() => {
   folder = mkdtempSync(join(tmpdir(), 'reflap-robust-'));
   track = join(folder, 'oval.json');
-  writeFileSync(track, JSON.stringify({ name: 'test oval', closed: true, widthM: 12, segments: [{ kind: 'straight', lengthM: 300 }, { kind: 'arc', radiusM: 50, angleDeg: 180 }, { kind: 'straight', lengthM: 300 }, { kind: 'arc', radiusM: 50, angleDeg: 180 }] }));
+  writeFileSync(
+    track,
+    JSON.stringify({
+      name: 'test oval',
+      closed: true,
+      widthM: 12,
+      segments: [
+        { kind: 'straight', lengthM: 300 },
+        { kind: 'arc', radiusM: 50, angleDeg: 180 },
+        { kind: 'straight', lengthM: 300 },
+        { kind: 'arc', radiusM: 50, angleDeg: 180 },
+      ],
+    }),
+  );
   car = join(folder, 'car.json');
   writeFileSync(car, readFileSync(join(projectRoot, 'cars', 'brackle-club.json')));
 });
@@ -60,7 +73,15 @@ describe('a failing command leaves no file behind', () => {
   it('simulate with a broken car: no trace file and no temporary file', () => {
     const outFolder = join(folder, 'fail-out');
     mkdirSync(outFolder);
-    const run = runCli(['simulate', '--track', track, '--car', brokenFile('car-three-problems.json'), '--out', join(outFolder, 'trace.csv')]);
+    const run = runCli([
+      'simulate',
+      '--track',
+      track,
+      '--car',
+      brokenFile('car-three-problems.json'),
+      '--out',
+      join(outFolder, 'trace.csv'),
+    ]);
     expectBadInput(run);
     expect(readdirSync(outFolder)).toEqual([]);
   });
@@ -97,7 +118,9 @@ describe('reflap check', () => {
     const run = runCli(['check', car, track, brokenFile('bom.csv')]);
     expect(run.code).toBe(0);
     expect(run.stdout).toContain(`${car}: ok (car JSON)`);
-    expect(run.stdout).toMatch(new RegExp(`oval\\.json: ok \\(segment track JSON: closed track, ${Math.round(600 + 2 * Math.PI * 50)} m\\)`));
+    expect(run.stdout).toMatch(
+      new RegExp(`oval\\.json: ok \\(segment track JSON: closed track, ${Math.round(600 + 2 * Math.PI * 50)} m\\)`),
+    );
     expect(run.stdout).toContain('bom.csv: ok (telemetry CSV: 4 samples over 0.3 s)');
   });
 
@@ -107,7 +130,9 @@ describe('reflap check', () => {
     expect(run.stderr).toBe('reflap: check: 2 of 3 files have problems\n');
     const lines = run.stdout.split('\n');
     expect(lines.filter((line) => line.startsWith(`  ${brokenFile('car-three-problems.json')}: `))).toHaveLength(3);
-    expect(run.stdout).toContain(`  ${brokenFile('track-two-bad-cells.csv')}: row 4, column y_m: 'abc' is not a number`);
+    expect(run.stdout).toContain(
+      `  ${brokenFile('track-two-bad-cells.csv')}: row 4, column y_m: 'abc' is not a number`,
+    );
     expect(run.stdout).toContain(`  ${brokenFile('track-two-bad-cells.csv')}: row 6, column x_m: the cell is empty`);
     expect(run.stdout).toContain(`${car}: ok`);
   });
@@ -115,7 +140,19 @@ describe('reflap check', () => {
   it('lists every schema problem of a segment track, not only the first', () => {
     const file = join(folder, 'track-three-problems.json');
     // An unknown key, a negative radius and a segment kind that does not exist: three problems, one line each.
-    writeFileSync(file, JSON.stringify({ name: 'x', closed: true, widthM: 10, sgements: [], segments: [{ kind: 'arc', radiusM: -5, angleDeg: 90 }, { kind: 'spiral', lengthM: 10 }] }));
+    writeFileSync(
+      file,
+      JSON.stringify({
+        name: 'x',
+        closed: true,
+        widthM: 10,
+        sgements: [],
+        segments: [
+          { kind: 'arc', radiusM: -5, angleDeg: 90 },
+          { kind: 'spiral', lengthM: 10 },
+        ],
+      }),
+    );
     const run = runCli(['check', file]);
     expectBadInput(run);
     const problems = run.stdout.split('\n').filter((line) => line.startsWith(`  ${file}: `));
@@ -142,21 +179,33 @@ describe('reflap check', () => {
 
 describe('CLI property: garbage in any input gives exit 0 or 2, one line on stderr when 2', () => {
   it('simulate, check and compare on fuzzed files', () => {
-    const garbage = fc.oneof(fc.string({ maxLength: 300 }), fc.uint8Array({ maxLength: 300 }).map((bytes) => Buffer.from(bytes).toString('latin1')), fc.constantFrom('{}', '{"massKg": -1}', 'x_m,y_m\n1,2\n', 'time_s\n0\n', '$GPRMC,*00'));
+    const garbage = fc.oneof(
+      fc.string({ maxLength: 300 }),
+      fc.uint8Array({ maxLength: 300 }).map((bytes) => Buffer.from(bytes).toString('latin1')),
+      fc.constantFrom('{}', '{"massKg": -1}', 'x_m,y_m\n1,2\n', 'time_s\n0\n', '$GPRMC,*00'),
+    );
     let index = 0;
     fc.assert(
-      fc.property(garbage, fc.constantFrom('.csv', '.json', '.gpx', '.nmea', ''), fc.constantFrom('simulate-track', 'simulate-car', 'check', 'compare'), (text, extension, how) => {
-        const file = join(folder, `fuzz-${index++}${extension}`);
-        writeFileSync(file, text, 'latin1');
-        const args =
-          how === 'simulate-track' ? ['simulate', '--track', file, '--car', car]
-          : how === 'simulate-car' ? ['simulate', '--track', track, '--car', file]
-          : how === 'check' ? ['check', file]
-          : ['compare', '--track', track, '--car', car, '--telemetry', file];
-        const run = runCli(args);
-        expect([0, 2]).toContain(run.code);
-        if (run.code === 2) expectBadInput(run);
-      }),
+      fc.property(
+        garbage,
+        fc.constantFrom('.csv', '.json', '.gpx', '.nmea', ''),
+        fc.constantFrom('simulate-track', 'simulate-car', 'check', 'compare'),
+        (text, extension, how) => {
+          const file = join(folder, `fuzz-${index++}${extension}`);
+          writeFileSync(file, text, 'latin1');
+          const args =
+            how === 'simulate-track'
+              ? ['simulate', '--track', file, '--car', car]
+              : how === 'simulate-car'
+                ? ['simulate', '--track', track, '--car', file]
+                : how === 'check'
+                  ? ['check', file]
+                  : ['compare', '--track', track, '--car', car, '--telemetry', file];
+          const run = runCli(args);
+          expect([0, 2]).toContain(run.code);
+          if (run.code === 2) expectBadInput(run);
+        },
+      ),
       { numRuns: 12, seed: 20260623 },
     );
   });

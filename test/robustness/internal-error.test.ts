@@ -24,10 +24,20 @@ describe('internal errors', () => {
       return true;
     });
     vi.spyOn(process.stdout, 'write').mockImplementation(() => true);
-    const code = await main(['node', 'reflap', 'simulate', '--track', join(projectRoot, 'tracks', 'tarnwick-club.json'), '--car', join(projectRoot, 'cars', 'brackle-club.json')]);
+    const code = await main([
+      'node',
+      'reflap',
+      'simulate',
+      '--track',
+      join(projectRoot, 'tracks', 'tarnwick-club.json'),
+      '--car',
+      join(projectRoot, 'cars', 'brackle-club.json'),
+    ]);
     const stderr = written.join('');
     expect(code).toBe(1);
     expect(stderr).toContain('reflap: internal error: TypeError: simulated fault inside the solver');
-    expect(stderr).toContain('This is a fault in reflap, not in your files; please report it with the command you ran.');
+    expect(stderr).toContain(
+      'This is a fault in reflap, not in your files; please report it with the command you ran.',
+    );
   });
 });

@@ -11,7 +11,11 @@ import { projectRoot } from '../helpers/cli.js';
 import { readCarFile } from '../../src/io/read-car.js';
 
 const ring = (radiusM: number, stepM = 1) =>
-  trackFromSegments({ name: 'ring', closed: true, widthM: 10, segments: [{ kind: 'arc', radiusM, angleDeg: 360 }] }, stepM, 'ring');
+  trackFromSegments(
+    { name: 'ring', closed: true, widthM: 10, segments: [{ kind: 'arc', radiusM, angleDeg: 360 }] },
+    stepM,
+    'ring',
+  );
 
 const openStage = (segments: TrackSegment[], stepM = 1) =>
   trackFromSegments({ name: 'stage', closed: false, widthM: 10, segments }, stepM, 'stage');
@@ -66,7 +70,14 @@ describe('straight-line kinematics', () => {
   // at the engine rating's reference conditions (SAE J1349: 25 °C, 99 kPa dry air), where the rated power applies
   // as it is, and its density comes from the ideal gas law with R = 287.05 J/(kg K) (ISO 2533).
   it('reaches the drag-limited top speed on a long straight', () => {
-    const car = testCar({ maxPowerW: 150_000, dragAreaM2: 0.7, rollingResistanceCoeff: 0.012, massKg: 1000, mu: 1.3, drive: 'rear' });
+    const car = testCar({
+      maxPowerW: 150_000,
+      dragAreaM2: 0.7,
+      rollingResistanceCoeff: 0.012,
+      massKg: 1000,
+      mu: 1.3,
+      drive: 'rear',
+    });
     const ambient = ambientFrom({ airTempC: 25, pressureHpa: 990 });
     const rho = 99_000 / (287.05 * 298.15);
     const demand = (v: number) => 0.5 * rho * 0.7 * v ** 3 + 0.012 * 1000 * g * v;
@@ -137,10 +148,18 @@ describe('lap invariants', () => {
     { kind: 'straight', lengthM: 400 - 2 * 70 * Math.sin(Math.PI / 3) * 0 },
     { kind: 'arc', radiusM: 120, angleDeg: 180 },
   ];
-  const car = testCar({ mu: 1.3, maxPowerW: 200_000, dragAreaM2: 0.8, liftAreaM2: 1.5, rollingResistanceCoeff: 0.012, drive: 'rear' });
+  const car = testCar({
+    mu: 1.3,
+    maxPowerW: 200_000,
+    dragAreaM2: 0.8,
+    liftAreaM2: 1.5,
+    rollingResistanceCoeff: 0.012,
+    drive: 'rear',
+  });
 
   it('halving the step changes the lap time by less than 0.1 % (step convergence)', () => {
-    const stage = (stepM: number) => trackFromSegments({ name: 'stage', closed: false, widthM: 10, segments }, stepM, 'stage');
+    const stage = (stepM: number) =>
+      trackFromSegments({ name: 'stage', closed: false, widthM: 10, segments }, stepM, 'stage');
     const coarse = simulate(stage(1), car).lapTimeS;
     const fine = simulate(stage(0.5), car).lapTimeS;
     expect(Math.abs(coarse - fine) / fine).toBeLessThan(0.001);
@@ -149,7 +168,8 @@ describe('lap invariants', () => {
   it('converges with the step for a car with gears and shift time too', () => {
     const geared = readCarFile(`${projectRoot}cars/tarnfell-gt.json`);
     expect(geared.powertrain.gearing?.shiftTimeS).toBeGreaterThan(0);
-    const stage = (stepM: number) => trackFromSegments({ name: 'stage', closed: false, widthM: 10, segments }, stepM, 'stage');
+    const stage = (stepM: number) =>
+      trackFromSegments({ name: 'stage', closed: false, widthM: 10, segments }, stepM, 'stage');
     const coarse = simulate(stage(1), geared).lapTimeS;
     const fine = simulate(stage(0.5), geared).lapTimeS;
     expect(Math.abs(coarse - fine) / fine).toBeLessThan(0.001);
@@ -165,7 +185,9 @@ describe('lap invariants', () => {
       // take each step's limit at one end); on the limit itself grip use is 1 by construction.
       expect(lap.trace.gripUse[i]).toBeLessThan(1.02);
       if (i > 0) expect(lap.trace.timeS[i]).toBeGreaterThan(lap.trace.timeS[i - 1]!);
-      expect(Math.abs(lap.trace.ayMps2[i]!)).toBeLessThanOrEqual(envelope.lateralLimitMps2(lap.trace.speedMps[i]!, 1) * (1 + 1e-6));
+      expect(Math.abs(lap.trace.ayMps2[i]!)).toBeLessThanOrEqual(
+        envelope.lateralLimitMps2(lap.trace.speedMps[i]!, 1) * (1 + 1e-6),
+      );
     }
   });
 });

@@ -14,14 +14,25 @@ describe('steering trace', () => {
     const car = clubCar();
     const radiusM = 90;
     const track = trackFromSegments(
-      { name: 'ring', closed: true, widthM: 12, segments: [{ kind: 'straight', lengthM: 300 }, { kind: 'arc', radiusM, angleDeg: 180 }, { kind: 'straight', lengthM: 300 }, { kind: 'arc', radiusM, angleDeg: 180 }] },
+      {
+        name: 'ring',
+        closed: true,
+        widthM: 12,
+        segments: [
+          { kind: 'straight', lengthM: 300 },
+          { kind: 'arc', radiusM, angleDeg: 180 },
+          { kind: 'straight', lengthM: 300 },
+          { kind: 'arc', radiusM, angleDeg: 180 },
+        ],
+      },
       1,
       'ring',
     );
     const lap = simulate(track, car, { ambient });
     const steer = steeringTraceDeg(lap, car);
     const massKg = car.massKg + car.fuel.massKg;
-    const kDegPerG = (massKg * G * 0.55) / (110_000 * (Math.PI / 180)) - (massKg * G * 0.45) / (120_000 * (Math.PI / 180));
+    const kDegPerG =
+      (massKg * G * 0.55) / (110_000 * (Math.PI / 180)) - (massKg * G * 0.45) / (120_000 * (Math.PI / 180));
     const mid = 300 + Math.round((Math.PI * radiusM) / 2); // middle of the first arc
     const ayG = lap.trace.ayMps2[mid]! / G;
     const kappa = lap.trace.curvaturePerM[mid]!;
@@ -32,11 +43,18 @@ describe('steering trace', () => {
 
   it('warns when an oversteering car goes faster than its critical speed, with the speed', () => {
     // Critical speed sqrt(-57.3 L g / K) (Gillespie, SAE 1992, ch. 6).
-    const car = clubCar({ frontWeightFraction: 0.4, tyre: { ...clubCar().tyre, corneringStiffnessFrontNPerRad: 120_000, corneringStiffnessRearNPerRad: 80_000 } });
+    const car = clubCar({
+      frontWeightFraction: 0.4,
+      tyre: { ...clubCar().tyre, corneringStiffnessFrontNPerRad: 120_000, corneringStiffnessRearNPerRad: 80_000 },
+    });
     const massKg = car.massKg + car.fuel.massKg;
     const kRad = (massKg * 0.4) / 120_000 - (massKg * 0.6) / 80_000;
     const criticalKph = Math.sqrt(-2.5 / kRad) * 3.6;
-    const track = trackFromSegments({ name: 'straight', closed: false, widthM: 12, segments: [{ kind: 'straight', lengthM: 2000 }] }, 1, 'straight');
+    const track = trackFromSegments(
+      { name: 'straight', closed: false, widthM: 12, segments: [{ kind: 'straight', lengthM: 2000 }] },
+      1,
+      'straight',
+    );
     const lap = simulate(track, car, { ambient, startSpeedMps: 10 });
     expect(lap.maxSpeedMps * 3.6).toBeGreaterThan(criticalKph);
     const warning = criticalSpeedWarning(lap, car);

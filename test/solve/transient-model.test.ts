@@ -1,6 +1,11 @@
 import { describe, expect, it } from 'vitest';
 import { newOdexSolver } from '../../src/solve/transient-odex.js';
-import { newSingleTrackForces, singleTrackForces, singleTrackModel, axleLateralForceN } from '../../src/solve/transient-model.js';
+import {
+  newSingleTrackForces,
+  singleTrackForces,
+  singleTrackModel,
+  axleLateralForceN,
+} from '../../src/solve/transient-model.js';
 import { bicycleParams } from '../../src/car/bicycle-params.js';
 import { understeerGradientRadPerMps2 } from '../../src/car/understeer.js';
 import { clubCar } from '../car/bicycle-fixtures.js';
@@ -33,8 +38,20 @@ describe('single-track model integrated with odex', () => {
   // with K in deg/g; written with K in rad per m/s^2 it is V / (L + K V^2).
   const cases: [string, Car][] = [
     ['understeering', clubCar()],
-    ['neutral', clubCar({ frontWeightFraction: 0.5, tyre: { ...clubCar().tyre, corneringStiffnessFrontNPerRad: 100_000, corneringStiffnessRearNPerRad: 100_000 } })],
-    ['oversteering, below its critical speed', clubCar({ frontWeightFraction: 0.42, tyre: { ...clubCar().tyre, corneringStiffnessFrontNPerRad: 120_000, corneringStiffnessRearNPerRad: 100_000 } })],
+    [
+      'neutral',
+      clubCar({
+        frontWeightFraction: 0.5,
+        tyre: { ...clubCar().tyre, corneringStiffnessFrontNPerRad: 100_000, corneringStiffnessRearNPerRad: 100_000 },
+      }),
+    ],
+    [
+      'oversteering, below its critical speed',
+      clubCar({
+        frontWeightFraction: 0.42,
+        tyre: { ...clubCar().tyre, corneringStiffnessFrontNPerRad: 120_000, corneringStiffnessRearNPerRad: 100_000 },
+      }),
+    ],
   ];
   for (const [label, car] of cases) {
     it(`settles to the steady-state yaw-rate gain: ${label}`, () => {

@@ -7,9 +7,13 @@ import { clubCar } from '../car/bicycle-fixtures.js';
 import type { Car } from '../../src/car/types.js';
 
 const ambient = ambientFrom();
-const closedTrack = (segments: TrackSegment[]) => trackFromSegments({ name: 'hand track', closed: true, widthM: 12, segments }, 1, 'hand track');
+const closedTrack = (segments: TrackSegment[]) =>
+  trackFromSegments({ name: 'hand track', closed: true, widthM: 12, segments }, 1, 'hand track');
 /** The same car with less grip: its reference leaves the full car a margin. */
-const gentler = (car: Car, share: number): Car => ({ ...car, tyre: { ...car.tyre, muLat: car.tyre.muLat * share, muLong: car.tyre.muLong * share } });
+const gentler = (car: Car, share: number): Car => ({
+  ...car,
+  tyre: { ...car.tyre, muLat: car.tyre.muLat * share, muLong: car.tyre.muLong * share },
+});
 
 describe('transient check', () => {
   it('follows a steady ring well inside the limit: on the line, at the reference lap time', () => {
@@ -25,7 +29,8 @@ describe('transient check', () => {
     // centimetres" hold from half a lap on, next line); a bound chosen as a tenth of the 6 m half-width.
     expect(check.maxDeviationM).toBeLessThan(0.6);
     // After the first half lap the start transient has died away.
-    for (let i = Math.floor(lap.trace.count / 2); i < lap.trace.count; i++) expect(Math.abs(check.lateralErrorM[i]!)).toBeLessThan(0.05);
+    for (let i = Math.floor(lap.trace.count / 2); i < lap.trace.count; i++)
+      expect(Math.abs(check.lateralErrorM[i]!)).toBeLessThan(0.05);
     expect(Math.abs(check.followedLapTimeS - lap.lapTimeS)).toBeLessThan(0.01 * lap.lapTimeS);
     expect(check.saturation).toEqual([]);
     // Half-way round, the followed car is at the reference speed (within 0.5 %).
@@ -49,7 +54,8 @@ describe('transient check', () => {
     expect(check.saturation.length).toBeGreaterThan(0);
     const arcLength = Math.PI * 50;
     // Corners span [400, 400 + arc] and [800 + arc, 800 + 2 arc]; saturation may start in the braking zone before.
-    const nearCorner = (m: number) => (m > 250 && m < 400 + arcLength + 60) || (m > 650 + arcLength && m < 800 + 2 * arcLength + 60) || m < 60;
+    const nearCorner = (m: number) =>
+      (m > 250 && m < 400 + arcLength + 60) || (m > 650 + arcLength && m < 800 + 2 * arcLength + 60) || m < 60;
     for (const zone of check.saturation) {
       expect(nearCorner(zone.fromM)).toBe(true);
     }
@@ -79,7 +85,16 @@ describe('transient check', () => {
     // ch. 6); so the followed car should stay on a 12 m wide track (room 6 m less half the car's 1.8 m width).
     const car = clubCar();
     const track = trackFromSegments(
-      { name: 'straight into a corner', closed: false, widthM: 12, segments: [{ kind: 'straight', lengthM: 800 }, { kind: 'arc', radiusM: 60, angleDeg: 240 }, { kind: 'straight', lengthM: 150 }] },
+      {
+        name: 'straight into a corner',
+        closed: false,
+        widthM: 12,
+        segments: [
+          { kind: 'straight', lengthM: 800 },
+          { kind: 'arc', radiusM: 60, angleDeg: 240 },
+          { kind: 'straight', lengthM: 150 },
+        ],
+      },
       1,
       'hand track',
     );
@@ -132,7 +147,11 @@ describe('transient check', () => {
   it('falls back to a fixed 1 m limit on a track without widths, and says so', () => {
     // Without widths there is no edge to measure against (definition); the verdict names the fixed limit.
     const car = clubCar();
-    const track = trackFromSegments({ name: 'no widths', closed: true, widthM: null, segments: [{ kind: 'arc', radiusM: 80, angleDeg: 360 }] }, 1, 'hand track');
+    const track = trackFromSegments(
+      { name: 'no widths', closed: true, widthM: null, segments: [{ kind: 'arc', radiusM: 80, angleDeg: 360 }] },
+      1,
+      'hand track',
+    );
     const lap = simulate(track, gentler(car, 0.9), { ambient });
     const check = checkTransient(lap, car, { ambient });
     expect(check.deviationLimitSource).toBe('fixed');

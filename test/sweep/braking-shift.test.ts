@@ -29,7 +29,13 @@ describe('braking-point shift for a change of muLong', () => {
     const air = { airTempC: 25, pressureHpa: 990 };
     const changed = applySettings({ car, air }, [parseSetting(`tyre.muLong=${changedMuLong}`)]);
     const options = { ambient: ambientFrom(air), startSpeedMps: v1Mps };
-    return { changed, comparison: compareSetupChange(simulate(track, car, options), simulate(track, changed.car, { ...options, ambient: changed.ambient })) };
+    return {
+      changed,
+      comparison: compareSetupChange(
+        simulate(track, car, options),
+        simulate(track, changed.car, { ...options, ambient: changed.ambient }),
+      ),
+    };
   };
 
   it('equals the difference of the kinematic braking distances (v1^2 - v2^2) / (2 mu g) within 1 m', () => {

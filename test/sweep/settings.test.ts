@@ -1,6 +1,12 @@
 import { describe, expect, it } from 'vitest';
 import { closestField, editDistance, readCarField } from '../../src/sweep/fields.js';
-import { applySettings, parseSetting, parseValueSpec, parseVariation, variationValues } from '../../src/sweep/settings.js';
+import {
+  applySettings,
+  parseSetting,
+  parseValueSpec,
+  parseVariation,
+  variationValues,
+} from '../../src/sweep/settings.js';
 import { planSweep, parseShard, shardRange } from '../../src/sweep/plan.js';
 import { InputError } from '../../src/errors.js';
 import { testCar } from '../helpers/cars.js';
@@ -45,7 +51,12 @@ describe('--set values', () => {
   });
 
   it('applies them to the car and the air', () => {
-    const changed = applySettings(base, [parseSetting('massKg=+20'), parseSetting('tyre.muLat=-5%'), parseSetting('airTempC=35'), parseSetting('fuel.massKg=10')]);
+    const changed = applySettings(base, [
+      parseSetting('massKg=+20'),
+      parseSetting('tyre.muLat=-5%'),
+      parseSetting('airTempC=35'),
+      parseSetting('fuel.massKg=10'),
+    ]);
     expect(changed.car.massKg).toBe(1420);
     expect(changed.car.tyre.muLat).toBeCloseTo(1.14, 12);
     expect(changed.car.fuel.massKg).toBe(10);
@@ -58,13 +69,17 @@ describe('--set values', () => {
   });
 
   it('refuses an unknown field with the closest name', () => {
-    expect(inputErrorOf(() => parseSetting('tyre.mulat=1.3'))).toMatch(/unknown field 'tyre.mulat'; did you mean 'tyre.muLat'/);
+    expect(inputErrorOf(() => parseSetting('tyre.mulat=1.3'))).toMatch(
+      /unknown field 'tyre.mulat'; did you mean 'tyre.muLat'/,
+    );
     expect(inputErrorOf(() => parseVariation('masKg=1:2:1'))).toMatch(/did you mean 'massKg'/);
   });
 
   it('refuses a change that makes the car invalid', () => {
     expect(inputErrorOf(() => applySettings(base, [parseSetting('massKg=-1500')]))).toMatch(/massKg must be positive/);
-    expect(inputErrorOf(() => applySettings(base, [parseSetting('fuel.massKg=-40')]))).toMatch(/fuel.massKg must not be negative/);
+    expect(inputErrorOf(() => applySettings(base, [parseSetting('fuel.massKg=-40')]))).toMatch(
+      /fuel.massKg must not be negative/,
+    );
     expect(inputErrorOf(() => applySettings(base, [parseSetting('airTempC=95')]))).toMatch(/airTempC/);
     expect(inputErrorOf(() => parseSetting('massKg=heavy'))).toMatch(/not a number/);
     expect(inputErrorOf(() => parseSetting('massKg=5%'))).toMatch(/ambiguous/);
@@ -93,20 +108,35 @@ describe('--vary ranges', () => {
 
   it('refuses a change in percent of a field that is 0 (every run would be the same)', () => {
     const noDownforce = { ...base, car: { ...base.car, aero: { ...base.car.aero, liftAreaM2: 0 } } };
-    expect(inputErrorOf(() => variationValues(noDownforce, parseVariation('aero.liftAreaM2=-10%:+10%:5%')))).toMatch(/percent of 0/);
+    expect(inputErrorOf(() => variationValues(noDownforce, parseVariation('aero.liftAreaM2=-10%:+10%:5%')))).toMatch(
+      /percent of 0/,
+    );
     expect(variationValues(noDownforce, parseVariation('aero.liftAreaM2=+0:+1:0.5'))).toEqual([0, 0.5, 1]);
   });
 
   it('refuses a sweep that reaches an invalid car before running anything', () => {
-    expect(inputErrorOf(() => planSweep(base, [parseVariation('massKg=0:100:50')], 'grid'))).toMatch(/massKg must be positive/);
+    expect(inputErrorOf(() => planSweep(base, [parseVariation('massKg=0:100:50')], 'grid'))).toMatch(
+      /massKg must be positive/,
+    );
   });
 
   it('orders grid runs with the last field fastest, after the baseline and the difference pairs', () => {
-    const plan = planSweep(base, [parseVariation('massKg=1400:1420:20'), parseVariation('tyre.muLat=1.1:1.3:0.1')], 'grid');
+    const plan = planSweep(
+      base,
+      [parseVariation('massKg=1400:1420:20'), parseVariation('tyre.muLat=1.1:1.3:0.1')],
+      'grid',
+    );
     expect(plan.kinds.slice(0, 5)).toEqual(['baseline', 'minus', 'plus', 'minus', 'plus']);
     const grid = [];
     for (let r = 5; r < plan.kinds.length; r++) grid.push(Array.from(plan.values.subarray(2 * r, 2 * r + 2)));
-    expect(grid).toEqual([[1400, 1.1], [1400, 1.2], [1400, 1.3], [1420, 1.1], [1420, 1.2], [1420, 1.3]]);
+    expect(grid).toEqual([
+      [1400, 1.1],
+      [1400, 1.2],
+      [1400, 1.3],
+      [1420, 1.1],
+      [1420, 1.2],
+      [1420, 1.3],
+    ]);
     // Central-difference pairs at the sweep's own step around the baseline.
     expect(Array.from(plan.values.subarray(2, 4))).toEqual([1380, 1.2]);
     expect(Array.from(plan.values.subarray(8, 10))).toEqual([1400, 1.3]);

@@ -13,10 +13,25 @@ import { testCar } from '../helpers/cars.js';
 import { stadium } from './tracks.js';
 
 const track = stadium(400, 30, 15, 1);
-const car = { ...testCar({ massKg: 900, muLong: 1.3, muLat: 1.25, maxPowerW: 150_000, dragAreaM2: 0.7, liftAreaM2: 0.5, drive: 'rear' }), fuel: { massKg: 40, burnKgPerLap: 3 } };
+const car = {
+  ...testCar({
+    massKg: 900,
+    muLong: 1.3,
+    muLat: 1.25,
+    maxPowerW: 150_000,
+    dragAreaM2: 0.7,
+    liftAreaM2: 0.5,
+    drive: 'rear',
+  }),
+  fuel: { massKg: 40, burnKgPerLap: 3 },
+};
 const air = { airTempC: 20, pressureHpa: 1005 };
 const base: SetupBase = { car, air };
-const variations = [parseVariation('massKg=880:920:20'), parseVariation('tyre.muLat=-4%:+4%:4%'), parseVariation('airTempC=10:30:10')];
+const variations = [
+  parseVariation('massKg=880:920:20'),
+  parseVariation('tyre.muLat=-4%:+4%:4%'),
+  parseVariation('airTempC=10:30:10'),
+];
 
 describe('sweep sensitivities', () => {
   it('agree with two separate simulate runs by central differences', async () => {
@@ -28,7 +43,12 @@ describe('sweep sensitivities', () => {
     const baseline = lap(car);
     const cases = [
       { s: found[0]!, h: 20, minus: lap({ ...car, massKg: 880 }), plus: lap({ ...car, massKg: 920 }) },
-      { s: found[1]!, h: 0.05, minus: lap({ ...car, tyre: { ...car.tyre, muLat: 1.2 } }), plus: lap({ ...car, tyre: { ...car.tyre, muLat: 1.3 } }) },
+      {
+        s: found[1]!,
+        h: 0.05,
+        minus: lap({ ...car, tyre: { ...car.tyre, muLat: 1.2 } }),
+        plus: lap({ ...car, tyre: { ...car.tyre, muLat: 1.3 } }),
+      },
       { s: found[2]!, h: 10, minus: lap(car, { ...air, airTempC: 10 }), plus: lap(car, { ...air, airTempC: 30 }) },
     ];
     for (const { s, h, minus, plus } of cases) {
@@ -59,7 +79,10 @@ describe('shards and workers', () => {
     const wholeCsv = sweepCsv(whole.table);
     const shards: { text: string; source: string }[] = [];
     for (let i = 0; i < 4; i++) {
-      const part = await runSweep({ track, base, variations, mode: 'grid', shard: { index: i, count: 4 } }, { workers: i % 2 === 0 ? 0 : 1 });
+      const part = await runSweep(
+        { track, base, variations, mode: 'grid', shard: { index: i, count: 4 } },
+        { workers: i % 2 === 0 ? 0 : 1 },
+      );
       expect(part.complete).toBe(false);
       shards.push({ text: sweepCsv(part.table), source: `shard${i + 1}.csv` });
     }
@@ -70,14 +93,21 @@ describe('shards and workers', () => {
     expect(sweepCsv(parseSweepCsv(wholeCsv, 'whole.csv'))).toBe(wholeCsv);
     // A shard left out, or a shard of another sweep, is a one-line error.
     expect(() => mergeSweepCsv(shards.slice(0, 3))).toThrow(/runs are missing/);
-    const other = await runSweep({ track, base, variations: variations.slice(0, 1), mode: 'grid', shard: { index: 1, count: 4 } }, { workers: 0 });
+    const other = await runSweep(
+      { track, base, variations: variations.slice(0, 1), mode: 'grid', shard: { index: 1, count: 4 } },
+      { workers: 0 },
+    );
     expect(() => mergeSweepCsv([shards[0]!, { text: sweepCsv(other.table), source: 'other.csv' }])).toThrow(InputError);
   });
 
   it('gives chart series of lap time and braking-point shift against each field', async () => {
     const { table } = await runSweep({ track, base, variations, mode: 'one-at-a-time' }, { workers: 0 });
     const series = sweepChartData(table);
-    expect(series.map((s) => s.values)).toEqual([[880, 900, 920], [1.2, 1.25, 1.3], [10, 20, 30]]);
+    expect(series.map((s) => s.values)).toEqual([
+      [880, 900, 920],
+      [1.2, 1.25, 1.3],
+      [10, 20, 30],
+    ]);
     // At the baseline value the shift from the baseline is zero, by definition of the series.
     expect(series[0]!.brakingPointShiftM.every((perCorner) => perCorner[1] === 0)).toBe(true);
     expect(series[0]!.lapTimeS[0]!).toBeLessThan(series[0]!.lapTimeS[2]!);

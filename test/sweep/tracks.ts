@@ -25,7 +25,13 @@ export function straightIntoHairpin(straightM: number, radiusM: number, exitM: n
  */
 export function stadium(straightM: number, radius1M: number, radius2M: number, stepM: number): TrackGrid {
   const pieces: [number, number][] = [
-    [straightM, 0], [Math.PI * radius1M, 1 / radius1M], [straightM * 0.5, 0], [40, 1 / 60], [40, -1 / 60], [straightM * 0.5, 0], [Math.PI * radius2M, 1 / radius2M],
+    [straightM, 0],
+    [Math.PI * radius1M, 1 / radius1M],
+    [straightM * 0.5, 0],
+    [40, 1 / 60],
+    [40, -1 / 60],
+    [straightM * 0.5, 0],
+    [Math.PI * radius2M, 1 / radius2M],
   ];
   const total = pieces.reduce((sum, [length]) => sum + length, 0);
   const n = Math.round(total / stepM);

@@ -14,7 +14,10 @@ const options: TrackReadOptions = { stepM: 1, columns: {}, widthM: null, layout:
 describe('centreline from sampled segments', () => {
   it('keeps the length within 0.05 %, the 190 m sweeper within 1 % and the 16 m hairpin within 10 %', () => {
     const text = readFileSync(path.join(projectRoot, 'tracks', 'velmora-downs.json'), 'utf8');
-    const design = JSON.parse(text) as { segments: { kind: string; radiusM?: number; angleDeg?: number; lengthM?: number }[]; corners: { atM: number; name: string }[] };
+    const design = JSON.parse(text) as {
+      segments: { kind: string; radiusM?: number; angleDeg?: number; lengthM?: number }[];
+      corners: { atM: number; name: string }[];
+    };
     const coarse = parseTrackText(text, 'velmora-downs.json', { ...options, stepM: 5 });
     const rows = ['x_m,y_m'];
     for (let i = 0; i < coarse.xM.length; i++) rows.push(`${coarse.xM[i]!.toFixed(3)},${coarse.yM[i]!.toFixed(3)}`);
@@ -22,7 +25,9 @@ describe('centreline from sampled segments', () => {
     expect(track.closed).toBe(true);
 
     let designLengthM = 0;
-    for (const segment of design.segments) designLengthM += segment.kind === 'arc' ? segment.radiusM! * Math.abs((segment.angleDeg! * Math.PI) / 180) : segment.lengthM!;
+    for (const segment of design.segments)
+      designLengthM +=
+        segment.kind === 'arc' ? segment.radiusM! * Math.abs((segment.angleDeg! * Math.PI) / 180) : segment.lengthM!;
     expect(Math.abs(track.lengthM / designLengthM - 1)).toBeLessThan(5e-4);
 
     const at = (name: string) => Math.round(design.corners.find((corner) => corner.name === name)!.atM / track.stepM);

@@ -18,9 +18,13 @@ describe('trackFromSegments', () => {
     expect(track.curvaturePerM.every((k) => k === 1 / radiusM)).toBe(true);
     // Start at the origin heading east, turning left: the centre is (0, R).
     let worst = 0;
-    for (let i = 0; i < track.xM.length; i++) worst = Math.max(worst, Math.abs(Math.hypot(track.xM[i]!, track.yM[i]! - radiusM) - radiusM));
+    for (let i = 0; i < track.xM.length; i++)
+      worst = Math.max(worst, Math.abs(Math.hypot(track.xM[i]!, track.yM[i]! - radiusM) - radiusM));
     expect(worst).toBeLessThan(1e-6);
-    expect(track.headingRad[track.headingRad.length - 1]! + track.stepM / radiusM - track.headingRad[0]!).toBeCloseTo(2 * Math.PI, 9);
+    expect(track.headingRad[track.headingRad.length - 1]! + track.stepM / radiusM - track.headingRad[0]!).toBeCloseTo(
+      2 * Math.PI,
+      9,
+    );
   });
 
   it('a stadium (straight, half circle, straight, half circle) closes and has length 2 L + 2 pi R', () => {
@@ -37,7 +41,10 @@ describe('trackFromSegments', () => {
     expect(track.lengthM).toBeCloseTo(600 + 2 * Math.PI * 60, 9);
     const n = track.xM.length;
     // The last sample lies one step back along the closing arc: the gap to the first is the chord 2 R sin(h / 2R).
-    expect(Math.hypot(track.xM[0]! - track.xM[n - 1]!, track.yM[0]! - track.yM[n - 1]!)).toBeCloseTo(120 * Math.sin(track.stepM / 120), 9);
+    expect(Math.hypot(track.xM[0]! - track.xM[n - 1]!, track.yM[0]! - track.yM[n - 1]!)).toBeCloseTo(
+      120 * Math.sin(track.stepM / 120),
+      9,
+    );
     // Far straight runs west at y = 2R.
     const mid = Math.round((300 + 60 * Math.PI + 150) / track.stepM);
     expect(track.yM[mid]).toBeCloseTo(120, 6);
@@ -69,7 +76,11 @@ describe('trackFromSegments', () => {
       c += ((-1) ** k * (Math.PI / 2) ** (2 * k) * t ** (4 * k + 1)) / (factorial * (4 * k + 1));
       s += ((-1) ** k * (Math.PI / 2) ** (2 * k + 1) * t ** (4 * k + 3)) / (factorial * (2 * k + 1) * (4 * k + 3));
     }
-    const track = trackFromSegments(spec([{ kind: 'transition', lengthM, startCurvature: 0, endCurvature }], false), 1, 'clothoid');
+    const track = trackFromSegments(
+      spec([{ kind: 'transition', lengthM, startCurvature: 0, endCurvature }], false),
+      1,
+      'clothoid',
+    );
     const n = track.xM.length;
     expect(track.xM[n - 1]).toBeCloseTo(a * Math.sqrt(Math.PI) * c, 6);
     expect(track.yM[n - 1]).toBeCloseTo(a * Math.sqrt(Math.PI) * s, 6);
@@ -106,13 +117,19 @@ describe('trackFromSegments', () => {
       message = (error as Error).message;
     }
     // 5 degrees short, and the end is off by about 10 m along the straight plus the missing arc.
-    expect(message).toMatch(/^open-stadium\.json: segments: the closed track does not close: it ends \d+\.\d\d m from its start .* heading off by -5\.00 degrees/);
+    expect(message).toMatch(
+      /^open-stadium\.json: segments: the closed track does not close: it ends \d+\.\d\d m from its start .* heading off by -5\.00 degrees/,
+    );
     expect(message).not.toContain('\n');
   });
 
   it('names the corner that lies outside the track', () => {
     expect(() =>
-      trackFromSegments({ ...spec([{ kind: 'arc', radiusM: 10, angleDeg: 360 }]), corners: [{ atM: 100, name: 'Far' }] }, 1, 'ring.json'),
+      trackFromSegments(
+        { ...spec([{ kind: 'arc', radiusM: 10, angleDeg: 360 }]), corners: [{ atM: 100, name: 'Far' }] },
+        1,
+        'ring.json',
+      ),
     ).toThrow(/^ring\.json: corners\[0\]\.atM: 100 m is outside the track/);
   });
 });

@@ -109,7 +109,10 @@ describe('trackFromCentreline', () => {
       xM[i] = 50 * Math.sin(a);
       yM[i] = 50 - 50 * Math.cos(a);
     }
-    const track = trackFromCentreline({ xM, yM, widthLeftM: null, widthRightM: null }, { ...options, closed: false, smoothingM: 0 });
+    const track = trackFromCentreline(
+      { xM, yM, widthLeftM: null, widthRightM: null },
+      { ...options, closed: false, smoothingM: 0 },
+    );
     expect(track.lengthM).toBeCloseTo(25 * Math.PI, 1);
     expect(track.xM[track.xM.length - 1]).toBeCloseTo(50, 2);
     const middle = track.curvaturePerM.subarray(5, -5);

@@ -61,7 +61,10 @@ export function runBudget(values: BudgetValues): void {
           lateralShare: round(budget.lateralShare, 4),
           brakingAvailableG: round(budget.brakingAvailableG, 4),
           accelAvailableG: round(budget.accelAvailableG, 4),
-          linearSplit: { brakingAvailableG: round(budget.linearBrakingAvailableG, 4), accelAvailableG: round(budget.linearAccelAvailableG, 4) },
+          linearSplit: {
+            brakingAvailableG: round(budget.linearBrakingAvailableG, 4),
+            accelAvailableG: round(budget.linearAccelAvailableG, 4),
+          },
           straightLine: { brakingG: round(budget.brakingStraightG, 4), accelG: round(budget.accelStraightG, 4) },
         },
         null,
@@ -76,7 +79,9 @@ export function runBudget(values: BudgetValues): void {
     `Lateral limit at this speed: ${g(budget.lateralLimitG)}; in use: ${percent(budget.lateralShare)}`,
   ];
   if (budget.lateralShare > 1) {
-    lines.push('That is beyond the lateral limit: the car cannot hold this corner at this speed, so nothing is left to brake or accelerate with.');
+    lines.push(
+      'That is beyond the lateral limit: the car cannot hold this corner at this speed, so nothing is left to brake or accelerate with.',
+    );
   } else {
     lines.push(
       '',

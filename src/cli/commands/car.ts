@@ -14,7 +14,9 @@ interface CarValues extends CarOptionValues {
 }
 
 export function register(program: Command): void {
-  const command = program.command('car').description('describe a car: axle loads, understeer gradient, envelope at a few speeds');
+  const command = program
+    .command('car')
+    .description('describe a car: axle loads, understeer gradient, envelope at a few speeds');
   addCarOptions(command);
   command
     .option('--json', 'print one JSON object instead of the text')

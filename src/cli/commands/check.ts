@@ -19,7 +19,10 @@ export function formatCheckReport(report: CheckReport): string {
   const lines: string[] = [];
   for (const check of report.files) {
     if (check.problems.length === 0) lines.push(`${check.file}: ok (${check.summary ?? KIND_LABELS[check.kind]})`);
-    else lines.push(`${check.file}: ${check.problems.length} problem${check.problems.length > 1 ? 's' : ''} (${KIND_LABELS[check.kind]})`);
+    else
+      lines.push(
+        `${check.file}: ${check.problems.length} problem${check.problems.length > 1 ? 's' : ''} (${KIND_LABELS[check.kind]})`,
+      );
     for (const problem of check.problems) lines.push(`  ${problem}`);
     for (const note of check.notes) lines.push(`  note: ${note}`);
   }
@@ -30,5 +33,8 @@ export async function runCheck(files: string[], values: { json?: boolean }): Pro
   const report = await checkFiles(files);
   process.stdout.write(values.json ? JSON.stringify(report, null, 2) + '\n' : formatCheckReport(report));
   const bad = report.files.filter((check) => check.problems.length > 0).length;
-  if (bad > 0) throw new InputError(`check: ${bad} of ${report.files.length} file${report.files.length > 1 ? 's have' : ' has'} problems`);
+  if (bad > 0)
+    throw new InputError(
+      `check: ${bad} of ${report.files.length} file${report.files.length > 1 ? 's have' : ' has'} problems`,
+    );
 }

@@ -3,9 +3,24 @@
 
 import path from 'node:path';
 import type { Command } from 'commander';
-import { addCarOptions, addTrackOptions, inputFilesOf, loadCar, loadTrack, startSpeedMps, type CarOptionValues, type TrackOptionValues } from '../options.js';
+import {
+  addCarOptions,
+  addTrackOptions,
+  inputFilesOf,
+  loadCar,
+  loadTrack,
+  startSpeedMps,
+  type CarOptionValues,
+  type TrackOptionValues,
+} from '../options.js';
 import { outputBatch } from '../output.js';
-import { addTelemetryOptions, lapOption, loadSession, startFinishOption, type TelemetryOptionValues } from './telemetry-options.js';
+import {
+  addTelemetryOptions,
+  lapOption,
+  loadSession,
+  startFinishOption,
+  type TelemetryOptionValues,
+} from './telemetry-options.js';
 import { compareSession, type SessionComparison } from '../../compare/compare-session.js';
 import { readEnvelopeFile } from '../../io/read-envelope.js';
 import { alignedTracesCsv, compareSummaryJson, compareSummaryText } from '../../report/compare-summary.js';
@@ -25,15 +40,26 @@ export interface CompareValues extends TrackOptionValues, CarOptionValues, Telem
 }
 
 export function register(program: Command): void {
-  const command = program.command('compare').description("compare a driver's logged lap with the reference lap of the same car, corner by corner");
+  const command = program
+    .command('compare')
+    .description("compare a driver's logged lap with the reference lap of the same car, corner by corner");
   addTrackOptions(command);
   addCarOptions(command);
   addTelemetryOptions(command);
   command
-    .option('--line <auto|file>', "run the reference on a racing line: 'auto' optimises the time line, or a line CSV from `reflap line --out` (default: the centreline)")
-    .option('--envelope <file>', "use this demonstrated envelope (from `reflap envelope`) for the reference instead of the car model's")
+    .option(
+      '--line <auto|file>',
+      "run the reference on a racing line: 'auto' optimises the time line, or a line CSV from `reflap line --out` (default: the centreline)",
+    )
+    .option(
+      '--envelope <file>',
+      "use this demonstrated envelope (from `reflap envelope`) for the reference instead of the car model's",
+    )
     .option('--json', 'print one JSON object instead of the summary')
-    .option('--out <dir>', 'write the aligned traces (aligned.csv) and the corner table (corners.csv) into this folder');
+    .option(
+      '--out <dir>',
+      'write the aligned traces (aligned.csv) and the corner table (corners.csv) into this folder',
+    );
   addReportOptions(command).action((values: CompareValues) => runCompare(values));
 }
 
@@ -41,14 +67,23 @@ export function register(program: Command): void {
 export type CliComparison = SessionComparison & { linePositions?: { xM: Float64Array; yM: Float64Array } };
 
 /** The comparison from already-read records, shared by `compare` and `demo`. */
-export function compareFromRecords(track: TrackGrid, car: Car, ambient: Ambient, session: TelemetrySession, values: Partial<CompareValues>): CliComparison {
+export function compareFromRecords(
+  track: TrackGrid,
+  car: Car,
+  ambient: Ambient,
+  session: TelemetrySession,
+  values: Partial<CompareValues>,
+): CliComparison {
   const lap = values.lap !== undefined ? lapOption(values as TelemetryOptionValues) : undefined;
   const startFinish = values.startFinish !== undefined ? startFinishOption(values as TelemetryOptionValues) : undefined;
   const envelopeRecord = values.envelope ? readEnvelopeFile(values.envelope) : undefined;
   const start = values.track ? startSpeedMps(values as TrackOptionValues) : 0;
   // The line is optimised on the envelope the reference drives: the demonstrated one where --envelope gives it.
   const line = values.line
-    ? resolveLinePath(track, car, ambient, values.line, { startSpeedMps: start, ...(envelopeRecord ? { envelope: demonstratedEnvelope(envelopeRecord) } : {}) })
+    ? resolveLinePath(track, car, ambient, values.line, {
+        startSpeedMps: start,
+        ...(envelopeRecord ? { envelope: demonstratedEnvelope(envelopeRecord) } : {}),
+      })
     : undefined;
   const comparison = compareSession(track, car, session, {
     ambient,
@@ -64,16 +99,49 @@ export function compareFromRecords(track: TrackGrid, car: Car, ambient: Ambient,
 /** Files `--out DIR` writes: the aligned traces and the corner table. */
 export function comparisonFiles(comparison: SessionComparison, dir: string): { file: string; content: string }[] {
   return [
-    { file: path.join(dir, 'aligned.csv'), content: alignedTracesCsv(comparison.result, comparison.reference, comparison.lap) },
+    {
+      file: path.join(dir, 'aligned.csv'),
+      content: alignedTracesCsv(comparison.result, comparison.reference, comparison.lap),
+    },
     { file: path.join(dir, 'corners.csv'), content: cornersCsv(comparison) },
   ];
 }
 
 function cornersCsv(comparison: SessionComparison): string {
   const rows = compareSummaryJson(comparison.result).corners;
-  const columns = ['id', 'name', 'entryM', 'apexM', 'exitM', 'brakingPointDeltaM', 'brakingPointDeltaS', 'entrySpeedDriverKph', 'entrySpeedReferenceKph', 'minSpeedDriverKph', 'minSpeedReferenceKph', 'minSpeedDeltaKph', 'minSpeedOffsetFromApexM', 'exitSpeedDriverKph', 'exitSpeedReferenceKph', 'entryTimeLostS', 'middleTimeLostS', 'exitTimeLostS', 'timeLostS', 'coastingS', 'meanGripUse', 'peakGripUse'] as const;
-  const cell = (value: unknown) => (value === null || value === undefined ? '' : typeof value === 'string' ? `"${value.replace(/"/g, '""')}"` : String(value));
-  return [columns.join(','), ...rows.map((row) => columns.map((column) => cell(row[column])).join(','))].join('\n') + '\n';
+  const columns = [
+    'id',
+    'name',
+    'entryM',
+    'apexM',
+    'exitM',
+    'brakingPointDeltaM',
+    'brakingPointDeltaS',
+    'entrySpeedDriverKph',
+    'entrySpeedReferenceKph',
+    'minSpeedDriverKph',
+    'minSpeedReferenceKph',
+    'minSpeedDeltaKph',
+    'minSpeedOffsetFromApexM',
+    'exitSpeedDriverKph',
+    'exitSpeedReferenceKph',
+    'entryTimeLostS',
+    'middleTimeLostS',
+    'exitTimeLostS',
+    'timeLostS',
+    'coastingS',
+    'meanGripUse',
+    'peakGripUse',
+  ] as const;
+  const cell = (value: unknown) =>
+    value === null || value === undefined
+      ? ''
+      : typeof value === 'string'
+        ? `"${value.replace(/"/g, '""')}"`
+        : String(value);
+  return (
+    [columns.join(','), ...rows.map((row) => columns.map((column) => cell(row[column])).join(','))].join('\n') + '\n'
+  );
 }
 
 export async function runCompare(values: CompareValues): Promise<void> {
@@ -83,7 +151,11 @@ export async function runCompare(values: CompareValues): Promise<void> {
   const comparison = compareFromRecords(track, car, ambient, session, values);
   const outputs = outputBatch(inputFilesOf(values));
   if (values.out) for (const { file, content } of comparisonFiles(comparison, values.out)) outputs.add(file, content);
-  const reportFiles = addReportOutputs(outputs, values, sessionReportInput(comparison, car, ambient, comparison.linePositions));
+  const reportFiles = addReportOutputs(
+    outputs,
+    values,
+    sessionReportInput(comparison, car, ambient, comparison.linePositions),
+  );
   outputs.commit();
   if (values.json) {
     process.stdout.write(JSON.stringify(compareSummaryJson(comparison.result), null, 2) + '\n');

@@ -37,7 +37,10 @@ export function packageRoot(): string {
       }
     }
     const parent = path.dirname(folder);
-    if (parent === folder) throw new Error('cannot find the reflap package folder (with cars/ and tracks/) above ' + fileURLToPath(import.meta.url));
+    if (parent === folder)
+      throw new Error(
+        'cannot find the reflap package folder (with cars/ and tracks/) above ' + fileURLToPath(import.meta.url),
+      );
     folder = parent;
   }
 }
@@ -45,7 +48,9 @@ export function packageRoot(): string {
 export function register(program: Command): void {
   const command = program
     .command('demo')
-    .description('make an invented driver lap on the demo circuit, write it to ./out/ and compare it with the reference')
+    .description(
+      'make an invented driver lap on the demo circuit, write it to ./out/ and compare it with the reference',
+    )
     .option('--out <dir>', 'folder for the demo files', 'out')
     .option('--seed <n>', 'seed of the logging noise (same seed, same files)');
   // --html defaults to report.html in the demo folder.
@@ -69,10 +74,15 @@ export function runDemo(values: DemoValues): void {
   const outputs = outputBatch([trackFile, carFile]);
   outputs.add(logFile, csv);
   for (const { file, content } of comparisonFiles(comparison, values.out)) outputs.add(file, content);
-  const reportOptions = { html: values.html ?? path.join(values.out, 'report.html'), ...(values.svg ? { svg: values.svg } : {}) };
+  const reportOptions = {
+    html: values.html ?? path.join(values.out, 'report.html'),
+    ...(values.svg ? { svg: values.svg } : {}),
+  };
   const reportFiles = addReportOutputs(outputs, reportOptions, sessionReportInput(comparison, car, ambient));
   outputs.commit();
-  const faults = lap.faults.map((f) => `${f.kind.replace(/-/g, ' ')} at corner ${f.cornerId}${f.cornerName ? ` (${f.cornerName})` : ''}`).join('; ');
+  const faults = lap.faults
+    .map((f) => `${f.kind.replace(/-/g, ' ')} at corner ${f.cornerId}${f.cornerName ? ` (${f.cornerName})` : ''}`)
+    .join('; ');
   process.stdout.write(
     `Demo: an invented driver in the ${car.name} on ${track.name}, logged at ${DEFAULT_DEMO_LOG.rateHz} Hz with sensor and GPS noise.\n` +
       `The driver model's faults: ${faults}.\n` +
@@ -80,5 +90,7 @@ export function runDemo(values: DemoValues): void {
   );
   process.stdout.write(compareSummaryText(comparison.result));
   process.stdout.write('\n' + reportWrittenText(reportFiles).replace(/\n$/, ' (open it in a browser)\n'));
-  process.stdout.write(`\nTo run this comparison yourself: reflap compare --track ${trackFile} --car ${carFile} --telemetry ${logFile}\n`);
+  process.stdout.write(
+    `\nTo run this comparison yourself: reflap compare --track ${trackFile} --car ${carFile} --telemetry ${logFile}\n`,
+  );
 }

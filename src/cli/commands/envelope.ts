@@ -19,7 +19,9 @@ interface EnvelopeValues extends Pick<TelemetryOptionValues, 'telemetry' | 'tele
 export function register(program: Command): void {
   program
     .command('envelope')
-    .description("fit the g-g-v envelope the driver has demonstrated in a logged session (per speed band, 98th percentile by direction)")
+    .description(
+      'fit the g-g-v envelope the driver has demonstrated in a logged session (per speed band, 98th percentile by direction)',
+    )
     .requiredOption('--telemetry <file>', 'driver log with speed and both accelerations (CSV), e.g. from a data logger')
     .option('--telemetry-columns <map>', 'read other column names in the log, e.g. ax_g=LongAcc,ay_g=LatAcc')
     .option('--out <file>', 'write the envelope as JSON (default: print it)')
@@ -29,11 +31,23 @@ export function register(program: Command): void {
 
 /** Samples of the session for the fit; the log must carry speed and both accelerations. */
 export function sessionSamples(session: TelemetrySession) {
-  const missing = [!session.speedMps && 'speed', !session.axMps2 && 'longitudinal acceleration', !session.ayMps2 && 'lateral acceleration'].filter(Boolean);
+  const missing = [
+    !session.speedMps && 'speed',
+    !session.axMps2 && 'longitudinal acceleration',
+    !session.ayMps2 && 'lateral acceleration',
+  ].filter(Boolean);
   if (missing.length > 0) {
-    throw new InputError(`${session.source}: fitting an envelope needs ${missing.join(', ')} channels; the log has none (map them with --telemetry-columns)`);
+    throw new InputError(
+      `${session.source}: fitting an envelope needs ${missing.join(', ')} channels; the log has none (map them with --telemetry-columns)`,
+    );
   }
-  return { speedMps: session.speedMps!, axMps2: session.axMps2!, ayMps2: session.ayMps2!, throttle: session.throttle, brake: session.brake };
+  return {
+    speedMps: session.speedMps!,
+    axMps2: session.axMps2!,
+    ayMps2: session.ayMps2!,
+    throttle: session.throttle,
+    brake: session.brake,
+  };
 }
 
 export function envelopeText(record: DemonstratedEnvelopeRecord): string {
@@ -45,11 +59,13 @@ export function envelopeText(record: DemonstratedEnvelopeRecord): string {
     mps2ToG(band.leftMps2).toFixed(2),
     mps2ToG(band.rightMps2).toFixed(2),
   ]);
-  return [
-    `Demonstrated envelope from ${record.source} (${(record.quantile * 100).toFixed(0)}th percentile per ${mpsToKph(record.bandWidthMps).toFixed(0)} km/h band, in g)`,
-    formatTable(['km/h', 'samples', 'braking', 'accel', 'left', 'right'], rows),
-    `Top speed reached ${mpsToKph(record.topSpeedMps).toFixed(1)} km/h; coasting ${record.coast.fitted ? 'fitted from the log' : 'assumed (the log has no coasting with pedal channels)'}.`,
-  ].join('\n') + '\n';
+  return (
+    [
+      `Demonstrated envelope from ${record.source} (${(record.quantile * 100).toFixed(0)}th percentile per ${mpsToKph(record.bandWidthMps).toFixed(0)} km/h band, in g)`,
+      formatTable(['km/h', 'samples', 'braking', 'accel', 'left', 'right'], rows),
+      `Top speed reached ${mpsToKph(record.topSpeedMps).toFixed(1)} km/h; coasting ${record.coast.fitted ? 'fitted from the log' : 'assumed (the log has no coasting with pedal channels)'}.`,
+    ].join('\n') + '\n'
+  );
 }
 
 export async function runEnvelope(values: EnvelopeValues): Promise<void> {

@@ -15,7 +15,17 @@ import { LINE_OBJECTIVES, type LineObjective, type RacingLine } from '../../line
 import { readLineFile } from '../../io/read-line.js';
 import { SAFETY_CAUTION, round } from '../../report/lap-summary.js';
 import { formatLapTime } from '../../units.js';
-import { addCarOptions, addTrackOptions, inputFilesOf, loadCar, loadTrack, numberOption, startSpeedMps, type CarOptionValues, type TrackOptionValues } from '../options.js';
+import {
+  addCarOptions,
+  addTrackOptions,
+  inputFilesOf,
+  loadCar,
+  loadTrack,
+  numberOption,
+  startSpeedMps,
+  type CarOptionValues,
+  type TrackOptionValues,
+} from '../options.js';
 import { outputBatch } from '../output.js';
 
 interface LineValues extends TrackOptionValues, CarOptionValues {
@@ -30,7 +40,11 @@ export function register(program: Command): void {
   addTrackOptions(command);
   addCarOptions(command);
   command
-    .addOption(new Option('--objective <kind>', 'time: fastest line for this car; curvature: minimum-curvature line').choices([...LINE_OBJECTIVES]).default('time'))
+    .addOption(
+      new Option('--objective <kind>', 'time: fastest line for this car; curvature: minimum-curvature line')
+        .choices([...LINE_OBJECTIVES])
+        .default('time'),
+    )
     .option('--margin-m <m>', "distance kept from each edge, m (default: half the car's width + 0.3 m, else 0.8)")
     .option('--out <file>', 'write the line as CSV (s_m,offset_m,x_m,y_m,curvature_1pm)')
     .option('--json', 'print one JSON object instead of the summary')
@@ -39,7 +53,8 @@ export function register(program: Command): void {
 
 export function marginFrom(value: string | undefined, car: Car): number {
   const marginM = numberOption(value, '--margin-m', defaultMarginM(car));
-  if (!(marginM >= 0) || marginM > 20) throw new InputError(`option --margin-m: ${marginM} is out of range (0 to 20 m)`);
+  if (!(marginM >= 0) || marginM > 20)
+    throw new InputError(`option --margin-m: ${marginM} is out of range (0 to 20 m)`);
   return marginM;
 }
 
@@ -64,7 +79,9 @@ export function lineSummaryJson(line: RacingLine, track: TrackGrid, carName: str
 
 export function lineSummaryText(line: RacingLine, track: TrackGrid, carName: string): string {
   const gain = line.centrelineLap.lapTimeS - line.lap.lapTimeS;
-  const radius = Number.isFinite(line.minRadiusM) ? `${line.minRadiusM.toFixed(1)} m at ${line.minRadiusAtM.toFixed(0)} m` : 'none (straight)';
+  const radius = Number.isFinite(line.minRadiusM)
+    ? `${line.minRadiusM.toFixed(1)} m at ${line.minRadiusAtM.toFixed(0)} m`
+    : 'none (straight)';
   return [
     `${track.name} · ${carName} · ${line.objective} line, ${line.marginM.toFixed(2)} m from the edges`,
     `Lap on the centreline   ${formatLapTime(line.centrelineLap.lapTimeS)}`,
@@ -83,7 +100,13 @@ export function runLine(values: LineValues): void {
   const { car, ambient } = loadCar(values);
   const marginM = marginFrom(values.marginM, car);
   const envelope = buildEnvelope(car, ambient);
-  const line = racingLine(track, car, { objective: values.objective ?? 'time', marginM, ambient, envelope, startSpeedMps: startSpeedMps(values) });
+  const line = racingLine(track, car, {
+    objective: values.objective ?? 'time',
+    marginM,
+    ambient,
+    envelope,
+    startSpeedMps: startSpeedMps(values),
+  });
   const outputs = outputBatch(inputFilesOf(values));
   if (values.out) outputs.add(values.out, lineCsv(line));
   outputs.commit();
@@ -117,7 +140,13 @@ export function resolveLinePath(
 ): ResolvedLine {
   if (value === 'auto') {
     const marginM = options.marginM ?? defaultMarginM(car);
-    const line = racingLine(track, car, { objective: 'time', marginM, ambient, envelope: options.envelope, startSpeedMps: options.startSpeedMps });
+    const line = racingLine(track, car, {
+      objective: 'time',
+      marginM,
+      ambient,
+      envelope: options.envelope,
+      startSpeedMps: options.startSpeedMps,
+    });
     return { path: line.path, offsetM: line.offsetM, xM: line.xM, yM: line.yM, lap: line.lap };
   }
   const offsetM = readLineFile(value, track);

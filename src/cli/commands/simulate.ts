@@ -1,7 +1,16 @@
 // `reflap simulate`: the reference lap of a car on a track, as a summary, a JSON object or a trace CSV.
 
 import type { Command } from 'commander';
-import { addCarOptions, addTrackOptions, inputFilesOf, loadCar, loadTrack, startSpeedMps, type CarOptionValues, type TrackOptionValues } from '../options.js';
+import {
+  addCarOptions,
+  addTrackOptions,
+  inputFilesOf,
+  loadCar,
+  loadTrack,
+  startSpeedMps,
+  type CarOptionValues,
+  type TrackOptionValues,
+} from '../options.js';
 import { simulate } from '../../solve/simulate.js';
 import { buildEnvelope } from '../../car/build-envelope.js';
 import { traceCsv, type ExtraColumn } from '../../report/trace-csv.js';
@@ -28,18 +37,32 @@ export function register(program: Command): void {
   command
     .option('--out <file>', 'write the lap trace as CSV')
     .option('--json', 'print one JSON object instead of the summary')
-    .option('--envelope <file>', "drive on this demonstrated envelope (from `reflap envelope`) instead of the car model's")
-    .option('--line <auto|file>', "drive a racing line: 'auto' computes the time line first, or a line CSV from `reflap line --out`")
-    .option('--check-transient', 'follow the reference with the single-track model and a driver model, and report whether it is drivable');
+    .option(
+      '--envelope <file>',
+      "drive on this demonstrated envelope (from `reflap envelope`) instead of the car model's",
+    )
+    .option(
+      '--line <auto|file>',
+      "drive a racing line: 'auto' computes the time line first, or a line CSV from `reflap line --out`",
+    )
+    .option(
+      '--check-transient',
+      'follow the reference with the single-track model and a driver model, and report whether it is drivable',
+    );
   addReportOptions(command).action((values: SimulateValues) => runSimulate(values));
 }
 
 export function runSimulate(values: SimulateValues): void {
   const track = loadTrack(values);
   const { car, ambient } = loadCar(values);
-  const envelope = values.envelope ? demonstratedEnvelope(readEnvelopeFile(values.envelope)) : buildEnvelope(car, ambient);
-  const line = values.line ? resolveLinePath(track, car, ambient, values.line, { envelope, startSpeedMps: startSpeedMps(values) }) : null;
-  const result = line?.lap ?? simulate(track, car, { ambient, envelope, startSpeedMps: startSpeedMps(values), path: line?.path });
+  const envelope = values.envelope
+    ? demonstratedEnvelope(readEnvelopeFile(values.envelope))
+    : buildEnvelope(car, ambient);
+  const line = values.line
+    ? resolveLinePath(track, car, ambient, values.line, { envelope, startSpeedMps: startSpeedMps(values) })
+    : null;
+  const result =
+    line?.lap ?? simulate(track, car, { ambient, envelope, startSpeedMps: startSpeedMps(values), path: line?.path });
   const extraColumns: ExtraColumn[] = line
     ? [
         { name: 'offset_m', values: line.offsetM, digits: 4 },
@@ -51,7 +74,12 @@ export function runSimulate(values: SimulateValues): void {
   extraColumns.push(...bicycle.columns);
   const outputs = outputBatch(inputFilesOf(values));
   if (values.out) outputs.add(values.out, traceCsv(result, extraColumns));
-  const reportFiles = addReportOutputs(outputs, values, { reference: result, carName: car.name, envelope, ...(line ? { linePositions: { xM: line.xM, yM: line.yM } } : {}) });
+  const reportFiles = addReportOutputs(outputs, values, {
+    reference: result,
+    carName: car.name,
+    envelope,
+    ...(line ? { linePositions: { xM: line.xM, yM: line.yM } } : {}),
+  });
   outputs.commit();
   if (values.json) {
     process.stdout.write(JSON.stringify({ ...lapSummaryJson(result, car.name), ...bicycle.json }, null, 2) + '\n');

@@ -2,7 +2,14 @@
 // through the stint as the car gets lighter.
 
 import type { Command } from 'commander';
-import { addCarOptions, addTrackOptions, inputFilesOf, numberOption, type CarOptionValues, type TrackOptionValues } from '../options.js';
+import {
+  addCarOptions,
+  addTrackOptions,
+  inputFilesOf,
+  numberOption,
+  type CarOptionValues,
+  type TrackOptionValues,
+} from '../options.js';
 import { writeFileAtomic } from '../output.js';
 import { createProgress } from '../progress.js';
 import { parseSetting } from '../../sweep/settings.js';
@@ -23,26 +30,45 @@ interface StintValues extends TrackOptionValues, CarOptionValues {
 }
 
 export function register(program: Command): void {
-  const command = program.command('stint').description('lap by lap with the fuel burning off: lap times and braking points through a stint');
+  const command = program
+    .command('stint')
+    .description('lap by lap with the fuel burning off: lap times and braking points through a stint');
   addTrackOptions(command);
   addCarOptions(command);
   command
-    .requiredOption('--laps <n>', 'number of laps; each starts with one lap of fuel (fuel.burnKgPerLap) less than the one before')
+    .requiredOption(
+      '--laps <n>',
+      'number of laps; each starts with one lap of fuel (fuel.burnKgPerLap) less than the one before',
+    )
     .option('--set <field=value...>', 'changes to the car first, as in whatif (e.g. fuel.massKg=60)')
     .option('--workers <n>', 'worker threads (default: the number of cores; 0 = in this thread)')
     .option('--out <file>', 'write one CSV row per lap')
-    .option('--line <auto|file>', "drive a racing line (held fixed for every setup): 'auto' computes the baseline car's time line, or a line CSV from `reflap line --out`")
+    .option(
+      '--line <auto|file>',
+      "drive a racing line (held fixed for every setup): 'auto' computes the baseline car's time line, or a line CSV from `reflap line --out`",
+    )
     .option('--json', 'print one JSON object instead of the tables')
     .action((values: StintValues) => runStintCommand(values));
 }
 
 const fmt = (value: number, digits: number) => (Number.isFinite(value) ? value.toFixed(digits) : '');
-const signed = (value: number, digits: number) => (Number.isFinite(value) ? `${value >= 0 ? '+' : ''}${value.toFixed(digits)}` : '-');
+const signed = (value: number, digits: number) =>
+  Number.isFinite(value) ? `${value >= 0 ? '+' : ''}${value.toFixed(digits)}` : '-';
 
 export function stintCsv(result: StintResult): string {
-  const header = ['lap', 'fuel_kg', 'lap_time_s', ...result.corners.flatMap((c) => [`c${c.corner}_brake_m`, `c${c.corner}_min_kph`])];
+  const header = [
+    'lap',
+    'fuel_kg',
+    'lap_time_s',
+    ...result.corners.flatMap((c) => [`c${c.corner}_brake_m`, `c${c.corner}_min_kph`]),
+  ];
   const rows = result.laps.map((lap) =>
-    [String(lap.lap), String(lap.fuelKg), fmt(lap.lapTimeS, DIGITS.lapTimeS), ...lap.brakingPointM.flatMap((m, k) => [fmt(m, DIGITS.brakingPointM), fmt(lap.minSpeedKph[k]!, DIGITS.speedKph)])].join(','),
+    [
+      String(lap.lap),
+      String(lap.fuelKg),
+      fmt(lap.lapTimeS, DIGITS.lapTimeS),
+      ...lap.brakingPointM.flatMap((m, k) => [fmt(m, DIGITS.brakingPointM), fmt(lap.minSpeedKph[k]!, DIGITS.speedKph)]),
+    ].join(','),
   );
   return [header.join(','), ...rows].join('\n') + '\n';
 }
@@ -53,7 +79,11 @@ export function stintJson(result: StintResult) {
     corners: result.corners,
     emptyFromLap: result.emptyFromLap,
     totalTimeS: Number(result.totalTimeS.toFixed(DIGITS.lapTimeS)),
-    laps: result.laps.map((lap) => ({ ...lap, brakingPointM: lap.brakingPointM.map(nan), minSpeedKph: lap.minSpeedKph.map(nan) })),
+    laps: result.laps.map((lap) => ({
+      ...lap,
+      brakingPointM: lap.brakingPointM.map(nan),
+      minSpeedKph: lap.minSpeedKph.map(nan),
+    })),
   };
 }
 
@@ -63,10 +93,19 @@ export function stintText(result: StintResult, trackName: string, carName: strin
   const lines = [
     `${trackName} · ${carName} · stint of ${result.laps.length} laps, ${formatLapTime(result.totalTimeS)} in all`,
     '',
-    formatTable(['lap', 'fuel kg', 'lap time', 'to lap 1 s'], result.laps.map((lap) => [String(lap.lap), lap.fuelKg.toFixed(1), formatLapTime(lap.lapTimeS), signed(lap.lapTimeS - first.lapTimeS, 3)])),
+    formatTable(
+      ['lap', 'fuel kg', 'lap time', 'to lap 1 s'],
+      result.laps.map((lap) => [
+        String(lap.lap),
+        lap.fuelKg.toFixed(1),
+        formatLapTime(lap.lapTimeS),
+        signed(lap.lapTimeS - first.lapTimeS, 3),
+      ]),
+    ),
     '',
     `Braking points, lap 1 against lap ${last.lap} (negative = earlier)`,
-    formatTable(['corner', 'slowest at m', `lap 1 brake m`, `lap ${last.lap} brake m`, 'drift m', 'slowest km/h'],
+    formatTable(
+      ['corner', 'slowest at m', `lap 1 brake m`, `lap ${last.lap} brake m`, 'drift m', 'slowest km/h'],
       result.corners.map((corner, k) => [
         `c${corner.corner}`,
         corner.minSpeedAtM.toFixed(0),
@@ -74,9 +113,14 @@ export function stintText(result: StintResult, trackName: string, carName: strin
         fmt(last.brakingPointM[k]!, 1) || 'no braking',
         signed(last.brakingPointM[k]! - first.brakingPointM[k]!, 1),
         `${fmt(first.minSpeedKph[k]!, 1)} -> ${fmt(last.minSpeedKph[k]!, 1)}`,
-      ])),
+      ]),
+    ),
   ];
-  if (result.emptyFromLap !== null) lines.push('', `The tank is empty from lap ${result.emptyFromLap} on (fuel.massKg / fuel.burnKgPerLap); later laps run at zero fuel.`);
+  if (result.emptyFromLap !== null)
+    lines.push(
+      '',
+      `The tank is empty from lap ${result.emptyFromLap} on (fuel.massKg / fuel.burnKgPerLap); later laps run at zero fuel.`,
+    );
   lines.push('', SAFETY_CAUTION);
   return lines.join('\n') + '\n';
 }
@@ -90,11 +134,17 @@ export async function runStintCommand(values: StintValues): Promise<void> {
   let result: StintResult;
   try {
     // Fewer laps than a worker takes to start are quicker in this thread.
-    result = await runStintInWorkers({ track, base, laps, startSpeedMps: start, ...(path ? { path } : {}) }, { workers: laps < 8 ? 0 : workers, onProgress: (done, total) => progress.update(done, total) });
+    result = await runStintInWorkers(
+      { track, base, laps, startSpeedMps: start, ...(path ? { path } : {}) },
+      { workers: laps < 8 ? 0 : workers, onProgress: (done, total) => progress.update(done, total) },
+    );
   } finally {
     progress.stop();
   }
   if (values.out) writeFileAtomic(values.out, stintCsv(result), inputFilesOf(values));
   if (values.json) process.stdout.write(JSON.stringify(stintJson(result), null, 2) + '\n');
-  else process.stdout.write(stintText(result, track.name, base.car.name) + (values.out ? `Laps written to ${values.out}\n` : ''));
+  else
+    process.stdout.write(
+      stintText(result, track.name, base.car.name) + (values.out ? `Laps written to ${values.out}\n` : ''),
+    );
 }

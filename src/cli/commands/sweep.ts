@@ -4,7 +4,17 @@
 import type { Command } from 'commander';
 import { Option } from 'commander';
 import { readFileSync } from 'node:fs';
-import { addCarOptions, addTrackOptions, inputFilesOf, loadCar, loadTrack, numberOption, startSpeedMps, type CarOptionValues, type TrackOptionValues } from '../options.js';
+import {
+  addCarOptions,
+  addTrackOptions,
+  inputFilesOf,
+  loadCar,
+  loadTrack,
+  numberOption,
+  startSpeedMps,
+  type CarOptionValues,
+  type TrackOptionValues,
+} from '../options.js';
 import { outputBatch, type OutputBatch } from '../output.js';
 import { addPageOutputs, addReportOptions, reportWrittenText, type ReportOptionValues } from '../html-options.js';
 import { sweepChartSvgs, sweepReportHtml } from '../../report/sweep-page.js';
@@ -39,34 +49,58 @@ interface SweepValues extends Partial<TrackOptionValues>, Partial<CarOptionValue
 }
 
 export function register(program: Command): void {
-  const command = program.command('sweep').description('many setups across worker threads: lap times, braking points and sensitivities');
+  const command = program
+    .command('sweep')
+    .description('many setups across worker threads: lap times, braking points and sensitivities');
   addTrackOptions(command);
   addCarOptions(command);
   // --merge needs neither a track nor a car; the action checks them for a sweep.
-  for (const option of command.options) if (option.long === '--track' || option.long === '--car') option.mandatory = false;
+  for (const option of command.options)
+    if (option.long === '--track' || option.long === '--car') option.mandatory = false;
   command
-    .option('--vary <field=from:to:step...>', 'a field to sweep: massKg=600:660:10, tyre.muLat=-10%:+10%:5%, airTempC=10:40:5')
+    .option(
+      '--vary <field=from:to:step...>',
+      'a field to sweep: massKg=600:660:10, tyre.muLat=-10%:+10%:5%, airTempC=10:40:5',
+    )
     .option('--set <field=value...>', 'fixed changes for every run, as in whatif')
-    .addOption(new Option('--mode <mode>', 'every combination, or one field at a time with the others at the baseline').choices(['grid', 'one-at-a-time']).default('grid'))
+    .addOption(
+      new Option('--mode <mode>', 'every combination, or one field at a time with the others at the baseline')
+        .choices(['grid', 'one-at-a-time'])
+        .default('grid'),
+    )
     .option('--workers <n>', 'worker threads (default: the number of cores; 0 = in this thread)')
     .option('--shard <i/n>', 'run only shard I of N (I from 1), for batch systems; join the CSVs with --merge')
     .option('--merge <files...>', 'join shard CSVs of one sweep into one (no new runs)')
     .option('--out <file>', 'write the runs as CSV (see docs/setup-sweeps.md for the columns)')
-    .option('--match-m <m>', `largest distance between the slowest points of one corner in two runs, m (default ${DEFAULT_MATCH_TOLERANCE_M})`)
-    .option('--line <auto|file>', "drive a racing line (held fixed for every setup): 'auto' computes the baseline car's time line, or a line CSV from `reflap line --out`")
+    .option(
+      '--match-m <m>',
+      `largest distance between the slowest points of one corner in two runs, m (default ${DEFAULT_MATCH_TOLERANCE_M})`,
+    )
+    .option(
+      '--line <auto|file>',
+      "drive a racing line (held fixed for every setup): 'auto' computes the baseline car's time line, or a line CSV from `reflap line --out`",
+    )
     .option('--json', 'print one JSON object instead of the tables');
-  addReportOptions(command, 'the sweep report: one HTML page with lap time and braking-point shift against each field').action((values: SweepValues) => runSweepCommand(values));
+  addReportOptions(
+    command,
+    'the sweep report: one HTML page with lap time and braking-point shift against each field',
+  ).action((values: SweepValues) => runSweepCommand(values));
 }
 
 export type SetupOptionValues = TrackOptionValues & CarOptionValues & { line?: string };
 
 /** Track, base car and air (with fixed --set changes), start speed and the racing line if asked: what every setup run shares. */
-export function loadSetupInputs(values: SetupOptionValues, fixed: readonly Setting[]): { track: TrackGrid; base: SetupBase; start: number; path: Path | undefined } {
+export function loadSetupInputs(
+  values: SetupOptionValues,
+  fixed: readonly Setting[],
+): { track: TrackGrid; base: SetupBase; start: number; path: Path | undefined } {
   const track = loadTrack(values);
   const { car, ambient } = loadCar(values);
   const base = setupBaseFrom(car, ambient, fixed);
   const start = startSpeedMps(values);
-  const path = values.line ? resolveLinePath(track, base.car, ambientFrom(base.air), values.line, { startSpeedMps: start }).path : undefined;
+  const path = values.line
+    ? resolveLinePath(track, base.car, ambientFrom(base.air), values.line, { startSpeedMps: start }).path
+    : undefined;
   return { track, base, start, path };
 }
 
@@ -74,7 +108,8 @@ export function loadSetupInputs(values: SetupOptionValues, fixed: readonly Setti
 export function workerCount(text: string | undefined): number {
   if (text === undefined) return defaultWorkerCount();
   const workers = numberOption(text, '--workers', 1);
-  if (!Number.isInteger(workers) || workers < 0 || workers > 256) throw new InputError(`option --workers: ${text} should be a whole number from 0 to 256`);
+  if (!Number.isInteger(workers) || workers < 0 || workers > 256)
+    throw new InputError(`option --workers: ${text} should be a whole number from 0 to 256`);
   return workers;
 }
 
@@ -83,7 +118,10 @@ export function sensitivityText(table: SweepTable, found: Sensitivity[]): string
   const header = ['per unit of', ...found.map((s) => `${s.field} (${s.unit})`)];
   const rows = [
     ['lap time, s', ...found.map((s) => perUnit(s.lapTimeSPerUnit))],
-    ...table.meta.corners.map((corner, c) => [`c${corner.corner} braking point, m`, ...found.map((s) => perUnit(s.brakingPointMPerUnit[c] ?? null))]),
+    ...table.meta.corners.map((corner, c) => [
+      `c${corner.corner} braking point, m`,
+      ...found.map((s) => perUnit(s.brakingPointMPerUnit[c] ?? null)),
+    ]),
     ['difference step ±', ...found.map((s) => `${s.stepUsed}${s.scheme === 'central' ? '' : ` (${s.scheme})`}`)],
   ];
   return `Sensitivity around the baseline (central differences; braking point: negative = earlier)\n${formatTable(header, rows)}\n`;
@@ -92,19 +130,38 @@ export function sensitivityText(table: SweepTable, found: Sensitivity[]): string
 function summaryText(table: SweepTable, found: Sensitivity[], complete: boolean, out: string | undefined): string {
   const { meta, records } = table;
   const sweepRuns = records.filter((r) => r.kind === 'grid' || r.kind === 'oat');
-  const lines = [`${meta.trackName} · ${meta.carName} · ${meta.mode} sweep of ${meta.fields.join(', ')}`, `${records.length} of ${meta.totalRuns} runs${complete ? '' : ' (one shard)'}`];
+  const lines = [
+    `${meta.trackName} · ${meta.carName} · ${meta.mode} sweep of ${meta.fields.join(', ')}`,
+    `${records.length} of ${meta.totalRuns} runs${complete ? '' : ' (one shard)'}`,
+  ];
   const baseline = records.find((r) => r.kind === 'baseline');
-  if (baseline) lines.push(`Baseline lap ${formatLapTime(baseline.lapTimeS)} (${meta.fields.map((f, k) => `${f} ${meta.baseValues[k]}`).join(', ')})`);
+  if (baseline)
+    lines.push(
+      `Baseline lap ${formatLapTime(baseline.lapTimeS)} (${meta.fields.map((f, k) => `${f} ${meta.baseValues[k]}`).join(', ')})`,
+    );
   if (sweepRuns.length > 0) {
     const best = sweepRuns.reduce((a, b) => (b.lapTimeS < a.lapTimeS ? b : a));
     const worst = sweepRuns.reduce((a, b) => (b.lapTimeS > a.lapTimeS ? b : a));
     const at = (r: typeof best) => meta.fields.map((f, k) => `${f} ${r.values[k]}`).join(', ');
-    lines.push(`Quickest ${formatLapTime(best.lapTimeS)} at ${at(best)}`, `Slowest  ${formatLapTime(worst.lapTimeS)} at ${at(worst)}`);
+    lines.push(
+      `Quickest ${formatLapTime(best.lapTimeS)} at ${at(best)}`,
+      `Slowest  ${formatLapTime(worst.lapTimeS)} at ${at(worst)}`,
+    );
   }
   lines.push('');
   if (!out && sweepRuns.length <= 40 && sweepRuns.length > 0) {
-    lines.push(formatTable(['run', ...meta.fields, 'lap s', ...meta.corners.map((c) => `c${c.corner} brake m`)],
-      sweepRuns.map((r) => [String(r.run), ...r.values.map(String), r.lapTimeS.toFixed(3), ...r.brakingPointM.map((m) => (Number.isFinite(m) ? m.toFixed(1) : '-'))])), '');
+    lines.push(
+      formatTable(
+        ['run', ...meta.fields, 'lap s', ...meta.corners.map((c) => `c${c.corner} brake m`)],
+        sweepRuns.map((r) => [
+          String(r.run),
+          ...r.values.map(String),
+          r.lapTimeS.toFixed(3),
+          ...r.brakingPointM.map((m) => (Number.isFinite(m) ? m.toFixed(1) : '-')),
+        ]),
+      ),
+      '',
+    );
   } else if (!out) {
     lines.push('Use --out FILE to keep every run (lap time and braking points) as CSV.', '');
   } else {
@@ -136,7 +193,8 @@ function addSweepReport(outputs: OutputBatch, values: ReportOptionValues, table:
 
 export async function runSweepCommand(values: SweepValues): Promise<void> {
   if (values.merge) {
-    if (values.vary || values.shard) throw new InputError('sweep --merge joins finished shards; it takes no --vary or --shard');
+    if (values.vary || values.shard)
+      throw new InputError('sweep --merge joins finished shards; it takes no --vary or --shard');
     const files = values.merge.map((file) => {
       try {
         return { text: readFileSync(file, 'utf8'), source: file };
@@ -151,14 +209,16 @@ export async function runSweepCommand(values: SweepValues): Promise<void> {
     outputs.commit();
     const found = sensitivities(table);
     if (values.json) process.stdout.write(JSON.stringify(sweepJson(table, found, true), null, 2) + '\n');
-    else if (values.out) process.stdout.write(summaryText(table, found, true, values.out) + reportWrittenText(reportFiles));
+    else if (values.out)
+      process.stdout.write(summaryText(table, found, true, values.out) + reportWrittenText(reportFiles));
     else process.stdout.write(csv);
     return;
   }
   if (!values.track) throw new InputError("sweep: required option '--track <file>' not specified");
   if (!values.car) throw new InputError("sweep: required option '--car <file>' not specified");
   const variations = (values.vary ?? []).map((text) => parseVariation(text));
-  if (variations.length === 0) throw new InputError('sweep: give at least one --vary FIELD=FROM:TO:STEP (or --merge FILES)');
+  if (variations.length === 0)
+    throw new InputError('sweep: give at least one --vary FIELD=FROM:TO:STEP (or --merge FILES)');
   const settings = (values.set ?? []).map((text) => parseSetting(text));
   const shard = values.shard ? parseShard(values.shard) : undefined;
   if (shard && !values.out) throw new InputError('sweep --shard: give --out FILE for the shard CSV');
@@ -170,7 +230,17 @@ export async function runSweepCommand(values: SweepValues): Promise<void> {
   let output;
   try {
     output = await runSweep(
-      { track, base, variations, mode: values.mode ?? 'grid', settings: settings.map((s) => s.text), startSpeedMps: start, matchToleranceM, ...(path ? { path } : {}), ...(shard ? { shard } : {}) },
+      {
+        track,
+        base,
+        variations,
+        mode: values.mode ?? 'grid',
+        settings: settings.map((s) => s.text),
+        startSpeedMps: start,
+        matchToleranceM,
+        ...(path ? { path } : {}),
+        ...(shard ? { shard } : {}),
+      },
       { workers, onProgress: (done, total) => progress.update(done, total) },
     );
   } finally {

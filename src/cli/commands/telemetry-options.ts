@@ -38,6 +38,7 @@ export function lapOption(values: TelemetryOptionValues): number | undefined {
 export function startFinishOption(values: TelemetryOptionValues): { xM: number; yM: number } | undefined {
   if (values.startFinish === undefined) return undefined;
   const parts = values.startFinish.split(',').map((part) => Number(part.trim()));
-  if (parts.length !== 2 || !parts.every(Number.isFinite)) throw new InputError(`option --start-finish: '${values.startFinish}' is not of the form x,y (metres)`);
+  if (parts.length !== 2 || !parts.every(Number.isFinite))
+    throw new InputError(`option --start-finish: '${values.startFinish}' is not of the form x,y (metres)`);
   return { xM: parts[0]!, yM: parts[1]! };
 }

@@ -2,7 +2,14 @@
 // far the braking point moves and what the entry speed, slowest speed and zone time do.
 
 import type { Command } from 'commander';
-import { addCarOptions, addTrackOptions, inputFilesOf, numberOption, type CarOptionValues, type TrackOptionValues } from '../options.js';
+import {
+  addCarOptions,
+  addTrackOptions,
+  inputFilesOf,
+  numberOption,
+  type CarOptionValues,
+  type TrackOptionValues,
+} from '../options.js';
 import { simulate } from '../../solve/simulate.js';
 import { applySettings, baseValueOf, parseSetting, type Setting, type SetupBase } from '../../sweep/settings.js';
 import { compareSetupChange, type LapComparison } from '../../sweep/compare-laps.js';
@@ -26,15 +33,28 @@ interface WhatifValues extends TrackOptionValues, CarOptionValues, ReportOptionV
 }
 
 export function register(program: Command): void {
-  const command = program.command('whatif').description('one setup change against the baseline: lap time and braking points');
+  const command = program
+    .command('whatif')
+    .description('one setup change against the baseline: lap time and braking points');
   addTrackOptions(command);
   addCarOptions(command);
   command
-    .option('--set <field=value...>', 'change: massKg=1400 (absolute), massKg=+20 or -20 (difference), tyre.muLat=-5% (percent); air too: airTempC=35')
-    .option('--match-m <m>', `largest distance between the slowest points of one corner in the two laps, m (default ${DEFAULT_MATCH_TOLERANCE_M})`)
-    .option('--line <auto|file>', "drive a racing line (held fixed for every setup): 'auto' computes the baseline car's time line, or a line CSV from `reflap line --out`")
+    .option(
+      '--set <field=value...>',
+      'change: massKg=1400 (absolute), massKg=+20 or -20 (difference), tyre.muLat=-5% (percent); air too: airTempC=35',
+    )
+    .option(
+      '--match-m <m>',
+      `largest distance between the slowest points of one corner in the two laps, m (default ${DEFAULT_MATCH_TOLERANCE_M})`,
+    )
+    .option(
+      '--line <auto|file>',
+      "drive a racing line (held fixed for every setup): 'auto' computes the baseline car's time line, or a line CSV from `reflap line --out`",
+    )
     .option('--json', 'print one JSON object instead of the table');
-  addReportOptions(command, 'a page with the braking-point shift per corner as a bar chart').action((values: WhatifValues) => runWhatif(values));
+  addReportOptions(command, 'a page with the braking-point shift per corner as a bar chart').action(
+    (values: WhatifValues) => runWhatif(values),
+  );
 }
 
 const signed = (value: number, digits: number) => `${value >= 0 ? '+' : ''}${value.toFixed(digits)}`;
@@ -65,14 +85,22 @@ export function whatifJson(comparison: LapComparison, changes: { field: string; 
       minSpeedDeltaKph: r(zone.minSpeedDeltaKph, 2),
       zoneTimeDeltaS: r(zone.zoneTimeDeltaS, 4),
     })),
-    newBrakingZones: comparison.newZones.map((zone) => ({ startM: round(zone.startM, 2), minSpeedAtM: round(zone.minSpeedAtM, 2) })),
+    newBrakingZones: comparison.newZones.map((zone) => ({
+      startM: round(zone.startM, 2),
+      minSpeedAtM: round(zone.minSpeedAtM, 2),
+    })),
   };
 }
 
 export function whatifText(comparison: LapComparison, described: string[], trackName: string, carName: string): string {
   const rows = comparison.zones.map((zone) => {
     const shift = zone.brakingPointShiftM;
-    const moved = shift === null ? 'no braking now' : Math.abs(shift) < 0.05 ? '0.0' : `${signed(shift, 1)} ${shift < 0 ? 'earlier' : 'later'}`;
+    const moved =
+      shift === null
+        ? 'no braking now'
+        : Math.abs(shift) < 0.05
+          ? '0.0'
+          : `${signed(shift, 1)} ${shift < 0 ? 'earlier' : 'later'}`;
     return [
       `c${zone.corner}`,
       zone.minSpeedAtM.toFixed(0),
@@ -88,10 +116,16 @@ export function whatifText(comparison: LapComparison, described: string[], track
     `Change: ${described.join('; ')}`,
     `Lap time  ${formatLapTime(comparison.baselineLapTimeS)} -> ${formatLapTime(comparison.changedLapTimeS)}  (${signed(comparison.lapTimeDeltaS, 3)} s)`,
     '',
-    formatTable(['corner', 'slowest at m', 'brake at m', 'braking point m', 'entry km/h', 'slowest km/h', 'zone time s'], rows),
+    formatTable(
+      ['corner', 'slowest at m', 'brake at m', 'braking point m', 'entry km/h', 'slowest km/h', 'zone time s'],
+      rows,
+    ),
   ];
   if (comparison.newZones.length > 0) {
-    lines.push('', `New braking zones: ${comparison.newZones.map((z) => `brake at ${z.startM.toFixed(0)} m for ${z.minSpeedAtM.toFixed(0)} m`).join(', ')}`);
+    lines.push(
+      '',
+      `New braking zones: ${comparison.newZones.map((z) => `brake at ${z.startM.toFixed(0)} m for ${z.minSpeedAtM.toFixed(0)} m`).join(', ')}`,
+    );
   }
   lines.push('', SAFETY_CAUTION);
   return lines.join('\n') + '\n';
@@ -106,16 +140,31 @@ export function runWhatif(values: WhatifValues): void {
   const { track, base, start, path } = loadSetupInputs(values, []);
   const { car } = base;
   const changed = applySettings(base, settings);
-  const baseline = simulate(track, car, { ambient: ambientFrom(base.air), startSpeedMps: start, ...(path ? { path } : {}) });
-  const result = simulate(track, changed.car, { ambient: changed.ambient, startSpeedMps: start, ...(path ? { path } : {}) });
+  const baseline = simulate(track, car, {
+    ambient: ambientFrom(base.air),
+    startSpeedMps: start,
+    ...(path ? { path } : {}),
+  });
+  const result = simulate(track, changed.car, {
+    ambient: changed.ambient,
+    startSpeedMps: start,
+    ...(path ? { path } : {}),
+  });
   const comparison = compareSetupChange(baseline, result, toleranceM);
   const described = describeSettings(base, settings, changed.values);
   const page = { comparison, described, trackName: track.name, carName: car.name };
   const outputs = outputBatch(inputFilesOf(values));
-  const reportFiles = addPageOutputs(outputs, values, { html: () => whatifReportHtml(page), charts: () => whatifChartSvgs(page) });
+  const reportFiles = addPageOutputs(outputs, values, {
+    html: () => whatifReportHtml(page),
+    charts: () => whatifChartSvgs(page),
+  });
   outputs.commit();
   if (values.json) {
-    const changes = settings.map((setting, k) => ({ field: setting.field, from: baseValueOf(base, setting.field), to: changed.values[k]! }));
+    const changes = settings.map((setting, k) => ({
+      field: setting.field,
+      from: baseValueOf(base, setting.field),
+      to: changed.values[k]!,
+    }));
     process.stdout.write(JSON.stringify(whatifJson(comparison, changes), null, 2) + '\n');
   } else {
     process.stdout.write(whatifText(comparison, described, track.name, car.name) + reportWrittenText(reportFiles));

@@ -7,7 +7,13 @@ import { InputError } from '../../errors.js';
 export const MISSING_CELLS: ReadonlySet<string> = new Set(['', 'nan', 'na', 'n/a', 'null', '-', '--']);
 
 /** The number in `cell` (NaN where it is empty or a missing-value marker); `line` and `header` name it in the error. */
-export function cellValue(cell: string | undefined, decimalComma: boolean, source: string, line: number, header: string): number {
+export function cellValue(
+  cell: string | undefined,
+  decimalComma: boolean,
+  source: string,
+  line: number,
+  header: string,
+): number {
   if (cell === undefined || cell.length === 0) return NaN;
   // Number() trims white space itself; only a failed parse looks further (missing-value markers, text).
   const value = Number(decimalComma ? cell.replace(',', '.') : cell);

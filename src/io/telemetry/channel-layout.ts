@@ -31,15 +31,33 @@ export function resolveLayout(
     return b >= 0 && !dropped[b] ? b : -1;
   };
   const [x, y, lat, lon] = [present('x'), present('y'), present('lat'), present('lon')];
-  if ((x < 0) !== (y < 0)) error ??= `${source}: column ${bindings[Math.max(x, y)]!.header} has no partner; positions need both x_m and y_m`;
-  if ((lat < 0) !== (lon < 0)) error ??= `${source}: column ${bindings[Math.max(lat, lon)]!.header} has no partner; GPS positions need both latitude and longitude`;
+  if (x < 0 !== y < 0)
+    error ??= `${source}: column ${bindings[Math.max(x, y)]!.header} has no partner; positions need both x_m and y_m`;
+  if (lat < 0 !== lon < 0)
+    error ??= `${source}: column ${bindings[Math.max(lat, lon)]!.header} has no partner; GPS positions need both latitude and longitude`;
   const positions = x >= 0 && y >= 0 ? 'xy' : lat >= 0 && lon >= 0 ? 'latlon' : null;
   if (present('speed') < 0 && present('distance') < 0 && positions === null) {
     error ??= `${source}: no position, distance or speed column (found: ${listedHeaders(headers)}); map one with --telemetry-columns`;
   }
-  const layout: ChannelLayout = { channels: ['timeS'], positions, pending: [], headers: { timeS: bindings[timeIndex]!.header } };
+  const layout: ChannelLayout = {
+    channels: ['timeS'],
+    positions,
+    pending: [],
+    headers: { timeS: bindings[timeIndex]!.header },
+  };
   columnOfField.set('timeS', timeIndex);
-  for (const quantity of ['distance', 'speed', 'throttle', 'brake', 'ax', 'ay', 'steering', 'gear', 'rpm', ...(positions === 'xy' ? ['x', 'y'] : positions === 'latlon' ? ['lat', 'lon'] : [])] as Quantity[]) {
+  for (const quantity of [
+    'distance',
+    'speed',
+    'throttle',
+    'brake',
+    'ax',
+    'ay',
+    'steering',
+    'gear',
+    'rpm',
+    ...(positions === 'xy' ? ['x', 'y'] : positions === 'latlon' ? ['lat', 'lon'] : []),
+  ] as Quantity[]) {
     const b = present(quantity);
     if (b < 0) continue;
     const field = FIELD_OF[quantity];

@@ -46,11 +46,20 @@ export class ChunkDelivery {
     const firstRow = block.firstRow + from;
     if (this.skipRows >= firstRow + (to - from)) return;
     const skip = Math.max(0, this.skipRows - firstRow);
-    const view = (field: TelemetryChannel) => (columnOfField.has(field) && layout.channels.includes(field) ? column(field).subarray(from + skip, to) : null);
+    const view = (field: TelemetryChannel) =>
+      columnOfField.has(field) && layout.channels.includes(field) ? column(field).subarray(from + skip, to) : null;
     this.sink({ firstRow: firstRow + skip, rows: to - from - skip, ...channelArrays(view) }, layout);
   }
 
-  private checkRange(block: RowBlock, values: Float64Array, from: number, to: number, min: number, max: number, field: 'xM' | 'yM'): void {
+  private checkRange(
+    block: RowBlock,
+    values: Float64Array,
+    from: number,
+    to: number,
+    min: number,
+    max: number,
+    field: 'xM' | 'yM',
+  ): void {
     for (let r = from; r < to; r++) {
       const v = values[r]!;
       if (v < min || v > max) {

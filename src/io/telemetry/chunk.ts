@@ -9,14 +9,50 @@ export const CHUNK_ROWS = 8192;
 
 /** The channels of a session, by their TelemetrySession field names. */
 export type TelemetryChannel =
-  | 'timeS' | 'distanceM' | 'speedMps' | 'throttle' | 'brake' | 'axMps2' | 'ayMps2' | 'steeringDeg' | 'gear' | 'rpm' | 'xM' | 'yM';
+  | 'timeS'
+  | 'distanceM'
+  | 'speedMps'
+  | 'throttle'
+  | 'brake'
+  | 'axMps2'
+  | 'ayMps2'
+  | 'steeringDeg'
+  | 'gear'
+  | 'rpm'
+  | 'xM'
+  | 'yM';
 
-export const CHANNELS: readonly TelemetryChannel[] = ['timeS', 'distanceM', 'speedMps', 'throttle', 'brake', 'axMps2', 'ayMps2', 'steeringDeg', 'gear', 'rpm', 'xM', 'yM'];
+export const CHANNELS: readonly TelemetryChannel[] = [
+  'timeS',
+  'distanceM',
+  'speedMps',
+  'throttle',
+  'brake',
+  'axMps2',
+  'ayMps2',
+  'steeringDeg',
+  'gear',
+  'rpm',
+  'xM',
+  'yM',
+];
 
 /** Which session field a file's column fills (latitude and longitude become the plane's x and y). */
 export const FIELD_OF: Record<Quantity, TelemetryChannel> = {
-  time: 'timeS', distance: 'distanceM', speed: 'speedMps', throttle: 'throttle', brake: 'brake', steering: 'steeringDeg',
-  gear: 'gear', rpm: 'rpm', x: 'xM', y: 'yM', lat: 'xM', lon: 'yM', ax: 'axMps2', ay: 'ayMps2',
+  time: 'timeS',
+  distance: 'distanceM',
+  speed: 'speedMps',
+  throttle: 'throttle',
+  brake: 'brake',
+  steering: 'steeringDeg',
+  gear: 'gear',
+  rpm: 'rpm',
+  x: 'xM',
+  y: 'yM',
+  lat: 'xM',
+  lon: 'yM',
+  ax: 'axMps2',
+  ay: 'ayMps2',
 };
 
 /** The channel arrays of a session or a chunk, by field. */

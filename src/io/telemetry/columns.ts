@@ -5,8 +5,20 @@ import { InputError } from '../../errors.js';
 import { STANDARD_GRAVITY_MPS2 } from '../../units.js';
 
 export type Quantity =
-  | 'time' | 'distance' | 'speed' | 'throttle' | 'brake' | 'steering' | 'gear' | 'rpm'
-  | 'x' | 'y' | 'lat' | 'lon' | 'ax' | 'ay';
+  | 'time'
+  | 'distance'
+  | 'speed'
+  | 'throttle'
+  | 'brake'
+  | 'steering'
+  | 'gear'
+  | 'rpm'
+  | 'x'
+  | 'y'
+  | 'lat'
+  | 'lon'
+  | 'ax'
+  | 'ay';
 
 /** A recognised column: its index in the row, what it holds, and the factor to SI (null = decide from the data). */
 export interface ColumnBinding {
@@ -41,7 +53,16 @@ const ALIASES: Record<Quantity, string[]> = {
   time: ['time', 't', 'timestamp', 'elapsed', 'elapsed_time', 'session_time', 'time_elapsed'],
   distance: ['distance', 'dist', 'lap_distance', 'lap_dist', 'distance_lap', 's'],
   speed: ['speed', 'velocity', 'v', 'ground_speed', 'gps_speed', 'vehicle_speed', 'car_speed'],
-  throttle: ['throttle', 'throttle_pos', 'throttle_position', 'tps', 'accelerator', 'accel_pedal', 'gas', 'throttle_pedal'],
+  throttle: [
+    'throttle',
+    'throttle_pos',
+    'throttle_position',
+    'tps',
+    'accelerator',
+    'accel_pedal',
+    'gas',
+    'throttle_pedal',
+  ],
   brake: ['brake', 'brake_pos', 'brake_position', 'brake_pedal', 'brakes'],
   steering: ['steering', 'steering_angle', 'steer', 'steer_angle', 'steering_wheel_angle', 'swa'],
   gear: ['gear', 'gear_num', 'gear_number'],
@@ -50,8 +71,32 @@ const ALIASES: Record<Quantity, string[]> = {
   y: ['y', 'pos_y', 'position_y', 'y_pos', 'north', 'northing'],
   lat: ['lat', 'latitude', 'gps_lat', 'gps_latitude'],
   lon: ['lon', 'lng', 'long', 'longitude', 'gps_lon', 'gps_long', 'gps_longitude'],
-  ax: ['ax', 'a_x', 'accel_x', 'acc_x', 'long_accel', 'accel_long', 'longitudinal_acceleration', 'longitudinal_accel', 'g_long', 'long_g', 'gx'],
-  ay: ['ay', 'a_y', 'accel_y', 'acc_y', 'lat_accel', 'accel_lat', 'lateral_acceleration', 'lateral_accel', 'g_lat', 'lat_g', 'gy'],
+  ax: [
+    'ax',
+    'a_x',
+    'accel_x',
+    'acc_x',
+    'long_accel',
+    'accel_long',
+    'longitudinal_acceleration',
+    'longitudinal_accel',
+    'g_long',
+    'long_g',
+    'gx',
+  ],
+  ay: [
+    'ay',
+    'a_y',
+    'accel_y',
+    'acc_y',
+    'lat_accel',
+    'accel_lat',
+    'lateral_acceleration',
+    'lateral_accel',
+    'g_lat',
+    'lat_g',
+    'gy',
+  ],
 };
 
 const G = STANDARD_GRAVITY_MPS2;
@@ -59,7 +104,18 @@ const G = STANDARD_GRAVITY_MPS2;
 const UNITS: Record<Quantity, Record<string, number | null>> = {
   time: { '': 1, s: 1, sec: 1, secs: 1, seconds: 1, ms: 0.001, msec: 0.001 },
   distance: { '': 1, m: 1, meters: 1, metres: 1, km: 1000 },
-  speed: { '': null, kmh: 1 / 3.6, kph: 1 / 3.6, ms: 1, mps: 1, mph: 0.44704, kn: 1852 / 3600, kt: 1852 / 3600, kts: 1852 / 3600, knots: 1852 / 3600 },
+  speed: {
+    '': null,
+    kmh: 1 / 3.6,
+    kph: 1 / 3.6,
+    ms: 1,
+    mps: 1,
+    mph: 0.44704,
+    kn: 1852 / 3600,
+    kt: 1852 / 3600,
+    kts: 1852 / 3600,
+    knots: 1852 / 3600,
+  },
   throttle: { '': null, pct: 0.01, percent: 0.01, '01': 1, frac: 1, ratio: 1 },
   brake: { '': null, pct: 0.01, percent: 0.01, '01': 1, frac: 1, ratio: 1 },
   steering: { '': 1, deg: 1, degrees: 1, rad: 180 / Math.PI },
@@ -73,7 +129,22 @@ const UNITS: Record<Quantity, Record<string, number | null>> = {
   ay: { '': null, g: G, ms2: 1, mps2: 1 },
 };
 
-const QUANTITY_ORDER: Quantity[] = ['time', 'distance', 'speed', 'throttle', 'brake', 'steering', 'gear', 'rpm', 'x', 'y', 'lat', 'lon', 'ax', 'ay'];
+const QUANTITY_ORDER: Quantity[] = [
+  'time',
+  'distance',
+  'speed',
+  'throttle',
+  'brake',
+  'steering',
+  'gear',
+  'rpm',
+  'x',
+  'y',
+  'lat',
+  'lon',
+  'ax',
+  'ay',
+];
 
 function tokens(text: string): string[] {
   return text
@@ -110,19 +181,27 @@ export function recogniseHeader(header: string): { quantity: Quantity; scale: nu
  * Binds the file's headers to channels: the user's mapping first (its names must exist), then recognised names
  * for the rest. The first column found for a quantity wins (speed in m/s is preferred over km/h when both exist).
  */
-export function bindColumns(headers: string[], mapping: Record<string, string>, source: string): { bindings: ColumnBinding[]; ignored: string[] } {
+export function bindColumns(
+  headers: string[],
+  mapping: Record<string, string>,
+  source: string,
+): { bindings: ColumnBinding[]; ignored: string[] } {
   const trimmed = headers.map((header) => header.trim());
   const bindings = new Map<Quantity, ColumnBinding>();
   const used = new Set<number>();
   for (const [canonical, theirs] of Object.entries(mapping)) {
     const spec = CANONICAL_COLUMNS[canonical];
     if (!spec) {
-      throw new InputError(`${source}: --telemetry-columns: unknown channel name '${canonical}' (known: ${Object.keys(CANONICAL_COLUMNS).join(', ')})`);
+      throw new InputError(
+        `${source}: --telemetry-columns: unknown channel name '${canonical}' (known: ${Object.keys(CANONICAL_COLUMNS).join(', ')})`,
+      );
     }
     let index = trimmed.indexOf(theirs.trim());
     if (index < 0) index = trimmed.findIndex((header) => header.toLowerCase() === theirs.trim().toLowerCase());
     if (index < 0) {
-      throw new InputError(`${source}: --telemetry-columns ${canonical}=${theirs}: no column '${theirs}' in the header (found: ${trimmed.join(', ')})`);
+      throw new InputError(
+        `${source}: --telemetry-columns ${canonical}=${theirs}: no column '${theirs}' in the header (found: ${trimmed.join(', ')})`,
+      );
     }
     // A mapped throttle or brake keeps the unit its header states, else the data decide.
     const stated = spec.scale === null ? recogniseHeaderUnit(trimmed[index]!, spec.quantity) : spec.scale;
@@ -135,7 +214,8 @@ export function bindColumns(headers: string[], mapping: Record<string, string>, 
     if (!recognised) return;
     const held = bindings.get(recognised.quantity);
     // A later m/s speed column replaces an earlier one in other units (the simulate trace has both).
-    const better = held && !used.has(held.index) && recognised.quantity === 'speed' && recognised.scale === 1 && held.scale !== 1;
+    const better =
+      held && !used.has(held.index) && recognised.quantity === 'speed' && recognised.scale === 1 && held.scale !== 1;
     if (held && !better) return;
     bindings.set(recognised.quantity, { ...recognised, index, header });
   });

@@ -54,7 +54,11 @@ export function sniffDialect(head: string, source: string): CsvDialect {
 }
 
 function looksNumeric(line: string): boolean {
-  const first = line.split(/[,;\t]/)[0]!.trim().replace(/^"|"$/g, '').replace(',', '.');
+  const first = line
+    .split(/[,;\t]/)[0]!
+    .trim()
+    .replace(/^"|"$/g, '')
+    .replace(',', '.');
   return first !== '' && Number.isFinite(Number(first));
 }
 
@@ -80,7 +84,12 @@ function asInputError(error: unknown, source: string): Error {
 }
 
 /** Hands every record of the text to `record` as csv-parse reads it, keeping none (the text is memory enough). */
-export function feedCsvText(text: string, source: string, dialect: CsvDialect, record: (cells: string[]) => void): void {
+export function feedCsvText(
+  text: string,
+  source: string,
+  dialect: CsvDialect,
+  record: (cells: string[]) => void,
+): void {
   try {
     parseSync(text, {
       ...parserOptions(dialect),
@@ -119,7 +128,12 @@ export async function feedCsvFile(file: string, dialect: CsvDialect, record: (ce
   }
 }
 
-function sessionPipeline(source: string, dialect: CsvDialect, mapping: Record<string, string>, assembler: SessionAssembler): RowPipeline {
+function sessionPipeline(
+  source: string,
+  dialect: CsvDialect,
+  mapping: Record<string, string>,
+  assembler: SessionAssembler,
+): RowPipeline {
   return new RowPipeline({
     source,
     headerLine: dialect.headerLine,
@@ -156,7 +170,11 @@ export function parseCsvText(text: string, source: string, mapping: Record<strin
 }
 
 /** Streams the file through the row pipeline into a session; `head` is the file's first bytes, already read for sniffing. */
-export async function readCsvFile(file: string, head: string, mapping: Record<string, string>): Promise<TelemetrySession> {
+export async function readCsvFile(
+  file: string,
+  head: string,
+  mapping: Record<string, string>,
+): Promise<TelemetrySession> {
   const dialect = sniffDialect(head, file);
   // The head is text and the size bytes: the same for ASCII logs, which nearly all are.
   const assembler = new SessionAssembler(file, expectedRows(head, (await stat(file)).size));

@@ -83,7 +83,8 @@ export class GapFiller {
         if (this.knownGap[b] !== null) this.knownGap[b] = null;
         else if (this.gapStart[b]! >= 0) {
           if (scanning) {
-            if (row - this.gapStart[b]! >= LONG_GAP_ROWS) this.longGaps[b]!.push({ start: this.gapStart[b]!, value, timeS: timeS[r]! });
+            if (row - this.gapStart[b]! >= LONG_GAP_ROWS)
+              this.longGaps[b]!.push({ start: this.gapStart[b]!, value, timeS: timeS[r]! });
           } else this.fillHeld(b, this.gapStart[b]!, row, held, block, value, timeS[r]!);
           this.gapStart[b] = -1;
         }
@@ -97,7 +98,8 @@ export class GapFiller {
   /** The first row of the oldest gap still open, or `upTo` when none opens before it. */
   oldestOpen(upTo: number): number {
     let ready = upTo;
-    for (let b = 0; b < this.gapStart.length; b++) if (this.gapStart[b]! >= 0 && this.gapStart[b]! < ready) ready = this.gapStart[b]!;
+    for (let b = 0; b < this.gapStart.length; b++)
+      if (this.gapStart[b]! >= 0 && this.gapStart[b]! < ready) ready = this.gapStart[b]!;
     return ready;
   }
 
@@ -107,7 +109,8 @@ export class GapFiller {
       if (this.gapStart[b]! < 0) continue;
       if (!this.seen[b]) this.dropped[b] = true;
       else if (this.scanning) {
-        if (rows - this.gapStart[b]! >= LONG_GAP_ROWS) this.longGaps[b]!.push({ start: this.gapStart[b]!, value: NaN, timeS: NaN });
+        if (rows - this.gapStart[b]! >= LONG_GAP_ROWS)
+          this.longGaps[b]!.push({ start: this.gapStart[b]!, value: NaN, timeS: NaN });
       } else this.fillHeld(b, this.gapStart[b]!, rows, held, null, NaN, NaN);
       this.gapStart[b] = -1;
     }
@@ -124,13 +127,22 @@ export class GapFiller {
   }
 
   /** Fills rows [from, to) of column b, in the held blocks and the current one, towards the closing value. */
-  private fillHeld(b: number, from: number, to: number, held: readonly RowBlock[], current: RowBlock | null, closeValue: number, closeTimeS: number): void {
+  private fillHeld(
+    b: number,
+    from: number,
+    to: number,
+    held: readonly RowBlock[],
+    current: RowBlock | null,
+    closeValue: number,
+    closeTimeS: number,
+  ): void {
     const fillInto = (block: RowBlock) => {
       const start = Math.max(from, block.firstRow);
       const end = Math.min(to, block.firstRow + block.rows);
       const values = block.values[b]!;
       const timeS = block.values[this.timeIndex]!;
-      for (let row = start; row < end; row++) values[row - block.firstRow] = this.fillValue(b, closeValue, closeTimeS, timeS[row - block.firstRow]!);
+      for (let row = start; row < end; row++)
+        values[row - block.firstRow] = this.fillValue(b, closeValue, closeTimeS, timeS[row - block.firstRow]!);
     };
     for (const block of held) fillInto(block);
     if (current) fillInto(current);

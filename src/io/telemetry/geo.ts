@@ -68,7 +68,10 @@ export function localPlane(origin: GeoOrigin): LocalPlane {
 }
 
 /** Projects latitude/longitude arrays about their mean position; returns east/north and the origin used. */
-export function projectLatLon(latDeg: Float64Array, lonDeg: Float64Array): { xM: Float64Array; yM: Float64Array; origin: GeoOrigin } {
+export function projectLatLon(
+  latDeg: Float64Array,
+  lonDeg: Float64Array,
+): { xM: Float64Array; yM: Float64Array; origin: GeoOrigin } {
   let latSum = 0;
   let lonSum = 0;
   for (let i = 0; i < latDeg.length; i++) {
@@ -89,7 +92,12 @@ export function projectLatLon(latDeg: Float64Array, lonDeg: Float64Array): { xM:
 }
 
 /** Moves local-plane positions from one origin's plane to another's (via latitude/longitude). */
-export function reprojectPlane(xM: Float64Array, yM: Float64Array, from: GeoOrigin, to: GeoOrigin): { xM: Float64Array; yM: Float64Array } {
+export function reprojectPlane(
+  xM: Float64Array,
+  yM: Float64Array,
+  from: GeoOrigin,
+  to: GeoOrigin,
+): { xM: Float64Array; yM: Float64Array } {
   const source = localPlane(from);
   const target = localPlane(to);
   const outX = new Float64Array(xM.length);

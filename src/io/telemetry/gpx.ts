@@ -36,7 +36,9 @@ function extensionSpeed(node: unknown): number {
 export function parseGpxText(text: string, source: string): TelemetrySession {
   const validation = XMLValidator.validate(text);
   if (validation !== true) {
-    throw new InputError(`${source}: not a GPX file (not valid XML at line ${validation.err.line}: ${validation.err.msg.replace(/\s+/g, " ")})`);
+    throw new InputError(
+      `${source}: not a GPX file (not valid XML at line ${validation.err.line}: ${validation.err.msg.replace(/\s+/g, ' ')})`,
+    );
   }
   const parser = new XMLParser({
     ignoreAttributes: false,
@@ -66,7 +68,12 @@ export function parseGpxText(text: string, source: string): TelemetrySession {
     const place = `track point ${i + 1}`;
     lat[i] = Number(point['@_lat']);
     lon[i] = Number(point['@_lon']);
-    if (!(Math.abs(lat[i]) <= 90) || !(Math.abs(lon[i]) <= 180) || point['@_lat'] === undefined || point['@_lon'] === undefined) {
+    if (
+      !(Math.abs(lat[i]) <= 90) ||
+      !(Math.abs(lon[i]) <= 180) ||
+      point['@_lat'] === undefined ||
+      point['@_lon'] === undefined
+    ) {
       throw new InputError(`${source}: ${place}: lat/lon missing or out of range`);
     }
     const stamp = point['time'];
@@ -74,7 +81,8 @@ export function parseGpxText(text: string, source: string): TelemetrySession {
     if (Number.isNaN(ms)) throw new InputError(`${source}: ${place}: no readable <time> (ISO 8601)`);
     if (i === 0) t0 = ms;
     timeS[i] = (ms - t0) / 1000;
-    if (i > 0 && timeS[i] < timeS[i - 1]!) throw new InputError(`${source}: ${place}: time runs backwards (${String(stamp)})`);
+    if (i > 0 && timeS[i] < timeS[i - 1]!)
+      throw new InputError(`${source}: ${place}: time runs backwards (${String(stamp)})`);
     speed[i] = extensionSpeed(point['extensions']);
     if (!Number.isNaN(speed[i])) speedSamples++;
   });

@@ -32,7 +32,7 @@ function parseTimeOfDay(field: string): number {
 
 /** ddmm.mmmm / dddmm.mmmm with a hemisphere letter -> signed degrees. */
 function parseAngle(field: string, hemisphere: string, degreeDigits: number): number {
-  if (!/^\d+(\.\d+)?$/.test(field) || field.indexOf('.') < 0 && field.length < degreeDigits + 2) return NaN;
+  if (!/^\d+(\.\d+)?$/.test(field) || (field.indexOf('.') < 0 && field.length < degreeDigits + 2)) return NaN;
   const degrees = Number(field.slice(0, degreeDigits));
   const minutes = Number(field.slice(degreeDigits));
   if (!(minutes < 60)) return NaN;
@@ -51,7 +51,10 @@ function parseDate(field: string): number | null {
 }
 
 export function looksLikeNmea(head: string): boolean {
-  const lines = head.split(/\r?\n/).map((line) => line.trim()).filter((line) => line !== '');
+  const lines = head
+    .split(/\r?\n/)
+    .map((line) => line.trim())
+    .filter((line) => line !== '');
   const sentences = lines.filter((line) => /^\$[A-Z]{2}[A-Z]{3},/.test(line));
   return sentences.length > 0 && sentences.length >= lines.length / 2;
 }
@@ -115,7 +118,9 @@ export function parseNmeaText(text: string, source: string): TelemetrySession {
       throw new InputError(`${source}: line ${lineIndex + 1}: ${fields[0]} sentence has an unreadable position`);
     }
     // Sentences of one fix share its time stamp and arrive together; look back over the last two fixes.
-    const held = [order[order.length - 1], order[order.length - 2]].find((fix) => fix !== undefined && fix.timeKey === timeKey);
+    const held = [order[order.length - 1], order[order.length - 2]].find(
+      (fix) => fix !== undefined && fix.timeKey === timeKey,
+    );
     if (held) {
       if (Number.isNaN(held.speedMps)) held.speedMps = speedMps;
       if (held.dayNumber === null) held.dayNumber = currentDay;
@@ -126,7 +131,8 @@ export function parseNmeaText(text: string, source: string): TelemetrySession {
   });
   if (sentences === 0 && noChecksum === 0) throw new InputError(`${source}: no NMEA sentences found`);
   if (order.length === 0) {
-    const skipped = badChecksums > 0 ? ` (${badChecksums} sentence${badChecksums > 1 ? 's' : ''} skipped for bad checksums)` : '';
+    const skipped =
+      badChecksums > 0 ? ` (${badChecksums} sentence${badChecksums > 1 ? 's' : ''} skipped for bad checksums)` : '';
     throw new InputError(`${source}: no RMC or GGA sentence with a GPS fix${skipped}`);
   }
 
@@ -141,13 +147,18 @@ export function parseNmeaText(text: string, source: string): TelemetrySession {
   const firstDay = order.find((fix) => fix.dayNumber !== null)?.dayNumber ?? 0;
   for (let i = 0; i < count; i++) {
     const fix = order[i]!;
-    let t = fix.dayNumber !== null ? (fix.dayNumber - firstDay) * 86400 + fix.secondOfDay : fix.secondOfDay + extraDays * 86400;
+    let t =
+      fix.dayNumber !== null
+        ? (fix.dayNumber - firstDay) * 86400 + fix.secondOfDay
+        : fix.secondOfDay + extraDays * 86400;
     if (i > 0 && fix.dayNumber === null && t < timeS[i - 1]! - 43200) {
       extraDays++;
       t += 86400;
     }
     if (i > 0 && t <= timeS[i - 1]!) {
-      throw new InputError(`${source}: line ${fix.line}: time ${fix.timeKey} runs backwards (earlier than the fix before it)`);
+      throw new InputError(
+        `${source}: line ${fix.line}: time ${fix.timeKey} runs backwards (earlier than the fix before it)`,
+      );
     }
     timeS[i] = t;
     lat[i] = fix.latDeg;
@@ -158,9 +169,12 @@ export function parseNmeaText(text: string, source: string): TelemetrySession {
   const t0 = timeS[0]!;
   for (let i = 0; i < count; i++) timeS[i] = timeS[i]! - t0;
   const notes: string[] = [];
-  if (badChecksums > 0) notes.push(`skipped ${badChecksums} ${badChecksums === 1 ? 'sentence' : 'sentences'} with bad checksums`);
-  if (noChecksum > 0) notes.push(`skipped ${noChecksum} ${noChecksum === 1 ? 'sentence' : 'sentences'} without a checksum`);
-  if (withoutFix > 0) notes.push(`ignored ${withoutFix} ${withoutFix === 1 ? 'sentence' : 'sentences'} without a GPS fix`);
+  if (badChecksums > 0)
+    notes.push(`skipped ${badChecksums} ${badChecksums === 1 ? 'sentence' : 'sentences'} with bad checksums`);
+  if (noChecksum > 0)
+    notes.push(`skipped ${noChecksum} ${noChecksum === 1 ? 'sentence' : 'sentences'} without a checksum`);
+  if (withoutFix > 0)
+    notes.push(`ignored ${withoutFix} ${withoutFix === 1 ? 'sentence' : 'sentences'} without a GPS fix`);
   if (count < 2) throw new InputError(`${source}: only one GPS fix; a lap needs many`);
 
   let speedMps: Float64Array | null = null;

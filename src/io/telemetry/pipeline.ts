@@ -89,26 +89,42 @@ export class RowPipeline {
     this.rows++;
     if (this.timeIndex >= 0 && this.time.error === null) {
       const binding = this.bindings[this.timeIndex]!;
-      this.time.check(block.values[this.timeIndex]!, r, binding.scale ?? 1, source, line, binding.header, this.rows === 1);
+      this.time.check(
+        block.values[this.timeIndex]!,
+        r,
+        binding.scale ?? 1,
+        source,
+        line,
+        binding.header,
+        this.rows === 1,
+      );
     }
     if (block.rows === CHUNK_ROWS) this.closeBlock();
   }
 
   private header(cells: string[]): void {
-    this.headers = cells.map((cell, index) => (index === 0 ? cell.replace(/^\uFEFF/, '').replace(/^\s*#\s*/, '') : cell).trim());
+    this.headers = cells.map((cell, index) =>
+      (index === 0 ? cell.replace(/^\uFEFF/, '').replace(/^\s*#\s*/, '') : cell).trim(),
+    );
     const { source, scan, mode, decided, skipRows, sink } = this.options;
     const { bindings, ignored } = bindColumns(this.headers, this.options.mapping, source);
     this.bindings = bindings;
     this.ignored = ignored;
     this.timeIndex = bindings.findIndex((binding) => binding.quantity === 'time');
     this.gaps = new GapFiller(bindings.length, this.timeIndex, scan, mode === 'scan');
-    const resolve = () => resolveLayout(this.bindings, this.headers, this.timeIndex, this.gaps.dropped, decided, source);
+    const resolve = () =>
+      resolveLayout(this.bindings, this.headers, this.timeIndex, this.gaps.dropped, decided, source);
     this.delivery = new ChunkDelivery(resolve, bindings, decided, skipRows, sink, source);
   }
 
   private currentBlock(): RowBlock {
     if (this.block) return this.block;
-    const block = this.pool.pop() ?? { firstRow: 0, rows: 0, lines: new Float64Array(CHUNK_ROWS), values: this.bindings.map(() => new Float64Array(CHUNK_ROWS)) };
+    const block = this.pool.pop() ?? {
+      firstRow: 0,
+      rows: 0,
+      lines: new Float64Array(CHUNK_ROWS),
+      values: this.bindings.map(() => new Float64Array(CHUNK_ROWS)),
+    };
     block.firstRow = this.rows;
     block.rows = 0;
     this.block = block;
@@ -131,7 +147,8 @@ export class RowPipeline {
     }
     this.held.push(block);
     this.release();
-    if (!this.finishing && this.held.length > this.options.maxHeldChunks && this.options.scan === null) throw new HeldTooLong();
+    if (!this.finishing && this.held.length > this.options.maxHeldChunks && this.options.scan === null)
+      throw new HeldTooLong();
   }
 
   /** Delivers every held row before the oldest open gap. */
@@ -157,12 +174,17 @@ export class RowPipeline {
   finish(): PipelineResult {
     const source = this.options.source;
     if (this.headers.length === 0) throw new InputError(`${source}: empty file (no header)`);
-    if (this.rows === 0) throw new InputError(`${source}: header only, no data rows (header: ${listedHeaders(this.headers)})`);
-    if (this.timeIndex < 0) throw new InputError(`${source}: no time column (found: ${listedHeaders(this.headers) || 'nothing'}); name it time_s or map it with --telemetry-columns time_s=NAME`);
+    if (this.rows === 0)
+      throw new InputError(`${source}: header only, no data rows (header: ${listedHeaders(this.headers)})`);
+    if (this.timeIndex < 0)
+      throw new InputError(
+        `${source}: no time column (found: ${listedHeaders(this.headers) || 'nothing'}); name it time_s or map it with --telemetry-columns time_s=NAME`,
+      );
     if (this.rows < 2) throw new InputError(`${source}: only one data row; a lap needs many`);
     if (this.time.error !== null) throw new InputError(this.time.error);
     const timeBinding = this.bindings[this.timeIndex]!;
-    if (!(this.time.previousTimeS > this.time.firstTimeS)) throw new InputError(`${source}: column ${timeBinding.header}: time does not advance`);
+    if (!(this.time.previousTimeS > this.time.firstTimeS))
+      throw new InputError(`${source}: column ${timeBinding.header}: time does not advance`);
     this.finishing = true;
     this.closeBlock();
     const scanning = this.options.mode === 'scan';

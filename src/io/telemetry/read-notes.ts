@@ -14,21 +14,48 @@ export interface ColumnNote {
   filled: number;
 }
 
-const NOTE_ORDER: Quantity[] = ['distance', 'x', 'y', 'lat', 'lon', 'speed', 'throttle', 'brake', 'ax', 'ay', 'steering', 'gear', 'rpm'];
+const NOTE_ORDER: Quantity[] = [
+  'distance',
+  'x',
+  'y',
+  'lat',
+  'lon',
+  'speed',
+  'throttle',
+  'brake',
+  'ax',
+  'ay',
+  'steering',
+  'gear',
+  'rpm',
+];
 
 /** The column notes in the order they are listed; `dropped` and `filled` by binding index. */
-export function columnNotes(bindings: ColumnBinding[], dropped: readonly boolean[], filled: readonly number[]): ColumnNote[] {
+export function columnNotes(
+  bindings: ColumnBinding[],
+  dropped: readonly boolean[],
+  filled: readonly number[],
+): ColumnNote[] {
   const notes: ColumnNote[] = [];
   for (const quantity of NOTE_ORDER) {
     const b = bindings.findIndex((binding) => binding.quantity === quantity);
     if (b < 0) continue;
-    notes.push({ field: FIELD_OF[quantity], quantity, header: bindings[b]!.header, empty: dropped[b]!, filled: filled[b]! });
+    notes.push({
+      field: FIELD_OF[quantity],
+      quantity,
+      header: bindings[b]!.header,
+      empty: dropped[b]!,
+      filled: filled[b]!,
+    });
   }
   return notes;
 }
 
 /** The notes of a read, in the order the session reader has always given them. */
-export function composeNotes(result: { ignored: string[]; decimalComma: boolean; columnNotes: ColumnNote[] }, decided: DecidedUnits | null): string[] {
+export function composeNotes(
+  result: { ignored: string[]; decimalComma: boolean; columnNotes: ColumnNote[] },
+  decided: DecidedUnits | null,
+): string[] {
   const notes: string[] = [];
   if (result.ignored.length > 0) notes.push(`columns not used: ${result.ignored.join(', ')}`);
   if (result.decimalComma) notes.push('decimal commas read');

@@ -61,7 +61,8 @@ export class SessionAssembler {
       if (factor !== undefined) applyFactor(values, field, factor);
       channels[field] = values;
     }
-    if (layout.positions === 'latlon' && decided?.geoOrigin) projectInPlace(channels.xM!, channels.yM!, localPlane(decided.geoOrigin));
+    if (layout.positions === 'latlon' && decided?.geoOrigin)
+      projectInPlace(channels.xM!, channels.yM!, localPlane(decided.geoOrigin));
     return {
       source: this.source,
       count: rows,
@@ -101,7 +102,14 @@ export function fillGaps(values: Float64Array, timeS: Float64Array): number | nu
 }
 
 /** A session of GPS fixes only: positions projected about their mean, speed where the log gave one. */
-export function gpsSession(source: string, timeS: Float64Array, latDeg: Float64Array, lonDeg: Float64Array, speedMps: Float64Array | null, notes: string[]): TelemetrySession {
+export function gpsSession(
+  source: string,
+  timeS: Float64Array,
+  latDeg: Float64Array,
+  lonDeg: Float64Array,
+  speedMps: Float64Array | null,
+  notes: string[],
+): TelemetrySession {
   const projected = projectLatLon(latDeg, lonDeg);
   return {
     source,

@@ -8,7 +8,14 @@ import type { RowBlock } from './row-block.js';
 import { applyFactor, projectInPlace, type DecidedUnits } from './units-from-data.js';
 
 /** Rows [from, to) of `block`; channels still pending stay in the file's units. */
-export function scaleRowsToSi(block: RowBlock, resolved: ResolvedLayout, bindings: ColumnBinding[], decided: DecidedUnits | null, from: number, to: number): void {
+export function scaleRowsToSi(
+  block: RowBlock,
+  resolved: ResolvedLayout,
+  bindings: ColumnBinding[],
+  decided: DecidedUnits | null,
+  from: number,
+  to: number,
+): void {
   const { layout, columnOfField, plane } = resolved;
   const column = (field: TelemetryChannel) => block.values[columnOfField.get(field)!]!;
   for (const field of layout.channels) {

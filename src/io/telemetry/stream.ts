@@ -30,7 +30,12 @@ class Reader {
     private readonly mapping: Record<string, string>,
   ) {}
 
-  private async pass(mode: 'read' | 'scan', decided: DecidedUnits | null, sink: ChunkSink, skipRows: number): Promise<PipelineResult> {
+  private async pass(
+    mode: 'read' | 'scan',
+    decided: DecidedUnits | null,
+    sink: ChunkSink,
+    skipRows: number,
+  ): Promise<PipelineResult> {
     const pipeline = new RowPipeline({
       source: this.file,
       headerLine: this.dialect.headerLine,
@@ -70,10 +75,15 @@ class Reader {
  * returns). Column detection, units, gap filling and every check are the session reader's (readTelemetryFile);
  * on a bad row the promise rejects with the same one-line message, after the chunks before it have gone out.
  */
-export async function streamTelemetryCsv(file: string, options: TelemetryStreamOptions, onChunk: (chunk: TelemetryChunk) => void): Promise<TelemetryStreamSummary> {
+export async function streamTelemetryCsv(
+  file: string,
+  options: TelemetryStreamOptions,
+  onChunk: (chunk: TelemetryChunk) => void,
+): Promise<TelemetryStreamSummary> {
   const head = await readTelemetryHead(file);
   const format = sniffTelemetryFormat(head, file);
-  if (format !== 'csv') throw new InputError(`${file}: a ${format === 'gpx' ? 'GPX' : 'NMEA 0183'} log; only CSV logs are read in chunks`);
+  if (format !== 'csv')
+    throw new InputError(`${file}: a ${format === 'gpx' ? 'GPX' : 'NMEA 0183'} log; only CSV logs are read in chunks`);
   const reader = new Reader(file, sniffDialect(head, file), options.columns);
   let evidence: UnitEvidence | null = null;
   let result = await reader.read(null, (chunk, layout) => {

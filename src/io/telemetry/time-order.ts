@@ -12,7 +12,15 @@ export class TimeOrder {
    * Row `r` of the time column `values`, in the file's unit until `scale` takes it to seconds; `source`, `line` and
    * `header` name it, and the message is only built when the row is wrong (this runs once per sample).
    */
-  check(values: Float64Array, r: number, scale: number, source: string, line: number, header: string, firstRow: boolean): void {
+  check(
+    values: Float64Array,
+    r: number,
+    scale: number,
+    source: string,
+    line: number,
+    header: string,
+    firstRow: boolean,
+  ): void {
     const timeS = values[r]! * scale;
     values[r] = timeS;
     if (Number.isNaN(timeS)) this.error = `${source}: line ${line}, column ${header}: empty time`;

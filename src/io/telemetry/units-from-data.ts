@@ -109,24 +109,30 @@ export class UnitEvidence {
   decide(): DecidedUnits {
     const { layout } = this;
     const decided: DecidedUnits = { factors: {}, notes: {}, geoOrigin: null };
-    if (layout.positions === 'latlon') decided.geoOrigin = { latDeg: this.latSum / this.fixes, lonDeg: this.lonSum / this.fixes };
+    if (layout.positions === 'latlon')
+      decided.geoOrigin = { latDeg: this.latSum / this.fixes, lonDeg: this.lonSum / this.fixes };
     for (const field of layout.pending) {
       const header = layout.headers[field]!;
       if (field === 'throttle' || field === 'brake') {
         const factor = (this.pedalMax[field] ?? 0) > 1.5 ? 0.01 : 1;
         decided.factors[field] = factor;
-        decided.notes[field] = `column ${header}: no unit in the header; read as ${factor === 1 ? '0-1' : 'percent'} from its range`;
+        decided.notes[field] =
+          `column ${header}: no unit in the header; read as ${factor === 1 ? '0-1' : 'percent'} from its range`;
       } else if (field === 'axMps2' || field === 'ayMps2') {
         // The 99th percentile (the sorted sample at index floor(0.99 n)) is at or below the limit exactly when
         // more than that many samples are.
         const rank = Math.min(this.samples - 1, Math.floor(0.99 * this.samples));
         const factor = (this.withinG[field] ?? 0) >= rank + 1 ? STANDARD_GRAVITY_MPS2 : 1;
         decided.factors[field] = factor;
-        decided.notes[field] = `column ${header}: no unit in the header; read as ${factor === 1 ? 'm/s^2' : 'g'} from its range`;
+        decided.notes[field] =
+          `column ${header}: no unit in the header; read as ${factor === 1 ? 'm/s^2' : 'g'} from its range`;
       } else if (field === 'speedMps') {
         const [name, factor] = this.speedUnit();
         decided.factors[field] = factor;
-        decided.notes[field] = name === null ? `column ${header}: no unit in the header; km/h assumed` : `column ${header}: no unit in the header; read as ${name} (it matches the distance travelled)`;
+        decided.notes[field] =
+          name === null
+            ? `column ${header}: no unit in the header; km/h assumed`
+            : `column ${header}: no unit in the header; read as ${name} (it matches the distance travelled)`;
       }
     }
     return decided;
@@ -134,12 +140,19 @@ export class UnitEvidence {
 
   /** The nearest of m/s, km/h, mph and knots within 15 % of the distance covered; null name = km/h assumed. */
   private speedUnit(): [string | null, number] {
-    const candidates: Array<[string, number]> = [['m/s', 1], ['km/h', 1 / 3.6], ['mph', 0.44704], ['knots', 1852 / 3600]];
+    const candidates: Array<[string, number]> = [
+      ['m/s', 1],
+      ['km/h', 1 / 3.6],
+      ['mph', 0.44704],
+      ['knots', 1852 / 3600],
+    ];
     const travelled = this.travelledM;
     const sum = this.speedTimeIntegral;
     if (travelled > 0 && sum > 0) {
       const ratio = travelled / sum;
-      const best = candidates.reduce((a, b) => (Math.abs(Math.log(ratio / b[1])) < Math.abs(Math.log(ratio / a[1])) ? b : a));
+      const best = candidates.reduce((a, b) =>
+        Math.abs(Math.log(ratio / b[1])) < Math.abs(Math.log(ratio / a[1])) ? b : a,
+      );
       if (Math.abs(Math.log(ratio / best[1])) < 0.15) return best;
     }
     return [null, 1 / 3.6];
@@ -147,7 +160,13 @@ export class UnitEvidence {
 }
 
 /** Scales one pending channel to SI in place (pedals then clipped to 0-1). */
-export function applyFactor(values: Float64Array, field: TelemetryChannel, factor: number, from = 0, to = values.length): void {
+export function applyFactor(
+  values: Float64Array,
+  field: TelemetryChannel,
+  factor: number,
+  from = 0,
+  to = values.length,
+): void {
   const pedal = field === 'throttle' || field === 'brake';
   if (factor !== 1) for (let i = from; i < to; i++) values[i] = values[i]! * factor;
   if (pedal) for (let i = from; i < to; i++) values[i] = Math.min(1, Math.max(0, values[i]!));

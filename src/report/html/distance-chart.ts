@@ -66,7 +66,9 @@ export function distanceChartSvg(spec: DistanceChartSpec, options: SvgOptions): 
 
   let body = `<text class="chart-title" x="${PLOT_LEFT}" y="16" font-size="13" font-weight="600">${escapeHtml(spec.title)}</text>`;
   const legendItems: LegendItem[] = [
-    ...spec.series.filter((series) => series.label).map((series) => ({ label: series.label, colour: series.colour, ...(series.dash ? { dash: series.dash } : {}) })),
+    ...spec.series
+      .filter((series) => series.label)
+      .map((series) => ({ label: series.label, colour: series.colour, ...(series.dash ? { dash: series.dash } : {}) })),
     ...(spec.legendExtra ?? []),
   ];
   body += legendRow(legendItems, CHART_WIDTH - PLOT_RIGHT, 16);
@@ -107,12 +109,21 @@ export function distanceChartSvg(spec: DistanceChartSpec, options: SvgOptions): 
   body += '</g></g>';
   body += `<rect x="${PLOT_LEFT}" y="${PLOT_TOP}" width="${plotWidth}" height="${plotHeight}" fill="none" stroke="#bdbdbd"/>`;
   body += `<g class="x-axis" data-y="${plotBottom}">${xTicks(0, spec.lengthM, plotWidth, plotBottom)}</g>`;
-  if (spec.note) body += `<text x="${PLOT_LEFT + 8}" y="${PLOT_TOP + 14}" fill="${PALETTE.axis}" font-style="italic">${escapeHtml(spec.note)}</text>`;
+  if (spec.note)
+    body += `<text x="${PLOT_LEFT + 8}" y="${PLOT_TOP + 14}" fill="${PALETTE.axis}" font-style="italic">${escapeHtml(spec.note)}</text>`;
   body +=
     `<line class="cursor" x1="0" x2="0" y1="${PLOT_TOP}" y2="${plotBottom}" stroke="${PALETTE.cursor}" stroke-width="1" visibility="hidden"/>` +
     `<rect class="hover-area" x="${PLOT_LEFT}" y="${PLOT_TOP}" width="${plotWidth}" height="${plotHeight}" fill="transparent"/>`;
   const attributes = ` data-distance-chart="" data-plot-left="${PLOT_LEFT}" data-plot-width="${plotWidth}"`;
-  return svgElement(spec.name, CHART_WIDTH, spec.height, body, options, `${spec.title}: ${spec.yTitle} against distance, m`, attributes);
+  return svgElement(
+    spec.name,
+    CHART_WIDTH,
+    spec.height,
+    body,
+    options,
+    `${spec.title}: ${spec.yTitle} against distance, m`,
+    attributes,
+  );
 }
 
 /** Distance ticks under the plot for the range [fromM, toM]; the page's script redraws them on zoom. */

@@ -11,5 +11,8 @@ export function escapeHtml(text: string): string {
 
 /** JSON for a <script type="application/json"> element: <, > and & as \u escapes, and the two JS line separators. */
 export function jsonForScript(value: unknown): string {
-  return JSON.stringify(value).replace(/[<>&\u2028\u2029]/g, (character) => `\\u${character.charCodeAt(0).toString(16).padStart(4, '0')}`);
+  return JSON.stringify(value).replace(
+    /[<>&\u2028\u2029]/g,
+    (character) => `\\u${character.charCodeAt(0).toString(16).padStart(4, '0')}`,
+  );
 }

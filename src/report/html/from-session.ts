@@ -8,7 +8,12 @@ import type { SessionComparison } from '../../compare/compare-session.js';
 import type { ReportInput } from './model.js';
 
 /** `linePositions`: the racing line the reference drove, where it drove one (the map draws it instead of the centreline). */
-export function sessionReportInput(comparison: SessionComparison, car: Car, ambient: Ambient, linePositions?: ReportInput['linePositions']): ReportInput {
+export function sessionReportInput(
+  comparison: SessionComparison,
+  car: Car,
+  ambient: Ambient,
+  linePositions?: ReportInput['linePositions'],
+): ReportInput {
   const demonstrated = comparison.demonstratedRecord ? demonstratedEnvelope(comparison.demonstratedRecord) : null;
   return {
     reference: comparison.reference,

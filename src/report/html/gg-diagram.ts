@@ -44,7 +44,9 @@ export function envelopeBoundaryG(envelope: Envelope, speedMps: number): Array<[
 export function boundarySpeedsKph(model: ReportModel): number[] {
   const topKph = mpsToKph(model.input.reference.maxSpeedMps);
   const lowKph = mpsToKph(model.input.reference.minSpeedMps);
-  const picks = [lowKph + 0.1 * (topKph - lowKph), (lowKph + topKph) / 2, topKph * 0.95].map((v) => Math.max(10, Math.round(v / 10) * 10));
+  const picks = [lowKph + 0.1 * (topKph - lowKph), (lowKph + topKph) / 2, topKph * 0.95].map((v) =>
+    Math.max(10, Math.round(v / 10) * 10),
+  );
   return [...new Set(picks)];
 }
 
@@ -53,7 +55,8 @@ export function ggFrame(model: ReportModel): { frame: GgFrame; maxG: number } {
   // noisy samples do not shrink the rest (they are clipped at the frame).
   let maxG = 0.5;
   const reference = model.reference;
-  for (let i = 0; i < reference.axG.length; i++) maxG = Math.max(maxG, Math.abs(reference.axG[i]!), Math.abs(reference.ayG[i]!));
+  for (let i = 0; i < reference.axG.length; i++)
+    maxG = Math.max(maxG, Math.abs(reference.axG[i]!), Math.abs(reference.ayG[i]!));
   if (model.driver) maxG = Math.max(maxG, quantileOf([model.driver.axG, model.driver.ayG], 0.995, true) || 0);
   const envelope = model.input.envelope;
   for (const speed of boundarySpeedsKph(model)) {
@@ -62,7 +65,10 @@ export function ggFrame(model: ReportModel): { frame: GgFrame; maxG: number } {
   maxG = Math.min(6, Math.ceil(maxG * 1.08 * 4) / 4);
   const plotSize = GG_SIZE - 2 * PAD;
   const pxPerG = (plotSize - LEGEND_HEIGHT) / (2 * maxG);
-  return { frame: { centreX: GG_SIZE / 2 + 8, centreY: LEGEND_HEIGHT + PAD + (plotSize - LEGEND_HEIGHT) / 2, pxPerG }, maxG };
+  return {
+    frame: { centreX: GG_SIZE / 2 + 8, centreY: LEGEND_HEIGHT + PAD + (plotSize - LEGEND_HEIGHT) / 2, pxPerG },
+    maxG,
+  };
 }
 
 /** Dots as zero-length round-capped strokes: one short path instead of a thousand circles. */
@@ -76,9 +82,21 @@ function dotsPath(ax: Float64Array, ay: Float64Array, frame: GgFrame, colour: st
   return `<path class="${className}" d="${d}" fill="none" stroke="${colour}" stroke-opacity="0.55" stroke-width="3.2" stroke-linecap="round"/>`;
 }
 
-function boundaryPath(envelope: Envelope, speedKph: number, frame: GgFrame, colour: string, dash: string | null): string {
+function boundaryPath(
+  envelope: Envelope,
+  speedKph: number,
+  frame: GgFrame,
+  colour: string,
+  dash: string | null,
+): string {
   const points = envelopeBoundaryG(envelope, kphToMps(speedKph));
-  const d = points.map(([lat, lon], k) => `${k ? 'L' : 'M'}${coord(frame.centreX + lat * frame.pxPerG)},${coord(frame.centreY - lon * frame.pxPerG)}`).join('') + 'Z';
+  const d =
+    points
+      .map(
+        ([lat, lon], k) =>
+          `${k ? 'L' : 'M'}${coord(frame.centreX + lat * frame.pxPerG)},${coord(frame.centreY - lon * frame.pxPerG)}`,
+      )
+      .join('') + 'Z';
   return `<path class="envelope" d="${d}" fill="none" stroke="${colour}" stroke-width="1" stroke-opacity="0.8"${dash ? ` stroke-dasharray="${dash}"` : ''}/>`;
 }
 
@@ -124,7 +142,16 @@ export function ggDiagramSvg(model: ReportModel, options: SvgOptions): string {
   body += '</g>';
   body += `<rect x="${coord(left)}" y="${coord(top)}" width="${coord(2 * extent)}" height="${coord(2 * extent)}" fill="none" stroke="#bdbdbd"/>`;
   body += `<circle class="gg-dot-reference" r="5" fill="${PALETTE.reference}" stroke="#fff" stroke-width="1.5" visibility="hidden"/>`;
-  if (model.driver) body += `<circle class="gg-dot-driver" r="5" fill="${PALETTE.driver}" stroke="#fff" stroke-width="1.5" visibility="hidden"/>`;
+  if (model.driver)
+    body += `<circle class="gg-dot-driver" r="5" fill="${PALETTE.driver}" stroke="#fff" stroke-width="1.5" visibility="hidden"/>`;
   const attributes = ` data-gg-cx="${coord(frame.centreX)}" data-gg-cy="${coord(frame.centreY)}" data-gg-px-per-g="${frame.pxPerG.toFixed(3)}"`;
-  return svgElement('gg', GG_SIZE, GG_SIZE, body, options, 'g-g diagram: longitudinal against lateral acceleration, g', attributes);
+  return svgElement(
+    'gg',
+    GG_SIZE,
+    GG_SIZE,
+    body,
+    options,
+    'g-g diagram: longitudinal against lateral acceleration, g',
+    attributes,
+  );
 }

@@ -59,7 +59,8 @@ function scaled(values: ArrayLike<number>, factor: number): Float64Array {
 }
 
 function requireLength(name: string, values: ArrayLike<number> | null, count: number): void {
-  if (values && values.length !== count) throw new Error(`lap report: ${name} has ${values.length} samples but the track grid has ${count}`);
+  if (values && values.length !== count)
+    throw new Error(`lap report: ${name} has ${values.length} samples but the track grid has ${count}`);
 }
 
 /** Braking zones as corners for a page without a driver: from the brake point to full throttle again. */
@@ -124,9 +125,23 @@ export function reportModel(input: ReportInput): ReportModel {
       yM: lap.yM,
       deltaS: Float64Array.from(result.deltaS),
     };
-    corners = result.corners.map((corner) => ({ id: corner.id, name: corner.name, entryM: corner.entryM, apexM: corner.apexM, exitM: corner.exitM }));
+    corners = result.corners.map((corner) => ({
+      id: corner.id,
+      name: corner.name,
+      entryM: corner.entryM,
+      apexM: corner.apexM,
+      exitM: corner.exitM,
+    }));
   }
-  return { input, lengthM: track.lengthM, closed: track.closed, stationM: trace.stationM, reference: referenceChannels, driver, corners };
+  return {
+    input,
+    lengthM: track.lengthM,
+    closed: track.closed,
+    stationM: trace.stationM,
+    reference: referenceChannels,
+    driver,
+    corners,
+  };
 }
 
 /** The distance range a corner zooms to: the corner and a margin either side, inside the lap. */

@@ -46,7 +46,9 @@ export function contentSecurityPolicy(style: string, script: string | undefined)
 export function htmlPage(parts: PageParts): string {
   const style = PAGE_STYLE;
   const csp = contentSecurityPolicy(style, parts.script);
-  const data = parts.data ? `<script type="application/json" id="${escapeHtml(parts.data.id)}">${jsonForScript(parts.data.value)}</script>\n` : '';
+  const data = parts.data
+    ? `<script type="application/json" id="${escapeHtml(parts.data.id)}">${jsonForScript(parts.data.value)}</script>\n`
+    : '';
   const script = parts.script === undefined ? '' : `<script>${parts.script}</script>\n`;
   return `<!DOCTYPE html>
 <html lang="en">

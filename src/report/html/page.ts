@@ -42,8 +42,17 @@ function distanceCharts(model: ReportModel): DistanceChartSpec[] {
   const { reference, driver } = model;
   const track = model.input.reference.track;
   const base = { stationM: model.stationM, lengthM: model.lengthM, stepM: track.stepM };
-  const refSeries = (values: ArrayLike<number>, label = 'reference'): DistanceSeries => ({ label, colour: PALETTE.reference, values, ...(driver ? { dash: REFERENCE_DASH } : {}) });
-  const drvSeries = (values: ArrayLike<number>, label = 'driver'): DistanceSeries => ({ label, colour: PALETTE.driver, values });
+  const refSeries = (values: ArrayLike<number>, label = 'reference'): DistanceSeries => ({
+    label,
+    colour: PALETTE.reference,
+    values,
+    ...(driver ? { dash: REFERENCE_DASH } : {}),
+  });
+  const drvSeries = (values: ArrayLike<number>, label = 'driver'): DistanceSeries => ({
+    label,
+    colour: PALETTE.driver,
+    values,
+  });
   const charts: DistanceChartSpec[] = [];
 
   const [speedMin, speedMax] = range([reference.speedKph, driver?.speedKph]);
@@ -66,7 +75,15 @@ function distanceCharts(model: ReportModel): DistanceChartSpec[] {
       yTitle: 'delta, s',
       yDomain: paddedDomain(Math.min(0, deltaMin), Math.max(0, deltaMax), 0.08),
       height: 150,
-      series: [{ label: 'driver − reference (+ = slower)', colour: PALETTE.delta, values: driver.deltaS, fillToZero: true, width: 1.8 }],
+      series: [
+        {
+          label: 'driver − reference (+ = slower)',
+          colour: PALETTE.delta,
+          values: driver.deltaS,
+          fillToZero: true,
+          width: 1.8,
+        },
+      ],
       guides: [0],
     });
   }
@@ -82,7 +99,8 @@ function distanceCharts(model: ReportModel): DistanceChartSpec[] {
     if (driver.throttlePct) pedalSeries.push(drvSeries(driver.throttlePct, 'driver'));
     if (driver.brakePct) pedalSeries.push({ ...drvSeries(negated(driver.brakePct)), label: '' });
     if (!driver.throttlePct && !driver.brakePct) note = 'the driver’s log has no pedal channels';
-    else if (!driver.throttlePct || !driver.brakePct) note = `the driver’s log has no ${driver.throttlePct ? 'brake' : 'throttle'} channel`;
+    else if (!driver.throttlePct || !driver.brakePct)
+      note = `the driver’s log has no ${driver.throttlePct ? 'brake' : 'throttle'} channel`;
   }
   charts.push({
     ...base,
@@ -106,7 +124,9 @@ function distanceCharts(model: ReportModel): DistanceChartSpec[] {
     yTitle: 'grip use, %',
     yDomain: [0, Math.min(200, Math.max(115, Math.ceil((gripMax + 5) / 10) * 10))],
     height: 170,
-    series: driver ? [refSeries(reference.gripUsePct), drvSeries(driver.gripUsePct)] : [refSeries(reference.gripUsePct)],
+    series: driver
+      ? [refSeries(reference.gripUsePct), drvSeries(driver.gripUsePct)]
+      : [refSeries(reference.gripUsePct)],
     bands: [
       { from: GRIP_NEAR_LIMIT * 100, to: GRIP_OVER_LIMIT * 100, colour: '#fbe7bd' },
       { from: GRIP_OVER_LIMIT * 100, to: 1000, colour: '#f5e1ec' },
@@ -132,7 +152,8 @@ function allCharts(model: ReportModel, options: SvgOptions): ChartSvg[] {
     { name: 'track-map.svg', title: 'Track map', svg: trackMapSvg(model, options) },
     { name: 'g-g.svg', title: 'g-g diagram', svg: ggDiagramSvg(model, options) },
   ];
-  for (const spec of distanceCharts(model)) charts.push({ name: `${spec.name}.svg`, title: spec.title, svg: distanceChartSvg(spec, options) });
+  for (const spec of distanceCharts(model))
+    charts.push({ name: `${spec.name}.svg`, title: spec.title, svg: distanceChartSvg(spec, options) });
   return charts;
 }
 
@@ -168,7 +189,11 @@ function pageData(model: ReportModel): unknown {
     d: rounded(model.stationM, indices, 1),
     mapX,
     mapY,
-    gg: { cx: Math.round(frame.centreX * 10) / 10, cy: Math.round(frame.centreY * 10) / 10, pxPerG: Math.round(frame.pxPerG * 1000) / 1000 },
+    gg: {
+      cx: Math.round(frame.centreX * 10) / 10,
+      cy: Math.round(frame.centreY * 10) / 10,
+      pxPerG: Math.round(frame.pxPerG * 1000) / 1000,
+    },
     series: {
       vR: rounded(r.speedKph, indices, 1),
       tR: rounded(r.throttlePct, indices, 0),
@@ -186,7 +211,12 @@ function pageData(model: ReportModel): unknown {
     },
     corners: model.corners.map((corner) => {
       const [from, to] = cornerRangeM(corner, model.lengthM);
-      return { id: corner.id, from: Math.round(from), to: Math.round(to), label: corner.name ? `corner ${corner.id}: ${corner.name}` : `corner ${corner.id}` };
+      return {
+        id: corner.id,
+        from: Math.round(from),
+        to: Math.round(to),
+        label: corner.name ? `corner ${corner.id}: ${corner.name}` : `corner ${corner.id}`,
+      };
     }),
   };
 }
@@ -211,7 +241,9 @@ export function lapReportHtml(input: ReportInput): string {
   const [mapSvg, ggSvg, ...distanceSvgs] = allCharts(model, options);
   const reference = input.reference;
   const trackName = reference.track.name;
-  const title = input.comparison ? `Lap report: ${trackName} · ${input.carName} · driver against reference` : `Reference lap: ${trackName} · ${input.carName}`;
+  const title = input.comparison
+    ? `Lap report: ${trackName} · ${input.carName} · driver against reference`
+    : `Reference lap: ${trackName} · ${input.carName}`;
   const subtitle = input.comparison
     ? `${input.comparison.driver.source}, lap ${input.comparison.driver.lapNumber}, against the reference lap of the ${reference.envelopeKind} model`
     : `Reference lap of the ${reference.envelopeKind} model, grid step ${reference.track.stepM.toFixed(2)} m`;
@@ -225,7 +257,9 @@ ${distanceSvgs.map((chart) => chart.svg).join('\n')}
 </section>
 <section class="panel">${cornerTableHtml(model)}</section>
 ${input.comparison ? `<section class="panel">${findingsHtml(model)}</section>` : ''}`;
-  const hoverStepM = (Math.max(1, Math.ceil(reference.trace.count / MAX_HOVER_POINTS)) * reference.track.stepM).toFixed(1);
+  const hoverStepM = (Math.max(1, Math.ceil(reference.trace.count / MAX_HOVER_POINTS)) * reference.track.stepM).toFixed(
+    1,
+  );
   return htmlPage({
     title,
     subtitle,

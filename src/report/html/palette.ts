@@ -54,7 +54,15 @@ export const GRIP_CLASS_LABEL: Record<GripClass, string> = {
 };
 
 /** Colours for charts with many series of one kind (one per corner): the Okabe-Ito set without yellow, which is too faint on white. */
-export const SERIES_COLOURS = [OKABE_ITO.blue, OKABE_ITO.vermillion, OKABE_ITO.bluishGreen, OKABE_ITO.reddishPurple, OKABE_ITO.orange, OKABE_ITO.skyBlue, OKABE_ITO.black] as const;
+export const SERIES_COLOURS = [
+  OKABE_ITO.blue,
+  OKABE_ITO.vermillion,
+  OKABE_ITO.bluishGreen,
+  OKABE_ITO.reddishPurple,
+  OKABE_ITO.orange,
+  OKABE_ITO.skyBlue,
+  OKABE_ITO.black,
+] as const;
 /** After every colour has been used once, the next round is dashed, then dotted, so no two series look alike. */
 export const SERIES_DASHES = ['', '6 3', '2 2', '8 3 2 3'] as const;
 

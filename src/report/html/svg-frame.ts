@@ -14,7 +14,15 @@ export interface SvgOptions {
   standalone: boolean;
 }
 
-export function svgElement(name: string, width: number, height: number, body: string, options: SvgOptions, label: string, extraAttributes = ''): string {
+export function svgElement(
+  name: string,
+  width: number,
+  height: number,
+  body: string,
+  options: SvgOptions,
+  label: string,
+  extraAttributes = '',
+): string {
   const namespace = options.standalone ? ` xmlns="${SVG_NAMESPACE}"` : '';
   const prolog = options.standalone ? '<?xml version="1.0" encoding="UTF-8"?>\n' : '';
   return (
@@ -55,7 +63,14 @@ export function legendRow(items: LegendItem[], rightX: number, y: number): strin
 }
 
 /** Horizontal grid lines with labels at round values, and the axis title turned upright at the left. */
-export function yAxis(scale: LinearScale, left: number, right: number, title: string, format: (value: number) => string, tickCount = 4): string {
+export function yAxis(
+  scale: LinearScale,
+  left: number,
+  right: number,
+  title: string,
+  format: (value: number) => string,
+  tickCount = 4,
+): string {
   const [d0, d1] = scale.domain;
   let out = '<g class="y-axis">';
   for (const tick of niceTicks(Math.min(d0, d1), Math.max(d0, d1), tickCount)) {
@@ -69,7 +84,13 @@ export function yAxis(scale: LinearScale, left: number, right: number, title: st
 }
 
 /** Tick marks and labels under a plot at round values, and the axis title at the right end below them. */
-export function xAxis(scale: LinearScale, bottom: number, title: string, format: (value: number) => string = tickText, tickCount = 10): string {
+export function xAxis(
+  scale: LinearScale,
+  bottom: number,
+  title: string,
+  format: (value: number) => string = tickText,
+  tickCount = 10,
+): string {
   const [d0, d1] = scale.domain;
   let out = '';
   for (const tick of niceTicks(Math.min(d0, d1), Math.max(d0, d1), tickCount)) {
@@ -82,7 +103,13 @@ export function xAxis(scale: LinearScale, bottom: number, title: string, format:
 }
 
 /** Legend rows ending at `rightX`, the first with its baseline at `y`, wrapped so that no row is wider than `maxWidth`. */
-export function legendRows(items: LegendItem[], rightX: number, y: number, maxWidth: number, rowHeight = 15): { svg: string; rows: number } {
+export function legendRows(
+  items: LegendItem[],
+  rightX: number,
+  y: number,
+  maxWidth: number,
+  rowHeight = 15,
+): { svg: string; rows: number } {
   const rows: LegendItem[][] = [[]];
   let width = 0;
   for (const item of items) {

@@ -5,9 +5,12 @@ import { formatLapTime, mpsToKph } from '../../units.js';
 import { escapeHtml } from './escape.js';
 import type { ReportModel } from './model.js';
 
-const fixed = (value: number | null | undefined, digits: number): string => (value === null || value === undefined || !Number.isFinite(value) ? '–' : value.toFixed(digits));
+const fixed = (value: number | null | undefined, digits: number): string =>
+  value === null || value === undefined || !Number.isFinite(value) ? '–' : value.toFixed(digits);
 const signed = (value: number | null | undefined, digits: number): string =>
-  value === null || value === undefined || !Number.isFinite(value) ? '–' : `${value > 0 ? '+' : value < 0 ? '−' : '±'}${Math.abs(value).toFixed(digits)}`;
+  value === null || value === undefined || !Number.isFinite(value)
+    ? '–'
+    : `${value > 0 ? '+' : value < 0 ? '−' : '±'}${Math.abs(value).toFixed(digits)}`;
 
 export function tile(label: string, value: string, note = ''): string {
   return `<div class="tile"><div class="tile-label">${escapeHtml(label)}</div><div class="tile-value">${escapeHtml(value)}</div>${note ? `<div class="tile-note">${escapeHtml(note)}</div>` : ''}</div>`;
@@ -20,13 +23,26 @@ export function summaryHtml(model: ReportModel): string {
   if (comparison) {
     const result = comparison.result;
     const gap = result.driverLapTimeS - result.referenceLapTimeS;
-    tiles.push(tile('Driver lap', formatLapTime(result.driverLapTimeS), `lap ${comparison.driver.lapNumber} of ${comparison.driver.source}`));
+    tiles.push(
+      tile(
+        'Driver lap',
+        formatLapTime(result.driverLapTimeS),
+        `lap ${comparison.driver.lapNumber} of ${comparison.driver.source}`,
+      ),
+    );
     tiles.push(tile('Gap to reference', `${signed(gap, 3)} s`, gap >= 0 ? 'driver slower' : 'driver faster'));
-    if (result.demonstratedLapTimeS !== null) tiles.push(tile('On demonstrated grip', formatLapTime(result.demonstratedLapTimeS), 'driver’s own envelope'));
+    if (result.demonstratedLapTimeS !== null)
+      tiles.push(tile('On demonstrated grip', formatLapTime(result.demonstratedLapTimeS), 'driver’s own envelope'));
   }
   tiles.push(tile('Top speed', `${mpsToKph(reference.maxSpeedMps).toFixed(1)} km/h`, 'reference'));
   tiles.push(tile('Lowest speed', `${mpsToKph(reference.minSpeedMps).toFixed(1)} km/h`, 'reference'));
-  tiles.push(tile('Length', `${(reference.lengthM / 1000).toFixed(3)} km`, reference.track.closed ? 'closed circuit' : 'open stage'));
+  tiles.push(
+    tile(
+      'Length',
+      `${(reference.lengthM / 1000).toFixed(3)} km`,
+      reference.track.closed ? 'closed circuit' : 'open stage',
+    ),
+  );
   return `<section class="summary" aria-label="Lap summary">${tiles.join('')}</section>`;
 }
 
@@ -87,12 +103,17 @@ export function findingsHtml(model: ReportModel): string {
   const findings = [...comparison.result.findings].sort((a, b) => b.timeS - a.timeS);
   const items = findings
     .map((finding) => {
-      const where = finding.corner !== null ? `<button type="button" class="corner-link" data-corner="${finding.corner}">corner ${finding.corner}</button>` : '<span class="whole-lap">whole lap</span>';
+      const where =
+        finding.corner !== null
+          ? `<button type="button" class="corner-link" data-corner="${finding.corner}">corner ${finding.corner}</button>`
+          : '<span class="whole-lap">whole lap</span>';
       return `<li><span class="stake">${fixed(finding.timeS, 2)} s</span>${where}<span class="finding-text">${escapeHtml(finding.text)}</span></li>`;
     })
     .join('');
   const notes = comparison.result.notes.map((note) => `<li>${escapeHtml(note)}</li>`).join('');
-  const derived = comparison.driver.derivedChannels.length ? `<li>${escapeHtml(`Derived, not measured: ${comparison.driver.derivedChannels.join(', ')}.`)}</li>` : '';
+  const derived = comparison.driver.derivedChannels.length
+    ? `<li>${escapeHtml(`Derived, not measured: ${comparison.driver.derivedChannels.join(', ')}.`)}</li>`
+    : '';
   return (
     `<section class="findings"><h2>Where the time is</h2>` +
     (items ? `<ol class="finding-list">${items}</ol>` : '<p>No findings.</p>') +

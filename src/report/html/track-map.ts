@@ -55,7 +55,14 @@ function polyline(indices: number[], xs: ArrayLike<number>, ys: ArrayLike<number
 }
 
 /** The path split into runs of one grip-use class; each run's class is the highest use within it. */
-function colouredPath(indices: number[], xs: ArrayLike<number>, ys: ArrayLike<number>, gripPct: ArrayLike<number>, map: MapProjection, width: number): string {
+function colouredPath(
+  indices: number[],
+  xs: ArrayLike<number>,
+  ys: ArrayLike<number>,
+  gripPct: ArrayLike<number>,
+  map: MapProjection,
+  width: number,
+): string {
   let out = '';
   let run: number[] = [];
   let runClass: GripClass | null = null;
@@ -100,9 +107,14 @@ export function trackMapSvg(model: ReportModel, options: SvgOptions): string {
   }
   const surfaceWidth = Math.max(6, widthM * map.pxPerM);
   let body = `<text class="chart-title" x="14" y="18" font-size="13" font-weight="600">Track map</text>`;
-  const legend: LegendItem[] = (['unused', 'near', 'over'] as const).map((cls) => ({ label: GRIP_CLASS_LABEL[cls], colour: GRIP_CLASS_COLOUR[cls] }));
+  const legend: LegendItem[] = (['unused', 'near', 'over'] as const).map((cls) => ({
+    label: GRIP_CLASS_LABEL[cls],
+    colour: GRIP_CLASS_COLOUR[cls],
+  }));
   body += legendRow(legend, MAP_WIDTH - 10, 36);
-  const subject = driverHasPath ? 'driver’s path coloured by grip use; reference line in black' : 'reference line coloured by grip use';
+  const subject = driverHasPath
+    ? 'driver’s path coloured by grip use; reference line in black'
+    : 'reference line coloured by grip use';
   body += `<text x="${MAP_WIDTH - 10}" y="52" text-anchor="end" fill="${PALETTE.axis}">${escapeHtml(subject)}</text>`;
   body += `<path class="track-surface" d="${polyline(indices, track.xM, track.yM, map)}" fill="none" stroke="${PALETTE.trackSurface}" stroke-width="${coord(surfaceWidth)}" stroke-linejoin="round" stroke-linecap="round"/>`;
   const reference = model.reference;

@@ -65,7 +65,12 @@ export function xyChartSvg(spec: XyChartSpec, options: SvgOptions): string {
   const right = XY_CHART_WIDTH - PLOT_RIGHT;
   const legendItems: LegendItem[] = spec.series
     .filter((series) => series.label)
-    .map((series) => ({ label: series.label, colour: series.colour, ...(series.dash ? { dash: series.dash } : {}), ...(series.line === false ? { mark: 'dot' as const } : {}) }));
+    .map((series) => ({
+      label: series.label,
+      colour: series.colour,
+      ...(series.dash ? { dash: series.dash } : {}),
+      ...(series.line === false ? { mark: 'dot' as const } : {}),
+    }));
   const legend = legendRows(legendItems, right, TITLE_HEIGHT + 14, right - PLOT_LEFT, LEGEND_ROW_HEIGHT);
   const plotTop = TITLE_HEIGHT + legend.rows * LEGEND_ROW_HEIGHT + 10;
   const plotHeight = spec.plotHeight ?? 210;
@@ -116,7 +121,16 @@ export function xyChartSvg(spec: XyChartSpec, options: SvgOptions): string {
     }
   });
   body += `<rect x="${PLOT_LEFT}" y="${plotTop}" width="${right - PLOT_LEFT}" height="${plotHeight}" fill="none" stroke="#bdbdbd"/>`;
-  if (spec.note) body += `<text x="${PLOT_LEFT}" y="${height - 4}" fill="${PALETTE.axis}" font-style="italic" font-size="10">${escapeHtml(spec.note)}</text>`;
+  if (spec.note)
+    body += `<text x="${PLOT_LEFT}" y="${height - 4}" fill="${PALETTE.axis}" font-style="italic" font-size="10">${escapeHtml(spec.note)}</text>`;
   const attributes = ` data-xy-chart="" data-plot-top="${plotTop}" data-plot-bottom="${plotBottom}"`;
-  return svgElement(spec.name, XY_CHART_WIDTH, height, body, options, `${spec.title}: ${spec.yTitle} against ${spec.xTitle}`, attributes);
+  return svgElement(
+    spec.name,
+    XY_CHART_WIDTH,
+    height,
+    body,
+    options,
+    `${spec.title}: ${spec.yTitle} against ${spec.xTitle}`,
+    attributes,
+  );
 }
