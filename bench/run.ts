@@ -13,6 +13,7 @@ const modules: [string, () => Promise<BenchModule>][] = [
   ['line', () => import('./line.bench.js')],
   ['transient', () => import('./transient.bench.js')],
   ['large-telemetry', () => import('./large-telemetry.bench.js')],
+  ['calibrate', () => import('./calibrate.bench.js')],
 ];
 
 const only = process.argv.slice(2);

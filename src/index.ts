@@ -192,3 +192,37 @@ export { compareSummaryText, compareSummaryJson, alignedTracesCsv } from './repo
 // Validation that lists every problem in car, track and telemetry files (`reflap check`).
 export { checkFiles, checkText, MAX_PROBLEMS_PER_FILE, type CheckReport, type FileCheck } from './check/check-files.js';
 export { detectKind, type FileKind } from './check/detect-kind.js';
+
+// The car from a driver's own log, and answers that carry the car file's uncertainty.
+export type { CarUncertainty } from './car/types.js';
+export { calibrationSamples, type CalibrationSamples } from './calibrate/samples.js';
+export {
+  calibrateCar,
+  CALIBRATED_FIELDS,
+  type CalibrationResult,
+  type FittedValue,
+  type KeptValue,
+} from './calibrate/calibrate-car.js';
+export { fitDrive, type DriveFit } from './calibrate/power-fit.js';
+export { fitGrip, type GripFit } from './calibrate/grip-fit.js';
+export { identifiability, type Identifiability } from './calibrate/identify.js';
+export { carFileJson, carFileObject } from './report/car-file.js';
+export { latinHypercube, normalDraws } from './uncertainty/design.js';
+export {
+  drawParameters,
+  applyDraw,
+  DEFAULT_DRAWS,
+  DEFAULT_DRAW_SEED,
+  type ParameterDraws,
+} from './uncertainty/draws.js';
+export {
+  uncertainReference,
+  uncertainComparison,
+  type UncertainReference,
+  type UncertainFinding,
+  type UncertainCorner,
+  type Band,
+} from './uncertainty/uncertain-reference.js';
+export { uncertaintyJson, robustFindingsText, uncertainReferenceText } from './report/uncertainty-summary.js';
+export { calibrationText, calibrationJson } from './report/calibration-summary.js';
+export { normalQuantile, normalCdf, logNormalCdf, studentQuantile } from './numeric/normal.js';

@@ -62,6 +62,16 @@ export interface Car {
     massKg: number;
     burnKgPerLap: number;
   };
+  /** How sure the file is of its numbers (src/uncertainty); absent = every value taken as exact. */
+  uncertainty?: CarUncertainty;
+  /** Where each value came from (a fitted car notes its fit), by the field's dotted name. */
+  origin?: Readonly<Record<string, string>>;
+}
+
+/** Standard deviations of uncertain fields, by the dotted names sweeps use (e.g. 'tyre.muLat'), and their correlations. */
+export interface CarUncertainty {
+  sd: Readonly<Record<string, number>>;
+  correlation: readonly { fields: readonly [string, string]; r: number }[];
 }
 
 export interface Ambient {

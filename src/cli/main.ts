@@ -14,6 +14,7 @@ import * as envelopeCommand from './commands/envelope.js';
 import * as demoCommand from './commands/demo.js';
 import * as carCommand from './commands/car.js';
 import * as checkCommand from './commands/check.js';
+import * as calibrateCommand from './commands/calibrate.js';
 
 interface CommandModule {
   register(program: Command): void;
@@ -28,6 +29,7 @@ const commandModules: CommandModule[] = [
   stintCommand,
   compareCommand,
   envelopeCommand,
+  calibrateCommand,
   lineCommand,
   carCommand,
   checkCommand,

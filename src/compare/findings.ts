@@ -43,9 +43,40 @@ function brakingSpeedKph(corner: CornerComparison): number {
   return m !== null && s !== null && Math.abs(s) > 1e-9 ? mpsToKph(m / s) : corner.entrySpeedReferenceKph;
 }
 
+/** What a clause of a finding claims, whatever its numbers: the unit in which a finding can hold or not. */
+export const CLAIM_KINDS = [
+  'brakes-late-and-hard',
+  'lifts-before-braking-point',
+  'brakes-early',
+  'brakes-late',
+  'lifts-where-flat',
+  'lifts-early',
+  'coasts',
+  'slowest-point-low',
+  'slowest-point-misplaced',
+  'exit-slow',
+  'grip-unused',
+  'over-the-limit',
+  'loses-in-entry',
+  'loses-in-middle',
+  'loses-in-exit',
+] as const;
+export type ClaimKind = (typeof CLAIM_KINDS)[number];
+
+export interface Claim {
+  kind: ClaimKind;
+  text: string;
+}
+
 /** The clauses that describe a corner, most telling first. */
 export function cornerClauses(corner: CornerComparison, options: FindingOptions = DEFAULT_FINDING_OPTIONS): string[] {
-  const clauses: string[] = [];
+  return cornerClaims(corner, options).map((claim) => claim.text);
+}
+
+/** The clauses that describe a corner with what each claims, most telling first. */
+export function cornerClaims(corner: CornerComparison, options: FindingOptions = DEFAULT_FINDING_OPTIONS): Claim[] {
+  const clauses: Claim[] = [];
+  const push = (kind: ClaimKind, text: string) => clauses.push({ kind, text });
   const braking = corner.brakingPointDeltaM;
   // Over the envelope, and beyond what the reference itself uses there (an envelope whose longitudinal cap
   // includes the power limit puts even the reference above 1 when it accelerates out of a fast corner).
@@ -57,47 +88,59 @@ export function cornerClauses(corner: CornerComparison, options: FindingOptions 
     const how = overDriven
       ? `grip use peaks at ${percent(corner.peakGripUse)} of the envelope`
       : 'the car is slowed too far';
-    clauses.push(
+    push(
+      'brakes-late-and-hard',
       `braking begins ${metres(braking)} after the reference at ${kph(brakingSpeedKph(corner))} and too hard: ${how}`,
     );
   } else if (braking !== null && braking <= -options.brakingPointM && corner.driverBrakingPointM === null) {
-    clauses.push(
+    push(
+      'lifts-before-braking-point',
       `the lift comes ${metres(braking)} before the reference's braking point at ${kph(brakingSpeedKph(corner))}`,
     );
   } else if (braking !== null && braking <= -options.brakingPointM) {
     const seconds =
       corner.brakingPointDeltaS === null ? '' : ` (${Math.abs(corner.brakingPointDeltaS).toFixed(2)} s at that speed)`;
-    clauses.push(`braking begins ${metres(braking)} before the reference at ${kph(brakingSpeedKph(corner))}${seconds}`);
+    push(
+      'brakes-early',
+      `braking begins ${metres(braking)} before the reference at ${kph(brakingSpeedKph(corner))}${seconds}`,
+    );
   } else if (braking !== null && braking >= options.brakingPointM) {
-    clauses.push(`braking begins ${metres(braking)} after the reference at ${kph(brakingSpeedKph(corner))}`);
+    push('brakes-late', `braking begins ${metres(braking)} after the reference at ${kph(brakingSpeedKph(corner))}`);
   }
   const lift = corner.liftPointDeltaM ?? null;
   if (braking === null && corner.driverLiftPointM !== null && corner.driverLiftPointM !== undefined) {
     if (lift === null)
-      clauses.push(`the throttle comes off at ${kph(corner.entrySpeedDriverKph)} where the reference stays flat out`);
-    else if (lift <= -options.brakingPointM) clauses.push(`the lift comes ${metres(lift)} before the reference's`);
+      push(
+        'lifts-where-flat',
+        `the throttle comes off at ${kph(corner.entrySpeedDriverKph)} where the reference stays flat out`,
+      );
+    else if (lift <= -options.brakingPointM)
+      push('lifts-early', `the lift comes ${metres(lift)} before the reference's`);
   }
   const coastingBeyond = (corner.coastingS ?? 0) - (corner.referenceCoastingS ?? 0);
   if (corner.coastingS !== null && coastingBeyond >= options.coastingS) {
-    clauses.push(`${corner.coastingS.toFixed(1)} s spent coasting with neither pedal pressed`);
+    push('coasts', `${corner.coastingS.toFixed(1)} s spent coasting with neither pedal pressed`);
   }
   if (underSpeed)
-    clauses.push(
+    push(
+      'slowest-point-low',
       `the slowest point is ${kph(corner.minSpeedDeltaKph)} under the reference's ${corner.minSpeedReferenceKph.toFixed(0)} km/h`,
     );
   const referenceOffset = corner.referenceMinSpeedOffsetFromApexM ?? 0;
   if (Math.abs(corner.minSpeedOffsetFromApexM - referenceOffset) >= 5) {
     const side = corner.minSpeedOffsetFromApexM >= 0 ? 'after' : 'before';
-    clauses.push(
+    push(
+      'slowest-point-misplaced',
       `the slowest point falls ${metres(corner.minSpeedOffsetFromApexM)} ${side} the apex (reference ${referenceOffset.toFixed(0)} m)`,
     );
   }
   const exitDeltaKph = corner.exitSpeedDriverKph - corner.exitSpeedReferenceKph;
-  if (exitDeltaKph <= -options.speedKph) clauses.push(`the exit is ${kph(exitDeltaKph)} slower`);
+  if (exitDeltaKph <= -options.speedKph) push('exit-slow', `the exit is ${kph(exitDeltaKph)} slower`);
   const unusedM = corner.stretches.filter((s) => s.kind === 'unused').reduce((sum, s) => sum + stretchLength(s), 0);
-  if (unusedM >= 10) clauses.push(`grip is left unused over ${metres(unusedM)} where the reference is on the limit`);
-  if (overDriven && !clauses[0]?.includes('too hard'))
-    clauses.push(`grip use reaches ${percent(corner.peakGripUse)} of the envelope (sliding or locking)`);
+  if (unusedM >= 10)
+    push('grip-unused', `grip is left unused over ${metres(unusedM)} where the reference is on the limit`);
+  if (overDriven && clauses[0]?.kind !== 'brakes-late-and-hard')
+    push('over-the-limit', `grip use reaches ${percent(corner.peakGripUse)} of the envelope (sliding or locking)`);
   return clauses;
 }
 
@@ -105,20 +148,24 @@ function stretchLength(stretch: { startM: number; endM: number; lengthM?: number
   return stretch.lengthM ?? Math.max(0, stretch.endM - stretch.startM);
 }
 
-function phaseClause(corner: CornerComparison): string {
+/** Where most of a corner's time goes, for a corner no clause describes. */
+export function phaseClaim(corner: CornerComparison): Claim {
   const phases = [
     ['entry', corner.entryTimeLostS],
     ['middle', corner.middleTimeLostS],
     ['exit', corner.exitTimeLostS],
   ] as const;
   const worst = phases.reduce((a, b) => (b[1] > a[1] ? b : a));
-  return `most of the time goes in the ${worst[0]} phase (entry ${corner.entryTimeLostS.toFixed(2)} s, middle ${corner.middleTimeLostS.toFixed(2)} s, exit ${corner.exitTimeLostS.toFixed(2)} s)`;
+  return {
+    kind: `loses-in-${worst[0]}`,
+    text: `most of the time goes in the ${worst[0]} phase (entry ${corner.entryTimeLostS.toFixed(2)} s, middle ${corner.middleTimeLostS.toFixed(2)} s, exit ${corner.exitTimeLostS.toFixed(2)} s)`,
+  };
 }
 
 /** One line for a corner: main cause, the time at stake, then up to two further observations. */
 export function cornerFindingText(corner: CornerComparison, options: FindingOptions = DEFAULT_FINDING_OPTIONS): string {
   const clauses = cornerClauses(corner, options);
-  const main = clauses[0] ?? phaseClause(corner);
+  const main = clauses[0] ?? phaseClaim(corner).text;
   const rest = clauses.slice(1, 3);
   const worth = `worth about ${corner.timeLostS.toFixed(2)} s`;
   return `${cornerLabel(corner)}: ${main}, ${worth}${rest.length > 0 ? `; ${rest.join('; ')}` : ''}.`;

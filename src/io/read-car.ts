@@ -6,6 +6,7 @@ import { z } from 'zod';
 import { InputError } from '../errors.js';
 import type { Car } from '../car/types.js';
 import { bicycleIncompleteMessage } from '../car/bicycle-params.js';
+import { originProblems, originSchema, uncertaintyOf, uncertaintySchema } from './car-uncertainty.js';
 
 const positive = z.number().finite().positive();
 const nonNegative = z.number().finite().nonnegative();
@@ -64,6 +65,8 @@ const carSchema = z.strictObject({
       burnKgPerLap: nonNegative.optional(),
     })
     .optional(),
+  uncertainty: uncertaintySchema.optional(),
+  origin: originSchema.optional(),
 });
 
 type CarFile = z.infer<typeof carSchema>;
@@ -162,7 +165,18 @@ export function carFromJson(value: unknown, source: string): Car {
   if (!parsed.success) {
     throw new InputError(`${source}: ${parsed.error.issues.map(describeIssue).join('; ')}`);
   }
-  const car = carFromFile(parsed.data, source);
+  let car = carFromFile(parsed.data, source);
+  const { uncertainty, origin } = parsed.data;
+  if (uncertainty || origin) {
+    const checked = uncertainty ? uncertaintyOf(uncertainty, car) : null;
+    const problems = [...(checked?.problems ?? []), ...(origin ? originProblems(origin) : [])];
+    if (problems.length > 0) throw new InputError(`${source}: ${problems.join('; ')}`);
+    car = {
+      ...car,
+      ...(checked ? { uncertainty: checked.uncertainty } : {}),
+      ...(origin ? { origin: { ...origin } } : {}),
+    };
+  }
   const incomplete = car.model === 'bicycle' ? bicycleIncompleteMessage(car) : null;
   if (incomplete) throw new InputError(`${source}: ${incomplete}`);
   return car;

@@ -6,6 +6,8 @@ import type { LapResult } from '../solve/types.js';
 import { formatLapTime, mpsToKph } from '../units.js';
 import { formatTable } from './text-table.js';
 import { round, SAFETY_CAUTION } from './lap-summary.js';
+import type { UncertainReference } from '../uncertainty/uncertain-reference.js';
+import { drawsLine, lapBandLine, percentText, robustFindingsText } from './uncertainty-summary.js';
 
 const signed = (value: number, digits: number) => `${value >= 0 ? '+' : ''}${value.toFixed(digits)}`;
 const orDash = (value: number | null | undefined, digits: number, sign = true) =>
@@ -56,13 +58,21 @@ function cornerRow(corner: CornerComparison): string[] {
   ];
 }
 
-export function compareSummaryText(result: ComparisonResult): string {
+/** With `uncertainty` (an uncertain reference over the same comparison), the corner table gains the share of draws
+ * in which each corner's finding holds, and the findings are those over the draws. */
+export function compareSummaryText(result: ComparisonResult, uncertainty?: UncertainReference): string {
+  const holds = (index: number) => {
+    const share = uncertainty?.corners[index]?.holds;
+    return share === null || share === undefined ? '-' : percentText(share);
+  };
   const lines = [
     `${result.trackName} · ${result.carName}`,
     ...gapLines(result),
+    ...(uncertainty ? [lapBandLine('Reference over the draws:', uncertainty.lapTimeS), drawsLine(uncertainty)] : []),
     '',
     'Corners (speeds driver/reference in km/h; brake = driver minus reference braking point, m, negative = earlier;',
-    'slowest vs apex in m, positive = after; grip = mean/peak % of the envelope; lost = entry middle exit, s)',
+    `slowest vs apex in m, positive = after; grip = mean/peak % of the envelope; lost = entry middle exit, s${uncertainty ? ';' : ')'}`,
+    ...(uncertainty ? ["holds = share of the draws in which the corner's finding holds)"] : []),
     formatTable(
       [
         '#',
@@ -77,12 +87,14 @@ export function compareSummaryText(result: ComparisonResult): string {
         'grip %',
         'lost by phase',
         'lost s',
+        ...(uncertainty ? ['holds'] : []),
       ],
-      result.corners.map(cornerRow),
+      result.corners.map((corner, index) => [...cornerRow(corner), ...(uncertainty ? [holds(index)] : [])]),
     ),
     '',
   ];
-  if (result.findings.length === 0)
+  if (uncertainty) lines.push(...robustFindingsText(uncertainty));
+  else if (result.findings.length === 0)
     lines.push('No corner costs more than a hundredth of a second against the reference.');
   else {
     lines.push('Where the time is (largest first):');

@@ -8,6 +8,7 @@ import { simulate } from '../solve/simulate.js';
 import { applySetup, type SetupBase } from './settings.js';
 import { DEFAULT_MATCH_TOLERANCE_M, matchBrakingZones } from './match-zones.js';
 import { brakingPointM } from './braking-point.js';
+import type { DrawSpec } from '../uncertainty/evaluate-draw.js';
 
 /** Everything a run needs besides its parameter values; sent to each worker once. */
 export interface SweepContext {
@@ -19,6 +20,8 @@ export interface SweepContext {
   startSpeedMps: number;
   path?: Path;
   matchToleranceM: number;
+  /** Set when the runs are draws of an uncertain reference (src/uncertainty) rather than setup changes. */
+  draw?: DrawSpec;
 }
 
 /** Numbers per run: lap time, then per corner braking point (m), entry speed and slowest speed (m/s). */

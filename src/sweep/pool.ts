@@ -6,7 +6,8 @@ import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { availableParallelism } from 'node:os';
 import { InputError } from '../errors.js';
-import { evaluateRun, outcomeWidth, type SweepContext } from './evaluate.js';
+import type { SweepContext } from './evaluate.js';
+import { runOne, runWidth } from './run-kind.js';
 
 export interface TaskMessage {
   id: number;
@@ -60,16 +61,10 @@ export function runSetupsInProcess(
 ): Float64Array {
   const width = context.fields.length;
   const runs = width === 0 ? 0 : values.length / width;
-  const resultWidth = outcomeWidth(context.corners.length);
+  const resultWidth = runWidth(context);
   const out = new Float64Array(runs * resultWidth);
   for (let r = 0; r < runs; r++) {
-    evaluateRun(
-      context,
-      values.subarray(r * width, (r + 1) * width),
-      out,
-      r * resultWidth,
-      `sweep run ${firstRun + r}`,
-    );
+    runOne(context, values.subarray(r * width, (r + 1) * width), out, r * resultWidth, `sweep run ${firstRun + r}`);
     onProgress?.(r + 1, runs);
   }
   return out;
@@ -89,7 +84,7 @@ export async function runSetups(
   const runs = width === 0 ? 0 : values.length / width;
   const requested = options.workers ?? defaultWorkerCount();
   if (requested <= 0 || runs === 0) return runSetupsInProcess(context, values, firstRun, options.onProgress);
-  const resultWidth = outcomeWidth(context.corners.length);
+  const resultWidth = runWidth(context);
   const out = new Float64Array(runs * resultWidth);
   // Small tasks keep the workers evenly loaded to the end; two in flight per worker hide the message latency.
   const chunk = Math.max(1, Math.min(16, Math.ceil(runs / (requested * 8))));

@@ -3,18 +3,19 @@
 
 import { parentPort, workerData } from 'node:worker_threads';
 import { isInputError } from '../errors.js';
-import { evaluateRun, outcomeWidth, type SweepContext } from './evaluate.js';
+import type { SweepContext } from './evaluate.js';
+import { runOne, runWidth } from './run-kind.js';
 import type { TaskMessage, WorkerReply } from './pool.js';
 
 const context = workerData as SweepContext;
 const width = context.fields.length;
-const resultWidth = outcomeWidth(context.corners.length);
+const resultWidth = runWidth(context);
 
 parentPort!.on('message', (task: TaskMessage) => {
   try {
     const out = new Float64Array(task.runCount * resultWidth);
     for (let r = 0; r < task.runCount; r++) {
-      evaluateRun(
+      runOne(
         context,
         task.values.subarray(r * width, (r + 1) * width),
         out,

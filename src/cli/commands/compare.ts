@@ -31,8 +31,13 @@ import type { TrackGrid } from '../../track/types.js';
 import type { TelemetrySession } from '../../compare/types.js';
 import { addReportOptions, addReportOutputs, reportWrittenText, type ReportOptionValues } from '../html-options.js';
 import { sessionReportInput } from '../../report/html/from-session.js';
+import { InputError } from '../../errors.js';
+import { addUncertaintyOption, drawsOption, type UncertaintyOptionValues } from '../uncertainty-options.js';
+import { uncertainComparison } from '../../uncertainty/uncertain-reference.js';
+import { uncertaintyJson } from '../../report/uncertainty-summary.js';
 
-export interface CompareValues extends TrackOptionValues, CarOptionValues, TelemetryOptionValues, ReportOptionValues {
+export interface CompareValues
+  extends TrackOptionValues, CarOptionValues, TelemetryOptionValues, ReportOptionValues, UncertaintyOptionValues {
   line?: string;
   envelope?: string;
   json?: boolean;
@@ -60,6 +65,7 @@ export function register(program: Command): void {
       '--out <dir>',
       'write the aligned traces (aligned.csv) and the corner table (corners.csv) into this folder',
     );
+  addUncertaintyOption(command);
   addReportOptions(command).action((values: CompareValues) => runCompare(values));
 }
 
@@ -147,20 +153,35 @@ function cornersCsv(comparison: SessionComparison): string {
 export async function runCompare(values: CompareValues): Promise<void> {
   const track = loadTrack(values);
   const { car, ambient } = loadCar(values);
+  const draws = drawsOption(values);
+  if (draws !== null && values.envelope)
+    throw new InputError(
+      "option --uncertainty draws the car file's uncertain fields; it cannot be combined with --envelope",
+    );
   const session = await loadSession(values);
   const comparison = compareFromRecords(track, car, ambient, session, values);
+  const uncertainty =
+    draws === null
+      ? null
+      : await uncertainComparison(comparison, car, ambient, { draws, startSpeedMps: startSpeedMps(values) });
   const outputs = outputBatch(inputFilesOf(values));
   if (values.out) for (const { file, content } of comparisonFiles(comparison, values.out)) outputs.add(file, content);
-  const reportFiles = addReportOutputs(
-    outputs,
-    values,
-    sessionReportInput(comparison, car, ambient, comparison.linePositions),
-  );
+  const report = sessionReportInput(comparison, car, ambient, comparison.linePositions);
+  const reportFiles = addReportOutputs(outputs, values, uncertainty ? { ...report, uncertainty } : report);
   outputs.commit();
   if (values.json) {
-    process.stdout.write(JSON.stringify(compareSummaryJson(comparison.result), null, 2) + '\n');
+    process.stdout.write(
+      JSON.stringify(
+        {
+          ...compareSummaryJson(comparison.result),
+          ...(uncertainty ? { uncertainty: uncertaintyJson(uncertainty) } : {}),
+        },
+        null,
+        2,
+      ) + '\n',
+    );
   } else {
-    process.stdout.write(compareSummaryText(comparison.result));
+    process.stdout.write(compareSummaryText(comparison.result, uncertainty ?? undefined));
     if (values.out) process.stdout.write(`Aligned traces and corner table written to ${values.out}\n`);
     process.stdout.write(reportWrittenText(reportFiles));
   }

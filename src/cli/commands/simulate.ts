@@ -14,15 +14,20 @@ import {
 import { simulate } from '../../solve/simulate.js';
 import { buildEnvelope } from '../../car/build-envelope.js';
 import { traceCsv, type ExtraColumn } from '../../report/trace-csv.js';
-import { lapSummaryJson, lapSummaryText } from '../../report/lap-summary.js';
+import { lapSummaryJson, lapSummaryText, SAFETY_CAUTION } from '../../report/lap-summary.js';
 import { outputBatch } from '../output.js';
 import { resolveLinePath } from './line.js';
 import { addReportOptions, addReportOutputs, reportWrittenText, type ReportOptionValues } from '../html-options.js';
 import { readEnvelopeFile } from '../../io/read-envelope.js';
 import { demonstratedEnvelope } from '../../car/demonstrated-envelope.js';
 import { bicycleSimulateExtras } from '../simulate-extras.js';
+import { InputError } from '../../errors.js';
+import { addUncertaintyOption, drawsOption, type UncertaintyOptionValues } from '../uncertainty-options.js';
+import { uncertainReference } from '../../uncertainty/uncertain-reference.js';
+import { uncertainReferenceText, uncertaintyJson } from '../../report/uncertainty-summary.js';
+import { mpsToKph } from '../../units.js';
 
-interface SimulateValues extends TrackOptionValues, CarOptionValues, ReportOptionValues {
+interface SimulateValues extends TrackOptionValues, CarOptionValues, ReportOptionValues, UncertaintyOptionValues {
   out?: string;
   json?: boolean;
   envelope?: string;
@@ -49,12 +54,18 @@ export function register(program: Command): void {
       '--check-transient',
       'follow the reference with the single-track model and a driver model, and report whether it is drivable',
     );
+  addUncertaintyOption(command);
   addReportOptions(command).action((values: SimulateValues) => runSimulate(values));
 }
 
-export function runSimulate(values: SimulateValues): void {
+export async function runSimulate(values: SimulateValues): Promise<void> {
   const track = loadTrack(values);
   const { car, ambient } = loadCar(values);
+  const draws = drawsOption(values);
+  if (draws !== null && values.envelope)
+    throw new InputError(
+      "option --uncertainty draws the car file's uncertain fields; it cannot be combined with --envelope",
+    );
   const envelope = values.envelope
     ? demonstratedEnvelope(readEnvelopeFile(values.envelope))
     : buildEnvelope(car, ambient);
@@ -72,6 +83,21 @@ export function runSimulate(values: SimulateValues): void {
     : [];
   const bicycle = bicycleSimulateExtras(result, car, ambient, values.checkTransient === true, line?.offsetM);
   extraColumns.push(...bicycle.columns);
+  const uncertainty =
+    draws === null
+      ? null
+      : await uncertainReference(
+          { track, car, ambient, path: result.path, startSpeedMps: startSpeedMps(values), nominal: result },
+          { draws },
+        );
+  if (uncertainty) {
+    const kph = (values: Float64Array) => values.map(mpsToKph);
+    extraColumns.push(
+      { name: 'speed_p05_kph', values: kph(uncertainty.speedMps.low), digits: 3 },
+      { name: 'speed_median_kph', values: kph(uncertainty.speedMps.median), digits: 3 },
+      { name: 'speed_p95_kph', values: kph(uncertainty.speedMps.high), digits: 3 },
+    );
+  }
   const outputs = outputBatch(inputFilesOf(values));
   if (values.out) outputs.add(values.out, traceCsv(result, extraColumns));
   const reportFiles = addReportOutputs(outputs, values, {
@@ -79,12 +105,29 @@ export function runSimulate(values: SimulateValues): void {
     carName: car.name,
     envelope,
     ...(line ? { linePositions: { xM: line.xM, yM: line.yM } } : {}),
+    ...(uncertainty ? { uncertainty } : {}),
   });
   outputs.commit();
   if (values.json) {
-    process.stdout.write(JSON.stringify({ ...lapSummaryJson(result, car.name), ...bicycle.json }, null, 2) + '\n');
+    process.stdout.write(
+      JSON.stringify(
+        {
+          ...lapSummaryJson(result, car.name),
+          ...bicycle.json,
+          ...(uncertainty ? { uncertainty: uncertaintyJson(uncertainty) } : {}),
+        },
+        null,
+        2,
+      ) + '\n',
+    );
   } else {
-    process.stdout.write(lapSummaryText(result, car.name));
+    const summary = lapSummaryText(result, car.name);
+    // The band goes with the lap's own figures, before the caution that closes the summary.
+    process.stdout.write(
+      uncertainty
+        ? summary.replace(SAFETY_CAUTION, uncertainReferenceText(uncertainty) + '\n' + SAFETY_CAUTION)
+        : summary,
+    );
     process.stdout.write(bicycle.text);
     if (values.out) process.stdout.write(`Trace written to ${values.out}\n`);
     process.stdout.write(reportWrittenText(reportFiles));

@@ -35,6 +35,14 @@ export interface Band {
   label?: string;
 }
 
+/** A shaded range between two series (a band of values at each distance), drawn under the lines. */
+export interface RangeArea {
+  low: ArrayLike<number>;
+  high: ArrayLike<number>;
+  colour: string;
+  label: string;
+}
+
 export interface DistanceChartSpec {
   name: string;
   title: string;
@@ -48,6 +56,7 @@ export interface DistanceChartSpec {
   stepM: number;
   series: DistanceSeries[];
   bands?: Band[];
+  ranges?: RangeArea[];
   /** Dashed reference lines at these values. */
   guides?: number[];
   legendExtra?: LegendItem[];
@@ -66,6 +75,7 @@ export function distanceChartSvg(spec: DistanceChartSpec, options: SvgOptions): 
 
   let body = `<text class="chart-title" x="${PLOT_LEFT}" y="16" font-size="13" font-weight="600">${escapeHtml(spec.title)}</text>`;
   const legendItems: LegendItem[] = [
+    ...(spec.ranges ?? []).map((range) => ({ label: range.label, colour: range.colour, mark: 'swatch' as const })),
     ...spec.series
       .filter((series) => series.label)
       .map((series) => ({ label: series.label, colour: series.colour, ...(series.dash ? { dash: series.dash } : {}) })),
@@ -84,6 +94,19 @@ export function distanceChartSvg(spec: DistanceChartSpec, options: SvgOptions): 
     body += `<line x1="0" x2="${plotWidth}" y1="${coord(y(guide))}" y2="${coord(y(guide))}" stroke="#777" stroke-dasharray="4 3" vector-effect="non-scaling-stroke"/>`;
   }
   const stationM = spec.stationM;
+  for (const range of spec.ranges ?? []) {
+    // The thinned points of both edges, so neither edge loses its peaks.
+    const indices = [...new Set([...minMaxIndices(range.low, bucket), ...minMaxIndices(range.high, bucket)])].sort(
+      (a, b) => a - b,
+    );
+    const fill = area<number>()
+      .x((i) => x(stationM[i]!))
+      .y0((i) => y(range.low[i]!))
+      .y1((i) => y(range.high[i]!))
+      .defined((i) => Number.isFinite(range.low[i]!) && Number.isFinite(range.high[i]!))
+      .digits(1)(indices);
+    body += `<path class="range" d="${fill ?? ''}" fill="${range.colour}" fill-opacity="0.25" stroke="none"/>`;
+  }
   for (const series of spec.series) {
     const values = series.values;
     const indices = minMaxIndices(values, bucket);

@@ -5,6 +5,7 @@ import type { Envelope } from '../../car/envelope.js';
 import type { ComparisonResult, DriverLap } from '../../compare/types.js';
 import type { LapResult } from '../../solve/types.js';
 import { mpsToKph, STANDARD_GRAVITY_MPS2 } from '../../units.js';
+import type { UncertainReference } from '../../uncertainty/uncertain-reference.js';
 
 export interface ReportInput {
   reference: LapResult;
@@ -19,6 +20,9 @@ export interface ReportInput {
     /** The envelope fitted to the driver's own data, when there is one. */
     demonstratedEnvelope?: Envelope;
   };
+  /** The reference over draws of the car's uncertain fields: the speed is drawn as a band, the corners carry how often
+   * their findings hold. */
+  uncertainty?: UncertainReference;
 }
 
 /** A stretch of the lap the page can zoom to: a corner of the comparison, or a braking zone of the reference. */

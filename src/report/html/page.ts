@@ -12,6 +12,7 @@ import { strideIndices } from './downsample.js';
 import { cornerTableHtml, findingsHtml, summaryHtml } from './tables.js';
 import { mapPoint, mapProjection, trackMapSvg } from './track-map.js';
 import type { SvgOptions } from './svg-frame.js';
+import { mpsToKph } from '../../units.js';
 
 /** Hover values are kept for at most this many points along the lap. */
 const MAX_HOVER_POINTS = 2500;
@@ -55,7 +56,23 @@ function distanceCharts(model: ReportModel): DistanceChartSpec[] {
   });
   const charts: DistanceChartSpec[] = [];
 
-  const [speedMin, speedMax] = range([reference.speedKph, driver?.speedKph]);
+  const uncertainty = model.input.uncertainty;
+  const kph = (values: Float64Array) => values.map(mpsToKph);
+  const speedRange = uncertainty
+    ? [
+        {
+          low: kph(uncertainty.speedMps.low),
+          high: kph(uncertainty.speedMps.high),
+          colour: PALETTE.reference,
+          label: `reference, 90 % band over ${uncertainty.draws} draws`,
+        },
+      ]
+    : [];
+  const [speedMin, speedMax] = range([
+    reference.speedKph,
+    driver?.speedKph,
+    ...speedRange.flatMap((r) => [r.low, r.high]),
+  ]);
   charts.push({
     ...base,
     name: 'speed',
@@ -64,6 +81,7 @@ function distanceCharts(model: ReportModel): DistanceChartSpec[] {
     yDomain: [Math.max(0, paddedDomain(speedMin, speedMax)[0]), paddedDomain(speedMin, speedMax)[1]],
     height: 210,
     series: driver ? [refSeries(reference.speedKph), drvSeries(driver.speedKph)] : [refSeries(reference.speedKph)],
+    ...(speedRange.length > 0 ? { ranges: speedRange } : {}),
   });
 
   if (driver) {

@@ -4,6 +4,7 @@
 import { formatLapTime, mpsToKph } from '../../units.js';
 import { escapeHtml } from './escape.js';
 import type { ReportModel } from './model.js';
+import type { UncertainFinding } from '../../uncertainty/uncertain-reference.js';
 
 const fixed = (value: number | null | undefined, digits: number): string =>
   value === null || value === undefined || !Number.isFinite(value) ? '–' : value.toFixed(digits);
@@ -34,6 +35,17 @@ export function summaryHtml(model: ReportModel): string {
     if (result.demonstratedLapTimeS !== null)
       tiles.push(tile('On demonstrated grip', formatLapTime(result.demonstratedLapTimeS), 'driver’s own envelope'));
   }
+  const uncertainty = model.input.uncertainty;
+  if (uncertainty) {
+    const band = uncertainty.lapTimeS;
+    tiles.push(
+      tile(
+        'Reference over the draws',
+        formatLapTime(band.median),
+        `90 % band ${formatLapTime(band.low)} to ${formatLapTime(band.high)}, ${uncertainty.draws} draws`,
+      ),
+    );
+  }
   tiles.push(tile('Top speed', `${mpsToKph(reference.maxSpeedMps).toFixed(1)} km/h`, 'reference'));
   tiles.push(tile('Lowest speed', `${mpsToKph(reference.minSpeedMps).toFixed(1)} km/h`, 'reference'));
   tiles.push(
@@ -53,9 +65,14 @@ function cornerCell(id: number, name: string | null): string {
 export function cornerTableHtml(model: ReportModel): string {
   const comparison = model.input.comparison;
   if (!comparison) return brakingZoneTableHtml(model);
+  const uncertainty = model.input.uncertainty;
+  const holds = (index: number) => {
+    const share = uncertainty?.corners[index]?.holds;
+    return share === null || share === undefined ? '–' : `${Math.round(share * 100)} %`;
+  };
   const rows = comparison.result.corners
     .map(
-      (c) =>
+      (c, index) =>
         `<tr class="corner-row" data-corner="${c.id}" tabindex="0">${cornerCell(c.id, c.name)}` +
         `<td>${fixed(c.entryM, 0)}–${fixed(c.exitM, 0)}</td>` +
         `<td>${signed(c.brakingPointDeltaM, 0)}</td>` +
@@ -67,13 +84,13 @@ export function cornerTableHtml(model: ReportModel): string {
         `<td>${signed(c.entryTimeLostS, 2)} / ${signed(c.middleTimeLostS, 2)} / ${signed(c.exitTimeLostS, 2)}</td>` +
         `<td class="strong">${signed(c.timeLostS, 2)}</td>` +
         `<td>${fixed(c.coastingS, 2)}</td>` +
-        `<td>${fixed(c.peakGripUse * 100, 0)}</td></tr>`,
+        `<td>${fixed(c.peakGripUse * 100, 0)}</td>${uncertainty ? `<td>${holds(index)}</td>` : ''}</tr>`,
     )
     .join('');
   return (
-    `<section class="corners"><h2>Corner by corner</h2><p class="hint">Driver / reference. Time lost is positive where the driver is slower. Click a row to zoom every chart to that corner.</p>` +
+    `<section class="corners"><h2>Corner by corner</h2><p class="hint">Driver / reference. Time lost is positive where the driver is slower. Click a row to zoom every chart to that corner.${uncertainty ? ` The last column is the share of the ${uncertainty.draws} draws of the car's uncertain values in which the corner's finding holds.` : ''}</p>` +
     `<div class="table-wrap"><table><thead><tr><th>corner</th><th>entry–exit, m</th><th>brake point Δ, m</th><th>entry, km/h</th><th>slowest, km/h</th><th>slowest Δ, km/h</th>` +
-    `<th>slowest after apex, m</th><th>exit, km/h</th><th>lost in entry / middle / exit, s</th><th>lost, s</th><th>coasting, s</th><th>peak grip, %</th></tr></thead>` +
+    `<th>slowest after apex, m</th><th>exit, km/h</th><th>lost in entry / middle / exit, s</th><th>lost, s</th><th>coasting, s</th><th>peak grip, %</th>${uncertainty ? '<th>finding holds in</th>' : ''}</tr></thead>` +
     `<tbody>${rows}</tbody></table></div></section>`
   );
 }
@@ -97,17 +114,33 @@ function brakingZoneTableHtml(model: ReportModel): string {
   );
 }
 
+function robustnessText(finding: UncertainFinding): string {
+  const share = (value: number) => `${Math.round(value * 100)} %`;
+  const rest = finding.clauses.slice(1).map((clause) => `${clause.text}: ${share(clause.holds)}`);
+  const head = `${finding.uncertain ? 'Uncertain: holds' : 'Holds'} in ${share(finding.holds)} of draws (90 % band ${finding.timeS.low.toFixed(2)} to ${finding.timeS.high.toFixed(2)} s)`;
+  return rest.length > 0 ? `${head}; ${rest.join('; ')}.` : `${head}.`;
+}
+
 export function findingsHtml(model: ReportModel): string {
   const comparison = model.input.comparison;
   if (!comparison) return '';
-  const findings = [...comparison.result.findings].sort((a, b) => b.timeS - a.timeS);
+  const uncertainty = model.input.uncertainty;
+  // Over draws of the car's uncertain values the findings come ranked by their median time, each with how often it holds.
+  const findings = uncertainty
+    ? uncertainty.findings.map((f) => ({
+        corner: f.corner,
+        timeS: f.timeS.median,
+        text: f.text,
+        robustness: robustnessText(f),
+      }))
+    : [...comparison.result.findings].sort((a, b) => b.timeS - a.timeS).map((f) => ({ ...f, robustness: '' }));
   const items = findings
     .map((finding) => {
       const where =
         finding.corner !== null
           ? `<button type="button" class="corner-link" data-corner="${finding.corner}">corner ${finding.corner}</button>`
           : '<span class="whole-lap">whole lap</span>';
-      return `<li><span class="stake">${fixed(finding.timeS, 2)} s</span>${where}<span class="finding-text">${escapeHtml(finding.text)}</span></li>`;
+      return `<li><span class="stake">${fixed(finding.timeS, 2)} s</span>${where}<span class="finding-text">${escapeHtml(finding.text)}${finding.robustness ? ` <em>${escapeHtml(finding.robustness)}</em>` : ''}</span></li>`;
     })
     .join('');
   const notes = comparison.result.notes.map((note) => `<li>${escapeHtml(note)}</li>`).join('');

@@ -1,0 +1,142 @@
+// `reflap calibrate` end to end on the demo's invented log (a driver a little inside the limit, with sensor and GPS
+// noise), from a guessed car, and the refusals: one line, exit code 2, nothing written.
+
+import { existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { projectRoot, runCli } from '../helpers/cli.js';
+import { parseCarJson } from '../../src/io/read-car.js';
+
+const work = mkdtempSync(path.join(tmpdir(), 'reflap-calibrate-'));
+const log = path.join(work, 'demo', 'demo-lap.csv');
+const track = path.join(projectRoot, 'tracks', 'velmora-downs.json');
+const guess = path.join(work, 'guess.json');
+
+beforeAll(() => {
+  expect(runCli(['demo', '--out', path.join(work, 'demo')]).code).toBe(0);
+  // The demo car with power, drag, grip and downforce guessed wrong.
+  const car = JSON.parse(readFileSync(path.join(projectRoot, 'cars', 'tarnfell-gt.json'), 'utf8'));
+  car.name = 'Tarnfell guessed';
+  car.tyre.muLat = 1.3;
+  car.tyre.muLong = 1.3;
+  car.aero.liftAreaM2 = 1.5;
+  car.aero.dragAreaM2 = 0.7;
+  car.powertrain.maxPowerW = 330000;
+  writeFileSync(guess, JSON.stringify(car));
+});
+
+describe('reflap calibrate', () => {
+  it('writes an ordinary car file with the standard errors and the origin of each value', () => {
+    const out = path.join(work, 'fitted.json');
+    const run = runCli(['calibrate', '--telemetry', log, '--car', guess, '--out', out, '--json']);
+    expect(run.code).toBe(0);
+    const summary = JSON.parse(run.stdout);
+    const fitted = parseCarJson(readFileSync(out, 'utf8'), out);
+    for (const f of summary.fitted) {
+      expect(fitted.uncertainty!.sd[f.field]).toBe(f.sd);
+      expect(fitted.origin![f.field]).toMatch(/^fitted from /);
+    }
+    // The demo driver drives the Tarnfell's own reference at 98.5 % of its speed (src/compare/demo-driver.ts), so the
+    // grip the log shows is about 0.985^2 of the car file's 1.5: the fit must land there, not at the guess of 1.3.
+    const muLat = summary.fitted.find((f: { field: string }) => f.field === 'tyre.muLat');
+    expect(Math.abs(muLat.value - 1.5 * 0.985 ** 2)).toBeLessThan(3 * muLat.sd + 0.02);
+    // Drag area is the car file's 0.85 (the demo driver's full-throttle stretches follow the car's own).
+    const drag = summary.fitted.find((f: { field: string }) => f.field === 'aero.dragAreaM2');
+    expect(Math.abs(drag.value - 0.85)).toBeLessThan(3 * drag.sd);
+    // Every command takes the fitted file, and --uncertainty draws its standard errors.
+    const simulate = runCli(['simulate', '--track', track, '--car', out, '--uncertainty', '8', '--json']);
+    expect(simulate.code).toBe(0);
+    const lap = JSON.parse(simulate.stdout);
+    expect(lap.uncertainty.fields.map((f: { field: string }) => f.field).sort()).toEqual(
+      summary.fitted.map((f: { field: string }) => f.field).sort(),
+    );
+    expect(lap.uncertainty.lapTimeS.low).toBeLessThanOrEqual(lap.uncertainty.lapTimeS.high);
+  });
+
+  it('needs --track for a log without accelerometer channels, and works with it', () => {
+    const csv = readFileSync(log, 'utf8').split('\n');
+    const header = csv[0]!.split(',');
+    const keep = header.map((name, i) => (name === 'ax_g' || name === 'ay_g' ? -1 : i)).filter((i) => i >= 0);
+    const gpsOnly = path.join(work, 'gps-only.csv');
+    writeFileSync(gpsOnly, csv.map((line) => (line ? keep.map((i) => line.split(',')[i]).join(',') : line)).join('\n'));
+    const out = path.join(work, 'gps-fitted.json');
+    const refused = runCli(['calibrate', '--telemetry', gpsOnly, '--car', guess, '--out', out]);
+    expect(refused.code).toBe(2);
+    expect(refused.stderr.trim().split('\n')).toHaveLength(1);
+    expect(refused.stderr).toMatch(/no longitudinal and lateral acceleration channel; give --track/);
+    expect(existsSync(out)).toBe(false);
+    const run = runCli(['calibrate', '--telemetry', gpsOnly, '--car', guess, '--track', track, '--out', out, '--json']);
+    expect(run.code).toBe(0);
+    const summary = JSON.parse(run.stdout);
+    expect(summary.notes).toContain(
+      "no lateral acceleration in the log: taken as the speed squared times the track's curvature",
+    );
+    // The same grip as the demo driver shows with the accelerometer (0.985^2 of the car file's 1.5), to within the
+    // looser errors of derived accelerations.
+    const muLat = summary.fitted.find((f: { field: string }) => f.field === 'tyre.muLat');
+    expect(Math.abs(muLat.value - 1.5 * 0.985 ** 2)).toBeLessThan(3 * muLat.sd + 0.02);
+    expect(existsSync(out)).toBe(true);
+  });
+
+  it('refuses a log without a long enough full-throttle stretch, saying how long is needed, and writes nothing', () => {
+    const csv = readFileSync(log, 'utf8').split('\n');
+    const throttle = csv[0]!.split(',').indexOf('throttle_pct');
+    // Off the throttle for a moment every second.
+    const lifted = csv.map((line, row) => {
+      if (row === 0 || !line) return line;
+      const cells = line.split(',');
+      if (Math.floor(Number(cells[0]) * 1) % 2 === 1) cells[throttle] = '40';
+      return cells.join(',');
+    });
+    const file = path.join(work, 'lifting.csv');
+    writeFileSync(file, lifted.join('\n'));
+    const out = path.join(work, 'never.json');
+    const run = runCli(['calibrate', '--telemetry', file, '--car', guess, '--out', out]);
+    expect(run.code).toBe(2);
+    expect(run.stderr.trim().split('\n')).toHaveLength(1);
+    expect(run.stderr).toMatch(
+      /no full-throttle stretch long enough to fit power and drag: at least one of 2 s in a straight line is needed \(the longest found is 1\.\d s\)/,
+    );
+    expect(existsSync(out)).toBe(false);
+  });
+
+  it('refuses a bicycle-model car without the aero balance the downforce fit needs', () => {
+    const out = path.join(work, 'never3.json');
+    const run = runCli([
+      'calibrate',
+      '--telemetry',
+      log,
+      '--car',
+      path.join(projectRoot, 'cars', 'brackle-club.json'),
+      '--model',
+      'bicycle',
+      '--out',
+      out,
+    ]);
+    expect(run.code).toBe(2);
+    expect(run.stderr.trim().split('\n')).toHaveLength(1);
+    expect(run.stderr).toMatch(
+      /calibrating with the bicycle model fits the downforce, which needs field aero\.frontDownforceFraction/,
+    );
+    expect(existsSync(out)).toBe(false);
+  });
+
+  it('refuses a base car file that fails validation, naming the field', () => {
+    const bad = path.join(work, 'bad.json');
+    writeFileSync(
+      bad,
+      JSON.stringify({
+        massKg: 900,
+        tyre: { muLat: 1.2 },
+        aero: { dragAreaM2: 0.7, liftAreaM2: 0 },
+        powertrain: { maxPowerW: 100000 },
+      }),
+    );
+    const out = path.join(work, 'never2.json');
+    const run = runCli(['calibrate', '--telemetry', log, '--car', bad, '--out', out]);
+    expect(run.code).toBe(2);
+    expect(run.stderr.trim()).toBe(`reflap: ${bad}: missing required field tyre.muLong`);
+    expect(existsSync(out)).toBe(false);
+  });
+});
