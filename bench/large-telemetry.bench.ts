@@ -12,7 +12,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { once } from 'node:events';
 import { readTelemetryFile, streamTelemetryCsv, type TelemetryChunk } from '../src/io/telemetry/read-telemetry.js';
-import { peakRssMb } from './stats.js';
+import { linearityVerdict, machineLoad, peakRssMb } from './stats.js';
 
 const MB = 1024 * 1024;
 const LAP_M = 2800;
@@ -82,25 +82,35 @@ class LapScan {
 /** Runs `work` with the resident memory sampled every 50 ms: its time, and the RSS before (after a GC) and at the peak, MB. */
 export async function sampledPeak<T>(
   work: () => Promise<T>,
-): Promise<{ value: T; seconds: number; baseMb: number; peakMb: number }> {
+): Promise<{ value: T; seconds: number; cpuSeconds: number; baseMb: number; peakMb: number }> {
   (globalThis as { gc?: () => void }).gc?.();
   const baseMb = process.memoryUsage().rss / MB;
   let peakMb = baseMb;
   const sampler = setInterval(() => {
     peakMb = Math.max(peakMb, process.memoryUsage().rss / MB);
   }, 50);
+  const cpuStart = process.cpuUsage();
   const start = process.hrtime.bigint();
   try {
     const value = await work();
     const seconds = Number(process.hrtime.bigint() - start) / 1e9;
+    const cpu = process.cpuUsage(cpuStart);
     peakMb = Math.max(peakMb, process.memoryUsage().rss / MB);
-    return { value, seconds, baseMb, peakMb };
+    return { value, seconds, cpuSeconds: (cpu.user + cpu.system) / 1e6, baseMb, peakMb };
   } finally {
     clearInterval(sampler);
   }
 }
 
-async function measure(sizeMb: number, withSession: boolean): Promise<void> {
+/** The streamed read's figures at one file size, for the verdict on memory and cost across sizes. */
+interface StreamedFigures {
+  fileMb: number;
+  rows: number;
+  cpuSeconds: number;
+  peakIncreaseMb: number;
+}
+
+async function measure(sizeMb: number, withSession: boolean): Promise<StreamedFigures> {
   const file = join(tmpdir(), `reflap-bench-log-${process.pid}-${sizeMb}mb.csv`);
   try {
     const rows = await writeLog(file, sizeMb * MB);
@@ -108,12 +118,19 @@ async function measure(sizeMb: number, withSession: boolean): Promise<void> {
     const scan = new LapScan();
     const streamed = await sampledPeak(() => streamTelemetryCsv(file, { columns: {} }, (chunk) => scan.add(chunk)));
     process.stdout.write(
-      `  ${fileMb.toFixed(0).padStart(5)} MB, ${rows.toLocaleString('en')} rows, streamed: ${streamed.seconds.toFixed(1)} s, ${(fileMb / streamed.seconds).toFixed(0)} MB/s; ` +
+      `  ${fileMb.toFixed(0).padStart(5)} MB, ${rows.toLocaleString('en')} rows, streamed: ${streamed.seconds.toFixed(1)} s wall, ${streamed.cpuSeconds.toFixed(1)} s CPU ` +
+        `(${((streamed.cpuSeconds * 1e9) / rows).toFixed(0)} ns CPU per row), ${(fileMb / streamed.seconds).toFixed(0)} MB/s; ` +
         `RSS before ${streamed.baseMb.toFixed(0)} MB, peak ${streamed.peakMb.toFixed(0)} MB (+${(streamed.peakMb - streamed.baseMb).toFixed(0)} MB); ` +
         `${scan.rows.toLocaleString('en')} rows in chunks of at most ${scan.maxChunkRows}, speed ${(scan.minSpeedMps * 3.6).toFixed(1)}-${(scan.maxSpeedMps * 3.6).toFixed(1)} km/h, ` +
         `|ay| up to ${scan.maxAbsAyMps2.toFixed(2)} m/s^2, ${scan.crossings} line crossings, fastest lap ${scan.fastestLapS.toFixed(2)} s\n`,
     );
-    if (!withSession) return;
+    const figures = {
+      fileMb,
+      rows,
+      cpuSeconds: streamed.cpuSeconds,
+      peakIncreaseMb: streamed.peakMb - streamed.baseMb,
+    };
+    if (!withSession) return figures;
     const session = await sampledPeak(() => readTelemetryFile(file, { columns: {} }));
     const s = session.value;
     const channels = [s.timeS, s.distanceM, s.speedMps, s.throttle, s.brake, s.axMps2, s.ayMps2].filter(
@@ -123,10 +140,11 @@ async function measure(sizeMb: number, withSession: boolean): Promise<void> {
     // The arrays may be views into buffers sized from an estimate of the rows; their spare pages are never written.
     const allocatedMb = channels.reduce((sum, values) => sum + values.buffer.byteLength, 0) / MB;
     process.stdout.write(
-      `  ${fileMb.toFixed(0).padStart(5)} MB, session in memory: ${session.seconds.toFixed(1)} s; RSS before ${session.baseMb.toFixed(0)} MB, peak ${session.peakMb.toFixed(0)} MB ` +
+      `  ${fileMb.toFixed(0).padStart(5)} MB, session in memory: ${session.seconds.toFixed(1)} s wall, ${session.cpuSeconds.toFixed(1)} s CPU; RSS before ${session.baseMb.toFixed(0)} MB, peak ${session.peakMb.toFixed(0)} MB ` +
         `(+${(session.peakMb - session.baseMb).toFixed(0)} MB) for ${keptMb.toFixed(0)} MB of channels kept (${((session.peakMb - session.baseMb) / keptMb).toFixed(2)}x; ` +
         `arrays allocated ${allocatedMb.toFixed(0)} MB)\n`,
     );
+    return figures;
   } finally {
     rmSync(file, { force: true });
   }
@@ -142,8 +160,21 @@ function sizes(variable: string, fallback: string): number[] {
 export async function run(): Promise<void> {
   const sessionSizes = new Set(sizes('REFLAP_BENCH_SESSION_MB', '256'));
   process.stdout.write('Telemetry CSV read in chunks (streamTelemetryCsv), files generated in the temporary folder:\n');
-  for (const size of sizes('REFLAP_BENCH_TELEMETRY_MB', '64,256,1024')) await measure(size, sessionSizes.has(size));
+  const measured: StreamedFigures[] = [];
+  for (const size of sizes('REFLAP_BENCH_TELEMETRY_MB', '64,256,1024'))
+    measured.push(await measure(size, sessionSizes.has(size)));
+  process.stdout.write(`  maxRSS of the process ${peakRssMb().toFixed(0)} MB; ${machineLoad()}\n`);
+  if (measured.length < 2) return;
+  const smallest = measured[0]!;
+  const largest = measured[measured.length - 1]!;
+  // Flat memory: the streamed peak grows by less than a tenth of what the file grows (common practice, no source).
+  const growthMb = largest.peakIncreaseMb - smallest.peakIncreaseMb;
+  const fileGrowthMb = largest.fileMb - smallest.fileMb;
   process.stdout.write(
-    `  Memory that does not grow with the file shows as the same streamed peak at every size; maxRSS of the process ${peakRssMb().toFixed(0)} MB.\n`,
+    `  streamed peak +${smallest.peakIncreaseMb.toFixed(0)} MB at ${smallest.fileMb.toFixed(0)} MB, +${largest.peakIncreaseMb.toFixed(0)} MB at ${largest.fileMb.toFixed(0)} MB: ` +
+      `${growthMb < 0.1 * fileGrowthMb ? 'flat' : 'NOT flat'} in the file size (flat: grows by under a tenth of the file's growth)\n`,
+  );
+  process.stdout.write(
+    `  ${linearityVerdict([smallest, largest].map((figures) => (figures.cpuSeconds * 1e9) / figures.rows)).replace('per point', 'per row')}\n`,
   );
 }

@@ -6,6 +6,7 @@ interface BenchModule {
 
 const modules: [string, () => Promise<BenchModule>][] = [
   ['simulate', () => import('./simulate.bench.js')],
+  ['memory', () => import('./memory.bench.js')],
   ['telemetry', () => import('./telemetry.bench.js')],
   ['compare', () => import('./compare.bench.js')],
   ['track', () => import('./track.bench.js')],

@@ -10,7 +10,7 @@ import { airInputsOf, parseVariation } from '../src/sweep/settings.js';
 import { runSweep } from '../src/sweep/run-sweep.js';
 import { benchmarkCircuitSegments } from './simulate.bench.js';
 import { availableParallelism as availableCores, loadavg } from 'node:os';
-import { peakRssMb } from './stats.js';
+import { peakRssMb, verdict } from './stats.js';
 
 const projectRoot = fileURLToPath(new URL('../..', import.meta.url));
 
@@ -49,9 +49,10 @@ export async function run(): Promise<void> {
   process.stdout.write(
     `sweep: ${runs} runs (1,000 grid setups + baseline and difference pairs) on ${(track.lengthM / 1000).toFixed(2)} km at 1 m step\n` +
       `  1 worker   ${times[1]!.toFixed(2)} s wall, ${cpuS[1]!.toFixed(2)} s CPU (${((cpuS[1]! * 1000) / runs).toFixed(2)} ms CPU per run)\n` +
-      `  2 workers  ${times[2]!.toFixed(2)} s wall, ${cpuS[2]!.toFixed(2)} s CPU (target < 10 s wall)\n` +
-      `  speed-up   ${ratio.toFixed(2)} x wall (target >= 1.6 x)\n` +
-      `  load       ${loadBefore.toFixed(1)} before, ${loadavg()[0]!.toFixed(1)} after on ${availableCores()} cores: wall times hold only on an otherwise idle machine\n` +
+      `  2 workers  ${times[2]!.toFixed(2)} s wall, ${cpuS[2]!.toFixed(2)} s CPU\n` +
+      `  ${verdict('2 workers, wall', times[2]!, 10, 's')}\n` +
+      `  ${verdict('speed-up of 2 workers over 1, wall', ratio, 1.6, 'x', false)}` +
+      ` (holds only on an otherwise idle machine: load ${loadBefore.toFixed(1)} before, ${loadavg()[0]!.toFixed(1)} after on ${availableCores()} cores)\n` +
       `  peak RSS   ${peakRssMb().toFixed(0)} MB (main thread's process)\n`,
   );
 }

@@ -6,7 +6,7 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { parseTrackText, type TrackReadOptions } from '../src/io/read-track.js';
 import { cyclicBandedSolver, factorCyclicBanded, solveCyclicBanded } from '../src/numeric/banded.js';
-import { medianTimeMs, peakRssMb } from './stats.js';
+import { machineLoad, medianTimes, peakRssMb, verdict } from './stats.js';
 
 const projectRoot = fileURLToPath(new URL('../..', import.meta.url));
 
@@ -34,7 +34,7 @@ export async function run(): Promise<void> {
   const csv = centrelineCsv();
   const options: TrackReadOptions = { stepM: 1, columns: csv.columns, widthM: null, layout: 'auto', smoothingM: null };
   let points = 0;
-  const csvMs = medianTimeMs(
+  const csvTime = medianTimes(
     () => {
       points = parseTrackText(csv.text, 'bench.csv', options).xM.length;
     },
@@ -42,18 +42,21 @@ export async function run(): Promise<void> {
     5,
   );
   process.stdout.write(
-    `centreline CSV ${csv.source}: read + resample + smooth at 1 m, ${points} points: median ${csvMs.toFixed(2)} ms (target < 50 ms)\n`,
+    `centreline CSV ${csv.source}: read + resample + smooth at 1 m, ${points} points: median ${csvTime.wallMs.toFixed(2)} ms wall, ${csvTime.cpuMs.toFixed(2)} ms CPU (${((csvTime.cpuMs * 1e6) / points).toFixed(0)} ns CPU per point)\n` +
+      `  ${verdict('CPU', csvTime.cpuMs, 50, 'ms')}\n`,
   );
 
   const demoText = readFileSync(path.join(projectRoot, 'tracks', 'velmora-downs.json'), 'utf8');
-  const segmentMs = medianTimeMs(
+  const segmentTime = medianTimes(
     () => {
       points = parseTrackText(demoText, 'velmora-downs.json', { ...options, columns: {} }).xM.length;
     },
     30,
     5,
   );
-  process.stdout.write(`segment JSON velmora-downs at 1 m, ${points} points: median ${segmentMs.toFixed(2)} ms\n`);
+  process.stdout.write(
+    `segment JSON velmora-downs at 1 m, ${points} points: median ${segmentTime.wallMs.toFixed(2)} ms wall, ${segmentTime.cpuMs.toFixed(2)} ms CPU (${((segmentTime.cpuMs * 1e6) / points).toFixed(0)} ns CPU per point)\n`,
+  );
 
   const n = 2500;
   const lambda = 1e4;
@@ -61,7 +64,7 @@ export async function run(): Promise<void> {
   const entry = (_i: number, k: number) => (k === 0 ? 1 : 0) + lambda * penalty[k]!;
   const rhs = new Float64Array(n).map((_, i) => Math.sin(i / 10));
   const out = new Float64Array(n);
-  const factorMs = medianTimeMs(
+  const factorTime = medianTimes(
     () => {
       cyclicBandedSolver(n, 2, entry)(rhs, out);
     },
@@ -69,7 +72,7 @@ export async function run(): Promise<void> {
     10,
   );
   const factor = factorCyclicBanded(n, 2, entry);
-  const solveMs = medianTimeMs(
+  const solveTime = medianTimes(
     () => {
       solveCyclicBanded(factor, rhs, out);
     },
@@ -77,7 +80,8 @@ export async function run(): Promise<void> {
     20,
   );
   process.stdout.write(
-    `cyclic pentadiagonal n = ${n}: factor + solve median ${factorMs.toFixed(3)} ms, solve alone ${solveMs.toFixed(3)} ms\n`,
+    `cyclic pentadiagonal n = ${n}: factor + solve median ${factorTime.wallMs.toFixed(3)} ms wall, ${factorTime.cpuMs.toFixed(3)} ms CPU; ` +
+      `solve alone ${solveTime.wallMs.toFixed(3)} ms wall, ${solveTime.cpuMs.toFixed(3)} ms CPU (${((solveTime.cpuMs * 1e6) / n).toFixed(0)} ns CPU per point)\n`,
   );
-  process.stdout.write(`peak RSS ${peakRssMb().toFixed(0)} MB\n`);
+  process.stdout.write(`peak RSS ${peakRssMb().toFixed(0)} MB; ${machineLoad()}\n`);
 }

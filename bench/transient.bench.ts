@@ -14,7 +14,7 @@ import { ambientFrom } from '../src/car/ambient.js';
 import { checkTransient, type TransientCheck } from '../src/solve/transient.js';
 import type { TrackGrid } from '../src/track/types.js';
 import { benchmarkCircuitSegments } from './simulate.bench.js';
-import { medianTimeMs, peakRssMb } from './stats.js';
+import { machineLoad, medianTimes, peakRssMb, verdict } from './stats.js';
 
 const projectRoot = fileURLToPath(new URL('../..', import.meta.url));
 
@@ -26,7 +26,7 @@ function benchOne(label: string, track: TrackGrid): void {
   const ambient = ambientFrom();
   const lap = simulate(track, car, { ambient });
   let check: TransientCheck | null = null;
-  const ms = medianTimeMs(
+  const timing = medianTimes(
     () => {
       check = checkTransient(lap, car, { ambient });
     },
@@ -35,10 +35,11 @@ function benchOne(label: string, track: TrackGrid): void {
   );
   const c = check! as TransientCheck;
   process.stdout.write(
-    `transient check, ${label} (${(track.lengthM / 1000).toFixed(2)} km, ${track.distanceM.length} points): median ${(ms / 1000).toFixed(3)} s per lap (target < 5 s); ` +
+    `transient check, ${label} (${(track.lengthM / 1000).toFixed(2)} km, ${track.distanceM.length} points): median ${(timing.wallMs / 1000).toFixed(3)} s wall, ${(timing.cpuMs / 1000).toFixed(3)} s CPU per lap; ` +
       `${c.steps} odex steps, ${c.evaluations} evaluations; reference ${lap.lapTimeS.toFixed(3)} s, ` +
       `followed ${c.completed ? c.followedLapTimeS.toFixed(3) + ' s' : 'did not finish'}, largest deviation ${c.maxDeviationM.toFixed(2)} m, ` +
-      `${(100 * c.maxDeviationShare).toFixed(0)} % of the room to the edge (${c.deviationLimitSource}); ${c.drivable ? 'drivable' : 'not drivable'}\n`,
+      `${(100 * c.maxDeviationShare).toFixed(0)} % of the room to the edge (${c.deviationLimitSource}); ${c.drivable ? 'drivable' : 'not drivable'}\n` +
+      `  ${verdict('CPU per lap', timing.cpuMs / 1000, 5, 's')}\n`,
   );
 }
 
@@ -66,5 +67,5 @@ export async function run(): Promise<void> {
   } else {
     process.stdout.write('transient check on a real circuit: skipped (../shared/data/open-tracks is absent)\n');
   }
-  process.stdout.write(`peak RSS ${peakRssMb().toFixed(0)} MB\n`);
+  process.stdout.write(`peak RSS ${peakRssMb().toFixed(0)} MB; ${machineLoad()}\n`);
 }
