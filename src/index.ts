@@ -4,7 +4,7 @@
 export type { TrackGrid, Path, NamedCorner } from './track/types.js';
 export type { Car, Ambient, DrivenAxle, CarModelKind } from './car/types.js';
 export type { Envelope } from './car/envelope.js';
-export type { LapResult, LapTrace, BrakingZone } from './solve/types.js';
+export type { LapResult, LapTrace, BrakingZone, CornerZone } from './solve/types.js';
 export type { DriverLap, TelemetrySession } from './compare/types.js';
 export { InputError, isInputError } from './errors.js';
 export * from './units.js';
@@ -163,7 +163,21 @@ export {
   DEFAULT_CORNER_OPTIONS,
   type CornerSpan,
   type CornerDetectionOptions,
-} from './compare/corners.js';
+  type CornerMarker,
+} from './track/corners.js';
+// One corner identity per track: corners and sectors every command numbers alike, and corners files.
+export {
+  cornerLayoutOf,
+  withCornerLayout,
+  cornerLabel,
+  zoneLabel,
+  sectorAt,
+  type CornerLayout,
+  type TrackSector,
+} from './track/corner-layout.js';
+export { cornerLayoutFromSpec, CORNERS_FORMAT, type CornerSpec } from './track/corner-spec.js';
+export { readCornersFile, parseCornersText } from './io/read-corners.js';
+export { cornersFileJson, cornersText } from './report/corners-file.js';
 export { timeDeltaS, clockAt, distanceAsTimeS } from './compare/delta.js';
 export { rankFindings, cornerFindingText, DEFAULT_FINDING_OPTIONS, type FindingOptions } from './compare/findings.js';
 export {

@@ -15,6 +15,7 @@ import * as demoCommand from './commands/demo.js';
 import * as carCommand from './commands/car.js';
 import * as checkCommand from './commands/check.js';
 import * as calibrateCommand from './commands/calibrate.js';
+import * as cornersCommand from './commands/corners.js';
 
 interface CommandModule {
   register(program: Command): void;
@@ -31,6 +32,7 @@ const commandModules: CommandModule[] = [
   envelopeCommand,
   calibrateCommand,
   lineCommand,
+  cornersCommand,
   carCommand,
   checkCommand,
   demoCommand,

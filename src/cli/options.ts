@@ -7,6 +7,8 @@ import { InputError } from '../errors.js';
 import { readTrackFile, type TrackReadOptions } from '../io/read-track.js';
 import { parseColumnMapping } from '../io/columns.js';
 import { readCarFile } from '../io/read-car.js';
+import { readCornersFile } from '../io/read-corners.js';
+import { withCornerLayout } from '../track/corner-layout.js';
 import { ambientFrom } from '../car/ambient.js';
 import type { Ambient, Car, CarModelKind } from '../car/types.js';
 import type { TrackGrid } from '../track/types.js';
@@ -20,6 +22,7 @@ export interface TrackOptionValues {
   startSpeedKph?: string;
   layout?: string;
   smoothingM?: string;
+  corners?: string;
 }
 
 export interface CarOptionValues {
@@ -55,7 +58,8 @@ export function addTrackOptions(command: Command): Command {
         'open',
       ]),
     )
-    .option('--smoothing-m <m>', 'shortest wavelength kept by the centreline smoothing, m (default 30)');
+    .option('--smoothing-m <m>', 'shortest wavelength kept by the centreline smoothing, m (default 30)')
+    .option('--corners <file>', 'corners and sectors from this file (from `reflap corners --out`, edited)');
 }
 
 export function addCarOptions(command: Command): Command {
@@ -89,7 +93,8 @@ export function trackReadOptions(values: TrackOptionValues): TrackReadOptions {
 }
 
 export function loadTrack(values: TrackOptionValues): TrackGrid {
-  return readTrackFile(values.track, trackReadOptions(values));
+  const track = readTrackFile(values.track, trackReadOptions(values));
+  return values.corners ? withCornerLayout(track, readCornersFile(values.corners, track)) : track;
 }
 
 export function startSpeedMps(values: TrackOptionValues): number {
@@ -118,7 +123,7 @@ export function loadCar(values: CarOptionValues): { car: Car; ambient: Ambient }
 export function inputFilesOf(values: object): string[] {
   const files: string[] = [];
   const record = values as Record<string, unknown>;
-  for (const key of ['track', 'car', 'telemetry', 'line', 'envelope']) {
+  for (const key of ['track', 'car', 'telemetry', 'line', 'envelope', 'corners']) {
     const value = record[key];
     if (typeof value === 'string' && value !== 'auto') files.push(value);
   }

@@ -1,7 +1,7 @@
 // Where each lap starts slowing for a corner, and the two laps' braking (or lift) points compared: the braking
 // zone that sheds the most speed before the apex, placed where the brake crosses the pedal threshold.
 
-import type { CornerSpan } from './corners.js';
+import type { CornerSpan } from '../track/corners.js';
 import { distanceAsTimeS } from './delta.js';
 import { interpolate, lastPeakIndex, minimumOver, type LapView } from './lap-samples.js';
 

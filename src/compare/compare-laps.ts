@@ -7,7 +7,7 @@ import type { LapResult } from '../solve/types.js';
 import type { TrackGrid } from '../track/types.js';
 import type { ComparisonResult, CornerComparison, DriverLap } from './types.js';
 import { findBrakingZones } from '../solve/braking-zones.js';
-import { detectCorners } from './corners.js';
+import { cornerLayoutOf, metresBeforeM } from '../track/corner-layout.js';
 import { movingAverage } from './derive.js';
 import { clockAt, timeDeltaS } from './delta.js';
 import { rankFindings } from './findings.js';
@@ -66,7 +66,7 @@ export function compareLaps(
   const driverZones = findBrakingZones({ closed, count: n, speedMps: driver.speedMps, stationM, brake: driverBrake });
   const referenceZones = reference.brakingZones;
 
-  const spans = detectCorners(track, settings.corners);
+  const spans = cornerLayoutOf(track).corners;
   if (spans.length === 0) notes.push('no corners found on this track: the whole lap is reported as one stretch');
   const bounds = ownershipBounds(spans, refView, drv, n, step, closed);
   const at = (values: Float64Array, u: number) => values[((u % n) + n) % n]!;
@@ -125,6 +125,8 @@ export function compareLaps(
     const grip = gripFigures(driverGripUse, driverGripSmooth, span.entryIndex, span.exitIndex, n);
     const referenceGrip = gripFigures(ref.gripUse, referenceGripSmooth, span.entryIndex, span.exitIndex, n);
     const fold = (u: number) => (closed ? (((u % n) + n) % n) * step : Math.min(Math.max(u, 0), n - 1) * step);
+    const beforeM = (pointM: number | null, placeM: number) =>
+      pointM === null ? null : metresBeforeM(pointM, placeM, track);
     const foldM = (u: number | null) =>
       u === null ? null : closed ? (((u * step) % track.lengthM) + track.lengthM) % track.lengthM : u * step;
     return {
@@ -137,6 +139,11 @@ export function compareLaps(
       brakingPointDeltaS: braking.brakingPointDeltaS,
       referenceBrakingPointM: foldM(refBrake),
       driverBrakingPointM: foldM(drvBrake),
+      turnInM: span.entryM,
+      referenceBeforeTurnInM: beforeM(foldM(refBrake), span.entryM),
+      driverBeforeTurnInM: beforeM(foldM(drvBrake), span.entryM),
+      markerName: span.marker?.name ?? null,
+      driverBeforeMarkerM: span.marker ? beforeM(foldM(drvBrake), span.marker.atM) : null,
       entrySpeedDriverKph: mpsToKph(at(driver.speedMps, span.entryIndex)),
       entrySpeedReferenceKph: mpsToKph(at(ref.speedMps, span.entryIndex)),
       minSpeedDriverKph: mpsToKph(drvMin.value),

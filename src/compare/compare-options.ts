@@ -1,11 +1,10 @@
-// Settings of the comparison of a driver's lap with the reference: corner detection, findings, pedal and
+// Settings of the comparison of a driver's lap with the reference (the corners are the track's own, from
+// track/corner-layout.ts, so every command numbers them alike): findings, pedal and
 // grip-use thresholds, and the lap times behind the two gaps (driver to demonstrated envelope to car model).
 
-import { DEFAULT_CORNER_OPTIONS, type CornerDetectionOptions } from './corners.js';
 import { DEFAULT_FINDING_OPTIONS, type FindingOptions } from './findings.js';
 
 export interface CompareOptions {
-  corners: CornerDetectionOptions;
   findings: FindingOptions;
   /** Pedal share above which a pedal counts as pressed (coasting = neither pressed), 0-1. */
   pedalThreshold: number;
@@ -24,7 +23,6 @@ export interface CompareOptions {
 }
 
 export const DEFAULT_COMPARE_OPTIONS: CompareOptions = {
-  corners: DEFAULT_CORNER_OPTIONS,
   findings: DEFAULT_FINDING_OPTIONS,
   pedalThreshold: 0.05,
   unusedBelow: 0.85,

@@ -2,7 +2,7 @@
 // the time lost on entry, in the middle and on exit (each corner's losses add up to its share of the lap-time gap),
 // and the time spent coasting.
 
-import type { CornerSpan } from './corners.js';
+import type { CornerSpan } from '../track/corners.js';
 import { clockAt } from './delta.js';
 import { clampIndex, lastPeakIndex, type LapView } from './lap-samples.js';
 

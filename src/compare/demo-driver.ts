@@ -6,7 +6,8 @@ import type { Envelope } from '../car/envelope.js';
 import type { LapResult } from '../solve/types.js';
 import type { TrackGrid } from '../track/types.js';
 import { localPlane } from '../io/telemetry/geo.js';
-import { detectCorners, type CornerSpan } from './corners.js';
+import type { CornerSpan } from '../track/corners.js';
+import { cornerLayoutOf } from '../track/corner-layout.js';
 import { mps2ToG, mpsToKph, kphToMps } from '../units.js';
 
 export interface DemoFault {
@@ -54,7 +55,7 @@ export function demoDriverLap(track: TrackGrid, reference: LapResult, envelope: 
   const ref = reference.trace;
   const speed = ref.speedMps.map((v) => v * PACE);
   const coastMask = new Uint8Array(n);
-  const corners = detectCorners(track);
+  const corners = cornerLayoutOf(track).corners;
   const zones = reference.brakingZones;
   // Corners by what the reference does there: the braking ones by entry speed, the fast ones by their slowest speed.
   const braked = corners

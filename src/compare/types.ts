@@ -61,9 +61,9 @@ export interface GripStretch {
   lengthM?: number;
 }
 
-/** One corner, found from the curvature, with the driver's numbers against the reference's. */
+/** One of the track's corners (track/corner-layout.ts) with the driver's numbers against the reference's. */
 export interface CornerComparison {
-  /** Running number from the start line, 1-based. */
+  /** The corner's number in the track's one numbering (running order from the start line unless a corners file says otherwise). */
   id: number;
   name: string | null;
   entryM: number;
@@ -75,6 +75,13 @@ export interface CornerComparison {
   brakingPointDeltaS: number | null;
   referenceBrakingPointM: number | null;
   driverBrakingPointM: number | null;
+  /** The corner's turn-in (entry), m, and each braking point as metres before it (negative: after it). */
+  turnInM?: number;
+  referenceBeforeTurnInM?: number | null;
+  driverBeforeTurnInM?: number | null;
+  /** A marker the corners file names before this corner, and the driver's braking point as metres before it. */
+  markerName?: string | null;
+  driverBeforeMarkerM?: number | null;
   entrySpeedDriverKph: number;
   entrySpeedReferenceKph: number;
   minSpeedDriverKph: number;

@@ -63,7 +63,7 @@ function issueMessage(issue: z.core.$ZodIssue): string {
 }
 
 /** Every schema problem after the file's name, each naming its field, joined by '; ' on the one line. */
-function zodMessage(error: z.ZodError, source: string): string {
+export function zodMessage(error: z.ZodError, source: string): string {
   return `${source}: ${error.issues.map(issueMessage).join('; ')}`;
 }
 
@@ -78,16 +78,20 @@ function jsonPlace(text: string, message: string): string {
   return `line ${line}, column ${column}: `;
 }
 
-export function parseTrackJson(text: string, source: string, options: TrackReadOptions): TrackGrid {
-  let data: unknown;
+/** JSON.parse with a one-line error that names the file and the line and column. */
+export function parseJsonText(text: string, source: string): unknown {
   // A byte-order mark (editors on some systems write one) is not JSON; places are counted after it.
   const body = text.replace(/^\uFEFF/, '');
   try {
-    data = JSON.parse(body);
+    return JSON.parse(body);
   } catch (error) {
     const message = error instanceof Error ? error.message : String(error);
     throw new InputError(`${source}: ${jsonPlace(body, message)}not valid JSON (${message.split('\n')[0]})`);
   }
+}
+
+export function parseTrackJson(text: string, source: string, options: TrackReadOptions): TrackGrid {
+  const data = parseJsonText(text, source);
   const parsed = trackSchema.safeParse(data);
   if (!parsed.success) throw new InputError(zodMessage(parsed.error, source));
   const spec = parsed.data;

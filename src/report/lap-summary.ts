@@ -3,6 +3,8 @@
 import type { LapResult } from '../solve/types.js';
 import { formatLapTime, mpsToKph } from '../units.js';
 import { formatTable } from './text-table.js';
+import { zoneLabel } from '../track/corner-layout.js';
+import { cornersJson } from './corners-file.js';
 
 export const SAFETY_CAUTION =
   'Caution: this reference lap is a model result, not a driving instruction. Driving at the limit is dangerous; ' +
@@ -19,7 +21,13 @@ export function lapSummaryJson(result: LapResult, carName: string) {
     stepM: round(result.track.stepM, 6),
     maxSpeedMps: round(result.maxSpeedMps, 3),
     minSpeedMps: round(result.minSpeedMps, 3),
+    corners: cornersJson(result.corners),
+    sectors: result.corners.sectors.map((s) => ({ ...s, startM: round(s.startM, 1), endM: round(s.endM, 1) })),
     brakingZones: result.brakingZones.map((zone) => ({
+      corner: zone.corner,
+      tag: zone.tag,
+      cornerName: zone.cornerName,
+      beforeTurnInM: zone.beforeTurnInM === null ? null : round(zone.beforeTurnInM, 1),
       startM: round(zone.startM, 1),
       entrySpeedMps: round(zone.entrySpeedMps, 3),
       minSpeedAtM: round(zone.minSpeedAtM, 1),
@@ -38,10 +46,11 @@ export function lapSummaryText(result: LapResult, carName: string): string {
     '',
     `Braking zones (${result.brakingZones.length})`,
     formatTable(
-      ['#', 'brake at m', 'entry km/h', 'slowest at m', 'slowest km/h', 'braking m'],
-      result.brakingZones.map((zone, index) => [
-        String(index + 1),
+      ['corner', 'brake at m', 'before turn-in m', 'entry km/h', 'slowest at m', 'slowest km/h', 'braking m'],
+      result.brakingZones.map((zone) => [
+        zoneLabel({ tag: zone.tag, name: zone.cornerName }),
         zone.startM.toFixed(0),
+        zone.beforeTurnInM === null ? '' : zone.beforeTurnInM.toFixed(0),
         mpsToKph(zone.entrySpeedMps).toFixed(1),
         zone.minSpeedAtM.toFixed(0),
         mpsToKph(zone.minSpeedMps).toFixed(1),

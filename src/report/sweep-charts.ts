@@ -2,6 +2,7 @@
 // braking-point shift from the baseline against the field. The series come from sweepChartData; a grid
 // also shows how the other fields move the lap-time curve.
 
+import { zoneLabel } from '../track/corner-layout.js';
 import { sweepChartData, type SweepSeries } from '../sweep/chart-data.js';
 import type { SweepRecord, SweepTable } from '../sweep/table.js';
 import { PALETTE, seriesStyle } from './html/palette.js';
@@ -95,7 +96,7 @@ function shiftSeries(table: SweepTable, k: number, series: SweepSeries): XySerie
   const field = table.meta.fields[k]!;
   const unit = table.meta.units[k];
   return table.meta.corners.map((corner, c) => ({
-    label: `c${corner.corner}`,
+    label: corner.tag,
     ...seriesStyle(c),
     markerRadius: 2.4,
     points: series.values.map((value, v) => {
@@ -103,7 +104,7 @@ function shiftSeries(table: SweepTable, k: number, series: SweepSeries): XySerie
       const text = Number.isFinite(shift)
         ? `${shift >= 0 ? '+' : ''}${shift.toFixed(2)} m (${shift < 0 ? 'earlier' : shift > 0 ? 'later' : 'unchanged'})`
         : 'no braking';
-      return { x: value, y: shift, title: `c${corner.corner} at ${field} ${valueWithUnit(value, unit)}: ${text}` };
+      return { x: value, y: shift, title: `${zoneLabel(corner)} at ${field} ${valueWithUnit(value, unit)}: ${text}` };
     }),
   }));
 }

@@ -2,6 +2,7 @@
 // sensitivity table around the baseline and the caution, in the lap report's frame, style and palette.
 // Pure: the CLI writes the strings.
 
+import { zoneLabel } from '../track/corner-layout.js';
 import { sensitivities, type Sensitivity, type SweepTable } from '../sweep/table.js';
 import { formatLapTime } from '../units.js';
 import { escapeHtml } from './html/escape.js';
@@ -72,7 +73,7 @@ export function sensitivityTableHtml(table: SweepTable, found: Sensitivity[]): s
     ),
     ...table.meta.corners.map((corner, c) =>
       row(
-        `c${corner.corner} braking point, m`,
+        `${zoneLabel(corner)} braking point, m`,
         found.map((s) => perUnit(s.brakingPointMPerUnit[c] ?? null)),
       ),
     ),

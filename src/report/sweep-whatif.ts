@@ -1,6 +1,7 @@
 // The what-if page: one change against the baseline, the lap time change as tiles and the braking-point
 // shift per corner as a bar chart, in the lap report's frame. Pure: the CLI writes the strings.
 
+import { zoneLabel } from '../track/corner-layout.js';
 import type { LapComparison } from '../sweep/compare-laps.js';
 import { formatLapTime } from '../units.js';
 import { barChartSvg, type BarChartSpec } from './html/bar-chart.js';
@@ -29,12 +30,12 @@ function shiftChart(input: WhatifPageInput): BarChartSpec {
     bars: input.comparison.zones.map((zone) => {
       const shift = zone.brakingPointShiftM;
       return {
-        label: `c${zone.corner}`,
+        label: zone.tag,
         value: shift,
         title:
           shift === null
-            ? `c${zone.corner}: the changed car no longer brakes here`
-            : `c${zone.corner} (baseline brakes at ${zone.brakingPointM.toFixed(1)} m): ${shift >= 0 ? '+' : ''}${shift.toFixed(2)} m, ${shift < 0 ? 'earlier' : 'later'}`,
+            ? `${zoneLabel({ tag: zone.tag, name: zone.cornerName })}: the changed car no longer brakes here`
+            : `${zoneLabel({ tag: zone.tag, name: zone.cornerName })} (baseline brakes at ${zone.brakingPointM.toFixed(1)} m): ${shift >= 0 ? '+' : ''}${shift.toFixed(2)} m, ${shift < 0 ? 'earlier' : 'later'}`,
       };
     }),
   };

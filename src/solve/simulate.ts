@@ -10,6 +10,8 @@ import { solveSpeedProfile } from './speed-profile.js';
 import { lapChannels } from './channels.js';
 import { findBrakingZones } from './braking-zones.js';
 import { centrelinePath } from '../track/resample.js';
+import { cornerLayoutOf } from '../track/corner-layout.js';
+import { zonesByCorner } from './corner-zones.js';
 
 export interface SimulateOptions {
   /** Air conditions; ISA sea level when omitted. */
@@ -53,7 +55,8 @@ export function simulate(track: TrackGrid, car: Car, options: SimulateOptions = 
     lengthM,
     maxSpeedMps,
     minSpeedMps,
-    brakingZones: findBrakingZones(trace),
+    brakingZones: zonesByCorner(findBrakingZones(trace), track),
+    corners: cornerLayoutOf(track),
     track,
     path,
     envelopeKind: envelope.kind,

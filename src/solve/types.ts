@@ -1,6 +1,7 @@
 // The reference lap as the solver returns it: per-sample traces on the track's distance grid, and the braking zones.
 
 import type { Path, TrackGrid } from '../track/types.js';
+import type { CornerLayout } from '../track/corner-layout.js';
 
 export interface BrakingZone {
   /** Index and distance along the lap (path distance) where braking begins. */
@@ -13,6 +14,19 @@ export interface BrakingZone {
   minSpeedMps: number;
   /** Distance over which the brakes are on, m. */
   brakingLengthM: number;
+}
+
+/** A braking zone with the corner it serves, in the track's one corner numbering. */
+export interface CornerZone extends BrakingZone {
+  /** Number of the corner served; 0 where the track has no corners. */
+  corner: number;
+  cornerName: string | null;
+  /** Unique within the lap: 'c3', or 'c3b' for a second zone serving corner 3 (a lift before the brakes). */
+  tag: string;
+  /** The served corner's turn-in (its entry), m along the centreline. */
+  turnInM: number | null;
+  /** Where the brakes come on as metres before that turn-in, m (negative: braking starts after it). */
+  beforeTurnInM: number | null;
 }
 
 export interface LapTrace {
@@ -45,7 +59,9 @@ export interface LapResult {
   lengthM: number;
   maxSpeedMps: number;
   minSpeedMps: number;
-  brakingZones: BrakingZone[];
+  brakingZones: CornerZone[];
+  /** The track's corners and sectors, numbered as every command and report numbers them. */
+  corners: CornerLayout;
   track: TrackGrid;
   path: Path;
   envelopeKind: string;

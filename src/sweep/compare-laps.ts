@@ -1,14 +1,24 @@
 // What a setup change does to the lap: the lap time change and, corner by corner, how far the braking
 // point moves, how the entry and slowest speeds change and what the braking zone costs or gains in time.
 
-import type { BrakingZone, LapResult } from '../solve/types.js';
+import type { BrakingZone, CornerZone, LapResult } from '../solve/types.js';
 import { mpsToKph } from '../units.js';
 import { DEFAULT_MATCH_TOLERANCE_M, matchBrakingZones, signedLapShiftM } from './match-zones.js';
 import { brakingPointM } from './braking-point.js';
+import type { TrackGrid } from '../track/types.js';
+import { metresBeforeM } from '../track/corner-layout.js';
 
 export interface ZoneChange {
-  /** 1-based number of the corner in the baseline's list of braking zones. */
+  /** Number of the corner the baseline zone serves, in the track's corner numbering. */
   corner: number;
+  /** Unique label of the baseline zone: 'c3', or 'c3b' for a second zone of corner 3. */
+  tag: string;
+  cornerName: string | null;
+  /** The corner's turn-in, m along the centreline; null where the track has no corners. */
+  turnInM: number | null;
+  /** Baseline and changed braking points (between samples) as metres before the turn-in, m. */
+  beforeTurnInM: number | null;
+  changedBeforeTurnInM: number | null;
   /** Baseline braking zone's first braking sample and slowest point, m along the lap. */
   startM: number;
   minSpeedAtM: number;
@@ -22,7 +32,7 @@ export interface ZoneChange {
   minSpeedDeltaKph: number | null;
   /** Time change over the zone (from the earlier braking point to the later slowest point), s. */
   zoneTimeDeltaS: number | null;
-  baseline: BrakingZone;
+  baseline: CornerZone;
   changed: BrakingZone | null;
 }
 
@@ -49,6 +59,25 @@ function before(a: number, b: number, count: number, closed: boolean): boolean {
   return forward <= count / 2;
 }
 
+function cornerOf(
+  zone: CornerZone,
+  track: TrackGrid,
+  basePointM: number,
+  changedPointM: number | null,
+): Pick<ZoneChange, 'corner' | 'tag' | 'cornerName' | 'turnInM' | 'beforeTurnInM' | 'changedBeforeTurnInM'> {
+  const turnInM = zone.turnInM;
+  const before = (pointM: number | null) =>
+    turnInM === null || pointM === null ? null : metresBeforeM(pointM, turnInM, track);
+  return {
+    corner: zone.corner,
+    tag: zone.tag,
+    cornerName: zone.cornerName,
+    turnInM,
+    beforeTurnInM: before(basePointM),
+    changedBeforeTurnInM: before(changedPointM),
+  };
+}
+
 /** Compares two laps on the same track and grid (same sample count). */
 export function compareSetupChange(
   baseline: LapResult,
@@ -63,11 +92,12 @@ export function compareSetupChange(
     const c = matching.changedIndexOf[b]!;
     const other = c >= 0 ? changed.brakingZones[c]! : null;
     if (!other) {
+      const basePointM = brakingPointM(baseline, zone);
       return {
-        corner: b + 1,
+        ...cornerOf(zone, baseline.track, basePointM, null),
         startM: zone.startM,
         minSpeedAtM: zone.minSpeedAtM,
-        brakingPointM: brakingPointM(baseline, zone),
+        brakingPointM: basePointM,
         changedBrakingPointM: null,
         brakingPointShiftM: null,
         entrySpeedDeltaKph: null,
@@ -84,7 +114,7 @@ export function compareSetupChange(
     const basePointM = brakingPointM(baseline, zone);
     const changedPointM = brakingPointM(changed, other);
     return {
-      corner: b + 1,
+      ...cornerOf(zone, baseline.track, basePointM, changedPointM),
       startM: zone.startM,
       minSpeedAtM: zone.minSpeedAtM,
       brakingPointM: basePointM,

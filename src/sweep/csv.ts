@@ -14,11 +14,12 @@ const number = (value: number, digits?: number): string =>
 const list = (values: readonly (number | string)[]): string =>
   values.map((v) => (typeof v === 'number' ? (Number.isFinite(v) ? String(v) : 'none') : v)).join('; ');
 
-/** Column names: run, kind, varies, one per field, lap_time_s, then per corner c<k>_brake_m, c<k>_entry_kph, c<k>_min_kph. */
+/** Column names: run, kind, varies, one per field, lap_time_s, then per braking zone <tag>_brake_m, <tag>_entry_kph,
+ * <tag>_min_kph, where the tag names the corner the zone serves (c3, or c3b for a second zone of corner 3). */
 export function sweepColumns(meta: Pick<SweepMeta, 'fields' | 'corners'>): string[] {
   const columns = ['run', 'kind', 'varies', ...meta.fields, 'lap_time_s'];
   for (const corner of meta.corners)
-    columns.push(`c${corner.corner}_brake_m`, `c${corner.corner}_entry_kph`, `c${corner.corner}_min_kph`);
+    columns.push(`${corner.tag}_brake_m`, `${corner.tag}_entry_kph`, `${corner.tag}_min_kph`);
   return columns;
 }
 
@@ -37,6 +38,8 @@ export function sweepCsvHeader(meta: SweepMeta): string {
     `# vary: ${list(meta.variations)}`,
     `# set: ${list(meta.settings)}`,
     `# runs: ${meta.totalRuns}`,
+    `# corner-tags: ${meta.corners.map((c) => c.tag).join('; ')}`,
+    `# corner-names: ${meta.corners.map((c) => (c.name ?? '').replace(/[;\r\n]/g, ' ')).join('; ')}`,
     `# corner-braking-points-m: ${meta.corners.map((c) => number(c.brakingPointM, DIGITS.brakingPointM)).join('; ')}`,
     `# corner-slowest-points-m: ${meta.corners.map((c) => number(c.minSpeedAtM, DIGITS.brakingPointM)).join('; ')}`,
     sweepColumns(meta).join(','),
@@ -92,8 +95,12 @@ export function parseSweepCsv(text: string, source: string): SweepTable {
   const fields = splitList(get('fields'));
   const brakes = splitList(get('corner-braking-points-m')).map(Number);
   const slowest = splitList(get('corner-slowest-points-m')).map(Number);
+  const tags = splitList(get('corner-tags'));
+  const names = splitList(meta.get('corner-names') ?? '');
   const corners: SweepCorner[] = brakes.map((brakingPointM, k) => ({
-    corner: k + 1,
+    corner: Number(/^c(\d+)/.exec(tags[k] ?? '')?.[1] ?? k + 1),
+    tag: tags[k] ?? `c${k + 1}`,
+    name: names[k] ? names[k]! : null,
     brakingPointM,
     minSpeedAtM: slowest[k] ?? Number.NaN,
   }));

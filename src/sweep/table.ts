@@ -2,7 +2,7 @@
 // after a run, the CSV and the table rebuilt from merged shards hold the same numbers; and the
 // sensitivities around the baseline by central differences.
 
-import type { BrakingZone, LapResult } from '../solve/types.js';
+import type { CornerZone, LapResult } from '../solve/types.js';
 import { mpsToKph } from '../units.js';
 import { brakingPointM } from './braking-point.js';
 import { outcomeWidth, VALUES_PER_CORNER } from './evaluate.js';
@@ -13,8 +13,11 @@ import { unitOf } from './fields.js';
 export const DIGITS = { lapTimeS: 6, brakingPointM: 3, speedKph: 3 } as const;
 
 export interface SweepCorner {
-  /** 1-based, in the baseline's order of braking zones. */
+  /** Number of the corner the baseline zone serves, in the track's corner numbering. */
   corner: number;
+  /** Unique label of the zone, used in column names: 'c3', or 'c3b' for a second zone of corner 3. */
+  tag: string;
+  name: string | null;
   /** Baseline braking point (between samples) and slowest point, m along the lap. */
   brakingPointM: number;
   minSpeedAtM: number;
@@ -63,8 +66,10 @@ export function roundTo(value: number, digits: number): number {
 }
 
 export function cornersOf(baseline: LapResult): SweepCorner[] {
-  return baseline.brakingZones.map((zone: BrakingZone, k) => ({
-    corner: k + 1,
+  return baseline.brakingZones.map((zone: CornerZone) => ({
+    corner: zone.corner,
+    tag: zone.tag,
+    name: zone.cornerName,
     brakingPointM: roundTo(brakingPointM(baseline, zone), DIGITS.brakingPointM),
     minSpeedAtM: roundTo(zone.minSpeedAtM, DIGITS.brakingPointM),
   }));

@@ -1,5 +1,7 @@
 // The track as the rest of the program sees it: samples on one uniform distance grid along the centreline, SI units.
 
+import type { CornerLayout } from './corner-layout.js';
+
 export interface NamedCorner {
   /** Distance along the centreline of the apex or of the corner's middle, m. */
   atM: number;
@@ -28,6 +30,8 @@ export interface TrackGrid {
   geoOrigin: { latDeg: number; lonDeg: number } | null;
   /** Corner names given by the track file, if any. */
   corners: NamedCorner[];
+  /** Corners and sectors given by a corners file; absent = found from the curvature (corner-layout.ts). */
+  cornerLayout?: CornerLayout;
   /** Where the grid came from, for messages. */
   source: string;
 }

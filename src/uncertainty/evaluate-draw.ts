@@ -7,7 +7,7 @@ import type { DriverLap } from '../compare/types.js';
 import type { CompareOptions } from '../compare/compare-options.js';
 import { DEFAULT_COMPARE_OPTIONS } from '../compare/compare-options.js';
 import { compareLaps } from '../compare/compare-laps.js';
-import { detectCorners } from '../compare/corners.js';
+import { cornerLayoutOf } from '../track/corner-layout.js';
 import { CLAIM_KINDS, cornerClaims, phaseClaim, type ClaimKind } from '../compare/findings.js';
 import type { CornerComparison } from '../compare/types.js';
 import { ambientFrom } from '../car/ambient.js';
@@ -33,7 +33,7 @@ export function traceSamples(stations: number, stride: number): number {
 }
 
 export function comparedCornerCount(track: TrackGrid, spec: DrawSpec): number {
-  return spec.driver ? detectCorners(track, { ...DEFAULT_COMPARE_OPTIONS, ...spec.compare }.corners).length : 0;
+  return spec.driver ? cornerLayoutOf(track).corners.length : 0;
 }
 
 export function drawOutcomeWidth(context: SweepContext & { draw: DrawSpec }): number {

@@ -6,7 +6,7 @@ import { simulate } from '../../src/solve/simulate.js';
 import { buildEnvelope } from '../../src/car/build-envelope.js';
 import { ambientFrom } from '../../src/car/ambient.js';
 import { compareLaps } from '../../src/compare/compare-laps.js';
-import { detectCorners } from '../../src/compare/corners.js';
+import { detectCorners } from '../../src/track/corners.js';
 import { distanceAsTimeS } from '../../src/compare/delta.js';
 import { arcRanges, circuitCar, driverLapFromReference, driverLapFromSpeeds, testCircuit } from './fixtures.js';
 

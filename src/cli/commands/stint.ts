@@ -1,6 +1,7 @@
 // `reflap stint`: lap after lap with the fuel burning off; the lap times and braking points that drift
 // through the stint as the car gets lighter.
 
+import { zoneLabel } from '../../track/corner-layout.js';
 import type { Command } from 'commander';
 import {
   addCarOptions,
@@ -60,7 +61,7 @@ export function stintCsv(result: StintResult): string {
     'lap',
     'fuel_kg',
     'lap_time_s',
-    ...result.corners.flatMap((c) => [`c${c.corner}_brake_m`, `c${c.corner}_min_kph`]),
+    ...result.corners.flatMap((c) => [`${c.tag}_brake_m`, `${c.tag}_min_kph`]),
   ];
   const rows = result.laps.map((lap) =>
     [
@@ -107,7 +108,7 @@ export function stintText(result: StintResult, trackName: string, carName: strin
     formatTable(
       ['corner', 'slowest at m', `lap 1 brake m`, `lap ${last.lap} brake m`, 'drift m', 'slowest km/h'],
       result.corners.map((corner, k) => [
-        `c${corner.corner}`,
+        zoneLabel(corner),
         corner.minSpeedAtM.toFixed(0),
         fmt(first.brakingPointM[k]!, 1),
         fmt(last.brakingPointM[k]!, 1) || 'no braking',

@@ -1,6 +1,7 @@
 // `reflap sweep`: many setups (a full grid or one field at a time) across worker threads, with the lap time
 // and every braking point per run, a sensitivity table around the baseline, shards and their merge.
 
+import { zoneLabel } from '../../track/corner-layout.js';
 import type { Command } from 'commander';
 import { Option } from 'commander';
 import { readFileSync } from 'node:fs';
@@ -119,7 +120,7 @@ export function sensitivityText(table: SweepTable, found: Sensitivity[]): string
   const rows = [
     ['lap time, s', ...found.map((s) => perUnit(s.lapTimeSPerUnit))],
     ...table.meta.corners.map((corner, c) => [
-      `c${corner.corner} braking point, m`,
+      `${zoneLabel(corner)} braking point, m`,
       ...found.map((s) => perUnit(s.brakingPointMPerUnit[c] ?? null)),
     ]),
     ['difference step ±', ...found.map((s) => `${s.stepUsed}${s.scheme === 'central' ? '' : ` (${s.scheme})`}`)],
@@ -152,7 +153,7 @@ function summaryText(table: SweepTable, found: Sensitivity[], complete: boolean,
   if (!out && sweepRuns.length <= 40 && sweepRuns.length > 0) {
     lines.push(
       formatTable(
-        ['run', ...meta.fields, 'lap s', ...meta.corners.map((c) => `c${c.corner} brake m`)],
+        ['run', ...meta.fields, 'lap s', ...meta.corners.map((c) => `${c.tag} brake m`)],
         sweepRuns.map((r) => [
           String(r.run),
           ...r.values.map(String),

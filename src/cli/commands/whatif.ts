@@ -1,6 +1,7 @@
 // `reflap whatif`: one setup change against the baseline: the lap time change and, corner by corner, how
 // far the braking point moves and what the entry speed, slowest speed and zone time do.
 
+import { zoneLabel } from '../../track/corner-layout.js';
 import type { Command } from 'commander';
 import {
   addCarOptions,
@@ -76,6 +77,8 @@ export function whatifJson(comparison: LapComparison, changes: { field: string; 
     lapTimeDeltaS: round(comparison.lapTimeDeltaS, 4),
     brakingZones: comparison.zones.map((zone) => ({
       corner: zone.corner,
+      tag: zone.tag,
+      cornerName: zone.cornerName,
       startM: round(zone.startM, 2),
       minSpeedAtM: round(zone.minSpeedAtM, 2),
       brakingPointM: round(zone.brakingPointM, 2),
@@ -84,6 +87,9 @@ export function whatifJson(comparison: LapComparison, changes: { field: string; 
       entrySpeedDeltaKph: r(zone.entrySpeedDeltaKph, 2),
       minSpeedDeltaKph: r(zone.minSpeedDeltaKph, 2),
       zoneTimeDeltaS: r(zone.zoneTimeDeltaS, 4),
+      turnInM: r(zone.turnInM, 2),
+      beforeTurnInM: r(zone.beforeTurnInM, 2),
+      changedBeforeTurnInM: r(zone.changedBeforeTurnInM, 2),
     })),
     newBrakingZones: comparison.newZones.map((zone) => ({
       startM: round(zone.startM, 2),
@@ -102,9 +108,10 @@ export function whatifText(comparison: LapComparison, described: string[], track
           ? '0.0'
           : `${signed(shift, 1)} ${shift < 0 ? 'earlier' : 'later'}`;
     return [
-      `c${zone.corner}`,
+      zoneLabel({ tag: zone.tag, name: zone.cornerName }),
       zone.minSpeedAtM.toFixed(0),
       zone.brakingPointM.toFixed(1),
+      zone.beforeTurnInM === null ? '' : zone.beforeTurnInM.toFixed(1),
       moved,
       zone.entrySpeedDeltaKph === null ? '' : signed(zone.entrySpeedDeltaKph, 1),
       zone.minSpeedDeltaKph === null ? '' : signed(zone.minSpeedDeltaKph, 1),
@@ -117,7 +124,16 @@ export function whatifText(comparison: LapComparison, described: string[], track
     `Lap time  ${formatLapTime(comparison.baselineLapTimeS)} -> ${formatLapTime(comparison.changedLapTimeS)}  (${signed(comparison.lapTimeDeltaS, 3)} s)`,
     '',
     formatTable(
-      ['corner', 'slowest at m', 'brake at m', 'braking point m', 'entry km/h', 'slowest km/h', 'zone time s'],
+      [
+        'corner',
+        'slowest at m',
+        'brake at m',
+        'before turn-in m',
+        'braking point m',
+        'entry km/h',
+        'slowest km/h',
+        'zone time s',
+      ],
       rows,
     ),
   ];

@@ -67,19 +67,14 @@ function requireLength(name: string, values: ArrayLike<number> | null, count: nu
     throw new Error(`lap report: ${name} has ${values.length} samples but the track grid has ${count}`);
 }
 
-/** Braking zones as corners for a page without a driver: from the brake point to full throttle again. */
+/** The track's corners for a page without a driver, each from the brake point that serves it (else its turn-in)
+ * to its exit, so a corner without braking keeps its number. */
 function referenceCorners(result: LapResult): ReportCorner[] {
-  const { trace, track } = result;
-  const zones = result.brakingZones;
-  return zones.map((zone, index) => {
-    const nextStart = index + 1 < zones.length ? zones[index + 1]!.startIndex : trace.count - 1;
-    let exitIndex = zone.minSpeedIndex;
-    while (exitIndex < nextStart && exitIndex < trace.count - 1 && trace.throttle[exitIndex]! < 0.99) exitIndex++;
-    const entryM = trace.stationM[zone.startIndex]!;
-    const apexM = trace.stationM[zone.minSpeedIndex]!;
-    const exitM = trace.stationM[exitIndex]!;
-    const named = track.corners.find((corner) => corner.atM >= entryM && corner.atM <= Math.max(exitM, apexM));
-    return { id: index + 1, name: named?.name ?? null, entryM, apexM, exitM };
+  return result.corners.corners.map((corner) => {
+    let entryM = corner.entryM;
+    for (const zone of result.brakingZones)
+      if (zone.corner === corner.id && zone.startM < entryM && zone.startM <= corner.apexM) entryM = zone.startM;
+    return { id: corner.id, name: corner.name, entryM, apexM: corner.apexM, exitM: corner.exitM };
   });
 }
 

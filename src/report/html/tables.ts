@@ -58,7 +58,7 @@ export function summaryHtml(model: ReportModel): string {
   return `<section class="summary" aria-label="Lap summary">${tiles.join('')}</section>`;
 }
 
-function cornerCell(id: number, name: string | null): string {
+function cornerCell(id: number | string, name: string | null): string {
   return `<td class="corner-id"><span class="badge">${id}</span>${name ? ` ${escapeHtml(name)}` : ''}</td>`;
 }
 
@@ -97,19 +97,19 @@ export function cornerTableHtml(model: ReportModel): string {
 
 function brakingZoneTableHtml(model: ReportModel): string {
   const zones = model.input.reference.brakingZones;
-  const rows = model.corners
-    .map((corner, index) => {
-      const zone = zones[index]!;
+  const rows = zones
+    .map((zone) => {
+      const before = zone.beforeTurnInM === null ? '' : fixed(zone.beforeTurnInM, 0);
       return (
-        `<tr class="corner-row" data-corner="${corner.id}" tabindex="0">${cornerCell(corner.id, corner.name)}` +
-        `<td>${fixed(zone.startM, 0)}</td><td>${fixed(mpsToKph(zone.entrySpeedMps), 1)}</td><td>${fixed(zone.brakingLengthM, 0)}</td>` +
-        `<td>${fixed(zone.minSpeedAtM, 0)}</td><td>${fixed(mpsToKph(zone.minSpeedMps), 1)}</td><td>${fixed(corner.exitM, 0)}</td></tr>`
+        `<tr class="corner-row" data-corner="${zone.corner}" tabindex="0">${cornerCell(zone.tag, zone.cornerName)}` +
+        `<td>${fixed(zone.startM, 0)}</td><td>${before}</td><td>${fixed(mpsToKph(zone.entrySpeedMps), 1)}</td><td>${fixed(zone.brakingLengthM, 0)}</td>` +
+        `<td>${fixed(zone.minSpeedAtM, 0)}</td><td>${fixed(mpsToKph(zone.minSpeedMps), 1)}</td></tr>`
       );
     })
     .join('');
   return (
     `<section class="corners"><h2>Braking zones of the reference</h2><p class="hint">Click a row to zoom every chart to that zone.</p>` +
-    `<div class="table-wrap"><table><thead><tr><th>zone</th><th>brakes at, m</th><th>entry, km/h</th><th>braking, m</th><th>slowest at, m</th><th>slowest, km/h</th><th>full throttle at, m</th></tr></thead>` +
+    `<div class="table-wrap"><table><thead><tr><th>corner</th><th>brakes at, m</th><th>before turn-in, m</th><th>entry, km/h</th><th>braking, m</th><th>slowest at, m</th><th>slowest, km/h</th></tr></thead>` +
     `<tbody>${rows}</tbody></table></div></section>`
   );
 }

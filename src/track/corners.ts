@@ -2,8 +2,8 @@
 // curvature rises clearly above a straight's, with entry and exit where it crosses a share of its peak and the
 // apex at the middle of the tightest part (the geometric apex). Numbered in running order from the start line.
 
-import type { NamedCorner, TrackGrid } from '../track/types.js';
-import { movingAverage } from './derive.js';
+import type { NamedCorner, TrackGrid } from './types.js';
+import { movingAverage } from '../numeric/moving-average.js';
 import { degToRad } from '../units.js';
 
 export interface CornerDetectionOptions {
@@ -50,6 +50,16 @@ export interface CornerSpan {
   apexM: number;
   exitM: number;
   peakCurvaturePerM: number;
+  /** Tightest radius of the corner, m (1 / peak curvature). */
+  radiusM: number;
+  /** A place the user names before the corner (a braking board), which braking points are also measured from. */
+  marker: CornerMarker | null;
+}
+
+export interface CornerMarker {
+  name: string;
+  /** Station of the marker on the lap, m. */
+  atM: number;
 }
 
 const wrap = (k: number, n: number) => ((k % n) + n) % n;
@@ -139,6 +149,8 @@ export function detectCorners(
       apexM: apex * step,
       exitM: wrap(exitU, n) * step,
       peakCurvaturePerM: peak,
+      radiusM: 1 / peak,
+      marker: null,
     });
   }
   corners.sort((a, b) => a.apexIndex - b.apexIndex);
@@ -163,6 +175,8 @@ function wholeLapCorner(track: TrackGrid, kappa: Float64Array): CornerSpan {
     apexM: apex * track.stepM,
     exitM: (n - 1) * track.stepM,
     peakCurvaturePerM: peak,
+    radiusM: peak > 0 ? 1 / peak : Infinity,
+    marker: null,
   };
 }
 
