@@ -21,18 +21,9 @@ import { compareSession } from '../src/compare/compare-session.js';
 import { uncertainComparison } from '../src/uncertainty/uncertain-reference.js';
 import { benchmarkCircuitSegments } from './simulate.bench.js';
 import { writeSession } from './telemetry.bench.js';
-import { median, peakRssMb } from './stats.js';
+import { machineLoad, median, peakRssMb, timeOnce, verdict } from './stats.js';
 
 const projectRoot = fileURLToPath(new URL('../..', import.meta.url));
-
-function timed<T>(work: () => Promise<T>): Promise<{ value: T; wallMs: number; cpuMs: number }> {
-  const cpu0 = process.cpuUsage();
-  const t0 = performance.now();
-  return work().then((value) => {
-    const used = process.cpuUsage(cpu0);
-    return { value, wallMs: performance.now() - t0, cpuMs: (used.user + used.system) / 1000 };
-  });
-}
 
 async function calibrateBench(dir: string): Promise<void> {
   const file = path.join(dir, 'session-1h-100hz.csv');
@@ -50,7 +41,7 @@ async function calibrateBench(dir: string): Promise<void> {
   const fit: number[] = [];
   let summary = '';
   for (let run = 0; run < 3; run++) {
-    const measured = await timed(async () => {
+    const measured = await timeOnce(async () => {
       const session = await readTelemetryFile(file, { columns: {} });
       const t0 = performance.now();
       const result = calibrateCar(guess, ambient, calibrationSamples(session, null));
@@ -63,8 +54,10 @@ async function calibrateBench(dir: string): Promise<void> {
   }
   process.stdout.write(`calibrate: ${rows} rows at 100 Hz; ${summary}\n`);
   process.stdout.write(
-    `  read + fit: median ${median(wall).toFixed(0)} ms wall, ${median(cpu).toFixed(0)} ms CPU (target under 5000 ms); the fit alone ${median(fit).toFixed(0)} ms\n`,
+    `  read + fit: median ${median(wall).toFixed(0)} ms wall, ${median(cpu).toFixed(0)} ms CPU; the fit alone ${median(fit).toFixed(0)} ms wall\n`,
   );
+  // Issue 15's target, one thread: on an idle machine its wall time is its CPU time.
+  process.stdout.write(`  ${verdict('CPU', median(cpu), 5000, 'ms')}; ${verdict('wall', median(wall), 5000, 'ms')}\n`);
 }
 
 async function uncertaintyBench(dir: string): Promise<void> {
@@ -105,7 +98,7 @@ async function uncertaintyBench(dir: string): Promise<void> {
   const cpu: number[] = [];
   let summary = '';
   for (let run = 0; run < 3; run++) {
-    const measured = await timed(async () => {
+    const measured = await timeOnce(async () => {
       const session = await readTelemetryFile(log, { columns: {} });
       const comparison = compareSession(track, uncertain, session, { ambient });
       return uncertainComparison(comparison, uncertain, ambient, { draws: 64, workers: 2 });
@@ -117,7 +110,12 @@ async function uncertaintyBench(dir: string): Promise<void> {
   }
   process.stdout.write(`compare --uncertainty 64 on ${(track.lengthM / 1000).toFixed(2)} km: ${summary}\n`);
   process.stdout.write(
-    `  read + compare + 64 draws on 2 workers: median ${median(wall).toFixed(0)} ms wall, ${median(cpu).toFixed(0)} ms CPU (target under 3000 ms)\n`,
+    `  read + compare + 64 draws on 2 workers: median ${median(wall).toFixed(0)} ms wall, ${median(cpu).toFixed(0)} ms CPU\n`,
+  );
+  // Issue 15's target is wall time on two cores; the CPU of the process and its two workers, spread over those two
+  // cores, is what that wall time comes to on an idle machine.
+  process.stdout.write(
+    `  ${verdict('CPU over 2 cores', median(cpu) / 2, 3000, 'ms')}; ${verdict('wall', median(wall), 3000, 'ms')}\n`,
   );
 }
 
@@ -127,7 +125,7 @@ export async function run(): Promise<void> {
     await calibrateBench(dir);
     await uncertaintyBench(dir);
     process.stdout.write(
-      `  load average ${os.loadavg()[0]!.toFixed(1)} on ${os.cpus().length} cores (a shared machine: wall times hold only when it is idle); peak RSS ${peakRssMb().toFixed(0)} MB\n`,
+      `  ${machineLoad()} (a shared machine: wall times hold only when it is idle); peak RSS ${peakRssMb().toFixed(0)} MB\n`,
     );
   } finally {
     rmSync(dir, { recursive: true, force: true });
