@@ -29,6 +29,8 @@ export interface DemonstratedEnvelopeRecord {
   /** Coasting deceleration c0 + c2 v^2, m/s^2; `fitted` says whether it came from coasting samples. */
   coast: { constantMps2: number; quadraticPerM: number; fitted: boolean };
   bands: EnvelopeBand[];
+  /** Where the fit fell back to the car model (thin data), one line each. */
+  notes?: string[];
 }
 
 const ELLIPSE = 2;

@@ -14,6 +14,10 @@ import { selectLap } from './align.js';
 import { compareLaps } from './compare-laps.js';
 import type { CompareOptions } from './compare-options.js';
 import { fitEnvelope, EnvelopeFitError, type EnvelopeSamples } from './envelope-fit.js';
+import { deriveSessionAccelerations, derivationNote } from './derive-session.js';
+import type { LapCut } from './laps.js';
+import { alignLap } from './align.js';
+import { honestyChecks } from './envelope-honesty.js';
 
 export interface CompareSessionOptions {
   ambient: Ambient;
@@ -40,32 +44,72 @@ export interface SessionComparison {
   notes: string[];
 }
 
-/** Samples for the envelope fit: the session's own channels when it logged both accelerations, else the aligned lap. */
-export function envelopeSamplesOf(session: TelemetrySession, lap: DriverLap): EnvelopeSamples {
+/**
+ * Samples for the envelope fit from every complete lap of the session: the session's own samples inside those laps
+ * where it has both accelerations (logged or derived from GPS), else each lap aligned onto the track's grid.
+ */
+export function envelopeSamplesOf(session: TelemetrySession, laps: LapCut[], track: TrackGrid): EnvelopeSamples {
+  const complete = laps.filter((lap) => lap.complete && lap.startTimeS !== undefined && lap.endTimeS !== undefined);
   if (session.speedMps && session.axMps2 && session.ayMps2) {
+    const inLap = new Uint8Array(session.count);
+    for (const lap of complete) {
+      for (let i = lap.startIndex; i <= lap.endIndex; i++) {
+        const t = session.timeS[i]!;
+        if (t >= lap.startTimeS! && t <= lap.endTimeS!) inLap[i] = 1;
+      }
+    }
+    const pick = (values: Float64Array | null) => (values ? values.filter((_, i) => inLap[i] === 1) : null);
     return {
-      speedMps: session.speedMps,
-      axMps2: session.axMps2,
-      ayMps2: session.ayMps2,
-      throttle: session.throttle,
-      brake: session.brake,
+      speedMps: pick(session.speedMps)!,
+      axMps2: pick(session.axMps2)!,
+      ayMps2: pick(session.ayMps2)!,
+      throttle: pick(session.throttle),
+      brake: pick(session.brake),
     };
   }
-  return { speedMps: lap.speedMps, axMps2: lap.axMps2, ayMps2: lap.ayMps2, throttle: lap.throttle, brake: lap.brake };
+  const aligned = complete.map((lap) => alignLap(session, lap, track));
+  const join = (pick: (lap: DriverLap) => Float64Array | null) => {
+    const parts = aligned.map(pick);
+    if (parts.some((part) => part === null)) return null;
+    const out = new Float64Array(parts.reduce((sum, part) => sum + part!.length, 0));
+    let at = 0;
+    for (const part of parts) {
+      out.set(part!, at);
+      at += part!.length;
+    }
+    return out;
+  };
+  return {
+    speedMps: join((lap) => lap.speedMps)!,
+    axMps2: join((lap) => lap.axMps2)!,
+    ayMps2: join((lap) => lap.ayMps2)!,
+    throttle: join((lap) => lap.throttle),
+    brake: join((lap) => lap.brake),
+  };
 }
 
 export function compareSession(
   track: TrackGrid,
   car: Car,
-  session: TelemetrySession,
+  loggedSession: TelemetrySession,
   options: CompareSessionOptions,
 ): SessionComparison {
+  // One derivation of a GPS-only log's accelerations, for the lap, the envelope fit and the report alike.
+  const derivation = deriveSessionAccelerations(loggedSession);
+  const session = derivation.session;
   const selected = selectLap(session, track, {
     ...(options.lap !== undefined ? { lap: options.lap } : {}),
     ...(options.startFinish ? { startFinish: options.startFinish } : {}),
   });
   const notes = [...selected.notes];
   const lap = selected.lap;
+  const quality = derivation.quality;
+  if (quality) {
+    for (const channel of derivation.derived)
+      if (!lap.derivedChannels.includes(channel)) lap.derivedChannels.push(channel);
+    notes.push(derivationNote(quality, derivation.derived));
+  }
+  const untrusted = quality !== null && quality.problems.length > 0;
   const drive = {
     ambient: options.ambient,
     ...(options.path ? { path: options.path } : {}),
@@ -74,16 +118,40 @@ export function compareSession(
   const carEnvelope = buildEnvelope(car, options.ambient);
   const carModelLap = simulate(track, car, { ...drive, envelope: carEnvelope });
   let record = options.envelopeRecord ?? null;
-  if (!record) {
+  if (!record && untrusted) {
+    notes.push(
+      `no demonstrated envelope: the derived accelerations cannot be trusted (${quality.problems.join('; ')})`,
+    );
+  } else if (!record) {
     try {
-      record = fitEnvelope(envelopeSamplesOf(session, lap), session.source);
+      record = fitEnvelope(envelopeSamplesOf(session, selected.laps, track), session.source, undefined, carEnvelope);
+      notes.push(...(record.notes ?? []));
     } catch (error) {
       if (!(error instanceof EnvelopeFitError)) throw error;
       notes.push(`no demonstrated envelope: ${error.message}`);
     }
   }
-  const demoEnvelope = record ? demonstratedEnvelope(record) : null;
-  const demonstratedLap = demoEnvelope ? simulate(track, car, { ...drive, envelope: demoEnvelope }) : null;
+  let demoEnvelope = record ? demonstratedEnvelope(record) : null;
+  let demonstratedLap = demoEnvelope ? simulate(track, car, { ...drive, envelope: demoEnvelope }) : null;
+  let caveat: string | null = null;
+  if (record && demonstratedLap && !options.envelopeRecord) {
+    const checked = honestyChecks({
+      track,
+      car,
+      drive,
+      record,
+      demonstratedLap,
+      driverLap: lap,
+      carEnvelope,
+      carModelLap,
+      derivedAccelerations: quality !== null,
+    });
+    record = checked.record;
+    demoEnvelope = checked.envelope;
+    demonstratedLap = checked.demonstratedLap;
+    caveat = checked.caveat;
+    notes.push(...checked.notes);
+  }
   const useDemonstrated = Boolean(options.envelopeRecord && demoEnvelope && demonstratedLap);
   const reference = useDemonstrated ? demonstratedLap! : carModelLap;
   const envelope = useDemonstrated ? demoEnvelope! : carEnvelope;
@@ -93,6 +161,7 @@ export function compareSession(
     carModelLapTimeS: carModelLap.lapTimeS,
     referenceEnvelopeKind: useDemonstrated ? 'demonstrated' : `car model (${carEnvelope.kind})`,
   });
+  if (caveat) result.demonstratedCaveat = caveat;
   result.notes.unshift(...notes);
   return {
     result,

@@ -1,8 +1,11 @@
 // The g-g-v envelope a driver has already shown: per speed band, a high quantile (default the 98th percentile,
 // robust against single spikes) of the combined acceleration in each of four directions (braking, accelerating,
 // left, right: each sample counts for the sector its combined vector points into, by its component along that axis), and the coasting deceleration fitted as c0 + c2 v^2 by least squares where the log has pedals.
+// Where a cell is thin even after borrowing from the next band, the car model's figure fills it, with a note.
 
 import type { DemonstratedEnvelopeRecord, EnvelopeBand } from '../car/demonstrated-envelope.js';
+import type { Envelope } from '../car/envelope.js';
+import { mpsToKph } from '../units.js';
 
 export type { DemonstratedEnvelopeRecord, EnvelopeBand };
 export type EnvelopeDirection = 'brake' | 'accel' | 'left' | 'right';
@@ -55,10 +58,24 @@ export function quantileSorted(sorted: Float64Array, q: number): number {
 
 export class EnvelopeFitError extends Error {}
 
+/** Car model's limit in one direction at a speed: what a thin cell falls back to. */
+function modelLimitMps2(model: Envelope, direction: number, speedMps: number): number {
+  if (direction === 0) return model.brakeLimitMps2(speedMps, 0);
+  if (direction === 1) return model.accelLimitMps2(speedMps, 0);
+  return model.lateralLimitMps2(speedMps, direction === 2 ? 1 : -1);
+}
+
+const DIRECTION_WORDS = ['braking', 'acceleration', 'left turns', 'right turns'];
+
+/**
+ * `carModel`: the envelope a thin cell falls back to (a cell with too few samples in its own band and the next
+ * ones); without it, thin cells pool ever further bands, and a direction with too few samples in all is an error.
+ */
 export function fitEnvelope(
   samples: EnvelopeSamples,
   source: string,
   options: EnvelopeFitOptions = DEFAULT_ENVELOPE_FIT,
+  carModel: Envelope | null = null,
 ): DemonstratedEnvelopeRecord {
   const { speedMps, axMps2, ayMps2 } = samples;
   const n = speedMps.length;
@@ -93,14 +110,33 @@ export function fitEnvelope(
     counts[band]!++;
   }
   const sortedCells = cells.map((band) => band.map((values) => Float64Array.from(values).sort()));
+  const totals = DIRECTIONS.map((_, d) => sortedCells.reduce((sum, band) => sum + band[d]!.length, 0));
+  if (!carModel) {
+    for (const [d, total] of totals.entries()) {
+      if (total < options.minSamples)
+        throw new EnvelopeFitError(
+          `only ${total} samples of ${DIRECTION_WORDS[d]}; at least ${options.minSamples} are needed (or give the car, whose model fills thin parts)`,
+        );
+    }
+  }
   const bands: EnvelopeBand[] = [];
+  const fromModel: string[][] = DIRECTIONS.map(() => []);
   for (let b = 0; b < bandCount; b++) {
     if (counts[b]! === 0) continue;
-    const limit = DIRECTIONS.map((_, d) => pooledQuantile(sortedCells, b, d, options));
+    const speedMps = (b + 0.5) * options.bandWidthMps;
+    const reach = carModel ? 1 : cells.length;
+    const limit = DIRECTIONS.map((_, d) => pooledQuantile(sortedCells, b, d, options, reach));
     // A side short of samples in this band borrows the other side's figure before the neighbouring bands'.
     const own = (d: number) => sortedCells[b]![d]!.length >= options.minSamples;
     if (!own(2) && own(3)) limit[2] = limit[3]!;
     if (!own(3) && own(2)) limit[3] = limit[2]!;
+    if (carModel) {
+      for (let d = 0; d < DIRECTIONS.length; d++) {
+        if (Number.isFinite(limit[d]!) && totals[d]! >= options.minSamples) continue;
+        limit[d] = modelLimitMps2(carModel, d, speedMps);
+        fromModel[d]!.push(mpsToKph(speedMps).toFixed(0));
+      }
+    }
     bands.push({
       speedMps: (b + 0.5) * options.bandWidthMps,
       samples: counts[b]!,
@@ -110,13 +146,13 @@ export function fitEnvelope(
       rightMps2: limit[3]!,
     });
   }
-  for (const [d, direction] of DIRECTIONS.entries()) {
-    const total = sortedCells.reduce((sum, band) => sum + band[d]!.length, 0);
-    if (total < options.minSamples)
-      throw new EnvelopeFitError(
-        `only ${total} samples of ${direction === 'accel' ? 'acceleration' : direction === 'brake' ? 'braking' : `${direction} turns`}; at least ${options.minSamples} are needed`,
-      );
-  }
+  const notes = fromModel.flatMap((speeds, d) =>
+    speeds.length > 0
+      ? [
+          `${DIRECTION_WORDS[d]} at ${speeds.length === bands.length ? 'every speed' : `${speeds.join(', ')} km/h`}: too few samples in the log, the car model's limit used`,
+        ]
+      : [],
+  );
   return {
     format: 'reflap-demonstrated-envelope',
     version: 1,
@@ -126,20 +162,29 @@ export function fitEnvelope(
     topSpeedMps,
     coast: fitCoast(samples, options.minSpeedMps),
     bands,
+    ...(notes.length > 0 ? { notes } : {}),
   };
 }
 
-/** Quantile of one cell, pooling the nearest bands on both sides while the cell is short of samples. */
-function pooledQuantile(cells: Float64Array[][], band: number, direction: number, options: EnvelopeFitOptions): number {
+/** Quantile of one cell, pooling the nearest bands (up to maxReach away) while the cell is short of samples;
+ * NaN when even the pool is short and the reach is limited. */
+function pooledQuantile(
+  cells: Float64Array[][],
+  band: number,
+  direction: number,
+  options: EnvelopeFitOptions,
+  maxReach: number,
+): number {
   const own = cells[band]![direction]!;
   if (own.length >= options.minSamples) return quantileSorted(own, options.quantile);
   const pooled: number[] = Array.from(own);
-  for (let reach = 1; reach < cells.length && pooled.length < options.minSamples; reach++) {
+  for (let reach = 1; reach <= maxReach && reach < cells.length && pooled.length < options.minSamples; reach++) {
     for (const b of [band - reach, band + reach]) {
       if (b < 0 || b >= cells.length) continue;
       for (const value of cells[b]![direction]!) pooled.push(value);
     }
   }
+  if (maxReach < cells.length && pooled.length < options.minSamples) return NaN;
   const sorted = Float64Array.from(pooled).sort();
   return sorted.length > 0 ? quantileSorted(sorted, options.quantile) : NaN;
 }

@@ -145,6 +145,8 @@ export interface ComparisonResult {
   referenceEnvelopeKind?: string;
   /** Reference lap time on the car model's envelope (the second gap, when the reference above is the demonstrated one). */
   carModelLapTimeS?: number | null;
+  /** Why the demonstrated lap above is doubtful (see the notes), when a check on it failed. */
+  demonstratedCaveat?: string;
   /** Grid step of deltaS and driverGripUse, m (station i is at i * stepM). */
   stepM?: number;
 }

@@ -29,6 +29,7 @@ const schema = z.object({
     fitted: z.boolean(),
   }),
   bands: z.array(band).min(1),
+  notes: z.array(z.string()).optional(),
 });
 
 export function parseEnvelopeJson(text: string, source: string): DemonstratedEnvelopeRecord {

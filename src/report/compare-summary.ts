@@ -26,8 +26,9 @@ function gapLines(result: ComparisonResult): string[] {
   ];
   if (result.referenceEnvelopeKind !== 'demonstrated' && result.demonstratedLapTimeS !== null) {
     const demo = result.driverLapTimeS - result.demonstratedLapTimeS;
+    const caveat = result.demonstratedCaveat ? `  [doubtful: ${result.demonstratedCaveat}; see notes]` : '';
     lines.push(
-      `With the grip already shown  ${formatLapTime(result.demonstratedLapTimeS)}  (gap ${signed(demo, 3)} s)`,
+      `With the grip already shown  ${formatLapTime(result.demonstratedLapTimeS)}  (gap ${signed(demo, 3)} s)${caveat}`,
     );
   }
   if (
@@ -120,6 +121,7 @@ export function compareSummaryJson(result: ComparisonResult) {
     referenceLapTimeS: round(result.referenceLapTimeS, 4),
     lapTimeDeltaS: round(result.driverLapTimeS - result.referenceLapTimeS, 4),
     demonstratedLapTimeS: roundOrNull(result.demonstratedLapTimeS, 4),
+    demonstratedCaveat: result.demonstratedCaveat ?? null,
     carModelLapTimeS: roundOrNull(result.carModelLapTimeS, 4),
     corners: result.corners.map((c) => ({
       id: c.id,

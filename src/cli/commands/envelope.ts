@@ -1,17 +1,23 @@
 // `reflap envelope`: the g-g-v envelope a driver has already demonstrated in a logged session, as JSON that
-// `simulate --envelope` and `compare --envelope` use in place of the car model's.
+// `simulate --envelope` and `compare --envelope` use in place of the car model's. A GPS-only log gets its
+// accelerations from the same derivation `compare` uses; with --car, the car model fills speed bands or directions
+// the log is thin in; without it, a direction with too few samples is an error that says to give the car.
 
 import type { Command } from 'commander';
 import { InputError } from '../../errors.js';
-import { inputFilesOf } from '../options.js';
+import { inputFilesOf, loadCar, type CarOptionValues } from '../options.js';
 import { writeFileAtomic } from '../output.js';
 import { loadSession, type TelemetryOptionValues } from './telemetry-options.js';
 import { fitEnvelope, EnvelopeFitError, type DemonstratedEnvelopeRecord } from '../../compare/envelope-fit.js';
 import type { TelemetrySession } from '../../compare/types.js';
+import { deriveSessionAccelerations, derivationNote } from '../../compare/derive-session.js';
+import { buildEnvelope } from '../../car/build-envelope.js';
+import { Option } from 'commander';
 import { formatTable } from '../../report/text-table.js';
 import { mpsToKph, mps2ToG } from '../../units.js';
 
-interface EnvelopeValues extends Pick<TelemetryOptionValues, 'telemetry' | 'telemetryColumns'> {
+interface EnvelopeValues
+  extends Pick<TelemetryOptionValues, 'telemetry' | 'telemetryColumns'>, Partial<CarOptionValues> {
   out?: string;
   json?: boolean;
 }
@@ -22,14 +28,26 @@ export function register(program: Command): void {
     .description(
       'fit the g-g-v envelope the driver has demonstrated in a logged session (per speed band, 98th percentile by direction)',
     )
-    .requiredOption('--telemetry <file>', 'driver log with speed and both accelerations (CSV), e.g. from a data logger')
+    .requiredOption(
+      '--telemetry <file>',
+      'driver log: speed and both accelerations, or GPS positions (and speed) from which they are derived',
+    )
     .option('--telemetry-columns <map>', 'read other column names in the log, e.g. ax_g=LongAcc,ay_g=LatAcc')
+    .option('--car <file>', "car file (JSON): its model's limits fill speed bands and directions the log is thin in")
+    .option('--air-temp-c <c>', 'air temperature for the car model, °C (default 15, ISA sea level)')
+    .option('--pressure-hpa <p>', 'air pressure for the car model, hPa (default 1013.25, ISA sea level)')
+    .addOption(
+      new Option('--model <kind>', "vehicle model for the car's envelope (default: the car file's)").choices([
+        'point-mass',
+        'bicycle',
+      ]),
+    )
     .option('--out <file>', 'write the envelope as JSON (default: print it)')
     .option('--json', 'print the envelope JSON even when --out is given')
     .action((values: EnvelopeValues) => runEnvelope(values));
 }
 
-/** Samples of the session for the fit; the log must carry speed and both accelerations. */
+/** Samples of the session for the fit; the log must carry speed and both accelerations (logged or derived). */
 export function sessionSamples(session: TelemetrySession) {
   const missing = [
     !session.speedMps && 'speed',
@@ -38,7 +56,7 @@ export function sessionSamples(session: TelemetrySession) {
   ].filter(Boolean);
   if (missing.length > 0) {
     throw new InputError(
-      `${session.source}: fitting an envelope needs ${missing.join(', ')} channels; the log has none (map them with --telemetry-columns)`,
+      `${session.source}: fitting an envelope needs ${missing.join(', ')} channels, or positions to derive them from; the log has neither (map them with --telemetry-columns)`,
     );
   }
   return {
@@ -50,7 +68,7 @@ export function sessionSamples(session: TelemetrySession) {
   };
 }
 
-export function envelopeText(record: DemonstratedEnvelopeRecord): string {
+export function envelopeText(record: DemonstratedEnvelopeRecord, notes: string[] = []): string {
   const rows = record.bands.map((band) => [
     mpsToKph(band.speedMps).toFixed(0),
     String(band.samples),
@@ -64,15 +82,32 @@ export function envelopeText(record: DemonstratedEnvelopeRecord): string {
       `Demonstrated envelope from ${record.source} (${(record.quantile * 100).toFixed(0)}th percentile per ${mpsToKph(record.bandWidthMps).toFixed(0)} km/h band, in g)`,
       formatTable(['km/h', 'samples', 'braking', 'accel', 'left', 'right'], rows),
       `Top speed reached ${mpsToKph(record.topSpeedMps).toFixed(1)} km/h; coasting ${record.coast.fitted ? 'fitted from the log' : 'assumed (the log has no coasting with pedal channels)'}.`,
+      ...[...notes, ...(record.notes ?? [])].map((note) => `Note: ${note}`),
     ].join('\n') + '\n'
   );
 }
 
 export async function runEnvelope(values: EnvelopeValues): Promise<void> {
-  const session = await loadSession(values);
+  const logged = await loadSession(values);
+  const carModel = values.car
+    ? (() => {
+        const { car, ambient } = loadCar(values as CarOptionValues);
+        return buildEnvelope(car, ambient);
+      })()
+    : null;
+  const derivation = deriveSessionAccelerations(logged);
+  const session = derivation.session;
+  const notes: string[] = [];
+  if (derivation.quality) {
+    notes.push(derivationNote(derivation.quality, derivation.derived));
+    if (derivation.quality.problems.length > 0)
+      throw new InputError(
+        `${session.source}: the derived accelerations cannot be trusted: ${derivation.quality.problems.join('; ')}`,
+      );
+  }
   let record: DemonstratedEnvelopeRecord;
   try {
-    record = fitEnvelope(sessionSamples(session), session.source);
+    record = fitEnvelope(sessionSamples(session), session.source, undefined, carModel);
   } catch (error) {
     if (error instanceof EnvelopeFitError) throw new InputError(`${session.source}: ${error.message}`);
     throw error;
@@ -80,5 +115,6 @@ export async function runEnvelope(values: EnvelopeValues): Promise<void> {
   const json = JSON.stringify(record, null, 2) + '\n';
   if (values.out) writeFileAtomic(values.out, json, inputFilesOf(values));
   if (values.json || !values.out) process.stdout.write(json);
-  else process.stdout.write(envelopeText(record) + `Envelope written to ${values.out}\n`);
+  else process.stdout.write(envelopeText(record, notes) + `Envelope written to ${values.out}\n`);
+  if (values.json || !values.out) for (const note of notes) process.stderr.write(`Note: ${note}\n`);
 }

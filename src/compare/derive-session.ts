@@ -1,0 +1,297 @@
+// Accelerations of a log that has positions (and perhaps speed) but no accelerometer: one derivation for the whole
+// session, which `compare`, `envelope` and the report all read. The irregular samples are first interpolated
+// linearly onto a uniform time grid (one per stretch between gaps, at the log's mean interval), then differentiated
+// with Savitzky-Golay filters (src/numeric/savitzky-golay.ts). The window follows from the log's rate and its
+// measured noise: the smallest window whose predicted output noise, sigma * sqrt(sum w_k^2) / dt^d (the variance
+// of a linear least-squares estimate, Savitzky and Golay 1964), is at most the target below. The noise itself is
+// measured as the residual of a short cubic fit, corrected by the fit's own leverage: E[r^2] = sigma^2 (1 - w_0).
+
+import { savitzkyGolayFilter, applySavitzkyGolay, savitzkyGolayCutoffShare } from '../numeric/savitzky-golay.js';
+import type { TelemetrySession } from './types.js';
+import { medianOf } from './median.js';
+
+export interface DeriveOptions {
+  /** Largest standard deviation of a derived acceleration the window may leave, m/s^2. */
+  targetNoiseMps2: number;
+  /** Shortest and longest half-window, s: the longest is about half a corner, beyond which corners blur away. */
+  minHalfWindowS: number;
+  maxHalfWindowS: number;
+  /** Fewer samples per second than this cannot resolve a corner's acceleration. */
+  minRateHz: number;
+  /** A gap in moving data longer than this hides a whole corner, s. */
+  maxGapS: number;
+}
+
+/** Target 0.15 m/s^2 (about 0.015 g): a high quantile of noisy samples overstates the limit by up to about twice
+ * the noise, so this keeps the envelope fit within about 3 % of a 1 g limit (our own choice); a log whose noise
+ * stays above twice the target over the longest window is not trusted. Half-windows 0.25-2.5 s and the gap limit of 2 s: a
+ * corner takes a few seconds at club speeds (from memory); 5 Hz gives about ten samples over a short corner. */
+export const DEFAULT_DERIVE: DeriveOptions = {
+  targetNoiseMps2: 0.15,
+  minHalfWindowS: 0.25,
+  maxHalfWindowS: 2.5,
+  minRateHz: 5,
+  maxGapS: 2,
+};
+
+/** What the derivation found and chose, for the notes and the docs' worked numbers. */
+export interface DerivationQuality {
+  meanRateHz: number;
+  /** Longest interval between samples while moving, s, and the session time where it starts. */
+  longestGapS: number;
+  longestGapAtS: number;
+  positionNoiseM: number;
+  speedNoiseMps: number | null;
+  /** Half-windows of the lateral (positions) and longitudinal (speed, or positions) filters, s. */
+  lateralHalfWindowS: number;
+  longitudinalHalfWindowS: number;
+  /** Approximate -3 dB cut-off of the lateral filter, Hz (Schafer 2011). */
+  lateralCutoffHz: number;
+  /** Predicted standard deviation of the derived accelerations, m/s^2. */
+  lateralNoiseMps2: number;
+  longitudinalNoiseMps2: number;
+  /** Problems that make the derived accelerations untrustworthy, one line each; empty when they can be trusted. */
+  problems: string[];
+}
+
+export interface DerivedSession {
+  session: TelemetrySession;
+  /** Channels this derivation filled in. */
+  derived: string[];
+  /** Null when nothing was derived here (the log has both accelerations, or no positions). */
+  quality: DerivationQuality | null;
+}
+
+const POSITION_ORDER = 3;
+const SPEED_ORDER = 2;
+/** Below this speed the heading of the path is not defined well enough for a lateral acceleration, m/s. */
+const MIN_HEADING_SPEED_MPS = 3;
+const MOVING_SPEED_MPS = 5;
+
+export function deriveSessionAccelerations(
+  session: TelemetrySession,
+  options: DeriveOptions = DEFAULT_DERIVE,
+): DerivedSession {
+  const { xM, yM } = session;
+  if ((session.axMps2 && session.ayMps2) || !xM || !yM || session.count < 8) {
+    return { session, derived: [], quality: null };
+  }
+  const t = session.timeS;
+  const n = session.count;
+  const intervals = new Float64Array(n - 1);
+  for (let i = 1; i < n; i++) intervals[i - 1] = t[i]! - t[i - 1]!;
+  const medianIntervalS = medianOf(intervals);
+  // Stretches between gaps are gridded separately: interpolating across a gap would invent a straight line.
+  const splitS = Math.max(0.5, 5 * medianIntervalS);
+  const runs: { from: number; to: number }[] = [];
+  let from = 0;
+  let longestGapS = 0;
+  let longestGapAtS = t[0]!;
+  let covered = 0;
+  for (let i = 1; i <= n; i++) {
+    const gap = i < n ? t[i]! - t[i - 1]! : Infinity;
+    if (i < n && gap > longestGapS) {
+      const movedMps = Math.hypot(xM[i]! - xM[i - 1]!, yM[i]! - yM[i - 1]!) / gap;
+      if (movedMps >= MOVING_SPEED_MPS) {
+        longestGapS = gap;
+        longestGapAtS = t[i - 1]!;
+      }
+    }
+    if (gap > splitS) {
+      runs.push({ from, to: i - 1 });
+      covered += t[i - 1]! - t[from]!;
+      from = i;
+    }
+  }
+  const stepS = covered > 0 ? covered / Math.max(1, n - runs.length) : medianIntervalS;
+  const grids = runs.map((run) => uniformRun(session, run.from, run.to, stepS));
+
+  const positionNoiseM = pooledNoise(grids, (g) => [g.x, g.y], stepS);
+  const speedNoiseMps = session.speedMps ? pooledNoise(grids, (g) => [g.v!], stepS) : null;
+  const minHalf = Math.max(2, Math.round(options.minHalfWindowS / stepS));
+  const maxHalf = Math.max(minHalf, Math.round(options.maxHalfWindowS / stepS));
+  const lateral = chooseHalfWidth(positionNoiseM, stepS, 2, minHalf, maxHalf, options.targetNoiseMps2);
+  const longitudinal =
+    speedNoiseMps !== null
+      ? chooseHalfWidth(speedNoiseMps, stepS, 1, minHalf, maxHalf, options.targetNoiseMps2)
+      : lateral;
+
+  const problems: string[] = [];
+  const meanRateHz = 1 / stepS;
+  if (meanRateHz < options.minRateHz)
+    problems.push(
+      `${meanRateHz.toFixed(1)} samples per second is too few to derive accelerations (at least ${options.minRateHz} are needed)`,
+    );
+  if (longestGapS > options.maxGapS)
+    problems.push(
+      `a ${longestGapS.toFixed(1)} s gap in the log at ${longestGapAtS.toFixed(1)} s is longer than a corner (${options.maxGapS} s)`,
+    );
+  if (lateral.noiseMps2 > 2 * options.targetNoiseMps2)
+    problems.push(
+      `position noise of ${positionNoiseM.toFixed(2)} m at ${meanRateHz.toFixed(0)} Hz leaves ${lateral.noiseMps2.toFixed(2)} m/s^2 of noise in the lateral acceleration even over a ${(2 * options.maxHalfWindowS).toFixed(0)} s window`,
+    );
+
+  const positionSmooth = savitzkyGolayFilter(lateral.halfWidth, POSITION_ORDER, 1);
+  const positionCurve = savitzkyGolayFilter(lateral.halfWidth, POSITION_ORDER, 2);
+  const speedSlope = speedNoiseMps !== null ? savitzkyGolayFilter(longitudinal.halfWidth, SPEED_ORDER, 1) : null;
+  const speedOut = session.speedMps ? session.speedMps : new Float64Array(n);
+  const axOut = new Float64Array(n);
+  const ayOut = new Float64Array(n);
+  for (const [r, grid] of grids.entries()) {
+    const count = grid.x.length;
+    const vx = applySavitzkyGolay(positionSmooth, grid.x, stepS);
+    const vy = applySavitzkyGolay(positionSmooth, grid.y, stepS);
+    const axWorld = applySavitzkyGolay(positionCurve, grid.x, stepS);
+    const ayWorld = applySavitzkyGolay(positionCurve, grid.y, stepS);
+    const dvdt = speedSlope && grid.v ? applySavitzkyGolay(speedSlope, grid.v, stepS) : null;
+    const speed = new Float64Array(count);
+    const along = new Float64Array(count);
+    const across = new Float64Array(count);
+    for (let k = 0; k < count; k++) {
+      const pathSpeed = Math.hypot(vx[k]!, vy[k]!);
+      const v = grid.v ? Math.max(0, grid.v[k]!) : pathSpeed;
+      speed[k] = v;
+      if (pathSpeed < MIN_HEADING_SPEED_MPS) {
+        along[k] = dvdt ? dvdt[k]! : 0;
+        continue;
+      }
+      // Tangential and normal parts of the acceleration vector; with a speed channel the normal part is
+      // v^2 times the path's curvature (the Doppler speed is far less noisy than the positions' own).
+      const cross = vx[k]! * ayWorld[k]! - vy[k]! * axWorld[k]!;
+      along[k] = dvdt ? dvdt[k]! : (vx[k]! * axWorld[k]! + vy[k]! * ayWorld[k]!) / pathSpeed;
+      across[k] = grid.v ? (cross / (pathSpeed * pathSpeed * pathSpeed)) * v * v : cross / pathSpeed;
+    }
+    const run = runs[r]!;
+    for (let i = run.from; i <= run.to; i++) {
+      const position = (t[i]! - grid.startS) / stepS;
+      const k = Math.min(Math.max(0, Math.floor(position)), count - 1);
+      const k1 = Math.min(k + 1, count - 1);
+      const w = Math.min(1, Math.max(0, position - k));
+      if (!session.speedMps) speedOut[i] = speed[k]! + w * (speed[k1]! - speed[k]!);
+      axOut[i] = along[k]! + w * (along[k1]! - along[k]!);
+      ayOut[i] = across[k]! + w * (across[k1]! - across[k]!);
+    }
+  }
+  const derived: string[] = [];
+  if (!session.speedMps) derived.push('speedMps');
+  if (!session.axMps2) derived.push('axMps2');
+  if (!session.ayMps2) derived.push('ayMps2');
+  return {
+    session: {
+      ...session,
+      speedMps: speedOut,
+      axMps2: session.axMps2 ?? axOut,
+      ayMps2: session.ayMps2 ?? ayOut,
+    },
+    derived,
+    quality: {
+      meanRateHz,
+      longestGapS,
+      longestGapAtS,
+      positionNoiseM,
+      speedNoiseMps,
+      lateralHalfWindowS: lateral.halfWidth * stepS,
+      longitudinalHalfWindowS: longitudinal.halfWidth * stepS,
+      lateralCutoffHz: savitzkyGolayCutoffShare(lateral.halfWidth, POSITION_ORDER) * (0.5 / stepS),
+      lateralNoiseMps2: lateral.noiseMps2,
+      longitudinalNoiseMps2: longitudinal.noiseMps2,
+      problems,
+    },
+  };
+}
+
+/** One line for the notes: the method, its window and what it leaves. */
+export function derivationNote(quality: DerivationQuality, derived: string[]): string {
+  return (
+    `${derived.join(', ')} derived from the GPS positions${derived.includes('speedMps') ? '' : ' and speed'} ` +
+    `(Savitzky-Golay, ${(2 * quality.lateralHalfWindowS).toFixed(1)} s window, cut-off about ${quality.lateralCutoffHz.toFixed(2)} Hz, ` +
+    `for ${quality.positionNoiseM.toFixed(2)} m of position noise at ${quality.meanRateHz.toFixed(0)} Hz; ` +
+    `about ${quality.lateralNoiseMps2.toFixed(2)} m/s^2 of noise left)`
+  );
+}
+
+interface UniformRun {
+  startS: number;
+  x: Float64Array;
+  y: Float64Array;
+  v: Float64Array | null;
+}
+
+/** Samples from..to interpolated linearly onto times startS + k stepS. */
+function uniformRun(session: TelemetrySession, from: number, to: number, stepS: number): UniformRun {
+  const t = session.timeS;
+  const startS = t[from]!;
+  const count = Math.max(1, Math.floor((t[to]! - startS) / stepS + 1e-9) + 1);
+  const x = new Float64Array(count);
+  const y = new Float64Array(count);
+  const v = session.speedMps ? new Float64Array(count) : null;
+  let i = from;
+  for (let k = 0; k < count; k++) {
+    const at = startS + k * stepS;
+    while (i < to - 1 && t[i + 1]! <= at) i++;
+    const j = Math.min(i + 1, to);
+    const span = t[j]! - t[i]!;
+    const w = span > 0 ? Math.min(1, Math.max(0, (at - t[i]!) / span)) : 0;
+    x[k] = session.xM![i]! + w * (session.xM![j]! - session.xM![i]!);
+    y[k] = session.yM![i]! + w * (session.yM![j]! - session.yM![i]!);
+    if (v) v[k] = session.speedMps![i]! + w * (session.speedMps![j]! - session.speedMps![i]!);
+  }
+  return { startS, x, y, v };
+}
+
+/**
+ * White-noise standard deviation of the gridded channels: residuals from a cubic fit over +-0.5 s, divided by
+ * sqrt(1 - w_0) (w_0 = the fit's weight on the sample itself, so E[r^2] = sigma^2 (1 - w_0) for a least-squares
+ * smoother); channels are pooled, one value per log.
+ */
+function pooledNoise(grids: UniformRun[], channels: (g: UniformRun) => Float64Array[], stepS: number): number {
+  const half = Math.max(3, Math.round(0.5 / stepS));
+  const fit = savitzkyGolayFilter(half, 3, 0);
+  const w0 = fit.centre[half]!;
+  let sum = 0;
+  let count = 0;
+  for (const grid of grids) {
+    for (const values of channels(grid)) {
+      if (values.length < 2 * half + 1) continue;
+      const smooth = applySavitzkyGolay(fit, values, stepS);
+      for (let k = half; k < values.length - half; k++) {
+        const r = values[k]! - smooth[k]!;
+        sum += r * r;
+        count++;
+      }
+    }
+  }
+  return count > 0 ? Math.sqrt(sum / count / (1 - w0)) : 0;
+}
+
+/**
+ * Smallest half-width (samples) whose derivative of order `derivative` leaves at most targetMps2 of noise from an
+ * input noise sigma, by the closed forms of the least-squares estimates on a symmetric window: the slope's variance
+ * sigma^2 / sum k^2, the second derivative's 4 sigma^2 / sum (k^2 - mean k^2)^2 (quadratic and cubic fits alike).
+ */
+function chooseHalfWidth(
+  sigma: number,
+  stepS: number,
+  derivative: 1 | 2,
+  minHalf: number,
+  maxHalf: number,
+  targetMps2: number,
+): { halfWidth: number; noiseMps2: number } {
+  let noise = Infinity;
+  let m = minHalf;
+  for (; m <= maxHalf; m++) {
+    noise = sigma * derivativeNoiseGain(m, derivative) * Math.pow(stepS, -derivative);
+    if (noise <= targetMps2) break;
+  }
+  return { halfWidth: Math.min(m, maxHalf), noiseMps2: noise };
+}
+
+export function derivativeNoiseGain(halfWidth: number, derivative: 1 | 2): number {
+  let sumK2 = 0;
+  for (let k = -halfWidth; k <= halfWidth; k++) sumK2 += k * k;
+  if (derivative === 1) return 1 / Math.sqrt(sumK2);
+  const meanK2 = sumK2 / (2 * halfWidth + 1);
+  let spread = 0;
+  for (let k = -halfWidth; k <= halfWidth; k++) spread += (k * k - meanK2) * (k * k - meanK2);
+  return 2 / Math.sqrt(spread);
+}

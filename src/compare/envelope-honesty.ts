@@ -1,0 +1,132 @@
+// Checks on every demonstrated envelope fitted from a log. The driver drove inside the grip they showed, so the
+// lap on that envelope cannot be slower than the driven lap: where it is (by more than 0.5 %), the fit has
+// under-read the log and its limits are raised, by bisection on one common factor, to the least that matches the
+// driven lap. It can be faster only by what the driver left on the table: a lap more than 3 % faster than the car
+// model's, or a driver's peak grip use over 130 % of the car model, points at the data or the car file, and the
+// numbers carry that caveat.
+
+import type { Car } from '../car/types.js';
+import type { Envelope } from '../car/envelope.js';
+import { demonstratedEnvelope, type DemonstratedEnvelopeRecord } from '../car/demonstrated-envelope.js';
+import { simulate, type SimulateOptions } from '../solve/simulate.js';
+import type { LapResult } from '../solve/types.js';
+import type { TrackGrid } from '../track/types.js';
+import type { DriverLap } from './types.js';
+import { formatLapTime } from '../units.js';
+
+export const SLOWER_TOLERANCE = 0.005;
+export const FASTER_THAN_MODEL_LIMIT = 0.03;
+export const PEAK_GRIP_USE_LIMIT = 1.3;
+/** Largest factor the limits are raised by; beyond it the mismatch is not the fit's. */
+const MAX_RAISE = 1.5;
+const RAISE_STEPS = 10;
+
+export interface HonestyInput {
+  track: TrackGrid;
+  car: Car;
+  drive: SimulateOptions;
+  record: DemonstratedEnvelopeRecord;
+  demonstratedLap: LapResult;
+  driverLap: DriverLap;
+  carEnvelope: Envelope;
+  carModelLap: LapResult;
+  /** Whether the log's accelerations were derived from GPS positions (the likeliest cause of an optimistic fit). */
+  derivedAccelerations: boolean;
+}
+
+export interface HonestyResult {
+  record: DemonstratedEnvelopeRecord;
+  envelope: Envelope;
+  demonstratedLap: LapResult;
+  /** Short reason the demonstrated figures are doubtful, or null. */
+  caveat: string | null;
+  notes: string[];
+}
+
+/** The record with every directional limit multiplied by factor. */
+export function scaledRecord(record: DemonstratedEnvelopeRecord, factor: number): DemonstratedEnvelopeRecord {
+  return {
+    ...record,
+    bands: record.bands.map((band) => ({
+      ...band,
+      brakeMps2: band.brakeMps2 * factor,
+      accelMps2: band.accelMps2 * factor,
+      leftMps2: band.leftMps2 * factor,
+      rightMps2: band.rightMps2 * factor,
+    })),
+  };
+}
+
+/** Highest grip use of the driver's lap over an envelope. */
+export function peakGripUse(lap: DriverLap, envelope: Envelope): number {
+  let peak = 0;
+  for (let i = 0; i < lap.speedMps.length; i++) {
+    const use = envelope.gripUse(lap.speedMps[i]!, lap.axMps2[i]!, lap.ayMps2[i]!);
+    if (use > peak) peak = use;
+  }
+  return peak;
+}
+
+export function honestyChecks(input: HonestyInput): HonestyResult {
+  const { track, car, drive, driverLap, carModelLap } = input;
+  let record = input.record;
+  let envelope = demonstratedEnvelope(record);
+  let lap = input.demonstratedLap;
+  const notes: string[] = [];
+  const drivenS = driverLap.lapTimeS;
+
+  if (lap.lapTimeS > drivenS * (1 + SLOWER_TOLERANCE)) {
+    const run = (factor: number) => {
+      const scaled = scaledRecord(input.record, factor);
+      const scaledEnvelope = demonstratedEnvelope(scaled);
+      return { scaled, scaledEnvelope, lap: simulate(track, car, { ...drive, envelope: scaledEnvelope }) };
+    };
+    const fitS = lap.lapTimeS;
+    const top = run(MAX_RAISE);
+    if (top.lap.lapTimeS > drivenS) {
+      notes.push(
+        `the lap on the grip already shown (${formatLapTime(fitS)}) is slower than the driven lap (${formatLapTime(drivenS)}) even with its limits raised by ${((MAX_RAISE - 1) * 100).toFixed(0)} %: the driver's path or the track file does not match the reference's`,
+      );
+    } else {
+      let lo = 1;
+      let hi = MAX_RAISE;
+      let best = top;
+      for (let k = 0; k < RAISE_STEPS; k++) {
+        const mid = 0.5 * (lo + hi);
+        const tried = run(mid);
+        if (tried.lap.lapTimeS > drivenS) lo = mid;
+        else {
+          hi = mid;
+          best = tried;
+        }
+      }
+      record = best.scaled;
+      envelope = best.scaledEnvelope;
+      lap = best.lap;
+      notes.push(
+        `the envelope fitted from the log drove ${formatLapTime(fitS)}, slower than the driven ${formatLapTime(drivenS)}, so the fit under-read the log (peaks smoothed away or too few samples): its limits were raised by ${((hi - 1) * 100).toFixed(1)} %, the least that matches the driven lap`,
+      );
+    }
+  }
+
+  const causes = input.derivedAccelerations
+    ? 'noisy accelerations derived from GPS positions, a wrong car file (grip, power or mass too low)'
+    : 'a wrong unit in the log (accelerations in m/s^2 read as g, or the reverse), noisy accelerometer channels, a wrong car file (grip, power or mass too low)';
+  const problems: string[] = [];
+  const fasterShare = 1 - lap.lapTimeS / carModelLap.lapTimeS;
+  if (fasterShare > FASTER_THAN_MODEL_LIMIT)
+    problems.push(
+      `the lap on the grip already shown (${formatLapTime(lap.lapTimeS)}) is ${(fasterShare * 100).toFixed(1)} % faster than the car model's reference (${formatLapTime(carModelLap.lapTimeS)})`,
+    );
+  const peak = peakGripUse(driverLap, input.carEnvelope);
+  if (peak > PEAK_GRIP_USE_LIMIT)
+    problems.push(`the driver's grip use peaks at ${(peak * 100).toFixed(0)} % of the car model's limit`);
+  let caveat: string | null = null;
+  if (problems.length > 0) {
+    caveat = `likely ${causes.split(', ')[0]}`;
+    notes.push(
+      `doubtful: ${problems.join(', and ')}; likely causes: ${causes}. The figures are shown with this caveat`,
+    );
+  }
+  return { record, envelope, demonstratedLap: lap, caveat, notes };
+}
