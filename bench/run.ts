@@ -5,6 +5,7 @@ interface BenchModule {
 }
 
 const modules: [string, () => Promise<BenchModule>][] = [
+  ['startup', () => import('./startup.bench.js')],
   ['simulate', () => import('./simulate.bench.js')],
   ['memory', () => import('./memory.bench.js')],
   ['telemetry', () => import('./telemetry.bench.js')],

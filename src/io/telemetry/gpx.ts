@@ -1,7 +1,8 @@
 // GPX 1.1 tracks (topografix.com/GPX/1/1): <trk><trkseg><trkpt lat lon><time>, with an optional speed in
 // <extensions> (any element whose local name is "speed", m/s), parsed with fast-xml-parser.
 
-import { XMLParser, XMLValidator } from 'fast-xml-parser';
+import { createRequire } from 'node:module';
+import type * as FastXmlParser from 'fast-xml-parser';
 import { InputError } from '../../errors.js';
 import type { TelemetrySession } from '../../compare/types.js';
 import { fillGaps, gpsSession } from './session.js';
@@ -12,6 +13,13 @@ export function looksLikeGpx(head: string): boolean {
 }
 
 type XmlNode = Record<string, unknown>;
+
+/** fast-xml-parser, loaded on the first GPX file: every command that may read a log would otherwise pay for it at start. */
+let xml: typeof FastXmlParser | null = null;
+function xmlLibrary(): typeof FastXmlParser {
+  xml ??= createRequire(import.meta.url)('fast-xml-parser') as typeof FastXmlParser;
+  return xml;
+}
 
 function asArray<T>(value: T | T[] | undefined): T[] {
   if (value === undefined || value === null) return [];
@@ -34,6 +42,7 @@ function extensionSpeed(node: unknown): number {
 }
 
 export function parseGpxText(text: string, source: string): TelemetrySession {
+  const { XMLParser, XMLValidator } = xmlLibrary();
   const validation = XMLValidator.validate(text);
   if (validation !== true) {
     throw new InputError(
