@@ -2,7 +2,8 @@
 // folder from a simulated lap of the demo track, then read (streamed CSV), cut into laps and the fastest aligned.
 // The read's own peak (resident memory sampled during it) is set against the size of the channels the session
 // keeps. Target (issue 4): well under 10 s and under 1 GB peak memory for this part; the whole comparison
-// (read + cut + align + compare, under 15 s) is bench/compare.bench.ts.
+// (read + cut + align + compare, under 15 s) is bench/compare.bench.ts. The read is set against pandas' read_csv
+// (Debian's python3-pandas) on the same file when it is installed (bench/frame-reader.ts).
 
 import { createWriteStream, mkdtempSync, rmSync, statSync } from 'node:fs';
 import os from 'node:os';
@@ -16,6 +17,7 @@ import { cutLaps } from '../src/compare/laps.js';
 import { selectLap } from '../src/compare/align.js';
 import { machineLoad, median, peakRssMb, verdict } from './stats.js';
 import { sampledPeak } from './large-telemetry.bench.js';
+import { timeFrameReader } from './frame-reader.js';
 
 const projectRoot = fileURLToPath(new URL('../..', import.meta.url));
 
@@ -189,6 +191,16 @@ export async function run(): Promise<void> {
       `read (streamed CSV): median ${median(read).toFixed(0)} ms wall, ${median(readCpu).toFixed(0)} ms CPU (${((median(readCpu) * 1e6) / rows).toFixed(0)} ns CPU per row); ` +
         `resident memory during the read, runs 1-3: ${readPeak.join('; ')}\n`,
     );
+    // The same file read by a general-purpose data-frame reader (target: reflap within 1.5 times of it).
+    const frame = timeFrameReader(file, 3);
+    if (typeof frame === 'string') process.stdout.write(`  data-frame reader: skipped: ${frame}\n`);
+    else {
+      const cpuRatio = median(readCpu) / frame.cpuMs;
+      process.stdout.write(
+        `  ${frame.reader}, same file, ${frame.rows} rows: median ${frame.wallMs.toFixed(0)} ms wall, ${frame.cpuMs.toFixed(0)} ms CPU\n` +
+          `  ${verdict('reflap read over the data-frame reader, CPU', cpuRatio, 1.5, 'x')}; wall ${(median(read) / frame.wallMs).toFixed(2)} x\n`,
+      );
+    }
     process.stdout.write(`cut into laps (projection of every sample): median ${median(cut).toFixed(0)} ms wall\n`);
     process.stdout.write(`select + align fastest lap: median ${median(align).toFixed(0)} ms wall\n`);
     process.stdout.write(

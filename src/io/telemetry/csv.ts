@@ -1,15 +1,17 @@
 // Telemetry CSV: dialect sniffed from the head of the file (separator, decimal comma, a '#'-prefixed header),
-// tokenised by csv-parse (streamed from a file), and every record handed to the shared row pipeline; the
-// session reader is the pipeline's consumer that keeps every chunk.
+// read by the byte scanner's fast path (numeric-scan.ts) or, for quotes and other unusual dialects, tokenised
+// by csv-parse (streamed from a file), and every record handed to the shared row pipeline; the session reader
+// is the pipeline's consumer that keeps every chunk.
 
 import { createReadStream } from 'node:fs';
-import { stat } from 'node:fs/promises';
+import { open, stat } from 'node:fs/promises';
 import { parse as parseStream, type Options } from 'csv-parse';
 import { parse as parseSync } from 'csv-parse/sync';
 import { InputError } from '../../errors.js';
 import type { TelemetrySession } from '../../compare/types.js';
 import { HeldTooLong, RowPipeline } from './pipeline.js';
 import { SessionAssembler } from './session.js';
+import { NumericLineScanner, type ScanTarget } from './numeric-scan.js';
 
 export interface CsvDialect {
   delimiter: string;
@@ -83,18 +85,34 @@ function asInputError(error: unknown, source: string): Error {
   return new InputError(`${source}: cannot read as CSV: ${message}`);
 }
 
-/** Hands every record of the text to `record` as csv-parse reads it, keeping none (the text is memory enough). */
+/** csv-parse's records after the first `skip` (those the fast path has already handed over). */
+function skipping(skip: number, target: ScanTarget): (cells: string[]) => void {
+  let seen = 0;
+  return (cells) => {
+    if (seen++ >= skip) target.record(cells);
+  };
+}
+
+/** Which reader tokenises a CSV: the byte scanner with csv-parse behind it, or csv-parse alone. */
+export type CsvReader = 'fast' | 'csv-parse';
+
+/** Hands every record of the text to the pipeline (the fast path, else csv-parse), keeping none. */
 export function feedCsvText(
   text: string,
   source: string,
   dialect: CsvDialect,
-  record: (cells: string[]) => void,
+  target: ScanTarget,
+  reader: CsvReader = 'fast',
 ): void {
   try {
+    const scanner = new NumericLineScanner(dialect, target);
+    const bytes = Buffer.from(text, 'utf8');
+    if (reader === 'fast' && scanner.scan(bytes, 0, bytes.length, true) >= 0) return;
+    const feed = skipping(scanner.records, target);
     parseSync(text, {
       ...parserOptions(dialect),
       on_record: (cells: string[]) => {
-        record(cells);
+        feed(cells);
         return null;
       },
     });
@@ -103,29 +121,63 @@ export function feedCsvText(
   }
 }
 
-/** Streams the file's records through csv-parse to `record`; an error thrown by `record` ends the read. */
-export async function feedCsvFile(file: string, dialect: CsvDialect, record: (cells: string[]) => void): Promise<void> {
-  const parser = parseStream(parserOptions(dialect));
+/** Reads the file through the byte scanner; the count of records handed over when csv-parse must take over, else null. */
+async function scanCsvFile(file: string, dialect: CsvDialect, target: ScanTarget): Promise<number | null> {
+  const scanner = new NumericLineScanner(dialect, target);
+  const handle = await open(file, 'r');
   try {
-    const input = createReadStream(file, { highWaterMark: 1 << 20 });
-    await new Promise<void>((resolve, reject) => {
-      input.on('error', reject);
-      parser.on('error', reject);
-      parser.on('data', (cells: string[]) => {
-        try {
-          record(cells);
-        } catch (error) {
-          input.destroy();
-          parser.destroy();
-          reject(error);
-        }
-      });
-      parser.on('end', () => resolve());
-      input.pipe(parser);
-    });
+    let buffer = Buffer.allocUnsafe(1 << 20);
+    let filled = 0;
+    for (;;) {
+      if (filled === buffer.length) {
+        // One line longer than the buffer: make room for it.
+        const bigger = Buffer.allocUnsafe(buffer.length * 2);
+        buffer.copy(bigger, 0, 0, filled);
+        buffer = bigger;
+      }
+      const { bytesRead } = await handle.read(buffer, filled, buffer.length - filled, null);
+      filled += bytesRead;
+      const final = bytesRead === 0;
+      const rest = scanner.scan(buffer, 0, filled, final);
+      if (rest < 0) return scanner.records;
+      if (final) return null;
+      buffer.copy(buffer, 0, rest, filled);
+      filled -= rest;
+    }
+  } finally {
+    await handle.close();
+  }
+}
+
+/** Streams the file's records to the pipeline (the fast path, else csv-parse); an error it throws ends the read. */
+export async function feedCsvFile(file: string, dialect: CsvDialect, target: ScanTarget): Promise<void> {
+  try {
+    const fed = await scanCsvFile(file, dialect, target);
+    if (fed !== null) await parseCsvFile(file, dialect, skipping(fed, target));
   } catch (error) {
     throw asInputError(error, file);
   }
+}
+
+/** Streams the file's records through csv-parse to `record`; an error thrown by `record` ends the read. */
+async function parseCsvFile(file: string, dialect: CsvDialect, record: (cells: string[]) => void): Promise<void> {
+  const parser = parseStream(parserOptions(dialect));
+  const input = createReadStream(file, { highWaterMark: 1 << 20 });
+  await new Promise<void>((resolve, reject) => {
+    input.on('error', reject);
+    parser.on('error', reject);
+    parser.on('data', (cells: string[]) => {
+      try {
+        record(cells);
+      } catch (error) {
+        input.destroy();
+        parser.destroy();
+        reject(error);
+      }
+    });
+    parser.on('end', () => resolve());
+    input.pipe(parser);
+  });
 }
 
 function sessionPipeline(
@@ -160,12 +212,18 @@ function expectedRows(head: string, totalLength: number): number {
   return (totalLength / (head.length / lines)) * 1.02;
 }
 
-export function parseCsvText(text: string, source: string, mapping: Record<string, string>): TelemetrySession {
+/** The session in a CSV text; `reader` 'csv-parse' skips the fast path (the tests hold the two equal). */
+export function parseCsvText(
+  text: string,
+  source: string,
+  mapping: Record<string, string>,
+  reader: CsvReader = 'fast',
+): TelemetrySession {
   const head = text.slice(0, 65536);
   const dialect = sniffDialect(head, source);
   const assembler = new SessionAssembler(source, expectedRows(head, text.length));
   const pipeline = sessionPipeline(source, dialect, mapping, assembler);
-  feedCsvText(text, source, dialect, (cells) => pipeline.record(cells));
+  feedCsvText(text, source, dialect, pipeline, reader);
   return assembler.finish(pipeline.finish());
 }
 
@@ -179,6 +237,6 @@ export async function readCsvFile(
   // The head is text and the size bytes: the same for ASCII logs, which nearly all are.
   const assembler = new SessionAssembler(file, expectedRows(head, (await stat(file)).size));
   const pipeline = sessionPipeline(file, dialect, mapping, assembler);
-  await feedCsvFile(file, dialect, (cells) => pipeline.record(cells));
+  await feedCsvFile(file, dialect, pipeline);
   return assembler.finish(pipeline.finish());
 }

@@ -69,6 +69,16 @@ export class RowPipeline {
 
   constructor(private readonly options: PipelineOptions) {}
 
+  /** True once the header has been read. */
+  get hasHeader(): boolean {
+    return this.headers.length > 0;
+  }
+
+  /** The file columns (0-based) whose cells become the rows' numbers; known once the header is read. */
+  boundColumns(): number[] {
+    return this.bindings.map((binding) => binding.index);
+  }
+
   /** One parsed record; its line is counted here (blank lines arrive as one empty field). */
   record(cells: string[]): void {
     const line = this.options.headerLine + this.records++;
@@ -84,6 +94,25 @@ export class RowPipeline {
       const binding = this.bindings[b]!;
       block.values[b]![r] = cellValue(cells[binding.index], decimalComma, source, line, binding.header);
     }
+    this.endRow(block, r, line);
+  }
+
+  /**
+   * One data record already read as numbers by the byte scanner (numeric-scan.ts): values[column] for the
+   * first `count` cells (NaN where a cell is empty); the cells past `count` are missing, as in record().
+   */
+  recordNumbers(values: Float64Array, count: number): void {
+    const line = this.options.headerLine + this.records++;
+    const block = this.currentBlock();
+    const r = block.rows;
+    for (let b = 0; b < this.bindings.length; b++) {
+      const index = this.bindings[b]!.index;
+      block.values[b]![r] = index < count ? values[index]! : NaN;
+    }
+    this.endRow(block, r, line);
+  }
+
+  private endRow(block: RowBlock, r: number, line: number): void {
     block.lines[r] = line;
     block.rows++;
     this.rows++;
@@ -93,7 +122,7 @@ export class RowPipeline {
         block.values[this.timeIndex]!,
         r,
         binding.scale ?? 1,
-        source,
+        this.options.source,
         line,
         binding.header,
         this.rows === 1,

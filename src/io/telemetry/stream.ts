@@ -48,7 +48,7 @@ class Reader {
       skipRows,
       sink,
     });
-    await feedCsvFile(this.file, this.dialect, (cells) => pipeline.record(cells));
+    await feedCsvFile(this.file, this.dialect, pipeline);
     return pipeline.finish();
   }
 
