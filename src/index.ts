@@ -89,6 +89,14 @@ export { runStint, runStintInWorkers, stintFuelLoads, type StintResult, type Sti
 // The racing line.
 export { racingLine, lineFromOffsets, type RacingLineOptions } from './line/racing-line.js';
 export type { RacingLine, LineGeometry, LineObjective } from './line/types.js';
+export {
+  referenceLine,
+  noWidthsNote,
+  type ReferenceLine,
+  type ReferenceLineOptions,
+  type ReferencePathChoice,
+  type ReferencePathKind,
+} from './line/reference-line.js';
 export { corridorOf, defaultMarginM, DEFAULT_MARGIN_M, type Corridor } from './line/corridor.js';
 export { linePath, linePositions, lineCurvature, lineSegmentLengths, offsetCurvature } from './line/geometry.js';
 export { minimumCurvatureOffsets } from './line/min-curvature.js';

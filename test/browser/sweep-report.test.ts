@@ -1,6 +1,7 @@
 // The sweep and what-if report pages in a real browser: Debian's Chromium driven by playwright-core,
 // headless, fresh profile, background networking off. The pages are written by the built CLI, opened from
 // disk, and must draw every chart with no console error and no request beyond the file itself.
+// The runs drive the centreline (--line centreline), where the loop's four corners give four braking zones.
 
 import { mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -69,6 +70,8 @@ describe.skipIf(!haveChromium)('sweep report in Chromium', () => {
       loop,
       '--car',
       hostileCar,
+      '--line',
+      'centreline',
       '--vary',
       'massKg=600:640:20',
       'tyre.muLat=-5%:+5%:5%',
@@ -113,6 +116,8 @@ describe.skipIf(!haveChromium)('sweep report in Chromium', () => {
       loop,
       '--car',
       hostileCar,
+      '--line',
+      'centreline',
       '--vary',
       'massKg=600:640:20',
       'tyre.muLong=-10%:+10%:5%',
@@ -125,7 +130,19 @@ describe.skipIf(!haveChromium)('sweep report in Chromium', () => {
     ]);
     expect(oat.code, oat.stderr).toBe(0);
     const whatif = path.join(workFolder, 'whatif.html');
-    const change = runCli(['whatif', '--track', loop, '--car', hostileCar, '--set', 'massKg=+20', '--html', whatif]);
+    const change = runCli([
+      'whatif',
+      '--track',
+      loop,
+      '--car',
+      hostileCar,
+      '--line',
+      'centreline',
+      '--set',
+      'massKg=+20',
+      '--html',
+      whatif,
+    ]);
     expect(change.code, change.stderr).toBe(0);
     for (const [file, expected] of [
       [sweep, 4],

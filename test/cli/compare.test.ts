@@ -154,17 +154,24 @@ describe('the demonstrated envelope', () => {
   });
 });
 
-describe('the reference on a racing line (--line auto | FILE)', () => {
+describe('the reference on a racing line (--line auto | centreline | FILE)', () => {
   it('is quicker than on the centreline, and a line file from `reflap line --out` drives the same lap as --line auto', () => {
     const auto = compare(trace, ['--line', 'auto', '--json']);
     expect(auto.code, auto.stderr).toBe(0);
     const onLine = JSON.parse(auto.stdout);
+    expect(onLine.referencePath).toBe('line');
+    // Without --line the reference drives the same line (the default) and reports the same lap.
+    expect(onLine.referenceLapTimeS).toBeCloseTo(referenceLapTimeS, 3);
+    const centre = compare(trace, ['--line', 'centreline', '--json']);
+    expect(centre.code, centre.stderr).toBe(0);
+    const onCentre = JSON.parse(centre.stdout);
+    expect(onCentre.referencePath).toBe('centreline');
     // The time-optimal line is chosen among lines that include the centreline (zero offset everywhere), so it
     // can be no slower; on a circuit with real corners it is clearly quicker (racing lines use the track
     // width to open the corners: common practice).
-    expect(onLine.referenceLapTimeS).toBeLessThan(referenceLapTimeS - 0.5);
-    // The driver (this log is the centreline reference) is now slower than the reference by that much.
-    expect(onLine.driverLapTimeS - onLine.referenceLapTimeS).toBeGreaterThan(0.5);
+    expect(onLine.referenceLapTimeS).toBeLessThan(onCentre.referenceLapTimeS - 0.5);
+    // Against the centreline reference, the driver (this log is the line's reference lap) is quicker by that much.
+    expect(onCentre.driverLapTimeS - onCentre.referenceLapTimeS).toBeLessThan(-0.5);
 
     const lineFile = path.join(work, 'line.csv');
     const line = runCli(['line', '--track', track, '--car', car, '--out', lineFile, '--json']);
@@ -172,6 +179,7 @@ describe('the reference on a racing line (--line auto | FILE)', () => {
     const fromFile = compare(trace, ['--line', lineFile, '--json']);
     expect(fromFile.code, fromFile.stderr).toBe(0);
     const onFileLine = JSON.parse(fromFile.stdout);
+    expect(onFileLine.referencePath).toBe('file');
     // The file keeps the offsets to 0.1 mm; the line's curvature, recomputed from them by differences over a
     // 1 m step, picks up that rounding, which moves the lap by about 9 ms here (simulate --line shows the same).
     // 0.02 s is 0.03 % of the lap, far below the 0.5 s the line gains.
@@ -186,5 +194,27 @@ describe('the reference on a racing line (--line auto | FILE)', () => {
     expect(run.code).toBe(2);
     expect(run.stderr.trim().split('\n')).toHaveLength(1);
     expect(run.stderr).toContain('other-line.csv');
+  });
+});
+
+// Real circuit: TUM racetrack-database (Heilmeier et al., LGPL v3), geometry from OpenStreetMap (ODbL), read from
+// ../shared/data/open-tracks/ and skipped where that folder is absent.
+const norisring = path.resolve(projectRoot, '..', 'shared', 'data', 'open-tracks', 'Norisring.csv');
+if (!existsSync(norisring)) console.warn(`open-track compare check skipped: ${norisring} is absent`);
+
+describe.skipIf(!existsSync(norisring))('on an open-dataset circuit with widths (Norisring)', () => {
+  it('compare without --line reports the reference lap of simulate --line auto, faster than the centreline lap', () => {
+    const trackArgs = ['--track', norisring, '--columns', 'width_left_m=w_tr_left_m,width_right_m=w_tr_right_m'];
+    const log = path.join(work, 'norisring-centreline.csv');
+    const centre = runCli(['simulate', ...trackArgs, '--car', car, '--line', 'centreline', '--out', log, '--json']);
+    expect(centre.code, centre.stderr).toBe(0);
+    const auto = runCli(['simulate', ...trackArgs, '--car', car, '--line', 'auto', '--json']);
+    expect(auto.code, auto.stderr).toBe(0);
+    const run = runCli(['compare', ...trackArgs, '--car', car, '--telemetry', log, '--json']);
+    expect(run.code, run.stderr).toBe(0);
+    const result = JSON.parse(run.stdout);
+    expect(result.referencePath).toBe('line');
+    expect(result.referenceLapTimeS).toBeCloseTo(JSON.parse(auto.stdout).lapTimeS, 3);
+    expect(result.referenceLapTimeS).toBeLessThan(JSON.parse(centre.stdout).lapTimeS);
   });
 });

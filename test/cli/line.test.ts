@@ -113,8 +113,10 @@ describe('reflap line', () => {
   });
 
   it('simulate --line auto computes the line first', () => {
-    const sim = runCli(['simulate', '--track', ringTrack, '--car', car, '--step-m', '2', '--line', 'auto', '--json']);
-    const centre = runCli(['simulate', '--track', ringTrack, '--car', car, '--step-m', '2', '--json']);
+    const ring = (line: string) =>
+      runCli(['simulate', '--track', ringTrack, '--car', car, '--step-m', '2', '--line', line, '--json']);
+    const sim = ring('auto');
+    const centre = ring('centreline');
     expect(sim.code).toBe(0);
     expect(JSON.parse(sim.stdout).lapTimeS).toBeLessThan(JSON.parse(centre.stdout).lapTimeS);
   });

@@ -31,11 +31,12 @@ beforeAll(() => {
 });
 
 describe('reflap simulate', () => {
-  it('prints the JSON summary and writes the trace', () => {
+  it('prints the JSON summary and writes the trace (on the centreline when asked)', () => {
     const out = join(folder, 'trace.csv');
-    const run = runCli(['simulate', '--track', stadium, '--car', car, '--json', '--out', out]);
+    const run = runCli(['simulate', '--track', stadium, '--car', car, '--line', 'centreline', '--json', '--out', out]);
     expect(run.code).toBe(0);
     const summary = JSON.parse(run.stdout);
+    expect(summary.referencePath).toBe('centreline');
     expect(summary.lengthM).toBeCloseTo(1200 + 2 * Math.PI * 60, 0);
     expect(summary.brakingZones).toHaveLength(2);
     // The slowest point of a constant-radius corner without downforce: v = sqrt(mu g R) (Milliken and
@@ -53,9 +54,10 @@ describe('reflap simulate', () => {
     expect(lines.length - 1).toBe(Math.round(1200 + 2 * Math.PI * 60));
   });
 
-  it('prints a readable summary with the lap time as m:ss.sss and the safety caution', () => {
+  it('prints a readable summary with the lap time as m:ss.sss and the safety caution, on the racing line by default', () => {
     const run = runCli(['simulate', '--track', stadium, '--car', car]);
     expect(run.code).toBe(0);
+    expect(run.stdout).toContain('Reference path: the minimum-time racing line');
     expect(run.stdout).toMatch(/Lap time\s+\d:\d\d\.\d{3}/);
     expect(run.stdout).toContain('Braking zones (2)');
     expect(run.stdout).toMatch(/Driving at the limit is dangerous/);
@@ -130,6 +132,20 @@ describe('reflap simulate', () => {
     expect(run.stderr.trim().split('\n')).toHaveLength(1);
     expect(run.stderr).toMatch(message);
     expect(existsSync(out)).toBe(false);
+  });
+
+  it('drives the centreline with a one-line note where the track gives no widths', () => {
+    const narrowless = bad(
+      'no-widths.json',
+      JSON.stringify({ ...JSON.parse(readFileSync(stadium, 'utf8')), widthM: undefined, name: 'no widths' }),
+    );
+    const run = runCli(['simulate', '--track', narrowless, '--car', car, '--json']);
+    expect(run.code, run.stderr).toBe(0);
+    const summary = JSON.parse(run.stdout);
+    expect(summary.referencePath).toBe('centreline');
+    expect(summary.referencePathNote).toMatch(/no-widths\.json gives no widths.*--width-m/);
+    const text = runCli(['simulate', '--track', narrowless, '--car', car]);
+    expect(text.stdout.split('\n').filter((line) => line.startsWith('Note:'))).toHaveLength(1);
   });
 
   it('refuses to write the trace over an input file', () => {

@@ -33,6 +33,8 @@ describe('reflap whatif', () => {
       '180',
       '--set',
       'tyre.muLong=-20%',
+      '--line',
+      'centreline',
       '--json',
     ]);
     expect(run.stderr).toBe('');
@@ -54,6 +56,9 @@ describe('reflap whatif', () => {
     const run = runCli(['whatif', '--track', loop, '--car', car, '--set', 'massKg=+20', 'tyre.muLat=-5%']);
     expect(run.code).toBe(0);
     expect(run.stdout).toMatch(/Lap time .* -> .*\(\+\d\.\d{3} s\)/);
+    expect(run.stdout).toContain(
+      "Reference path: the minimum-time racing line (the baseline car's, held for every setup)",
+    );
     expect(run.stdout).toMatch(/^c4 /m);
     expect(run.stdout).toMatch(/Caution/);
   });
@@ -75,6 +80,8 @@ describe('reflap whatif', () => {
 
 describe('reflap sweep', () => {
   const vary = ['--vary', 'massKg=600:640:20', 'tyre.muLat=-5%:+5%:5%'];
+  // The shard checks run on the centreline: one line search per run would add nothing they check.
+  const centreline = ['--line', 'centreline'];
 
   it('writes the runs, and merged shards equal the unsharded CSV byte for byte', () => {
     const whole = join(folder, 'whole.csv');
@@ -86,6 +93,7 @@ describe('reflap sweep', () => {
       '--car',
       car,
       ...vary,
+      ...centreline,
       '--workers',
       '2',
       '--out',
@@ -104,6 +112,7 @@ describe('reflap sweep', () => {
         '--car',
         car,
         ...vary,
+        ...centreline,
         '--workers',
         '1',
         '--shard',
@@ -135,7 +144,8 @@ describe('reflap sweep', () => {
     expect(readFileSync(mergedHtml, 'utf8')).toContain('data-chart="lap-time-tyre.muLat"');
     const lines = readFileSync(whole, 'utf8').split('\n');
     expect(lines.filter((l) => /^\d/.test(l))).toHaveLength(1 + 4 + 9);
-  });
+    // Five runs of the CLI, two with workers: more than the default time on a shared machine.
+  }, 180_000);
 
   it('prints JSON with the sensitivities', () => {
     const run = runCli([
@@ -154,6 +164,9 @@ describe('reflap sweep', () => {
     expect(run.code).toBe(0);
     const result = JSON.parse(run.stdout);
     expect(result.complete).toBe(true);
+    // The loop gives widths: the baseline car's racing line, computed once and held for every setup.
+    expect(result.referencePath).toBe('line');
+    expect(result.referencePathShared).toBe(true);
     expect(result.sensitivities.map((s: { field: string }) => s.field)).toEqual(['massKg', 'tyre.muLat']);
     expect(result.sensitivities[0].lapTimeSPerUnit).toBeGreaterThan(0);
     expect(run.stderr).toBe('');

@@ -47,3 +47,14 @@ export function testCar(
     fuel: { massKg: 0, burnKgPerLap: 0 },
   };
 }
+
+/** The car of the open-circuit line checks: 1,000 kg, mu 1.3, 150 kW, CdA 0.7 m^2, ClA 1.0 m^2. */
+export const openTrackCar = (): Car =>
+  testCar({
+    massKg: 1000,
+    mu: 1.3,
+    maxPowerW: 150_000,
+    dragAreaM2: 0.7,
+    liftAreaM2: 1.0,
+    rollingResistanceCoeff: 0.012,
+  });

@@ -9,7 +9,7 @@ import { describe, expect, it } from 'vitest';
 import { readTrackFile } from '../../src/io/read-track.js';
 import { racingLine } from '../../src/line/racing-line.js';
 import type { TrackGrid } from '../../src/track/types.js';
-import { testCar } from '../helpers/cars.js';
+import { openTrackCar } from '../helpers/cars.js';
 
 const projectRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', '..');
 const openTracksDir = path.resolve(projectRoot, '..', 'shared', 'data', 'open-tracks');
@@ -26,15 +26,7 @@ const demoTrackFiles = existsSync(demoTracksDir)
   : [];
 if (openTrackFiles.length === 0) console.warn(`open-tracks line checks skipped: ${openTracksDir} is absent`);
 
-// A car defined here: 1,000 kg, mu 1.3, 150 kW, CdA 0.7 m^2, ClA 1.0 m^2.
-const car = testCar({
-  massKg: 1000,
-  mu: 1.3,
-  maxPowerW: 150_000,
-  dragAreaM2: 0.7,
-  liftAreaM2: 1.0,
-  rollingResistanceCoeff: 0.012,
-});
+const car = openTrackCar();
 const MARGIN_M = 0.8;
 
 function checkLine(track: TrackGrid): void {

@@ -69,9 +69,9 @@ describe('the map of a lap on a racing line', () => {
     expect(Math.abs(radius - innerLineRadiusM)).toBeLessThan(0.3);
   });
 
-  it('simulate without --line: the reference is drawn on the centreline', () => {
+  it('simulate --line centreline: the reference is drawn on the centreline', () => {
     const html = join(folder, 'simulate-centre.html');
-    expect(runCli(['simulate', '--track', ring, '--car', car, '--html', html]).code).toBe(0);
+    expect(runCli(['simulate', '--track', ring, '--car', car, '--line', 'centreline', '--html', html]).code).toBe(0);
     const radius = drawnRadiusM(readFileSync(html, 'utf8'), /<path class="grip-[a-z]+" d="([^"]+)"/g);
     expect(Math.abs(radius - RADIUS_M)).toBeLessThan(0.3);
   });

@@ -1,6 +1,7 @@
 // The sweep and what-if report pages, written by the built CLI: self-contained (no network address, no
 // script), the expected charts with one series per corner, escaped input text, plotted lap times that are
 // the CSV's and a separate `simulate` run's, and standalone SVG files that are well-formed XML.
+// The runs drive the centreline (--line centreline), where the loop's four corners give four braking zones.
 
 import { createHash } from 'node:crypto';
 import { mkdtempSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
@@ -92,6 +93,8 @@ beforeAll(() => {
     loop,
     '--car',
     hostileCar,
+    '--line',
+    'centreline',
     ...vary,
     '--mode',
     'one-at-a-time',
@@ -113,6 +116,8 @@ beforeAll(() => {
     loop,
     '--car',
     'cars/brackle-club.json',
+    '--line',
+    'centreline',
     ...vary,
     '--workers',
     '1',
@@ -178,6 +183,8 @@ describe('sweep report page', () => {
       loop,
       '--car',
       'cars/brackle-club.json',
+      '--line',
+      'centreline',
       '--vary',
       'massKg=600:640:20',
       'tyre.muLat=-5%:+5%:5%',
@@ -215,7 +222,7 @@ describe('sweep report page', () => {
     const car = JSON.parse(readFileSync(hostileCar, 'utf8')) as Record<string, unknown>;
     const heavier = join(folder, 'heavier.json');
     writeFileSync(heavier, JSON.stringify({ ...car, massKg: 640 }));
-    const run = runCli(['simulate', '--track', loop, '--car', heavier, '--json']);
+    const run = runCli(['simulate', '--track', loop, '--car', heavier, '--line', 'centreline', '--json']);
     expect(run.code).toBe(0);
     const simulated = JSON.parse(run.stdout).lapTimeS as number;
     const point = pointsOf(chartSource(oatPage, 'lap-time-massKg'), 0).find((p) => p.x === 640)!;
@@ -266,6 +273,8 @@ describe('whatif report page', () => {
       hairpin,
       '--car',
       slick,
+      '--line',
+      'centreline',
       '--start-speed-kph',
       '180',
       '--set',

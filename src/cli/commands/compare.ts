@@ -24,7 +24,8 @@ import {
 import { compareSession, type SessionComparison } from '../../compare/compare-session.js';
 import { readEnvelopeFile } from '../../io/read-envelope.js';
 import { alignedTracesCsv, compareSummaryJson, compareSummaryText } from '../../report/compare-summary.js';
-import { resolveLinePath } from './line.js';
+import { addLineOption, referencePathJson, resolveReferenceLine, withReferencePath } from '../reference-path.js';
+import type { ReferenceLine } from '../../line/reference-line.js';
 import { demonstratedEnvelope } from '../../car/demonstrated-envelope.js';
 import type { Ambient, Car } from '../../car/types.js';
 import type { TrackGrid } from '../../track/types.js';
@@ -51,11 +52,8 @@ export function register(program: Command): void {
   addTrackOptions(command);
   addCarOptions(command);
   addTelemetryOptions(command);
+  addLineOption(command);
   command
-    .option(
-      '--line <auto|file>',
-      "run the reference on a racing line: 'auto' optimises the time line, or a line CSV from `reflap line --out` (default: the centreline)",
-    )
     .option(
       '--envelope <file>',
       "use this demonstrated envelope (from `reflap envelope`) for the reference instead of the car model's",
@@ -69,8 +67,11 @@ export function register(program: Command): void {
   addReportOptions(command).action((values: CompareValues) => runCompare(values));
 }
 
-/** A comparison, with the positions of the racing line the reference drove where `--line` asked for one. */
-export type CliComparison = SessionComparison & { linePositions?: { xM: Float64Array; yM: Float64Array } };
+/** A comparison, with the path the reference drove and the positions of its line where it drove one. */
+export type CliComparison = SessionComparison & {
+  referencePath: ReferenceLine;
+  linePositions?: { xM: Float64Array; yM: Float64Array };
+};
 
 /** The comparison from already-read records, shared by `compare` and `demo`. */
 export function compareFromRecords(
@@ -85,21 +86,20 @@ export function compareFromRecords(
   const envelopeRecord = values.envelope ? readEnvelopeFile(values.envelope) : undefined;
   const start = values.track ? startSpeedMps(values as TrackOptionValues) : 0;
   // The line is optimised on the envelope the reference drives: the demonstrated one where --envelope gives it.
-  const line = values.line
-    ? resolveLinePath(track, car, ambient, values.line, {
-        startSpeedMps: start,
-        ...(envelopeRecord ? { envelope: demonstratedEnvelope(envelopeRecord) } : {}),
-      })
-    : undefined;
+  const reference = resolveReferenceLine(track, car, ambient, values.line, {
+    startSpeedMps: start,
+    ...(envelopeRecord ? { envelope: demonstratedEnvelope(envelopeRecord) } : {}),
+  });
   const comparison = compareSession(track, car, session, {
     ambient,
     ...(lap !== undefined ? { lap } : {}),
     ...(startFinish ? { startFinish } : {}),
-    ...(line ? { path: line.path } : {}),
+    ...(reference.path ? { path: reference.path } : {}),
     ...(envelopeRecord ? { envelopeRecord } : {}),
     startSpeedMps: start,
   });
-  return line ? { ...comparison, linePositions: { xM: line.xM, yM: line.yM } } : comparison;
+  const { xM, yM } = reference;
+  return { ...comparison, referencePath: reference, ...(xM && yM ? { linePositions: { xM, yM } } : {}) };
 }
 
 /** Files `--out DIR` writes: the aligned traces and the corner table. */
@@ -174,6 +174,7 @@ export async function runCompare(values: CompareValues): Promise<void> {
       JSON.stringify(
         {
           ...compareSummaryJson(comparison.result),
+          ...referencePathJson(comparison.referencePath),
           ...(uncertainty ? { uncertainty: uncertaintyJson(uncertainty) } : {}),
         },
         null,
@@ -181,7 +182,9 @@ export async function runCompare(values: CompareValues): Promise<void> {
       ) + '\n',
     );
   } else {
-    process.stdout.write(compareSummaryText(comparison.result, uncertainty ?? undefined));
+    process.stdout.write(
+      withReferencePath(compareSummaryText(comparison.result, uncertainty ?? undefined), comparison.referencePath),
+    );
     if (values.out) process.stdout.write(`Aligned traces and corner table written to ${values.out}\n`);
     process.stdout.write(reportWrittenText(reportFiles));
   }

@@ -15,6 +15,7 @@ import { compareSummaryText } from '../../report/compare-summary.js';
 import { compareFromRecords, comparisonFiles } from './compare.js';
 import { addReportOptions, addReportOutputs, reportWrittenText, type ReportOptionValues } from '../html-options.js';
 import { sessionReportInput } from '../../report/html/from-session.js';
+import { withReferencePath } from '../reference-path.js';
 
 export const DEMO_TRACK = 'tracks/velmora-downs.json';
 export const DEMO_CAR = 'cars/tarnfell-gt.json';
@@ -70,7 +71,7 @@ export function runDemo(values: DemoValues): void {
   const csv = demoLogCsv(track, lap, { ...DEFAULT_DEMO_LOG, seed });
   const logFile = path.join(values.out, 'demo-lap.csv');
   const session = parseTelemetryText(csv, logFile, { columns: {} });
-  const comparison = compareFromRecords(track, car, ambient, session, {});
+  const comparison = compareFromRecords(track, car, ambient, session, { line: 'centreline' });
   const outputs = outputBatch([trackFile, carFile]);
   outputs.add(logFile, csv);
   for (const { file, content } of comparisonFiles(comparison, values.out)) outputs.add(file, content);
@@ -78,7 +79,11 @@ export function runDemo(values: DemoValues): void {
     html: values.html ?? path.join(values.out, 'report.html'),
     ...(values.svg ? { svg: values.svg } : {}),
   };
-  const reportFiles = addReportOutputs(outputs, reportOptions, sessionReportInput(comparison, car, ambient));
+  const reportFiles = addReportOutputs(
+    outputs,
+    reportOptions,
+    sessionReportInput(comparison, car, ambient, comparison.linePositions),
+  );
   outputs.commit();
   const faults = lap.faults
     .map((f) => `${f.kind.replace(/-/g, ' ')} at corner ${f.cornerId}${f.cornerName ? ` (${f.cornerName})` : ''}`)
@@ -88,7 +93,7 @@ export function runDemo(values: DemoValues): void {
       `The driver model's faults: ${faults}.\n` +
       `Log written to ${logFile}; aligned traces and corner table in ${values.out}/.\n\n`,
   );
-  process.stdout.write(compareSummaryText(comparison.result));
+  process.stdout.write(withReferencePath(compareSummaryText(comparison.result), comparison.referencePath));
   process.stdout.write('\n' + reportWrittenText(reportFiles).replace(/\n$/, ' (open it in a browser)\n'));
   process.stdout.write(
     `\nTo run this comparison yourself: reflap compare --track ${trackFile} --car ${carFile} --telemetry ${logFile}\n`,

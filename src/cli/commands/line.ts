@@ -1,18 +1,14 @@
 // `reflap line`: the racing line inside the track edges for one car, as a summary, a JSON object or a line CSV.
-// Also resolves `simulate --line auto|FILE` into a path for the solver.
 
 import { Option, type Command } from 'commander';
 import { InputError } from '../../errors.js';
-import type { Ambient, Car } from '../../car/types.js';
-import type { Envelope } from '../../car/envelope.js';
-import type { Path, TrackGrid } from '../../track/types.js';
-import type { LapResult } from '../../solve/types.js';
+import type { Car } from '../../car/types.js';
+import type { TrackGrid } from '../../track/types.js';
 import { buildEnvelope } from '../../car/build-envelope.js';
 import { defaultMarginM } from '../../line/corridor.js';
 import { lineCsv } from '../../line/line-csv.js';
-import { lineFromOffsets, racingLine } from '../../line/racing-line.js';
+import { racingLine } from '../../line/racing-line.js';
 import { LINE_OBJECTIVES, type LineObjective, type RacingLine } from '../../line/types.js';
-import { readLineFile } from '../../io/read-line.js';
 import { SAFETY_CAUTION, round } from '../../report/lap-summary.js';
 import { formatLapTime } from '../../units.js';
 import {
@@ -116,40 +112,4 @@ export function runLine(values: LineValues): void {
     process.stdout.write(lineSummaryText(line, track, car.name));
     if (values.out) process.stdout.write(`Line written to ${values.out}\n`);
   }
-}
-
-export interface ResolvedLine {
-  path: Path;
-  offsetM: Float64Array;
-  xM: Float64Array;
-  yM: Float64Array;
-  /** The lap the line search already drove on this line (same car, air, envelope and start speed), for `auto`. */
-  lap?: LapResult;
-}
-
-/**
- * `--line auto` computes the time line for this car (margin as `line` would take it); `--line FILE` reads a
- * line CSV and checks it against the track.
- */
-export function resolveLinePath(
-  track: TrackGrid,
-  car: Car,
-  ambient: Ambient,
-  value: string,
-  options: { envelope?: Envelope; startSpeedMps?: number; marginM?: number } = {},
-): ResolvedLine {
-  if (value === 'auto') {
-    const marginM = options.marginM ?? defaultMarginM(car);
-    const line = racingLine(track, car, {
-      objective: 'time',
-      marginM,
-      ambient,
-      envelope: options.envelope,
-      startSpeedMps: options.startSpeedMps,
-    });
-    return { path: line.path, offsetM: line.offsetM, xM: line.xM, yM: line.yM, lap: line.lap };
-  }
-  const offsetM = readLineFile(value, track);
-  const geometry = lineFromOffsets(track, offsetM);
-  return { path: geometry.path, offsetM, xM: geometry.xM, yM: geometry.yM };
 }

@@ -16,7 +16,7 @@ import { buildEnvelope } from '../../car/build-envelope.js';
 import { traceCsv, type ExtraColumn } from '../../report/trace-csv.js';
 import { lapSummaryJson, lapSummaryText, SAFETY_CAUTION } from '../../report/lap-summary.js';
 import { outputBatch } from '../output.js';
-import { resolveLinePath } from './line.js';
+import { addLineOption, referencePathJson, resolveReferenceLine, withReferencePath } from '../reference-path.js';
 import { addReportOptions, addReportOutputs, reportWrittenText, type ReportOptionValues } from '../html-options.js';
 import { readEnvelopeFile } from '../../io/read-envelope.js';
 import { demonstratedEnvelope } from '../../car/demonstrated-envelope.js';
@@ -47,14 +47,11 @@ export function register(program: Command): void {
       "drive on this demonstrated envelope (from `reflap envelope`) instead of the car model's",
     )
     .option(
-      '--line <auto|file>',
-      "drive a racing line: 'auto' computes the time line first, or a line CSV from `reflap line --out`",
-    )
-    .option(
       '--check-transient',
       'follow the reference with the single-track model and a driver model, and report whether it is drivable',
     );
   addUncertaintyOption(command);
+  addLineOption(command);
   addReportOptions(command).action((values: SimulateValues) => runSimulate(values));
 }
 
@@ -69,19 +66,23 @@ export async function runSimulate(values: SimulateValues): Promise<void> {
   const envelope = values.envelope
     ? demonstratedEnvelope(readEnvelopeFile(values.envelope))
     : buildEnvelope(car, ambient);
-  const line = values.line
-    ? resolveLinePath(track, car, ambient, values.line, { envelope, startSpeedMps: startSpeedMps(values) })
-    : null;
+  const reference = resolveReferenceLine(track, car, ambient, values.line, {
+    envelope,
+    startSpeedMps: startSpeedMps(values),
+  });
   const result =
-    line?.lap ?? simulate(track, car, { ambient, envelope, startSpeedMps: startSpeedMps(values), path: line?.path });
-  const extraColumns: ExtraColumn[] = line
-    ? [
-        { name: 'offset_m', values: line.offsetM, digits: 4 },
-        { name: 'x_m', values: line.xM, digits: 3 },
-        { name: 'y_m', values: line.yM, digits: 3 },
-      ]
-    : [];
-  const bicycle = bicycleSimulateExtras(result, car, ambient, values.checkTransient === true, line?.offsetM);
+    reference.lap ??
+    simulate(track, car, { ambient, envelope, startSpeedMps: startSpeedMps(values), path: reference.path });
+  const { offsetM, xM, yM } = reference;
+  const extraColumns: ExtraColumn[] =
+    offsetM && xM && yM
+      ? [
+          { name: 'offset_m', values: offsetM, digits: 4 },
+          { name: 'x_m', values: xM, digits: 3 },
+          { name: 'y_m', values: yM, digits: 3 },
+        ]
+      : [];
+  const bicycle = bicycleSimulateExtras(result, car, ambient, values.checkTransient === true, offsetM);
   extraColumns.push(...bicycle.columns);
   const uncertainty =
     draws === null
@@ -104,7 +105,7 @@ export async function runSimulate(values: SimulateValues): Promise<void> {
     reference: result,
     carName: car.name,
     envelope,
-    ...(line ? { linePositions: { xM: line.xM, yM: line.yM } } : {}),
+    ...(xM && yM ? { linePositions: { xM, yM } } : {}),
     ...(uncertainty ? { uncertainty } : {}),
   });
   outputs.commit();
@@ -113,6 +114,7 @@ export async function runSimulate(values: SimulateValues): Promise<void> {
       JSON.stringify(
         {
           ...lapSummaryJson(result, car.name),
+          ...referencePathJson(reference),
           ...bicycle.json,
           ...(uncertainty ? { uncertainty: uncertaintyJson(uncertainty) } : {}),
         },
@@ -121,7 +123,7 @@ export async function runSimulate(values: SimulateValues): Promise<void> {
       ) + '\n',
     );
   } else {
-    const summary = lapSummaryText(result, car.name);
+    const summary = withReferencePath(lapSummaryText(result, car.name), reference);
     // The band goes with the lap's own figures, before the caution that closes the summary.
     process.stdout.write(
       uncertainty

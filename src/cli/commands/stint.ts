@@ -14,7 +14,8 @@ import {
 import { writeFileAtomic } from '../output.js';
 import { createProgress } from '../progress.js';
 import { parseSetting } from '../../sweep/settings.js';
-import { loadSetupInputs, workerCount } from './sweep.js';
+import { loadSetupInputs, setupReference, workerCount } from './sweep.js';
+import { addLineOption, referencePathJson, withReferencePath } from '../reference-path.js';
 import { runStintInWorkers, type StintResult } from '../../sweep/stint.js';
 import { DIGITS } from '../../sweep/table.js';
 import { formatTable } from '../../report/text-table.js';
@@ -44,12 +45,8 @@ export function register(program: Command): void {
     .option('--set <field=value...>', 'changes to the car first, as in whatif (e.g. fuel.massKg=60)')
     .option('--workers <n>', 'worker threads (default: the number of cores; 0 = in this thread)')
     .option('--out <file>', 'write one CSV row per lap')
-    .option(
-      '--line <auto|file>',
-      "drive a racing line (held fixed for every setup): 'auto' computes the baseline car's time line, or a line CSV from `reflap line --out`",
-    )
-    .option('--json', 'print one JSON object instead of the tables')
-    .action((values: StintValues) => runStintCommand(values));
+    .option('--json', 'print one JSON object instead of the tables');
+  addLineOption(command, true).action((values: StintValues) => runStintCommand(values));
 }
 
 const fmt = (value: number, digits: number) => (Number.isFinite(value) ? value.toFixed(digits) : '');
@@ -130,7 +127,10 @@ export async function runStintCommand(values: StintValues): Promise<void> {
   const laps = numberOption(values.laps, '--laps', 1);
   const workers = workerCount(values.workers);
   const settings = (values.set ?? []).map((text) => parseSetting(text));
-  const { track, base, start, path } = loadSetupInputs(values, settings);
+  const inputs = loadSetupInputs(values, settings);
+  const { track, base, start } = inputs;
+  const reference = setupReference(values, inputs);
+  const path = reference.path;
   const progress = createProgress({ label: 'stint', json: values.json });
   let result: StintResult;
   try {
@@ -143,9 +143,13 @@ export async function runStintCommand(values: StintValues): Promise<void> {
     progress.stop();
   }
   if (values.out) writeFileAtomic(values.out, stintCsv(result), inputFilesOf(values));
-  if (values.json) process.stdout.write(JSON.stringify(stintJson(result), null, 2) + '\n');
+  if (values.json)
+    process.stdout.write(
+      JSON.stringify({ ...stintJson(result), ...referencePathJson(reference, true) }, null, 2) + '\n',
+    );
   else
     process.stdout.write(
-      stintText(result, track.name, base.car.name) + (values.out ? `Laps written to ${values.out}\n` : ''),
+      withReferencePath(stintText(result, track.name, base.car.name), reference, true) +
+        (values.out ? `Laps written to ${values.out}\n` : ''),
     );
 }

@@ -21,7 +21,7 @@ import { addPageOutputs, addReportOptions, reportWrittenText, type ReportOptionV
 import { sweepChartSvgs, sweepReportHtml } from '../../report/sweep-page.js';
 import { createProgress } from '../progress.js';
 import { parseSetting, parseVariation, setupBaseFrom, type Setting, type SetupBase } from '../../sweep/settings.js';
-import type { Path, TrackGrid } from '../../track/types.js';
+import type { TrackGrid } from '../../track/types.js';
 import { parseShard, type SweepMode } from '../../sweep/plan.js';
 import { runSweep } from '../../sweep/run-sweep.js';
 import { defaultWorkerCount } from '../../sweep/pool.js';
@@ -34,7 +34,8 @@ import { perUnit } from '../../report/sweep-format.js';
 import { formatLapTime } from '../../units.js';
 import { InputError } from '../../errors.js';
 import { ambientFrom } from '../../car/ambient.js';
-import { resolveLinePath } from './line.js';
+import { addLineOption, referencePathJson, resolveReferenceLine, withReferencePath } from '../reference-path.js';
+import type { ReferenceLine } from '../../line/reference-line.js';
 
 interface SweepValues extends Partial<TrackOptionValues>, Partial<CarOptionValues>, ReportOptionValues {
   vary?: string[];
@@ -77,11 +78,8 @@ export function register(program: Command): void {
       '--match-m <m>',
       `largest distance between the slowest points of one corner in two runs, m (default ${DEFAULT_MATCH_TOLERANCE_M})`,
     )
-    .option(
-      '--line <auto|file>',
-      "drive a racing line (held fixed for every setup): 'auto' computes the baseline car's time line, or a line CSV from `reflap line --out`",
-    )
     .option('--json', 'print one JSON object instead of the tables');
+  addLineOption(command, true);
   addReportOptions(
     command,
     'the sweep report: one HTML page with lap time and braking-point shift against each field',
@@ -90,19 +88,26 @@ export function register(program: Command): void {
 
 export type SetupOptionValues = TrackOptionValues & CarOptionValues & { line?: string };
 
-/** Track, base car and air (with fixed --set changes), start speed and the racing line if asked: what every setup run shares. */
+/** Track, base car and air (with fixed --set changes) and start speed: what every setup run shares. */
 export function loadSetupInputs(
   values: SetupOptionValues,
   fixed: readonly Setting[],
-): { track: TrackGrid; base: SetupBase; start: number; path: Path | undefined } {
+): { track: TrackGrid; base: SetupBase; start: number } {
   const track = loadTrack(values);
   const { car, ambient } = loadCar(values);
-  const base = setupBaseFrom(car, ambient, fixed);
-  const start = startSpeedMps(values);
-  const path = values.line
-    ? resolveLinePath(track, base.car, ambientFrom(base.air), values.line, { startSpeedMps: start }).path
-    : undefined;
-  return { track, base, start, path };
+  return { track, base: setupBaseFrom(car, ambient, fixed), start: startSpeedMps(values) };
+}
+
+/**
+ * The reference's path for every setup: computed once, for the baseline car, and held for every setup (the line
+ * search is the costly part of a run). Called after the cheap checks of the input, so bad input fails fast.
+ */
+export function setupReference(
+  values: SetupOptionValues,
+  inputs: { track: TrackGrid; base: SetupBase; start: number },
+): ReferenceLine {
+  const { track, base, start } = inputs;
+  return resolveReferenceLine(track, base.car, ambientFrom(base.air), values.line, { startSpeedMps: start });
 }
 
 /** Parses --workers: default the number of cores, 0 = in the calling thread. */
@@ -226,7 +231,10 @@ export async function runSweepCommand(values: SweepValues): Promise<void> {
   const workers = workerCount(values.workers);
   const matchToleranceM = numberOption(values.matchM, '--match-m', DEFAULT_MATCH_TOLERANCE_M);
   if (!(matchToleranceM > 0)) throw new InputError(`option --match-m: ${matchToleranceM} must be positive`);
-  const { track, base, start, path } = loadSetupInputs(values as SetupOptionValues, settings);
+  const inputs = loadSetupInputs(values as SetupOptionValues, settings);
+  const { track, base, start } = inputs;
+  const reference = setupReference(values as SetupOptionValues, inputs);
+  const path = reference.path;
   const progress = createProgress({ label: 'sweep', json: values.json });
   let output;
   try {
@@ -253,6 +261,13 @@ export async function runSweepCommand(values: SweepValues): Promise<void> {
   const reportFiles = addSweepReport(outputs, values, table);
   outputs.commit();
   const found = sensitivities(table);
-  if (values.json) process.stdout.write(JSON.stringify(sweepJson(table, found, complete), null, 2) + '\n');
-  else process.stdout.write(summaryText(table, found, complete, values.out) + reportWrittenText(reportFiles));
+  if (values.json)
+    process.stdout.write(
+      JSON.stringify({ ...sweepJson(table, found, complete), ...referencePathJson(reference, true) }, null, 2) + '\n',
+    );
+  else
+    process.stdout.write(
+      withReferencePath(summaryText(table, found, complete, values.out), reference, true) +
+        reportWrittenText(reportFiles),
+    );
 }

@@ -20,7 +20,8 @@ import { formatTable } from '../../report/text-table.js';
 import { round, SAFETY_CAUTION } from '../../report/lap-summary.js';
 import { formatLapTime } from '../../units.js';
 import { InputError } from '../../errors.js';
-import { loadSetupInputs } from './sweep.js';
+import { loadSetupInputs, setupReference } from './sweep.js';
+import { addLineOption, referencePathJson, withReferencePath } from '../reference-path.js';
 import { ambientFrom } from '../../car/ambient.js';
 import { outputBatch } from '../output.js';
 import { addPageOutputs, addReportOptions, reportWrittenText, type ReportOptionValues } from '../html-options.js';
@@ -48,11 +49,8 @@ export function register(program: Command): void {
       '--match-m <m>',
       `largest distance between the slowest points of one corner in the two laps, m (default ${DEFAULT_MATCH_TOLERANCE_M})`,
     )
-    .option(
-      '--line <auto|file>',
-      "drive a racing line (held fixed for every setup): 'auto' computes the baseline car's time line, or a line CSV from `reflap line --out`",
-    )
     .option('--json', 'print one JSON object instead of the table');
+  addLineOption(command, true);
   addReportOptions(command, 'a page with the braking-point shift per corner as a bar chart').action(
     (values: WhatifValues) => runWhatif(values),
   );
@@ -153,14 +151,20 @@ export function runWhatif(values: WhatifValues): void {
   const settings = texts.map((text) => parseSetting(text));
   const toleranceM = numberOption(values.matchM, '--match-m', DEFAULT_MATCH_TOLERANCE_M);
   if (!(toleranceM > 0)) throw new InputError(`option --match-m: ${toleranceM} must be positive`);
-  const { track, base, start, path } = loadSetupInputs(values, []);
+  const inputs = loadSetupInputs(values, []);
+  const { track, base, start } = inputs;
   const { car } = base;
   const changed = applySettings(base, settings);
-  const baseline = simulate(track, car, {
-    ambient: ambientFrom(base.air),
-    startSpeedMps: start,
-    ...(path ? { path } : {}),
-  });
+  const reference = setupReference(values, inputs);
+  const path = reference.path;
+  // The line search already drove the baseline car on its line.
+  const baseline =
+    reference.lap ??
+    simulate(track, car, {
+      ambient: ambientFrom(base.air),
+      startSpeedMps: start,
+      ...(path ? { path } : {}),
+    });
   const result = simulate(track, changed.car, {
     ambient: changed.ambient,
     startSpeedMps: start,
@@ -181,8 +185,13 @@ export function runWhatif(values: WhatifValues): void {
       from: baseValueOf(base, setting.field),
       to: changed.values[k]!,
     }));
-    process.stdout.write(JSON.stringify(whatifJson(comparison, changes), null, 2) + '\n');
+    process.stdout.write(
+      JSON.stringify({ ...whatifJson(comparison, changes), ...referencePathJson(reference, true) }, null, 2) + '\n',
+    );
   } else {
-    process.stdout.write(whatifText(comparison, described, track.name, car.name) + reportWrittenText(reportFiles));
+    process.stdout.write(
+      withReferencePath(whatifText(comparison, described, track.name, car.name), reference, true) +
+        reportWrittenText(reportFiles),
+    );
   }
 }
