@@ -1,12 +1,22 @@
-// Reads a line CSV (s_m, offset_m, and optionally x_m, y_m, curvature_1pm; see src/line/line-csv.ts) back onto
-// a track's grid, for `simulate --line FILE`. Validated here, once: the line must belong to this track (its
-// stations span the track, its positions lie where its offsets put them) and stay inside the edges. A line on
-// another grid spacing is resampled linearly onto this one.
+// Reads a line CSV back onto a track's grid, for `--line FILE`: either s_m, offset_m (and optionally x_m, y_m,
+// curvature_1pm; see src/line/line-csv.ts), or plane positions x_m, y_m alone (a line from elsewhere, in the
+// track's plane). Validated here, once: the line must belong to this track (its stations span the track, its
+// positions lie where its offsets put them), its points must be close enough to resolve the corners, and it
+// must stay inside the edges. A line on another spacing goes onto this grid through a cubic spline
+// (src/line/resample-line.ts), never by straight joins.
 
 import { readTextFile } from './read-text.js';
 import { InputError } from '../errors.js';
 import type { TrackGrid } from '../track/types.js';
 import { numberCell, parseCsvTable } from './csv-table.js';
+import {
+  MAX_TURN_BETWEEN_POINTS_RAD,
+  projectLinePositions,
+  splineOffsets,
+  worstPointTurn,
+  worstStationTurn,
+  type WorstTurn,
+} from '../line/resample-line.js';
 
 /** Positions further than this from where the offset puts them mean another track (or another layout), m. */
 const POSITION_TOLERANCE_M = 2;
@@ -15,39 +25,6 @@ const EDGE_TOLERANCE_M = 0.01;
 
 export function readLineFile(file: string, track: TrackGrid): Float64Array {
   return parseLineCsv(readTextFile(file, 'line file'), file, track);
-}
-
-function interpolateStation(
-  stations: Float64Array,
-  values: Float64Array,
-  s: number,
-  closed: boolean,
-  lengthM: number,
-): number {
-  const n = stations.length;
-  // Binary search for the last station <= s.
-  let lo = 0;
-  let hi = n - 1;
-  if (s <= stations[0]!) {
-    if (!closed) return values[0]!;
-    // Between the last row (one lap earlier) and the first.
-    const before = stations[n - 1]! - lengthM;
-    const t = (s - before) / (stations[0]! - before);
-    return values[n - 1]! + t * (values[0]! - values[n - 1]!);
-  }
-  if (s >= stations[n - 1]!) {
-    if (!closed) return values[n - 1]!;
-    const after = stations[0]! + lengthM;
-    const t = (s - stations[n - 1]!) / (after - stations[n - 1]!);
-    return values[n - 1]! + t * (values[0]! - values[n - 1]!);
-  }
-  while (hi - lo > 1) {
-    const mid = (lo + hi) >> 1;
-    if (stations[mid]! <= s) lo = mid;
-    else hi = mid;
-  }
-  const t = (s - stations[lo]!) / (stations[hi]! - stations[lo]!);
-  return values[lo]! + t * (values[hi]! - values[lo]!);
 }
 
 export function parseLineCsv(text: string, source: string, track: TrackGrid): Float64Array {
@@ -60,11 +37,13 @@ export function parseLineCsv(text: string, source: string, track: TrackGrid): Fl
       );
     return index;
   };
-  const sIndex = column('s_m', true);
-  const offsetIndex = column('offset_m', true);
   const xIndex = column('x_m', false);
   const yIndex = column('y_m', false);
   if (rows.length < 2) throw new InputError(`${source}: only ${rows.length} rows; a line needs at least 2`);
+  if (header.indexOf('s_m') < 0 && header.indexOf('offset_m') < 0 && xIndex >= 0 && yIndex >= 0)
+    return positionsOnly(rows, lines, xIndex, yIndex, source, track);
+  const sIndex = column('s_m', true);
+  const offsetIndex = column('offset_m', true);
   const count = rows.length;
   const stations = new Float64Array(count);
   const offsets = new Float64Array(count);
@@ -82,7 +61,10 @@ export function parseLineCsv(text: string, source: string, track: TrackGrid): Fl
   // The line must span this track: first station at the start, last one lap (closed) or the length (open) on.
   const step = track.stepM;
   const lastExpected = track.closed ? track.lengthM - step : track.lengthM;
-  const spanTolerance = Math.max(2 * step, 0.01 * track.lengthM);
+  // A line on a coarser spacing ends up to one of its own gaps short of the end.
+  let fileGapM = 0;
+  for (let r = 1; r < count; r++) fileGapM = Math.max(fileGapM, stations[r]! - stations[r - 1]!);
+  const spanTolerance = Math.max(2 * step, 0.01 * track.lengthM, fileGapM);
   if (Math.abs(stations[0]!) > spanTolerance || Math.abs(stations[count - 1]! - lastExpected) > spanTolerance) {
     throw new InputError(
       `${source}: the line runs from ${stations[0]!.toFixed(1)} to ${stations[count - 1]!.toFixed(1)} m but ${track.source} runs from 0 to ${lastExpected.toFixed(1)} m on its grid; the line belongs to another track or layout`,
@@ -108,28 +90,93 @@ export function parseLineCsv(text: string, source: string, track: TrackGrid): Fl
       }
     }
   }
-  // On the same grid (the usual case) take the offsets as they are; otherwise resample.
+  // On the same grid (the usual case) take the offsets as they are; otherwise through the spline.
   const n = track.distanceM.length;
   const sameGrid = count === n && stations.every((s, i) => Math.abs(s - track.distanceM[i]!) <= 1e-3 * step + 1e-6);
-  const out = new Float64Array(n);
-  for (let i = 0; i < n; i++)
-    out[i] = sameGrid
-      ? offsets[i]!
-      : interpolateStation(stations, offsets, track.distanceM[i]!, track.closed, track.lengthM);
-  // Inside the edges (the margin is the maker's choice, the edges are not).
+  let out: Float64Array = offsets;
+  if (!sameGrid) {
+    const worst = worstStationTurn(track, stations);
+    checkSpacing(worst, lines[worst.index]!, source);
+    out = splineOffsets(track, stations, offsets);
+  }
+  checkInsideEdges(
+    out,
+    source,
+    track,
+    (i) => lines[Math.min(count - 1, sameGrid ? i : nearestRow(stations, track.distanceM[i]!))]!,
+  );
+  return out;
+}
+
+/** The points must be close enough to resolve the corners (criterion in src/line/resample-line.ts). */
+function checkSpacing(worst: WorstTurn, line: number, source: string): void {
+  if (worst.turnRad <= MAX_TURN_BETWEEN_POINTS_RAD) return;
+  const radiusM = worst.gapM / worst.turnRad;
+  throw new InputError(
+    `${source}: row ${line}: the line's points are ${worst.gapM.toFixed(1)} m apart where it turns ${((worst.turnRad * 180) / Math.PI).toFixed(0)} degrees between them, too far apart to resolve a corner of radius about ${radiusM.toFixed(1)} m; give points at most ${(MAX_TURN_BETWEEN_POINTS_RAD * radiusM).toFixed(1)} m apart there (half the radius: at most ${((MAX_TURN_BETWEEN_POINTS_RAD * 180) / Math.PI).toFixed(0)} degrees of turn from one point to the next)`,
+  );
+}
+
+/** A line of x_m, y_m alone: projected onto the track's grid along each sample's normal. */
+function positionsOnly(
+  rows: string[][],
+  lines: number[],
+  xIndex: number,
+  yIndex: number,
+  source: string,
+  track: TrackGrid,
+): Float64Array {
+  const count = rows.length;
+  const x = new Float64Array(count);
+  const y = new Float64Array(count);
+  for (let r = 0; r < count; r++) {
+    x[r] = numberCell(rows[r]![xIndex] ?? '', source, lines[r]!, 'x_m');
+    y[r] = numberCell(rows[r]![yIndex] ?? '', source, lines[r]!, 'y_m');
+    if (r > 0 && x[r] === x[r - 1] && y[r] === y[r - 1])
+      throw new InputError(`${source}: row ${lines[r]}: the same point as the row before; give each point once`);
+  }
+  // A closed line may repeat its first point at the end; the spline closes the loop itself.
+  let used = count;
+  if (track.closed && count > 2 && x[0] === x[count - 1] && y[0] === y[count - 1]) used = count - 1;
+  const worst = worstPointTurn(x.subarray(0, used), y.subarray(0, used), track.closed);
+  checkSpacing(worst, lines[worst.index]!, source);
+  const projected = projectLinePositions(track, x.subarray(0, used), y.subarray(0, used));
+  if (projected.lostAtM !== null)
+    throw new InputError(
+      `${source}: the line does not follow ${track.source} at ${projected.lostAtM.toFixed(1)} m (no point of it beside the track there); the line belongs to another track or layout, or its x_m, y_m are in another plane`,
+    );
+  // Each projected sample lies where its offset puts it; the positions must then lie near the track.
+  checkInsideEdges(projected.offsetM, source, track, (i) => lines[nearestPoint(x, y, track, i)]!);
+  return projected.offsetM;
+}
+
+function nearestPoint(x: Float64Array, y: Float64Array, track: TrackGrid, i: number): number {
+  let best = 0;
+  let bestD = Infinity;
+  for (let r = 0; r < x.length; r++) {
+    const d = Math.hypot(x[r]! - track.xM[i]!, y[r]! - track.yM[i]!);
+    if (d < bestD) {
+      bestD = d;
+      best = r;
+    }
+  }
+  return best;
+}
+
+/** Inside the edges (the margin is the maker's choice, the edges are not). */
+function checkInsideEdges(out: Float64Array, source: string, track: TrackGrid, rowOf: (i: number) => number): void {
+  const n = out.length;
   if (track.widthLeftM && track.widthRightM) {
     for (let i = 0; i < n; i++) {
       const left = track.widthLeftM[i]!;
       const right = track.widthRightM[i]!;
       if (out[i]! > left + EDGE_TOLERANCE_M || out[i]! < -right - EDGE_TOLERANCE_M) {
-        const r = Math.min(count - 1, sameGrid ? i : nearestRow(stations, track.distanceM[i]!));
         throw new InputError(
-          `${source}: row ${lines[r]}: offset ${out[i]!.toFixed(2)} m at ${track.distanceM[i]!.toFixed(1)} m is outside the track (left edge ${left.toFixed(2)} m, right edge -${right.toFixed(2)} m)`,
+          `${source}: row ${rowOf(i)}: offset ${out[i]!.toFixed(2)} m at ${track.distanceM[i]!.toFixed(1)} m is outside the track (left edge ${left.toFixed(2)} m, right edge -${right.toFixed(2)} m)`,
         );
       }
     }
   }
-  return out;
 }
 
 function nearestRow(stations: Float64Array, s: number): number {

@@ -1,4 +1,5 @@
-// Reading a line CSV back onto a track: the same grid, another grid (resampled), and the one-line errors.
+// Reading a line CSV back onto a track: the same grid, another grid (through the spline), positions alone (a
+// published line from outside the project), and the one-line errors.
 
 import { describe, expect, it } from 'vitest';
 import { parseLineCsv } from '../../src/io/read-line.js';
@@ -29,8 +30,34 @@ describe('line CSV round trip', () => {
     const fineOffsets = new Float64Array(fine.distanceM.length);
     for (let i = 0; i < fineOffsets.length; i++) fineOffsets[i] = 3 * Math.sin((2 * fine.distanceM[i]!) / 100);
     const back = parseLineCsv(lineCsv(lineFromOffsets(fine, fineOffsets)), 'fine.csv', track);
-    // Linear interpolation of a sine sampled at 0.5 m: error below (0.5^2 / 8) * 3 * (2/100)^2 (interpolation bound).
-    for (let i = 0; i < count; i += 7) expect(Math.abs(back[i]! - offsets[i]!)).toBeLessThan(1e-3);
+    // Even linear interpolation of a sine sampled at 0.5 m stays below (0.5^2 / 8) * 3 * (2/100)^2 = 4e-5 m
+    // (interpolation error bound); the cubic spline does better still.
+    for (let i = 0; i < count; i += 7) expect(Math.abs(back[i]! - offsets[i]!)).toBeLessThan(1e-4);
+  });
+
+  it('reads a line of x_m, y_m alone onto the track along each normal', () => {
+    const positionsOnly = csv
+      .split('\n')
+      .map((row) => row.split(',').slice(2, 4).join(','))
+      .filter((row, k) => k === 0 || k % 3 === 1)
+      .join('\n');
+    const back = parseLineCsv(positionsOnly, 'xy.csv', track);
+    // Every third point of the 2 m line (6 m apart on a 100 m ring, 3.4 degrees of turn between points): a cubic
+    // through them is within (h^4 / 384) max|f''''| of the sine, about 1e-4 m (de Boor, ch. IV); the positions
+    // are rounded to 1 mm in the file.
+    for (let i = 0; i < count; i += 5) expect(Math.abs(back[i]! - offsets[i]!)).toBeLessThan(3e-3);
+  });
+});
+
+describe('points too far apart to resolve the corners', () => {
+  it('is an error naming the spacing, the turn and the spacing to give', () => {
+    const sparse = ring(30, 10, 1);
+    // A 30 m ring from points 20 m apart: 38 degrees of turn from one point to the next, over the 29 allowed.
+    const rows = ['s_m,offset_m'];
+    for (let s = 0; s < sparse.lengthM - 1; s += 20) rows.push(`${s},0`);
+    expect(() => parseLineCsv(rows.join('\n'), 'sparse.csv', sparse)).toThrow(
+      /sparse\.csv: row \d+: the line's points are 20\.0 m apart where it turns 38 degrees between them, too far apart to resolve a corner of radius about (29\.9|30\.0) m; give points at most 15\.0 m apart there/,
+    );
   });
 });
 

@@ -193,14 +193,16 @@ describe('CLI property: garbage in any input gives exit 0 or 2, one line on stde
         (text, extension, how) => {
           const file = join(folder, `fuzz-${index++}${extension}`);
           writeFileSync(file, text, 'latin1');
+          // On the centreline: the fuzzing is of the input files, and a line search per run would only add time.
+          const centreline = ['--line', 'centreline'];
           const args =
             how === 'simulate-track'
-              ? ['simulate', '--track', file, '--car', car]
+              ? ['simulate', '--track', file, '--car', car, ...centreline]
               : how === 'simulate-car'
-                ? ['simulate', '--track', track, '--car', file]
+                ? ['simulate', '--track', track, '--car', file, ...centreline]
                 : how === 'check'
                   ? ['check', file]
-                  : ['compare', '--track', track, '--car', car, '--telemetry', file];
+                  : ['compare', '--track', track, '--car', car, '--telemetry', file, ...centreline];
           const run = runCli(args);
           expect([0, 2]).toContain(run.code);
           if (run.code === 2) expectBadInput(run);
