@@ -33,6 +33,40 @@ export function benchmarkCircuitSegments(): TrackSegment[] {
   ];
 }
 
+/** The same circuit in three dimensions: the straights climb and fall 2 % (the lap closes in height), the
+ * hairpin is banked 8 degrees and the S-bends 3, so every road term is at work. */
+export function benchmarkCircuitSegments3d(): TrackSegment[] {
+  const grades = [2, 0, 0, -2, 0, -2, 0, 0, 2, 0, 0, 0, 0];
+  const banks = [0, -3, 3, 0, 8, 0, -3, 3, 0, 4, 0, 4, 0];
+  return benchmarkCircuitSegments().map((segment, k) => ({
+    ...segment,
+    gradePct: grades[k] ?? 0,
+    bankDeg: banks[k] ?? 0,
+  }));
+}
+
+/** Issue 14's target: a 3D lap costs at most 1.3 times the flat lap, CPU and wall, at 1 m. */
+function roadCost(
+  car: Parameters<typeof simulate>[1],
+  ambient: ReturnType<typeof ambientFrom>,
+  envelope: ReturnType<typeof buildEnvelope>,
+): void {
+  const lapOf = (segments: TrackSegment[]) =>
+    trackFromSegments({ name: 'benchmark circuit', closed: true, widthM: 12, segments }, 1, 'benchmark');
+  const flat = lapOf(benchmarkCircuitSegments());
+  const hilly = lapOf(benchmarkCircuitSegments3d());
+  let flatLapS = 0;
+  let hillyLapS = 0;
+  const flatTiming = medianTimes(() => (flatLapS = simulate(flat, car, { ambient, envelope }).lapTimeS), 20, 5);
+  const hillyTiming = medianTimes(() => (hillyLapS = simulate(hilly, car, { ambient, envelope }).lapTimeS), 20, 5);
+  process.stdout.write(
+    `simulate 3D: flat ${flatTiming.wallMs.toFixed(2)} ms wall / ${flatTiming.cpuMs.toFixed(2)} ms CPU (lap ${flatLapS.toFixed(3)} s); ` +
+      `grades and banks ${hillyTiming.wallMs.toFixed(2)} ms wall / ${hillyTiming.cpuMs.toFixed(2)} ms CPU (lap ${hillyLapS.toFixed(3)} s)\n`,
+  );
+  process.stdout.write(`  ${verdict('3D / flat CPU', hillyTiming.cpuMs / flatTiming.cpuMs, 1.3, 'x')}\n`);
+  process.stdout.write(`  ${verdict('3D / flat wall', hillyTiming.wallMs / flatTiming.wallMs, 1.3, 'x')}\n`);
+}
+
 export async function run(): Promise<void> {
   const car = parseCarJson(readFileSync(`${projectRoot}cars/tarnfell-gt.json`, 'utf8'), 'cars/tarnfell-gt.json');
   const ambient = ambientFrom();
@@ -60,5 +94,6 @@ export async function run(): Promise<void> {
     if (stepM === 1) process.stdout.write(`  ${verdict('CPU per lap', timing.cpuMs, 1.0, 'ms')}\n`);
   }
   process.stdout.write(`${linearityVerdict(perPointNs)}; ${machineLoad()}\n`);
+  roadCost(car, ambient, envelope);
   process.stdout.write(`peak RSS ${peakRssMb().toFixed(0)} MB\n`);
 }

@@ -185,6 +185,8 @@ export {
 } from './track/corner-layout.js';
 export { cornerLayoutFromSpec, CORNERS_FORMAT, type CornerSpec } from './track/corner-spec.js';
 export { readCornersFile, parseCornersText } from './io/read-corners.js';
+// The road in three dimensions: heights, grade, bank and vertical curvature on the grid.
+export { roadProfileOf, type RoadProfile } from './track/road-profile.js';
 export { cornersFileJson, cornersText } from './report/corners-file.js';
 export { timeDeltaS, clockAt, distanceAsTimeS } from './compare/delta.js';
 export { rankFindings, cornerFindingText, DEFAULT_FINDING_OPTIONS, type FindingOptions } from './compare/findings.js';

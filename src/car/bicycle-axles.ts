@@ -60,12 +60,16 @@ export function axleState(
   axMps2: number,
   ayMps2: number,
   out: AxleState,
+  roadLoadN = 0,
 ): AxleState {
+  // roadLoadN: the normal force a slope, bank or crest adds to the weight (negative when it takes some away),
+  // acting at the centre of gravity and so split like the weight.
+  const weightN = p.weightN + roadLoadN;
   const shiftN = longitudinalLoadTransferN(p.massKg, axMps2, p.cgHeightM, p.wheelbaseM);
-  const frontLoadN = Math.max(0, p.weightN * p.frontWeightFraction + downforceN * p.frontDownforceFraction - shiftN);
+  const frontLoadN = Math.max(0, weightN * p.frontWeightFraction + downforceN * p.frontDownforceFraction - shiftN);
   const rearLoadN = Math.max(
     0,
-    p.weightN * (1 - p.frontWeightFraction) + downforceN * (1 - p.frontDownforceFraction) + shiftN,
+    weightN * (1 - p.frontWeightFraction) + downforceN * (1 - p.frontDownforceFraction) + shiftN,
   );
   const frontTransferN = lateralLoadTransferN(
     p.massKg,

@@ -44,16 +44,18 @@ export function bicycleEnvelope(car: Car, ambient: Ambient): BicycleEnvelope {
   const upperForceN = (speedMps: number, mu: number) =>
     2 * mu * (1 + tyre.loadSensitivity) * (p.weightN + Math.max(0, downforceN(speedMps))) + 1;
 
-  const lateralFits = (speedMps: number, ayMps2: number): boolean => {
-    const s = axleState(p, tyre, downforceN(speedMps), 0, ayMps2, scratch);
+  // The road's load beyond the weight on level ground (loadFactor 1 adds nothing).
+  const roadLoadN = (load: number) => (load === 1 ? 0 : (load - 1) * p.weightN);
+  const lateralFits = (speedMps: number, ayMps2: number, extraN = 0): boolean => {
+    const s = axleState(p, tyre, downforceN(speedMps), 0, ayMps2, scratch, extraN);
     return s.frontLatDemandN <= s.frontLatCapN && s.rearLatDemandN <= s.rearLatCapN;
   };
-  const exactLateralLimitMps2 = (speedMps: number): number => {
+  const exactLateralLimitMps2 = (speedMps: number, extraN = 0): number => {
     let lo = 0;
-    let hi = upperForceN(speedMps, tyre.muLat) / massKg;
+    let hi = upperForceN(speedMps, tyre.muLat) / massKg + Math.max(0, (2 * tyre.muLat * extraN) / massKg);
     for (let k = 0; k < BISECTION_STEPS; k++) {
       const mid = 0.5 * (lo + hi);
-      if (lateralFits(speedMps, mid)) lo = mid;
+      if (lateralFits(speedMps, mid, extraN)) lo = mid;
       else hi = mid;
     }
     return lo;
@@ -67,7 +69,9 @@ export function bicycleEnvelope(car: Car, ambient: Ambient): BicycleEnvelope {
     if (k === tableCount - 1) return lateralTable[k]! - lateralTable[k - 1]!;
     return 0.5 * (lateralTable[k + 1]! - lateralTable[k - 1]!);
   };
-  const lateralLimitMps2 = (speedMps: number): number => {
+  const lateralLimitMps2 = (speedMps: number, load = 1): number => {
+    // Off level ground the table (made for the weight alone) does not apply: solve for this load.
+    if (load !== 1) return exactLateralLimitMps2(Math.abs(speedMps), roadLoadN(load));
     const v = Math.abs(speedMps);
     if (v >= TABLE_TOP_MPS) return exactLateralLimitMps2(v);
     const position = v / TABLE_STEP_MPS;
@@ -84,8 +88,8 @@ export function bicycleEnvelope(car: Car, ambient: Ambient): BicycleEnvelope {
   };
 
   // Can the tyres give a drive force of forceN at this speed while cornering at ayMps2?
-  const driveFits = (speedMps: number, ayMps2: number, forceN: number, coastMps2: number): boolean => {
-    const s = axleState(p, tyre, downforceN(speedMps), forceN / massKg - coastMps2, ayMps2, scratch);
+  const driveFits = (speedMps: number, ayMps2: number, forceN: number, coastMps2: number, extraN: number): boolean => {
+    const s = axleState(p, tyre, downforceN(speedMps), forceN / massKg - coastMps2, ayMps2, scratch, extraN);
     if (s.frontLatDemandN > s.frontLatCapN || s.rearLatDemandN > s.rearLatCapN) return false;
     const frontLeftN = s.frontLongCapN * remainingShare(share(s.frontLatDemandN, s.frontLatCapN), exponent);
     const rearLeftN = s.rearLongCapN * remainingShare(share(s.rearLatDemandN, s.rearLatCapN), exponent);
@@ -95,8 +99,8 @@ export function bicycleEnvelope(car: Car, ambient: Ambient): BicycleEnvelope {
   };
   // Can the brakes, split front/rear by the fixed bias, give forceN? maxDecelG shrinks the braking side of each
   // axle's ellipse, as it shrinks the point-mass ellipse.
-  const brakeFits = (speedMps: number, ayMps2: number, forceN: number, coastMps2: number): boolean => {
-    const s = axleState(p, tyre, downforceN(speedMps), -forceN / massKg - coastMps2, ayMps2, scratch);
+  const brakeFits = (speedMps: number, ayMps2: number, forceN: number, coastMps2: number, extraN: number): boolean => {
+    const s = axleState(p, tyre, downforceN(speedMps), -forceN / massKg - coastMps2, ayMps2, scratch, extraN);
     if (s.frontLatDemandN > s.frontLatCapN || s.rearLatDemandN > s.rearLatCapN) return false;
     const cap = Math.min(1, brakeCapN / (s.frontLongCapN + s.rearLongCapN));
     const frontLeftN = cap * s.frontLongCapN * remainingShare(share(s.frontLatDemandN, s.frontLatCapN), exponent);
@@ -116,20 +120,22 @@ export function bicycleEnvelope(car: Car, ambient: Ambient): BicycleEnvelope {
     return lo;
   };
 
-  const accelLimitMps2 = (speedMps: number, lateralMps2: number): number => {
-    const coastMps2 = base.coastDecelMps2(speedMps);
+  const accelLimitMps2 = (speedMps: number, lateralMps2: number, load = 1): number => {
+    const coastMps2 = base.coastDecelMps2(speedMps, load);
     const engineN = drive.forceN(speedMps);
-    if (Math.abs(lateralMps2) >= lateralLimitMps2(speedMps)) return Math.min(0, engineN / massKg) - coastMps2;
-    const forceN = largestFitting((f) => driveFits(speedMps, lateralMps2, f, coastMps2), engineN);
+    if (Math.abs(lateralMps2) >= lateralLimitMps2(speedMps, load)) return Math.min(0, engineN / massKg) - coastMps2;
+    const extraN = roadLoadN(load);
+    const forceN = largestFitting((f) => driveFits(speedMps, lateralMps2, f, coastMps2, extraN), engineN);
     return forceN / massKg - coastMps2;
   };
 
-  const brakeLimitMps2 = (speedMps: number, lateralMps2: number): number => {
-    const coastMps2 = base.coastDecelMps2(speedMps);
-    if (Math.abs(lateralMps2) >= lateralLimitMps2(speedMps)) return coastMps2;
+  const brakeLimitMps2 = (speedMps: number, lateralMps2: number, load = 1): number => {
+    const coastMps2 = base.coastDecelMps2(speedMps, load);
+    if (Math.abs(lateralMps2) >= lateralLimitMps2(speedMps, load)) return coastMps2;
+    const extraN = roadLoadN(load);
     const forceN = largestFitting(
-      (f) => brakeFits(speedMps, lateralMps2, f, coastMps2),
-      Math.min(brakeCapN, upperForceN(speedMps, tyre.muLong)),
+      (f) => brakeFits(speedMps, lateralMps2, f, coastMps2, extraN),
+      Math.min(brakeCapN, upperForceN(speedMps, tyre.muLong) + Math.max(0, 2 * tyre.muLong * extraN)),
     );
     return forceN / massKg + coastMps2;
   };
@@ -171,7 +177,7 @@ export function bicycleEnvelope(car: Car, ambient: Ambient): BicycleEnvelope {
     kind: 'bicycle',
     params: p,
     topSpeedMps: topSpeedOf(accelLimitMps2),
-    lateralLimitMps2: (speedMps) => lateralLimitMps2(speedMps),
+    lateralLimitMps2: (speedMps, _side, load) => lateralLimitMps2(speedMps, load ?? 1),
     accelLimitMps2,
     brakeLimitMps2,
     coastDecelMps2: base.coastDecelMps2,

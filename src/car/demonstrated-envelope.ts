@@ -76,14 +76,17 @@ export function demonstratedEnvelope(record: DemonstratedEnvelopeRecord): Envelo
   return {
     kind: 'demonstrated',
     topSpeedMps: top,
-    lateralLimitMps2,
-    accelLimitMps2(speedMps, lateralMps2) {
-      const leftShare = remainingShare(Math.abs(lateralMps2) / lateralLimitMps2(speedMps, lateralMps2), ELLIPSE);
+    // The driver's grip was shown on the road as it was; off level ground it scales with the road's load.
+    lateralLimitMps2: (speedMps, side, load = 1) => lateralLimitMps2(speedMps, side) * load,
+    accelLimitMps2(speedMps, lateralMps2, load = 1) {
+      const lateralCap = lateralLimitMps2(speedMps, lateralMps2) * load;
+      const leftShare = remainingShare(Math.abs(lateralMps2) / lateralCap, ELLIPSE);
       return driveMps2(speedMps) * leftShare - coastDecelMps2(speedMps);
     },
-    brakeLimitMps2(speedMps, lateralMps2) {
-      const leftShare = remainingShare(Math.abs(lateralMps2) / lateralLimitMps2(speedMps, lateralMps2), ELLIPSE);
-      return tyreBrakeMps2(speedMps) * leftShare + coastDecelMps2(speedMps);
+    brakeLimitMps2(speedMps, lateralMps2, load = 1) {
+      const lateralCap = lateralLimitMps2(speedMps, lateralMps2) * load;
+      const leftShare = remainingShare(Math.abs(lateralMps2) / lateralCap, ELLIPSE);
+      return tyreBrakeMps2(speedMps) * load * leftShare + coastDecelMps2(speedMps);
     },
     coastDecelMps2,
     gripUse(speedMps, axMps2, ayMps2) {

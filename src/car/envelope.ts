@@ -1,5 +1,7 @@
 // The g-g-v envelope: the accelerations a car can reach at each speed. The solver sees only this interface,
 // so a point-mass model, a bicycle model or an envelope fitted to a driver's own data plug in unchanged.
+// loadFactor: the normal force from gravity and the road's own curvature (slope, bank, crest or compression) as a
+// share of the car's weight on level ground; 1 (left out) is a flat road, and gives exactly the flat limits.
 
 export interface Envelope {
   /** Short label for reports: 'point-mass', 'bicycle', 'demonstrated'. */
@@ -7,14 +9,14 @@ export interface Envelope {
   /** Top speed the car can reach on a level straight, m/s (finite). */
   readonly topSpeedMps: number;
   /** Pure lateral limit at this speed, m/s^2; side > 0 for a left turn, < 0 for a right turn. */
-  lateralLimitMps2(speedMps: number, side: number): number;
+  lateralLimitMps2(speedMps: number, side: number, loadFactor?: number): number;
   /** Largest net forward acceleration at this speed while using lateralMps2 (signed) for turning, m/s^2;
    * net of drag and rolling resistance, so it may be negative near top speed. */
-  accelLimitMps2(speedMps: number, lateralMps2: number): number;
+  accelLimitMps2(speedMps: number, lateralMps2: number, loadFactor?: number): number;
   /** Largest net deceleration at this speed while turning with lateralMps2, m/s^2, positive; drag helps. */
-  brakeLimitMps2(speedMps: number, lateralMps2: number): number;
+  brakeLimitMps2(speedMps: number, lateralMps2: number, loadFactor?: number): number;
   /** Deceleration with neither drive nor brakes (drag plus rolling resistance), m/s^2, positive. */
-  coastDecelMps2(speedMps: number): number;
+  coastDecelMps2(speedMps: number, loadFactor?: number): number;
   /** Share of the envelope in use by this combination (1 = on the limit, above 1 = beyond it). */
   gripUse(speedMps: number, axMps2: number, ayMps2: number): number;
   /** Gear in use at this speed where the car has gears, else 0. */

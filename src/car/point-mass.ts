@@ -66,28 +66,31 @@ export function pointMassEnvelope(car: Car, ambient: Ambient): Envelope {
   const brakeCapMps2 = car.brakes.maxDecelG === null ? Infinity : car.brakes.maxDecelG * STANDARD_GRAVITY_MPS2;
   const drive = driveForceTable(car, ambient.powerFactor);
 
-  const normalLoadN = (speedMps: number) =>
-    Math.max(0.1 * weightN, weightN + halfRho * car.aero.liftAreaM2 * speedMps * speedMps);
-  const coastDecelMps2 = (speedMps: number) =>
-    (halfRho * car.aero.dragAreaM2 * speedMps * speedMps + car.rollingResistanceCoeff * normalLoadN(speedMps)) / massKg;
-  const lateralLimitMps2 = (speedMps: number) => {
-    const loadN = normalLoadN(speedMps);
+  // The road's load (loadFactor x weight) replaces the weight in every normal force; load sensitivity is still
+  // counted from the static weight, so a compression loads the tyres and lowers their mu, as on a flat road.
+  const normalLoadN = (speedMps: number, load = 1) =>
+    Math.max(0.1 * weightN, weightN * load + halfRho * car.aero.liftAreaM2 * speedMps * speedMps);
+  const coastDecelMps2 = (speedMps: number, load = 1) =>
+    (halfRho * car.aero.dragAreaM2 * speedMps * speedMps + car.rollingResistanceCoeff * normalLoadN(speedMps, load)) /
+    massKg;
+  const lateralLimitMps2 = (speedMps: number, _side?: number, load = 1) => {
+    const loadN = normalLoadN(speedMps, load);
     return (loadSensitiveMu(car.tyre.muLat, loadN, weightN, sensitivity) * loadN) / massKg;
   };
-  const tractionLimitMps2 = (speedMps: number) => {
-    const loadN = normalLoadN(speedMps);
+  const tractionLimitMps2 = (speedMps: number, load = 1) => {
+    const loadN = normalLoadN(speedMps, load);
     const muLong = loadSensitiveMu(car.tyre.muLong, loadN, weightN, sensitivity);
-    return (muLong * drivenLoadN(car, weightN, loadN - weightN)) / massKg;
+    return (muLong * drivenLoadN(car, weightN * load, loadN - weightN * load)) / massKg;
   };
-  const tyreBrakeLimitMps2 = (speedMps: number) => {
-    const loadN = normalLoadN(speedMps);
+  const tyreBrakeLimitMps2 = (speedMps: number, load = 1) => {
+    const loadN = normalLoadN(speedMps, load);
     return Math.min(brakeCapMps2, (loadSensitiveMu(car.tyre.muLong, loadN, weightN, sensitivity) * loadN) / massKg);
   };
 
-  const accelLimitMps2 = (speedMps: number, lateralMps2: number) => {
-    const left = remainingShare(Math.abs(lateralMps2) / lateralLimitMps2(speedMps), exponent);
-    const tyre = tractionLimitMps2(speedMps) * left;
-    return Math.min(tyre, drive.forceN(speedMps) / massKg) - coastDecelMps2(speedMps);
+  const accelLimitMps2 = (speedMps: number, lateralMps2: number, load = 1) => {
+    const left = remainingShare(Math.abs(lateralMps2) / lateralLimitMps2(speedMps, 0, load), exponent);
+    const tyre = tractionLimitMps2(speedMps, load) * left;
+    return Math.min(tyre, drive.forceN(speedMps) / massKg) - coastDecelMps2(speedMps, load);
   };
 
   return {
@@ -95,9 +98,9 @@ export function pointMassEnvelope(car: Car, ambient: Ambient): Envelope {
     topSpeedMps: topSpeedOf(accelLimitMps2),
     lateralLimitMps2,
     accelLimitMps2,
-    brakeLimitMps2(speedMps, lateralMps2) {
-      const left = remainingShare(Math.abs(lateralMps2) / lateralLimitMps2(speedMps), exponent);
-      return tyreBrakeLimitMps2(speedMps) * left + coastDecelMps2(speedMps);
+    brakeLimitMps2(speedMps, lateralMps2, load = 1) {
+      const left = remainingShare(Math.abs(lateralMps2) / lateralLimitMps2(speedMps, 0, load), exponent);
+      return tyreBrakeLimitMps2(speedMps, load) * left + coastDecelMps2(speedMps, load);
     },
     coastDecelMps2,
     gripUse(speedMps, axMps2, ayMps2) {

@@ -8,13 +8,18 @@ import { trackFromCentreline } from '../track/resample.js';
 import { numberCell, parseCsvTable } from './csv-table.js';
 import type { TrackReadOptions } from './read-track.js';
 
-export const TRACK_COLUMNS = ['x_m', 'y_m', 'width_left_m', 'width_right_m'] as const;
+export const TRACK_COLUMNS = ['x_m', 'y_m', 'width_left_m', 'width_right_m', 'z_m', 'bank_deg'] as const;
 type TrackColumn = (typeof TRACK_COLUMNS)[number];
 
 /** Default shortest wavelength kept by the smoothing, m. */
 export const DEFAULT_SMOOTHING_M = 30;
 /** Coordinates beyond this are not metres on a local plane (a quarter of the Earth's circumference), m. */
 const MAX_COORDINATE_M = 1e7;
+/** Steepest grade between neighbouring points taken as a real road; more is a height in the wrong unit or a typo
+ * (the steepest public streets are about 35 %: from memory). */
+export const MAX_GRADE = 0.4;
+/** Steepest bank taken as a real road, degrees (banked ovals reach about 33: from memory). */
+export const MAX_BANK_DEG = 45;
 /** Points closer than this count as the same point, m. */
 const SAME_POINT_M = 1e-3;
 /** 'auto' layout: closed when the last point is within this many median spacings of the first... */
@@ -74,6 +79,8 @@ export function parseTrackCsv(text: string, source: string, options: TrackReadOp
     );
   }
   const hasWidths = leftIndex >= 0;
+  const zIndex = columnIndex(header, 'z_m', options.columns, false, source);
+  const bankIndex = columnIndex(header, 'bank_deg', options.columns, false, source);
 
   let n = rows.length;
   if (n < 4) throw new InputError(`${source}: only ${n} points; a centreline needs at least 4`);
@@ -81,6 +88,8 @@ export function parseTrackCsv(text: string, source: string, options: TrackReadOp
   let y = new Float64Array(n);
   let left = hasWidths ? new Float64Array(n) : null;
   let right = hasWidths ? new Float64Array(n) : null;
+  let z = zIndex >= 0 ? new Float64Array(n) : null;
+  let bank = bankIndex >= 0 ? new Float64Array(n) : null;
   const names = header;
   for (let i = 0; i < n; i++) {
     const row = rows[i]!;
@@ -103,6 +112,21 @@ export function parseTrackCsv(text: string, source: string, options: TrackReadOp
     if (i > 0 && Math.hypot(x[i]! - x[i - 1]!, y[i]! - y[i - 1]!) < SAME_POINT_M) {
       throw new InputError(`${source}: row ${line}: the point repeats the one before it (row ${lines[i - 1]})`);
     }
+    if (z) {
+      z[i] = numberCell(row[zIndex] ?? '', source, line, names[zIndex]!);
+      const runM = i > 0 ? Math.hypot(x[i]! - x[i - 1]!, y[i]! - y[i - 1]!) : 0;
+      if (i > 0 && Math.abs(z[i]! - z[i - 1]!) > MAX_GRADE * runM)
+        throw new InputError(
+          `${source}: row ${line}, column ${names[zIndex]}: the height jumps ${(z[i]! - z[i - 1]!).toFixed(2)} m over ${runM.toFixed(2)} m from row ${lines[i - 1]} (a grade over ${MAX_GRADE * 100} %)`,
+        );
+    }
+    if (bank) {
+      bank[i] = numberCell(row[bankIndex] ?? '', source, line, names[bankIndex]!);
+      if (Math.abs(bank[i]!) > MAX_BANK_DEG)
+        throw new InputError(
+          `${source}: row ${line}, column ${names[bankIndex]}: bank ${bank[i]} degrees is over ${MAX_BANK_DEG} degrees`,
+        );
+    }
   }
 
   const closingDuplicate = Math.hypot(x[n - 1]! - x[0]!, y[n - 1]! - y[0]!) < SAME_POINT_M;
@@ -113,6 +137,8 @@ export function parseTrackCsv(text: string, source: string, options: TrackReadOp
     y = y.subarray(0, n);
     left = left && left.subarray(0, n);
     right = right && right.subarray(0, n);
+    z = z && z.subarray(0, n);
+    bank = bank && bank.subarray(0, n);
     if (n < 4) throw new InputError(`${source}: only ${n} distinct points; a closed centreline needs at least 4`);
   }
   if (!left && options.widthM !== null) {
@@ -120,7 +146,14 @@ export function parseTrackCsv(text: string, source: string, options: TrackReadOp
     right = new Float64Array(n).fill(options.widthM / 2);
   }
   return trackFromCentreline(
-    { xM: x, yM: y, widthLeftM: left, widthRightM: right },
+    {
+      xM: x,
+      yM: y,
+      widthLeftM: left,
+      widthRightM: right,
+      zM: z,
+      bankRad: bank && bank.map((deg) => (deg * Math.PI) / 180),
+    },
     {
       name: path.basename(source, path.extname(source)),
       closed,

@@ -10,10 +10,13 @@ import type { TrackReadOptions } from './read-track.js';
 
 const positive = z.number().finite().positive();
 
+const road = { gradePct: z.number().finite().optional(), bankDeg: z.number().finite().optional() };
+
 const segmentSchema = z.discriminatedUnion('kind', [
-  z.strictObject({ kind: z.literal('straight'), lengthM: positive }),
+  z.strictObject({ kind: z.literal('straight'), lengthM: positive, ...road }),
   z.strictObject({
     kind: z.literal('arc'),
+    ...road,
     radiusM: positive,
     angleDeg: z
       .number()
@@ -22,6 +25,7 @@ const segmentSchema = z.discriminatedUnion('kind', [
   }),
   z.strictObject({
     kind: z.literal('transition'),
+    ...road,
     lengthM: positive,
     startCurvature: z.number().finite(),
     endCurvature: z.number().finite(),

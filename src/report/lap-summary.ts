@@ -5,6 +5,7 @@ import { formatLapTime, mpsToKph } from '../units.js';
 import { formatTable } from './text-table.js';
 import { zoneLabel } from '../track/corner-layout.js';
 import { cornersJson } from './corners-file.js';
+import { roadProfileOf } from '../track/road-profile.js';
 
 export const SAFETY_CAUTION =
   'Caution: this reference lap is a model result, not a driving instruction. Driving at the limit is dangerous; ' +
@@ -21,6 +22,7 @@ export function lapSummaryJson(result: LapResult, carName: string) {
     stepM: round(result.track.stepM, 6),
     maxSpeedMps: round(result.maxSpeedMps, 3),
     minSpeedMps: round(result.minSpeedMps, 3),
+    ...roadSummaryJson(result),
     corners: cornersJson(result.corners),
     sectors: result.corners.sectors.map((s) => ({ ...s, startM: round(s.startM, 1), endM: round(s.endM, 1) })),
     brakingZones: result.brakingZones.map((zone) => ({
@@ -34,6 +36,32 @@ export function lapSummaryJson(result: LapResult, carName: string) {
       minSpeedMps: round(zone.minSpeedMps, 3),
       brakingLengthM: round(zone.brakingLengthM, 1),
     })),
+  };
+}
+
+/** Height range, steepest grades and bank where the track has them; nothing on a flat track. */
+function roadSummaryJson(result: LapResult) {
+  const road = roadProfileOf(result.track);
+  if (!road) return {};
+  let zMin = Infinity;
+  let zMax = -Infinity;
+  let gradeMin = Infinity;
+  let gradeMax = -Infinity;
+  let bankMax = 0;
+  for (let i = 0; i < road.zM.length; i++) {
+    zMin = Math.min(zMin, road.zM[i]!);
+    zMax = Math.max(zMax, road.zM[i]!);
+    gradeMin = Math.min(gradeMin, road.gradeRad[i]!);
+    gradeMax = Math.max(gradeMax, road.gradeRad[i]!);
+    bankMax = Math.max(bankMax, Math.abs(road.bankRad[i]!));
+  }
+  return {
+    road: {
+      heightRangeM: round(zMax - zMin, 2),
+      steepestClimbPct: round(100 * Math.tan(gradeMax), 2),
+      steepestDescentPct: round(100 * Math.tan(gradeMin), 2),
+      steepestBankDeg: round((bankMax * 180) / Math.PI, 2),
+    },
   };
 }
 

@@ -2,6 +2,7 @@
 
 import type { LapResult } from '../solve/types.js';
 import { mpsToKph } from '../units.js';
+import { roadProfileOf } from '../track/road-profile.js';
 
 export interface ExtraColumn {
   name: string;
@@ -11,8 +12,20 @@ export interface ExtraColumn {
 
 const fixed = (value: number, digits: number) => (Number.isFinite(value) ? value.toFixed(digits) : '');
 
-export function traceCsv(result: LapResult, extraColumns: ExtraColumn[] = []): string {
+/** Height, grade and bank columns where the track has them (z_m, grade_pct, bank_deg); none on a flat track. */
+export function roadColumns(result: LapResult): ExtraColumn[] {
+  const road = roadProfileOf(result.track);
+  if (!road) return [];
+  return [
+    { name: 'z_m', values: road.zM, digits: 3 },
+    { name: 'grade_pct', values: road.gradeRad.map((a) => 100 * Math.tan(a)), digits: 3 },
+    { name: 'bank_deg', values: road.bankRad.map((a) => (a * 180) / Math.PI), digits: 3 },
+  ];
+}
+
+export function traceCsv(result: LapResult, extra: ExtraColumn[] = []): string {
   const t = result.trace;
+  const extraColumns = [...roadColumns(result), ...extra];
   const header = [
     'distance_m',
     'time_s',

@@ -12,6 +12,8 @@ import { findBrakingZones } from './braking-zones.js';
 import { centrelinePath } from '../track/resample.js';
 import { cornerLayoutOf } from '../track/corner-layout.js';
 import { zonesByCorner } from './corner-zones.js';
+import { roadProfileOf } from '../track/road-profile.js';
+import { roadTerms } from './road-terms.js';
 
 export interface SimulateOptions {
   /** Air conditions; ISA sea level when omitted. */
@@ -24,6 +26,12 @@ export interface SimulateOptions {
   startSpeedMps?: number;
 }
 
+/** The road's terms for the solver, or null on a flat track (no heights, no bank). */
+function roadTermsOf(track: TrackGrid) {
+  const profile = roadProfileOf(track);
+  return profile ? roadTerms(profile) : null;
+}
+
 export function simulate(track: TrackGrid, car: Car, options: SimulateOptions = {}): LapResult {
   const ambient = options.ambient ?? ambientFrom();
   const envelope = options.envelope ?? buildEnvelope(car, ambient);
@@ -34,6 +42,7 @@ export function simulate(track: TrackGrid, car: Car, options: SimulateOptions = 
   const profile = solveSpeedProfile(path, envelope, {
     startSpeedMps: options.startSpeedMps ?? 0,
     shiftTimeS: car.powertrain.gearing?.shiftTimeS ?? 0,
+    road: roadTermsOf(track),
   });
   const { trace, lapTimeS, lengthM } = lapChannels(
     path,

@@ -6,12 +6,15 @@
 import type { Envelope } from '../car/envelope.js';
 import type { Path } from '../track/types.js';
 import { cornerLimitProfile } from './corner-limit.js';
+import { roadLateralMps2, roadLoadFactor, type RoadTerms } from './road-terms.js';
 
 export interface SpeedProfileOptions {
   /** Speed at the first sample of an open path, m/s (capped by its corner limit). */
   startSpeedMps: number;
   /** Time without drive at each upshift, s (0 = instant shifts). */
   shiftTimeS: number;
+  /** Grade, bank and vertical curvature on the path's grid; null or absent = flat ground. */
+  road?: RoadTerms | null;
 }
 
 export interface SpeedProfile {
@@ -36,6 +39,7 @@ function forwardPass(
   firstSpeedMps: number,
   shiftTimeS: number,
   out: Float64Array,
+  road: RoadTerms | null,
 ): void {
   const n = limit.length;
   const steps = path.closed ? n : n - 1;
@@ -51,17 +55,22 @@ function forwardPass(
     const lengthM = ds[i]!;
     let accel: number;
     const shifting = shiftLeftS > 0;
+    // On a three-dimensional road the tyres carry the road's load and lateral force, and gravity pulls along it.
+    const v2 = speed * speed;
+    const lateral = road ? roadLateralMps2(road, i, v2, kappa[i]!) : v2 * kappa[i]!;
+    const load = road ? roadLoadFactor(road, i, v2, kappa[i]!) : 1;
     if (shifting) {
       // The shift may end part-way through this step: drive for the rest of it.
       const stepTimeS = lengthM / Math.max(speed, 0.5);
       const coastShare = Math.min(1, shiftLeftS / stepTimeS);
       accel =
-        -coastShare * envelope.coastDecelMps2(speed) +
-        (1 - coastShare) * envelope.accelLimitMps2(speed, speed * speed * kappa[i]!);
+        -coastShare * envelope.coastDecelMps2(speed, load) +
+        (1 - coastShare) * envelope.accelLimitMps2(speed, lateral, load);
       shiftLeftS -= stepTimeS;
     } else {
-      accel = envelope.accelLimitMps2(speed, speed * speed * kappa[i]!);
+      accel = envelope.accelLimitMps2(speed, lateral, load);
     }
+    if (road) accel -= road.gravityAlongMps2[i]!;
     let next = Math.sqrt(Math.max(0, speed * speed + 2 * accel * lengthM));
     if (next > limit[j]!) next = limit[j]!;
     if (shiftTimeS > 0 && !shifting) {
@@ -82,17 +91,40 @@ function forwardPass(
  * car actually has there (an explicit step would use the lower exit speed and ask for more than the envelope).
  * The explicit step bounds the root from above when b falls with speed; a few secant steps close in on it.
  */
+/** Braking limit at a speed; on a three-dimensional road with its load and lateral force, and gravity along it. */
+function brakeLimitAt(
+  envelope: Envelope,
+  speed: number,
+  curvaturePerM: number,
+  road: RoadTerms | null,
+  h: number,
+): number {
+  const v2 = speed * speed;
+  if (!road) return envelope.brakeLimitMps2(speed, v2 * curvaturePerM);
+  return (
+    envelope.brakeLimitMps2(
+      speed,
+      roadLateralMps2(road, h, v2, curvaturePerM),
+      roadLoadFactor(road, h, v2, curvaturePerM),
+    ) + road.gravityAlongMps2[h]!
+  );
+}
+
 function brakingEntrySpeedMps(
   envelope: Envelope,
   exitSpeedMps: number,
   curvaturePerM: number,
   lengthM: number,
+  road: RoadTerms | null,
+  h: number,
 ): number {
   const exitSquared = exitSpeedMps * exitSpeedMps;
   const residual = (speed: number) =>
-    Math.sqrt(exitSquared + 2 * envelope.brakeLimitMps2(speed, speed * speed * curvaturePerM) * lengthM) - speed;
+    Math.sqrt(Math.max(0, exitSquared + 2 * brakeLimitAt(envelope, speed, curvaturePerM, road, h) * lengthM)) - speed;
   let lo = exitSpeedMps;
-  let hi = Math.sqrt(exitSquared + 2 * envelope.brakeLimitMps2(exitSpeedMps, exitSquared * curvaturePerM) * lengthM);
+  let hi = Math.sqrt(
+    Math.max(0, exitSquared + 2 * brakeLimitAt(envelope, exitSpeedMps, curvaturePerM, road, h) * lengthM),
+  );
   let fLo = hi - lo;
   let fHi = residual(hi);
   if (fHi >= 0 || fLo <= 0) return hi;
@@ -120,6 +152,7 @@ function backwardPass(
   last: number,
   lastSpeedMps: number,
   out: Float64Array,
+  road: RoadTerms | null,
 ): void {
   const n = limit.length;
   const steps = path.closed ? n : n - 1;
@@ -130,7 +163,7 @@ function backwardPass(
   for (let k = 0; k < steps; k++) {
     const i = path.closed ? (last - k + n) % n : n - 1 - k;
     const h = i === 0 ? n - 1 : i - 1;
-    let previous = brakingEntrySpeedMps(envelope, speed, kappa[h]!, ds[h]!);
+    let previous = brakingEntrySpeedMps(envelope, speed, kappa[h]!, ds[h]!, road, h);
     if (previous > limit[h]!) previous = limit[h]!;
     out[h] = previous;
     speed = previous;
@@ -139,7 +172,8 @@ function backwardPass(
 
 export function solveSpeedProfile(path: Path, envelope: Envelope, options: SpeedProfileOptions): SpeedProfile {
   const n = path.curvaturePerM.length;
-  const cornerLimitMps = cornerLimitProfile(envelope, path.curvaturePerM);
+  const road = options.road ?? null;
+  const cornerLimitMps = cornerLimitProfile(envelope, path.curvaturePerM, undefined, road);
   const forward = new Float64Array(n);
   const backward = new Float64Array(n);
   if (path.closed) {
@@ -149,12 +183,12 @@ export function solveSpeedProfile(path: Path, envelope: Envelope, options: Speed
     // speed it came back with until the lap closes on itself.
     let startMps = cornerLimitMps[slowest]!;
     for (let lap = 0; lap < MAX_PERIODIC_LAPS; lap++) {
-      forwardPass(path, envelope, cornerLimitMps, slowest, startMps, options.shiftTimeS, forward);
+      forwardPass(path, envelope, cornerLimitMps, slowest, startMps, options.shiftTimeS, forward, road);
       const backAt = forward[slowest]!;
       if (backAt >= startMps - PERIODIC_TOLERANCE_MPS) break;
       startMps = backAt;
     }
-    backwardPass(path, envelope, cornerLimitMps, slowest, cornerLimitMps[slowest]!, backward);
+    backwardPass(path, envelope, cornerLimitMps, slowest, cornerLimitMps[slowest]!, backward, road);
   } else {
     forwardPass(
       path,
@@ -164,8 +198,9 @@ export function solveSpeedProfile(path: Path, envelope: Envelope, options: Speed
       Math.min(options.startSpeedMps, cornerLimitMps[0]!),
       options.shiftTimeS,
       forward,
+      road,
     );
-    backwardPass(path, envelope, cornerLimitMps, n - 1, cornerLimitMps[n - 1]!, backward);
+    backwardPass(path, envelope, cornerLimitMps, n - 1, cornerLimitMps[n - 1]!, backward, road);
   }
   for (let i = 0; i < n; i++) if (backward[i]! < forward[i]!) forward[i] = backward[i]!;
   return { speedMps: forward, cornerLimitMps };

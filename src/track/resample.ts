@@ -14,6 +14,9 @@ export interface CentrelinePoints {
   yM: Float64Array;
   widthLeftM: Float64Array | null;
   widthRightM: Float64Array | null;
+  /** Height above the track's datum, m, and bank angle, rad (positive: surface falls to the left), if given. */
+  zM?: Float64Array | null;
+  bankRad?: Float64Array | null;
 }
 
 export interface CentrelineOptions {
@@ -67,6 +70,10 @@ export function trackFromCentreline(points: CentrelinePoints, options: Centrelin
   const widthChannels = [];
   if (widthLeft && points.widthLeftM) widthChannels.push({ values: points.widthLeftM, out: widthLeft });
   if (widthRight && points.widthRightM) widthChannels.push({ values: points.widthRightM, out: widthRight });
+  const z = points.zM ? new Float64Array(m) : null;
+  const bank = points.bankRad ? new Float64Array(m) : null;
+  if (z && points.zM) widthChannels.push({ values: points.zM, out: z });
+  if (bank && points.bankRad) widthChannels.push({ values: points.bankRad, out: bank });
   sampleSpline(spline, m, x, y, widthChannels);
 
   if (options.smoothingM > 0) {
@@ -98,6 +105,8 @@ export function trackFromCentreline(points: CentrelinePoints, options: Centrelin
     geoOrigin: options.geoOrigin ?? null,
     corners: options.corners ?? [],
     source,
+    ...(z ? { zM: new Float64Array(count) } : {}),
+    ...(bank ? { bankRad: new Float64Array(count) } : {}),
   };
   for (let i = 0; i < count; i++) track.distanceM[i] = i * grid.stepM;
   const lapTurning = closed ? heading[m - 1]! + wrapAngleRad(heading[0]! - heading[m - 1]!) - heading[0]! : 0;
@@ -109,6 +118,8 @@ export function trackFromCentreline(points: CentrelinePoints, options: Centrelin
   ];
   if (widthLeft && track.widthLeftM) channels.push({ values: widthLeft, out: track.widthLeftM });
   if (widthRight && track.widthRightM) channels.push({ values: widthRight, out: track.widthRightM });
+  if (z && track.zM) channels.push({ values: z, out: track.zM });
+  if (bank && track.bankRad) channels.push({ values: bank, out: track.bankRad });
   resampleLinear(sourceDistance, totalM, closed, grid.stepM, count, channels);
   return track;
 }

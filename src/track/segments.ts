@@ -9,13 +9,30 @@ import { degToRad, radToDeg } from '../units.js';
 import type { NamedCorner, TrackGrid } from './types.js';
 import { wrapAngleRad } from './geometry.js';
 import { uniformGrid } from './resample.js';
+import { movingAverage } from '../numeric/moving-average.js';
 
-export type TrackSegment =
-  | { kind: 'straight'; lengthM: number }
-  /** Positive angle = left turn, negative = right. */
-  | { kind: 'arc'; radiusM: number; angleDeg: number }
-  /** Curvature 1/m, positive = left, linear in distance from startCurvature to endCurvature. */
-  | { kind: 'transition'; lengthM: number; startCurvature: number; endCurvature: number };
+/** A segment's grade (%, positive uphill, constant along it) and bank (degrees, positive = surface falls to the
+ * left), both optional; a track with neither is flat. */
+export interface SegmentRoad {
+  gradePct?: number | undefined;
+  bankDeg?: number | undefined;
+}
+
+export type TrackSegment = SegmentRoad &
+  (
+    | { kind: 'straight'; lengthM: number }
+    /** Positive angle = left turn, negative = right. */
+    | { kind: 'arc'; radiusM: number; angleDeg: number }
+    /** Curvature 1/m, positive = left, linear in distance from startCurvature to endCurvature. */
+    | { kind: 'transition'; lengthM: number; startCurvature: number; endCurvature: number }
+  );
+
+/** Length of the vertical curve that rounds a change of grade between segments, m. */
+export const VERTICAL_CURVE_M = 50;
+
+/** Steepest grade and bank a segment may have (%, degrees): beyond them a value is a typo, not a road. */
+export const MAX_SEGMENT_GRADE_PCT = 40;
+export const MAX_SEGMENT_BANK_DEG = 45;
 
 export interface SegmentTrackSpec {
   name: string;
@@ -120,6 +137,10 @@ function toPieces(
       k0 = segment.startCurvature;
       k1 = segment.endCurvature;
     }
+    if (segment.gradePct !== undefined && !(Math.abs(segment.gradePct) <= MAX_SEGMENT_GRADE_PCT))
+      throw new InputError(`${where}.gradePct: ${segment.gradePct} % is steeper than ${MAX_SEGMENT_GRADE_PCT} %`);
+    if (segment.bankDeg !== undefined && !(Math.abs(segment.bankDeg) <= MAX_SEGMENT_BANK_DEG))
+      throw new InputError(`${where}.bankDeg: ${segment.bankDeg} degrees is over ${MAX_SEGMENT_BANK_DEG} degrees`);
     const piece: Piece = {
       startM: s,
       lengthM,
@@ -207,6 +228,7 @@ export function trackFromSegments(spec: SegmentTrackSpec, stepM: number, source:
     curvaturePerM[i] = curvatureAt(piece, target);
   }
 
+  const road = segmentRoad(spec, pieces, distanceM, lengthM, source);
   const widthLeft = spec.widthLeftM ?? (spec.widthM !== null ? spec.widthM / 2 : null);
   const widthRight = spec.widthRightM ?? (spec.widthM !== null ? spec.widthM / 2 : null);
   return {
@@ -224,5 +246,48 @@ export function trackFromSegments(spec: SegmentTrackSpec, stepM: number, source:
     geoOrigin: spec.geoOrigin ?? null,
     corners: corners.map((corner) => ({ ...corner })),
     source,
+    ...road,
   };
+}
+
+/** Heights (the integral of each segment's grade) and banks on the grid; nothing when no segment gives either. */
+function segmentRoad(
+  spec: SegmentTrackSpec,
+  pieces: Piece[],
+  distanceM: Float64Array,
+  lengthM: number,
+  source: string,
+): { zM?: Float64Array; bankRad?: Float64Array } {
+  const segments = spec.segments;
+  if (!segments.some((s) => s.gradePct !== undefined || s.bankDeg !== undefined)) return {};
+  const count = distanceM.length;
+  const startZ = new Float64Array(pieces.length + 1);
+  for (let k = 0; k < pieces.length; k++)
+    startZ[k + 1] = startZ[k]! + ((segments[k]!.gradePct ?? 0) / 100) * pieces[k]!.lengthM;
+  const endZ = startZ[pieces.length]!;
+  if (spec.closed && Math.abs(endZ) > CLOSURE_TOLERANCE_M)
+    throw new InputError(
+      `${source}: segments: the grades do not close the lap: it ends ${endZ.toFixed(2)} m ${endZ > 0 ? 'above' : 'below'} its start (allowed ${CLOSURE_TOLERANCE_M} m)`,
+    );
+  const gradeShare = new Float64Array(count);
+  const bankRad = new Float64Array(count);
+  let k = 0;
+  for (let i = 0; i < count; i++) {
+    const s = distanceM[i]!;
+    while (k < pieces.length - 1 && s >= pieces[k + 1]!.startM) k++;
+    gradeShare[i] = (segments[k]!.gradePct ?? 0) / 100;
+    bankRad[i] = degToRad(segments[k]!.bankDeg ?? 0);
+  }
+  // A change of grade between segments is rounded into a parabolic vertical curve (grade linear in distance) of
+  // VERTICAL_CURVE_M, as road alignments are designed; a bare kink would be a crest of zero radius.
+  const step = count > 1 ? distanceM[1]! - distanceM[0]! : 1;
+  const smooth = movingAverage(gradeShare, Math.round(VERTICAL_CURVE_M / step / 2), spec.closed);
+  const zM = new Float64Array(count);
+  for (let i = 1; i < count; i++) zM[i] = zM[i - 1]! + 0.5 * (smooth[i - 1]! + smooth[i]!) * step;
+  if (spec.closed) {
+    // Spread what is left of the closing gap in height (under the tolerance) along the lap, as for x and y.
+    const gap = zM[count - 1]! + 0.5 * (smooth[count - 1]! + smooth[0]!) * step;
+    for (let i = 0; i < count; i++) zM[i] = zM[i]! - (gap * distanceM[i]!) / lengthM;
+  }
+  return { zM, bankRad };
 }

@@ -30,6 +30,10 @@ export interface TrackGrid {
   geoOrigin: { latDeg: number; lonDeg: number } | null;
   /** Corner names given by the track file, if any. */
   corners: NamedCorner[];
+  /** Height of the centreline above the track's datum, m; absent on a flat track. */
+  zM?: Float64Array | null;
+  /** Bank angle, rad, positive when the surface falls towards the left edge; absent on a flat track. */
+  bankRad?: Float64Array | null;
   /** Corners and sectors given by a corners file; absent = found from the curvature (corner-layout.ts). */
   cornerLayout?: CornerLayout;
   /** Where the grid came from, for messages. */

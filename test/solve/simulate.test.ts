@@ -7,6 +7,7 @@ import { ambientFrom } from '../../src/car/ambient.js';
 import { pointMassEnvelope } from '../../src/car/point-mass.js';
 import { STANDARD_GRAVITY_MPS2 as g } from '../../src/units.js';
 import { testCar } from '../helpers/cars.js';
+import { speedWherePowerMeets } from '../helpers/bisect.js';
 import { projectRoot } from '../helpers/cli.js';
 import { readCarFile } from '../../src/io/read-car.js';
 
@@ -81,13 +82,7 @@ describe('straight-line kinematics', () => {
     const ambient = ambientFrom({ airTempC: 25, pressureHpa: 990 });
     const rho = 99_000 / (287.05 * 298.15);
     const demand = (v: number) => 0.5 * rho * 0.7 * v ** 3 + 0.012 * 1000 * g * v;
-    let lo = 1;
-    let hi = 200;
-    for (let k = 0; k < 100; k++) {
-      const mid = (lo + hi) / 2;
-      if (demand(mid) < 150_000) lo = mid;
-      else hi = mid;
-    }
+    const lo = speedWherePowerMeets(demand, 150_000);
     const lap = simulate(openStage([{ kind: 'straight', lengthM: 30_000 }], 5), car, { ambient });
     expect(Math.abs(lap.maxSpeedMps - lo) / lo).toBeLessThan(0.005);
   });

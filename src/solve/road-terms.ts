@@ -1,0 +1,62 @@
+// The road's share in every limit, in one place: the inclined-plane and banked-curve force balances of any
+// mechanics or vehicle-dynamics textbook, applied at each sample of the quasi-steady-state solver. Road frame: the
+// normal n tilted by the bank t, the lateral axis along the surface. With
+// grade a, path curvature k (horizontal) and vertical curvature kv:
+//   normal force / m   = g cos a cos t + v^2 (k sin t + kv cos t)        (crest unloads, compression and bank load)
+//   lateral force / m  = v^2 (k cos t - kv sin t) - g cos a sin t        (bank carries part of the turn)
+//   along the path     = tyre force / m - g sin a                        (climbing costs, descending helps)
+// A flat track has no RoadTerms and the solver takes its flat branch, so flat lap times are unchanged.
+
+import type { RoadProfile } from '../track/road-profile.js';
+import { STANDARD_GRAVITY_MPS2 as G } from '../units.js';
+
+/** Per-sample trigonometry of the road, computed once per lap so the passes only multiply and add. */
+export interface RoadTerms {
+  /** g sin(grade): the pull of gravity back along the path, m/s^2. */
+  gravityAlongMps2: Float64Array;
+  /** cos(grade) cos(bank): gravity's share pressing into the road. */
+  gravityNormalShare: Float64Array;
+  /** g cos(grade) sin(bank): gravity along the surface towards the low (left, for positive bank) side, m/s^2. */
+  gravityLateralMps2: Float64Array;
+  sinBank: Float64Array;
+  cosBank: Float64Array;
+  verticalCurvaturePerM: Float64Array;
+}
+
+export function roadTerms(profile: RoadProfile): RoadTerms {
+  const n = profile.gradeRad.length;
+  const terms: RoadTerms = {
+    gravityAlongMps2: new Float64Array(n),
+    gravityNormalShare: new Float64Array(n),
+    gravityLateralMps2: new Float64Array(n),
+    sinBank: new Float64Array(n),
+    cosBank: new Float64Array(n),
+    verticalCurvaturePerM: Float64Array.from(profile.verticalCurvaturePerM),
+  };
+  for (let i = 0; i < n; i++) {
+    const grade = profile.gradeRad[i]!;
+    const bank = profile.bankRad[i]!;
+    terms.gravityAlongMps2[i] = G * Math.sin(grade);
+    terms.gravityNormalShare[i] = Math.cos(grade) * Math.cos(bank);
+    terms.gravityLateralMps2[i] = G * Math.cos(grade) * Math.sin(bank);
+    terms.sinBank[i] = Math.sin(bank);
+    terms.cosBank[i] = Math.cos(bank);
+  }
+  return terms;
+}
+
+/** Normal force as a share of the weight on level ground, at sample i, speed squared v2 and path curvature k. */
+export function roadLoadFactor(road: RoadTerms, i: number, v2: number, curvaturePerM: number): number {
+  return (
+    road.gravityNormalShare[i]! +
+    (v2 * (curvaturePerM * road.sinBank[i]! + road.verticalCurvaturePerM[i]! * road.cosBank[i]!)) / G
+  );
+}
+
+/** Lateral force per unit mass the tyres must give along the surface, m/s^2, signed as the curvature. */
+export function roadLateralMps2(road: RoadTerms, i: number, v2: number, curvaturePerM: number): number {
+  return (
+    v2 * (curvaturePerM * road.cosBank[i]! - road.verticalCurvaturePerM[i]! * road.sinBank[i]!) -
+    road.gravityLateralMps2[i]!
+  );
+}
