@@ -4,7 +4,8 @@
 import { existsSync, readFileSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { parseTrackText, type TrackReadOptions } from '../src/io/read-track.js';
+import { parseTrackText } from '../src/io/read-track.js';
+import type { TrackReadOptions } from '../src/io/track-read-options.js';
 import { cyclicBandedSolver, factorCyclicBanded, solveCyclicBanded } from '../src/numeric/banded.js';
 import { machineLoad, medianTimes, peakRssMb, verdict } from './stats.js';
 

@@ -5,12 +5,14 @@ export type { TrackGrid, Path, NamedCorner } from './track/types.js';
 export type { Car, Ambient, DrivenAxle, CarModelKind } from './car/types.js';
 export type { Envelope } from './car/envelope.js';
 export type { LapResult, LapTrace, BrakingZone, CornerZone } from './solve/types.js';
-export type { DriverLap, TelemetrySession } from './compare/types.js';
+export type { DriverLap } from './compare/types.js';
+export type { TelemetrySession } from './telemetry/types.js';
 export { InputError, isInputError } from './errors.js';
 export * from './units.js';
 
 // Track input and geometry.
-export { readTrackFile, parseTrackText, type TrackReadOptions } from './io/read-track.js';
+export { readTrackFile, parseTrackText } from './io/read-track.js';
+export type { TrackReadOptions } from './io/track-read-options.js';
 export { parseColumnMapping } from './io/columns.js';
 export {
   trackFromSegments,
@@ -39,7 +41,8 @@ export {
 } from './numeric/banded.js';
 
 export { ambientFrom, airDensityKgPerM3, ISA_SEA_LEVEL } from './car/ambient.js';
-export { readCarFile, parseCarJson, carFromJson, validateCar } from './io/read-car.js';
+export { readCarFile, parseCarJson, carFromJson } from './io/read-car.js';
+export { validateCar } from './car/validate.js';
 export { pointMassEnvelope, totalMassKg } from './car/point-mass.js';
 export { buildEnvelope } from './car/build-envelope.js';
 export { gripBudget, type GripBudget } from './car/budget.js';
@@ -122,7 +125,7 @@ export {
 } from './io/telemetry/read-telemetry.js';
 export { CANONICAL_COLUMNS } from './io/telemetry/columns.js';
 export { nmeaChecksum } from './io/telemetry/nmea.js';
-export { localPlane, projectLatLon, reprojectPlane, type GeoOrigin, type LocalPlane } from './io/telemetry/geo.js';
+export { localPlane, projectLatLon, reprojectPlane, type GeoOrigin, type LocalPlane } from './track/geodesy.js';
 export { cutLaps, type LapCut } from './compare/laps.js';
 export { type CutOptions } from './compare/lap-crossings.js';
 export { placeSession, MATCH_LIMIT_M, type PlacedSession } from './compare/place-session.js';

@@ -6,7 +6,7 @@ import { InputError } from '../errors.js';
 import { parseCarJson } from '../io/read-car.js';
 import { parseTrackText } from '../io/read-track.js';
 import { parseTelemetryText, streamTelemetryCsv } from '../io/telemetry/read-telemetry.js';
-import type { TelemetrySession } from '../compare/types.js';
+import type { TelemetrySession } from '../telemetry/types.js';
 import { detectKind, KIND_LABELS, type FileKind } from './detect-kind.js';
 import { centrelineCellProblems, telemetryCellProblems } from './collect-cells.js';
 

@@ -4,7 +4,8 @@
 import type { Command } from 'commander';
 import { Option } from 'commander';
 import { InputError } from '../errors.js';
-import { readTrackFile, type TrackReadOptions } from '../io/read-track.js';
+import { readTrackFile } from '../io/read-track.js';
+import type { TrackReadOptions } from '../io/track-read-options.js';
 import { parseColumnMapping } from '../io/columns.js';
 import { readCarFile } from '../io/read-car.js';
 import { readCornersFile } from '../io/read-corners.js';

@@ -6,7 +6,8 @@
 import { InputError } from '../errors.js';
 import type { TrackGrid } from '../track/types.js';
 import { formatLapTime } from '../units.js';
-import type { DriverLap, TelemetrySession } from './types.js';
+import type { DriverLap } from './types.js';
+import type { TelemetrySession } from '../telemetry/types.js';
 import { cutLaps, type LapCut } from './laps.js';
 import { placeSession } from './place-session.js';
 import { sessionDistance } from './session-distance.js';

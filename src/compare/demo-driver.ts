@@ -5,7 +5,7 @@
 import type { Envelope } from '../car/envelope.js';
 import type { LapResult } from '../solve/types.js';
 import type { TrackGrid } from '../track/types.js';
-import { localPlane } from '../io/telemetry/geo.js';
+import { localPlane } from '../track/geodesy.js';
 import type { CornerSpan } from '../track/corners.js';
 import { cornerLayoutOf } from '../track/corner-layout.js';
 import { mps2ToG, mpsToKph, kphToMps } from '../units.js';

@@ -3,7 +3,7 @@
 
 import { InputError } from '../errors.js';
 import type { TrackGrid } from '../track/types.js';
-import type { TelemetrySession } from './types.js';
+import type { TelemetrySession } from '../telemetry/types.js';
 import type { PlacedSession } from './place-session.js';
 import { medianOf } from './median.js';
 

@@ -3,7 +3,7 @@
 
 import { InputError } from '../errors.js';
 import type { TrackGrid } from '../track/types.js';
-import type { TelemetrySession } from './types.js';
+import type { TelemetrySession } from '../telemetry/types.js';
 import { projectGlobal, emptyProjection } from '../track/project.js';
 import { MATCH_LIMIT_M } from './place-session.js';
 import { sampleSpeed } from './session-distance.js';

@@ -3,7 +3,7 @@
 // lap-distance channel, or the whole file as one lap. A log's ragged ends are finished by extrapolation.
 
 import type { TrackGrid } from '../track/types.js';
-import type { TelemetrySession } from './types.js';
+import type { TelemetrySession } from '../telemetry/types.js';
 import { placeSession, type PlacedSession } from './place-session.js';
 import { sampleSpeed, sessionDistance } from './session-distance.js';
 import {

@@ -3,9 +3,9 @@
 
 import { InputError } from '../errors.js';
 import type { TrackGrid } from '../track/types.js';
-import type { TelemetrySession } from './types.js';
+import type { TelemetrySession } from '../telemetry/types.js';
 import { applyRigid, fitRigidToCentreline, projectPath } from '../track/project.js';
-import { reprojectPlane } from '../io/telemetry/geo.js';
+import { reprojectPlane } from '../track/geodesy.js';
 import { medianOf } from './median.js';
 import { radToDeg } from '../units.js';
 

@@ -2,7 +2,7 @@
 // and the speed at one sample, for logs placed by distance and for extrapolating a lap's ragged ends.
 
 import { InputError } from '../errors.js';
-import type { TelemetrySession } from './types.js';
+import type { TelemetrySession } from '../telemetry/types.js';
 import type { PlacedSession } from './place-session.js';
 
 /** Speed at sample i: the speed channel, or the step to a neighbouring sample over the time between them, m/s (NaN if unknown). */

@@ -1,5 +1,6 @@
-// Records that flow from the telemetry readers to the comparison: a driver's lap resampled onto the
-// track's centreline grid, so that it and the reference lap share one distance axis.
+// Records of the comparison: a driver's lap resampled onto the track's centreline grid, so that it and the
+// reference lap share one distance axis, and the corner-by-corner result. The raw session record the readers
+// produce lives below both, in src/telemetry/types.ts.
 
 /** One lap of the driver, on the track's distance grid (same length as TrackGrid.distanceM). */
 export interface DriverLap {
@@ -24,30 +25,6 @@ export interface DriverLap {
   yM: Float64Array | null;
   /** Which channels were measured and which derived, for the report. */
   derivedChannels: string[];
-}
-
-/** A whole logged session before it is cut into laps: raw samples in time order, SI units. */
-export interface TelemetrySession {
-  source: string;
-  count: number;
-  timeS: Float64Array;
-  /** NaN-free arrays where present, null where the log lacks the channel. */
-  distanceM: Float64Array | null;
-  speedMps: Float64Array | null;
-  throttle: Float64Array | null;
-  brake: Float64Array | null;
-  axMps2: Float64Array | null;
-  ayMps2: Float64Array | null;
-  steeringDeg: Float64Array | null;
-  gear: Float64Array | null;
-  rpm: Float64Array | null;
-  /** Positions in the local plane, m (from x/y columns, or latitude/longitude projected). */
-  xM: Float64Array | null;
-  yM: Float64Array | null;
-  /** Latitude/longitude origin of the local plane when positions came from GPS, degrees. */
-  geoOrigin: { latDeg: number; lonDeg: number } | null;
-  /** Messages for the user (skipped sentences, guessed units), one line each. */
-  notes: string[];
 }
 
 /** A stretch of the lap where the driver's grip use departs from the reference's. */

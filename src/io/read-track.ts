@@ -6,26 +6,7 @@ import path from 'node:path';
 import type { TrackGrid } from '../track/types.js';
 import { parseTrackCsv } from './track-csv.js';
 import { parseTrackJson } from './track-json.js';
-
-export interface TrackReadOptions {
-  /** Grid step, m (the actual step fits the length exactly). */
-  stepM: number;
-  /** Our column name -> the file's column name. */
-  columns: Record<string, string>;
-  /** Full width where the file gives none, split evenly; null = none. */
-  widthM: number | null;
-  layout: 'auto' | 'closed' | 'open';
-  /** Shortest wavelength kept by the centreline smoothing, m; null = the default (30 m); 0 = no smoothing. */
-  smoothingM: number | null;
-}
-
-export const DEFAULT_TRACK_READ_OPTIONS: TrackReadOptions = {
-  stepM: 1,
-  columns: {},
-  widthM: null,
-  layout: 'auto',
-  smoothingM: null,
-};
+import { DEFAULT_TRACK_READ_OPTIONS, type TrackReadOptions } from './track-read-options.js';
 
 /** Options left out take their defaults (1 m step, no column mapping, widths from the file, layout from the file). */
 export function readTrackFile(file: string, options: Partial<TrackReadOptions> = {}): TrackGrid {

@@ -6,7 +6,7 @@ import { InputError } from '../errors.js';
 import type { TrackGrid } from '../track/types.js';
 import { trackFromCentreline } from '../track/resample.js';
 import { numberCell, parseCsvTable } from './csv-table.js';
-import type { TrackReadOptions } from './read-track.js';
+import type { TrackReadOptions } from './track-read-options.js';
 
 export const TRACK_COLUMNS = ['x_m', 'y_m', 'width_left_m', 'width_right_m', 'z_m', 'bank_deg'] as const;
 type TrackColumn = (typeof TRACK_COLUMNS)[number];

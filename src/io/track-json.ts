@@ -6,7 +6,7 @@ import { z } from 'zod';
 import { InputError } from '../errors.js';
 import type { TrackGrid } from '../track/types.js';
 import { trackFromSegments } from '../track/segments.js';
-import type { TrackReadOptions } from './read-track.js';
+import type { TrackReadOptions } from './track-read-options.js';
 
 const positive = z.number().finite().positive();
 

@@ -3,7 +3,7 @@
 
 import type { Ambient, Car } from '../car/types.js';
 import { ambientFrom } from '../car/ambient.js';
-import { validateCar } from '../io/read-car.js';
+import { validateCar } from '../car/validate.js';
 import { InputError } from '../errors.js';
 import { checkField, isAmbientField, readCarField, writeCarField } from './fields.js';
 

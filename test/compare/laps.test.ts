@@ -4,7 +4,7 @@
 import { describe, expect, it } from 'vitest';
 import { cutLaps } from '../../src/compare/laps.js';
 import { selectLap } from '../../src/compare/align.js';
-import type { TelemetrySession } from '../../src/compare/types.js';
+import type { TelemetrySession } from '../../src/telemetry/types.js';
 import { InputError } from '../../src/errors.js';
 import { pointAt, sessionOf, triangleTrack } from '../fixtures/telemetry/tracks.js';
 

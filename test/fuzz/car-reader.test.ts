@@ -3,7 +3,8 @@
 
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { parseCarJson, validateCar } from '../../src/io/read-car.js';
+import { parseCarJson } from '../../src/io/read-car.js';
+import { validateCar } from '../../src/car/validate.js';
 import { anyJson, anyText, carFile, resultOrInputError, runs } from './generators.js';
 
 const SOURCE = 'fuzz-car.json';

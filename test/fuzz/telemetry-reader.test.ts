@@ -6,7 +6,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { parseTelemetryText } from '../../src/io/telemetry/read-telemetry.js';
-import type { TelemetrySession } from '../../src/compare/types.js';
+import type { TelemetrySession } from '../../src/telemetry/types.js';
 import { anyText, csvText, gpxText, lineEnd, nmeaLine, resultOrInputError, runs } from './generators.js';
 import { nmeaChecksum } from '../../src/io/telemetry/nmea.js';
 

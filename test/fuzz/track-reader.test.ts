@@ -4,7 +4,8 @@
 
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { parseTrackText, type TrackReadOptions } from '../../src/io/read-track.js';
+import { parseTrackText } from '../../src/io/read-track.js';
+import type { TrackReadOptions } from '../../src/io/track-read-options.js';
 import type { TrackGrid } from '../../src/track/types.js';
 import { anyJson, anyText, closedCircuit, csvText, resultOrInputError, runs, segment } from './generators.js';
 

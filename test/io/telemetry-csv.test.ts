@@ -7,7 +7,7 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { parseTelemetryText, readTelemetryFile } from '../../src/io/telemetry/read-telemetry.js';
-import type { TelemetrySession } from '../../src/compare/types.js';
+import type { TelemetrySession } from '../../src/telemetry/types.js';
 import { InputError } from '../../src/errors.js';
 import { selectLap } from '../../src/compare/align.js';
 import { simulate } from '../../src/solve/simulate.js';

@@ -5,7 +5,7 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { readTelemetryFile, parseTelemetryText } from '../../src/io/telemetry/read-telemetry.js';
-import { localPlane, reprojectPlane } from '../../src/io/telemetry/geo.js';
+import { localPlane, reprojectPlane } from '../../src/track/geodesy.js';
 import { InputError } from '../../src/errors.js';
 import { wgs84Radii } from '../fixtures/telemetry/tracks.js';
 

@@ -15,7 +15,7 @@ import {
   type TelemetryChannel,
   type TelemetryChunk,
 } from '../../src/io/telemetry/read-telemetry.js';
-import type { TelemetrySession } from '../../src/compare/types.js';
+import type { TelemetrySession } from '../../src/telemetry/types.js';
 import { InputError } from '../../src/errors.js';
 import { sniffTelemetryFormat } from '../../src/io/telemetry/read-telemetry.js';
 import fc from 'fast-check';

@@ -4,7 +4,8 @@ import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { parseTrackText, readTrackFile, type TrackReadOptions } from '../../src/io/read-track.js';
+import { parseTrackText, readTrackFile } from '../../src/io/read-track.js';
+import type { TrackReadOptions } from '../../src/io/track-read-options.js';
 import { InputError } from '../../src/errors.js';
 
 const defaults: TrackReadOptions = { stepM: 1, columns: {}, widthM: null, layout: 'auto', smoothingM: null };

@@ -3,7 +3,8 @@
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
-import { parseTrackText, readTrackFile, type TrackReadOptions } from '../../src/io/read-track.js';
+import { parseTrackText, readTrackFile } from '../../src/io/read-track.js';
+import type { TrackReadOptions } from '../../src/io/track-read-options.js';
 import { InputError } from '../../src/errors.js';
 
 const projectRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', '..');

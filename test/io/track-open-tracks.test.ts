@@ -8,7 +8,8 @@ import { existsSync, readdirSync, readFileSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
-import { readTrackFile, type TrackReadOptions } from '../../src/io/read-track.js';
+import { readTrackFile } from '../../src/io/read-track.js';
+import type { TrackReadOptions } from '../../src/io/track-read-options.js';
 import { parseColumnMapping } from '../../src/io/columns.js';
 
 const projectRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', '..');

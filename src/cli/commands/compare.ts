@@ -29,7 +29,7 @@ import type { ReferenceLine } from '../../line/reference-line.js';
 import { demonstratedEnvelope } from '../../car/demonstrated-envelope.js';
 import type { Ambient, Car } from '../../car/types.js';
 import type { TrackGrid } from '../../track/types.js';
-import type { TelemetrySession } from '../../compare/types.js';
+import type { TelemetrySession } from '../../telemetry/types.js';
 import { addReportOptions, addReportOutputs, reportWrittenText, type ReportOptionValues } from '../html-options.js';
 import { sessionReportInput } from '../../report/html/from-session.js';
 import { InputError } from '../../errors.js';

@@ -9,7 +9,7 @@ import { inputFilesOf, loadCar, type CarOptionValues } from '../options.js';
 import { writeFileAtomic } from '../output.js';
 import { loadSession, type TelemetryOptionValues } from './telemetry-options.js';
 import { fitEnvelope, EnvelopeFitError, type DemonstratedEnvelopeRecord } from '../../compare/envelope-fit.js';
-import type { TelemetrySession } from '../../compare/types.js';
+import type { TelemetrySession } from '../../telemetry/types.js';
 import { deriveSessionAccelerations, derivationNote } from '../../compare/derive-session.js';
 import { buildEnvelope } from '../../car/build-envelope.js';
 import { Option } from 'commander';

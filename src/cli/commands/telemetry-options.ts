@@ -5,7 +5,7 @@ import type { Command } from 'commander';
 import { InputError } from '../../errors.js';
 import { parseColumnMapping } from '../../io/columns.js';
 import { readTelemetryFile } from '../../io/telemetry/read-telemetry.js';
-import type { TelemetrySession } from '../../compare/types.js';
+import type { TelemetrySession } from '../../telemetry/types.js';
 import { numberOption } from '../options.js';
 
 export interface TelemetryOptionValues {

@@ -3,7 +3,7 @@
 
 import { listedHeaders, type ColumnBinding, type Quantity } from './columns.js';
 import { FIELD_OF, type TelemetryChannel } from './chunk.js';
-import { localPlane, type LocalPlane } from './geo.js';
+import { localPlane, type LocalPlane } from '../../track/geodesy.js';
 import type { ChannelLayout, DecidedUnits } from './units-from-data.js';
 
 /** The layout, the column of each channel, the plane for GPS positions once its origin is known, and the first problem. */

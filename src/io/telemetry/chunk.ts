@@ -1,7 +1,7 @@
 // The unit of the streamed telemetry reader: a bounded run of rows of the detected channels, in SI units, in
 // typed arrays that the reader reuses, so that reading a log of any length needs the same memory.
 
-import type { TelemetrySession } from '../../compare/types.js';
+import type { TelemetrySession } from '../../telemetry/types.js';
 import type { Quantity } from './columns.js';
 
 /** Rows per chunk: 8,192 rows of 14 channels are under 1 MB. */

@@ -8,7 +8,7 @@ import { open, stat } from 'node:fs/promises';
 import { parse as parseStream, type Options } from 'csv-parse';
 import { parse as parseSync } from 'csv-parse/sync';
 import { InputError } from '../../errors.js';
-import type { TelemetrySession } from '../../compare/types.js';
+import type { TelemetrySession } from '../../telemetry/types.js';
 import { HeldTooLong, RowPipeline } from './pipeline.js';
 import { SessionAssembler } from './session.js';
 import { NumericLineScanner, type ScanTarget } from './numeric-scan.js';

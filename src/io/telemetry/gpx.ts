@@ -4,7 +4,7 @@
 import { createRequire } from 'node:module';
 import type * as FastXmlParser from 'fast-xml-parser';
 import { InputError } from '../../errors.js';
-import type { TelemetrySession } from '../../compare/types.js';
+import type { TelemetrySession } from '../../telemetry/types.js';
 import { fillGaps, gpsSession } from './session.js';
 
 export function looksLikeGpx(head: string): boolean {

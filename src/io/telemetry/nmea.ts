@@ -3,7 +3,7 @@
 // two hex digits, NMEA 0183 v4.10 sec. 5.2.1), combined by timestamp into one sample per fix.
 
 import { InputError } from '../../errors.js';
-import type { TelemetrySession } from '../../compare/types.js';
+import type { TelemetrySession } from '../../telemetry/types.js';
 import { fillGaps, gpsSession } from './session.js';
 
 const KNOT_MPS = 1852 / 3600;

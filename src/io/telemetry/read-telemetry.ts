@@ -3,7 +3,7 @@
 
 import { readFile } from 'node:fs/promises';
 import { InputError } from '../../errors.js';
-import type { TelemetrySession } from '../../compare/types.js';
+import type { TelemetrySession } from '../../telemetry/types.js';
 import { parseCsvText, readCsvFile } from './csv.js';
 import { readTelemetryHead, sniffTelemetryFormat } from './format.js';
 import { parseGpxText } from './gpx.js';

@@ -2,9 +2,9 @@
 // array per channel, trimmed and scaled in place; and sessions of GPS fixes
 // (NMEA, GPX), with the gap filling they share.
 
-import type { TelemetrySession } from '../../compare/types.js';
+import type { TelemetrySession } from '../../telemetry/types.js';
 import { channelArrays, CHANNELS, CHUNK_ROWS, type TelemetryChannel, type TelemetryChunk } from './chunk.js';
-import { localPlane, projectLatLon } from './geo.js';
+import { localPlane, projectLatLon } from '../../track/geodesy.js';
 import type { PipelineResult } from './pipeline.js';
 import { composeNotes } from './read-notes.js';
 import { applyFactor, projectInPlace, UnitEvidence, type ChannelLayout, type DecidedUnits } from './units-from-data.js';

@@ -5,7 +5,7 @@
 
 import { STANDARD_GRAVITY_MPS2 } from '../../units.js';
 import type { TelemetryChannel, TelemetryChunk } from './chunk.js';
-import { localPlane, type GeoOrigin, type LocalPlane } from './geo.js';
+import { localPlane, type GeoOrigin, type LocalPlane } from '../../track/geodesy.js';
 
 /** What a read delivers before the units are decided. */
 export interface ChannelLayout {
