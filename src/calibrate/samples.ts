@@ -5,7 +5,8 @@
 
 import { InputError } from '../errors.js';
 import type { TrackGrid } from '../track/types.js';
-import type { DriverLap, TelemetrySession } from '../compare/types.js';
+import type { DriverLap } from '../compare/types.js';
+import type { TelemetrySession } from '../telemetry/types.js';
 import { cutLaps } from '../compare/laps.js';
 import { alignLapWithNotes } from '../compare/align.js';
 import { correlation, speedFromPositions } from '../compare/derive.js';

@@ -7,7 +7,7 @@
 // measured as the residual of a short cubic fit, corrected by the fit's own leverage: E[r^2] = sigma^2 (1 - w_0).
 
 import { savitzkyGolayFilter, applySavitzkyGolay, savitzkyGolayCutoffShare } from '../numeric/savitzky-golay.js';
-import type { TelemetrySession } from './types.js';
+import type { TelemetrySession } from '../telemetry/types.js';
 import { medianOf } from './median.js';
 
 export interface DeriveOptions {

@@ -7,7 +7,7 @@
 // 0.1 m/s white; accelerations 0.2 m/s^2 white plus a slow drift of 0.05 m/s^2 (2 s time constant); GPS position
 // 0.4 m white plus a wandering bias of about 0.7 m; throttle 1 % white.
 
-import type { TelemetrySession } from '../../src/compare/types.js';
+import type { TelemetrySession } from '../../src/telemetry/types.js';
 import type { LapResult } from '../../src/solve/types.js';
 import type { TrackGrid } from '../../src/track/types.js';
 import { seededRandom } from '../../src/compare/demo-driver.js';

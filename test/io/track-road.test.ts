@@ -2,7 +2,8 @@
 // segment JSON's gradePct and bankDeg, what the solver reads back from them, and the one-line errors.
 
 import { describe, expect, it } from 'vitest';
-import { parseTrackText, type TrackReadOptions } from '../../src/io/read-track.js';
+import { parseTrackText } from '../../src/io/read-track.js';
+import type { TrackReadOptions } from '../../src/io/track-read-options.js';
 import { InputError } from '../../src/errors.js';
 import { roadProfileOf } from '../../src/track/road-profile.js';
 import { simulate } from '../../src/solve/simulate.js';
