@@ -2,6 +2,7 @@
 // than a second, the output is not --json and the environment is not CI (env CI set). Otherwise silent.
 
 import cliProgress from 'cli-progress';
+import { onInterrupt } from './interrupt.js';
 
 export interface Progress {
   update(done: number, total: number): void;
@@ -31,6 +32,8 @@ export function createProgress(options: ProgressOptions): Progress {
   const startedAt = Date.now();
   const delayMs = options.delayMs ?? 1000;
   let bar: cliProgress.SingleBar | null = null;
+  // The bar hides the cursor while it draws; Ctrl-C must not leave the user's terminal without one.
+  let release: (() => void) | null = null;
   return {
     update(done, total) {
       if (!bar) {
@@ -46,6 +49,7 @@ export function createProgress(options: ProgressOptions): Progress {
           cliProgress.Presets.shades_classic,
         );
         bar.start(total, done);
+        release = onInterrupt(() => stream.write('\u001b[?25h\n'));
         return;
       }
       bar.update(done);
@@ -53,6 +57,8 @@ export function createProgress(options: ProgressOptions): Progress {
     stop() {
       bar?.stop();
       bar = null;
+      release?.();
+      release = null;
     },
   };
 }

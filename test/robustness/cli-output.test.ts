@@ -7,6 +7,7 @@ import { mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSyn
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { runCli, projectRoot } from '../helpers/cli.js';
+import { writeTestOval } from '../helpers/tracks.js';
 import { writeFileAtomic, outputBatch } from '../../src/cli/output.js';
 import { InputError } from '../../src/errors.js';
 
@@ -17,21 +18,7 @@ const brokenFile = (name: string) => join(projectRoot, 'test', 'fixtures', 'brok
 
 beforeAll(() => {
   folder = mkdtempSync(join(tmpdir(), 'reflap-robust-'));
-  track = join(folder, 'oval.json');
-  writeFileSync(
-    track,
-    JSON.stringify({
-      name: 'test oval',
-      closed: true,
-      widthM: 12,
-      segments: [
-        { kind: 'straight', lengthM: 300 },
-        { kind: 'arc', radiusM: 50, angleDeg: 180 },
-        { kind: 'straight', lengthM: 300 },
-        { kind: 'arc', radiusM: 50, angleDeg: 180 },
-      ],
-    }),
-  );
+  track = writeTestOval(folder);
   car = join(folder, 'car.json');
   writeFileSync(car, readFileSync(join(projectRoot, 'cars', 'brackle-club.json')));
 });
