@@ -1,7 +1,8 @@
 // `reflap check`: validates car, track and telemetry files and collects every problem it can find in each,
 // not only the first that would stop a command. Each problem is one line naming the file and the place.
 
-import { closeSync, openSync, readFileSync, readSync, statSync } from 'node:fs';
+import { closeSync, openSync, readFileSync, readSync } from 'node:fs';
+import { decodeText, guardInputFile } from '../io/input-file.js';
 import { InputError } from '../errors.js';
 import { parseCarJson } from '../io/read-car.js';
 import { parseTrackText } from '../io/read-track.js';
@@ -139,7 +140,7 @@ function headOf(file: string): string {
   const descriptor = openSync(file, 'r');
   try {
     const bytes = Buffer.alloc(65536);
-    return bytes.toString('utf8', 0, readSync(descriptor, bytes, 0, bytes.length, 0));
+    return decodeText(bytes.subarray(0, readSync(descriptor, bytes, 0, bytes.length, 0)));
   } finally {
     closeSync(descriptor);
   }
@@ -181,11 +182,19 @@ export async function checkFiles(
   const streamAboveBytes = options.streamAboveBytes ?? STREAMED_CHECK_BYTES;
   const checks: FileCheck[] = [];
   for (const file of files) {
+    let sizeBytes: number;
+    try {
+      // A FIFO, a device or a folder is refused before it is opened: opening or reading one could block forever.
+      sizeBytes = guardInputFile(file, 'file', 'telemetryCsv');
+    } catch (error) {
+      checks.push({ file, kind: 'unknown', problems: [inputMessage(error)], notes: [], summary: null });
+      continue;
+    }
     try {
       checks.push(
-        statSync(file).size > streamAboveBytes
+        sizeBytes > streamAboveBytes
           ? await checkLargeFile(file, streamAboveBytes)
-          : checkText(readFileSync(file, 'utf8'), file),
+          : checkText(decodeText(readFileSync(file)), file),
       );
     } catch (error) {
       if (error instanceof InputError) throw error;

@@ -54,11 +54,33 @@ export function cutLaps(
   const placed = placeSession(session, track);
   const result = placed ? cutByPosition(session, track, placed, options) : cutByDistance(session, track);
   if (placed) result.notes.unshift(...placed.notes);
+  for (const lap of result.laps) refuseTimeGap(lap, session.timeS);
   for (const lap of result.laps) {
     if (!lap.complete) result.notes.push(`lap ${lap.lapNumber} left out: ${lap.reason}`);
     else if (lap.reason) result.notes.push(`lap ${lap.lapNumber}: ${lap.reason}`);
   }
   return result;
+}
+
+/** The longest step between two samples a complete lap may have, s: a logger that stopped for longer saw none of it. */
+export const MAX_LAP_TIME_GAP_S = 5;
+
+/** Marks a lap incomplete where its samples leave a time gap over MAX_LAP_TIME_GAP_S. */
+function refuseTimeGap(lap: LapCut, timeS: Float64Array): void {
+  if (!lap.complete) return;
+  let widestS = 0;
+  let atS = 0;
+  for (let i = lap.startIndex + 1; i <= lap.endIndex; i++) {
+    const stepS = timeS[i]! - timeS[i - 1]!;
+    if (stepS > widestS) {
+      widestS = stepS;
+      atS = timeS[i - 1]!;
+    }
+  }
+  if (widestS > MAX_LAP_TIME_GAP_S) {
+    lap.complete = false;
+    lap.reason = `a gap of ${widestS.toFixed(1)} s in the log at ${atS.toFixed(1)} s (over ${MAX_LAP_TIME_GAP_S} s)`;
+  }
 }
 
 function cutByPosition(

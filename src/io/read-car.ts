@@ -193,5 +193,5 @@ export function parseCarJson(text: string, source: string): Car {
 }
 
 export function readCarFile(file: string): Car {
-  return parseCarJson(readTextFile(file, 'car file'), file);
+  return parseCarJson(readTextFile(file, 'car file', 'car'), file);
 }

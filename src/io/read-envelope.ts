@@ -49,5 +49,5 @@ export function parseEnvelopeJson(text: string, source: string): DemonstratedEnv
 }
 
 export function readEnvelopeFile(file: string): DemonstratedEnvelopeRecord {
-  return parseEnvelopeJson(readTextFile(file, 'envelope file'), file);
+  return parseEnvelopeJson(readTextFile(file, 'envelope file', 'envelope'), file);
 }

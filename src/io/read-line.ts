@@ -24,7 +24,7 @@ const POSITION_TOLERANCE_M = 2;
 const EDGE_TOLERANCE_M = 0.01;
 
 export function readLineFile(file: string, track: TrackGrid): Float64Array {
-  return parseLineCsv(readTextFile(file, 'line file'), file, track);
+  return parseLineCsv(readTextFile(file, 'line file', 'line'), file, track);
 }
 
 export function parseLineCsv(text: string, source: string, track: TrackGrid): Float64Array {

@@ -10,7 +10,7 @@ import { DEFAULT_TRACK_READ_OPTIONS, type TrackReadOptions } from './track-read-
 
 /** Options left out take their defaults (1 m step, no column mapping, widths from the file, layout from the file). */
 export function readTrackFile(file: string, options: Partial<TrackReadOptions> = {}): TrackGrid {
-  return parseTrackText(readTextFile(file, 'track file'), file, options);
+  return parseTrackText(readTextFile(file, 'track file', 'track'), file, options);
 }
 
 export function parseTrackText(

@@ -67,6 +67,13 @@ const GAUSS_NODES = [0.5 - Math.sqrt(15) / 10, 0.5, 0.5 + Math.sqrt(15) / 10];
 const GAUSS_WEIGHTS = [5 / 18, 8 / 18, 5 / 18];
 const MAX_TURN_PER_PIECE_RAD = 0.05;
 
+/** Tightest curvature a segment may have, 1/m: a radius of 1 m, tighter than any car can turn. */
+export const MAX_SEGMENT_CURVATURE_PER_M = 1;
+/** Longest segment track, m: a long rally stage is under 50 km. */
+export const MAX_SEGMENT_TRACK_LENGTH_M = 200_000;
+/** With the two limits above a piece needs at most 4 million parts; the cap holds the integration to that. */
+const MAX_PARTS = Math.ceil((MAX_SEGMENT_CURVATURE_PER_M * MAX_SEGMENT_TRACK_LENGTH_M) / MAX_TURN_PER_PIECE_RAD);
+
 function headingAt(piece: Piece, u: number): number {
   return (
     piece.startHeadingRad +
@@ -83,7 +90,7 @@ function curvatureAt(piece: Piece, u: number): number {
 function displacement(piece: Piece, ua: number, ub: number, out: Float64Array): void {
   const span = ub - ua;
   const maxCurvature = Math.max(Math.abs(curvatureAt(piece, ua)), Math.abs(curvatureAt(piece, ub)));
-  const parts = Math.max(1, Math.ceil((maxCurvature * span) / MAX_TURN_PER_PIECE_RAD));
+  const parts = Math.min(MAX_PARTS, Math.max(1, Math.ceil((maxCurvature * span) / MAX_TURN_PER_PIECE_RAD)));
   const h = span / parts;
   let dx = 0;
   let dy = 0;
@@ -124,6 +131,10 @@ function toPieces(
     } else if (segment.kind === 'arc') {
       if (!(segment.radiusM > 0 && Number.isFinite(segment.radiusM)))
         throw new InputError(`${where}.radiusM: must be a positive radius, m`);
+      if (segment.radiusM < 1 / MAX_SEGMENT_CURVATURE_PER_M)
+        throw new InputError(
+          `${where}.radiusM: ${segment.radiusM} m is tighter than any car turns (at least ${1 / MAX_SEGMENT_CURVATURE_PER_M} m)`,
+        );
       if (!(segment.angleDeg !== 0 && Number.isFinite(segment.angleDeg)))
         throw new InputError(`${where}.angleDeg: must be a non-zero angle, degrees`);
       lengthM = segment.radiusM * Math.abs(degToRad(segment.angleDeg));
@@ -133,6 +144,12 @@ function toPieces(
         throw new InputError(`${where}.lengthM: must be a positive length, m`);
       if (!Number.isFinite(segment.startCurvature) || !Number.isFinite(segment.endCurvature))
         throw new InputError(`${where}: curvatures must be finite numbers, 1/m`);
+      for (const field of ['startCurvature', 'endCurvature'] as const) {
+        if (Math.abs(segment[field]) > MAX_SEGMENT_CURVATURE_PER_M)
+          throw new InputError(
+            `${where}.${field}: ${segment[field]} 1/m is outside -${MAX_SEGMENT_CURVATURE_PER_M} to ${MAX_SEGMENT_CURVATURE_PER_M} 1/m (a radius under 1 m)`,
+          );
+      }
       lengthM = segment.lengthM;
       k0 = segment.startCurvature;
       k1 = segment.endCurvature;
@@ -141,6 +158,10 @@ function toPieces(
       throw new InputError(`${where}.gradePct: ${segment.gradePct} % is steeper than ${MAX_SEGMENT_GRADE_PCT} %`);
     if (segment.bankDeg !== undefined && !(Math.abs(segment.bankDeg) <= MAX_SEGMENT_BANK_DEG))
       throw new InputError(`${where}.bankDeg: ${segment.bankDeg} degrees is over ${MAX_SEGMENT_BANK_DEG} degrees`);
+    if (!(s + lengthM <= MAX_SEGMENT_TRACK_LENGTH_M))
+      throw new InputError(
+        `${where}: the track reaches ${(s + lengthM).toPrecision(3)} m, over the ${MAX_SEGMENT_TRACK_LENGTH_M / 1000} km a segment track may have`,
+      );
     const piece: Piece = {
       startM: s,
       lengthM,

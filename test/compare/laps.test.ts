@@ -142,3 +142,21 @@ describe('cutLaps', () => {
     expect(laps.find((lap) => lap.lapNumber === 2)!.lapTimeS).toBeCloseTo(L / 43, 2);
   });
 });
+
+describe('a time gap inside a lap', () => {
+  it('over 5 s makes the lap incomplete, with the gap in the reason; the other laps stay complete', () => {
+    const { session } = threeLapSession(20);
+    // The logger stopped for 1e9 s in the middle of lap 2 (a sample about halfway round), positions unchanged.
+    const startOfLap2 = L / 30 - 700 / 30 + L / 40;
+    const middle = session.timeS.findIndex((t) => t > startOfLap2 + L / 43 / 2);
+    for (let i = middle; i < session.count; i++) session.timeS[i] = session.timeS[i]! + 1e9;
+    const { laps, notes } = cutLaps(session, track, {});
+    const lap2 = laps.find((lap) => lap.lapNumber === 2)!;
+    expect(lap2.complete).toBe(false);
+    expect(lap2.reason).toMatch(/^a gap of 1000000000\.\d s in the log at \d+\.\d s \(over 5 s\)$/);
+    expect(notes.some((note) => note.startsWith('lap 2 left out: a gap of'))).toBe(true);
+    expect(laps.filter((lap) => lap.complete).map((lap) => lap.lapNumber)).toEqual([1, 3]);
+    // Lap 3's time is still L / v (kinematics).
+    expect(laps.find((lap) => lap.lapNumber === 3)!.lapTimeS).toBeCloseTo(L / 38, 3);
+  });
+});

@@ -197,5 +197,6 @@ describe('CLI property: garbage in any input gives exit 0 or 2, one line on stde
       ),
       { numRuns: 12, seed: 20260623 },
     );
-  });
+    // Twelve spawns of the CLI: on a shared, loaded machine each can take several seconds.
+  }, 240_000);
 });

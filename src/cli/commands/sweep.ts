@@ -4,7 +4,6 @@
 import { zoneLabel } from '../../track/corner-layout.js';
 import type { Command } from 'commander';
 import { Option } from 'commander';
-import { readFileSync } from 'node:fs';
 import {
   addCarOptions,
   addTrackOptions,
@@ -33,6 +32,7 @@ import { SAFETY_CAUTION } from '../../report/lap-summary.js';
 import { perUnit } from '../../report/sweep-format.js';
 import { formatLapTime } from '../../units.js';
 import { InputError } from '../../errors.js';
+import { readTextFile } from '../../io/read-text.js';
 import { ambientFrom } from '../../car/ambient.js';
 import { addLineOption, referencePathJson, resolveReferenceLine, withReferencePath } from '../reference-path.js';
 import type { ReferenceLine } from '../../line/reference-line.js';
@@ -201,13 +201,7 @@ export async function runSweepCommand(values: SweepValues): Promise<void> {
   if (values.merge) {
     if (values.vary || values.shard)
       throw new InputError('sweep --merge joins finished shards; it takes no --vary or --shard');
-    const files = values.merge.map((file) => {
-      try {
-        return { text: readFileSync(file, 'utf8'), source: file };
-      } catch {
-        throw new InputError(`${file}: cannot read the shard CSV`);
-      }
-    });
+    const files = values.merge.map((file) => ({ text: readTextFile(file, 'shard CSV', 'table'), source: file }));
     const { csv, table } = mergeSweepCsv(files);
     const outputs = outputBatch(values.merge);
     if (values.out) outputs.add(values.out, csv);

@@ -73,12 +73,23 @@ function parserOptions(dialect: CsvDialect): Options {
     relax_quotes: true,
     // Blank lines come through as records so that line numbers stay exact (quoted line breaks aside).
     skip_empty_lines: false,
+    // Bounds the memory of a file with no line breaks (a disk image, gigabytes of NUL bytes).
+    max_record_size: MAX_RECORD_CHARS,
   };
 }
+
+/** The longest record read, characters: far above any log's line, far below a file that has no lines. */
+export const MAX_RECORD_CHARS = 16 * 1024 * 1024;
 
 /** Wraps csv-parse's own errors (unclosed quotes and the like) as one-line input errors; passes ours through. */
 function asInputError(error: unknown, source: string): Error {
   if (error instanceof InputError || error instanceof HeldTooLong) return error;
+  if ((error as { code?: unknown }).code === 'CSV_MAX_RECORD_SIZE') {
+    const line = (error as { lines?: unknown }).lines;
+    return new InputError(
+      `${source}: line ${typeof line === 'number' ? line : '?'}: a row of over ${MAX_RECORD_CHARS / 1024 / 1024} MiB; not a telemetry CSV`,
+    );
+  }
   const cause = (error as { cause?: unknown }).cause;
   if (cause instanceof InputError) return cause;
   const message = error instanceof Error ? error.message.split('\n')[0] : String(error);

@@ -4,6 +4,7 @@
 import { open } from 'node:fs/promises';
 import { extname } from 'node:path';
 import { InputError } from '../../errors.js';
+import { guardInputFile, isUtf16Le } from '../input-file.js';
 import { looksLikeGpx } from './gpx.js';
 import { looksLikeNmea } from './nmea.js';
 
@@ -16,19 +17,34 @@ export function sniffTelemetryFormat(head: string, source: string): TelemetryFor
   return 'csv';
 }
 
+/**
+ * The head's bytes as text. A NUL byte means binary data (a disk image, a file of zeros), refused here rather than
+ * after the CSV reader has gathered megabytes looking for the end of a line; UTF-16 text (its byte order mark
+ * first) has NULs and is read by the CSV reader, so it passes.
+ */
+function textHead(bytes: Buffer, file: string): string {
+  if (!isUtf16Le(bytes)) {
+    const nul = bytes.indexOf(0);
+    if (nul >= 0) throw new InputError(`${file}: byte ${nul + 1} is a NUL byte: binary data, not a text log`);
+  }
+  return bytes.toString('utf8');
+}
+
 /** The first 64 KiB of a log as text; an unreadable or empty file is an input error. */
 export async function readTelemetryHead(file: string): Promise<string> {
+  guardInputFile(file, 'telemetry file', 'telemetryCsv');
   let head: string;
   try {
     const handle = await open(file, 'r');
     try {
       const buffer = Buffer.alloc(65536);
       const { bytesRead } = await handle.read(buffer, 0, buffer.length, 0);
-      head = buffer.subarray(0, bytesRead).toString('utf8');
+      head = textHead(buffer.subarray(0, bytesRead), file);
     } finally {
       await handle.close();
     }
   } catch (error) {
+    if (error instanceof InputError) throw error;
     const code = (error as NodeJS.ErrnoException).code;
     throw new InputError(`${file}: cannot read the telemetry file (${code ?? String(error)})`);
   }

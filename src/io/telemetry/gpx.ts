@@ -41,7 +41,14 @@ function extensionSpeed(node: unknown): number {
   return NaN;
 }
 
+/** Deeper than any GPX (gpx, trk, trkseg, trkpt, extensions and a vendor block are under ten). */
+const MAX_NESTING = 64;
+
 export function parseGpxText(text: string, source: string): TelemetrySession {
+  // A plain GPX declares no document type; entities (external, parameter or expanding) are refused, not processed.
+  if (/<!DOCTYPE/i.test(text)) {
+    throw new InputError(`${source}: not a plain GPX file (it declares a DOCTYPE; GPX needs none)`);
+  }
   const { XMLParser, XMLValidator } = xmlLibrary();
   const validation = XMLValidator.validate(text);
   if (validation !== true) {
@@ -54,8 +61,17 @@ export function parseGpxText(text: string, source: string): TelemetrySession {
     attributeNamePrefix: '@_',
     parseTagValue: false,
     isArray: (name) => name === 'trk' || name === 'trkseg' || name === 'trkpt',
+    processEntities: false,
+    maxNestedTags: MAX_NESTING,
   });
-  const document = parser.parse(text) as XmlNode;
+  let document: XmlNode;
+  try {
+    document = parser.parse(text) as XmlNode;
+  } catch (error) {
+    // The parser refuses what the validator let through (nesting deeper than MAX_NESTING and the like).
+    const reason = error instanceof Error ? error.message.split('\n')[0]! : String(error);
+    throw new InputError(`${source}: not a plain GPX file (${reason})`);
+  }
   const gpx = document['gpx'] as XmlNode | undefined;
   if (!gpx) throw new InputError(`${source}: no <gpx> element`);
   const points: XmlNode[] = [];

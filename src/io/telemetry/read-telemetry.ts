@@ -3,6 +3,7 @@
 
 import { readFile } from 'node:fs/promises';
 import { InputError } from '../../errors.js';
+import { guardInputFile } from '../input-file.js';
 import type { TelemetrySession } from '../../telemetry/types.js';
 import { parseCsvText, readCsvFile } from './csv.js';
 import { readTelemetryHead, sniffTelemetryFormat } from './format.js';
@@ -30,6 +31,7 @@ export async function readTelemetryFile(file: string, options: TelemetryReadOpti
   const head = await readTelemetryHead(file);
   const format = sniffTelemetryFormat(head, file);
   if (format === 'csv') return readCsvFile(file, head, options.columns);
+  guardInputFile(file, 'GPS log', 'gpsLog');
   const text = await readFile(file, 'utf8');
   return format === 'gpx' ? parseGpxText(text, file) : parseNmeaText(text, file);
 }
