@@ -1,9 +1,12 @@
 // Errors a user can cause carry the place (file, row, column or field) and end the CLI with exit code 2;
 // anything else is an internal error (exit code 1).
 
-/** Control characters quoted from a user's file (a line break in a quoted cell, a stray CR) are shown escaped. */
+/**
+ * Control characters quoted from a user's file (a line break in a quoted cell, a stray CR, a right-to-left
+ * override) are shown escaped.
+ */
 function oneLine(message: string): string {
-  return message.replace(/[\u0000-\u001f\u007f\u0085\u2028\u2029]/g, (c) =>
+  return message.replace(/[\u0000-\u001f\u007f\u0085\u2028\u2029\u202a-\u202e\u2066-\u2069]/g, (c) =>
     c === '\n'
       ? '\\n'
       : c === '\r'

@@ -16,7 +16,10 @@ export const mps2ToG = (mps2: number): number => mps2 / STANDARD_GRAVITY_MPS2;
 /** Lap time as m:ss.sss, the way timing screens show it. */
 export function formatLapTime(timeS: number): string {
   if (!Number.isFinite(timeS)) return 'n/a';
-  const minutes = Math.floor(timeS / 60);
-  const seconds = timeS - minutes * 60;
-  return `${minutes}:${seconds.toFixed(3).padStart(6, '0')}`;
+  // The sign goes in front of the whole time: flooring a negative time would give -1:55.000 for -5 s.
+  const sign = timeS < 0 ? '-' : '';
+  const milliseconds = Math.round(Math.abs(timeS) * 1000);
+  const minutes = Math.floor(milliseconds / 60000);
+  const seconds = (milliseconds - minutes * 60000) / 1000;
+  return `${sign}${minutes}:${seconds.toFixed(3).padStart(6, '0')}`;
 }

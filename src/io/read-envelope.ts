@@ -5,27 +5,30 @@ import { readTextFile } from './read-text.js';
 import { z } from 'zod';
 import { InputError } from '../errors.js';
 import type { DemonstratedEnvelopeRecord } from '../car/demonstrated-envelope.js';
+import { MAX_ACCEL_MPS2, MAX_COAST_QUADRATIC_PER_M, MAX_SPEED_MPS } from '../car/plausible.js';
 
-const positive = z.number().finite().positive();
-const band = z.object({
-  speedMps: z.number().finite().nonnegative(),
+const acceleration = z.number().finite().positive().max(MAX_ACCEL_MPS2);
+const speed = z.number().finite().max(MAX_SPEED_MPS);
+// Strict objects: an unknown key is a typo or a file from elsewhere, named rather than ignored.
+const band = z.strictObject({
+  speedMps: speed.nonnegative(),
   samples: z.number().int().nonnegative(),
-  brakeMps2: positive,
-  accelMps2: z.number().finite(),
-  leftMps2: positive,
-  rightMps2: positive,
+  brakeMps2: acceleration,
+  accelMps2: z.number().finite().min(-MAX_ACCEL_MPS2).max(MAX_ACCEL_MPS2),
+  leftMps2: acceleration,
+  rightMps2: acceleration,
 });
 
-const schema = z.object({
+const schema = z.strictObject({
   format: z.literal('reflap-demonstrated-envelope'),
   version: z.literal(1),
   source: z.string(),
   quantile: z.number().gt(0).lte(1),
-  bandWidthMps: positive,
-  topSpeedMps: positive,
-  coast: z.object({
-    constantMps2: z.number().finite().nonnegative(),
-    quadraticPerM: z.number().finite().nonnegative(),
+  bandWidthMps: speed.positive(),
+  topSpeedMps: speed.positive(),
+  coast: z.strictObject({
+    constantMps2: z.number().finite().nonnegative().max(MAX_ACCEL_MPS2),
+    quadraticPerM: z.number().finite().nonnegative().max(MAX_COAST_QUADRATIC_PER_M),
     fitted: z.boolean(),
   }),
   bands: z.array(band).min(1),
@@ -43,6 +46,10 @@ export function parseEnvelopeJson(text: string, source: string): DemonstratedEnv
   if (!parsed.success) {
     const issue = parsed.error.issues[0]!;
     const where = issue.path.length > 0 ? issue.path.join('.') : 'top level';
+    if (issue.code === 'unrecognized_keys') {
+      const keys = issue.keys.map((key) => (issue.path.length > 0 ? `${where}.${key}` : key));
+      throw new InputError(`${source}: unknown field${keys.length > 1 ? 's' : ''} ${keys.join(', ')}`);
+    }
     throw new InputError(`${source}: field ${where}: ${issue.message}`);
   }
   return parsed.data as DemonstratedEnvelopeRecord;

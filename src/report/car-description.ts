@@ -6,6 +6,7 @@ import type { CarDescription } from '../car/describe.js';
 import type { Envelope } from '../car/envelope.js';
 import { formatTable } from './text-table.js';
 import { escapeHtml } from './html/escape.js';
+import { contentSecurityPolicy } from './html/page-frame.js';
 import { SAFETY_CAUTION } from './lap-summary.js';
 import { envelopeBoundaryG } from './html/gg-diagram.js';
 import { kphToMps } from '../units.js';
@@ -43,6 +44,9 @@ const GG_PAGE_SIZE = 520;
 const CURVE_COLOURS = ['#1b6f8a', '#c2571a', '#5b8a1b', '#8a1b6f', '#6f6f6f', '#1b3f8a', '#8a6f1b', '#3f8a6f'];
 
 /** One self-contained page: the envelope's g-g boundary at each table speed, drawn with d3-shape. */
+const CAR_PAGE_STYLE =
+  'body{font-family:system-ui,sans-serif;margin:24px;color:#222}figure{display:flex;gap:24px;align-items:flex-start;margin:0}ul{list-style:none;padding:0;font-size:14px}small{color:#666}';
+
 export function carGgHtml(d: CarDescription, envelope: Envelope): string {
   const boundaries = d.envelope.map((row) => ({
     speedKph: row.speedKph,
@@ -74,7 +78,8 @@ export function carGgHtml(d: CarDescription, envelope: Envelope): string {
   const legend = boundaries
     .map(
       (b, k) =>
-        `<li><span style="color:${CURVE_COLOURS[k % CURVE_COLOURS.length]}">&#9632;</span> ${escapeHtml(`${b.speedKph} km/h`)}</li>`,
+        // A swatch drawn with presentation attributes: the page's Content-Security-Policy admits no style attribute.
+        `<li><svg width="10" height="10" aria-hidden="true"><rect width="10" height="10" fill="${CURVE_COLOURS[k % CURVE_COLOURS.length]}"/></svg> ${escapeHtml(`${b.speedKph} km/h`)}</li>`,
     )
     .join('');
   const title = escapeHtml(`${d.name}: g-g-v envelope (${d.model} model)`);
@@ -84,8 +89,10 @@ export function carGgHtml(d: CarDescription, envelope: Envelope): string {
       : `understeer gradient ${d.understeerGradientDegPerG.toFixed(2)} deg/g (${d.steer})`,
   );
   return `<!DOCTYPE html>
-<html lang="en"><head><meta charset="utf-8"><title>${title}</title>
-<style>body{font-family:system-ui,sans-serif;margin:24px;color:#222}figure{display:flex;gap:24px;align-items:flex-start;margin:0}ul{list-style:none;padding:0;font-size:14px}small{color:#666}</style>
+<html lang="en"><head><meta charset="utf-8">
+<meta http-equiv="Content-Security-Policy" content="${contentSecurityPolicy(CAR_PAGE_STYLE, undefined)}">
+<meta name="referrer" content="no-referrer"><title>${title}</title>
+<style>${CAR_PAGE_STYLE}</style>
 </head><body>
 <h1>${title}</h1>
 <p>${facts}. Lateral acceleration across (left turn to the right), longitudinal up (accelerating) and down (braking).</p>

@@ -96,4 +96,27 @@ describe('fitting the envelope', () => {
     broken.bands[0].leftMps2 = -1;
     expect(() => parseEnvelopeJson(JSON.stringify(broken), 'env.json')).toThrow(/env\.json: field bands\.0\.leftMps2/);
   });
+
+  it('refuses unknown keys and accelerations, speeds or coast terms outside their plausible range', () => {
+    const withKey = JSON.parse(JSON.stringify(record));
+    withKey.bands[1].gripBoost = 2;
+    expect(() => parseEnvelopeJson(JSON.stringify(withKey), 'env.json')).toThrow(
+      'env.json: unknown field bands.1.gripBoost',
+    );
+    // 100 m/s^2 (about 10 g) is the stated limit for any acceleration (src/car/plausible.ts, from memory).
+    for (const [path, value] of [
+      [['bands', 0, 'brakeMps2'], 1e308],
+      [['bands', 0, 'accelMps2'], -101],
+      [['topSpeedMps'], 1e308],
+      [['coast', 'quadraticPerM'], 1e308],
+    ] as const) {
+      const broken = JSON.parse(JSON.stringify(record));
+      let node = broken;
+      for (const key of path.slice(0, -1)) node = node[key];
+      node[path[path.length - 1]!] = value;
+      expect(() => parseEnvelopeJson(JSON.stringify(broken), 'env.json')).toThrow(
+        `env.json: field ${path.join('.')}: `,
+      );
+    }
+  });
 });

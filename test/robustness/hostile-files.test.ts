@@ -217,3 +217,13 @@ describe('an empty file', () => {
     expect(await inputErrorOf(() => readTelemetryFile(empty, { columns: {} }))).toBe(`${empty}: empty file`);
   });
 });
+
+describe('a separator inside a quoted header cell', () => {
+  it('is text: the file stays comma-separated', () => {
+    const text = 'time_s,"speed; km/h"\n0,100\n0.1,101\n0.2,102\n';
+    const session = parseTelemetryText(text, 'quoted.csv', { columns: { speed_kph: 'speed; km/h' } });
+    expect(session.count).toBe(3);
+    // 101 km/h is 101 / 3.6 m/s (SI definition of the km/h).
+    expect(session.speedMps![1]).toBeCloseTo(101 / 3.6, 12);
+  });
+});

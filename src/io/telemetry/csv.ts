@@ -40,7 +40,8 @@ export function sniffDialect(head: string, source: string): CsvDialect {
     break;
   }
   if (headerIndex < 0) throw new InputError(`${source}: empty file (no header)`);
-  const header = lines[headerIndex]!;
+  // A separator inside a quoted header cell ("speed; km/h") is text, not the file's separator.
+  const header = lines[headerIndex]!.replace(/"[^"]*"/g, '');
   const delimiter = header.includes('\t') ? '\t' : header.includes(';') ? ';' : ',';
   let decimalComma = false;
   if (delimiter !== ',') {
