@@ -6,12 +6,14 @@ import { formatTable } from './text-table.js';
 import { zoneLabel } from '../track/corner-layout.js';
 import { cornersJson } from './corners-file.js';
 import { roadProfileOf } from '../track/road-profile.js';
+import { requireFiniteLap } from './finite.js';
 
 export const SAFETY_CAUTION =
   'Caution: this reference lap is a model result, not a driving instruction. Driving at the limit is dangerous; ' +
   "follow the circuit's rules and qualified instruction.";
 
 export function lapSummaryJson(result: LapResult, carName: string) {
+  requireFiniteLap(result);
   return {
     track: result.track.name,
     car: carName,
@@ -66,6 +68,7 @@ function roadSummaryJson(result: LapResult) {
 }
 
 export function lapSummaryText(result: LapResult, carName: string): string {
+  requireFiniteLap(result);
   const lines = [
     `${result.track.name} · ${carName} · ${result.envelopeKind} envelope`,
     `Lap time      ${formatLapTime(result.lapTimeS)}  (${result.lapTimeS.toFixed(3)} s over ${(result.lengthM / 1000).toFixed(3)} km)`,

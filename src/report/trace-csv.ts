@@ -3,6 +3,7 @@
 import type { LapResult } from '../solve/types.js';
 import { mpsToKph } from '../units.js';
 import { roadProfileOf } from '../track/road-profile.js';
+import { requireFiniteLap } from './finite.js';
 
 export interface ExtraColumn {
   name: string;
@@ -24,6 +25,7 @@ export function roadColumns(result: LapResult): ExtraColumn[] {
 }
 
 export function traceCsv(result: LapResult, extra: ExtraColumn[] = []): string {
+  requireFiniteLap(result);
   const t = result.trace;
   const extraColumns = [...roadColumns(result), ...extra];
   const header = [

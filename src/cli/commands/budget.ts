@@ -5,7 +5,8 @@ import { addCarOptions, loadCar, numberOption, type CarOptionValues } from '../o
 import { buildEnvelope } from '../../car/build-envelope.js';
 import { gripBudget } from '../../car/budget.js';
 import { InputError } from '../../errors.js';
-import { gToMps2, kphToMps, mps2ToG } from '../../units.js';
+import { gToMps2, kphToMps, mps2ToG, mpsToKph } from '../../units.js';
+import { MAX_ACCEL_MPS2, MAX_SPEED_MPS } from '../../car/plausible.js';
 import { formatTable } from '../../report/text-table.js';
 import { round } from '../../report/lap-summary.js';
 
@@ -33,7 +34,8 @@ const percent = (share: number) => `${(share * 100).toFixed(0)} %`;
 
 export function runBudget(values: BudgetValues): void {
   const speedKph = numberOption(values.speedKph, '--speed-kph', 0);
-  if (!(speedKph > 0)) throw new InputError(`option --speed-kph: ${speedKph} must be positive`);
+  if (!(speedKph > 0 && speedKph <= mpsToKph(MAX_SPEED_MPS)))
+    throw new InputError(`option --speed-kph: ${speedKph} must be above 0 and at most ${mpsToKph(MAX_SPEED_MPS)} km/h`);
   if ((values.lateralG === undefined) === (values.radiusM === undefined)) {
     throw new InputError('budget: give exactly one of --lateral-g and --radius-m');
   }
@@ -41,11 +43,15 @@ export function runBudget(values: BudgetValues): void {
   let lateralMps2: number;
   if (values.radiusM !== undefined) {
     const radiusM = numberOption(values.radiusM, '--radius-m', 0);
-    if (!(radiusM > 0)) throw new InputError(`option --radius-m: ${radiusM} must be positive`);
+    if (!(radiusM > 0 && Number.isFinite(radiusM)))
+      throw new InputError(`option --radius-m: ${radiusM} must be positive`);
     lateralMps2 = (speedMps * speedMps) / radiusM;
   } else {
     const lateralG = numberOption(values.lateralG, '--lateral-g', 0);
-    if (!(lateralG >= 0)) throw new InputError(`option --lateral-g: ${lateralG} must not be negative`);
+    if (!(lateralG >= 0 && lateralG <= mps2ToG(MAX_ACCEL_MPS2)))
+      throw new InputError(
+        `option --lateral-g: ${lateralG} must be between 0 and ${mps2ToG(MAX_ACCEL_MPS2).toFixed(1)} g`,
+      );
     lateralMps2 = gToMps2(lateralG);
   }
   const { car, ambient } = loadCar(values);
