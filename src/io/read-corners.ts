@@ -38,5 +38,5 @@ export function parseCornersText(text: string, source: string, track: TrackGrid)
 }
 
 export function readCornersFile(file: string, track: TrackGrid): CornerLayout {
-  return parseCornersText(readTextFile(file, 'corners file'), file, track);
+  return parseCornersText(readTextFile(file, 'corners file', 'track'), file, track);
 }
