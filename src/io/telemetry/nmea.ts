@@ -117,6 +117,12 @@ export function parseNmeaText(text: string, source: string): TelemetrySession {
     if (Number.isNaN(latDeg) || Number.isNaN(lonDeg)) {
       throw new InputError(`${source}: line ${lineIndex + 1}: ${fields[0]} sentence has an unreadable position`);
     }
+    // The same ranges as the CSV reader's: a latitude of 95 or a longitude of 181 is not a place.
+    if (!(Math.abs(latDeg) <= 90 && Math.abs(lonDeg) <= 180)) {
+      throw new InputError(
+        `${source}: line ${lineIndex + 1}: ${fields[0]} position ${latDeg.toFixed(5)}, ${lonDeg.toFixed(5)} is outside latitude -90 to 90 and longitude -180 to 180`,
+      );
+    }
     // Sentences of one fix share its time stamp and arrive together; look back over the last two fixes.
     const held = [order[order.length - 1], order[order.length - 2]].find(
       (fix) => fix !== undefined && fix.timeKey === timeKey,

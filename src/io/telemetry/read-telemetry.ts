@@ -4,6 +4,7 @@
 import { readFile } from 'node:fs/promises';
 import { InputError } from '../../errors.js';
 import { guardInputFile } from '../input-file.js';
+import { checkSessionRanges } from './session-ranges.js';
 import type { TelemetrySession } from '../../telemetry/types.js';
 import { parseCsvText, readCsvFile } from './csv.js';
 import { readTelemetryHead, sniffTelemetryFormat } from './format.js';
@@ -22,16 +23,16 @@ export interface TelemetryReadOptions {
 export function parseTelemetryText(text: string, source: string, options: TelemetryReadOptions): TelemetrySession {
   if (text.replace(/^\uFEFF/, '').trim() === '') throw new InputError(`${source}: empty file`);
   const format = sniffTelemetryFormat(text.slice(0, 65536), source);
-  if (format === 'gpx') return parseGpxText(text, source);
-  if (format === 'nmea') return parseNmeaText(text, source);
-  return parseCsvText(text, source, options.columns);
+  if (format === 'gpx') return checkSessionRanges(parseGpxText(text, source));
+  if (format === 'nmea') return checkSessionRanges(parseNmeaText(text, source));
+  return checkSessionRanges(parseCsvText(text, source, options.columns));
 }
 
 export async function readTelemetryFile(file: string, options: TelemetryReadOptions): Promise<TelemetrySession> {
   const head = await readTelemetryHead(file);
   const format = sniffTelemetryFormat(head, file);
-  if (format === 'csv') return readCsvFile(file, head, options.columns);
+  if (format === 'csv') return checkSessionRanges(await readCsvFile(file, head, options.columns));
   guardInputFile(file, 'GPS log', 'gpsLog');
   const text = await readFile(file, 'utf8');
-  return format === 'gpx' ? parseGpxText(text, file) : parseNmeaText(text, file);
+  return checkSessionRanges(format === 'gpx' ? parseGpxText(text, file) : parseNmeaText(text, file));
 }
