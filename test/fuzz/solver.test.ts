@@ -31,6 +31,22 @@ export const GRIP_USE_TOLERANCE = 0.02;
 export function expectSoundLap(lap: LapResult): void {
   const { trace } = lap;
   expect(Number.isFinite(lap.lapTimeS) && lap.lapTimeS > 0).toBe(true);
+  // Every output value is finite: the summary numbers, every channel of the trace (the corner limit is infinite on
+  // a straight by definition, so it only may not be NaN) and every braking zone's numbers.
+  for (const [name, value] of Object.entries({ lengthM: lap.lengthM, max: lap.maxSpeedMps, min: lap.minSpeedMps }))
+    if (!Number.isFinite(value)) throw new Error(`${name} is ${value}`);
+  for (const [name, channel] of Object.entries(trace)) {
+    if (!ArrayBuffer.isView(channel)) continue;
+    const values = channel as unknown as ArrayLike<number>;
+    for (let i = 0; i < values.length; i++) {
+      const value = values[i]!;
+      if (name === 'cornerLimitMps' ? Number.isNaN(value) : !Number.isFinite(value))
+        throw new Error(`trace.${name} is ${value} at sample ${i}`);
+    }
+  }
+  for (const zone of lap.brakingZones)
+    for (const [name, value] of Object.entries(zone))
+      if (typeof value === 'number' && !Number.isFinite(value)) throw new Error(`braking zone ${name} is ${value}`);
   for (let i = 1; i < trace.count; i++) {
     if (!(trace.timeS[i]! > trace.timeS[i - 1]!))
       throw new Error(`time not increasing at sample ${i}: ${trace.timeS[i - 1]} then ${trace.timeS[i]}`);
