@@ -4,7 +4,7 @@
 
 import { InputError } from '../../errors.js';
 import { MAX_SPEED_MPS } from '../../car/plausible.js';
-import type { TelemetrySession } from '../../compare/types.js';
+import type { TelemetrySession } from '../../telemetry/types.js';
 
 function refuse(session: TelemetrySession, index: number, message: string): never {
   const at = Number.isFinite(session.timeS[index]!) ? ` (t = ${session.timeS[index]!.toFixed(2)} s)` : '';
