@@ -6,6 +6,7 @@
 import { Command, CommanderError, Help } from 'commander';
 import { isInputError } from '../errors.js';
 import { neutraliseTerminalOutput } from './terminal.js';
+import { endQuietlyOnClosedStdout } from './closed-stdout.js';
 
 export interface CommandModule {
   register(program: Command): void;
@@ -144,6 +145,7 @@ export async function buildProgram(): Promise<Command> {
 /** Runs the CLI and returns the exit code: 0 success, 2 bad input, 1 internal error. */
 export async function main(argv: string[]): Promise<number> {
   neutraliseTerminalOutput();
+  endQuietlyOnClosedStdout();
   try {
     const entry = commandToRun(argv);
     const loaded = new Map<string, CommandModule>();

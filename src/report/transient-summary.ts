@@ -1,7 +1,42 @@
 // The transient check as the simulate command shows it: a few summary lines, and a JSON record.
+// The axle-saturation stretches are merged for reading: a driver thinks of one corner, not of its flickers.
 
-import type { TransientCheck } from '../solve/transient.js';
+import type { SaturationZone, TransientCheck } from '../solve/transient.js';
 import { formatLapTime } from '../units.js';
+
+/** Stretches closer than this are one event for a reader (a flicker below the threshold mid-corner). */
+const MERGE_GAP_M = 10;
+/** Stretches shorter than this round to "1758-1758 m" and say nothing. */
+const SHORTEST_SHOWN_M = 1;
+/** The longest few are listed; the rest are counted. */
+const LISTED_STRETCHES = 5;
+
+/** Merges saturation stretches less than `gapM` apart (axles joined) and drops those shorter than `shortestM`. */
+export function mergedSaturation(
+  zones: readonly SaturationZone[],
+  gapM = MERGE_GAP_M,
+  shortestM = SHORTEST_SHOWN_M,
+): SaturationZone[] {
+  const merged: SaturationZone[] = [];
+  for (const zone of zones) {
+    const last = merged[merged.length - 1];
+    if (last && zone.fromM - last.toM < gapM) {
+      merged[merged.length - 1] = {
+        fromM: last.fromM,
+        toM: Math.max(last.toM, zone.toM),
+        axle: last.axle === zone.axle ? last.axle : 'both',
+        peakUse: Math.max(last.peakUse, zone.peakUse),
+      };
+    } else {
+      merged.push({ ...zone });
+    }
+  }
+  return merged.filter((zone) => zone.toM - zone.fromM >= shortestM);
+}
+
+function axleWords(axle: SaturationZone['axle']): string {
+  return axle === 'both' ? 'both axles' : `${axle} axle`;
+}
 
 export function transientSummaryText(check: TransientCheck): string {
   const lines = [`Transient check (single-track model, driver model following the reference): ${check.verdict}`];
@@ -15,17 +50,34 @@ export function transientSummaryText(check: TransientCheck): string {
     check.deviationLimitSource === 'fixed'
       ? 'a fixed limit (the track gives no widths)'
       : `the room to the edge (${check.deviationLimitSource})`;
-  lines.push(
-    `  largest deviation ${check.maxDeviationM.toFixed(2)} m at ${check.maxDeviationAtM.toFixed(0)} m; against ${limit}: ${(100 * check.maxDeviationShare).toFixed(0)} % at ${check.maxDeviationShareAtM.toFixed(0)} m`,
-  );
-  lines.push(`  largest steer ${check.maxSteerDeg.toFixed(1)} deg (road wheels)`);
-  if (check.saturation.length === 0) lines.push('  no axle saturates');
-  for (const zone of check.saturation.slice(0, 12)) {
+  // The verdict of a completed run already names the place where the most room is used; the largest deviation
+  // gets its own line only where it is elsewhere, or when the run did not complete.
+  const samePlace = Math.round(check.maxDeviationAtM) === Math.round(check.maxDeviationShareAtM);
+  if (!check.completed || !samePlace) {
     lines.push(
-      `  ${zone.axle === 'both' ? 'both axles' : `${zone.axle} axle`} saturated ${zone.fromM.toFixed(0)}-${zone.toM.toFixed(0)} m (peak use ${zone.peakUse.toFixed(2)})`,
+      `  largest deviation ${check.maxDeviationM.toFixed(2)} m at ${check.maxDeviationAtM.toFixed(0)} m; most of ${limit} used: ${(100 * check.maxDeviationShare).toFixed(0)} % at ${check.maxDeviationShareAtM.toFixed(0)} m`,
     );
   }
-  if (check.saturation.length > 12) lines.push(`  ... and ${check.saturation.length - 12} more stretches`);
+  lines.push(`  largest steer ${check.maxSteerDeg.toFixed(1)} deg (road wheels)`);
+  const stretches = mergedSaturation(check.saturation);
+  if (stretches.length === 0) {
+    lines.push('  no axle saturates');
+  } else {
+    const longest = [...stretches]
+      .sort((a, b) => b.toM - b.fromM - (a.toM - a.fromM))
+      .slice(0, LISTED_STRETCHES)
+      .sort((a, b) => a.fromM - b.fromM);
+    lines.push(
+      `  axle saturation in ${stretches.length} stretch${stretches.length === 1 ? '' : 'es'}${stretches.length > longest.length ? `; the ${longest.length} longest` : ''}:`,
+    );
+    for (const zone of longest) {
+      lines.push(
+        `    ${zone.fromM.toFixed(0)}-${zone.toM.toFixed(0)} m  ${axleWords(zone.axle)} (peak use ${zone.peakUse.toFixed(2)})`,
+      );
+    }
+    const rest = stretches.length - longest.length;
+    if (rest > 0) lines.push(`    ... and ${rest} shorter stretch${rest === 1 ? '' : 'es'}`);
+  }
   return lines.join('\n') + '\n';
 }
 

@@ -23,6 +23,11 @@ describe('reflap demo', () => {
     expect(run.stdout).toMatch(/Caution/);
   });
 
+  it('says in one line that the partial laps of its invented session are the out and in laps', () => {
+    expect(run.stdout).not.toMatch(/lap \d+ left out/);
+    expect(run.stdout).toMatch(/Note: the invented session has an out lap and an in lap around the timed lap/);
+  });
+
   it("finds the driver model's faults: 25 m early braking, 12 m late braking, coasting", () => {
     // The expected figures are the ones the driver model was built with (src/compare/demo-driver.ts).
     const corners = readFileSync(path.join(folder, 'out', 'corners.csv'), 'utf8')

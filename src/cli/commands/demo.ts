@@ -93,9 +93,28 @@ export function runDemo(values: DemoValues): void {
       `The driver model's faults: ${faults}.\n` +
       `Log written to ${logFile}; aligned traces and corner table in ${values.out}/.\n\n`,
   );
-  process.stdout.write(withReferencePath(compareSummaryText(comparison.result), comparison.referencePath));
+  process.stdout.write(
+    withReferencePath(
+      compareSummaryText({ ...comparison.result, notes: demoNotes(comparison.result.notes) }),
+      comparison.referencePath,
+    ),
+  );
   process.stdout.write('\n' + reportWrittenText(reportFiles).replace(/\n$/, ' (open it in a browser)\n'));
   process.stdout.write(
     `\nTo run this comparison yourself: reflap compare --track ${trackFile} --car ${carFile} --telemetry ${logFile}\n`,
   );
+}
+
+/**
+ * The demo's invented session starts and ends mid-lap as a real one does; the notes meant for a real log's partial
+ * laps ("lap 0 left out ...") become one line that says what they are.
+ */
+export function demoNotes(notes: readonly string[]): string[] {
+  const partial = notes.filter((note) => /^lap \d+ left out/.test(note)).length;
+  const rest = notes.filter((note) => !/^lap \d+ (left out|chosen)/.test(note));
+  if (partial === 0) return rest;
+  return [
+    `the invented session has an out lap and an in lap around the timed lap; ${partial === 1 ? 'the partial lap is' : 'both are'} left out`,
+    ...rest,
+  ];
 }

@@ -40,7 +40,7 @@ export function register(program: Command): void {
   addTrackOptions(command);
   addCarOptions(command);
   command
-    .option('--out <file>', 'write the lap trace as CSV')
+    .option('--out <file>', "write the lap trace as CSV ('-' writes it to stdout instead of the summary)")
     .option('--json', 'print one JSON object instead of the summary')
     .option(
       '--envelope <file>',
@@ -100,7 +100,8 @@ export async function runSimulate(values: SimulateValues): Promise<void> {
     );
   }
   const outputs = outputBatch(inputFilesOf(values));
-  if (values.out) outputs.add(values.out, traceCsv(result, extraColumns));
+  const traceToStdout = values.out === '-';
+  if (values.out && !traceToStdout) outputs.add(values.out, traceCsv(result, extraColumns));
   const reportFiles = addReportOutputs(outputs, values, {
     reference: result,
     carName: car.name,
@@ -109,7 +110,10 @@ export async function runSimulate(values: SimulateValues): Promise<void> {
     ...(uncertainty ? { uncertainty } : {}),
   });
   outputs.commit();
-  if (values.json) {
+  if (traceToStdout) {
+    // The trace is the whole of stdout, so that it pipes into another tool; the JSON summary cannot share it.
+    process.stdout.write(traceCsv(result, extraColumns));
+  } else if (values.json) {
     process.stdout.write(
       JSON.stringify(
         {

@@ -1,0 +1,94 @@
+// Every example in README.md and docs/*.md runs as written from the repository root and writes only under out/.
+// An example is a line of a ```sh block that starts with `npx reflap`, `reflap` or `npm run demo`; a synopsis with
+// placeholders belongs in a ```text block. The examples run in order, in one process, in a copy of the root.
+
+import { describe, expect, it } from 'vitest';
+import { spawnSync } from 'node:child_process';
+import { cpSync, mkdtempSync, readdirSync, readFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { projectRoot } from '../helpers/cli.js';
+
+interface Example {
+  file: string;
+  line: number;
+  args: string[];
+}
+
+const documents = ['README.md', ...readdirSync(join(projectRoot, 'docs')).map((name) => `docs/${name}`)].filter(
+  (name) => name.endsWith('.md'),
+);
+
+/** Splits a command line into words the way a POSIX shell does for these examples (no quoting, comments dropped). */
+function words(command: string): string[] {
+  return command
+    .replace(/\s#.*$/, '')
+    .trim()
+    .split(/\s+/)
+    .filter(Boolean);
+}
+
+function examplesOf(file: string): { examples: Example[]; unlabelled: number[] } {
+  const lines = readFileSync(join(projectRoot, file), 'utf8').split('\n');
+  const examples: Example[] = [];
+  const unlabelled: number[] = [];
+  let fence: string | null = null;
+  lines.forEach((text, index) => {
+    const opening = /^```(\S*)/.exec(text);
+    if (opening) {
+      fence = fence === null ? opening[1]! : null;
+      return;
+    }
+    if (fence === null) return;
+    const command = text.replace(/^\$\s+/, '');
+    if (!/^(npx reflap|reflap)\b/.test(command) && !command.includes('npm run demo')) return;
+    if (fence === '') unlabelled.push(index + 1);
+    if (fence !== 'sh') return;
+    const parts = words(command);
+    // `npm run demo` is the demo command once built; `npm install && npm run demo` installs first.
+    if (command.includes('npm run demo')) examples.push({ file, line: index + 1, args: ['demo'] });
+    else examples.push({ file, line: index + 1, args: parts[0] === 'npx' ? parts.slice(2) : parts.slice(1) });
+  });
+  return { examples, unlabelled };
+}
+
+const found = documents.map(examplesOf);
+const examples = found.flatMap((f) => f.examples);
+
+describe('README and docs examples', () => {
+  it('labels every block of reflap commands: sh for an example, text for a synopsis', () => {
+    const unlabelled = found.flatMap((f, k) => f.unlabelled.map((line) => `${documents[k]}:${line}`));
+    expect(unlabelled).toEqual([]);
+  });
+
+  it('runs every example as written, in order, leaving files only under out/', { timeout: 300_000 }, () => {
+    expect(examples.length).toBeGreaterThan(20);
+    const root = mkdtempSync(join(tmpdir(), 'reflap-examples-'));
+    for (const folder of ['cars', 'tracks']) cpSync(join(projectRoot, folder), join(root, folder), { recursive: true });
+    const before = readdirSync(root).sort();
+    const run = spawnSync(
+      process.execPath,
+      [join(projectRoot, 'test/helpers/run-examples.mjs'), join(projectRoot, 'dist/src/cli/main.js')],
+      {
+        cwd: root,
+        input: JSON.stringify(examples.map((e) => e.args)),
+        encoding: 'utf8',
+        env: { ...process.env, NO_COLOR: '1', CI: '1' },
+        maxBuffer: 64 * 1024 * 1024,
+      },
+    );
+    expect(run.stderr).toBe('');
+    const results = run.stdout
+      .trim()
+      .split('\n')
+      .map((line) => JSON.parse(line) as { code: number; stderr: string });
+    expect(results).toHaveLength(examples.length);
+    const failures = results
+      .map((result, k) => ({ ...result, where: `${examples[k]!.file}:${examples[k]!.line}` }))
+      .filter((result) => result.code !== 0)
+      .map((result) => `${result.where} exit ${result.code}: ${result.stderr.trim()}`);
+    expect(failures).toEqual([]);
+    const after = readdirSync(root).sort();
+    expect(after.filter((name) => !before.includes(name))).toEqual(['out']);
+  });
+});
