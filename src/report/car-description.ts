@@ -10,8 +10,10 @@ import { contentSecurityPolicy } from './html/page-frame.js';
 import { SAFETY_CAUTION } from './lap-summary.js';
 import { envelopeBoundaryG } from './html/gg-diagram.js';
 import { kphToMps } from '../units.js';
+import { displayUnits, plainNumber, type DisplayUnits } from './units.js';
 
-export function carDescriptionText(d: CarDescription): string {
+export function carDescriptionText(d: CarDescription, units: DisplayUnits = displayUnits('metric')): string {
+  const speed = (speedKph: number) => `${plainNumber(units.speed(kphToMps(speedKph)), 0)} ${units.speedLabel}`;
   const lines = [
     `Car: ${d.name} (${d.model} model)`,
     `Mass with fuel ${d.totalMassKg.toFixed(0)} kg: front axle ${d.staticFrontAxleKg.toFixed(0)} kg, rear axle ${d.staticRearAxleKg.toFixed(0)} kg (${(100 * d.frontWeightFraction).toFixed(1)} % front)`,
@@ -21,18 +23,21 @@ export function carDescriptionText(d: CarDescription): string {
   } else {
     lines.push(`Understeer gradient ${d.understeerGradientDegPerG.toFixed(2)} deg/g (${d.steer})`);
     if (d.characteristicSpeedKph !== null)
-      lines.push(
-        `Characteristic speed ${d.characteristicSpeedKph.toFixed(0)} km/h (steer doubles its kinematic value)`,
-      );
+      lines.push(`Characteristic speed ${speed(d.characteristicSpeedKph)} (steer doubles its kinematic value)`);
     if (d.criticalSpeedKph !== null)
-      lines.push(`Critical speed ${d.criticalSpeedKph.toFixed(0)} km/h: directionally unstable above it`);
+      lines.push(`Critical speed ${speed(d.criticalSpeedKph)}: directionally unstable above it`);
   }
-  lines.push(`Top speed ${d.topSpeedKph.toFixed(0)} km/h`, '');
-  const header = ['speed km/h', 'lateral g', 'accel g', 'brake g'];
+  lines.push(`Top speed ${speed(d.topSpeedKph)}`, '');
+  const header = [`speed ${units.speedLabel}`, 'lateral g', 'accel g', 'brake g'];
   const bicycle = d.envelope.some((row) => row.lateralLimitingAxle !== null);
   if (bicycle) header.push('limiting axle');
   const rows = d.envelope.map((row) => {
-    const cells = [row.speedKph.toFixed(0), row.lateralG.toFixed(2), row.accelG.toFixed(2), row.brakeG.toFixed(2)];
+    const cells = [
+      plainNumber(units.speed(kphToMps(row.speedKph)), 0),
+      plainNumber(row.lateralG, 2),
+      plainNumber(row.accelG, 2),
+      plainNumber(row.brakeG, 2),
+    ];
     if (bicycle) cells.push(row.lateralLimitingAxle ?? '');
     return cells;
   });

@@ -3,13 +3,14 @@
 
 import type { ComparisonResult, CornerComparison, DriverLap } from '../compare/types.js';
 import type { LapResult } from '../solve/types.js';
-import { formatLapTime, mpsToKph } from '../units.js';
+import { formatLapTime, kphToMps, mpsToKph } from '../units.js';
+import { displayUnits, plainNumber, type DisplayUnits } from './units.js';
 import { formatTable } from './text-table.js';
 import { round, SAFETY_CAUTION } from './lap-summary.js';
 import type { UncertainReference } from '../uncertainty/uncertain-reference.js';
 import { drawsLine, lapBandLine, percentText, robustFindingsText } from './uncertainty-summary.js';
 
-const signed = (value: number, digits: number) => `${value >= 0 ? '+' : ''}${value.toFixed(digits)}`;
+const signed = (value: number, digits: number) => plainNumber(value, digits, true);
 const orDash = (value: number | null | undefined, digits: number, sign = true) =>
   value === null || value === undefined || !Number.isFinite(value)
     ? '-'
@@ -42,17 +43,21 @@ function gapLines(result: ComparisonResult): string[] {
   return lines;
 }
 
-function cornerRow(corner: CornerComparison): string[] {
+function cornerRow(corner: CornerComparison, units: DisplayUnits): string[] {
+  const speeds = (driverKph: number, referenceKph: number) =>
+    `${plainNumber(units.speed(kphToMps(driverKph)), 0)}/${plainNumber(units.speed(kphToMps(referenceKph)), 0)}`;
+  const distance = (distanceM: number | null | undefined) =>
+    distanceM === null || distanceM === undefined ? distanceM : units.distance(distanceM);
   return [
     String(corner.id),
     corner.name ?? '',
-    corner.apexM.toFixed(0),
-    orDash(corner.brakingPointDeltaM, 0),
-    `${orDash(corner.driverBeforeTurnInM, 0, false)}/${orDash(corner.referenceBeforeTurnInM, 0, false)}`,
-    `${corner.entrySpeedDriverKph.toFixed(0)}/${corner.entrySpeedReferenceKph.toFixed(0)}`,
-    `${corner.minSpeedDriverKph.toFixed(0)}/${corner.minSpeedReferenceKph.toFixed(0)}`,
-    signed(corner.minSpeedOffsetFromApexM, 0),
-    `${corner.exitSpeedDriverKph.toFixed(0)}/${corner.exitSpeedReferenceKph.toFixed(0)}`,
+    plainNumber(units.distance(corner.apexM), 0),
+    orDash(distance(corner.brakingPointDeltaM), 0),
+    `${orDash(distance(corner.driverBeforeTurnInM), 0, false)}/${orDash(distance(corner.referenceBeforeTurnInM), 0, false)}`,
+    speeds(corner.entrySpeedDriverKph, corner.entrySpeedReferenceKph),
+    speeds(corner.minSpeedDriverKph, corner.minSpeedReferenceKph),
+    signed(units.distance(corner.minSpeedOffsetFromApexM), 0),
+    speeds(corner.exitSpeedDriverKph, corner.exitSpeedReferenceKph),
     orDash(corner.coastingS, 1, false),
     `${(corner.meanGripUse * 100).toFixed(0)}/${(corner.peakGripUse * 100).toFixed(0)}`,
     `${signed(corner.entryTimeLostS, 2)} ${signed(corner.middleTimeLostS, 2)} ${signed(corner.exitTimeLostS, 2)}`,
@@ -62,7 +67,12 @@ function cornerRow(corner: CornerComparison): string[] {
 
 /** With `uncertainty` (an uncertain reference over the same comparison), the corner table gains the share of draws
  * in which each corner's finding holds, and the findings are those over the draws. */
-export function compareSummaryText(result: ComparisonResult, uncertainty?: UncertainReference): string {
+export function compareSummaryText(
+  result: ComparisonResult,
+  uncertainty?: UncertainReference,
+  units: DisplayUnits = displayUnits('metric'),
+): string {
+  const d = units.distanceLabel;
   const holds = (index: number) => {
     const share = uncertainty?.corners[index]?.holds;
     return share === null || share === undefined ? '-' : percentText(share);
@@ -72,28 +82,28 @@ export function compareSummaryText(result: ComparisonResult, uncertainty?: Uncer
     ...gapLines(result),
     ...(uncertainty ? [lapBandLine('Reference over the draws:', uncertainty.lapTimeS), drawsLine(uncertainty)] : []),
     '',
-    'Corners (speeds driver/reference in km/h; brake = driver minus reference braking point, m, negative = earlier;',
-    'before turn-in = driver/reference braking point, m before the corner turns in;',
-    `slowest vs apex in m, positive = after; grip = mean/peak % of the envelope; lost = entry middle exit, s${uncertainty ? ';' : ')'}`,
+    `Corners (speeds driver/reference in ${units.speedLabel}; brake = driver minus reference braking point, ${d}, negative = earlier;`,
+    `before turn-in = driver/reference braking point, ${d} before the corner turns in;`,
+    `slowest vs apex in ${d}, positive = after; grip = mean/peak % of the envelope; lost = entry middle exit, s${uncertainty ? ';' : ')'}`,
     ...(uncertainty ? ["holds = share of the draws in which the corner's finding holds)"] : []),
     formatTable(
       [
         '#',
         'name',
-        'apex m',
-        'brake m',
-        'before turn-in',
-        'entry',
-        'slowest',
-        'vs apex',
-        'exit',
+        `apex ${d}`,
+        `brake ${d}`,
+        `before turn-in ${d}`,
+        `entry ${units.speedLabel}`,
+        `slowest ${units.speedLabel}`,
+        `vs apex ${d}`,
+        `exit ${units.speedLabel}`,
         'coast s',
         'grip %',
         'lost by phase',
         'lost s',
         ...(uncertainty ? ['holds'] : []),
       ],
-      result.corners.map((corner, index) => [...cornerRow(corner), ...(uncertainty ? [holds(index)] : [])]),
+      result.corners.map((corner, index) => [...cornerRow(corner, units), ...(uncertainty ? [holds(index)] : [])]),
     ),
     '',
   ];

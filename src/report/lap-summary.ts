@@ -1,7 +1,8 @@
 // Plain-text and JSON summaries of a reference lap for the terminal.
 
 import type { LapResult } from '../solve/types.js';
-import { formatLapTime, mpsToKph } from '../units.js';
+import { formatLapTime } from '../units.js';
+import { displayUnits, METRES_PER_MILE, plainNumber, type DisplayUnits } from './units.js';
 import { formatTable } from './text-table.js';
 import { zoneLabel } from '../track/corner-layout.js';
 import { cornersJson } from './corners-file.js';
@@ -67,25 +68,43 @@ function roadSummaryJson(result: LapResult) {
   };
 }
 
-export function lapSummaryText(result: LapResult, carName: string): string {
+export function lapSummaryText(
+  result: LapResult,
+  carName: string,
+  units: DisplayUnits = displayUnits('metric'),
+): string {
   requireFiniteLap(result);
+  const speed = (speedMps: number) => plainNumber(units.speed(speedMps), 1);
+  const at = (distanceM: number) => plainNumber(units.distance(distanceM), 0);
+  const length =
+    units.system === 'imperial'
+      ? `${plainNumber(result.lengthM / METRES_PER_MILE, 3)} mi`
+      : `${plainNumber(result.lengthM / 1000, 3)} km`;
   const lines = [
     `${result.track.name} · ${carName} · ${result.envelopeKind} envelope`,
-    `Lap time      ${formatLapTime(result.lapTimeS)}  (${result.lapTimeS.toFixed(3)} s over ${(result.lengthM / 1000).toFixed(3)} km)`,
-    `Top speed     ${mpsToKph(result.maxSpeedMps).toFixed(1)} km/h`,
-    `Lowest speed  ${mpsToKph(result.minSpeedMps).toFixed(1)} km/h`,
+    `Lap time      ${formatLapTime(result.lapTimeS)}  (${result.lapTimeS.toFixed(3)} s over ${length})`,
+    `Top speed     ${speed(result.maxSpeedMps)} ${units.speedLabel}`,
+    `Lowest speed  ${speed(result.minSpeedMps)} ${units.speedLabel}`,
     '',
     `Braking zones (${result.brakingZones.length})`,
     formatTable(
-      ['corner', 'brake at m', 'before turn-in m', 'entry km/h', 'slowest at m', 'slowest km/h', 'braking m'],
+      [
+        'corner',
+        `brake at ${units.distanceLabel}`,
+        `before turn-in ${units.distanceLabel}`,
+        `entry ${units.speedLabel}`,
+        `slowest at ${units.distanceLabel}`,
+        `slowest ${units.speedLabel}`,
+        `braking ${units.distanceLabel}`,
+      ],
       result.brakingZones.map((zone) => [
         zoneLabel({ tag: zone.tag, name: zone.cornerName }),
-        zone.startM.toFixed(0),
-        zone.beforeTurnInM === null ? '' : zone.beforeTurnInM.toFixed(0),
-        mpsToKph(zone.entrySpeedMps).toFixed(1),
-        zone.minSpeedAtM.toFixed(0),
-        mpsToKph(zone.minSpeedMps).toFixed(1),
-        zone.brakingLengthM.toFixed(0),
+        at(zone.startM),
+        zone.beforeTurnInM === null ? '' : at(zone.beforeTurnInM),
+        speed(zone.entrySpeedMps),
+        at(zone.minSpeedAtM),
+        speed(zone.minSpeedMps),
+        at(zone.brakingLengthM),
       ]),
     ),
     '',

@@ -7,12 +7,15 @@ import { sweepChartData, type SweepSeries } from '../sweep/chart-data.js';
 import type { SweepRecord, SweepTable } from '../sweep/table.js';
 import { PALETTE, seriesStyle } from './html/palette.js';
 import type { XyChartSpec, XySeries } from './html/xy-chart.js';
-import { fieldWithUnit, valueWithUnit } from './sweep-format.js';
+import { valueWithUnit } from './sweep-format.js';
+import { fieldAxisTitle } from './field-steps.js';
+import { formatLapTime } from '../units.js';
 
 /** A grid draws one lap-time line per combination of the other fields up to this many; beyond, the grid's points. */
 export const MAX_GRID_LINES = 7;
 
-const lapText = (lapTimeS: number) => `${lapTimeS.toFixed(3)} s`;
+/** Lap times in tooltips read as in every table: m:ss.sss. */
+const lapText = (lapTimeS: number) => formatLapTime(lapTimeS);
 
 /** A name for --svg files and element ids from a field name: letters, digits, dots and dashes only. */
 export function fieldSlug(field: string): string {
@@ -116,7 +119,7 @@ export function sweepChartSpecs(table: SweepTable): XyChartSpec[] {
   const specs: XyChartSpec[] = [];
   data.forEach((series, k) => {
     const field = table.meta.fields[k]!;
-    const xTitle = fieldWithUnit(field, table.meta.units[k]);
+    const xTitle = fieldAxisTitle(field, table.meta.units[k]);
     const xGuides = baselineGuide(table, k);
     // A percent step of a field the car gives as 0 moves nothing: say so rather than draw a dot as a chart.
     const unmoved = series.values.length > 0 && series.values.every((v) => v === series.values[0]);
@@ -125,7 +128,7 @@ export function sweepChartSpecs(table: SweepTable): XyChartSpec[] {
       : {};
     specs.push({
       name: `lap-time-${fieldSlug(field)}`,
-      title: `Lap time against ${field}`,
+      title: `Lap time against ${fieldAxisTitle(field, undefined)}`,
       xTitle,
       yTitle: 'lap time, s',
       series: lapTimeSeries(table, k, series),
@@ -134,7 +137,7 @@ export function sweepChartSpecs(table: SweepTable): XyChartSpec[] {
     });
     specs.push({
       name: `braking-shift-${fieldSlug(field)}`,
-      title: `Braking-point shift per corner against ${field}`,
+      title: `Braking-point shift per corner against ${fieldAxisTitle(field, undefined)}`,
       xTitle,
       yTitle: 'shift from baseline, m (− = earlier)',
       series: shiftSeries(table, k, series),

@@ -1,21 +1,34 @@
 // Number and unit text shared by the sweep's printed tables and its report page.
 
-/** A sensitivity per unit with four significant digits, or in exponent form when very small or large; '' where there is none. */
-export function perUnit(value: number | null): string {
-  if (value === null || !Number.isFinite(value)) return '';
-  if (value === 0) return '0';
-  const magnitude = Math.abs(value);
-  return magnitude >= 0.01 && magnitude < 1e5
-    ? value.toFixed(Math.max(0, 4 - Math.floor(Math.log10(magnitude)) - 1))
-    : value.toExponential(3);
-}
-
-/** 'massKg, kg', or the field alone for a dimensionless one (unit '1' or none). */
-export function fieldWithUnit(field: string, unit: string | undefined): string {
-  return unit && unit !== '1' ? `${field}, ${unit}` : field;
-}
+import type { Sensitivity, SweepTable } from '../sweep/table.js';
+import { readableField, userStep } from './field-steps.js';
+import { zoneLabel } from '../track/corner-layout.js';
+import { plainNumber } from './units.js';
 
 /** '620 kg', or the value alone for a dimensionless field. */
 export function valueWithUnit(value: number, unit: string | undefined): string {
   return unit && unit !== '1' ? `${value} ${unit}` : String(value);
+}
+
+/** The sensitivity table, header and rows, per the step a person thinks in (the step in each column's header). */
+export function sensitivityRows(table: SweepTable, found: Sensitivity[]): { header: string[]; rows: string[][] } {
+  const steps = found.map((s) =>
+    userStep(s.field, s.unit, table.meta.baseValues[table.meta.fields.indexOf(s.field)] ?? 0),
+  );
+  const header = [
+    'change per step',
+    ...found.map((s, k) => `per +${steps[k]!.text} of ${readableField(s.field, undefined)}`),
+  ];
+  const rows = [
+    ['lap time, s', ...found.map((s, k) => plainNumber(s.lapTimeSPerUnit * steps[k]!.size, 3, true))],
+    ...table.meta.corners.map((corner, c) => [
+      `${zoneLabel(corner)} braking point, m`,
+      ...found.map((s, k) => {
+        const perUnit = s.brakingPointMPerUnit[c];
+        return perUnit === null || perUnit === undefined ? '' : plainNumber(perUnit * steps[k]!.size, 1, true);
+      }),
+    ]),
+    ['difference step ±', ...found.map((s) => `${s.stepUsed}${s.scheme === 'central' ? '' : ` (${s.scheme})`}`)],
+  ];
+  return { header, rows };
 }

@@ -2,7 +2,6 @@
 // sensitivity table around the baseline and the caution, in the lap report's frame, style and palette.
 // Pure: the CLI writes the strings.
 
-import { zoneLabel } from '../track/corner-layout.js';
 import { sensitivities, type Sensitivity, type SweepTable } from '../sweep/table.js';
 import { formatLapTime } from '../units.js';
 import { escapeHtml } from './html/escape.js';
@@ -12,7 +11,7 @@ import type { SvgOptions } from './html/svg-frame.js';
 import { tile } from './html/tables.js';
 import { xyChartSvg } from './html/xy-chart.js';
 import { sweepChartSpecs } from './sweep-charts.js';
-import { perUnit } from './sweep-format.js';
+import { sensitivityRows } from './sweep-format.js';
 
 function charts(table: SweepTable, options: SvgOptions): ChartSvg[] {
   return sweepChartSpecs(table).map((spec) => ({
@@ -63,27 +62,14 @@ export function sensitivityTableHtml(table: SweepTable, found: Sensitivity[]): s
   const heading = '<h2>Sensitivity around the baseline</h2>';
   if (found.length === 0)
     return `<section class="sensitivity">${heading}<p>No sensitivities: the runs around the baseline are not in this table.</p></section>`;
-  const head = `<tr><th>per unit of</th>${found.map((s) => `<th>${escapeHtml(s.unit && s.unit !== '1' ? `${s.field} (${s.unit})` : s.field)}</th>`).join('')}</tr>`;
-  const row = (label: string, cells: string[]) =>
-    `<tr><td>${escapeHtml(label)}</td>${cells.map((cell) => `<td>${escapeHtml(cell)}</td>`).join('')}</tr>`;
-  const rows = [
-    row(
-      'lap time, s',
-      found.map((s) => perUnit(s.lapTimeSPerUnit)),
-    ),
-    ...table.meta.corners.map((corner, c) =>
-      row(
-        `${zoneLabel(corner)} braking point, m`,
-        found.map((s) => perUnit(s.brakingPointMPerUnit[c] ?? null)),
-      ),
-    ),
-    row(
-      'difference step ±',
-      found.map((s) => `${s.stepUsed}${s.scheme === 'central' ? '' : ` (${s.scheme})`}`),
-    ),
-  ];
+  const { header, rows: cells } = sensitivityRows(table, found);
+  const head = `<tr>${header.map((title) => `<th>${escapeHtml(title)}</th>`).join('')}</tr>`;
+  const rows = cells.map(
+    ([label, ...values]) =>
+      `<tr><td>${escapeHtml(label ?? '')}</td>${values.map((cell) => `<td>${escapeHtml(cell)}</td>`).join('')}</tr>`,
+  );
   return (
-    `<section class="sensitivity">${heading}<p class="hint">Central differences (f(x + h) − f(x − h)) / 2h around the baseline. Braking point: negative = earlier for more of the field.</p>` +
+    `<section class="sensitivity">${heading}<p class="hint">Central differences (f(x + h) − f(x − h)) / 2h around the baseline, times the step in each column's header. Braking point: negative = earlier for more of the field.</p>` +
     `<div class="table-wrap"><table><thead>${head}</thead><tbody>${rows.join('')}</tbody></table></div></section>`
   );
 }

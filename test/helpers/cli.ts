@@ -11,12 +11,15 @@ export interface CliRun {
   stderr: string;
 }
 
-export function runCli(args: string[], options: { cwd?: string; input?: string } = {}): CliRun {
+export function runCli(
+  args: string[],
+  options: { cwd?: string; input?: string; env?: Record<string, string> } = {},
+): CliRun {
   const result = spawnSync(process.execPath, [`${projectRoot}bin/reflap.js`, ...args], {
     cwd: options.cwd ?? projectRoot,
     input: options.input,
     encoding: 'utf8',
-    env: { ...process.env, NO_COLOR: '1' },
+    env: { ...process.env, NO_COLOR: '1', ...options.env },
     maxBuffer: 64 * 1024 * 1024,
   });
   return { code: result.status ?? -1, stdout: result.stdout, stderr: result.stderr };

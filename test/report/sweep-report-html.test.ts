@@ -157,9 +157,10 @@ describe('sweep report page', () => {
         expect(svg).toContain('class="legend"');
         for (const series of seriesOf(svg))
           expect(series.d, `${name} ${series.label}`).toMatch(/^M[\d.,-]+(L[\d.,-]+)+$/);
-        // Two axis titles with their units.
+        // Two axis titles with their units; the field's axis names it in words, not by its key.
         expect(svg).toMatch(name.startsWith('lap-time') ? /lap time, s/ : /shift from baseline, m/);
-        expect(svg).toMatch(name.endsWith('massKg') ? /massKg, kg/ : /tyre\.muLat</);
+        expect(svg).toMatch(name.endsWith('massKg') ? />mass, kg</ : />lateral grip</);
+        expect(svg).not.toMatch(/>(massKg, kg|tyre\.muLat)</);
       }
       // The loop has four bends, so four braking zones: four series, c1 to c4.
       for (const name of ['braking-shift-massKg', 'braking-shift-tyre.muLat']) {

@@ -3,14 +3,16 @@
 import type { Command } from 'commander';
 import { addCarOptions, loadCar, numberOption, type CarOptionValues } from '../options.js';
 import { buildEnvelope } from '../../car/build-envelope.js';
-import { gripBudget } from '../../car/budget.js';
+import { gripBudget, lateralLoadTable } from '../../car/budget.js';
+import { cornerLimitSpeedMps } from '../../solve/corner-limit.js';
+import { budgetText } from '../../report/budget-text.js';
+import { addUnitsOption, unitsOf, type UnitsOptionValues } from '../units-option.js';
 import { InputError } from '../../errors.js';
 import { gToMps2, kphToMps, mps2ToG, mpsToKph } from '../../units.js';
 import { MAX_ACCEL_MPS2, MAX_SPEED_MPS } from '../../car/plausible.js';
-import { formatTable } from '../../report/text-table.js';
 import { round } from '../../report/lap-summary.js';
 
-interface BudgetValues extends CarOptionValues {
+interface BudgetValues extends CarOptionValues, UnitsOptionValues {
   speedKph: string;
   lateralG?: string;
   radiusM?: string;
@@ -26,11 +28,9 @@ export function register(program: Command): void {
     .requiredOption('--speed-kph <v>', 'speed, km/h')
     .option('--lateral-g <g>', 'lateral acceleration in use, g')
     .option('--radius-m <r>', 'corner radius, m (lateral demand v^2 / R)')
-    .option('--json', 'print one JSON object')
-    .action((values: BudgetValues) => runBudget(values));
+    .option('--json', 'print one JSON object');
+  addUnitsOption(command).action((values: BudgetValues) => runBudget(values));
 }
-
-const percent = (share: number) => `${(share * 100).toFixed(0)} %`;
 
 export function runBudget(values: BudgetValues): void {
   const speedKph = numberOption(values.speedKph, '--speed-kph', 0);
@@ -41,10 +41,10 @@ export function runBudget(values: BudgetValues): void {
   }
   const speedMps = kphToMps(speedKph);
   let lateralMps2: number;
+  let radiusM: number | null = null;
   if (values.radiusM !== undefined) {
-    const radiusM = numberOption(values.radiusM, '--radius-m', 0);
-    if (!(radiusM > 0 && Number.isFinite(radiusM)))
-      throw new InputError(`option --radius-m: ${radiusM} must be positive`);
+    radiusM = numberOption(values.radiusM, '--radius-m', 0);
+    if (!(radiusM > 0 && Number.isFinite(radiusM))) throw new InputError(`option --radius-m: ${radiusM} must be positive`);
     lateralMps2 = (speedMps * speedMps) / radiusM;
   } else {
     const lateralG = numberOption(values.lateralG, '--lateral-g', 0);
@@ -54,8 +54,13 @@ export function runBudget(values: BudgetValues): void {
       );
     lateralMps2 = gToMps2(lateralG);
   }
+  const units = unitsOf(values);
   const { car, ambient } = loadCar(values);
-  const budget = gripBudget(buildEnvelope(car, ambient), speedMps, lateralMps2);
+  const envelope = buildEnvelope(car, ambient);
+  const budget = gripBudget(envelope, speedMps, lateralMps2);
+  const cornerSpeedLimitMps = radiusM !== null ? cornerLimitSpeedMps(envelope, 1 / radiusM) : null;
+  const tightestRadiusM = (speedMps * speedMps) / envelope.lateralLimitMps2(speedMps, 1);
+  const lateralLoads = lateralLoadTable(envelope, speedMps);
   if (values.json) {
     process.stdout.write(
       JSON.stringify(
@@ -72,6 +77,17 @@ export function runBudget(values: BudgetValues): void {
             accelAvailableG: round(budget.linearAccelAvailableG, 4),
           },
           straightLine: { brakingG: round(budget.brakingStraightG, 4), accelG: round(budget.accelStraightG, 4) },
+          radiusM,
+          cornerSpeedLimitMps: cornerSpeedLimitMps === null ? null : round(cornerSpeedLimitMps, 3),
+          tightestRadiusM: round(tightestRadiusM, 2),
+          lateralLoads: lateralLoads.map((row) => ({
+            lateralShare: round(row.lateralShare, 4),
+            lateralG: round(mps2ToG(row.lateralDemandMps2), 4),
+            brakingAvailableG: round(row.brakingAvailableG, 4),
+            accelAvailableG: round(row.accelAvailableG, 4),
+            linearBrakingAvailableG: round(row.linearBrakingAvailableG, 4),
+            linearAccelAvailableG: round(row.linearAccelAvailableG, 4),
+          })),
         },
         null,
         2,
@@ -79,30 +95,10 @@ export function runBudget(values: BudgetValues): void {
     );
     return;
   }
-  const g = (value: number) => `${value.toFixed(2)} g`;
-  const lines = [
-    `${car.name} at ${speedKph.toFixed(0)} km/h, cornering at ${g(mps2ToG(lateralMps2))}`,
-    `Lateral limit at this speed: ${g(budget.lateralLimitG)}; in use: ${percent(budget.lateralShare)}`,
-  ];
-  if (budget.lateralShare > 1) {
-    lines.push(
-      'That is beyond the lateral limit: the car cannot hold this corner at this speed, so nothing is left to brake or accelerate with.',
-    );
-  } else {
-    lines.push(
-      '',
-      formatTable(
-        ['still available', 'friction ellipse', 'linear split', 'straight line'],
-        [
-          ['braking', g(budget.brakingAvailableG), g(budget.linearBrakingAvailableG), g(budget.brakingStraightG)],
-          ['accelerating', g(budget.accelAvailableG), g(budget.linearAccelAvailableG), g(budget.accelStraightG)],
-        ],
-      ),
-      '',
-      `On the ellipse, using ${percent(budget.lateralShare)} of the lateral grip still leaves ${percent(
-        budget.brakingStraightG > 0 ? budget.brakingAvailableG / budget.brakingStraightG : 0,
-      )} of the straight-line braking; the linear split would say ${percent(Math.max(0, 1 - budget.lateralShare))}.`,
-    );
-  }
-  process.stdout.write(lines.join('\n') + '\n');
+  process.stdout.write(
+    budgetText(
+      { carName: car.name, speedMps, radiusM, budget, cornerSpeedLimitMps, tightestRadiusM, lateralLoads },
+      units,
+    ),
+  );
 }

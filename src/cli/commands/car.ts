@@ -7,8 +7,10 @@ import { outputBatch } from '../output.js';
 import { buildEnvelope } from '../../car/build-envelope.js';
 import { describeCar } from '../../car/describe.js';
 import { carDescriptionText, carGgHtml } from '../../report/car-description.js';
+import { addUnitsOption, unitsOf, type UnitsOptionValues } from '../units-option.js';
+import { roundedJson } from '../../report/json-numbers.js';
 
-interface CarValues extends CarOptionValues {
+interface CarValues extends CarOptionValues, UnitsOptionValues {
   json?: boolean;
   html?: string;
 }
@@ -20,11 +22,12 @@ export function register(program: Command): void {
   addCarOptions(command);
   command
     .option('--json', 'print one JSON object instead of the text')
-    .option('--html <file>', 'also write a g-g-v picture of the envelope (one self-contained HTML page)')
-    .action((values: CarValues) => runCar(values));
+    .option('--html <file>', 'also write a g-g-v picture of the envelope (one self-contained HTML page)');
+  addUnitsOption(command).action((values: CarValues) => runCar(values));
 }
 
 export function runCar(values: CarValues): void {
+  const units = unitsOf(values);
   const { car, ambient } = loadCar(values);
   const envelope = buildEnvelope(car, ambient);
   const description = describeCar(car, ambient, envelope);
@@ -32,9 +35,9 @@ export function runCar(values: CarValues): void {
   if (values.html) outputs.add(values.html, carGgHtml(description, envelope));
   outputs.commit();
   if (values.json) {
-    process.stdout.write(JSON.stringify(description, null, 2) + '\n');
+    process.stdout.write(roundedJson(description));
   } else {
-    process.stdout.write(carDescriptionText(description));
+    process.stdout.write(carDescriptionText(description, units));
     if (values.html) process.stdout.write(`g-g-v picture written to ${values.html}\n`);
   }
 }

@@ -36,9 +36,18 @@ import { InputError } from '../../errors.js';
 import { addUncertaintyOption, drawsOption, type UncertaintyOptionValues } from '../uncertainty-options.js';
 import { uncertainComparison } from '../../uncertainty/uncertain-reference.js';
 import { uncertaintyJson } from '../../report/uncertainty-summary.js';
+import { addUnitsOption, unitsOf, type UnitsOptionValues } from '../units-option.js';
+import { displayUnits, type DisplayUnits } from '../../report/units.js';
+import { kphToMps } from '../../units.js';
 
 export interface CompareValues
-  extends TrackOptionValues, CarOptionValues, TelemetryOptionValues, ReportOptionValues, UncertaintyOptionValues {
+  extends
+    TrackOptionValues,
+    CarOptionValues,
+    TelemetryOptionValues,
+    ReportOptionValues,
+    UncertaintyOptionValues,
+    UnitsOptionValues {
   line?: string;
   envelope?: string;
   json?: boolean;
@@ -64,6 +73,7 @@ export function register(program: Command): void {
       'write the aligned traces (aligned.csv) and the corner table (corners.csv) into this folder',
     );
   addUncertaintyOption(command);
+  addUnitsOption(command);
   addReportOptions(command).action((values: CompareValues) => runCompare(values));
 }
 
@@ -103,17 +113,21 @@ export function compareFromRecords(
 }
 
 /** Files `--out DIR` writes: the aligned traces and the corner table. */
-export function comparisonFiles(comparison: SessionComparison, dir: string): { file: string; content: string }[] {
+export function comparisonFiles(
+  comparison: SessionComparison,
+  dir: string,
+  units: DisplayUnits = displayUnits('metric'),
+): { file: string; content: string }[] {
   return [
     {
       file: path.join(dir, 'aligned.csv'),
       content: alignedTracesCsv(comparison.result, comparison.reference, comparison.lap),
     },
-    { file: path.join(dir, 'corners.csv'), content: cornersCsv(comparison) },
+    { file: path.join(dir, 'corners.csv'), content: cornersCsv(comparison, units) },
   ];
 }
 
-function cornersCsv(comparison: SessionComparison): string {
+function cornersCsv(comparison: SessionComparison, units: DisplayUnits): string {
   const rows = compareSummaryJson(comparison.result).corners;
   const columns = [
     'id',
@@ -145,12 +159,18 @@ function cornersCsv(comparison: SessionComparison): string {
       : typeof value === 'string'
         ? `"${value.replace(/"/g, '""')}"`
         : String(value);
+  // The corner table is read by people: speeds and distances in the chosen units, the unit in each column name.
+  const shown = columns.map((column) => displayColumn(column, units));
   return (
-    [columns.join(','), ...rows.map((row) => columns.map((column) => cell(row[column])).join(','))].join('\n') + '\n'
+    [
+      shown.map((c) => c.name).join(','),
+      ...rows.map((row) => columns.map((column, k) => cell(shown[k]!.value(row[column]))).join(',')),
+    ].join('\n') + '\n'
   );
 }
 
 export async function runCompare(values: CompareValues): Promise<void> {
+  const units = unitsOf(values);
   const track = loadTrack(values);
   const { car, ambient } = loadCar(values);
   const draws = drawsOption(values);
@@ -165,7 +185,8 @@ export async function runCompare(values: CompareValues): Promise<void> {
       ? null
       : await uncertainComparison(comparison, car, ambient, { draws, startSpeedMps: startSpeedMps(values) });
   const outputs = outputBatch(inputFilesOf(values));
-  if (values.out) for (const { file, content } of comparisonFiles(comparison, values.out)) outputs.add(file, content);
+  if (values.out)
+    for (const { file, content } of comparisonFiles(comparison, values.out, units)) outputs.add(file, content);
   const report = sessionReportInput(comparison, car, ambient, comparison.linePositions);
   const reportFiles = addReportOutputs(outputs, values, uncertainty ? { ...report, uncertainty } : report);
   outputs.commit();
@@ -183,9 +204,21 @@ export async function runCompare(values: CompareValues): Promise<void> {
     );
   } else {
     process.stdout.write(
-      withReferencePath(compareSummaryText(comparison.result, uncertainty ?? undefined), comparison.referencePath),
+      withReferencePath(compareSummaryText(comparison.result, uncertainty ?? undefined, units), comparison.referencePath),
     );
     if (values.out) process.stdout.write(`Aligned traces and corner table written to ${values.out}\n`);
     process.stdout.write(reportWrittenText(reportFiles));
   }
+}
+
+/** A corner-table column in the chosen units: `...Kph` becomes `...Mph` and `...M` becomes `...Ft` in imperial. */
+function displayColumn(column: string, units: DisplayUnits): { name: string; value: (v: unknown) => unknown } {
+  const convert = (suffix: string, to: string, factor: (x: number) => number, digits: number) => ({
+    name: column.slice(0, -suffix.length) + to,
+    value: (v: unknown) => (typeof v === 'number' ? Number(factor(v).toFixed(digits)) : v),
+  });
+  if (units.system === 'imperial' && column.endsWith('Kph'))
+    return convert('Kph', 'Mph', (kph) => units.speed(kphToMps(kph)), 2);
+  if (units.system === 'imperial' && column.endsWith('M')) return convert('M', 'Ft', units.distance, 1);
+  return { name: column, value: (v) => v };
 }

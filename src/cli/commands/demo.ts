@@ -16,11 +16,12 @@ import { compareFromRecords, comparisonFiles } from './compare.js';
 import { addReportOptions, addReportOutputs, reportWrittenText, type ReportOptionValues } from '../html-options.js';
 import { sessionReportInput } from '../../report/html/from-session.js';
 import { withReferencePath } from '../reference-path.js';
+import { addUnitsOption, unitsOf, type UnitsOptionValues } from '../units-option.js';
 
 export const DEMO_TRACK = 'tracks/velmora-downs.json';
 export const DEMO_CAR = 'cars/tarnfell-gt.json';
 
-interface DemoValues extends ReportOptionValues {
+interface DemoValues extends ReportOptionValues, UnitsOptionValues {
   out: string;
   seed?: string;
 }
@@ -55,10 +56,12 @@ export function register(program: Command): void {
     .option('--out <dir>', 'folder for the demo files', 'out')
     .option('--seed <n>', 'seed of the logging noise (same seed, same files)');
   // --html defaults to report.html in the demo folder.
+  addUnitsOption(command);
   addReportOptions(command).action((values: DemoValues) => runDemo(values));
 }
 
 export function runDemo(values: DemoValues): void {
+  const units = unitsOf(values);
   const root = packageRoot();
   const trackFile = path.join(root, DEMO_TRACK);
   const carFile = path.join(root, DEMO_CAR);
@@ -74,7 +77,7 @@ export function runDemo(values: DemoValues): void {
   const comparison = compareFromRecords(track, car, ambient, session, { line: 'centreline' });
   const outputs = outputBatch([trackFile, carFile]);
   outputs.add(logFile, csv);
-  for (const { file, content } of comparisonFiles(comparison, values.out)) outputs.add(file, content);
+  for (const { file, content } of comparisonFiles(comparison, values.out, units)) outputs.add(file, content);
   const reportOptions = {
     html: values.html ?? path.join(values.out, 'report.html'),
     ...(values.svg ? { svg: values.svg } : {}),
@@ -95,7 +98,7 @@ export function runDemo(values: DemoValues): void {
   );
   process.stdout.write(
     withReferencePath(
-      compareSummaryText({ ...comparison.result, notes: demoNotes(comparison.result.notes) }),
+      compareSummaryText({ ...comparison.result, notes: demoNotes(comparison.result.notes) }, undefined, units),
       comparison.referencePath,
     ),
   );

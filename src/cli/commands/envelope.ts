@@ -14,16 +14,19 @@ import { deriveSessionAccelerations, derivationNote } from '../../compare/derive
 import { buildEnvelope } from '../../car/build-envelope.js';
 import { Option } from 'commander';
 import { formatTable } from '../../report/text-table.js';
-import { mpsToKph, mps2ToG } from '../../units.js';
+import { mps2ToG } from '../../units.js';
+import { roundedJson } from '../../report/json-numbers.js';
+import { plainNumber, type DisplayUnits } from '../../report/units.js';
+import { addUnitsOption, unitsOf, type UnitsOptionValues } from '../units-option.js';
 
 interface EnvelopeValues
-  extends Pick<TelemetryOptionValues, 'telemetry' | 'telemetryColumns'>, Partial<CarOptionValues> {
+  extends Pick<TelemetryOptionValues, 'telemetry' | 'telemetryColumns'>, Partial<CarOptionValues>, UnitsOptionValues {
   out?: string;
   json?: boolean;
 }
 
 export function register(program: Command): void {
-  program
+  const command = program
     .command('envelope')
     .description(
       'fit the g-g-v envelope the driver has demonstrated in a logged session (per speed band, 98th percentile by direction)',
@@ -42,9 +45,9 @@ export function register(program: Command): void {
         'bicycle',
       ]),
     )
-    .option('--out <file>', 'write the envelope as JSON (default: print it)')
-    .option('--json', 'print the envelope JSON even when --out is given')
-    .action((values: EnvelopeValues) => runEnvelope(values));
+    .option('--out <file>', 'write the envelope as JSON for simulate --envelope and compare --envelope')
+    .option('--json', 'print the envelope as JSON instead of the table');
+  addUnitsOption(command).action((values: EnvelopeValues) => runEnvelope(values));
 }
 
 /** Samples of the session for the fit; the log must carry speed and both accelerations (logged or derived). */
@@ -68,20 +71,20 @@ export function sessionSamples(session: TelemetrySession) {
   };
 }
 
-export function envelopeText(record: DemonstratedEnvelopeRecord, notes: string[] = []): string {
+export function envelopeText(record: DemonstratedEnvelopeRecord, units: DisplayUnits, notes: string[] = []): string {
   const rows = record.bands.map((band) => [
-    mpsToKph(band.speedMps).toFixed(0),
+    plainNumber(units.speed(band.speedMps), 0),
     String(band.samples),
-    mps2ToG(band.brakeMps2).toFixed(2),
-    mps2ToG(band.accelMps2).toFixed(2),
-    mps2ToG(band.leftMps2).toFixed(2),
-    mps2ToG(band.rightMps2).toFixed(2),
+    plainNumber(mps2ToG(band.brakeMps2), 2),
+    plainNumber(mps2ToG(band.accelMps2), 2),
+    plainNumber(mps2ToG(band.leftMps2), 2),
+    plainNumber(mps2ToG(band.rightMps2), 2),
   ]);
   return (
     [
-      `Demonstrated envelope from ${record.source} (${(record.quantile * 100).toFixed(0)}th percentile per ${mpsToKph(record.bandWidthMps).toFixed(0)} km/h band, in g)`,
-      formatTable(['km/h', 'samples', 'braking', 'accel', 'left', 'right'], rows),
-      `Top speed reached ${mpsToKph(record.topSpeedMps).toFixed(1)} km/h; coasting ${record.coast.fitted ? 'fitted from the log' : 'assumed (the log has no coasting with pedal channels)'}.`,
+      `Demonstrated envelope from ${record.source} (${(record.quantile * 100).toFixed(0)}th percentile per ${plainNumber(units.speed(record.bandWidthMps), 0)} ${units.speedLabel} band)`,
+      formatTable([`speed ${units.speedLabel}`, 'samples', 'braking g', 'accelerating g', 'left g', 'right g'], rows),
+      `Top speed reached ${plainNumber(units.speed(record.topSpeedMps), 1)} ${units.speedLabel}; coasting ${record.coast.fitted ? 'fitted from the log' : 'assumed (the log has no coasting with pedal channels)'}.`,
       ...[...notes, ...(record.notes ?? [])].map((note) => `Note: ${note}`),
     ].join('\n') + '\n'
   );
@@ -112,9 +115,11 @@ export async function runEnvelope(values: EnvelopeValues): Promise<void> {
     if (error instanceof EnvelopeFitError) throw new InputError(`${session.source}: ${error.message}`);
     throw error;
   }
-  const json = JSON.stringify(record, null, 2) + '\n';
+  const units = unitsOf(values);
+  const json = roundedJson(record);
   if (values.out) writeFileAtomic(values.out, json, inputFilesOf(values));
-  if (values.json || !values.out) process.stdout.write(json);
-  else process.stdout.write(envelopeText(record, notes) + `Envelope written to ${values.out}\n`);
-  if (values.json || !values.out) for (const note of notes) process.stderr.write(`Note: ${note}\n`);
+  if (values.json) process.stdout.write(json);
+  else
+    process.stdout.write(envelopeText(record, units, notes) + (values.out ? `Envelope written to ${values.out}\n` : ''));
+  if (values.json) for (const note of notes) process.stderr.write(`Note: ${note}\n`);
 }

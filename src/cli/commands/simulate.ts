@@ -26,8 +26,10 @@ import { addUncertaintyOption, drawsOption, type UncertaintyOptionValues } from 
 import { uncertainReference } from '../../uncertainty/uncertain-reference.js';
 import { uncertainReferenceText, uncertaintyJson } from '../../report/uncertainty-summary.js';
 import { mpsToKph } from '../../units.js';
+import { addUnitsOption, unitsOf, type UnitsOptionValues } from '../units-option.js';
 
-interface SimulateValues extends TrackOptionValues, CarOptionValues, ReportOptionValues, UncertaintyOptionValues {
+interface SimulateValues
+  extends TrackOptionValues, CarOptionValues, ReportOptionValues, UncertaintyOptionValues, UnitsOptionValues {
   out?: string;
   json?: boolean;
   envelope?: string;
@@ -52,10 +54,12 @@ export function register(program: Command): void {
     );
   addUncertaintyOption(command);
   addLineOption(command);
+  addUnitsOption(command);
   addReportOptions(command).action((values: SimulateValues) => runSimulate(values));
 }
 
 export async function runSimulate(values: SimulateValues): Promise<void> {
+  const units = unitsOf(values);
   const track = loadTrack(values);
   const { car, ambient } = loadCar(values);
   const draws = drawsOption(values);
@@ -127,7 +131,7 @@ export async function runSimulate(values: SimulateValues): Promise<void> {
       ) + '\n',
     );
   } else {
-    const summary = withReferencePath(lapSummaryText(result, car.name), reference);
+    const summary = withReferencePath(lapSummaryText(result, car.name, units), reference);
     // The band goes with the lap's own figures, before the caution that closes the summary.
     process.stdout.write(
       uncertainty

@@ -1,7 +1,6 @@
 // `reflap sweep`: many setups (a full grid or one field at a time) across worker threads, with the lap time
 // and every braking point per run, a sensitivity table around the baseline, shards and their merge.
 
-import { zoneLabel } from '../../track/corner-layout.js';
 import type { Command } from 'commander';
 import { Option } from 'commander';
 import {
@@ -29,7 +28,7 @@ import { sensitivities, type Sensitivity, type SweepTable } from '../../sweep/ta
 import { DEFAULT_MATCH_TOLERANCE_M } from '../../sweep/match-zones.js';
 import { formatTable } from '../../report/text-table.js';
 import { SAFETY_CAUTION } from '../../report/lap-summary.js';
-import { perUnit } from '../../report/sweep-format.js';
+import { sensitivityRows } from '../../report/sweep-format.js';
 import { formatLapTime } from '../../units.js';
 import { InputError } from '../../errors.js';
 import { readTextFile } from '../../io/read-text.js';
@@ -121,15 +120,7 @@ export function workerCount(text: string | undefined): number {
 
 export function sensitivityText(table: SweepTable, found: Sensitivity[]): string {
   if (found.length === 0) return 'No sensitivities: the runs around the baseline are not in this table.\n';
-  const header = ['per unit of', ...found.map((s) => `${s.field} (${s.unit})`)];
-  const rows = [
-    ['lap time, s', ...found.map((s) => perUnit(s.lapTimeSPerUnit))],
-    ...table.meta.corners.map((corner, c) => [
-      `${zoneLabel(corner)} braking point, m`,
-      ...found.map((s) => perUnit(s.brakingPointMPerUnit[c] ?? null)),
-    ]),
-    ['difference step ±', ...found.map((s) => `${s.stepUsed}${s.scheme === 'central' ? '' : ` (${s.scheme})`}`)],
-  ];
+  const { header, rows } = sensitivityRows(table, found);
   return `Sensitivity around the baseline (central differences; braking point: negative = earlier)\n${formatTable(header, rows)}\n`;
 }
 

@@ -1,0 +1,59 @@
+// The units a person reads in tables, reports and human CSVs: metric (km/h, m) or imperial (mph, ft). Results stay
+// SI inside the program and in JSON; only the edges convert. Factors are the exact international definitions:
+// 1 ft = 0.3048 m and 1 mile = 1609.344 m (international yard and pound agreement, 1959).
+
+export type UnitSystem = 'metric' | 'imperial';
+
+export const UNIT_SYSTEMS: readonly UnitSystem[] = ['metric', 'imperial'];
+
+export const METRES_PER_FOOT = 0.3048;
+export const METRES_PER_MILE = 1609.344;
+
+export interface DisplayUnits {
+  system: UnitSystem;
+  /** Speed label and conversion from m/s. */
+  speedLabel: 'km/h' | 'mph';
+  speed(speedMps: number): number;
+  /** Short distances (braking points, offsets, radii) label and conversion from m. */
+  distanceLabel: 'm' | 'ft';
+  distance(distanceM: number): number;
+  /** Column-name suffix of a speed and a distance in a CSV a person reads (`_kph`/`_mph`, `_m`/`_ft`). */
+  speedSuffix: 'kph' | 'mph';
+  distanceSuffix: 'm' | 'ft';
+}
+
+const metric: DisplayUnits = {
+  system: 'metric',
+  speedLabel: 'km/h',
+  speed: (speedMps) => speedMps * 3.6,
+  distanceLabel: 'm',
+  distance: (distanceM) => distanceM,
+  speedSuffix: 'kph',
+  distanceSuffix: 'm',
+};
+
+const imperial: DisplayUnits = {
+  system: 'imperial',
+  speedLabel: 'mph',
+  speed: (speedMps) => (speedMps * 3600) / METRES_PER_MILE,
+  distanceLabel: 'ft',
+  distance: (distanceM) => distanceM / METRES_PER_FOOT,
+  speedSuffix: 'mph',
+  distanceSuffix: 'ft',
+};
+
+export function displayUnits(system: UnitSystem = 'metric'): DisplayUnits {
+  return system === 'imperial' ? imperial : metric;
+}
+
+/** A signed or unsigned fixed-point number for people: never "-0.0", never scientific notation. */
+export function plainNumber(value: number, digits: number, signed = false): string {
+  if (!Number.isFinite(value)) return 'n/a';
+  const factor = 10 ** digits;
+  let rounded = Math.round(Math.abs(value) * factor) / factor;
+  if (rounded === 0) rounded = 0;
+  const negative = value < 0 && rounded !== 0;
+  const text = rounded.toFixed(digits);
+  if (negative) return `-${text}`;
+  return signed && rounded !== 0 ? `+${text}` : text;
+}
