@@ -42,7 +42,9 @@ describe('--units imperial', () => {
     expect(runCli([...base, '--out', metricOut]).code).toBe(0);
     const run = runCli([...base, '--out', imperialOut, '--units', 'imperial']);
     expect(run.code).toBe(0);
-    expect(run.stdout).toMatch(/apex ft\s+brake ft\s+before turn-in ft\s+entry mph\s+slowest mph\s+vs apex ft\s+exit mph/);
+    expect(run.stdout).toMatch(
+      /apex ft\s+brake ft\s+before turn-in ft\s+entry mph\s+slowest mph\s+vs apex ft\s+exit mph/,
+    );
     const metric = csvRows(join(metricOut, 'corners.csv'));
     const imperial = csvRows(join(imperialOut, 'corners.csv'));
     expect(Object.keys(imperial[0]!)).toEqual(expect.arrayContaining(['apexFt', 'entrySpeedDriverMph']));
