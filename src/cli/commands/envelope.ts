@@ -120,6 +120,8 @@ export async function runEnvelope(values: EnvelopeValues): Promise<void> {
   if (values.out) writeFileAtomic(values.out, json, inputFilesOf(values));
   if (values.json) process.stdout.write(json);
   else
-    process.stdout.write(envelopeText(record, units, notes) + (values.out ? `Envelope written to ${values.out}\n` : ''));
+    process.stdout.write(
+      envelopeText(record, units, notes) + (values.out ? `Envelope written to ${values.out}\n` : ''),
+    );
   if (values.json) for (const note of notes) process.stderr.write(`Note: ${note}\n`);
 }
