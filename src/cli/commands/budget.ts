@@ -44,7 +44,8 @@ export function runBudget(values: BudgetValues): void {
   let radiusM: number | null = null;
   if (values.radiusM !== undefined) {
     radiusM = numberOption(values.radiusM, '--radius-m', 0);
-    if (!(radiusM > 0 && Number.isFinite(radiusM))) throw new InputError(`option --radius-m: ${radiusM} must be positive`);
+    if (!(radiusM > 0 && Number.isFinite(radiusM)))
+      throw new InputError(`option --radius-m: ${radiusM} must be positive`);
     lateralMps2 = (speedMps * speedMps) / radiusM;
   } else {
     const lateralG = numberOption(values.lateralG, '--lateral-g', 0);

@@ -204,7 +204,10 @@ export async function runCompare(values: CompareValues): Promise<void> {
     );
   } else {
     process.stdout.write(
-      withReferencePath(compareSummaryText(comparison.result, uncertainty ?? undefined, units), comparison.referencePath),
+      withReferencePath(
+        compareSummaryText(comparison.result, uncertainty ?? undefined, units),
+        comparison.referencePath,
+      ),
     );
     if (values.out) process.stdout.write(`Aligned traces and corner table written to ${values.out}\n`);
     process.stdout.write(reportWrittenText(reportFiles));
