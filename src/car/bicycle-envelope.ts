@@ -148,11 +148,8 @@ export function bicycleEnvelope(car: Car, ambient: Ambient): BicycleEnvelope {
     const rearLat = share(s.rearLatDemandN, s.rearLatCapN);
     let frontLong = 0;
     let rearLong = 0;
-    // As in the point-mass model, the envelope is the tyre ellipses cut by the flat drive-force cap: the share in
-    // use is the larger of the axles' ellipse shares and the share of the drive force.
-    let engineShare = 0;
+    // The tyres' share only, the larger of the two axles' ellipse shares; the engine's limit is not grip in use.
     if (tyreForceN >= 0) {
-      engineShare = share(tyreForceN, drive.forceN(speedMps));
       if (p.drive === 'rear') rearLong = share(tyreForceN, s.rearLongCapN);
       else if (p.drive === 'front') frontLong = share(tyreForceN, s.frontLongCapN);
       else frontLong = rearLong = share(tyreForceN, s.frontLongCapN + s.rearLongCapN);
@@ -161,11 +158,7 @@ export function bicycleEnvelope(car: Car, ambient: Ambient): BicycleEnvelope {
       frontLong = share(-bias * tyreForceN, cap * s.frontLongCapN);
       rearLong = share(-(1 - bias) * tyreForceN, cap * s.rearLongCapN);
     }
-    return Math.max(
-      combinedShare(frontLong, frontLat, exponent),
-      combinedShare(rearLong, rearLat, exponent),
-      engineShare,
-    );
+    return Math.max(combinedShare(frontLong, frontLat, exponent), combinedShare(rearLong, rearLat, exponent));
   };
 
   const lateralLimitingAxle = (speedMps: number): Axle => {
@@ -182,6 +175,7 @@ export function bicycleEnvelope(car: Car, ambient: Ambient): BicycleEnvelope {
     brakeLimitMps2,
     coastDecelMps2: base.coastDecelMps2,
     gripUse,
+    driveLimitMps2: (speedMps) => drive.forceN(speedMps) / massKg,
     gearAt: drive.gearAt,
     lateralLimitingAxle,
   };

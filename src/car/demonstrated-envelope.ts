@@ -90,10 +90,14 @@ export function demonstratedEnvelope(record: DemonstratedEnvelopeRecord): Envelo
     },
     coastDecelMps2,
     gripUse(speedMps, axMps2, ayMps2) {
+      // A log cannot tell the tyres' drive limit from the engine's: the tyres are taken to give forward at least
+      // what they give sideways (a friction circle), or the drive shown where that was more.
       const tyreAx = axMps2 + coastDecelMps2(speedMps);
-      const longCap = tyreAx >= 0 ? Math.max(0.1, driveMps2(speedMps)) : tyreBrakeMps2(speedMps);
-      return combinedShare(tyreAx / longCap, ayMps2 / lateralLimitMps2(speedMps, ayMps2), ELLIPSE);
+      const lateral = lateralLimitMps2(speedMps, ayMps2);
+      const longCap = tyreAx >= 0 ? Math.max(0.1, driveMps2(speedMps), lateral) : tyreBrakeMps2(speedMps);
+      return combinedShare(tyreAx / longCap, ayMps2 / lateral, ELLIPSE);
     },
+    driveLimitMps2: driveMps2,
     gearAt: () => 0,
   };
 }

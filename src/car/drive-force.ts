@@ -1,5 +1,6 @@
-// Tractive force the powertrain can deliver at each road speed: the power limit P / v, or, where the car file
-// gives a torque curve and gears, the best gear's wheel force T(rpm) i_gear i_final eta / r_wheel, capped by P / v.
+// Tractive force the powertrain can deliver at each road speed: the power at the wheels eta P over v, or, where
+// the car file gives a torque curve and gears, the best gear's wheel force T(rpm) i_gear i_final eta / r_wheel,
+// capped by eta P / v. The drivetrain efficiency eta is applied the same way with and without gears.
 
 import type { Car } from './types.js';
 
@@ -25,7 +26,8 @@ function torqueAt(rpmValues: number[], torqueValues: number[], rpm: number): num
 }
 
 export function driveForceTable(car: Car, powerFactor: number): DriveForceTable {
-  const powerW = car.powertrain.maxPowerW * powerFactor;
+  const efficiency = car.powertrain.drivetrainEfficiency;
+  const powerW = car.powertrain.maxPowerW * powerFactor * efficiency;
   const gearing = car.powertrain.gearing;
   // Below walking pace P / v is unbounded; the tyre limit caps it in the envelope, but keep it finite here.
   const powerForce = (speedMps: number) => powerW / Math.max(speedMps, 1);
@@ -45,7 +47,7 @@ export function driveForceTable(car: Car, powerFactor: number): DriveForceTable 
       const rpm = (speedMps / gearing.wheelRadiusM) * ratio * radPerSToRpm;
       if (rpm > gearing.maxRpm) continue;
       const wheelForce =
-        (torqueAt(gearing.torqueCurve.rpm, gearing.torqueCurve.torqueNm, rpm) * ratio * gearing.drivetrainEfficiency) /
+        (torqueAt(gearing.torqueCurve.rpm, gearing.torqueCurve.torqueNm, rpm) * ratio * efficiency) /
         gearing.wheelRadiusM;
       if (wheelForce > best) {
         best = wheelForce;

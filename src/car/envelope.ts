@@ -17,8 +17,12 @@ export interface Envelope {
   brakeLimitMps2(speedMps: number, lateralMps2: number, loadFactor?: number): number;
   /** Deceleration with neither drive nor brakes (drag plus rolling resistance), m/s^2, positive. */
   coastDecelMps2(speedMps: number, loadFactor?: number): number;
-  /** Share of the envelope in use by this combination (1 = on the limit, above 1 = beyond it). */
+  /** Share of the tyres' friction limit in use by this combination (1 = on the limit, above 1 = beyond it); the
+   * engine's power limit is not part of it (see driveLimitMps2). */
   gripUse(speedMps: number, axMps2: number, ayMps2: number): number;
+  /** Drive the engine can give at this speed (and gear), as force over mass, m/s^2, before the tyre limit and
+   * before drag: the pedal's full travel. */
+  driveLimitMps2(speedMps: number): number;
   /** Gear in use at this speed where the car has gears, else 0. */
   gearAt(speedMps: number): number;
 }

@@ -104,14 +104,13 @@ export function pointMassEnvelope(car: Car, ambient: Ambient): Envelope {
     },
     coastDecelMps2,
     gripUse(speedMps, axMps2, ayMps2) {
-      // The envelope is the tyre ellipse cut by the flat drive-force cap: the radial share of a point is the
-      // larger of its share of each.
+      // The tyres' share of their friction ellipse only: being held back by the engine is not grip in use.
       const tyreAx = axMps2 + coastDecelMps2(speedMps);
       const lateralShare = ayMps2 / lateralLimitMps2(speedMps);
       if (tyreAx < 0) return combinedShare(tyreAx / tyreBrakeLimitMps2(speedMps), lateralShare, exponent);
-      const tyreShare = combinedShare(tyreAx / tractionLimitMps2(speedMps), lateralShare, exponent);
-      return Math.max(tyreShare, tyreAx / (drive.forceN(speedMps) / massKg));
+      return combinedShare(tyreAx / tractionLimitMps2(speedMps), lateralShare, exponent);
     },
+    driveLimitMps2: (speedMps) => drive.forceN(speedMps) / massKg,
     gearAt: drive.gearAt,
   };
 }

@@ -14,7 +14,6 @@ export interface Gearing {
   finalDrive: number;
   wheelRadiusM: number;
   shiftTimeS: number;
-  drivetrainEfficiency: number;
   maxRpm: number;
 }
 
@@ -51,6 +50,8 @@ export interface Car {
   };
   powertrain: {
     maxPowerW: number;
+    /** Share of the engine's power that reaches the driven wheels, with or without a gearbox model. */
+    drivetrainEfficiency: number;
     drive: DrivenAxle;
     gearing: Gearing | null;
   };

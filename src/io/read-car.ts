@@ -112,7 +112,6 @@ function gearingOf(powertrain: CarFile['powertrain'], source: string): Car['powe
     finalDrive: finalDrive!,
     wheelRadiusM: wheelRadiusM!,
     shiftTimeS: powertrain.shiftTimeS ?? 0,
-    drivetrainEfficiency: powertrain.drivetrainEfficiency ?? 0.9,
     maxRpm: powertrain.maxRpm ?? curve.rpm[curve.rpm.length - 1]!,
   };
 }
@@ -145,6 +144,7 @@ function carFromFile(data: CarFile, source: string): Car {
     },
     powertrain: {
       maxPowerW: data.powertrain.maxPowerW,
+      drivetrainEfficiency: data.powertrain.drivetrainEfficiency ?? 0.9,
       drive: data.powertrain.drive ?? 'rear',
       gearing: gearingOf(data.powertrain, source),
     },

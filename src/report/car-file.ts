@@ -28,6 +28,7 @@ export function carFileObject(car: Car): Json {
     aero: present({ ...car.aero }),
     powertrain: present({
       maxPowerW: car.powertrain.maxPowerW,
+      drivetrainEfficiency: car.powertrain.drivetrainEfficiency,
       drive: car.powertrain.drive,
       ...(gearing
         ? {
@@ -36,7 +37,6 @@ export function carFileObject(car: Car): Json {
             finalDrive: gearing.finalDrive,
             wheelRadiusM: gearing.wheelRadiusM,
             shiftTimeS: gearing.shiftTimeS,
-            drivetrainEfficiency: gearing.drivetrainEfficiency,
             maxRpm: gearing.maxRpm,
           }
         : {}),

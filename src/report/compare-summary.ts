@@ -197,6 +197,8 @@ export function alignedTracesCsv(result: ComparisonResult, reference: LapResult,
     'ay_reference_mps2',
     'grip_use_driver',
     'grip_use_reference',
+    'power_limited_reference',
+    'shift_reference',
   ];
   const lines = [header.join(',')];
   for (let i = 0; i < t.count; i++) {
@@ -218,6 +220,8 @@ export function alignedTracesCsv(result: ComparisonResult, reference: LapResult,
         fixed(t.ayMps2[i], 3),
         fixed(result.driverGripUse[i], 3),
         fixed(t.gripUse[i], 3),
+        String(t.powerLimited[i]),
+        String(t.shift[i]),
       ].join(','),
     );
   }

@@ -13,6 +13,27 @@ export const SAFETY_CAUTION =
   'Caution: this reference lap is a model result, not a driving instruction. Driving at the limit is dangerous; ' +
   "follow the circuit's rules and qualified instruction.";
 
+/** Upshifts of the lap: where each gap in drive begins and the gear it ends in. */
+export function gearShifts(result: LapResult): { atM: number; toGear: number }[] {
+  const t = result.trace;
+  const shifts: { atM: number; toGear: number }[] = [];
+  for (let i = 0; i < t.count; i++) {
+    if (!t.shift[i] || (i > 0 && t.shift[i - 1])) continue;
+    let end = i;
+    while (end + 1 < t.count && t.shift[end + 1]) end++;
+    shifts.push({ atM: round(t.distanceM[i]!, 1), toGear: t.gear[Math.min(end + 1, t.count - 1)]! });
+  }
+  return shifts;
+}
+
+/** Share of the lap's distance spent at the engine's full drive, 0-1. */
+function powerLimitedShare(result: LapResult): number {
+  const t = result.trace;
+  let count = 0;
+  for (let i = 0; i < t.count; i++) count += t.powerLimited[i]!;
+  return t.count > 0 ? count / t.count : 0;
+}
+
 export function lapSummaryJson(result: LapResult, carName: string) {
   requireFiniteLap(result);
   return {
@@ -39,6 +60,8 @@ export function lapSummaryJson(result: LapResult, carName: string) {
       minSpeedMps: round(zone.minSpeedMps, 3),
       brakingLengthM: round(zone.brakingLengthM, 1),
     })),
+    powerLimitedShare: round(powerLimitedShare(result), 4),
+    shifts: gearShifts(result),
   };
 }
 

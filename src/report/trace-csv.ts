@@ -1,4 +1,5 @@
 // The reference lap as a CSV trace, one row per grid sample. The same columns read back as telemetry.
+// `power_limited` (1 = the engine's full drive in use) and `shift` (1 = an upshift's gap in drive) are states, 0/1.
 
 import type { LapResult } from '../solve/types.js';
 import { mpsToKph } from '../units.js';
@@ -39,8 +40,9 @@ export function traceCsv(result: LapResult, extra: ExtraColumn[] = []): string {
     'throttle',
     'brake',
     'grip_use',
+    'power_limited',
   ];
-  if (t.hasGears) header.push('gear');
+  if (t.hasGears) header.push('gear', 'shift');
   for (const column of extraColumns) header.push(column.name);
   const lines: string[] = [header.join(',')];
   for (let i = 0; i < t.count; i++) {
@@ -55,8 +57,9 @@ export function traceCsv(result: LapResult, extra: ExtraColumn[] = []): string {
       fixed(t.throttle[i]!, 4),
       fixed(t.brake[i]!, 4),
       fixed(t.gripUse[i]!, 4),
+      String(t.powerLimited[i]),
     ];
-    if (t.hasGears) row.push(String(t.gear[i]));
+    if (t.hasGears) row.push(String(t.gear[i]), String(t.shift[i]));
     for (const column of extraColumns) row.push(fixed(column.values[i]!, column.digits));
     lines.push(row.join(','));
   }

@@ -1,9 +1,17 @@
-// From a speed profile to the traces a driver reads: time, longitudinal and lateral acceleration, throttle and
-// brake as shares of what the envelope has available, grip use and gear. One pass, no allocation per sample.
+// From a speed profile to the traces a driver reads, in one place and one pass (no allocation per sample): time,
+// longitudinal and lateral acceleration; throttle as a pedal shows it, the share of the engine's drive at this
+// speed and gear in use (a steady corner needs only what balances drag and rolling resistance); brake as the share
+// of the tyres' braking left beside the cornering; grip use as the tyres' share of their friction limit; the
+// power-limited state (the engine's full drive in use, the tyres with grip to spare); gear, and gear shifts as
+// their own channel (the pedal stays where it was while the gearbox cuts the drive).
 
 import type { Envelope } from '../car/envelope.js';
 import type { Path } from '../track/types.js';
 import type { LapTrace } from './types.js';
+
+/** The engine's drive counts as fully in use (power-limited) from this share of it: the solver's steps reach the
+ * drive limit only to rounding. */
+export const POWER_LIMITED_SHARE = 0.995;
 
 export function lapChannels(
   path: Path,
@@ -11,6 +19,7 @@ export function lapChannels(
   speedMps: Float64Array,
   cornerLimitMps: Float64Array,
   stationM: Float64Array,
+  shift: Uint8Array = new Uint8Array(speedMps.length),
 ): { trace: LapTrace; lapTimeS: number; lengthM: number } {
   const n = speedMps.length;
   const kappa = path.curvaturePerM;
@@ -22,6 +31,7 @@ export function lapChannels(
   const throttle = new Float64Array(n);
   const brake = new Float64Array(n);
   const gripUse = new Float64Array(n);
+  const powerLimited = new Uint8Array(n);
   const gear = new Int8Array(n);
   let hasGears = false;
   let elapsedS = 0;
@@ -53,9 +63,13 @@ export function lapChannels(
     axMps2[i] = ax;
     const coast = envelope.coastDecelMps2(speed);
     const tyreAx = ax + coast;
-    if (tyreAx >= 0) {
-      const available = envelope.accelLimitMps2(speed, ay) + coast;
-      throttle[i] = available > 1e-9 ? Math.min(1, tyreAx / available) : tyreAx > 1e-9 ? 1 : 0;
+    if (shift[i]) {
+      throttle[i] = i > 0 ? throttle[i - 1]! : 1;
+    } else if (tyreAx >= 0) {
+      const driveMps2 = envelope.driveLimitMps2(speed);
+      const share = driveMps2 > 1e-9 ? tyreAx / driveMps2 : tyreAx > 1e-9 ? 1 : 0;
+      throttle[i] = Math.min(1, share);
+      if (share >= POWER_LIMITED_SHARE) powerLimited[i] = 1;
     } else {
       const available = envelope.brakeLimitMps2(speed, ay) - coast;
       brake[i] = available > 1e-9 ? Math.min(1, -tyreAx / available) : 1;
@@ -78,8 +92,10 @@ export function lapChannels(
     throttle,
     brake,
     gripUse,
+    powerLimited,
     cornerLimitMps,
     gear,
+    shift,
     hasGears,
   };
   return { trace, lapTimeS: elapsedS, lengthM: travelledM };

@@ -50,6 +50,7 @@ export function simulate(track: TrackGrid, car: Car, options: SimulateOptions = 
     profile.speedMps,
     profile.cornerLimitMps,
     track.distanceM,
+    profile.shift,
   );
   let maxSpeedMps = -Infinity;
   let minSpeedMps = Infinity;

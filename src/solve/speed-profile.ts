@@ -20,6 +20,8 @@ export interface SpeedProfileOptions {
 export interface SpeedProfile {
   speedMps: Float64Array;
   cornerLimitMps: Float64Array;
+  /** 1 on the steps where an upshift cuts the drive (and the speed follows the forward pass), else 0. */
+  shift: Uint8Array;
 }
 
 const MAX_PERIODIC_LAPS = 20;
@@ -40,11 +42,13 @@ function forwardPass(
   shiftTimeS: number,
   out: Float64Array,
   road: RoadTerms | null,
+  shiftOut: Uint8Array,
 ): void {
   const n = limit.length;
   const steps = path.closed ? n : n - 1;
   const kappa = path.curvaturePerM;
   const ds = path.segmentLengthM;
+  shiftOut.fill(0);
   out[first] = firstSpeedMps;
   let speed = firstSpeedMps;
   let gear = envelope.gearAt(speed);
@@ -67,6 +71,7 @@ function forwardPass(
         -coastShare * envelope.coastDecelMps2(speed, load) +
         (1 - coastShare) * envelope.accelLimitMps2(speed, lateral, load);
       shiftLeftS -= stepTimeS;
+      shiftOut[i] = 1;
     } else {
       accel = envelope.accelLimitMps2(speed, lateral, load);
     }
@@ -176,6 +181,7 @@ export function solveSpeedProfile(path: Path, envelope: Envelope, options: Speed
   const cornerLimitMps = cornerLimitProfile(envelope, path.curvaturePerM, undefined, road);
   const forward = new Float64Array(n);
   const backward = new Float64Array(n);
+  const shift = new Uint8Array(n);
   if (path.closed) {
     const slowest = argMin(cornerLimitMps);
     // The slowest corner limit may be out of the car's reach (a weak car whose top speed caps every limit, or
@@ -183,7 +189,7 @@ export function solveSpeedProfile(path: Path, envelope: Envelope, options: Speed
     // speed it came back with until the lap closes on itself.
     let startMps = cornerLimitMps[slowest]!;
     for (let lap = 0; lap < MAX_PERIODIC_LAPS; lap++) {
-      forwardPass(path, envelope, cornerLimitMps, slowest, startMps, options.shiftTimeS, forward, road);
+      forwardPass(path, envelope, cornerLimitMps, slowest, startMps, options.shiftTimeS, forward, road, shift);
       const backAt = forward[slowest]!;
       if (backAt >= startMps - PERIODIC_TOLERANCE_MPS) break;
       startMps = backAt;
@@ -199,9 +205,16 @@ export function solveSpeedProfile(path: Path, envelope: Envelope, options: Speed
       options.shiftTimeS,
       forward,
       road,
+      shift,
     );
     backwardPass(path, envelope, cornerLimitMps, n - 1, cornerLimitMps[n - 1]!, backward, road);
   }
-  for (let i = 0; i < n; i++) if (backward[i]! < forward[i]!) forward[i] = backward[i]!;
-  return { speedMps: forward, cornerLimitMps };
+  // Where braking takes over, the forward pass's shift never happens.
+  for (let i = 0; i < n; i++) {
+    if (backward[i]! < forward[i]!) {
+      forward[i] = backward[i]!;
+      shift[i] = 0;
+    }
+  }
+  return { speedMps: forward, cornerLimitMps, shift };
 }

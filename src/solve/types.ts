@@ -42,13 +42,20 @@ export interface LapTrace {
   axMps2: Float64Array;
   ayMps2: Float64Array;
   curvaturePerM: Float64Array;
+  /** Share of the engine's drive at this speed and gear in use, 0-1, as the pedal shows it. */
   throttle: Float64Array;
+  /** Share of the tyres' braking (left beside the cornering) in use, 0-1. */
   brake: Float64Array;
+  /** Tyres' share of their friction limit in use (1 = at the limit); the engine's limit is not part of it. */
   gripUse: Float64Array;
+  /** 1 where the engine's full drive is in use (held back by power, not grip), else 0. */
+  powerLimited: Uint8Array;
   /** Corner-limit speed at each sample, m/s (the quasi-steady-state bound). */
   cornerLimitMps: Float64Array;
   /** Gear in use, 0 where the car has no gears. */
   gear: Int8Array;
+  /** 1 during an upshift's gap in drive, else 0. */
+  shift: Uint8Array;
   hasGears: boolean;
 }
 

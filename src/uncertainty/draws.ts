@@ -35,7 +35,7 @@ export function drawRange(field: string): [number, number] {
     'brakes.frontBias',
   ];
   if (fractions.includes(field)) return [0.001, 0.999];
-  if (field === 'powertrain.gearing.drivetrainEfficiency') return [0.01, 1];
+  if (field === 'powertrain.drivetrainEfficiency') return [0.01, 1];
   if (field === 'tyre.ggExponent') return [1, 10];
   if (field === 'aero.liftAreaM2') return [-Infinity, Infinity];
   const nonNegative = [

@@ -127,6 +127,7 @@ describe('full-throttle fit', () => {
       ...truth,
       powertrain: {
         maxPowerW: 150_000,
+        drivetrainEfficiency: 0.9,
         drive: 'all',
         gearing: {
           torqueCurve: { rpm: [1000, 3000, 5000, 7000], torqueNm: [150, 220, 240, 200] },
@@ -134,7 +135,6 @@ describe('full-throttle fit', () => {
           finalDrive: 3.7,
           wheelRadiusM: 0.32,
           shiftTimeS: 0,
-          drivetrainEfficiency: 0.9,
           maxRpm: 7000,
         },
       },

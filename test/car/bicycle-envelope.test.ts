@@ -97,7 +97,7 @@ describe('load transfer', () => {
       rollingResistanceCoeff: 0,
       tyre: { ...clubCar().tyre, muLong: mu, loadSensitivity: 0 },
       aero: { dragAreaM2: 0, liftAreaM2: 0, frontDownforceFraction: 0.5 },
-      powertrain: { maxPowerW: 2e6, drive: 'rear', gearing: null },
+      powertrain: { maxPowerW: 2e6, drivetrainEfficiency: 1, drive: 'rear', gearing: null },
     });
     const envelope = bicycleEnvelope(car, ambient);
     const p = envelope.params;

@@ -25,7 +25,7 @@ export function clubCar(overrides: Partial<Car> = {}): Car {
       corneringStiffnessRearNPerRad: 120_000,
     },
     aero: { dragAreaM2: 0.75, liftAreaM2: 0.6, frontDownforceFraction: 0.4 },
-    powertrain: { maxPowerW: 180_000, drive: 'rear', gearing: null },
+    powertrain: { maxPowerW: 180_000, drivetrainEfficiency: 1, drive: 'rear', gearing: null },
     brakes: { maxDecelG: null, frontBias: 0.65 },
     fuel: { massKg: 30, burnKgPerLap: 2 },
     ...overrides,

@@ -11,6 +11,7 @@ export function testCar(
     dragAreaM2?: number;
     liftAreaM2?: number;
     maxPowerW?: number;
+    drivetrainEfficiency?: number;
     rollingResistanceCoeff?: number;
     drive?: Car['powertrain']['drive'];
     ggExponent?: number;
@@ -42,7 +43,13 @@ export function testCar(
       liftAreaM2: overrides.liftAreaM2 ?? 0,
       frontDownforceFraction: null,
     },
-    powertrain: { maxPowerW: overrides.maxPowerW ?? 1e9, drive: overrides.drive ?? 'all', gearing: null },
+    powertrain: {
+      maxPowerW: overrides.maxPowerW ?? 1e9,
+      // An ideal drivetrain unless a check asks for losses, so closed forms in P hold as written.
+      drivetrainEfficiency: overrides.drivetrainEfficiency ?? 1,
+      drive: overrides.drive ?? 'all',
+      gearing: null,
+    },
     brakes: { maxDecelG: null, frontBias: null },
     fuel: { massKg: 0, burnKgPerLap: 0 },
   };

@@ -96,7 +96,6 @@ describe('parameter draws', () => {
           finalDrive: 3,
           wheelRadiusM: 0.3,
           shiftTimeS: 0,
-          drivetrainEfficiency: 0.9,
           maxRpm: 6000,
         },
       },

@@ -43,6 +43,13 @@ export interface RangeArea {
   label: string;
 }
 
+/** A stretch of the lap shaded across the plot's full height (a state such as power-limited, or a gear shift). */
+export interface Span {
+  fromM: number;
+  toM: number;
+  colour: string;
+}
+
 export interface DistanceChartSpec {
   name: string;
   title: string;
@@ -56,6 +63,7 @@ export interface DistanceChartSpec {
   stepM: number;
   series: DistanceSeries[];
   bands?: Band[];
+  spans?: Span[];
   ranges?: RangeArea[];
   /** Dashed reference lines at these values. */
   guides?: number[];
@@ -89,6 +97,10 @@ export function distanceChartSvg(spec: DistanceChartSpec, options: SvgOptions): 
     const top = y(Math.min(band.to, spec.yDomain[1]));
     const bottom = y(Math.max(band.from, spec.yDomain[0]));
     body += `<rect class="band" x="0" width="${plotWidth}" y="${coord(top)}" height="${coord(Math.max(0, bottom - top))}" fill="${band.colour}"/>`;
+  }
+  for (const span of spec.spans ?? []) {
+    const left = x(span.fromM);
+    body += `<rect class="span" x="${coord(left)}" width="${coord(Math.max(0.8, x(span.toM) - left))}" y="${PLOT_TOP}" height="${plotHeight}" fill="${span.colour}"/>`;
   }
   for (const guide of spec.guides ?? []) {
     body += `<line x1="0" x2="${plotWidth}" y1="${coord(y(guide))}" y2="${coord(y(guide))}" stroke="#777" stroke-dasharray="4 3" vector-effect="non-scaling-stroke"/>`;
@@ -147,6 +159,23 @@ export function distanceChartSvg(spec: DistanceChartSpec, options: SvgOptions): 
     `${spec.title}: ${spec.yTitle} against distance, m`,
     attributes,
   );
+}
+
+/** Stretches where a 0/1 state channel is 1, as spans along the stations (each to the next station). */
+export function stateSpans(
+  state: ArrayLike<number>,
+  stationM: ArrayLike<number>,
+  stepM: number,
+  colour: string,
+): Span[] {
+  const spans: Span[] = [];
+  for (let i = 0; i < state.length; i++) {
+    if (!state[i]) continue;
+    const from = i;
+    while (i + 1 < state.length && state[i + 1]) i++;
+    spans.push({ fromM: stationM[from]!, toM: stationM[i]! + stepM, colour });
+  }
+  return spans;
 }
 
 /** Distance ticks under the plot for the range [fromM, toM]; the page's script redraws them on zoom. */

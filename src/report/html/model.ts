@@ -40,6 +40,9 @@ export interface LapChannels {
   throttlePct: Float64Array | null;
   brakePct: Float64Array | null;
   gripUsePct: Float64Array;
+  /** 0/1 states of the reference (null for a driver's lap): the engine's full drive in use, an upshift's gap. */
+  powerLimited: Uint8Array | null;
+  shift: Uint8Array | null;
   axG: Float64Array;
   ayG: Float64Array;
   xM: Float64Array | null;
@@ -92,6 +95,8 @@ export function reportModel(input: ReportInput): ReportModel {
     throttlePct: scaled(trace.throttle, 100),
     brakePct: scaled(trace.brake, 100),
     gripUsePct: scaled(trace.gripUse, 100),
+    powerLimited: trace.powerLimited,
+    shift: trace.hasGears ? trace.shift : null,
     axG: scaled(trace.axMps2, g),
     ayG: scaled(trace.ayMps2, g),
     xM,
@@ -118,6 +123,8 @@ export function reportModel(input: ReportInput): ReportModel {
       throttlePct: lap.throttle ? scaled(lap.throttle, 100) : null,
       brakePct: lap.brake ? scaled(lap.brake, 100) : null,
       gripUsePct: scaled(result.driverGripUse, 100),
+      powerLimited: null,
+      shift: null,
       axG: scaled(lap.axMps2, g),
       ayG: scaled(lap.ayMps2, g),
       xM: lap.xM,

@@ -2,7 +2,13 @@
 // inline style sheet and one inline script admitted by a Content-Security-Policy hash, no network at all.
 
 import { clientScript } from './client-script.js';
-import { distanceChartSvg, DRAW_BUCKET_M, type DistanceChartSpec, type DistanceSeries } from './distance-chart.js';
+import {
+  distanceChartSvg,
+  DRAW_BUCKET_M,
+  stateSpans,
+  type DistanceChartSpec,
+  type DistanceSeries,
+} from './distance-chart.js';
 import { htmlPage } from './page-frame.js';
 import { ggDiagramSvg, ggFrame } from './gg-diagram.js';
 import { cornerRangeM, reportModel, type ReportInput, type ReportModel } from './model.js';
@@ -120,10 +126,18 @@ function distanceCharts(model: ReportModel): DistanceChartSpec[] {
     else if (!driver.throttlePct || !driver.brakePct)
       note = `the driver’s log has no ${driver.throttlePct ? 'brake' : 'throttle'} channel`;
   }
+  // Throttle is the share of the engine's drive in use; an upshift's gap in drive is shaded, not drawn as a lift.
+  const shiftSpans = reference.shift ? stateSpans(reference.shift, model.stationM, base.stepM, PALETTE.shiftShade) : [];
   charts.push({
     ...base,
     name: 'pedals',
     title: 'Throttle (up) and brake (down)',
+    ...(shiftSpans.length > 0
+      ? {
+          spans: shiftSpans,
+          legendExtra: [{ label: 'gear shift (reference)', colour: PALETTE.shiftShade, mark: 'swatch' as const }],
+        }
+      : {}),
     yTitle: 'brake ↓ · throttle ↑, %',
     yDomain: [-108, 108],
     yFormat: (value) => String(Math.abs(value)),
@@ -138,7 +152,10 @@ function distanceCharts(model: ReportModel): DistanceChartSpec[] {
   charts.push({
     ...base,
     name: 'grip',
-    title: 'Grip use (share of the envelope)',
+    title: 'Grip use (the tyres’ share of their limit)',
+    spans: reference.powerLimited
+      ? stateSpans(reference.powerLimited, model.stationM, base.stepM, PALETTE.powerLimitedShade)
+      : [],
     yTitle: 'grip use, %',
     yDomain: [0, Math.min(200, Math.max(115, Math.ceil((gripMax + 5) / 10) * 10))],
     height: 170,
@@ -153,6 +170,7 @@ function distanceCharts(model: ReportModel): DistanceChartSpec[] {
     legendExtra: [
       { label: 'near the limit', colour: '#fbe7bd', mark: 'swatch' },
       { label: 'over', colour: '#f5e1ec', mark: 'swatch' },
+      { label: 'power-limited (reference)', colour: PALETTE.powerLimitedShade, mark: 'swatch' },
     ],
   });
   return charts;

@@ -22,6 +22,10 @@ export const PALETTE = {
   gripUnused: OKABE_ITO.skyBlue,
   gripNear: OKABE_ITO.orange,
   gripOver: OKABE_ITO.reddishPurple,
+  powerLimited: OKABE_ITO.bluishGreen,
+  /** Light shades of the states for chart backgrounds. */
+  powerLimitedShade: '#d3ede4',
+  shiftShade: '#c9c9c9',
   cursor: '#333333',
   grid: '#e3e3e3',
   axis: '#555555',
@@ -29,11 +33,12 @@ export const PALETTE = {
   gridPoint: '#8c8c8c',
 } as const;
 
-/** Grip-use classes on the track map: below NEAR is grip left unused, above OVER is beyond the envelope. */
+/** Grip-use classes on the track map: below NEAR is grip left unused, above OVER is beyond the envelope; 'power'
+ * marks the reference where the engine's full drive holds it back with grip to spare (not near the limit). */
 export const GRIP_NEAR_LIMIT = 0.9;
 export const GRIP_OVER_LIMIT = 1.02;
 
-export type GripClass = 'unused' | 'near' | 'over';
+export type GripClass = 'unused' | 'near' | 'over' | 'power';
 
 export function gripClass(gripUse: number): GripClass {
   if (gripUse > GRIP_OVER_LIMIT) return 'over';
@@ -45,12 +50,14 @@ export const GRIP_CLASS_COLOUR: Record<GripClass, string> = {
   unused: PALETTE.gripUnused,
   near: PALETTE.gripNear,
   over: PALETTE.gripOver,
+  power: PALETTE.powerLimited,
 };
 
 export const GRIP_CLASS_LABEL: Record<GripClass, string> = {
   unused: `grip unused (< ${Math.round(GRIP_NEAR_LIMIT * 100)} %)`,
   near: 'near the limit',
   over: `over the limit (> ${Math.round(GRIP_OVER_LIMIT * 100)} %)`,
+  power: 'power-limited (grip to spare)',
 };
 
 /** Colours for charts with many series of one kind (one per corner): the Okabe-Ito set without yellow, which is too faint on white. */

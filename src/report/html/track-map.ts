@@ -54,7 +54,8 @@ function polyline(indices: number[], xs: ArrayLike<number>, ys: ArrayLike<number
   return d;
 }
 
-/** The path split into runs of one grip-use class; each run's class is the highest use within it. */
+/** The path split into runs of one grip-use class; each run's class is the highest use within it, or 'power'
+ * where the stretch is power-limited throughout with grip to spare. */
 function colouredPath(
   indices: number[],
   xs: ArrayLike<number>,
@@ -62,6 +63,7 @@ function colouredPath(
   gripPct: ArrayLike<number>,
   map: MapProjection,
   width: number,
+  powerLimited: ArrayLike<number> | null = null,
 ): string {
   let out = '';
   let run: number[] = [];
@@ -75,8 +77,13 @@ function colouredPath(
     const start = indices[k]!;
     const end = k + 1 < indices.length ? indices[k + 1]! : start + 1;
     let peak = 0;
-    for (let i = start; i < Math.min(end, gripPct.length); i++) peak = Math.max(peak, gripPct[i]!);
-    const cls = gripClass(peak / 100);
+    let power = powerLimited !== null;
+    for (let i = start; i < Math.min(end, gripPct.length); i++) {
+      peak = Math.max(peak, gripPct[i]!);
+      if (powerLimited && !powerLimited[i]) power = false;
+    }
+    const grip = gripClass(peak / 100);
+    const cls: GripClass = power && grip === 'unused' ? 'power' : grip;
     if (cls !== runClass) {
       if (run.length) run.push(start);
       flush();
@@ -107,7 +114,8 @@ export function trackMapSvg(model: ReportModel, options: SvgOptions): string {
   }
   const surfaceWidth = Math.max(6, widthM * map.pxPerM);
   let body = `<text class="chart-title" x="14" y="18" font-size="13" font-weight="600">Track map</text>`;
-  const legend: LegendItem[] = (['unused', 'near', 'over'] as const).map((cls) => ({
+  const classes: GripClass[] = driverHasPath ? ['unused', 'near', 'over'] : ['unused', 'power', 'near', 'over'];
+  const legend: LegendItem[] = classes.map((cls) => ({
     label: GRIP_CLASS_LABEL[cls],
     colour: GRIP_CLASS_COLOUR[cls],
   }));
@@ -122,7 +130,7 @@ export function trackMapSvg(model: ReportModel, options: SvgOptions): string {
     body += colouredPath(indices, driver.xM!, driver.yM!, driver.gripUsePct, map, 4);
     body += `<path class="reference-line" d="${polyline(indices, reference.xM!, reference.yM!, map)}" fill="none" stroke="#111" stroke-width="1.2" stroke-linejoin="round"/>`;
   } else {
-    body += colouredPath(indices, reference.xM!, reference.yM!, reference.gripUsePct, map, 4);
+    body += colouredPath(indices, reference.xM!, reference.yM!, reference.gripUsePct, map, 4, reference.powerLimited);
   }
 
   // Start/finish: a bar across the track at the first sample, and the direction of travel.
