@@ -149,8 +149,6 @@ async function scanCsvFile(file: string, dialect: CsvDialect, target: ScanTarget
       }
       const { bytesRead } = await handle.read(buffer, filled, buffer.length - filled, null);
       filled += bytesRead;
-      // UTF-16 text (its byte order mark first) is csv-parse's to decode from the first record.
-      if (scanner.records === 0 && filled >= 2 && buffer[0] === 0xff && buffer[1] === 0xfe) return 0;
       const final = bytesRead === 0;
       const rest = scanner.scan(buffer, 0, filled, final);
       if (rest < 0) return scanner.records;

@@ -67,6 +67,8 @@ export class NumericLineScanner {
     if (this.atStart) {
       if (end - start < 3 && !final) return start;
       if (bytes[start] === 0xef && bytes[start + 1] === 0xbb && bytes[start + 2] === 0xbf) start += 3;
+      // UTF-16 LE text (its byte order mark first) is csv-parse's to decode.
+      else if (bytes[start] === 0xff && bytes[start + 1] === 0xfe) return -1;
       this.atStart = false;
     }
     if (bytes.subarray(start, end).indexOf(QUOTE) >= 0) return -1;
