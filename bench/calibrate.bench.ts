@@ -16,7 +16,7 @@ import { calibrationSamples } from '../src/calibrate/samples.js';
 import { calibrateCar } from '../src/calibrate/calibrate-car.js';
 import { trackFromSegments } from '../src/track/segments.js';
 import { simulate } from '../src/solve/simulate.js';
-import { demoDriverLap, demoLogCsv, DEFAULT_DEMO_LOG } from '../src/compare/demo-driver.js';
+import { demoDriverLap, demoLogCsv, DEFAULT_DEMO_LOG } from '../src/demo/demo-driver.js';
 import { compareSession } from '../src/compare/compare-session.js';
 import { uncertainComparison } from '../src/uncertainty/uncertain-reference.js';
 import { benchmarkCircuitSegments } from './simulate.bench.js';

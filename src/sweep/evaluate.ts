@@ -8,7 +8,7 @@ import { simulate } from '../solve/simulate.js';
 import { applySetup, type SetupBase } from './settings.js';
 import { DEFAULT_MATCH_TOLERANCE_M, matchBrakingZones } from './match-zones.js';
 import { brakingPointM } from './braking-point.js';
-import type { DrawSpec } from '../uncertainty/evaluate-draw.js';
+import type { RunKind } from './pool.js';
 
 /** Everything a run needs besides its parameter values; sent to each worker once. */
 export interface SweepContext {
@@ -20,8 +20,6 @@ export interface SweepContext {
   startSpeedMps: number;
   path?: Path;
   matchToleranceM: number;
-  /** Set when the runs are draws of an uncertain reference (src/uncertainty) rather than setup changes. */
-  draw?: DrawSpec;
 }
 
 /** Numbers per run: lap time, then per corner braking point (m), entry speed and slowest speed (m/s). */
@@ -79,6 +77,14 @@ export function evaluateRun(
 ): void {
   writeOutcome(context, solveSetup(context, values, where), out, offset);
 }
+
+/** A sweep's runs for the pool (./pool.ts). */
+export const sweepRunKind: RunKind<SweepContext> = {
+  moduleUrl: import.meta.url,
+  exportName: 'sweepRunKind',
+  width: (context) => outcomeWidth(context.corners.length),
+  run: evaluateRun,
+};
 
 export function defaultContext(
   partial: Omit<SweepContext, 'matchToleranceM'> & { matchToleranceM?: number },

@@ -1,13 +1,34 @@
-// Runs sweep setups across worker threads (node:worker_threads): each worker gets the track and the base
-// car once, then small tasks of a few parameter sets, and answers with packed Float64Array outcomes.
+// Runs parameter sets across worker threads (node:worker_threads): each worker gets the context (track, base car)
+// once, then small tasks of a few parameter sets, and answers with packed Float64Array outcomes. What a run is
+// comes from its caller as a run kind (a sweep's setup change, a draw of an uncertain reference), so the pool
+// knows none of them and the same workers serve all.
 
 import { Worker } from 'node:worker_threads';
-import { existsSync } from 'node:fs';
-import { fileURLToPath } from 'node:url';
 import { availableParallelism } from 'node:os';
 import { InputError } from '../errors.js';
-import type { SweepContext } from './evaluate.js';
-import { runOne, runWidth } from './run-kind.js';
+
+/** What every run kind's context has: the names of the values each run is given, in order. */
+export interface PoolContext {
+  fields: string[];
+}
+
+/**
+ * One kind of run: how many numbers a run writes and how to solve one. A worker thread loads the kind itself from
+ * `moduleUrl` (the module's own import.meta.url) by `exportName`, since functions do not cross threads.
+ */
+export interface RunKind<C extends PoolContext> {
+  moduleUrl: string;
+  exportName: string;
+  width(context: C): number;
+  run(context: C, values: ArrayLike<number>, out: Float64Array, offset: number, where: string): void;
+}
+
+/** What a worker thread is started with. */
+export interface WorkerSetup {
+  moduleUrl: string;
+  exportName: string;
+  context: PoolContext;
+}
 
 export interface TaskMessage {
   id: number;
@@ -38,44 +59,33 @@ export function defaultWorkerCount(): number {
   return availableParallelism();
 }
 
-/** The compiled worker: beside this file in dist/, or in dist/ when this file runs from src/ (vitest). */
-export function workerFileUrl(): URL {
-  const candidates = [
-    new URL('./worker.js', import.meta.url),
-    new URL('../../dist/src/sweep/worker.js', import.meta.url),
-  ];
-  for (const candidate of candidates) {
-    if (existsSync(fileURLToPath(candidate))) return candidate;
-  }
-  throw new Error(
-    `sweep worker not found at ${candidates.map((c) => fileURLToPath(c)).join(' or ')}; run npm run build`,
-  );
-}
-
-/** Solves the runs in this thread; `values` holds fields.length numbers per run. Returns outcomeWidth numbers per run. */
-export function runSetupsInProcess(
-  context: SweepContext,
+/** Solves the runs in this thread; `values` holds fields.length numbers per run. Returns kind.width numbers per run. */
+export function runSetupsInProcess<C extends PoolContext>(
+  kind: RunKind<C>,
+  context: C,
   values: Float64Array,
   firstRun = 0,
   onProgress?: RunOptions['onProgress'],
 ): Float64Array {
   const width = context.fields.length;
   const runs = width === 0 ? 0 : values.length / width;
-  const resultWidth = runWidth(context);
+  const resultWidth = kind.width(context);
   const out = new Float64Array(runs * resultWidth);
   for (let r = 0; r < runs; r++) {
-    runOne(context, values.subarray(r * width, (r + 1) * width), out, r * resultWidth, `sweep run ${firstRun + r}`);
+    kind.run(context, values.subarray(r * width, (r + 1) * width), out, r * resultWidth, `sweep run ${firstRun + r}`);
     onProgress?.(r + 1, runs);
   }
   return out;
 }
 
 /**
- * Solves the runs across worker threads. The outcome of run r lands at r * outcomeWidth whatever worker
- * solved it, so the result does not depend on the number of workers or on their timing.
+ * Solves the runs across worker threads. The outcome of run r lands at r * kind.width whatever worker
+ * solved it, so the result does not depend on the number of workers or on their timing. The worker is the
+ * compiled module beside this one: run from the built package (dist/), as the command line and benchmarks do.
  */
-export async function runSetups(
-  context: SweepContext,
+export async function runSetups<C extends PoolContext>(
+  kind: RunKind<C>,
+  context: C,
   values: Float64Array,
   firstRun = 0,
   options: RunOptions = {},
@@ -83,14 +93,15 @@ export async function runSetups(
   const width = context.fields.length;
   const runs = width === 0 ? 0 : values.length / width;
   const requested = options.workers ?? defaultWorkerCount();
-  if (requested <= 0 || runs === 0) return runSetupsInProcess(context, values, firstRun, options.onProgress);
-  const resultWidth = runWidth(context);
+  if (requested <= 0 || runs === 0) return runSetupsInProcess(kind, context, values, firstRun, options.onProgress);
+  const resultWidth = kind.width(context);
   const out = new Float64Array(runs * resultWidth);
   // Small tasks keep the workers evenly loaded to the end; two in flight per worker hide the message latency.
   const chunk = Math.max(1, Math.min(16, Math.ceil(runs / (requested * 8))));
   const taskCount = Math.ceil(runs / chunk);
   const workerCount = Math.min(requested, taskCount);
-  const url = workerFileUrl();
+  const url = new URL('./worker.js', import.meta.url);
+  const setup: WorkerSetup = { moduleUrl: kind.moduleUrl, exportName: kind.exportName, context };
   const workers: Worker[] = [];
   let nextTask = 0;
   let doneRuns = 0;
@@ -120,7 +131,7 @@ export async function runSetups(
     };
     for (let w = 0; w < workerCount; w++) {
       const worker = new Worker(url, {
-        workerData: context,
+        workerData: setup,
         resourceLimits: { maxYoungGenerationSizeMb: WORKER_YOUNG_GENERATION_MB },
       });
       workers.push(worker);

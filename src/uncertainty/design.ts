@@ -6,7 +6,7 @@
 // parameter correlated with none). Seeded: the same seed gives the same draws.
 
 import { CholeskyDecomposition, type Matrix } from 'ml-matrix';
-import { seededRandom } from '../compare/demo-driver.js';
+import { seededRandom } from '../numeric/seeded-random.js';
 import { normalQuantile } from '../numeric/normal.js';
 
 /** Uniform draws, `count` rows of `dims` numbers in (0, 1), one per stratum in each column. */

@@ -15,6 +15,7 @@ import { buildEnvelope } from '../car/build-envelope.js';
 import { simulate } from '../solve/simulate.js';
 import type { TrackGrid } from '../track/types.js';
 import { outcomeWidth, writeOutcome, type SweepContext } from '../sweep/evaluate.js';
+import type { RunKind } from '../sweep/pool.js';
 import { applyDraw } from './draws.js';
 
 export interface DrawSpec {
@@ -24,6 +25,9 @@ export interface DrawSpec {
   driver: DriverLap | null;
   compare: Partial<CompareOptions>;
 }
+
+/** The context of a draw run: a sweep's, with what the draws add. */
+export type DrawContext = SweepContext & { draw: DrawSpec };
 
 /** Numbers per compared corner: time lost, claims, braking-point gap (m), slowest-speed gap (km/h). */
 export const VALUES_PER_COMPARED_CORNER = 4;
@@ -36,7 +40,7 @@ export function comparedCornerCount(track: TrackGrid, spec: DrawSpec): number {
   return spec.driver ? cornerLayoutOf(track).corners.length : 0;
 }
 
-export function drawOutcomeWidth(context: SweepContext & { draw: DrawSpec }): number {
+export function drawOutcomeWidth(context: DrawContext): number {
   return (
     outcomeWidth(context.corners.length) +
     traceSamples(context.track.distanceM.length, context.draw.traceStride) +
@@ -56,7 +60,7 @@ export function claimMask(corner: CornerComparison, options: Partial<CompareOpti
 }
 
 export function evaluateDraw(
-  context: SweepContext & { draw: DrawSpec },
+  context: DrawContext,
   values: ArrayLike<number>,
   out: Float64Array,
   offset: number,
@@ -85,3 +89,11 @@ export function evaluateDraw(
     out[at++] = corner.minSpeedDeltaKph;
   }
 }
+
+/** The draws of an uncertain reference, for the pool (src/sweep/pool.ts). */
+export const drawRunKind: RunKind<DrawContext> = {
+  moduleUrl: import.meta.url,
+  exportName: 'drawRunKind',
+  width: drawOutcomeWidth,
+  run: evaluateDraw,
+};

@@ -12,11 +12,13 @@ import { CLAIM_KINDS, cornerClaims, phaseClaim, type Claim, type ClaimKind } fro
 import { quantileSorted } from '../compare/envelope-fit.js';
 import type { LapResult } from '../solve/types.js';
 import type { Path, TrackGrid } from '../track/types.js';
-import { defaultContext, outcomeWidth, VALUES_PER_CORNER, type SweepContext } from '../sweep/evaluate.js';
+import { defaultContext, outcomeWidth, VALUES_PER_CORNER } from '../sweep/evaluate.js';
 import { runSetups, type RunOptions } from '../sweep/pool.js';
 import { DEFAULT_DRAW_SEED, drawParameters } from './draws.js';
 import {
   drawOutcomeWidth,
+  drawRunKind,
+  type DrawContext,
   evaluateDraw,
   traceSamples,
   VALUES_PER_COMPARED_CORNER,
@@ -121,7 +123,7 @@ export async function uncertainReference(
     driver: input.comparison?.driver ?? null,
     compare: input.comparison?.compare ?? {},
   };
-  const context: SweepContext & { draw: DrawSpec } = {
+  const context: DrawContext = {
     ...defaultContext({
       track,
       base: { car, air: { airTempC: input.ambient.airTempC, pressureHpa: input.ambient.pressureHpa } },
@@ -142,7 +144,7 @@ export async function uncertainReference(
     for (let d = 0; d < count; d++) rows.set(one, d * width);
     options.onProgress?.(count, count);
   } else {
-    rows = await runSetups(context, drawn.values, 0, {
+    rows = await runSetups(drawRunKind, context, drawn.values, 0, {
       ...(options.workers !== undefined ? { workers: options.workers } : {}),
       ...(options.onProgress ? { onProgress: options.onProgress } : {}),
     });

@@ -7,7 +7,7 @@ import type { CalibrationSamples } from '../../src/calibrate/samples.js';
 import { ambientFrom } from '../../src/car/ambient.js';
 import { driveForceTable } from '../../src/car/drive-force.js';
 import type { Car } from '../../src/car/types.js';
-import { seededRandom } from '../../src/compare/demo-driver.js';
+import { seededRandom } from '../../src/numeric/seeded-random.js';
 import { isInputError } from '../../src/errors.js';
 import { testCar } from '../helpers/cars.js';
 

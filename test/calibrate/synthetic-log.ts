@@ -10,7 +10,7 @@
 import type { TelemetrySession } from '../../src/telemetry/types.js';
 import type { LapResult } from '../../src/solve/types.js';
 import type { TrackGrid } from '../../src/track/types.js';
-import { seededRandom } from '../../src/compare/demo-driver.js';
+import { seededRandom } from '../../src/numeric/seeded-random.js';
 
 export interface SyntheticLogOptions {
   seed: number;

@@ -37,7 +37,7 @@ describe('reflap calibrate', () => {
       expect(fitted.uncertainty!.sd[f.field]).toBe(f.sd);
       expect(fitted.origin![f.field]).toMatch(/^fitted from /);
     }
-    // The demo driver drives the Tarnfell's own reference at 98.5 % of its speed (src/compare/demo-driver.ts), so the
+    // The demo driver drives the Tarnfell's own reference at 98.5 % of its speed (src/demo/demo-driver.ts), so the
     // grip the log shows is about 0.985^2 of the car file's 1.5: the fit must land there, not at the guess of 1.3.
     const muLat = summary.fitted.find((f: { field: string }) => f.field === 'tyre.muLat');
     expect(Math.abs(muLat.value - 1.5 * 0.985 ** 2)).toBeLessThan(3 * muLat.sd + 0.02);

@@ -29,7 +29,7 @@ describe('reflap demo', () => {
   });
 
   it("finds the driver model's faults: 25 m early braking, 12 m late braking, coasting", () => {
-    // The expected figures are the ones the driver model was built with (src/compare/demo-driver.ts).
+    // The expected figures are the ones the driver model was built with (src/demo/demo-driver.ts).
     const corners = readFileSync(path.join(folder, 'out', 'corners.csv'), 'utf8')
       .trim()
       .split('\n');

@@ -7,7 +7,10 @@ import { sensitivities } from '../../src/sweep/table.js';
 import { mergeSweepCsv, parseSweepCsv, sweepCsv } from '../../src/sweep/csv.js';
 import { sweepChartData } from '../../src/sweep/chart-data.js';
 import { compareSetupChange } from '../../src/sweep/compare-laps.js';
-import { runStint, runStintInWorkers } from '../../src/sweep/stint.js';
+import { runStint } from '../../src/sweep/stint.js';
+// Worker threads run compiled modules, so the runs on workers call the build (dist/, made before vitest runs).
+import { runSweep as runSweepBuilt } from '../../dist/src/sweep/run-sweep.js';
+import { runStintInWorkers } from '../../dist/src/sweep/stint.js';
 import { InputError } from '../../src/errors.js';
 import { testCar } from '../helpers/cars.js';
 import { stadium } from './tracks.js';
@@ -73,13 +76,13 @@ describe('sweep sensitivities', () => {
 
 describe('shards and workers', () => {
   it('merged shards equal the unsharded sweep byte for byte, whatever the worker count', async () => {
-    const whole = await runSweep({ track, base, variations, mode: 'grid' }, { workers: 2 });
+    const whole = await runSweepBuilt({ track, base, variations, mode: 'grid' }, { workers: 2 });
     expect(whole.complete).toBe(true);
     expect(whole.table.records).toHaveLength(1 + 6 + 27);
     const wholeCsv = sweepCsv(whole.table);
     const shards: { text: string; source: string }[] = [];
     for (let i = 0; i < 4; i++) {
-      const part = await runSweep(
+      const part = await (i % 2 === 0 ? runSweep : runSweepBuilt)(
         { track, base, variations, mode: 'grid', shard: { index: i, count: 4 } },
         { workers: i % 2 === 0 ? 0 : 1 },
       );

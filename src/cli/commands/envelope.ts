@@ -7,7 +7,7 @@ import type { Command } from 'commander';
 import { InputError } from '../../errors.js';
 import { inputFilesOf, loadCar, type CarOptionValues } from '../options.js';
 import { writeFileAtomic } from '../output.js';
-import { loadSession, type TelemetryOptionValues } from './telemetry-options.js';
+import { loadSession, type TelemetryOptionValues } from '../telemetry-options.js';
 import { fitEnvelope, EnvelopeFitError, type DemonstratedEnvelopeRecord } from '../../compare/envelope-fit.js';
 import type { TelemetrySession } from '../../telemetry/types.js';
 import { deriveSessionAccelerations, derivationNote } from '../../compare/derive-session.js';

@@ -14,7 +14,7 @@ import {
 import { writeFileAtomic } from '../output.js';
 import { createProgress } from '../progress.js';
 import { parseSetting } from '../../sweep/settings.js';
-import { loadSetupInputs, setupReference, workerCount } from './sweep.js';
+import { loadSetupInputs, setupReference, workerCount } from '../setup-inputs.js';
 import { addLineOption, referencePathJson, withReferencePath } from '../reference-path.js';
 import { runStintInWorkers, type StintResult } from '../../sweep/stint.js';
 import { DIGITS } from '../../sweep/table.js';

@@ -7,22 +7,18 @@ import {
   addCarOptions,
   addTrackOptions,
   inputFilesOf,
-  loadCar,
-  loadTrack,
   numberOption,
-  startSpeedMps,
   type CarOptionValues,
   type TrackOptionValues,
 } from '../options.js';
+import { loadSetupInputs, setupReference, workerCount, type SetupOptionValues } from '../setup-inputs.js';
 import { outputBatch, type OutputBatch } from '../output.js';
 import { addPageOutputs, addReportOptions, reportWrittenText, type ReportOptionValues } from '../html-options.js';
 import { sweepChartSvgs, sweepReportHtml } from '../../report/sweep-page.js';
 import { createProgress } from '../progress.js';
-import { parseSetting, parseVariation, setupBaseFrom, type Setting, type SetupBase } from '../../sweep/settings.js';
-import type { TrackGrid } from '../../track/types.js';
+import { parseSetting, parseVariation } from '../../sweep/settings.js';
 import { parseShard, type SweepMode } from '../../sweep/plan.js';
 import { runSweep } from '../../sweep/run-sweep.js';
-import { defaultWorkerCount } from '../../sweep/pool.js';
 import { mergeSweepCsv, sweepCsv } from '../../sweep/csv.js';
 import { sensitivities, type Sensitivity, type SweepTable } from '../../sweep/table.js';
 import { DEFAULT_MATCH_TOLERANCE_M } from '../../sweep/match-zones.js';
@@ -32,9 +28,7 @@ import { sensitivityRows } from '../../report/sweep-format.js';
 import { formatLapTime } from '../../units.js';
 import { InputError } from '../../errors.js';
 import { readTextFile } from '../../io/read-text.js';
-import { ambientFrom } from '../../car/ambient.js';
-import { addLineOption, referencePathJson, resolveReferenceLine, withReferencePath } from '../reference-path.js';
-import type { ReferenceLine } from '../../line/reference-line.js';
+import { addLineOption, referencePathJson, withReferencePath } from '../reference-path.js';
 
 interface SweepValues extends Partial<TrackOptionValues>, Partial<CarOptionValues>, ReportOptionValues {
   vary?: string[];
@@ -85,40 +79,7 @@ export function register(program: Command): void {
   ).action((values: SweepValues) => runSweepCommand(values));
 }
 
-export type SetupOptionValues = TrackOptionValues & CarOptionValues & { line?: string };
-
-/** Track, base car and air (with fixed --set changes) and start speed: what every setup run shares. */
-export function loadSetupInputs(
-  values: SetupOptionValues,
-  fixed: readonly Setting[],
-): { track: TrackGrid; base: SetupBase; start: number } {
-  const track = loadTrack(values);
-  const { car, ambient } = loadCar(values);
-  return { track, base: setupBaseFrom(car, ambient, fixed), start: startSpeedMps(values) };
-}
-
-/**
- * The reference's path for every setup: computed once, for the baseline car, and held for every setup (the line
- * search is the costly part of a run). Called after the cheap checks of the input, so bad input fails fast.
- */
-export function setupReference(
-  values: SetupOptionValues,
-  inputs: { track: TrackGrid; base: SetupBase; start: number },
-): ReferenceLine {
-  const { track, base, start } = inputs;
-  return resolveReferenceLine(track, base.car, ambientFrom(base.air), values.line, { startSpeedMps: start });
-}
-
-/** Parses --workers: default the number of cores, 0 = in the calling thread. */
-export function workerCount(text: string | undefined): number {
-  if (text === undefined) return defaultWorkerCount();
-  const workers = numberOption(text, '--workers', 1);
-  if (!Number.isInteger(workers) || workers < 0 || workers > 256)
-    throw new InputError(`option --workers: ${text} should be a whole number from 0 to 256`);
-  return workers;
-}
-
-export function sensitivityText(table: SweepTable, found: Sensitivity[]): string {
+function sensitivityText(table: SweepTable, found: Sensitivity[]): string {
   if (found.length === 0) return 'No sensitivities: the runs around the baseline are not in this table.\n';
   const { header, rows } = sensitivityRows(table, found);
   return `Sensitivity around the baseline (central differences; braking point: negative = earlier)\n${formatTable(header, rows)}\n`;

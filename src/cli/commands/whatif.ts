@@ -20,7 +20,7 @@ import { formatTable } from '../../report/text-table.js';
 import { round, SAFETY_CAUTION } from '../../report/lap-summary.js';
 import { formatLapTime } from '../../units.js';
 import { InputError } from '../../errors.js';
-import { loadSetupInputs, setupReference } from './sweep.js';
+import { loadSetupInputs, setupReference } from '../setup-inputs.js';
 import { addLineOption, referencePathJson, withReferencePath } from '../reference-path.js';
 import { ambientFrom } from '../../car/ambient.js';
 import { outputBatch } from '../output.js';

@@ -2,11 +2,11 @@
 // mapping, which lap, where the start/finish line is, and a demonstrated envelope file.
 
 import type { Command } from 'commander';
-import { InputError } from '../../errors.js';
-import { parseColumnMapping } from '../../io/columns.js';
-import { readTelemetryFile } from '../../io/telemetry/read-telemetry.js';
-import type { TelemetrySession } from '../../telemetry/types.js';
-import { numberOption } from '../options.js';
+import { InputError } from '../errors.js';
+import { parseColumnMapping } from '../io/columns.js';
+import { readTelemetryFile } from '../io/telemetry/read-telemetry.js';
+import type { TelemetrySession } from '../telemetry/types.js';
+import { numberOption } from './options.js';
 
 export interface TelemetryOptionValues {
   telemetry: string;

@@ -9,6 +9,7 @@ import { localPlane } from '../track/geodesy.js';
 import type { CornerSpan } from '../track/corners.js';
 import { cornerLayoutOf } from '../track/corner-layout.js';
 import { mps2ToG, mpsToKph, kphToMps } from '../units.js';
+import { seededRandom } from '../numeric/seeded-random.js';
 
 export interface DemoFault {
   kind: 'early-braking' | 'late-hard-braking' | 'coasting' | 'early-lift';
@@ -28,23 +29,6 @@ export interface DemoDriverLap {
 
 /** Share of the reference's speed the driver carries everywhere (a little below the limit). */
 const PACE = 0.985;
-
-/** Seeded generator (mulberry32: 32-bit state, full period), and Gaussian draws by Box and Muller (1958). */
-export function seededRandom(seed: number): { uniform: () => number; gaussian: () => number } {
-  let state = seed >>> 0;
-  const uniform = () => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let t = state;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-  const gaussian = () => {
-    const u = Math.max(1e-12, uniform());
-    return Math.sqrt(-2 * Math.log(u)) * Math.cos(2 * Math.PI * uniform());
-  };
-  return { uniform, gaussian };
-}
 
 const wrap = (k: number, n: number) => ((k % n) + n) % n;
 
