@@ -1,32 +1,93 @@
-// The limits a car record must respect to be driven (positive mass, grip and power, a weight split inside the
-// axles, a friction-ellipse exponent of at least 1) for a car built or changed in code. A car file is held to the
-// same limits by its schema in io/read-car.ts; the reader's fuzz test checks that the two agree.
+// One validation of a car record, used by the car file reader and by the library's entry points alike: every
+// numeric field is a finite number inside its plausible range (car-ranges.ts), the enumerations hold one of their
+// values, and a gearbox model is complete and consistent. A script that passes a wrong record gets an InputError
+// naming the field, never a TypeError or a NaN lap.
 
 import { InputError } from '../errors.js';
 import type { Car } from './types.js';
+import { CAR_FIELD_RANGES, GEARING_RANGES, inRange, rangeText, type FieldRange } from './car-ranges.js';
 
-/** Checks a car record built or changed in code (a sweep, a what-if) against the same limits as a car file. */
-export function validateCar(car: Car, source: string): Car {
+const isRecord = (value: unknown): value is Record<string, unknown> =>
+  typeof value === 'object' && value !== null && !Array.isArray(value);
+
+/** The value at a dotted path, or undefined where any part of the path is missing. */
+function valueAt(record: Record<string, unknown>, dotted: string): unknown {
+  let value: unknown = record;
+  for (const key of dotted.split('.')) {
+    if (!isRecord(value)) return undefined;
+    value = value[key];
+  }
+  return value;
+}
+
+const shown = (value: unknown): string => (typeof value === 'string' ? JSON.stringify(value) : String(value));
+
+function checkNumber(value: unknown, r: FieldRange, name: string, problems: string[]): void {
+  if (inRange(value, r)) return;
+  if (typeof value !== 'number') problems.push(`field ${name} must be a number (got ${shown(value)})`);
+  else problems.push(`field ${name} must be ${rangeText(r)} (got ${value})`);
+}
+
+function checkGearing(gearing: unknown, problems: string[]): void {
+  if (gearing === null || gearing === undefined) return;
+  if (!isRecord(gearing)) {
+    problems.push('field powertrain.gearing must be a gearbox record or null');
+    return;
+  }
+  const { gearRatios, torqueCurve } = gearing;
+  if (!Array.isArray(gearRatios) || gearRatios.length === 0) problems.push('field powertrain.gearRatios needs a ratio');
+  else
+    gearRatios.forEach((ratio, k) =>
+      checkNumber(ratio, GEARING_RANGES.gearRatio, `powertrain.gearRatios.${k}`, problems),
+    );
+  checkNumber(gearing['finalDrive'], GEARING_RANGES.finalDrive, 'powertrain.finalDrive', problems);
+  checkNumber(gearing['wheelRadiusM'], GEARING_RANGES.wheelRadiusM, 'powertrain.wheelRadiusM', problems);
+  checkNumber(gearing['shiftTimeS'], GEARING_RANGES.shiftTimeS, 'powertrain.shiftTimeS', problems);
+  checkNumber(gearing['maxRpm'], GEARING_RANGES.maxRpm, 'powertrain.maxRpm', problems);
+  const rpm = isRecord(torqueCurve) ? torqueCurve['rpm'] : undefined;
+  const torque = isRecord(torqueCurve) ? torqueCurve['torqueNm'] : undefined;
+  if (!Array.isArray(rpm) || !Array.isArray(torque) || rpm.length < 2 || rpm.length !== torque.length) {
+    problems.push('field powertrain.torqueCurve needs rpm and torqueNm of the same length, at least 2 each');
+    return;
+  }
+  rpm.forEach((value, k) => checkNumber(value, GEARING_RANGES.rpm, `powertrain.torqueCurve.rpm.${k}`, problems));
+  torque.forEach((value, k) =>
+    checkNumber(value, GEARING_RANGES.torqueNm, `powertrain.torqueCurve.torqueNm.${k}`, problems),
+  );
+  for (let k = 1; k < rpm.length; k++) {
+    if (!((rpm[k] as number) > (rpm[k - 1] as number)))
+      problems.push(`field powertrain.torqueCurve.rpm.${k}: rpm must increase`);
+  }
+}
+
+function checkChoice(value: unknown, name: string, choices: readonly string[], problems: string[]): void {
+  if (typeof value !== 'string' || !choices.includes(value))
+    problems.push(`field ${name} must be one of ${choices.join(', ')} (got ${shown(value)})`);
+}
+
+/** Every problem of a car record, as message parts; empty when the record can be driven. */
+export function carProblems(car: unknown): string[] {
+  if (!isRecord(car)) return [`a car must be a record (got ${car === null ? 'null' : typeof car})`];
   const problems: string[] = [];
-  const requirePositive = (value: number, field: string) => {
-    if (!(Number.isFinite(value) && value > 0)) problems.push(`field ${field} must be positive (got ${value})`);
-  };
-  const requireNonNegative = (value: number, field: string) => {
-    if (!(Number.isFinite(value) && value >= 0)) problems.push(`field ${field} must not be negative (got ${value})`);
-  };
-  requirePositive(car.massKg, 'massKg');
-  requirePositive(car.tyre.muLong, 'tyre.muLong');
-  requirePositive(car.tyre.muLat, 'tyre.muLat');
-  requirePositive(car.powertrain.maxPowerW, 'powertrain.maxPowerW');
-  requireNonNegative(car.aero.dragAreaM2, 'aero.dragAreaM2');
-  requireNonNegative(car.fuel.massKg, 'fuel.massKg');
-  requireNonNegative(car.rollingResistanceCoeff, 'rollingResistanceCoeff');
-  if (!Number.isFinite(car.aero.liftAreaM2))
-    problems.push(`field aero.liftAreaM2 must be a number (got ${car.aero.liftAreaM2})`);
-  if (!(car.frontWeightFraction > 0 && car.frontWeightFraction < 1))
-    problems.push(`field frontWeightFraction must be between 0 and 1 (got ${car.frontWeightFraction})`);
-  if (!(car.tyre.ggExponent >= 1))
-    problems.push(`field tyre.ggExponent must be at least 1 (got ${car.tyre.ggExponent})`);
+  for (const group of ['tyre', 'aero', 'powertrain', 'brakes', 'fuel']) {
+    if (!isRecord(car[group])) problems.push(`field ${group} must be a record (got ${shown(car[group])})`);
+  }
+  if (problems.length > 0) return problems;
+  if (typeof car['name'] !== 'string') problems.push(`field name must be a string (got ${shown(car['name'])})`);
+  for (const r of CAR_FIELD_RANGES) {
+    const value = valueAt(car, r.field);
+    if (r.optional && (value === null || value === undefined)) continue;
+    checkNumber(value, r, r.field, problems);
+  }
+  checkChoice(car['model'], 'model', ['point-mass', 'bicycle'], problems);
+  checkChoice(valueAt(car, 'powertrain.drive'), 'powertrain.drive', ['rear', 'front', 'all'], problems);
+  checkGearing(valueAt(car, 'powertrain.gearing'), problems);
+  return problems;
+}
+
+/** Checks a car record (read from a file, built or changed in code) against the plausible ranges; throws one InputError naming every wrong field. */
+export function validateCar(car: Car, source: string): Car {
+  const problems = carProblems(car);
   if (problems.length > 0) throw new InputError(`${source}: ${problems.join('; ')}`);
   return car;
 }

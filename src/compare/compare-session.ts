@@ -2,6 +2,8 @@
 // envelope and on the driver's demonstrated one (fitted from the session unless given), and compare the lap
 // against the chosen reference. No I/O: the CLI, the demo and scripts call this with records already read.
 
+import { validateCar } from '../car/validate.js';
+import { validateTrackGrid } from '../track/validate-grid.js';
 import type { Ambient, Car } from '../car/types.js';
 import type { Envelope } from '../car/envelope.js';
 import type { LapResult } from '../solve/types.js';
@@ -95,6 +97,8 @@ export function compareSession(
   loggedSession: TelemetrySession,
   options: CompareSessionOptions,
 ): SessionComparison {
+  validateTrackGrid(track, 'compareSession: track');
+  validateCar(car, 'compareSession: car');
   // One derivation of a GPS-only log's accelerations, for the lap, the envelope fit and the report alike.
   const derivation = deriveSessionAccelerations(loggedSession);
   const session = derivation.session;

@@ -6,6 +6,7 @@ import { z } from 'zod';
 import { InputError } from '../errors.js';
 import type { Car } from '../car/types.js';
 import { bicycleIncompleteMessage } from '../car/bicycle-params.js';
+import { validateCar } from '../car/validate.js';
 import { originProblems, originSchema, uncertaintyOf, uncertaintySchema } from './car-uncertainty.js';
 
 const positive = z.number().finite().positive();
@@ -179,7 +180,7 @@ export function carFromJson(value: unknown, source: string): Car {
   }
   const incomplete = car.model === 'bicycle' ? bicycleIncompleteMessage(car) : null;
   if (incomplete) throw new InputError(`${source}: ${incomplete}`);
-  return car;
+  return validateCar(car, source);
 }
 
 export function parseCarJson(text: string, source: string): Car {

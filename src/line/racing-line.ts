@@ -12,6 +12,8 @@ import { linePath, linePositions } from './geometry.js';
 import { minimumCurvatureOffsets } from './min-curvature.js';
 import { driveLine, minimumTimeOffsets } from './min-time.js';
 import type { LineGeometry, LineObjective, RacingLine } from './types.js';
+import { validateCar } from '../car/validate.js';
+import { validateTrackGrid } from '../track/validate-grid.js';
 
 export interface RacingLineOptions {
   /** 'time' (default) or 'curvature'. */
@@ -55,6 +57,8 @@ export function lineFromOffsets(track: TrackGrid, offsetM: Float64Array): LineGe
 }
 
 export function racingLine(track: TrackGrid, car: Car, options: RacingLineOptions = {}): RacingLine {
+  validateTrackGrid(track, 'racingLine: track');
+  validateCar(car, 'racingLine: car');
   const objective = options.objective ?? 'time';
   const marginM = options.marginM ?? defaultMarginM(car);
   const corridor = corridorOf(track, marginM);

@@ -14,6 +14,8 @@ import { cornerLayoutOf } from '../track/corner-layout.js';
 import { zonesByCorner } from './corner-zones.js';
 import { roadProfileOf } from '../track/road-profile.js';
 import { roadTerms } from './road-terms.js';
+import { validateCar } from '../car/validate.js';
+import { validatePath, validateTrackGrid } from '../track/validate-grid.js';
 
 export interface SimulateOptions {
   /** Air conditions; ISA sea level when omitted. */
@@ -33,12 +35,12 @@ function roadTermsOf(track: TrackGrid) {
 }
 
 export function simulate(track: TrackGrid, car: Car, options: SimulateOptions = {}): LapResult {
+  validateTrackGrid(track, 'simulate: track');
+  validateCar(car, 'simulate: car');
   const ambient = options.ambient ?? ambientFrom();
   const envelope = options.envelope ?? buildEnvelope(car, ambient);
   const path = options.path ?? centrelinePath(track);
-  if (path.curvaturePerM.length !== track.distanceM.length) {
-    throw new Error(`path has ${path.curvaturePerM.length} samples but the track grid has ${track.distanceM.length}`);
-  }
+  if (options.path) validatePath(options.path, track.distanceM.length, 'simulate: options.path');
   const profile = solveSpeedProfile(path, envelope, {
     startSpeedMps: options.startSpeedMps ?? 0,
     shiftTimeS: car.powertrain.gearing?.shiftTimeS ?? 0,

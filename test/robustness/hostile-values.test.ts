@@ -5,7 +5,7 @@
 import { describe, expect, it } from 'vitest';
 import { parseTelemetryText } from '../../src/io/telemetry/read-telemetry.js';
 import { nmeaChecksum } from '../../src/io/telemetry/nmea.js';
-import { InputError } from '../../src/errors.js';
+import { inputErrorMessage as messageOf } from '../helpers/input-error.js';
 
 function sentence(body: string): string {
   return `$${body}*${nmeaChecksum(body).toString(16).toUpperCase().padStart(2, '0')}`;
@@ -20,17 +20,6 @@ function nmea(second: { lat: string; ns: string; lon: string; ew: string; knots:
     fix('091534.00', second.lat, second.ns, second.lon, second.ew, second.knots),
     fix('091535.00', '2824.72075', 'N', '08122.77114', 'W', '40.0'),
   ].join('\n');
-}
-
-function messageOf(run: () => unknown): string {
-  try {
-    run();
-  } catch (error) {
-    expect(error).toBeInstanceOf(InputError);
-    expect((error as Error).message.split('\n')).toHaveLength(1);
-    return (error as Error).message;
-  }
-  throw new Error('expected an InputError');
 }
 
 const read = (text: string, source: string) => () => parseTelemetryText(text, source, { columns: {} });

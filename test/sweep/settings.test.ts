@@ -76,9 +76,11 @@ describe('--set values', () => {
   });
 
   it('refuses a change that makes the car invalid', () => {
-    expect(inputErrorOf(() => applySettings(base, [parseSetting('massKg=-1500')]))).toMatch(/massKg must be positive/);
+    expect(inputErrorOf(() => applySettings(base, [parseSetting('massKg=-1500')]))).toMatch(
+      /massKg must be between 20 and 20000 kg/,
+    );
     expect(inputErrorOf(() => applySettings(base, [parseSetting('fuel.massKg=-40')]))).toMatch(
-      /fuel.massKg must not be negative/,
+      /fuel.massKg must be between 0 and 2000 kg/,
     );
     expect(inputErrorOf(() => applySettings(base, [parseSetting('airTempC=95')]))).toMatch(/airTempC/);
     expect(inputErrorOf(() => parseSetting('massKg=heavy'))).toMatch(/not a number/);
@@ -116,7 +118,7 @@ describe('--vary ranges', () => {
 
   it('refuses a sweep that reaches an invalid car before running anything', () => {
     expect(inputErrorOf(() => planSweep(base, [parseVariation('massKg=0:100:50')], 'grid'))).toMatch(
-      /massKg must be positive/,
+      /massKg must be between 20 and 20000 kg/,
     );
   });
 
