@@ -66,7 +66,7 @@ describe('reflap whatif', () => {
   it('refuses bad changes with one line and exit code 2', () => {
     for (const [args, pattern] of [
       [['--set', 'tyre.mulat=1.3'], /did you mean 'tyre.muLat'/],
-      [['--set', 'massKg=-700'], /massKg must be positive/],
+      [['--set', 'massKg=-700'], /massKg must be between 20 and 20000 kg/],
       [['--set', 'massKg'], /FIELD=VALUE/],
     ] as const) {
       const run = runCli(['whatif', '--track', loop, '--car', car, ...args]);
@@ -193,7 +193,7 @@ describe('reflap sweep', () => {
       [['--vary', 'massKg=600:640:0'], /step is zero/],
       [['--vary', 'massKg=600:640:-10'], /wrong sign/],
       [['--vary', 'tyre.mu=1:1.2:0.1'], /did you mean 'tyre.muL(at|ong)'/],
-      [['--vary', 'massKg=0:40:20'], /massKg must be positive/],
+      [['--vary', 'massKg=0:40:20'], /massKg must be between 20 and 20000 kg/],
       [['--vary', 'massKg=600:640:20', '--shard', '4/3'], /between 1 and 3/],
     ] as const) {
       const run = runCli(['sweep', '--track', loop, '--car', car, ...args, '--out', out]);
