@@ -46,16 +46,20 @@ export function compareFromRecords(
   ambient: Ambient,
   session: TelemetrySession,
   values: Partial<CompareValues>,
+  /** The reference's path where the caller has already resolved `values.line` (the demo drives its own line). */
+  resolved?: ReferenceLine,
 ): CliComparison {
   const lap = values.lap !== undefined ? lapOption(values as TelemetryOptionValues) : undefined;
   const startFinish = values.startFinish !== undefined ? startFinishOption(values as TelemetryOptionValues) : undefined;
   const envelopeRecord = values.envelope ? readEnvelopeFile(values.envelope) : undefined;
   const start = values.track ? startSpeedMps(values as TrackOptionValues) : 0;
   // The line is optimised on the envelope the reference drives: the demonstrated one where --envelope gives it.
-  const reference = resolveReferenceLine(track, car, ambient, values.line, {
-    startSpeedMps: start,
-    ...(envelopeRecord ? { envelope: demonstratedEnvelope(envelopeRecord) } : {}),
-  });
+  const reference =
+    resolved ??
+    resolveReferenceLine(track, car, ambient, values.line, {
+      startSpeedMps: start,
+      ...(envelopeRecord ? { envelope: demonstratedEnvelope(envelopeRecord) } : {}),
+    });
   const comparison = compareSession(track, car, session, {
     ambient,
     ...(lap !== undefined ? { lap } : {}),

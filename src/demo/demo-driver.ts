@@ -1,10 +1,12 @@
-// An invented driver for the demo: the car's own reference lap driven a little below the limit, with four faults
-// a coach would recognise (brakes too early at one corner, too late and too hard at another, coasts through a
-// third, lifts early at a fast one), logged at 20 Hz with sensor noise and GPS noise (seeded, reproducible).
+// An invented driver for the demo: a line of its own that uses the track (the racing line's shape, not all of its
+// width), the car's lap on that line driven a little below the limit, with four faults a coach
+// would recognise (brakes too early at one corner, too late and too hard at another, coasts through a third, lifts
+// early at a fast one), logged at 20 Hz with sensor noise and GPS noise (seeded, reproducible).
 
 import type { Envelope } from '../car/envelope.js';
 import type { LapResult } from '../solve/types.js';
-import type { TrackGrid } from '../track/types.js';
+import type { Path, TrackGrid } from '../track/types.js';
+import { linePath, linePositions } from '../line/geometry.js';
 import { localPlane } from '../track/geodesy.js';
 import type { CornerSpan } from '../track/corners.js';
 import { cornerLayoutOf } from '../track/corner-layout.js';
@@ -17,6 +19,28 @@ export interface DemoFault {
   cornerName: string | null;
 }
 
+/** Where the invented driver drives, on the track's grid. */
+export interface DemoDriverPath extends Path {
+  /** Lateral offset from the centreline, m, positive to the left. */
+  offsetM: Float64Array;
+  xM: Float64Array;
+  yM: Float64Array;
+}
+
+/**
+ * Share of the racing line's offsets the driver uses: towards the outside before a corner and towards the apex,
+ * but never as far as the line does, so the driver's path is tighter everywhere and slower through a chicane that
+ * the line straightens (an invented habit, not a measured one).
+ */
+const LINE_SHARE = 0.92;
+
+/** The driver's own line from a racing line's offsets; without one (a track without widths) the centreline. */
+export function demoDriverPath(track: TrackGrid, lineOffsetM: Float64Array | undefined): DemoDriverPath {
+  const offsetM = new Float64Array(track.distanceM.length);
+  if (lineOffsetM) for (let i = 0; i < offsetM.length; i++) offsetM[i] = LINE_SHARE * lineOffsetM[i]!;
+  return { ...linePath(track, offsetM), ...linePositions(track, offsetM), offsetM };
+}
+
 export interface DemoDriverLap {
   /** On the track grid: speed, pedals (0-1), acceleration and time, as the invented driver drives them. */
   speedMps: Float64Array;
@@ -25,6 +49,8 @@ export interface DemoDriverLap {
   timeS: Float64Array;
   lapTimeS: number;
   faults: DemoFault[];
+  /** The driver's own line. */
+  path: DemoDriverPath;
 }
 
 /** Share of the reference's speed the driver carries everywhere (a little below the limit). */
@@ -32,10 +58,16 @@ const PACE = 0.985;
 
 const wrap = (k: number, n: number) => ((k % n) + n) % n;
 
-/** The driver's lap on the grid, made from the reference lap by the four faults. */
-export function demoDriverLap(track: TrackGrid, reference: LapResult, envelope: Envelope): DemoDriverLap {
+/** The driver's lap on the grid, made by the four faults from the car's lap on the driver's line (`reference`). */
+export function demoDriverLap(
+  track: TrackGrid,
+  reference: LapResult,
+  envelope: Envelope,
+  path: DemoDriverPath = demoDriverPath(track, undefined),
+): DemoDriverLap {
   const n = track.distanceM.length;
   const step = track.stepM;
+  const segmentM = path.segmentLengthM;
   const ref = reference.trace;
   const speed = ref.speedMps.map((v) => v * PACE);
   const coastMask = new Uint8Array(n);
@@ -65,13 +97,14 @@ export function demoDriverLap(track: TrackGrid, reference: LapResult, envelope: 
       zone.startIndex - Math.round(25 / step),
       unwrapAfter(zone.minSpeedIndex, zone.startIndex, n),
       0.9 * meanDecel(zone),
-      step,
+      segmentM,
       n,
     );
     note('early-braking', corner);
   }
   if (braked[1]) {
-    // Too late and too hard: 12 m after the reference, 15 % beyond the car's braking limit, slowing 8 km/h too far.
+    // Too late and too hard: 12 m after the reference, 15 % beyond the car's braking limit (at the lateral load of the
+    // driver's line), slowing 8 km/h too far.
     const { corner, zone } = braked[1];
     const floor = zone.minSpeedMps * PACE - kphToMps(8);
     const end = lateBraking(
@@ -79,12 +112,12 @@ export function demoDriverLap(track: TrackGrid, reference: LapResult, envelope: 
       zone.startIndex,
       unwrapAfter(zone.minSpeedIndex, zone.startIndex, n),
       Math.round(12 / step),
-      (v) => 1.15 * envelope.brakeLimitMps2(v, 0),
+      (v, k) => 1.15 * envelope.brakeLimitMps2(v, v * v * path.curvaturePerM[k]!),
       floor,
-      step,
+      segmentM,
       n,
     );
-    recoverFrom(speed, end, envelope, track, n);
+    recoverFrom(speed, end, envelope, path, n);
     note('late-hard-braking', corner);
   }
   if (braked[2]) {
@@ -98,12 +131,12 @@ export function demoDriverLap(track: TrackGrid, reference: LapResult, envelope: 
       speed[k] = Math.min(speed[k]!, v);
       coastMask[k] = 1;
       const decel = envelope.coastDecelMps2(v);
-      const next = Math.sqrt(Math.max(1, v * v - 2 * decel * step));
-      elapsed += (2 * step) / (v + next);
+      const next = Math.sqrt(Math.max(1, v * v - 2 * decel * segmentM[k]!));
+      elapsed += (2 * segmentM[k]!) / (v + next);
       v = next;
       i++;
     }
-    recoverFrom(speed, i - 1, envelope, track, n);
+    recoverFrom(speed, i - 1, envelope, path, n);
     note('coasting', corner);
   }
   const liftCorner = fast.find((corner) => ref.speedMps[corner.apexIndex]! > 25);
@@ -116,19 +149,19 @@ export function demoDriverLap(track: TrackGrid, reference: LapResult, envelope: 
       v = Math.min(v, speed[k]!);
       speed[k] = v;
       coastMask[k] = 1;
-      v = Math.sqrt(Math.max(1, v * v - 2 * (envelope.coastDecelMps2(v) + 0.8) * step));
+      v = Math.sqrt(Math.max(1, v * v - 2 * (envelope.coastDecelMps2(v) + 0.8) * segmentM[k]!));
     }
-    recoverFrom(speed, liftCorner.apexIndex, envelope, track, n);
+    recoverFrom(speed, liftCorner.apexIndex, envelope, path, n);
     note('early-lift', liftCorner);
   }
-  const { throttle, brake } = pedalsFor(speed, track, envelope, coastMask);
+  const { throttle, brake } = pedalsFor(speed, path, envelope, coastMask);
   const timeS = new Float64Array(n);
   let elapsed = 0;
   for (let i = 0; i < n; i++) {
     timeS[i] = elapsed;
-    elapsed += (2 * step) / (speed[i]! + speed[(i + 1) % n]!);
+    elapsed += (2 * segmentM[i]!) / (speed[i]! + speed[(i + 1) % n]!);
   }
-  return { speedMps: speed, throttle, brake, timeS, lapTimeS: elapsed, faults };
+  return { speedMps: speed, throttle, brake, timeS, lapTimeS: elapsed, faults, path };
 }
 
 function near(index: number, corner: CornerSpan, n: number): boolean {
@@ -145,7 +178,7 @@ function earlyBraking(
   start: number,
   minIndex: number,
   decelMps2: number,
-  step: number,
+  segmentM: Float64Array,
   n: number,
 ): void {
   const floor = speed[wrap(minIndex, n)]!;
@@ -153,7 +186,7 @@ function earlyBraking(
   for (let i = start; i <= minIndex; i++) {
     const k = wrap(i, n);
     speed[k] = Math.min(speed[k]!, Math.max(floor, v));
-    v = Math.sqrt(Math.max(0, v * v - 2 * decelMps2 * step));
+    v = Math.sqrt(Math.max(0, v * v - 2 * decelMps2 * segmentM[k]!));
   }
 }
 
@@ -164,9 +197,9 @@ function lateBraking(
   start: number,
   minIndex: number,
   lateSamples: number,
-  decelMps2: (speedMps: number) => number,
+  decelMps2: (speedMps: number, index: number) => number,
   floor: number,
-  step: number,
+  segmentM: Float64Array,
   n: number,
 ): number {
   const peak = speed[wrap(start, n)]!;
@@ -175,7 +208,7 @@ function lateBraking(
   let v = peak;
   for (; v > floor; i++) {
     speed[wrap(i, n)] = Math.max(floor, v);
-    v = Math.sqrt(Math.max(0, v * v - 2 * decelMps2(v) * step));
+    v = Math.sqrt(Math.max(0, v * v - 2 * decelMps2(v, wrap(i, n)) * segmentM[wrap(i, n)]!));
   }
   for (; i <= minIndex; i++) speed[wrap(i, n)] = floor;
   speed[wrap(i, n)] = floor;
@@ -183,13 +216,13 @@ function lateBraking(
 }
 
 /** From index `from`, accelerates on the car's envelope until the speed meets the driver's profile again. */
-function recoverFrom(speed: Float64Array, from: number, envelope: Envelope, track: TrackGrid, n: number): void {
+function recoverFrom(speed: Float64Array, from: number, envelope: Envelope, path: Path, n: number): void {
   let v = speed[wrap(from, n)]!;
   for (let i = from + 1; i < from + n; i++) {
     const k = wrap(i, n);
-    const ay = v * v * track.curvaturePerM[k]!;
+    const ay = v * v * path.curvaturePerM[k]!;
     const a = Math.max(0, envelope.accelLimitMps2(v, ay)) * 0.95;
-    v = Math.sqrt(v * v + 2 * a * track.stepM);
+    v = Math.sqrt(v * v + 2 * a * path.segmentLengthM[wrap(k - 1, n)]!);
     if (v >= speed[k]!) return;
     speed[k] = v;
   }
@@ -198,7 +231,7 @@ function recoverFrom(speed: Float64Array, from: number, envelope: Envelope, trac
 /** Throttle and brake shares that produce the speed profile on this envelope (none where the driver coasts). */
 function pedalsFor(
   speed: Float64Array,
-  track: TrackGrid,
+  path: Path,
   envelope: Envelope,
   coastMask: Uint8Array,
 ): { throttle: Float64Array; brake: Float64Array } {
@@ -209,8 +242,8 @@ function pedalsFor(
     if (coastMask[i]) continue;
     const v = speed[i]!;
     const next = speed[(i + 1) % n]!;
-    const ax = (next * next - v * v) / (2 * track.stepM);
-    const ay = v * v * track.curvaturePerM[i]!;
+    const ax = (next * next - v * v) / (2 * path.segmentLengthM[i]!);
+    const ay = v * v * path.curvaturePerM[i]!;
     const tyreAx = ax + envelope.coastDecelMps2(v);
     if (tyreAx >= 0)
       throttle[i] = Math.min(1, tyreAx / Math.max(1e-6, envelope.accelLimitMps2(v, ay) + envelope.coastDecelMps2(v)));
@@ -273,13 +306,13 @@ export function demoLogCsv(track: TrackGrid, lap: DemoDriverLap, options: DemoLo
     const at = s + ((t - ta) / Math.max(1e-9, tb - ta)) * step;
     const v = sample(lap.speedMps, at);
     const vNext = sample(lap.speedMps, at + step);
-    const ax = (vNext * vNext - v * v) / (2 * step);
-    const ay = v * v * sample(track.curvaturePerM, at);
+    const ax = (vNext * vNext - v * v) / (2 * sample(lap.path.segmentLengthM, at));
+    const ay = v * v * sample(lap.path.curvaturePerM, at);
     // GPS: a slowly wandering bias plus white noise, about a metre in all (a consumer receiver, from memory).
     biasX = 0.98 * biasX + 0.1 * gaussian();
     biasY = 0.98 * biasY + 0.1 * gaussian();
-    const x = sample(track.xM, at) + biasX + 0.4 * gaussian();
-    const y = sample(track.yM, at) + biasY + 0.4 * gaussian();
+    const x = sample(lap.path.xM, at) + biasX + 0.4 * gaussian();
+    const y = sample(lap.path.yM, at) + biasY + 0.4 * gaussian();
     plane.toGeodetic(x, y, geo);
     const throttlePct = clampPct(sample(lap.throttle, at) * 100 + 0.4 * gaussian());
     const brakeShare = sample(lap.brake, at);

@@ -46,4 +46,21 @@ describe('reflap demo', () => {
     expect(Number(row(cornerOf('coasting')).coastingS)).toBeGreaterThan(1);
     expect(run.stdout).toMatch(/Where the time is/);
   });
+
+  it('compares a racing-line reference with a driver who drives a line of their own', () => {
+    expect(run.stdout).toMatch(/Reference path: the minimum-time racing line/);
+    // Findings of every kind the driver model's faults give (src/compare/demo-driver.ts): the wording is the
+    // findings' own (src/compare/findings.ts), the kinds are the four faults and what they do to the corner.
+    const findings = run.stdout.slice(run.stdout.indexOf('Where the time is'));
+    for (const kind of [
+      /braking begins \d+ m before the reference/,
+      /braking begins \d+ m after the reference at \d+ km\/h and too hard/,
+      /the lift comes \d+ m before the reference's braking point/,
+      /s spent coasting with neither pedal pressed/,
+      /the slowest point is \d+ km\/h under the reference's/,
+      /the slowest point falls \d+ m (before|after) the apex/,
+      /grip is left unused over \d+ m/,
+    ])
+      expect(findings).toMatch(kind);
+  });
 });

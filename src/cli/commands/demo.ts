@@ -9,13 +9,13 @@ import { loadCar, loadTrack, numberOption } from '../options.js';
 import { outputBatch } from '../output.js';
 import { simulate } from '../../solve/simulate.js';
 import { buildEnvelope } from '../../car/build-envelope.js';
-import { demoDriverLap, demoLogCsv, DEFAULT_DEMO_LOG } from '../../demo/demo-driver.js';
+import { demoDriverLap, demoDriverPath, demoLogCsv, DEFAULT_DEMO_LOG } from '../../demo/demo-driver.js';
 import { parseTelemetryText } from '../../io/telemetry/read-telemetry.js';
 import { compareSummaryText } from '../../report/compare-summary.js';
 import { compareFromRecords, comparisonFiles } from '../compare-records.js';
 import { addReportOptions, addReportOutputs, reportWrittenText, type ReportOptionValues } from '../html-options.js';
 import { sessionReportInput } from '../../report/html/from-session.js';
-import { withReferencePath } from '../reference-path.js';
+import { resolveReferenceLine, withReferencePath } from '../reference-path.js';
 import { addUnitsOption, unitsOf, type UnitsOptionValues } from '../units-option.js';
 
 export const DEMO_TRACK = 'tracks/velmora-downs.json';
@@ -68,13 +68,16 @@ export function runDemo(values: DemoValues): void {
   const track = loadTrack({ track: trackFile });
   const { car, ambient } = loadCar({ car: carFile });
   const envelope = buildEnvelope(car, ambient);
-  const reference = simulate(track, car, { ambient, envelope });
-  const lap = demoDriverLap(track, reference, envelope);
+  // The reference drives the racing line (the default); the invented driver a line of its own that uses the track.
+  const referencePath = resolveReferenceLine(track, car, ambient, undefined, { envelope });
+  const driverPath = demoDriverPath(track, referencePath.offsetM);
+  const onDriverLine = simulate(track, car, { ambient, envelope, path: driverPath });
+  const lap = demoDriverLap(track, onDriverLine, envelope, driverPath);
   const seed = numberOption(values.seed, '--seed', DEFAULT_DEMO_LOG.seed);
   const csv = demoLogCsv(track, lap, { ...DEFAULT_DEMO_LOG, seed });
   const logFile = path.join(values.out, 'demo-lap.csv');
   const session = parseTelemetryText(csv, logFile, { columns: {} });
-  const comparison = compareFromRecords(track, car, ambient, session, { line: 'centreline' });
+  const comparison = compareFromRecords(track, car, ambient, session, {}, referencePath);
   const outputs = outputBatch([trackFile, carFile]);
   outputs.add(logFile, csv);
   for (const { file, content } of comparisonFiles(comparison, values.out, units)) outputs.add(file, content);
@@ -93,6 +96,7 @@ export function runDemo(values: DemoValues): void {
     .join('; ');
   process.stdout.write(
     `Demo: an invented driver in the ${car.name} on ${track.name}, logged at ${DEFAULT_DEMO_LOG.rateHz} Hz with sensor and GPS noise.\n` +
+      `The driver drives a line of its own that uses the track (the racing line's shape, not quite all its width).\n` +
       `The driver model's faults: ${faults}.\n` +
       `Log written to ${logFile}; aligned traces and corner table in ${values.out}/.\n\n`,
   );
