@@ -15,8 +15,13 @@ import { buildEnvelope } from '../src/car/build-envelope.js';
 import { calibrationSamples } from '../src/calibrate/samples.js';
 import { calibrateCar } from '../src/calibrate/calibrate-car.js';
 import { trackFromSegments } from '../src/track/segments.js';
-import { simulate } from '../src/solve/simulate.js';
-import { demoDriverLap, demoLogCsv, DEFAULT_DEMO_LOG } from '../src/demo/demo-driver.js';
+import {
+  demoDriverLap,
+  demoDriverPath,
+  demoDriverReference,
+  demoLogCsv,
+  DEFAULT_DEMO_LOG,
+} from '../src/demo/demo-driver.js';
 import { compareSession } from '../src/compare/compare-session.js';
 import { uncertainComparison } from '../src/uncertainty/uncertain-reference.js';
 import { benchmarkCircuitSegments } from './simulate.bench.js';
@@ -92,7 +97,11 @@ async function uncertaintyBench(dir: string): Promise<void> {
   const log = path.join(dir, 'bench-lap.csv');
   writeFileSync(
     log,
-    demoLogCsv(track, demoDriverLap(track, simulate(track, car, { ambient, envelope }), envelope), DEFAULT_DEMO_LOG),
+    demoLogCsv(
+      track,
+      demoDriverLap(track, demoDriverReference(track, car, ambient, demoDriverPath(track, undefined)), envelope),
+      DEFAULT_DEMO_LOG,
+    ),
   );
   const wall: number[] = [];
   const cpu: number[] = [];

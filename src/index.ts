@@ -206,7 +206,15 @@ export {
   type EnvelopeBand,
 } from './car/demonstrated-envelope.js';
 export { readEnvelopeFile, parseEnvelopeJson } from './io/read-envelope.js';
-export { demoDriverLap, demoLogCsv, DEFAULT_DEMO_LOG, type DemoDriverLap, type DemoFault } from './demo/demo-driver.js';
+export {
+  demoDriverLap,
+  demoDriverPath,
+  demoDriverReference,
+  demoLogCsv,
+  DEFAULT_DEMO_LOG,
+  type DemoDriverLap,
+  type DemoFault,
+} from './demo/demo-driver.js';
 export { seededRandom } from './numeric/seeded-random.js';
 export { compareSummaryText, compareSummaryJson, alignedTracesCsv } from './report/compare-summary.js';
 

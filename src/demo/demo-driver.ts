@@ -1,9 +1,11 @@
 // An invented driver for the demo: a line of its own that uses the track (the racing line's shape, not all of its
-// width), the car's lap on that line driven a little below the limit, with four faults a coach
+// width), the car's lap on that line driven a little inside the tyres' grip, with four faults a coach
 // would recognise (brakes too early at one corner, too late and too hard at another, coasts through a third, lifts
 // early at a fast one), logged at 20 Hz with sensor noise and GPS noise (seeded, reproducible).
 
 import type { Envelope } from '../car/envelope.js';
+import type { Ambient, Car } from '../car/types.js';
+import { simulate } from '../solve/simulate.js';
 import type { LapResult } from '../solve/types.js';
 import type { Path, TrackGrid } from '../track/types.js';
 import { linePath, linePositions } from '../line/geometry.js';
@@ -53,12 +55,21 @@ export interface DemoDriverLap {
   path: DemoDriverPath;
 }
 
-/** Share of the reference's speed the driver carries everywhere (a little below the limit). */
-const PACE = 0.985;
+/**
+ * Share of the tyres' grip the driver uses (a little below the limit): 0.985^2, so the corners go at 98.5 % of the
+ * car's speed on the driver's line, while the straights are the car's own full-throttle acceleration.
+ */
+export const DEMO_GRIP_SHARE = 0.985 ** 2;
+
+/** The car's lap on the driver's line with the driver's share of the grip: what the faults are made from. */
+export function demoDriverReference(track: TrackGrid, car: Car, ambient: Ambient, path: DemoDriverPath): LapResult {
+  const tyre = { ...car.tyre, muLat: car.tyre.muLat * DEMO_GRIP_SHARE, muLong: car.tyre.muLong * DEMO_GRIP_SHARE };
+  return simulate(track, { ...car, tyre }, { ambient, path });
+}
 
 const wrap = (k: number, n: number) => ((k % n) + n) % n;
 
-/** The driver's lap on the grid, made by the four faults from the car's lap on the driver's line (`reference`). */
+/** The driver's lap on the grid, made by the four faults from its lap on its own line (demoDriverReference). */
 export function demoDriverLap(
   track: TrackGrid,
   reference: LapResult,
@@ -69,7 +80,7 @@ export function demoDriverLap(
   const step = track.stepM;
   const segmentM = path.segmentLengthM;
   const ref = reference.trace;
-  const speed = ref.speedMps.map((v) => v * PACE);
+  const speed = ref.speedMps.slice();
   const coastMask = new Uint8Array(n);
   const corners = cornerLayoutOf(track).corners;
   const zones = reference.brakingZones;
@@ -90,13 +101,13 @@ export function demoDriverLap(
   const meanDecel = (zone: (typeof zones)[number]) =>
     Math.max(2, (zone.entrySpeedMps ** 2 - zone.minSpeedMps ** 2) / (2 * Math.max(step, zone.brakingLengthM)));
   if (braked[0]) {
-    // Too early: the braking starts 25 m before the reference's, at 90 % of its deceleration, then holds the speed.
+    // Too early: the braking starts 45 m before the reference's, at 80 % of its deceleration, then holds the speed.
     const { corner, zone } = braked[0];
     earlyBraking(
       speed,
-      zone.startIndex - Math.round(25 / step),
+      zone.startIndex - Math.round(45 / step),
       unwrapAfter(zone.minSpeedIndex, zone.startIndex, n),
-      0.9 * meanDecel(zone),
+      0.8 * meanDecel(zone),
       segmentM,
       n,
     );
@@ -106,7 +117,7 @@ export function demoDriverLap(
     // Too late and too hard: 12 m after the reference, 15 % beyond the car's braking limit (at the lateral load of the
     // driver's line), slowing 8 km/h too far.
     const { corner, zone } = braked[1];
-    const floor = zone.minSpeedMps * PACE - kphToMps(8);
+    const floor = zone.minSpeedMps - kphToMps(8);
     const end = lateBraking(
       speed,
       zone.startIndex,

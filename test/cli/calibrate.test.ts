@@ -6,7 +6,17 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { projectRoot, runCli } from '../helpers/cli.js';
-import { parseCarJson } from '../../src/io/read-car.js';
+import { parseCarJson, readCarFile } from '../../src/io/read-car.js';
+import { readTrackFile } from '../../src/io/read-track.js';
+import { ambientFrom } from '../../src/car/ambient.js';
+import { buildEnvelope } from '../../src/car/build-envelope.js';
+import {
+  demoDriverLap,
+  demoDriverPath,
+  demoDriverReference,
+  demoLogCsv,
+  DEFAULT_DEMO_LOG,
+} from '../../src/demo/demo-driver.js';
 
 const work = mkdtempSync(path.join(tmpdir(), 'reflap-calibrate-'));
 const log = path.join(work, 'demo', 'demo-lap.csv');
@@ -37,8 +47,8 @@ describe('reflap calibrate', () => {
       expect(fitted.uncertainty!.sd[f.field]).toBe(f.sd);
       expect(fitted.origin![f.field]).toMatch(/^fitted from /);
     }
-    // The demo driver drives the Tarnfell's own reference at 98.5 % of its speed (src/demo/demo-driver.ts), so the
-    // grip the log shows is about 0.985^2 of the car file's 1.5: the fit must land there, not at the guess of 1.3.
+    // The demo driver uses 0.985^2 of the Tarnfell's grip (src/demo/demo-driver.ts), so the grip the log shows is
+    // about 0.985^2 of the car file's 1.5: the fit must land there, not at the guess of 1.3.
     const muLat = summary.fitted.find((f: { field: string }) => f.field === 'tyre.muLat');
     expect(Math.abs(muLat.value - 1.5 * 0.985 ** 2)).toBeLessThan(3 * muLat.sd + 0.02);
     // Drag area is the car file's 0.85 (the demo driver's full-throttle stretches follow the car's own).
@@ -55,7 +65,20 @@ describe('reflap calibrate', () => {
   });
 
   it('needs --track for a log without accelerometer channels, and works with it', () => {
-    const csv = readFileSync(log, 'utf8').split('\n');
+    // Without an accelerometer the lateral acceleration is v^2 times the centreline's curvature, which holds for a
+    // driver on the centreline (docs/calibrate.md measures what it does to one who uses the track): this log's
+    // invented driver is the demo's, driving the centreline.
+    const demoTrack = readTrackFile(track);
+    const demoCar = readCarFile(path.join(projectRoot, 'cars', 'tarnfell-gt.json'));
+    const ambient = ambientFrom();
+    const onCentreline = demoDriverPath(demoTrack, undefined);
+    const centrelineLap = demoDriverLap(
+      demoTrack,
+      demoDriverReference(demoTrack, demoCar, ambient, onCentreline),
+      buildEnvelope(demoCar, ambient),
+      onCentreline,
+    );
+    const csv = demoLogCsv(demoTrack, centrelineLap, DEFAULT_DEMO_LOG).split('\n');
     const header = csv[0]!.split(',');
     const keep = header.map((name, i) => (name === 'ax_g' || name === 'ay_g' ? -1 : i)).filter((i) => i >= 0);
     const gpsOnly = path.join(work, 'gps-only.csv');

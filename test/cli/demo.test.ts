@@ -28,7 +28,7 @@ describe('reflap demo', () => {
     expect(run.stdout).toMatch(/Note: the invented session has an out lap and an in lap around the timed lap/);
   });
 
-  it("finds the driver model's faults: 25 m early braking, 12 m late braking, coasting", () => {
+  it("finds the driver model's faults: 45 m early braking, 12 m late braking, coasting", () => {
     // The expected figures are the ones the driver model was built with (src/demo/demo-driver.ts).
     const corners = readFileSync(path.join(folder, 'out', 'corners.csv'), 'utf8')
       .trim()
@@ -40,8 +40,8 @@ describe('reflap demo', () => {
     const faultLine = /faults: (.*)\./.exec(run.stdout)![1]!;
     const cornerOf = (kind: string) => Number(new RegExp(`${kind} at corner (\\d+)`).exec(faultLine)![1]);
     const row = (id: number) => rows.find((r) => Number(r.id) === id)!;
-    expect(Number(row(cornerOf('early braking')).brakingPointDeltaM)).toBeGreaterThan(-30);
-    expect(Number(row(cornerOf('early braking')).brakingPointDeltaM)).toBeLessThan(-20);
+    expect(Number(row(cornerOf('early braking')).brakingPointDeltaM)).toBeGreaterThan(-50);
+    expect(Number(row(cornerOf('early braking')).brakingPointDeltaM)).toBeLessThan(-40);
     expect(Number(row(cornerOf('late hard braking')).brakingPointDeltaM)).toBeGreaterThan(7);
     expect(Number(row(cornerOf('coasting')).coastingS)).toBeGreaterThan(1);
     expect(run.stdout).toMatch(/Where the time is/);
@@ -49,7 +49,7 @@ describe('reflap demo', () => {
 
   it('compares a racing-line reference with a driver who drives a line of their own', () => {
     expect(run.stdout).toMatch(/Reference path: the minimum-time racing line/);
-    // Findings of every kind the driver model's faults give (src/compare/demo-driver.ts): the wording is the
+    // Findings of every kind the driver model's faults give (src/demo/demo-driver.ts): the wording is the
     // findings' own (src/compare/findings.ts), the kinds are the four faults and what they do to the corner.
     const findings = run.stdout.slice(run.stdout.indexOf('Where the time is'));
     for (const kind of [

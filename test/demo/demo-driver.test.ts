@@ -7,7 +7,13 @@ import { racingLine } from '../../src/line/racing-line.js';
 import { simulate } from '../../src/solve/simulate.js';
 import { buildEnvelope } from '../../src/car/build-envelope.js';
 import { ambientFrom } from '../../src/car/ambient.js';
-import { demoDriverLap, demoDriverPath, demoLogCsv, DEFAULT_DEMO_LOG } from '../../src/demo/demo-driver.js';
+import {
+  demoDriverLap,
+  demoDriverPath,
+  demoDriverReference,
+  demoLogCsv,
+  DEFAULT_DEMO_LOG,
+} from '../../src/demo/demo-driver.js';
 import { localPlane } from '../../src/track/geodesy.js';
 
 describe('demo driver line', () => {
@@ -52,8 +58,7 @@ describe('demo driver line', () => {
   });
 
   it("logs GPS positions along the driver's own line, about a metre from it", () => {
-    const reference = simulate(track, car, { ambient, envelope, path: driver });
-    const lap = demoDriverLap(track, reference, envelope, driver);
+    const lap = demoDriverLap(track, demoDriverReference(track, car, ambient, driver), envelope, driver);
     const rows = demoLogCsv(track, lap, DEFAULT_DEMO_LOG).trim().split('\n').slice(1);
     const plane = localPlane(track.geoOrigin);
     const xy = new Float64Array(2);
@@ -72,7 +77,7 @@ describe('demo driver line', () => {
     }
     const rms = (values: number[]) => Math.sqrt(values.reduce((sum, v) => sum + v * v, 0) / values.length);
     // The generator's GPS error is a wandering bias of 0.1 / sqrt(1 - 0.98^2) = 0.5 m per axis plus 0.4 m white
-    // noise (src/compare/demo-driver.ts, from memory for a consumer receiver): about 0.9 m RMS in the plane.
+    // noise (src/demo/demo-driver.ts, from memory for a consumer receiver): about 0.9 m RMS in the plane.
     expect(rms(toLine)).toBeLessThan(1.5);
     expect(rms(toCentre)).toBeGreaterThan(2 * rms(toLine));
   });

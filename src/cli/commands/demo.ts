@@ -7,9 +7,14 @@ import { fileURLToPath } from 'node:url';
 import type { Command } from 'commander';
 import { loadCar, loadTrack, numberOption } from '../options.js';
 import { outputBatch } from '../output.js';
-import { simulate } from '../../solve/simulate.js';
 import { buildEnvelope } from '../../car/build-envelope.js';
-import { demoDriverLap, demoDriverPath, demoLogCsv, DEFAULT_DEMO_LOG } from '../../demo/demo-driver.js';
+import {
+  demoDriverLap,
+  demoDriverPath,
+  demoDriverReference,
+  demoLogCsv,
+  DEFAULT_DEMO_LOG,
+} from '../../demo/demo-driver.js';
 import { parseTelemetryText } from '../../io/telemetry/read-telemetry.js';
 import { compareSummaryText } from '../../report/compare-summary.js';
 import { compareFromRecords, comparisonFiles } from '../compare-records.js';
@@ -71,8 +76,7 @@ export function runDemo(values: DemoValues): void {
   // The reference drives the racing line (the default); the invented driver a line of its own that uses the track.
   const referencePath = resolveReferenceLine(track, car, ambient, undefined, { envelope });
   const driverPath = demoDriverPath(track, referencePath.offsetM);
-  const onDriverLine = simulate(track, car, { ambient, envelope, path: driverPath });
-  const lap = demoDriverLap(track, onDriverLine, envelope, driverPath);
+  const lap = demoDriverLap(track, demoDriverReference(track, car, ambient, driverPath), envelope, driverPath);
   const seed = numberOption(values.seed, '--seed', DEFAULT_DEMO_LOG.seed);
   const csv = demoLogCsv(track, lap, { ...DEFAULT_DEMO_LOG, seed });
   const logFile = path.join(values.out, 'demo-lap.csv');
