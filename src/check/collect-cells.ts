@@ -6,6 +6,7 @@ import { InputError } from '../errors.js';
 import { numberCell, parseCsvTable } from '../io/csv-table.js';
 import { TRACK_COLUMNS } from '../io/track-csv.js';
 import { sniffDialect } from '../io/telemetry/csv.js';
+import { headerNames } from '../io/telemetry/logger-preamble.js';
 import { bindColumns, type ColumnBinding } from '../io/telemetry/columns.js';
 import { MISSING_CELLS } from '../io/telemetry/cell-value.js';
 
@@ -64,13 +65,17 @@ export function telemetryCellProblems(text: string, source: string): CellProblem
   let firstRepeatLine = 0;
   // Each record is checked as csv-parse reads it and then dropped, so a log of a hundred megabytes is not held
   // twice over as rows of strings.
+  let unitsRowAhead = false;
   const check = (record: string[], line: number): void => {
     if (headers === null) {
-      headers = record.map((cell, index) =>
-        (index === 0 ? cell.replace(/^\uFEFF/, '').replace(/^\s*#\s*/, '') : cell).trim(),
-      );
+      headers = headerNames(record, dialect!.logger);
+      unitsRowAhead = (dialect!.logger?.units ?? null) !== null;
       bindings = bindColumns(headers, {}, source).bindings;
       time = bindings.find((binding) => binding.quantity === 'time');
+      return;
+    }
+    if (unitsRowAhead) {
+      unitsRowAhead = false;
       return;
     }
     for (const binding of bindings) {

@@ -5,6 +5,7 @@ import { extname } from 'node:path';
 import { looksLikeGpx } from '../io/telemetry/gpx.js';
 import { looksLikeNmea } from '../io/telemetry/nmea.js';
 import { recogniseHeader } from '../io/telemetry/columns.js';
+import { loggerLayout } from '../io/telemetry/logger-preamble.js';
 
 export type FileKind =
   'car' | 'track-json' | 'track-csv' | 'telemetry-csv' | 'telemetry-nmea' | 'telemetry-gpx' | 'unknown';
@@ -36,7 +37,10 @@ export function detectKind(head: string, source: string): FileKind {
     if (carScore === 0 && trackScore === 0) return 'unknown';
     return carScore >= trackScore ? 'car' : 'track-json';
   }
-  const firstLine = start.split(/\r?\n/, 1)[0] ?? '';
+  const lines = start.split(/\r?\n/);
+  // A logger's preamble of key/value lines comes before its header (logger-preamble.ts).
+  const logger = loggerLayout(lines);
+  const firstLine = lines[logger ? logger.headerIndex : 0] ?? '';
   if (firstLine === '') return 'unknown';
   const names = firstLine
     .replace(/^#\s*/, '')

@@ -83,6 +83,13 @@ const ALIASES: Record<Quantity, string[]> = {
     'g_long',
     'long_g',
     'gx',
+    'long_acc',
+    'acc_long',
+    'longitudinal_acc',
+    'longitudinal_g',
+    'g_longitudinal',
+    'accel_longitudinal',
+    'inline_acc',
   ],
   ay: [
     'ay',
@@ -96,6 +103,12 @@ const ALIASES: Record<Quantity, string[]> = {
     'g_lat',
     'lat_g',
     'gy',
+    'lat_acc',
+    'acc_lat',
+    'lateral_acc',
+    'lateral_g',
+    'g_lateral',
+    'accel_lateral',
   ],
 };
 

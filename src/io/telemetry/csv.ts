@@ -12,19 +12,23 @@ import type { TelemetrySession } from '../../telemetry/types.js';
 import { HeldTooLong, RowPipeline } from './pipeline.js';
 import { SessionAssembler } from './session.js';
 import { NumericLineScanner, type ScanTarget } from './numeric-scan.js';
+import { delimiterOf, loggerLayout, type LoggerLayout } from './logger-preamble.js';
 
 export interface CsvDialect {
   delimiter: string;
   decimalComma: boolean;
   /** 1-based line of the header. */
   headerLine: number;
+  /** A logger's units row under the header and its preamble above it (logger-preamble.ts); null for a plain file. */
+  logger: LoggerLayout | null;
 }
 
 /** Reads the separator, the decimal mark and the header's line from the first lines of the file. */
 export function sniffDialect(head: string, source: string): CsvDialect {
   const lines = head.replace(/^\uFEFF/, '').split(/\r?\n/);
-  let headerIndex = -1;
-  for (let i = 0; i < lines.length; i++) {
+  const logger = loggerLayout(lines);
+  let headerIndex = logger ? logger.headerIndex : -1;
+  for (let i = 0; i < lines.length && headerIndex < 0; i++) {
     const line = lines[i]!.trim();
     if (line === '') continue;
     if (line.startsWith('#')) {
@@ -41,8 +45,7 @@ export function sniffDialect(head: string, source: string): CsvDialect {
   }
   if (headerIndex < 0) throw new InputError(`${source}: empty file (no header)`);
   // A separator inside a quoted header cell ("speed; km/h") is text, not the file's separator.
-  const header = lines[headerIndex]!.replace(/"[^"]*"/g, '');
-  const delimiter = header.includes('\t') ? '\t' : header.includes(';') ? ';' : ',';
+  const delimiter = delimiterOf(lines[headerIndex]!);
   let decimalComma = false;
   if (delimiter !== ',') {
     const pattern = /^\s*"?[-+]?\d+,\d+"?\s*$/;
@@ -53,7 +56,7 @@ export function sniffDialect(head: string, source: string): CsvDialect {
       }
     }
   }
-  return { delimiter, decimalComma, headerLine: headerIndex + 1 };
+  return { delimiter, decimalComma, headerLine: headerIndex + 1, logger };
 }
 
 function looksNumeric(line: string): boolean {
@@ -201,6 +204,7 @@ function sessionPipeline(
   return new RowPipeline({
     source,
     headerLine: dialect.headerLine,
+    logger: dialect.logger,
     decimalComma: dialect.decimalComma,
     mapping,
     decided: null,

@@ -11,6 +11,7 @@ import { resolveLayout } from './channel-layout.js';
 import { CHUNK_ROWS } from './chunk.js';
 import { ChunkDelivery, type ChunkSink } from './chunk-delivery.js';
 import { bindColumns, listedHeaders, type ColumnBinding } from './columns.js';
+import { headerNames, loggerNotes, type LoggerLayout } from './logger-preamble.js';
 import { GapFiller, type ColumnScan } from './gap-fill.js';
 import { columnNotes, type ColumnNote } from './read-notes.js';
 import type { RowBlock } from './row-block.js';
@@ -23,6 +24,8 @@ export class HeldTooLong extends Error {}
 export interface PipelineOptions {
   source: string;
   headerLine: number;
+  /** A logger's units row (skipped, its units joined to the headers) and preamble; null for a plain file. */
+  logger: LoggerLayout | null;
   decimalComma: boolean;
   mapping: Record<string, string>;
   /** Units decided by an earlier pass; null delivers the open ones in the file's units (see ChannelLayout.pending). */
@@ -48,6 +51,8 @@ export interface PipelineResult {
   columnNotes: ColumnNote[];
   ignored: string[];
   decimalComma: boolean;
+  /** What was understood of a logger's preamble and units row. */
+  loggerNotes: string[];
 }
 
 export class RowPipeline {
@@ -66,6 +71,8 @@ export class RowPipeline {
   private delivery!: ChunkDelivery;
   private delivered = 0;
   private finishing = false;
+  /** True while the units row under the header is still to come. */
+  private unitsRowAhead = false;
 
   constructor(private readonly options: PipelineOptions) {}
 
@@ -85,6 +92,10 @@ export class RowPipeline {
     if (cells.length === 1 && cells[0]!.trim() === '') return;
     if (this.headers.length === 0) {
       this.header(cells);
+      return;
+    }
+    if (this.unitsRowAhead) {
+      this.unitsRowAhead = false;
       return;
     }
     const block = this.currentBlock();
@@ -132,9 +143,8 @@ export class RowPipeline {
   }
 
   private header(cells: string[]): void {
-    this.headers = cells.map((cell, index) =>
-      (index === 0 ? cell.replace(/^\uFEFF/, '').replace(/^\s*#\s*/, '') : cell).trim(),
-    );
+    this.headers = headerNames(cells, this.options.logger);
+    this.unitsRowAhead = (this.options.logger?.units ?? null) !== null;
     const { source, scan, mode, decided, skipRows, sink } = this.options;
     const { bindings, ignored } = bindColumns(this.headers, this.options.mapping, source);
     this.bindings = bindings;
@@ -233,6 +243,7 @@ export class RowPipeline {
       columnNotes: columnNotes(this.bindings, this.gaps.dropped, this.gaps.nan),
       ignored: this.ignored,
       decimalComma: this.options.decimalComma,
+      loggerNotes: loggerNotes(this.options.logger),
     };
   }
 }

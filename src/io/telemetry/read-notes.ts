@@ -53,10 +53,10 @@ export function columnNotes(
 
 /** The notes of a read, in the order the session reader has always given them. */
 export function composeNotes(
-  result: { ignored: string[]; decimalComma: boolean; columnNotes: ColumnNote[] },
+  result: { ignored: string[]; decimalComma: boolean; columnNotes: ColumnNote[]; loggerNotes: string[] },
   decided: DecidedUnits | null,
 ): string[] {
-  const notes: string[] = [];
+  const notes: string[] = [...result.loggerNotes];
   if (result.ignored.length > 0) notes.push(`columns not used: ${result.ignored.join(', ')}`);
   if (result.decimalComma) notes.push('decimal commas read');
   for (const column of result.columnNotes) {

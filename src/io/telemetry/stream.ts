@@ -39,6 +39,7 @@ class Reader {
     const pipeline = new RowPipeline({
       source: this.file,
       headerLine: this.dialect.headerLine,
+      logger: this.dialect.logger,
       decimalComma: this.dialect.decimalComma,
       mapping: this.mapping,
       decided,
