@@ -36,7 +36,7 @@ describe('logger exports with a preamble and a units row', () => {
   it('skips the preamble, keeps its pairs as a note, and takes every unit from the units row', () => {
     const session = read(loggerExport());
     expect(session.count).toBe(50);
-    expect(session.speedMps[0]).toBeCloseTo(100 / 3.6, 12);
+    expect(session.speedMps![0]).toBeCloseTo(100 / 3.6, 12);
     expect(session.ayMps2![0]).toBeCloseTo(0.5 * 9.80665, 12);
     expect(session.axMps2![0]).toBeCloseTo(-0.25 * 9.80665, 12);
     expect(session.throttle![0]).toBeCloseTo(0.4, 12);
@@ -47,8 +47,8 @@ describe('logger exports with a preamble and a units row', () => {
   });
 
   it('reads mph and m/s from the units row', () => {
-    expect(read(loggerExport({ speedUnit: 'mph' })).speedMps[0]).toBeCloseTo(100 * 0.44704, 12);
-    expect(read(loggerExport({ speedUnit: 'm/s' })).speedMps[0]).toBe(100);
+    expect(read(loggerExport({ speedUnit: 'mph' })).speedMps![0]).toBeCloseTo(100 * 0.44704, 12);
+    expect(read(loggerExport({ speedUnit: 'm/s' })).speedMps![0]).toBe(100);
   });
 
   it('reads the dialect with semicolons and decimal commas', () => {
@@ -61,7 +61,7 @@ describe('logger exports with a preamble and a units row', () => {
     const text = loggerExport({ rows: 500 });
     const fast = parseCsvText(text, 'log.csv', {}, 'fast');
     const general = parseCsvText(text, 'log.csv', {}, 'csv-parse');
-    expect(Array.from(fast.speedMps)).toEqual(Array.from(general.speedMps));
+    expect(Array.from(fast.speedMps!)).toEqual(Array.from(general.speedMps!));
     expect(fast.notes).toEqual(general.notes);
   });
 
@@ -87,6 +87,6 @@ describe('plain files are not logger exports', () => {
   it('finds a units row with no preamble', () => {
     const layout = loggerLayout(['time,speed', 's,[km/h]', '0,100', '0.1,101']);
     expect(layout).toEqual({ headerIndex: 0, units: ['s', '[km/h]'], preamble: [] });
-    expect(read('time,speed\ns,[km/h]\n0,36\n0.1,36\n').speedMps[0]).toBeCloseTo(10, 12);
+    expect(read('time,speed\ns,[km/h]\n0,36\n0.1,36\n').speedMps![0]).toBeCloseTo(10, 12);
   });
 });

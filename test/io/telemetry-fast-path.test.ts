@@ -27,7 +27,7 @@ function scanOneColumn(text: string): (number | string)[] {
       seen.push(count > 0 ? values[0]! : NaN);
     },
   };
-  const scanner = new NumericLineScanner({ delimiter: ',', decimalComma: false, headerLine: 1 }, target);
+  const scanner = new NumericLineScanner({ delimiter: ',', decimalComma: false, headerLine: 1, logger: null }, target);
   const bytes = Buffer.from(text, 'utf8');
   expect(scanner.scan(bytes, 0, bytes.length, true)).toBe(bytes.length);
   return seen;
