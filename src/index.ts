@@ -195,7 +195,6 @@ export { timeDeltaS, clockAt, distanceAsTimeS } from './compare/delta.js';
 export { rankFindings, cornerFindingText, DEFAULT_FINDING_OPTIONS, type FindingOptions } from './compare/findings.js';
 export {
   fitEnvelope,
-  quantileSorted,
   DEFAULT_ENVELOPE_FIT,
   type EnvelopeFitOptions,
   type EnvelopeSamples,
@@ -216,6 +215,7 @@ export {
   type DemoFault,
 } from './demo/demo-driver.js';
 export { seededRandom } from './numeric/seeded-random.js';
+export { quantileSorted, median } from './numeric/quantile.js';
 export { compareSummaryText, compareSummaryJson, alignedTracesCsv } from './report/compare-summary.js';
 
 // Validation that lists every problem in car, track and telemetry files (`reflap check`).

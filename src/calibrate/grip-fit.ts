@@ -11,7 +11,7 @@ import { pointMassEnvelope } from '../car/point-mass.js';
 import { driveForceTable } from '../car/drive-force.js';
 import { totalMassKg } from '../car/point-mass.js';
 import { readCarField, writeCarField } from '../sweep/fields.js';
-import { quantileSorted } from '../compare/envelope-fit.js';
+import { quantileSorted } from '../numeric/quantile.js';
 import { timeBlocks, type CalibrationSamples } from './samples.js';
 import { fitFrontier, residualJacobian, type FrontierProblem } from './frontier.js';
 import { crossProduct, formatIndex, identifiability, type Identifiability } from './identify.js';

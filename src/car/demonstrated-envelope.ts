@@ -4,6 +4,7 @@
 
 import type { Envelope } from './envelope.js';
 import { combinedShare, remainingShare } from './point-mass.js';
+import { lerp } from '../numeric/interpolate.js';
 
 export interface EnvelopeBand {
   /** Centre of the speed band, m/s. */
@@ -59,7 +60,7 @@ export function demonstratedEnvelope(record: DemonstratedEnvelopeRecord): Envelo
       else hi = mid;
     }
     const w = (speedMps - speeds[lo]!) / (speeds[hi]! - speeds[lo]!);
-    return values[lo]! + w * (values[hi]! - values[lo]!);
+    return lerp(values[lo]!, values[hi]!, w);
   };
   const coastDecelMps2 = (speedMps: number) =>
     record.coast.constantMps2 + record.coast.quadraticPerM * speedMps * speedMps;

@@ -19,6 +19,8 @@ import {
   pathCurvature,
   speedFromPositions,
 } from './derive.js';
+import { wrapIndex } from '../numeric/lap-index.js';
+import { lerp } from '../numeric/interpolate.js';
 
 export interface SelectOptions {
   lap?: number;
@@ -34,7 +36,7 @@ function atTime(values: Float64Array, timeS: Float64Array, i: number, tq: number
   const j = Math.min(i + 1, timeS.length - 1);
   const span = timeS[j]! - timeS[i]!;
   const w = span > 0 ? Math.min(1, Math.max(0, (tq - timeS[i]!) / span)) : 0;
-  return values[i]! + w * (values[j]! - values[i]!);
+  return lerp(values[i]!, values[j]!, w);
 }
 
 export function alignLapWithNotes(
@@ -154,7 +156,7 @@ export function alignLapWithNotes(
         const next = j < n - 1 ? j + 1 : track.closed ? 0 : n - 1;
         let dt = passTime[next]! - passTime[previous]!;
         if (dt < 0) dt += lapTimeS;
-        const ds = (next - previous + n) % n || 1;
+        const ds = wrapIndex(next - previous, n) || 1;
         speedMps[j] = dt > 0 ? (ds * track.stepM) / dt : 0;
       }
       notes.push('speed derived from the distance channel');

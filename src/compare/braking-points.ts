@@ -3,7 +3,9 @@
 
 import type { CornerSpan } from '../track/corners.js';
 import { distanceAsTimeS } from './delta.js';
-import { interpolate, lastPeakIndex, minimumOver, type LapView } from './lap-samples.js';
+import { lastPeakIndex, minimumOver, type LapView } from './lap-samples.js';
+import { interpolateOnLap } from '../numeric/interpolate.js';
+import { wrapIndex } from '../numeric/lap-index.js';
 
 /** A lap "slows" for a corner when it sheds at least this much speed without braking, m/s. */
 const LIFT_DROP_MPS = 1;
@@ -22,7 +24,7 @@ function brakingPoint(
   for (const zone of zones) {
     for (const u of [zone.startIndex - n, zone.startIndex, zone.startIndex + n]) {
       if (u < ownStart || u > span.apexIndex) continue;
-      const drop = lap.speedMps[((u % n) + n) % n]! - minimumOver(lap.speedMps, u, span.exitIndex, n).value;
+      const drop = lap.speedMps[wrapIndex(u, n)]! - minimumOver(lap.speedMps, u, span.exitIndex, n).value;
       if (drop > bestDrop) {
         bestDrop = drop;
         best = u;
@@ -31,8 +33,8 @@ function brakingPoint(
   }
   if (best === null || bestDrop < LIFT_DROP_MPS) return null;
   // Sub-sample place where the brake crosses the threshold, between the sample before and the first one on.
-  const on = lap.brake[((best % n) + n) % n]!;
-  const before = lap.brake[(((best - 1) % n) + n) % n]!;
+  const on = lap.brake[wrapIndex(best, n)]!;
+  const before = lap.brake[wrapIndex(best - 1, n)]!;
   const frac = on > before ? (threshold - before) / (on - before) : 1;
   return best - 1 + Math.min(1, Math.max(0, frac));
 }
@@ -40,7 +42,7 @@ function brakingPoint(
 /** Where a lap that does not brake starts slowing for the corner (the end of its speed peak), or null if it does not slow. */
 function liftPoint(lap: LapView, ownStart: number, span: CornerSpan, n: number): number | null {
   const peakU = lastPeakIndex(lap.speedMps, ownStart, span.apexIndex, n);
-  const drop = lap.speedMps[((peakU % n) + n) % n]! - minimumOver(lap.speedMps, peakU, span.exitIndex, n).value;
+  const drop = lap.speedMps[wrapIndex(peakU, n)]! - minimumOver(lap.speedMps, peakU, span.exitIndex, n).value;
   return drop >= LIFT_DROP_MPS ? peakU : null;
 }
 
@@ -80,7 +82,7 @@ export function compareBraking(
   let brakingPointDeltaS: number | null = null;
   if ((refBrake !== null || drvBrake !== null) && refSlowU !== null && drvSlowU !== null) {
     brakingPointDeltaM = (drvSlowU - refSlowU) * step;
-    brakingPointDeltaS = distanceAsTimeS(brakingPointDeltaM, interpolate(refView.speedMps, refSlowU, n));
+    brakingPointDeltaS = distanceAsTimeS(brakingPointDeltaM, interpolateOnLap(refView.speedMps, refSlowU, n));
   }
   const liftPointDeltaM =
     refBrake === null && drvBrake === null && drvLift !== null && refLift !== null ? (drvLift - refLift) * step : null;

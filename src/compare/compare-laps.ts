@@ -18,6 +18,7 @@ import { slowestPoint, type LapView } from './lap-samples.js';
 import { coastingTime, ownershipBounds, phaseTimesLost } from './corner-phases.js';
 import { compareBraking } from './braking-points.js';
 import { gripFigures, gripStretches } from './grip-use.js';
+import { lapIndex, wrapIndex } from '../numeric/lap-index.js';
 
 export function compareLaps(
   track: TrackGrid,
@@ -69,7 +70,7 @@ export function compareLaps(
   const spans = cornerLayoutOf(track).corners;
   if (spans.length === 0) notes.push('no corners found on this track: the whole lap is reported as one stretch');
   const bounds = ownershipBounds(spans, refView, drv, n, step, closed);
-  const at = (values: Float64Array, u: number) => values[((u % n) + n) % n]!;
+  const at = (values: Float64Array, u: number) => values[wrapIndex(u, n)]!;
   const deltaAt = (u: number) =>
     clockAt(driver.timeS, driver.lapTimeS, u, closed) - clockAt(ref.timeS, reference.lapTimeS, u, closed);
 
@@ -124,7 +125,7 @@ export function compareLaps(
           );
     const grip = gripFigures(driverGripUse, driverGripSmooth, span.entryIndex, span.exitIndex, n);
     const referenceGrip = gripFigures(ref.gripUse, referenceGripSmooth, span.entryIndex, span.exitIndex, n);
-    const fold = (u: number) => (closed ? (((u % n) + n) % n) * step : Math.min(Math.max(u, 0), n - 1) * step);
+    const fold = (u: number) => lapIndex(u, n, closed) * step;
     const beforeM = (pointM: number | null, placeM: number) =>
       pointM === null ? null : metresBeforeM(pointM, placeM, track);
     const foldM = (u: number | null) =>

@@ -5,6 +5,7 @@
 import type { CornerSpan } from '../track/corners.js';
 import { clockAt } from './delta.js';
 import { clampIndex, lastPeakIndex, type LapView } from './lap-samples.js';
+import { wrapIndex } from '../numeric/lap-index.js';
 
 /** The split between two corners sits this far before the earlier of the two laps' speed peaks, m. */
 const SPLIT_MARGIN_M = 10;
@@ -70,7 +71,7 @@ export function coastingTime(
   const n = timeS.length;
   let total = 0;
   for (let u = from; u < to; u++) {
-    const i = ((u % n) + n) % n;
+    const i = wrapIndex(u, n);
     if (throttle[i]! <= threshold && brake[i]! <= threshold)
       total += clockAt(timeS, lapTimeS, u + 1, closed) - clockAt(timeS, lapTimeS, u, closed);
   }

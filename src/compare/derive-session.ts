@@ -8,7 +8,8 @@
 
 import { savitzkyGolayFilter, applySavitzkyGolay, savitzkyGolayCutoffShare } from '../numeric/savitzky-golay.js';
 import type { TelemetrySession } from '../telemetry/types.js';
-import { medianOf } from './median.js';
+import { sampledMedian } from '../numeric/quantile.js';
+import { lerp } from '../numeric/interpolate.js';
 
 export interface DeriveOptions {
   /** Largest standard deviation of a derived acceleration the window may leave, m/s^2. */
@@ -80,7 +81,7 @@ export function deriveSessionAccelerations(
   const n = session.count;
   const intervals = new Float64Array(n - 1);
   for (let i = 1; i < n; i++) intervals[i - 1] = t[i]! - t[i - 1]!;
-  const medianIntervalS = medianOf(intervals);
+  const medianIntervalS = sampledMedian(intervals);
   // Stretches between gaps are gridded separately: interpolating across a gap would invent a straight line.
   const splitS = Math.max(0.5, 5 * medianIntervalS);
   const runs: { from: number; to: number }[] = [];
@@ -167,9 +168,9 @@ export function deriveSessionAccelerations(
       const k = Math.min(Math.max(0, Math.floor(position)), count - 1);
       const k1 = Math.min(k + 1, count - 1);
       const w = Math.min(1, Math.max(0, position - k));
-      if (!session.speedMps) speedOut[i] = speed[k]! + w * (speed[k1]! - speed[k]!);
-      axOut[i] = along[k]! + w * (along[k1]! - along[k]!);
-      ayOut[i] = across[k]! + w * (across[k1]! - across[k]!);
+      if (!session.speedMps) speedOut[i] = lerp(speed[k]!, speed[k1]!, w);
+      axOut[i] = lerp(along[k]!, along[k1]!, w);
+      ayOut[i] = lerp(across[k]!, across[k1]!, w);
     }
   }
   const derived: string[] = [];
@@ -232,9 +233,9 @@ function uniformRun(session: TelemetrySession, from: number, to: number, stepS: 
     const j = Math.min(i + 1, to);
     const span = t[j]! - t[i]!;
     const w = span > 0 ? Math.min(1, Math.max(0, (at - t[i]!) / span)) : 0;
-    x[k] = session.xM![i]! + w * (session.xM![j]! - session.xM![i]!);
-    y[k] = session.yM![i]! + w * (session.yM![j]! - session.yM![i]!);
-    if (v) v[k] = session.speedMps![i]! + w * (session.speedMps![j]! - session.speedMps![i]!);
+    x[k] = lerp(session.xM![i]!, session.xM![j]!, w);
+    y[k] = lerp(session.yM![i]!, session.yM![j]!, w);
+    if (v) v[k] = lerp(session.speedMps![i]!, session.speedMps![j]!, w);
   }
   return { startS, x, y, v };
 }

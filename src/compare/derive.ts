@@ -4,6 +4,7 @@
 // smoothed), or of the track's where the path is too noisy to trust.
 
 import { movingAverage } from '../numeric/moving-average.js';
+import { lapIndex, wrapIndex } from '../numeric/lap-index.js';
 
 export { movingAverage };
 
@@ -39,7 +40,7 @@ export function axFromSpeed(speedMps: Float64Array, stepM: number, closed: boole
     let next = i + 1;
     let span = 2 * stepM;
     if (closed) {
-      previous = (previous + n) % n;
+      previous = wrapIndex(previous, n);
       next %= n;
     } else if (previous < 0 || next >= n) {
       previous = Math.max(0, previous);
@@ -66,7 +67,7 @@ export function pathCurvature(
 ): Float64Array {
   const n = xM.length;
   const h = Math.max(1, Math.round(chordM / stepM / 2));
-  const index = (i: number) => (closed ? ((i % n) + n) % n : Math.min(n - 1, Math.max(0, i)));
+  const index = (i: number) => lapIndex(i, n, closed);
   const heading = new Float64Array(n);
   for (let i = 0; i < n; i++) {
     const a = index(i - h);

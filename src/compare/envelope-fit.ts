@@ -6,6 +6,7 @@
 import type { DemonstratedEnvelopeRecord, EnvelopeBand } from '../car/demonstrated-envelope.js';
 import type { Envelope } from '../car/envelope.js';
 import { mpsToKph } from '../units.js';
+import { quantileSorted } from '../numeric/quantile.js';
 
 export type { DemonstratedEnvelopeRecord, EnvelopeBand };
 export type EnvelopeDirection = 'brake' | 'accel' | 'left' | 'right';
@@ -44,16 +45,6 @@ const DIRECTIONS: EnvelopeDirection[] = ['brake', 'accel', 'left', 'right'];
 export function directionOf(axMps2: number, ayMps2: number): EnvelopeDirection {
   if (Math.abs(axMps2) >= Math.abs(ayMps2)) return axMps2 < 0 ? 'brake' : 'accel';
   return ayMps2 > 0 ? 'left' : 'right';
-}
-
-/** Quantile of sorted values by linear interpolation between order statistics (Hyndman and Fan 1996, type 7). */
-export function quantileSorted(sorted: Float64Array, q: number): number {
-  const count = sorted.length;
-  if (count === 0) return NaN;
-  const position = (count - 1) * q;
-  const lo = Math.floor(position);
-  const hi = Math.min(count - 1, lo + 1);
-  return sorted[lo]! + (position - lo) * (sorted[hi]! - sorted[lo]!);
 }
 
 export class EnvelopeFitError extends Error {}

@@ -3,6 +3,7 @@
 
 import type { GripStretch } from './types.js';
 import type { CompareOptions } from './compare-options.js';
+import { wrapIndex } from '../numeric/lap-index.js';
 
 export function gripFigures(
   raw: Float64Array,
@@ -15,7 +16,7 @@ export function gripFigures(
   let peak = 0;
   let count = 0;
   for (let u = from; u <= to; u++) {
-    const i = ((u % n) + n) % n;
+    const i = wrapIndex(u, n);
     const value = raw[i]!;
     if (!Number.isFinite(value)) continue;
     sum += value;
@@ -51,7 +52,7 @@ export function gripStretches(
       });
   };
   for (let u = from; u <= to; u++) {
-    const i = ((u % n) + n) % n;
+    const i = wrapIndex(u, n);
     const driverUse = driverSmooth[i]!;
     const current: GripStretch['kind'] | null =
       u === to

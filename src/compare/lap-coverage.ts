@@ -5,7 +5,7 @@ import { InputError } from '../errors.js';
 import type { TrackGrid } from '../track/types.js';
 import type { TelemetrySession } from '../telemetry/types.js';
 import type { PlacedSession } from './place-session.js';
-import { medianOf } from './median.js';
+import { sampledMedian } from '../numeric/quantile.js';
 
 /** A lap must pass at least this share of the stations on the track. */
 export const MIN_COVERAGE = 0.95;
@@ -116,7 +116,7 @@ export function checkDistanceLapsMatch(session: TelemetrySession, track: TrackGr
   const L = track.lengthM;
   if (spans.length > 0 && spans.every((span) => Math.abs(span / L - 1) > 0.2)) {
     throw new InputError(
-      `${session.source}: the telemetry does not match track ${track.name}: its laps measure about ${medianOf(Float64Array.from(spans)).toFixed(0)} m by the distance channel, the track ${L.toFixed(0)} m`,
+      `${session.source}: the telemetry does not match track ${track.name}: its laps measure about ${sampledMedian(Float64Array.from(spans)).toFixed(0)} m by the distance channel, the track ${L.toFixed(0)} m`,
     );
   }
 }

@@ -1,6 +1,8 @@
 // Reading one lap's channels on the track's distance grid at unwrapped station indices (a closed lap wraps around):
 // values between stations, the minimum and slowest point of a stretch, and where a straight's speed peak ends.
 
+import { wrapIndex } from '../numeric/lap-index.js';
+
 /** The channels of one lap (the driver's or the reference) that the corner-by-corner comparison reads. */
 export interface LapView {
   speedMps: Float64Array;
@@ -14,14 +16,6 @@ const PEAK_TOLERANCE_MPS = 0.5;
 
 export const clampIndex = (value: number, lo: number, hi: number) => Math.min(hi, Math.max(lo, value));
 
-export function interpolate(values: Float64Array, u: number, n: number): number {
-  const lo = Math.floor(u);
-  const frac = u - lo;
-  const a = values[((lo % n) + n) % n]!;
-  const b = values[(((lo + 1) % n) + n) % n]!;
-  return a + frac * (b - a);
-}
-
 export function minimumOver(
   values: Float64Array,
   from: number,
@@ -31,7 +25,7 @@ export function minimumOver(
   let value = Infinity;
   let index = from;
   for (let u = from; u <= to; u++) {
-    const v = values[((u % n) + n) % n]!;
+    const v = values[wrapIndex(u, n)]!;
     if (v < value) {
       value = v;
       index = u;
@@ -54,16 +48,16 @@ export function slowestPoint(
   const limit = min.value + SLOWEST_TOLERANCE_MPS;
   let lo = min.index;
   let hi = min.index;
-  while (lo > from && values[(((lo - 1) % n) + n) % n]! <= limit) lo--;
-  while (hi < to && values[(((hi + 1) % n) + n) % n]! <= limit) hi++;
+  while (lo > from && values[wrapIndex(lo - 1, n)]! <= limit) lo--;
+  while (hi < to && values[wrapIndex(hi + 1, n)]! <= limit) hi++;
   return { value: min.value, index: Math.round((lo + hi) / 2) };
 }
 
 /** Last index of [from, to] whose speed is within the tolerance of the stretch's peak: where the lap stops gaining. */
 export function lastPeakIndex(speed: Float64Array, from: number, to: number, n: number): number {
   let peak = -Infinity;
-  for (let u = from; u <= to; u++) peak = Math.max(peak, speed[((u % n) + n) % n]!);
+  for (let u = from; u <= to; u++) peak = Math.max(peak, speed[wrapIndex(u, n)]!);
   let last = from;
-  for (let u = from; u <= to; u++) if (speed[((u % n) + n) % n]! >= peak - PEAK_TOLERANCE_MPS) last = u;
+  for (let u = from; u <= to; u++) if (speed[wrapIndex(u, n)]! >= peak - PEAK_TOLERANCE_MPS) last = u;
   return last;
 }

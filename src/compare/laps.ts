@@ -22,7 +22,7 @@ import {
   positionCoverage,
   positionLapProblems,
 } from './lap-coverage.js';
-import { medianOf } from './median.js';
+import { sampledMedian } from '../numeric/quantile.js';
 
 export interface LapCut {
   /** Lap 1 runs from the first line crossing to the second; lap 0 is the part before the first crossing (the
@@ -199,10 +199,10 @@ function cutByDistance(session: TelemetrySession, track: TrackGrid): { laps: Lap
   const laps: LapCut[] = [];
   const spans: number[] = [];
   for (let c = 0; c + 1 < crossings.length; c++) spans.push(crossings[c + 1]!.reachedM);
-  const interiorScale = spans.length > 0 ? L / medianOf(Float64Array.from(spans)) : 1;
+  const interiorScale = spans.length > 0 ? L / sampledMedian(Float64Array.from(spans)) : 1;
   checkDistanceLapsMatch(session, track, spans);
   const allowance = extrapolationAllowanceM(track);
-  const medianSpan = spans.length > 0 ? medianOf(Float64Array.from(spans)) : NaN;
+  const medianSpan = spans.length > 0 ? sampledMedian(Float64Array.from(spans)) : NaN;
   for (let c = 0; c + 1 < crossings.length; c++) {
     const span = spans[c]!;
     const reason = distanceLapProblem(span, medianSpan, L);

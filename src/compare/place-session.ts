@@ -6,7 +6,7 @@ import type { TrackGrid } from '../track/types.js';
 import type { TelemetrySession } from '../telemetry/types.js';
 import { applyRigid, fitRigidToCentreline, projectPath } from '../track/project.js';
 import { reprojectPlane } from '../track/geodesy.js';
-import { medianOf } from './median.js';
+import { sampledMedian } from '../numeric/quantile.js';
 import { radToDeg } from '../units.js';
 
 /** The session's samples in the track's plane and their place along it, computed once per session and track. */
@@ -60,7 +60,7 @@ export function placeSession(session: TelemetrySession, track: TrackGrid): Place
       progressM[i] = along + turns * L;
     }
   }
-  const medianGapM = medianOf(path.gapM);
+  const medianGapM = sampledMedian(path.gapM);
   if (!(medianGapM <= MATCH_LIMIT_M)) {
     throw new InputError(
       `${session.source}: the telemetry does not match track ${track.name}: its median distance to the centreline is ${medianGapM.toFixed(0)} m (more than ${MATCH_LIMIT_M} m)`,

@@ -14,6 +14,8 @@ import type { CornerSpan } from '../track/corners.js';
 import { cornerLayoutOf } from '../track/corner-layout.js';
 import { mps2ToG, mpsToKph, kphToMps } from '../units.js';
 import { seededRandom } from '../numeric/seeded-random.js';
+import { wrapIndex } from '../numeric/lap-index.js';
+import { interpolateOnLap, lerp } from '../numeric/interpolate.js';
 
 export interface DemoFault {
   kind: 'early-braking' | 'late-hard-braking' | 'coasting' | 'early-lift';
@@ -66,8 +68,6 @@ export function demoDriverReference(track: TrackGrid, car: Car, ambient: Ambient
   const tyre = { ...car.tyre, muLat: car.tyre.muLat * DEMO_GRIP_SHARE, muLong: car.tyre.muLong * DEMO_GRIP_SHARE };
   return simulate(track, { ...car, tyre }, { ambient, path });
 }
-
-const wrap = (k: number, n: number) => ((k % n) + n) % n;
 
 /** The driver's lap on the grid, made by the four faults from its lap on its own line (demoDriverReference). */
 export function demoDriverLap(
@@ -135,10 +135,10 @@ export function demoDriverLap(
     // Coasting: after the slowest point 1.5 s with neither pedal before the throttle comes back.
     const { corner, zone } = braked[2];
     let i = zone.minSpeedIndex;
-    let v = speed[wrap(i, n)]!;
+    let v = speed[wrapIndex(i, n)]!;
     let elapsed = 0;
     while (elapsed < 1.5) {
-      const k = wrap(i, n);
+      const k = wrapIndex(i, n);
       speed[k] = Math.min(speed[k]!, v);
       coastMask[k] = 1;
       const decel = envelope.coastDecelMps2(v);
@@ -154,9 +154,9 @@ export function demoDriverLap(
   if (liftCorner) {
     // Early lift: off the throttle 150 m before the apex, coasting down, back on at the apex.
     let i = liftCorner.apexIndex - Math.round(150 / step);
-    let v = speed[wrap(i, n)]!;
+    let v = speed[wrapIndex(i, n)]!;
     for (; i <= liftCorner.apexIndex; i++) {
-      const k = wrap(i, n);
+      const k = wrapIndex(i, n);
       v = Math.min(v, speed[k]!);
       speed[k] = v;
       coastMask[k] = 1;
@@ -192,10 +192,10 @@ function earlyBraking(
   segmentM: Float64Array,
   n: number,
 ): void {
-  const floor = speed[wrap(minIndex, n)]!;
-  let v = speed[wrap(start, n)]!;
+  const floor = speed[wrapIndex(minIndex, n)]!;
+  let v = speed[wrapIndex(start, n)]!;
   for (let i = start; i <= minIndex; i++) {
-    const k = wrap(i, n);
+    const k = wrapIndex(i, n);
     speed[k] = Math.min(speed[k]!, Math.max(floor, v));
     v = Math.sqrt(Math.max(0, v * v - 2 * decelMps2 * segmentM[k]!));
   }
@@ -213,27 +213,27 @@ function lateBraking(
   segmentM: Float64Array,
   n: number,
 ): number {
-  const peak = speed[wrap(start, n)]!;
+  const peak = speed[wrapIndex(start, n)]!;
   let i = start;
-  for (; i < start + lateSamples; i++) speed[wrap(i, n)] = Math.max(speed[wrap(i, n)]!, peak);
+  for (; i < start + lateSamples; i++) speed[wrapIndex(i, n)] = Math.max(speed[wrapIndex(i, n)]!, peak);
   let v = peak;
   for (; v > floor; i++) {
-    speed[wrap(i, n)] = Math.max(floor, v);
-    v = Math.sqrt(Math.max(0, v * v - 2 * decelMps2(v, wrap(i, n)) * segmentM[wrap(i, n)]!));
+    speed[wrapIndex(i, n)] = Math.max(floor, v);
+    v = Math.sqrt(Math.max(0, v * v - 2 * decelMps2(v, wrapIndex(i, n)) * segmentM[wrapIndex(i, n)]!));
   }
-  for (; i <= minIndex; i++) speed[wrap(i, n)] = floor;
-  speed[wrap(i, n)] = floor;
+  for (; i <= minIndex; i++) speed[wrapIndex(i, n)] = floor;
+  speed[wrapIndex(i, n)] = floor;
   return i;
 }
 
 /** From index `from`, accelerates on the car's envelope until the speed meets the driver's profile again. */
 function recoverFrom(speed: Float64Array, from: number, envelope: Envelope, path: Path, n: number): void {
-  let v = speed[wrap(from, n)]!;
+  let v = speed[wrapIndex(from, n)]!;
   for (let i = from + 1; i < from + n; i++) {
-    const k = wrap(i, n);
+    const k = wrapIndex(i, n);
     const ay = v * v * path.curvaturePerM[k]!;
     const a = Math.max(0, envelope.accelLimitMps2(v, ay)) * 0.95;
-    v = Math.sqrt(v * v + 2 * a * path.segmentLengthM[wrap(k - 1, n)]!);
+    v = Math.sqrt(v * v + 2 * a * path.segmentLengthM[wrapIndex(k - 1, n)]!);
     if (v >= speed[k]!) return;
     speed[k] = v;
   }
@@ -289,14 +289,10 @@ export function demoLogCsv(track: TrackGrid, lap: DemoDriverLap, options: DemoLo
     const i = Math.floor(u);
     const t0 = lap.timeS[i % n]!;
     const t1 = i + 1 >= n ? lap.lapTimeS : lap.timeS[i + 1]!;
-    return laps * lap.lapTimeS + t0 + (u - i) * (t1 - t0);
+    return laps * lap.lapTimeS + lerp(t0, t1, u - i);
   };
   const sample = (values: Float64Array, s: number) => {
-    const u = (((s % L) + L) % L) / step;
-    const i = Math.floor(u);
-    const a = values[i % n]!;
-    const b = values[(i + 1) % n]!;
-    return a + (u - i) * (b - a);
+    return interpolateOnLap(values, (((s % L) + L) % L) / step, n);
   };
   const startS = -options.leadInM;
   const endS = L + options.leadOutM;

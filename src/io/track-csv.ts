@@ -7,6 +7,7 @@ import type { TrackGrid } from '../track/types.js';
 import { trackFromCentreline } from '../track/resample.js';
 import { numberCell, parseCsvTable } from './csv-table.js';
 import type { TrackReadOptions } from './track-read-options.js';
+import { median } from '../numeric/quantile.js';
 
 export const TRACK_COLUMNS = ['x_m', 'y_m', 'width_left_m', 'width_right_m', 'z_m', 'bank_deg'] as const;
 type TrackColumn = (typeof TRACK_COLUMNS)[number];
@@ -26,12 +27,6 @@ const SAME_POINT_M = 1e-3;
 const CLOSING_GAP_SPACINGS = 3;
 /** ...or within this distance, m, whichever is larger. */
 const CLOSING_GAP_MIN_M = 1;
-
-function median(values: Float64Array): number {
-  const sorted = Float64Array.from(values).sort();
-  const mid = sorted.length >> 1;
-  return sorted.length % 2 ? sorted[mid]! : 0.5 * (sorted[mid - 1]! + sorted[mid]!);
-}
 
 /** True when the ends meet: the gap from the last point to the first is under max(3 x median spacing, 1 m). */
 export function endsMeet(x: Float64Array, y: Float64Array): boolean {

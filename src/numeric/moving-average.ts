@@ -1,6 +1,8 @@
 // Centred moving average on a sample grid (running sum, linear time): the light smoothing used for curvature
 // and logged channels before features are picked from them.
 
+import { wrapIndex } from './lap-index.js';
+
 /** Centred moving average over +-half samples; wraps around on a closed lap. Linear time (running sum). */
 export function movingAverage(values: Float64Array, half: number, cyclic: boolean): Float64Array {
   const n = values.length;
@@ -12,10 +14,10 @@ export function movingAverage(values: Float64Array, half: number, cyclic: boolea
   if (cyclic) {
     const width = 2 * half + 1;
     let sum = 0;
-    for (let k = -half; k <= half; k++) sum += values[((k % n) + n) % n]!;
+    for (let k = -half; k <= half; k++) sum += values[wrapIndex(k, n)]!;
     for (let i = 0; i < n; i++) {
       out[i] = sum / width;
-      sum += values[(i + half + 1) % n]! - values[(((i - half) % n) + n) % n]!;
+      sum += values[(i + half + 1) % n]! - values[wrapIndex(i - half, n)]!;
     }
     return out;
   }

@@ -4,7 +4,8 @@
 import type { Car } from '../car/types.js';
 import type { CalibrationResult } from '../calibrate/calibrate-car.js';
 import { formatTable } from './text-table.js';
-import { round, SAFETY_CAUTION } from './lap-summary.js';
+import { SAFETY_CAUTION } from './lap-summary.js';
+import { roundToDigits } from '../numeric/round.js';
 import { mpsToKph } from '../units.js';
 import { formatIndex } from '../calibrate/identify.js';
 
@@ -78,22 +79,22 @@ export function calibrationJson(result: CalibrationResult, base: Car) {
     notSeparable: result.notSeparable.map((set) => ({
       fields: set.fields,
       kept: set.kept,
-      conditionIndex: Number.isFinite(set.conditionIndex) ? round(set.conditionIndex, 1) : null,
+      conditionIndex: Number.isFinite(set.conditionIndex) ? roundToDigits(set.conditionIndex, 1) : null,
     })),
     correlation: result.car.uncertainty?.correlation.map(({ fields, r }) => ({ fields: [...fields], r })) ?? [],
     fullThrottle: {
       stretches: drive.stretches,
       samples: drive.samples,
-      durationS: round(drive.durationS, 2),
-      speedRangeMps: drive.speedRangeMps.map((v) => round(v, 2)),
-      residualSdMps2: round(drive.residualSdMps2, 4),
+      durationS: roundToDigits(drive.durationS, 2),
+      speedRangeMps: drive.speedRangeMps.map((v) => roundToDigits(v, 2)),
+      residualSdMps2: roundToDigits(drive.residualSdMps2, 4),
     },
     nearLimit: {
       samples: grip.samples,
       blocks: grip.clusters,
-      speedRangeMps: grip.speedRangeMps.map((v) => (Number.isFinite(v) ? round(v, 2) : null)),
-      noiseSdMps2: Number.isFinite(grip.noiseSdMps2) ? round(grip.noiseSdMps2, 4) : null,
-      insideSdMps2: Number.isFinite(grip.insideSdMps2) ? round(grip.insideSdMps2, 4) : null,
+      speedRangeMps: grip.speedRangeMps.map((v) => (Number.isFinite(v) ? roundToDigits(v, 2) : null)),
+      noiseSdMps2: Number.isFinite(grip.noiseSdMps2) ? roundToDigits(grip.noiseSdMps2, 4) : null,
+      insideSdMps2: Number.isFinite(grip.insideSdMps2) ? roundToDigits(grip.insideSdMps2, 4) : null,
     },
     notes: result.notes,
   };

@@ -6,7 +6,8 @@ import type { LapResult } from '../solve/types.js';
 import { formatLapTime, kphToMps, mpsToKph } from '../units.js';
 import { displayUnits, plainNumber, type DisplayUnits } from './units.js';
 import { formatTable } from './text-table.js';
-import { round, SAFETY_CAUTION } from './lap-summary.js';
+import { SAFETY_CAUTION } from './lap-summary.js';
+import { roundToDigits } from '../numeric/round.js';
 import type { UncertainReference } from '../uncertainty/uncertain-reference.js';
 import { drawsLine, lapBandLine, percentText, robustFindingsText } from './uncertainty-summary.js';
 
@@ -120,25 +121,25 @@ export function compareSummaryText(
 }
 
 const roundOrNull = (value: number | null | undefined, digits: number) =>
-  value === null || value === undefined ? null : round(value, digits);
+  value === null || value === undefined ? null : roundToDigits(value, digits);
 
 export function compareSummaryJson(result: ComparisonResult) {
   return {
     track: result.trackName,
     car: result.carName,
     referenceEnvelope: result.referenceEnvelopeKind ?? 'car model',
-    driverLapTimeS: round(result.driverLapTimeS, 4),
-    referenceLapTimeS: round(result.referenceLapTimeS, 4),
-    lapTimeDeltaS: round(result.driverLapTimeS - result.referenceLapTimeS, 4),
+    driverLapTimeS: roundToDigits(result.driverLapTimeS, 4),
+    referenceLapTimeS: roundToDigits(result.referenceLapTimeS, 4),
+    lapTimeDeltaS: roundToDigits(result.driverLapTimeS - result.referenceLapTimeS, 4),
     demonstratedLapTimeS: roundOrNull(result.demonstratedLapTimeS, 4),
     demonstratedCaveat: result.demonstratedCaveat ?? null,
     carModelLapTimeS: roundOrNull(result.carModelLapTimeS, 4),
     corners: result.corners.map((c) => ({
       id: c.id,
       name: c.name,
-      entryM: round(c.entryM, 1),
-      apexM: round(c.apexM, 1),
-      exitM: round(c.exitM, 1),
+      entryM: roundToDigits(c.entryM, 1),
+      apexM: roundToDigits(c.apexM, 1),
+      exitM: roundToDigits(c.exitM, 1),
       brakingPointDeltaM: roundOrNull(c.brakingPointDeltaM, 1),
       brakingPointDeltaS: roundOrNull(c.brakingPointDeltaS, 3),
       referenceBrakingPointM: roundOrNull(c.referenceBrakingPointM, 1),
@@ -147,29 +148,29 @@ export function compareSummaryJson(result: ComparisonResult) {
       referenceBeforeTurnInM: roundOrNull(c.referenceBeforeTurnInM, 1),
       driverBeforeTurnInM: roundOrNull(c.driverBeforeTurnInM, 1),
       ...(c.markerName ? { marker: c.markerName, driverBeforeMarkerM: roundOrNull(c.driverBeforeMarkerM, 1) } : {}),
-      entrySpeedDriverKph: round(c.entrySpeedDriverKph, 1),
-      entrySpeedReferenceKph: round(c.entrySpeedReferenceKph, 1),
-      minSpeedDriverKph: round(c.minSpeedDriverKph, 1),
-      minSpeedReferenceKph: round(c.minSpeedReferenceKph, 1),
-      minSpeedDeltaKph: round(c.minSpeedDeltaKph, 1),
-      minSpeedOffsetFromApexM: round(c.minSpeedOffsetFromApexM, 1),
-      exitSpeedDriverKph: round(c.exitSpeedDriverKph, 1),
-      exitSpeedReferenceKph: round(c.exitSpeedReferenceKph, 1),
-      entryTimeLostS: round(c.entryTimeLostS, 4),
-      middleTimeLostS: round(c.middleTimeLostS, 4),
-      exitTimeLostS: round(c.exitTimeLostS, 4),
-      timeLostS: round(c.timeLostS, 4),
+      entrySpeedDriverKph: roundToDigits(c.entrySpeedDriverKph, 1),
+      entrySpeedReferenceKph: roundToDigits(c.entrySpeedReferenceKph, 1),
+      minSpeedDriverKph: roundToDigits(c.minSpeedDriverKph, 1),
+      minSpeedReferenceKph: roundToDigits(c.minSpeedReferenceKph, 1),
+      minSpeedDeltaKph: roundToDigits(c.minSpeedDeltaKph, 1),
+      minSpeedOffsetFromApexM: roundToDigits(c.minSpeedOffsetFromApexM, 1),
+      exitSpeedDriverKph: roundToDigits(c.exitSpeedDriverKph, 1),
+      exitSpeedReferenceKph: roundToDigits(c.exitSpeedReferenceKph, 1),
+      entryTimeLostS: roundToDigits(c.entryTimeLostS, 4),
+      middleTimeLostS: roundToDigits(c.middleTimeLostS, 4),
+      exitTimeLostS: roundToDigits(c.exitTimeLostS, 4),
+      timeLostS: roundToDigits(c.timeLostS, 4),
       coastingS: roundOrNull(c.coastingS, 2),
-      meanGripUse: round(c.meanGripUse, 3),
-      peakGripUse: round(c.peakGripUse, 3),
+      meanGripUse: roundToDigits(c.meanGripUse, 3),
+      peakGripUse: roundToDigits(c.peakGripUse, 3),
       stretches: c.stretches.map((s) => ({
         kind: s.kind,
-        startM: round(s.startM, 1),
-        endM: round(s.endM, 1),
-        meanGripUse: round(s.meanGripUse, 3),
+        startM: roundToDigits(s.startM, 1),
+        endM: roundToDigits(s.endM, 1),
+        meanGripUse: roundToDigits(s.meanGripUse, 3),
       })),
     })),
-    findings: result.findings.map((f) => ({ corner: f.corner, timeS: round(f.timeS, 3), text: f.text })),
+    findings: result.findings.map((f) => ({ corner: f.corner, timeS: roundToDigits(f.timeS, 3), text: f.text })),
     notes: result.notes,
   };
 }

@@ -5,7 +5,7 @@ import type { TrackGrid } from '../track/types.js';
 import type { CornerLayout } from '../track/corner-layout.js';
 import { CORNERS_FORMAT } from '../track/corner-spec.js';
 import { formatTable } from './text-table.js';
-import { round } from './lap-summary.js';
+import { roundToDigits } from '../numeric/round.js';
 
 /** The track's corners as the corners command and every JSON output list them. */
 export function cornersJson(layout: CornerLayout) {
@@ -13,11 +13,11 @@ export function cornersJson(layout: CornerLayout) {
     number: c.id,
     name: c.name,
     direction: c.side > 0 ? 'left' : 'right',
-    entryM: round(c.entryM, 1),
-    apexM: round(c.apexM, 1),
-    exitM: round(c.exitM, 1),
-    radiusM: Number.isFinite(c.radiusM) ? round(c.radiusM, 1) : null,
-    ...(c.marker ? { marker: { name: c.marker.name, atM: round(c.marker.atM, 1) } } : {}),
+    entryM: roundToDigits(c.entryM, 1),
+    apexM: roundToDigits(c.apexM, 1),
+    exitM: roundToDigits(c.exitM, 1),
+    radiusM: Number.isFinite(c.radiusM) ? roundToDigits(c.radiusM, 1) : null,
+    ...(c.marker ? { marker: { name: c.marker.name, atM: roundToDigits(c.marker.atM, 1) } } : {}),
   }));
 }
 
@@ -25,9 +25,9 @@ export function cornersFileJson(track: TrackGrid, layout: CornerLayout) {
   return {
     format: CORNERS_FORMAT,
     track: track.name,
-    lengthM: round(track.lengthM, 1),
+    lengthM: roundToDigits(track.lengthM, 1),
     corners: cornersJson(layout),
-    sectors: layout.sectors.map((s) => ({ name: s.name, startM: round(s.startM, 1) })),
+    sectors: layout.sectors.map((s) => ({ name: s.name, startM: roundToDigits(s.startM, 1) })),
   };
 }
 

@@ -8,6 +8,7 @@ import { zoneLabel } from '../track/corner-layout.js';
 import { cornersJson } from './corners-file.js';
 import { roadProfileOf } from '../track/road-profile.js';
 import { requireFiniteLap } from './finite.js';
+import { roundToDigits } from '../numeric/round.js';
 
 export const SAFETY_CAUTION =
   'Caution: this reference lap is a model result, not a driving instruction. Driving at the limit is dangerous; ' +
@@ -21,7 +22,7 @@ export function gearShifts(result: LapResult): { atM: number; toGear: number }[]
     if (!t.shift[i] || (i > 0 && t.shift[i - 1])) continue;
     let end = i;
     while (end + 1 < t.count && t.shift[end + 1]) end++;
-    shifts.push({ atM: round(t.distanceM[i]!, 1), toGear: t.gear[Math.min(end + 1, t.count - 1)]! });
+    shifts.push({ atM: roundToDigits(t.distanceM[i]!, 1), toGear: t.gear[Math.min(end + 1, t.count - 1)]! });
   }
   return shifts;
 }
@@ -41,26 +42,30 @@ export function lapSummaryJson(result: LapResult, carName: string) {
     car: carName,
     envelope: result.envelopeKind,
     closed: result.trace.closed,
-    lapTimeS: round(result.lapTimeS, 4),
-    lengthM: round(result.lengthM, 2),
-    stepM: round(result.track.stepM, 6),
-    maxSpeedMps: round(result.maxSpeedMps, 3),
-    minSpeedMps: round(result.minSpeedMps, 3),
+    lapTimeS: roundToDigits(result.lapTimeS, 4),
+    lengthM: roundToDigits(result.lengthM, 2),
+    stepM: roundToDigits(result.track.stepM, 6),
+    maxSpeedMps: roundToDigits(result.maxSpeedMps, 3),
+    minSpeedMps: roundToDigits(result.minSpeedMps, 3),
     ...roadSummaryJson(result),
     corners: cornersJson(result.corners),
-    sectors: result.corners.sectors.map((s) => ({ ...s, startM: round(s.startM, 1), endM: round(s.endM, 1) })),
+    sectors: result.corners.sectors.map((s) => ({
+      ...s,
+      startM: roundToDigits(s.startM, 1),
+      endM: roundToDigits(s.endM, 1),
+    })),
     brakingZones: result.brakingZones.map((zone) => ({
       corner: zone.corner,
       tag: zone.tag,
       cornerName: zone.cornerName,
-      beforeTurnInM: zone.beforeTurnInM === null ? null : round(zone.beforeTurnInM, 1),
-      startM: round(zone.startM, 1),
-      entrySpeedMps: round(zone.entrySpeedMps, 3),
-      minSpeedAtM: round(zone.minSpeedAtM, 1),
-      minSpeedMps: round(zone.minSpeedMps, 3),
-      brakingLengthM: round(zone.brakingLengthM, 1),
+      beforeTurnInM: zone.beforeTurnInM === null ? null : roundToDigits(zone.beforeTurnInM, 1),
+      startM: roundToDigits(zone.startM, 1),
+      entrySpeedMps: roundToDigits(zone.entrySpeedMps, 3),
+      minSpeedAtM: roundToDigits(zone.minSpeedAtM, 1),
+      minSpeedMps: roundToDigits(zone.minSpeedMps, 3),
+      brakingLengthM: roundToDigits(zone.brakingLengthM, 1),
     })),
-    powerLimitedShare: round(powerLimitedShare(result), 4),
+    powerLimitedShare: roundToDigits(powerLimitedShare(result), 4),
     shifts: gearShifts(result),
   };
 }
@@ -83,10 +88,10 @@ function roadSummaryJson(result: LapResult) {
   }
   return {
     road: {
-      heightRangeM: round(zMax - zMin, 2),
-      steepestClimbPct: round(100 * Math.tan(gradeMax), 2),
-      steepestDescentPct: round(100 * Math.tan(gradeMin), 2),
-      steepestBankDeg: round((bankMax * 180) / Math.PI, 2),
+      heightRangeM: roundToDigits(zMax - zMin, 2),
+      steepestClimbPct: roundToDigits(100 * Math.tan(gradeMax), 2),
+      steepestDescentPct: roundToDigits(100 * Math.tan(gradeMin), 2),
+      steepestBankDeg: roundToDigits((bankMax * 180) / Math.PI, 2),
     },
   };
 }
@@ -134,9 +139,4 @@ export function lapSummaryText(
     SAFETY_CAUTION,
   ];
   return lines.join('\n') + '\n';
-}
-
-export function round(value: number, digits: number): number {
-  const scale = 10 ** digits;
-  return Math.round(value * scale) / scale;
 }

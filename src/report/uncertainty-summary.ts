@@ -4,7 +4,7 @@
 import type { Band, UncertainFinding, UncertainReference } from '../uncertainty/uncertain-reference.js';
 import { formatLapTime, mpsToKph } from '../units.js';
 import { formatTable } from './text-table.js';
-import { round } from './lap-summary.js';
+import { roundToDigits } from '../numeric/round.js';
 
 export const percentText = (share: number): string => `${Math.round(share * 100)} %`;
 
@@ -69,7 +69,13 @@ export function robustFindingsText(u: UncertainReference): string[] {
 }
 
 const bandJson = (band: Band | null, digits: number) =>
-  band ? { median: round(band.median, digits), low: round(band.low, digits), high: round(band.high, digits) } : null;
+  band
+    ? {
+        median: roundToDigits(band.median, digits),
+        low: roundToDigits(band.low, digits),
+        high: roundToDigits(band.high, digits),
+      }
+    : null;
 
 export function uncertaintyJson(u: UncertainReference) {
   return {
@@ -82,25 +88,25 @@ export function uncertaintyJson(u: UncertainReference) {
     brakingZones: u.zones.map((zone) => ({
       brakingPointM: bandJson(zone.brakingPointM, 1),
       minSpeedMps: bandJson(zone.minSpeedMps, 3),
-      foundShare: round(zone.foundShare, 3),
+      foundShare: roundToDigits(zone.foundShare, 3),
     })),
     corners: u.corners.map((corner) => ({
       id: corner.id,
       timeLostS: bandJson(corner.timeLostS, 4),
       claim: corner.claim,
-      holds: corner.holds === null ? null : round(corner.holds, 3),
+      holds: corner.holds === null ? null : roundToDigits(corner.holds, 3),
     })),
     findings: u.findings.map((finding) => ({
       corner: finding.corner,
       text: finding.text,
-      nominalTimeS: round(finding.nominalTimeS, 3),
+      nominalTimeS: roundToDigits(finding.nominalTimeS, 3),
       timeS: bandJson(finding.timeS, 3),
-      holds: round(finding.holds, 3),
+      holds: roundToDigits(finding.holds, 3),
       uncertain: finding.uncertain,
       clauses: finding.clauses.map((clause) => ({
         kind: clause.kind,
         text: clause.text,
-        holds: round(clause.holds, 3),
+        holds: roundToDigits(clause.holds, 3),
       })),
     })),
   };

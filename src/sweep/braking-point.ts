@@ -3,6 +3,7 @@
 // distance, as in the quasi-steady-state method). A sweep reads shifts far smaller than the grid step from it.
 
 import type { BrakingZone, LapResult } from '../solve/types.js';
+import { wrapIndex } from '../numeric/lap-index.js';
 
 /**
  * Braking point of `zone`, m along the centreline (station). The brakes come on at sample s, so the two
@@ -17,7 +18,7 @@ export function brakingPointM(result: LapResult, zone: BrakingZone): number {
   const s = zone.startIndex;
   const closed = trace.closed;
   if (n < 5 || (!closed && (s < 2 || s + 2 > n - 1))) return zone.startM;
-  const at = (i: number) => (i + n) % n;
+  const at = (i: number) => wrapIndex(i, n);
   const a = at(s - 1);
   const b = at(s + 1);
   const v = trace.speedMps;

@@ -7,7 +7,8 @@ import { InputError } from '../errors.js';
 import { mpsToKph } from '../units.js';
 import { defaultContext, outcomeWidth, solveSetup, sweepRunKind, VALUES_PER_CORNER, writeOutcome } from './evaluate.js';
 import { runSetups, runSetupsInProcess, type RunOptions } from './pool.js';
-import { cornersOf, DIGITS, roundTo, type SweepCorner } from './table.js';
+import { cornersOf, DIGITS, type SweepCorner } from './table.js';
+import { roundToDigits } from '../numeric/round.js';
 import { tidy, type SetupBase } from './settings.js';
 
 export const MAX_STINT_LAPS = 10_000;
@@ -86,14 +87,14 @@ function assemble(loads: number[], firstLap: LapResult, outcomes: Float64Array):
     const lap: StintLap = {
       lap: r + 1,
       fuelKg,
-      lapTimeS: roundTo(outcomes[at]!, DIGITS.lapTimeS),
+      lapTimeS: roundToDigits(outcomes[at]!, DIGITS.lapTimeS),
       brakingPointM: [],
       minSpeedKph: [],
     };
     for (let k = 0; k < cornerCount; k++) {
       const c = at + 1 + VALUES_PER_CORNER * k;
-      lap.brakingPointM.push(roundTo(outcomes[c]!, DIGITS.brakingPointM));
-      lap.minSpeedKph.push(roundTo(mpsToKph(outcomes[c + 2]!), DIGITS.speedKph));
+      lap.brakingPointM.push(roundToDigits(outcomes[c]!, DIGITS.brakingPointM));
+      lap.minSpeedKph.push(roundToDigits(mpsToKph(outcomes[c + 2]!), DIGITS.speedKph));
     }
     return lap;
   });

@@ -8,6 +8,7 @@ import { brakingPointM } from './braking-point.js';
 import { outcomeWidth, VALUES_PER_CORNER } from './evaluate.js';
 import { runValues, type RunKind, type SweepPlan } from './plan.js';
 import { unitOf } from './fields.js';
+import { roundToDigits } from '../numeric/round.js';
 
 /** Digits kept after the point: lap time (s), braking point (m), speeds (km/h). */
 export const DIGITS = { lapTimeS: 6, brakingPointM: 3, speedKph: 3 } as const;
@@ -59,19 +60,13 @@ export interface SweepTable {
   records: SweepRecord[];
 }
 
-export function roundTo(value: number, digits: number): number {
-  if (!Number.isFinite(value)) return value;
-  const rounded = Number(value.toFixed(digits));
-  return rounded === 0 ? 0 : rounded;
-}
-
 export function cornersOf(baseline: LapResult): SweepCorner[] {
   return baseline.brakingZones.map((zone: CornerZone) => ({
     corner: zone.corner,
     tag: zone.tag,
     name: zone.cornerName,
-    brakingPointM: roundTo(brakingPointM(baseline, zone), DIGITS.brakingPointM),
-    minSpeedAtM: roundTo(zone.minSpeedAtM, DIGITS.brakingPointM),
+    brakingPointM: roundToDigits(brakingPointM(baseline, zone), DIGITS.brakingPointM),
+    minSpeedAtM: roundToDigits(zone.minSpeedAtM, DIGITS.brakingPointM),
   }));
 }
 
@@ -125,16 +120,16 @@ export function recordsFromOutcomes(
       kind: plan.kinds[run]!,
       varies: variedField(plan, run),
       values: Array.from(runValues(plan, run)),
-      lapTimeS: roundTo(outcomes[at]!, DIGITS.lapTimeS),
+      lapTimeS: roundToDigits(outcomes[at]!, DIGITS.lapTimeS),
       brakingPointM: [],
       entrySpeedKph: [],
       minSpeedKph: [],
     };
     for (let k = 0; k < cornerCount; k++) {
       const c = at + 1 + VALUES_PER_CORNER * k;
-      record.brakingPointM.push(roundTo(outcomes[c]!, DIGITS.brakingPointM));
-      record.entrySpeedKph.push(roundTo(mpsToKph(outcomes[c + 1]!), DIGITS.speedKph));
-      record.minSpeedKph.push(roundTo(mpsToKph(outcomes[c + 2]!), DIGITS.speedKph));
+      record.brakingPointM.push(roundToDigits(outcomes[c]!, DIGITS.brakingPointM));
+      record.entrySpeedKph.push(roundToDigits(mpsToKph(outcomes[c + 1]!), DIGITS.speedKph));
+      record.minSpeedKph.push(roundToDigits(mpsToKph(outcomes[c + 2]!), DIGITS.speedKph));
     }
     records.push(record);
   }

@@ -6,6 +6,7 @@ import type { TrackGrid } from './types.js';
 import type { CornerSpan } from './corners.js';
 import type { CornerLayout, TrackSector } from './corner-layout.js';
 import { equalThirds } from './corner-layout.js';
+import { wrapIndex } from '../numeric/lap-index.js';
 
 /** The `format` key of every corners file, so a file of another kind is refused with a clear message. */
 export const CORNERS_FORMAT = 'reflap corners 1';
@@ -69,7 +70,7 @@ export function cornerLayoutFromSpec(track: TrackGrid, spec: CornerSpec, source:
     let peak = 0;
     let turn = 0;
     for (let j = entryIndex; j <= exitIndex; j++) {
-      const kappa = track.curvaturePerM[((j % n) + n) % n]!;
+      const kappa = track.curvaturePerM[wrapIndex(j, n)]!;
       if (Math.abs(kappa) > peak) peak = Math.abs(kappa);
       turn += kappa;
     }

@@ -5,6 +5,7 @@
 import type { NamedCorner, TrackGrid } from './types.js';
 import { movingAverage } from '../numeric/moving-average.js';
 import { degToRad } from '../units.js';
+import { wrapIndex } from '../numeric/lap-index.js';
 
 export interface CornerDetectionOptions {
   /** Window of the moving average applied to the curvature before detection, m. */
@@ -62,8 +63,6 @@ export interface CornerMarker {
   atM: number;
 }
 
-const wrap = (k: number, n: number) => ((k % n) + n) % n;
-
 interface Run {
   start: number;
   end: number;
@@ -78,7 +77,7 @@ export function detectCorners(
   const step = track.stepM;
   if (n < 3) return [];
   const kappa = movingAverage(track.curvaturePerM, Math.round(options.smoothingM / step / 2), track.closed);
-  const quiet = (k: number) => Math.abs(kappa[wrap(k, n)]!) < options.straightCurvaturePerM;
+  const quiet = (k: number) => Math.abs(kappa[wrapIndex(k, n)]!) < options.straightCurvaturePerM;
   // On a closed track start the scan on a straight so no corner is cut in two by the start line.
   let origin = 0;
   if (track.closed) {
@@ -93,9 +92,9 @@ export function detectCorners(
       k++;
       continue;
     }
-    const side = Math.sign(kappa[wrap(origin + k, n)]!);
+    const side = Math.sign(kappa[wrapIndex(origin + k, n)]!);
     const start = k;
-    while (k < span && !quiet(origin + k) && Math.sign(kappa[wrap(origin + k, n)]!) === side) k++;
+    while (k < span && !quiet(origin + k) && Math.sign(kappa[wrapIndex(origin + k, n)]!) === side) k++;
     runs.push({ start: origin + start, end: origin + k - 1, side });
   }
   // Join same-sense runs split by a short, nearly straight gap (a double-apex corner).
@@ -111,21 +110,21 @@ export function detectCorners(
     let peak = 0;
     let turn = 0;
     for (let j = run.start; j <= run.end; j++) {
-      const value = Math.abs(kappa[wrap(j, n)]!);
+      const value = Math.abs(kappa[wrapIndex(j, n)]!);
       if (value > peak) peak = value;
-      turn += track.curvaturePerM[wrap(j, n)]! * step;
+      turn += track.curvaturePerM[wrapIndex(j, n)]! * step;
     }
     if (peak < options.minPeakCurvaturePerM || Math.abs(turn) < options.minTurnRad) continue;
     const edge = Math.max(options.straightCurvaturePerM, options.edgeShareOfPeak * peak);
     let entry = run.start;
-    while (entry < run.end && Math.abs(kappa[wrap(entry, n)]!) < edge) entry++;
+    while (entry < run.end && Math.abs(kappa[wrapIndex(entry, n)]!) < edge) entry++;
     let exit = run.end;
-    while (exit > entry && Math.abs(kappa[wrap(exit, n)]!) < edge) exit--;
+    while (exit > entry && Math.abs(kappa[wrapIndex(exit, n)]!) < edge) exit--;
     // Apex: the middle of the stretch within 10 % of the peak (a constant-radius arc has no single maximum).
     let first = -1;
     let lastTight = -1;
     for (let j = entry; j <= exit; j++) {
-      if (Math.abs(kappa[wrap(j, n)]!) >= 0.9 * peak) {
+      if (Math.abs(kappa[wrapIndex(j, n)]!) >= 0.9 * peak) {
         if (first < 0) first = j;
         lastTight = j;
       }
@@ -145,9 +144,9 @@ export function detectCorners(
       entryIndex: entryU,
       apexIndex: apex,
       exitIndex: exitU,
-      entryM: wrap(entryU, n) * step,
+      entryM: wrapIndex(entryU, n) * step,
       apexM: apex * step,
-      exitM: wrap(exitU, n) * step,
+      exitM: wrapIndex(exitU, n) * step,
       peakCurvaturePerM: peak,
       radiusM: 1 / peak,
       marker: null,

@@ -2,6 +2,8 @@
 // (kappa = (x'y'' - y'x'') / (x'^2 + y'^2)^1.5, any parametrisation; do Carmo, Differential Geometry of Curves
 // and Surfaces, 1.5), arc length, and linear resampling onto a uniform distance grid. Linear cost throughout.
 
+import { lerp } from '../numeric/interpolate.js';
+
 /** Wraps an angle difference into (-pi, pi]. */
 export function wrapAngleRad(angleRad: number): number {
   return angleRad - 2 * Math.PI * Math.ceil((angleRad - Math.PI) / (2 * Math.PI));
@@ -102,7 +104,7 @@ export function resampleLinear(
     for (const channel of channels) {
       const v0 = channel.values[j]!;
       const v1 = wraps ? channel.values[0]! + (channel.lapOffset ?? 0) : channel.values[j + 1]!;
-      channel.out[i] = v0 + f * (v1 - v0);
+      channel.out[i] = lerp(v0, v1, f);
     }
   }
 }

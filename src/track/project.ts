@@ -5,6 +5,8 @@
 // least-squares rotation of Kabsch (1976, Acta Cryst. A32) / Umeyama (1991, IEEE TPAMI 13(4)) in each step.
 
 import type { TrackGrid } from './types.js';
+import { lerp } from '../numeric/interpolate.js';
+import { median } from '../numeric/quantile.js';
 
 export interface PointProjection {
   /** Distance along the centreline of the nearest point, m, in [0, lengthM). */
@@ -45,7 +47,7 @@ function trySegment(track: TrackGrid, i: number, x: number, y: number, out: Poin
   if (gap >= out.gapM) return;
   const start = track.distanceM[i]!;
   const end = j === 0 ? track.lengthM : track.distanceM[j]!;
-  let along = start + t * (end - start);
+  let along = lerp(start, end, t);
   if (along >= track.lengthM) along -= track.lengthM;
   const length = Math.sqrt(lengthSquared);
   out.gapM = gap;
@@ -187,11 +189,6 @@ export function applyRigid(
   return { xM: outX, yM: outY };
 }
 
-function median(values: Float64Array | number[]): number {
-  const sorted = Array.from(values).sort((a, b) => a - b);
-  return sorted.length === 0 ? NaN : sorted[Math.floor(sorted.length / 2)]!;
-}
-
 /**
  * Rotation + translation (no scale, no mirror) that lays a path onto the centreline. ICP from twelve starting
  * headings about the centroids; in each iteration the pairs further than 2.5 x the median gap are dropped
@@ -237,8 +234,8 @@ export function fitRigidToCentreline(track: TrackGrid, xM: Float64Array, yM: Flo
         const a = projection.segment;
         const b = a + 1 < n ? a + 1 : 0;
         const t = n > 1 ? segmentFraction(track, a, b, x, y) : 0;
-        qx[i] = track.xM[a]! + t * (track.xM[b]! - track.xM[a]!);
-        qy[i] = track.yM[a]! + t * (track.yM[b]! - track.yM[a]!);
+        qx[i] = lerp(track.xM[a]!, track.xM[b]!, t);
+        qy[i] = lerp(track.yM[a]!, track.yM[b]!, t);
         gaps[i] = projection.gapM;
       }
       medianGap = median(gaps);

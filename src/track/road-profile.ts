@@ -4,6 +4,7 @@
 
 import type { TrackGrid } from './types.js';
 import { movingAverage } from '../numeric/moving-average.js';
+import { lapIndex } from '../numeric/lap-index.js';
 
 export interface RoadProfile {
   /** Height above the track's datum, m (zeros where the file gives bank only). */
@@ -35,8 +36,8 @@ export function roadProfileOf(track: TrackGrid): RoadProfile | null {
   const h = track.stepM;
   const closed = track.closed;
   for (let i = 0; i < n; i++) {
-    const prev = closed ? (i - 1 + n) % n : Math.max(0, i - 1);
-    const next = closed ? (i + 1) % n : Math.min(n - 1, i + 1);
+    const prev = lapIndex(i - 1, n, closed);
+    const next = lapIndex(i + 1, n, closed);
     const span = closed ? 2 : next - prev;
     const slope = (smooth[next]! - smooth[prev]!) / (span * h);
     gradeRad[i] = Math.atan(slope);

@@ -9,7 +9,7 @@ import type { ComparisonResult, CornerComparison, DriverLap } from '../compare/t
 import type { CompareOptions } from '../compare/compare-options.js';
 import { DEFAULT_COMPARE_OPTIONS } from '../compare/compare-options.js';
 import { CLAIM_KINDS, cornerClaims, phaseClaim, type Claim, type ClaimKind } from '../compare/findings.js';
-import { quantileSorted } from '../compare/envelope-fit.js';
+import { quantileSorted } from '../numeric/quantile.js';
 import type { LapResult } from '../solve/types.js';
 import type { Path, TrackGrid } from '../track/types.js';
 import { defaultContext, outcomeWidth, VALUES_PER_CORNER } from '../sweep/evaluate.js';
@@ -24,6 +24,7 @@ import {
   VALUES_PER_COMPARED_CORNER,
   type DrawSpec,
 } from './evaluate-draw.js';
+import { lerp } from '../numeric/interpolate.js';
 
 export interface UncertainInput {
   track: TrackGrid;
@@ -212,7 +213,7 @@ function speedBands(
       [low, kept.low],
       [high, kept.high],
     ] as const) {
-      target[i] = source[s]! + w * (source[next]! - source[s]!);
+      target[i] = lerp(source[s]!, source[next]!, w);
     }
   }
   return { median, low, high };

@@ -2,7 +2,7 @@
 // from the fitted record driving a ring at the speed uniform circular motion allows.
 
 import { describe, expect, it } from 'vitest';
-import { fitEnvelope, quantileSorted } from '../../src/compare/envelope-fit.js';
+import { fitEnvelope } from '../../src/compare/envelope-fit.js';
 import { demonstratedEnvelope } from '../../src/car/demonstrated-envelope.js';
 import { parseEnvelopeJson } from '../../src/io/read-envelope.js';
 import { simulate } from '../../src/solve/simulate.js';
@@ -39,15 +39,6 @@ function ellipseSamples(limits: { brake: number; accel: number; left: number; ri
   }
   return { speedMps, axMps2, ayMps2, throttle: null, brake: null };
 }
-
-describe('quantiles', () => {
-  it('interpolates between order statistics (Hyndman and Fan 1996, type 7)', () => {
-    // Type 7 on 1, 2, 3, 4: position (n - 1) q = 2.94, so 3 + 0.94 = 3.94; the median of 1..4 is 2.5.
-    const values = Float64Array.from([1, 2, 3, 4]);
-    expect(quantileSorted(values, 0.98)).toBeCloseTo(3.94, 12);
-    expect(quantileSorted(values, 0.5)).toBeCloseTo(2.5, 12);
-  });
-});
 
 describe('fitting the envelope', () => {
   const limits = { brake: 12, accel: 5, left: 11, right: 10 };

@@ -10,7 +10,7 @@ import { addUnitsOption, unitsOf, type UnitsOptionValues } from '../units-option
 import { InputError } from '../../errors.js';
 import { gToMps2, kphToMps, mps2ToG, mpsToKph } from '../../units.js';
 import { MAX_ACCEL_MPS2, MAX_SPEED_MPS } from '../../car/plausible.js';
-import { round } from '../../report/lap-summary.js';
+import { roundToDigits } from '../../numeric/round.js';
 
 interface BudgetValues extends CarOptionValues, UnitsOptionValues {
   speedKph: string;
@@ -68,26 +68,29 @@ export function runBudget(values: BudgetValues): void {
         {
           car: car.name,
           speedKph,
-          lateralDemandG: round(mps2ToG(lateralMps2), 4),
-          lateralLimitG: round(budget.lateralLimitG, 4),
-          lateralShare: round(budget.lateralShare, 4),
-          brakingAvailableG: round(budget.brakingAvailableG, 4),
-          accelAvailableG: round(budget.accelAvailableG, 4),
+          lateralDemandG: roundToDigits(mps2ToG(lateralMps2), 4),
+          lateralLimitG: roundToDigits(budget.lateralLimitG, 4),
+          lateralShare: roundToDigits(budget.lateralShare, 4),
+          brakingAvailableG: roundToDigits(budget.brakingAvailableG, 4),
+          accelAvailableG: roundToDigits(budget.accelAvailableG, 4),
           linearSplit: {
-            brakingAvailableG: round(budget.linearBrakingAvailableG, 4),
-            accelAvailableG: round(budget.linearAccelAvailableG, 4),
+            brakingAvailableG: roundToDigits(budget.linearBrakingAvailableG, 4),
+            accelAvailableG: roundToDigits(budget.linearAccelAvailableG, 4),
           },
-          straightLine: { brakingG: round(budget.brakingStraightG, 4), accelG: round(budget.accelStraightG, 4) },
+          straightLine: {
+            brakingG: roundToDigits(budget.brakingStraightG, 4),
+            accelG: roundToDigits(budget.accelStraightG, 4),
+          },
           radiusM,
-          cornerSpeedLimitMps: cornerSpeedLimitMps === null ? null : round(cornerSpeedLimitMps, 3),
-          tightestRadiusM: round(tightestRadiusM, 2),
+          cornerSpeedLimitMps: cornerSpeedLimitMps === null ? null : roundToDigits(cornerSpeedLimitMps, 3),
+          tightestRadiusM: roundToDigits(tightestRadiusM, 2),
           lateralLoads: lateralLoads.map((row) => ({
-            lateralShare: round(row.lateralShare, 4),
-            lateralG: round(mps2ToG(row.lateralDemandMps2), 4),
-            brakingAvailableG: round(row.brakingAvailableG, 4),
-            accelAvailableG: round(row.accelAvailableG, 4),
-            linearBrakingAvailableG: round(row.linearBrakingAvailableG, 4),
-            linearAccelAvailableG: round(row.linearAccelAvailableG, 4),
+            lateralShare: roundToDigits(row.lateralShare, 4),
+            lateralG: roundToDigits(mps2ToG(row.lateralDemandMps2), 4),
+            brakingAvailableG: roundToDigits(row.brakingAvailableG, 4),
+            accelAvailableG: roundToDigits(row.accelAvailableG, 4),
+            linearBrakingAvailableG: roundToDigits(row.linearBrakingAvailableG, 4),
+            linearAccelAvailableG: roundToDigits(row.linearAccelAvailableG, 4),
           })),
         },
         null,

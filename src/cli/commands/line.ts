@@ -9,7 +9,8 @@ import { defaultMarginM } from '../../line/corridor.js';
 import { lineCsv } from '../../line/line-csv.js';
 import { racingLine } from '../../line/racing-line.js';
 import { LINE_OBJECTIVES, type LineObjective, type RacingLine } from '../../line/types.js';
-import { SAFETY_CAUTION, round } from '../../report/lap-summary.js';
+import { SAFETY_CAUTION } from '../../report/lap-summary.js';
+import { roundToDigits } from '../../numeric/round.js';
 import { formatLapTime } from '../../units.js';
 import {
   addCarOptions,
@@ -59,16 +60,16 @@ export function lineSummaryJson(line: RacingLine, track: TrackGrid, carName: str
     track: track.name,
     car: carName,
     objective: line.objective,
-    marginM: round(line.marginM, 3),
-    lapTimeCentrelineS: round(line.centrelineLap.lapTimeS, 4),
-    lapTimeLineS: round(line.lap.lapTimeS, 4),
-    lapTimeCurvatureLineS: round(line.curvatureLineLapTimeS, 4),
-    gainS: round(line.centrelineLap.lapTimeS - line.lap.lapTimeS, 4),
-    lengthM: round(line.lengthM, 2),
-    centrelineLengthM: round(track.lengthM, 2),
-    minRadiusM: Number.isFinite(line.minRadiusM) ? round(line.minRadiusM, 2) : null,
-    minRadiusAtM: round(line.minRadiusAtM, 1),
-    maxOffsetM: round(line.maxOffsetM, 3),
+    marginM: roundToDigits(line.marginM, 3),
+    lapTimeCentrelineS: roundToDigits(line.centrelineLap.lapTimeS, 4),
+    lapTimeLineS: roundToDigits(line.lap.lapTimeS, 4),
+    lapTimeCurvatureLineS: roundToDigits(line.curvatureLineLapTimeS, 4),
+    gainS: roundToDigits(line.centrelineLap.lapTimeS - line.lap.lapTimeS, 4),
+    lengthM: roundToDigits(line.lengthM, 2),
+    centrelineLengthM: roundToDigits(track.lengthM, 2),
+    minRadiusM: Number.isFinite(line.minRadiusM) ? roundToDigits(line.minRadiusM, 2) : null,
+    minRadiusAtM: roundToDigits(line.minRadiusAtM, 1),
+    maxOffsetM: roundToDigits(line.maxOffsetM, 3),
     lapsDriven: line.lapEvaluations,
   };
 }

@@ -17,7 +17,8 @@ import { compareSetupChange, type LapComparison } from '../../sweep/compare-laps
 import { DEFAULT_MATCH_TOLERANCE_M } from '../../sweep/match-zones.js';
 import { unitOf } from '../../sweep/fields.js';
 import { formatTable } from '../../report/text-table.js';
-import { round, SAFETY_CAUTION } from '../../report/lap-summary.js';
+import { SAFETY_CAUTION } from '../../report/lap-summary.js';
+import { roundToDigits } from '../../numeric/round.js';
 import { formatLapTime } from '../../units.js';
 import { InputError } from '../../errors.js';
 import { loadSetupInputs, setupReference } from '../setup-inputs.js';
@@ -67,19 +68,19 @@ export function describeSettings(base: SetupBase, settings: readonly Setting[], 
 }
 
 export function whatifJson(comparison: LapComparison, changes: { field: string; from: number | null; to: number }[]) {
-  const r = (v: number | null, digits: number) => (v === null ? null : round(v, digits));
+  const r = (v: number | null, digits: number) => (v === null ? null : roundToDigits(v, digits));
   return {
     changes,
-    baselineLapTimeS: round(comparison.baselineLapTimeS, 4),
-    changedLapTimeS: round(comparison.changedLapTimeS, 4),
-    lapTimeDeltaS: round(comparison.lapTimeDeltaS, 4),
+    baselineLapTimeS: roundToDigits(comparison.baselineLapTimeS, 4),
+    changedLapTimeS: roundToDigits(comparison.changedLapTimeS, 4),
+    lapTimeDeltaS: roundToDigits(comparison.lapTimeDeltaS, 4),
     brakingZones: comparison.zones.map((zone) => ({
       corner: zone.corner,
       tag: zone.tag,
       cornerName: zone.cornerName,
-      startM: round(zone.startM, 2),
-      minSpeedAtM: round(zone.minSpeedAtM, 2),
-      brakingPointM: round(zone.brakingPointM, 2),
+      startM: roundToDigits(zone.startM, 2),
+      minSpeedAtM: roundToDigits(zone.minSpeedAtM, 2),
+      brakingPointM: roundToDigits(zone.brakingPointM, 2),
       changedBrakingPointM: r(zone.changedBrakingPointM, 2),
       brakingPointShiftM: r(zone.brakingPointShiftM, 2),
       entrySpeedDeltaKph: r(zone.entrySpeedDeltaKph, 2),
@@ -90,8 +91,8 @@ export function whatifJson(comparison: LapComparison, changes: { field: string; 
       changedBeforeTurnInM: r(zone.changedBeforeTurnInM, 2),
     })),
     newBrakingZones: comparison.newZones.map((zone) => ({
-      startM: round(zone.startM, 2),
-      minSpeedAtM: round(zone.minSpeedAtM, 2),
+      startM: roundToDigits(zone.startM, 2),
+      minSpeedAtM: roundToDigits(zone.minSpeedAtM, 2),
     })),
   };
 }

@@ -5,6 +5,7 @@
 
 import { CHUNK_ROWS } from './chunk.js';
 import type { RowBlock } from './row-block.js';
+import { lerp } from '../../numeric/interpolate.js';
 
 /** A gap this long or longer is noted by the scan pass, so that the next pass fills it without holding rows. */
 export const LONG_GAP_ROWS = 4 * CHUNK_ROWS;
@@ -123,7 +124,7 @@ export class GapFiller {
     const previous = this.lastValue[b]!;
     const span = closeTimeS - this.lastTimeS[b]!;
     const w = span > 0 ? (t - this.lastTimeS[b]!) / span : 0;
-    return previous + w * (closeValue - previous);
+    return lerp(previous, closeValue, w);
   }
 
   /** Fills rows [from, to) of column b, in the held blocks and the current one, towards the closing value. */

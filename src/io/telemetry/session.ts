@@ -8,6 +8,7 @@ import { localPlane, projectLatLon } from '../../track/geodesy.js';
 import type { PipelineResult } from './pipeline.js';
 import { composeNotes } from './read-notes.js';
 import { applyFactor, projectInPlace, UnitEvidence, type ChannelLayout, type DecidedUnits } from './units-from-data.js';
+import { lerp } from '../../numeric/interpolate.js';
 
 /**
  * Appends every chunk to one array per channel, sized up front from an estimate of the rows (grown by a quarter
@@ -85,7 +86,7 @@ export function fillGaps(values: Float64Array, timeS: Float64Array): number | nu
           else {
             const span = timeS[i]! - timeS[previous]!;
             const w = span > 0 ? (timeS[j]! - timeS[previous]!) / span : 0;
-            values[j] = values[previous]! + w * (values[i]! - values[previous]!);
+            values[j] = lerp(values[previous]!, values[i]!, w);
           }
           gaps++;
         }

@@ -19,6 +19,7 @@ import { cornerTableHtml, findingsHtml, summaryHtml } from './tables.js';
 import { mapPoint, mapProjection, trackMapSvg } from './track-map.js';
 import type { SvgOptions } from './svg-frame.js';
 import { mpsToKph } from '../../units.js';
+import { roundToDigits } from '../../numeric/round.js';
 
 /** Hover values are kept for at most this many points along the lap. */
 const MAX_HOVER_POINTS = 2500;
@@ -200,10 +201,9 @@ export function chartSvgs(input: ReportInput): ChartSvg[] {
 
 function rounded(values: ArrayLike<number> | null | undefined, indices: number[], digits: number): number[] | null {
   if (!values) return null;
-  const scale = 10 ** digits;
   return indices.map((i) => {
     const v = values[i]!;
-    return Number.isFinite(v) ? Math.round(v * scale) / scale : 0;
+    return Number.isFinite(v) ? roundToDigits(v, digits) : 0;
   });
 }
 

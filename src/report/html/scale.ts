@@ -1,6 +1,8 @@
 // Linear scales and round-number axis ticks for the report's charts. niceTicks is self-contained on purpose:
 // the page's script embeds its compiled source (Function.prototype.toString), so server and browser agree.
 
+import { quantileSorted } from '../../numeric/quantile.js';
+
 export interface LinearScale {
   (value: number): number;
   domain: readonly [number, number];
@@ -46,7 +48,7 @@ export function coord(value: number): string {
   return Object.is(rounded, -0) ? '0' : String(rounded);
 }
 
-/** The value below which `share` of the finite samples lie (nearest rank), for axis ranges that ignore a few spikes. */
+/** The quantile `share` of the finite samples (numeric/quantile.ts), for axis ranges that ignore a few spikes. */
 export function quantileOf(series: (ArrayLike<number> | null | undefined)[], share: number, absolute = false): number {
   const values: number[] = [];
   for (const values_ of series) {
@@ -56,7 +58,6 @@ export function quantileOf(series: (ArrayLike<number> | null | undefined)[], sha
       if (Number.isFinite(v)) values.push(v);
     }
   }
-  if (values.length === 0) return NaN;
   values.sort((a, b) => a - b);
-  return values[Math.min(values.length - 1, Math.max(0, Math.ceil(share * values.length) - 1))]!;
+  return quantileSorted(values, share);
 }
