@@ -8,7 +8,7 @@ import { simulate } from '../solve/simulate.js';
 import { applySetup, type SetupBase } from './settings.js';
 import { DEFAULT_MATCH_TOLERANCE_M, matchBrakingZones } from './match-zones.js';
 import { brakingPointM } from './braking-point.js';
-import type { RunKind } from './pool.js';
+import type { PoolJob } from './pool.js';
 
 /** Everything a run needs besides its parameter values; sent to each worker once. */
 export interface SweepContext {
@@ -79,9 +79,9 @@ export function evaluateRun(
 }
 
 /** A sweep's runs for the pool (./pool.ts). */
-export const sweepRunKind: RunKind<SweepContext> = {
+export const sweepJob: PoolJob<SweepContext> = {
   moduleUrl: import.meta.url,
-  exportName: 'sweepRunKind',
+  exportName: 'sweepJob',
   width: (context) => outcomeWidth(context.corners.length),
   run: evaluateRun,
 };

@@ -1,22 +1,22 @@
 // Runs parameter sets across worker threads (node:worker_threads): each worker gets the context (track, base car)
 // once, then small tasks of a few parameter sets, and answers with packed Float64Array outcomes. What a run is
-// comes from its caller as a run kind (a sweep's setup change, a draw of an uncertain reference), so the pool
+// comes from its caller as a job (a sweep's setup change, a draw of an uncertain reference), so the pool
 // knows none of them and the same workers serve all.
 
 import { Worker } from 'node:worker_threads';
 import { availableParallelism } from 'node:os';
 import { InputError } from '../errors.js';
 
-/** What every run kind's context has: the names of the values each run is given, in order. */
+/** What every job's context has: the names of the values each run is given, in order. */
 export interface PoolContext {
   fields: string[];
 }
 
 /**
- * One kind of run: how many numbers a run writes and how to solve one. A worker thread loads the kind itself from
+ * A job: how many numbers a run writes and how to solve one. A worker thread loads the job itself from
  * `moduleUrl` (the module's own import.meta.url) by `exportName`, since functions do not cross threads.
  */
-export interface RunKind<C extends PoolContext> {
+export interface PoolJob<C extends PoolContext> {
   moduleUrl: string;
   exportName: string;
   width(context: C): number;
@@ -59,9 +59,9 @@ export function defaultWorkerCount(): number {
   return availableParallelism();
 }
 
-/** Solves the runs in this thread; `values` holds fields.length numbers per run. Returns kind.width numbers per run. */
+/** Solves the runs in this thread; `values` holds fields.length numbers per run. Returns job.width numbers per run. */
 export function runSetupsInProcess<C extends PoolContext>(
-  kind: RunKind<C>,
+  job: PoolJob<C>,
   context: C,
   values: Float64Array,
   firstRun = 0,
@@ -69,22 +69,22 @@ export function runSetupsInProcess<C extends PoolContext>(
 ): Float64Array {
   const width = context.fields.length;
   const runs = width === 0 ? 0 : values.length / width;
-  const resultWidth = kind.width(context);
+  const resultWidth = job.width(context);
   const out = new Float64Array(runs * resultWidth);
   for (let r = 0; r < runs; r++) {
-    kind.run(context, values.subarray(r * width, (r + 1) * width), out, r * resultWidth, `sweep run ${firstRun + r}`);
+    job.run(context, values.subarray(r * width, (r + 1) * width), out, r * resultWidth, `sweep run ${firstRun + r}`);
     onProgress?.(r + 1, runs);
   }
   return out;
 }
 
 /**
- * Solves the runs across worker threads. The outcome of run r lands at r * kind.width whatever worker
+ * Solves the runs across worker threads. The outcome of run r lands at r * job.width whatever worker
  * solved it, so the result does not depend on the number of workers or on their timing. The worker is the
  * compiled module beside this one: run from the built package (dist/), as the command line and benchmarks do.
  */
 export async function runSetups<C extends PoolContext>(
-  kind: RunKind<C>,
+  job: PoolJob<C>,
   context: C,
   values: Float64Array,
   firstRun = 0,
@@ -93,15 +93,15 @@ export async function runSetups<C extends PoolContext>(
   const width = context.fields.length;
   const runs = width === 0 ? 0 : values.length / width;
   const requested = options.workers ?? defaultWorkerCount();
-  if (requested <= 0 || runs === 0) return runSetupsInProcess(kind, context, values, firstRun, options.onProgress);
-  const resultWidth = kind.width(context);
+  if (requested <= 0 || runs === 0) return runSetupsInProcess(job, context, values, firstRun, options.onProgress);
+  const resultWidth = job.width(context);
   const out = new Float64Array(runs * resultWidth);
   // Small tasks keep the workers evenly loaded to the end; two in flight per worker hide the message latency.
   const chunk = Math.max(1, Math.min(16, Math.ceil(runs / (requested * 8))));
   const taskCount = Math.ceil(runs / chunk);
   const workerCount = Math.min(requested, taskCount);
   const url = new URL('./worker.js', import.meta.url);
-  const setup: WorkerSetup = { moduleUrl: kind.moduleUrl, exportName: kind.exportName, context };
+  const setup: WorkerSetup = { moduleUrl: job.moduleUrl, exportName: job.exportName, context };
   const workers: Worker[] = [];
   let nextTask = 0;
   let doneRuns = 0;

@@ -4,7 +4,7 @@
 import type { Path, TrackGrid } from '../track/types.js';
 import type { LapResult } from '../solve/types.js';
 import { planSweep, runCount, shardRange, type Shard, type SweepMode, type SweepPlan } from './plan.js';
-import { defaultContext, outcomeWidth, solveSetup, sweepRunKind, writeOutcome, type SweepContext } from './evaluate.js';
+import { defaultContext, outcomeWidth, solveSetup, sweepJob, writeOutcome, type SweepContext } from './evaluate.js';
 import { runSetups, type RunOptions } from './pool.js';
 import { cornersOf, recordsFromOutcomes, sweepMeta, type SweepTable } from './table.js';
 import type { SetupBase, Variation } from './settings.js';
@@ -79,10 +79,10 @@ async function solveShard(
 ): Promise<Float64Array> {
   const width = plan.fields.length;
   if (start > 0 || end <= start || width === 0)
-    return runSetups(sweepRunKind, context, plan.values.slice(start * width, end * width), start, options);
+    return runSetups(sweepJob, context, plan.values.slice(start * width, end * width), start, options);
   const resultWidth = outcomeWidth(context.corners.length);
   const { onProgress } = options;
-  const rest = await runSetups(sweepRunKind, context, plan.values.slice(width, end * width), 1, {
+  const rest = await runSetups(sweepJob, context, plan.values.slice(width, end * width), 1, {
     ...options,
     ...(onProgress ? { onProgress: (done: number, total: number) => onProgress(done + 1, total + 1) } : {}),
   });

@@ -5,7 +5,7 @@ import type { Path, TrackGrid } from '../track/types.js';
 import type { LapResult } from '../solve/types.js';
 import { InputError } from '../errors.js';
 import { mpsToKph } from '../units.js';
-import { defaultContext, outcomeWidth, solveSetup, sweepRunKind, VALUES_PER_CORNER, writeOutcome } from './evaluate.js';
+import { defaultContext, outcomeWidth, solveSetup, sweepJob, VALUES_PER_CORNER, writeOutcome } from './evaluate.js';
 import { runSetups, runSetupsInProcess, type RunOptions } from './pool.js';
 import { cornersOf, DIGITS, type SweepCorner } from './table.js';
 import { roundToDigits } from '../numeric/round.js';
@@ -115,7 +115,7 @@ export function runStint(input: StintInput): StintResult {
   return assemble(
     loads,
     firstLap,
-    withFirstLap(context, firstLap, runSetupsInProcess(sweepRunKind, context, Float64Array.from(loads.slice(1)), 1)),
+    withFirstLap(context, firstLap, runSetupsInProcess(sweepJob, context, Float64Array.from(loads.slice(1)), 1)),
   );
 }
 
@@ -123,7 +123,7 @@ export function runStint(input: StintInput): StintResult {
 export async function runStintInWorkers(input: StintInput, options: RunOptions = {}): Promise<StintResult> {
   const { loads, firstLap, context } = prepare(input);
   const { onProgress } = options;
-  const rest = await runSetups(sweepRunKind, context, Float64Array.from(loads.slice(1)), 1, {
+  const rest = await runSetups(sweepJob, context, Float64Array.from(loads.slice(1)), 1, {
     ...options,
     ...(onProgress ? { onProgress: (done: number, total: number) => onProgress(done + 1, total + 1) } : {}),
   });

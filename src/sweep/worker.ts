@@ -1,22 +1,22 @@
-// Entry of a pool worker thread: loads its run kind (./pool.ts) and receives the context once (workerData), then
+// Entry of a pool worker thread: loads its job (./pool.ts) and receives the context once (workerData), then
 // solves the parameter sets it is sent and returns their outcomes as one transferred Float64Array per task.
 
 import { parentPort, workerData } from 'node:worker_threads';
 import { isInputError } from '../errors.js';
-import type { PoolContext, RunKind, TaskMessage, WorkerReply, WorkerSetup } from './pool.js';
+import type { PoolContext, PoolJob, TaskMessage, WorkerReply, WorkerSetup } from './pool.js';
 
 const setup = workerData as WorkerSetup;
 const context = setup.context;
-// Messages sent while the kind loads wait in the port: it starts delivering when the listener below is attached.
-const kind = ((await import(setup.moduleUrl)) as Record<string, RunKind<PoolContext>>)[setup.exportName]!;
+// Messages sent while the job loads wait in the port: it starts delivering when the listener below is attached.
+const job = ((await import(setup.moduleUrl)) as Record<string, PoolJob<PoolContext>>)[setup.exportName]!;
 const width = context.fields.length;
-const resultWidth = kind.width(context);
+const resultWidth = job.width(context);
 
 parentPort!.on('message', (task: TaskMessage) => {
   try {
     const out = new Float64Array(task.runCount * resultWidth);
     for (let r = 0; r < task.runCount; r++) {
-      kind.run(
+      job.run(
         context,
         task.values.subarray(r * width, (r + 1) * width),
         out,

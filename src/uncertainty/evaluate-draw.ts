@@ -15,7 +15,7 @@ import { buildEnvelope } from '../car/build-envelope.js';
 import { simulate } from '../solve/simulate.js';
 import type { TrackGrid } from '../track/types.js';
 import { outcomeWidth, writeOutcome, type SweepContext } from '../sweep/evaluate.js';
-import type { RunKind } from '../sweep/pool.js';
+import type { PoolJob } from '../sweep/pool.js';
 import { applyDraw } from './draws.js';
 
 export interface DrawSpec {
@@ -91,9 +91,9 @@ export function evaluateDraw(
 }
 
 /** The draws of an uncertain reference, for the pool (src/sweep/pool.ts). */
-export const drawRunKind: RunKind<DrawContext> = {
+export const drawJob: PoolJob<DrawContext> = {
   moduleUrl: import.meta.url,
-  exportName: 'drawRunKind',
+  exportName: 'drawJob',
   width: drawOutcomeWidth,
   run: evaluateDraw,
 };

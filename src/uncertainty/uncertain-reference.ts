@@ -17,7 +17,7 @@ import { runSetups, type RunOptions } from '../sweep/pool.js';
 import { DEFAULT_DRAW_SEED, drawParameters } from './draws.js';
 import {
   drawOutcomeWidth,
-  drawRunKind,
+  drawJob,
   type DrawContext,
   evaluateDraw,
   traceSamples,
@@ -145,7 +145,7 @@ export async function uncertainReference(
     for (let d = 0; d < count; d++) rows.set(one, d * width);
     options.onProgress?.(count, count);
   } else {
-    rows = await runSetups(drawRunKind, context, drawn.values, 0, {
+    rows = await runSetups(drawJob, context, drawn.values, 0, {
       ...(options.workers !== undefined ? { workers: options.workers } : {}),
       ...(options.onProgress ? { onProgress: options.onProgress } : {}),
     });
