@@ -2,7 +2,7 @@
 // the project's own (DEVELOPERS.md, docs/architecture.md); the checks below also show it failing on planted imports.
 
 import { describe, expect, it } from 'vitest';
-import { existsSync } from 'node:fs';
+import { existsSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { projectRoot } from '../helpers/cli.js';
 import { importGraph, importsOf } from './import-graph.js';
@@ -57,5 +57,16 @@ describe('import direction', () => {
     const text =
       "import { Command } from 'commander';\n// import { x } from '../cli/main.js';\nimport fs from 'node:fs';\n";
     expect(importsOf('track/planted.ts', text)).toEqual([]);
+  });
+
+  it('is listed the same, highest first, in docs/architecture.md', () => {
+    const text = readFileSync(join(projectRoot, 'docs', 'architecture.md'), 'utf8');
+    const block = /## Layers[\s\S]*?```text\n([\s\S]*?)```/.exec(text);
+    expect(block).not.toBeNull();
+    const floors = block![1]!
+      .trim()
+      .split('\n')
+      .map((line) => line.split(' · ').map((entry) => entry.trim()));
+    expect(floors.reverse()).toEqual(LAYERS.map((floor) => [...floor]));
   });
 });
