@@ -4,7 +4,7 @@
 import path from 'node:path';
 import { InputError } from '../errors.js';
 import type { TrackGrid } from '../track/types.js';
-import { trackFromCentreline } from '../track/resample.js';
+import { firstFold, MAX_TURN_AT_POINT_DEG, trackFromCentreline } from '../track/resample.js';
 import { numberCell, parseCsvTable } from './csv-table.js';
 import type { TrackReadOptions } from './track-read-options.js';
 import { median } from '../numeric/quantile.js';
@@ -136,6 +136,11 @@ export function parseTrackCsv(text: string, source: string, options: TrackReadOp
     bank = bank && bank.subarray(0, n);
     if (n < 4) throw new InputError(`${source}: only ${n} distinct points; a closed centreline needs at least 4`);
   }
+  const fold = firstFold(x, y, closed);
+  if (fold >= 0)
+    throw new InputError(
+      `${source}: row ${lines[fold]}: the centreline turns back on itself at (${x[fold]}, ${y[fold]}) (over ${MAX_TURN_AT_POINT_DEG} degrees at one point); a track does not run out and back along itself`,
+    );
   if (!left && options.widthM !== null) {
     left = new Float64Array(n).fill(options.widthM / 2);
     right = new Float64Array(n).fill(options.widthM / 2);

@@ -55,10 +55,38 @@ export function uniformGrid(
   return { count, stepM: lengthM / intervals };
 }
 
+/**
+ * The sharpest turn a centreline may make at one of its points, degrees: a hairpin sampled every few tens of
+ * metres turns well under this at each point, a line that runs out and back along itself turns 180 degrees.
+ */
+export const MAX_TURN_AT_POINT_DEG = 150;
+
+/** The first point where the centreline turns back on itself (over MAX_TURN_AT_POINT_DEG), or -1. */
+export function firstFold(xM: ArrayLike<number>, yM: ArrayLike<number>, closed: boolean): number {
+  const n = xM.length;
+  const limit = Math.cos((MAX_TURN_AT_POINT_DEG * Math.PI) / 180);
+  for (let i = closed ? 0 : 1; i < (closed ? n : n - 1); i++) {
+    const before = (i - 1 + n) % n;
+    const after = (i + 1) % n;
+    const ax = xM[i]! - xM[before]!;
+    const ay = yM[i]! - yM[before]!;
+    const bx = xM[after]! - xM[i]!;
+    const by = yM[after]! - yM[i]!;
+    const lengths = Math.hypot(ax, ay) * Math.hypot(bx, by);
+    if (lengths > 0 && (ax * bx + ay * by) / lengths < limit) return i;
+  }
+  return -1;
+}
+
 export function trackFromCentreline(points: CentrelinePoints, options: CentrelineOptions): TrackGrid {
   const { closed, source } = options;
   const n = points.xM.length;
   if (n < 4) throw new InputError(`${source}: only ${n} points; a centreline needs at least 4`);
+  const fold = firstFold(points.xM, points.yM, closed);
+  if (fold >= 0)
+    throw new InputError(
+      `${source}: point ${fold}: the centreline turns back on itself (over ${MAX_TURN_AT_POINT_DEG} degrees at one point); a track does not run out and back along itself`,
+    );
   const spline = chordSpline(points.xM, points.yM, closed);
 
   // Intermediate grid at (about) the target step in the spline's chord parameter.

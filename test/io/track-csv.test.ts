@@ -148,6 +148,28 @@ describe('track CSV', () => {
         /^rep\.csv: row 12: the point repeats the one before it \(row 11\)$/,
       );
     });
+    it('a centreline that runs out and back along itself, naming the row where it turns back', () => {
+      // 100 m out along x and back: the points are 2 m apart and the line reverses at x = 100 m (row 52).
+      const out = Array.from({ length: 51 }, (_, k) => `${2 * k},0`);
+      const back = Array.from({ length: 49 }, (_, k) => `${98 - 2 * k},0.5`);
+      expectInputError(
+        () => parseTrackText(['x_m,y_m', ...out, ...back].join('\n'), 'fold.csv', { ...defaults, layout: 'open' }),
+        /^fold\.csv: row 52: the centreline turns back on itself at \(100, 0\)/,
+      );
+    });
+    it('takes a hairpin of 15 m radius sampled every 10 m (a turn of about 38 degrees per point)', () => {
+      // Chord angle per point on a circle: 2 asin(s / 2R) = 2 asin(10 / 30) = 38.9 degrees.
+      const hairpin = Array.from({ length: 10 }, (_, k) => {
+        const angle = k * 2 * Math.asin(10 / 30);
+        return `${(15 * Math.sin(angle)).toFixed(4)},${(15 - 15 * Math.cos(angle)).toFixed(4)}`;
+      });
+      const lead = Array.from({ length: 10 }, (_, k) => `${-100 + 10 * k},0`);
+      const track = parseTrackText(['x_m,y_m', ...lead, ...hairpin].join('\n'), 'pin.csv', {
+        ...defaults,
+        layout: 'open',
+      });
+      expect(track.lengthM).toBeGreaterThan(150);
+    });
     it('negative widths', () => {
       const rows = good.map((row, i) => (i === 20 ? `${row},-1,5` : `${row},5,5`));
       const text = ['x_m,y_m,width_left_m,width_right_m', ...rows].join('\n');
