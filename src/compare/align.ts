@@ -201,6 +201,7 @@ export function alignLapWithNotes(
       speedMps,
       throttle: channel(session.throttle),
       brake: channel(session.brake),
+      ...(session.brakePressurePa ? { brakePressurePa: channel(session.brakePressurePa) } : {}),
       axMps2,
       ayMps2,
       steeringDeg: channel(session.steeringDeg),

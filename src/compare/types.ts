@@ -14,6 +14,8 @@ export interface DriverLap {
   /** 0-1; null where the log has no such channel. */
   throttle: Float64Array | null;
   brake: Float64Array | null;
+  /** Brake line pressure, Pa, where the log gives pressure (then `brake` is its share of the session's high quantile). */
+  brakePressurePa?: Float64Array | null;
   /** Longitudinal and lateral acceleration, m/s^2 (measured, or derived where the log has none). */
   axMps2: Float64Array;
   ayMps2: Float64Array;

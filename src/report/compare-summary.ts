@@ -201,6 +201,9 @@ export function alignedTracesCsv(result: ComparisonResult, reference: LapResult,
     'power_limited_reference',
     'shift_reference',
   ];
+  // The logged brake pressure, where the log gave pressure instead of a pedal share.
+  const pressurePa = driver.brakePressurePa ?? null;
+  if (pressurePa) header.push('brake_pressure_driver_bar');
   const lines = [header.join(',')];
   for (let i = 0; i < t.count; i++) {
     lines.push(
@@ -223,6 +226,7 @@ export function alignedTracesCsv(result: ComparisonResult, reference: LapResult,
         fixed(t.gripUse[i], 3),
         String(t.powerLimited[i]),
         String(t.shift[i]),
+        ...(pressurePa ? [fixed(pressurePa[i]! / 1e5, 2)] : []),
       ].join(','),
     );
   }

@@ -12,6 +12,8 @@ export interface TelemetrySession {
   speedMps: Float64Array | null;
   throttle: Float64Array | null;
   brake: Float64Array | null;
+  /** Brake line pressure, Pa, where the log gives pressure; `brake` is then this over the session's high quantile. */
+  brakePressurePa?: Float64Array | null;
   axMps2: Float64Array | null;
   ayMps2: Float64Array | null;
   steeringDeg: Float64Array | null;

@@ -46,6 +46,36 @@ describe('a simulated lap read back as telemetry', () => {
   });
 });
 
+describe('a logger export with the brake as pressure', () => {
+  it('finds the same braking points from the pressure and keeps the pressure in the aligned traces', () => {
+    // The reference trace's brake share (0-1) written as 0-80 bar under a units row: braking detected from the
+    // pressure's share of its 99th percentile must fall where the share itself fell.
+    const [header, ...rows] = readFileSync(trace, 'utf8').trim().split('\n');
+    const names = header!.split(',');
+    const brake = names.indexOf('brake');
+    const units = names.map((_, k) => (k === brake ? 'bar' : ''));
+    names[brake] = 'Brake';
+    const pressureRows = rows.map((row) => {
+      const cells = row.split(',');
+      cells[brake] = (Number(cells[brake]) * 80).toFixed(2);
+      return cells.join(',');
+    });
+    const log = path.join(work, 'pressure.csv');
+    writeFileSync(log, [names.join(','), units.join(','), ...pressureRows].join('\n') + '\n');
+    const out = path.join(work, 'pressure-out');
+    const run = compare(log, ['--json', '--out', out]);
+    expect(run.code).toBe(0);
+    for (const corner of JSON.parse(run.stdout).corners)
+      if (corner.brakingPointDeltaM !== null) expect(Math.abs(corner.brakingPointDeltaM)).toBeLessThanOrEqual(2);
+    const [alignedHeader, ...alignedRows] = readFileSync(path.join(out, 'aligned.csv'), 'utf8').trim().split('\n');
+    const column = alignedHeader!.split(',').indexOf('brake_pressure_driver_bar');
+    expect(column).toBeGreaterThan(0);
+    const peakBar = Math.max(...alignedRows.map((row) => Number(row.split(',')[column])));
+    expect(peakBar).toBeGreaterThan(79);
+    expect(peakBar).toBeLessThanOrEqual(80);
+  });
+});
+
 describe('a lap 2 % slower everywhere', () => {
   it('ends with a delta equal to the lap-time difference, 0.02 T, within 0.01 s', () => {
     // Every time stretched by 1.02 and every speed divided by it: the same lap, 2 % slower; the finish delta

@@ -86,7 +86,7 @@ async function expectSameAsSession(file: string): Promise<{ session: TelemetrySe
   expect(streamed.summary.endTimeS).toBe(session.timeS[session.count - 1]);
   expect([...streamed.summary.channels].sort()).toEqual(FIELDS.filter((field) => session[field] !== null).sort());
   for (const field of FIELDS) {
-    const values = session[field];
+    const values = session[field] ?? null;
     if (values === null) expect(streamed.channels[field]).toBeUndefined();
     else expect(streamed.channels[field]).toEqual(Array.from(values));
   }

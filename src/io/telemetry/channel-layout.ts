@@ -51,6 +51,7 @@ export function resolveLayout(
     'speed',
     'throttle',
     'brake',
+    'brakePressure',
     'ax',
     'ay',
     'steering',

@@ -14,6 +14,7 @@ export type TelemetryChannel =
   | 'speedMps'
   | 'throttle'
   | 'brake'
+  | 'brakePressurePa'
   | 'axMps2'
   | 'ayMps2'
   | 'steeringDeg'
@@ -28,6 +29,7 @@ export const CHANNELS: readonly TelemetryChannel[] = [
   'speedMps',
   'throttle',
   'brake',
+  'brakePressurePa',
   'axMps2',
   'ayMps2',
   'steeringDeg',
@@ -44,6 +46,7 @@ export const FIELD_OF: Record<Quantity, TelemetryChannel> = {
   speed: 'speedMps',
   throttle: 'throttle',
   brake: 'brake',
+  brakePressure: 'brakePressurePa',
   steering: 'steeringDeg',
   gear: 'gear',
   rpm: 'rpm',

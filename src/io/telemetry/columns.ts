@@ -10,6 +10,7 @@ export type Quantity =
   | 'speed'
   | 'throttle'
   | 'brake'
+  | 'brakePressure'
   | 'steering'
   | 'gear'
   | 'rpm'
@@ -36,6 +37,7 @@ export const CANONICAL_COLUMNS: Record<string, { quantity: Quantity; scale: numb
   speed_kph: { quantity: 'speed', scale: 1 / 3.6 },
   throttle: { quantity: 'throttle', scale: null },
   brake: { quantity: 'brake', scale: null },
+  brake_pressure_bar: { quantity: 'brakePressure', scale: 1e5 },
   steering_deg: { quantity: 'steering', scale: 1 },
   gear: { quantity: 'gear', scale: 1 },
   rpm: { quantity: 'rpm', scale: 1 },
@@ -64,6 +66,19 @@ const ALIASES: Record<Quantity, string[]> = {
     'throttle_pedal',
   ],
   brake: ['brake', 'brake_pos', 'brake_position', 'brake_pedal', 'brakes'],
+  // A brake column in pressure units is pressure (the units say so), as is a column named for it.
+  brakePressure: [
+    'brake',
+    'brakes',
+    'brake_pressure',
+    'brake_press',
+    'brake_pres',
+    'brake_line_pressure',
+    'brake_pressure_front',
+    'brake_front_pressure',
+    'brake_pressure_f',
+    'brake_fluid_pressure',
+  ],
   steering: ['steering', 'steering_angle', 'steer', 'steer_angle', 'steering_wheel_angle', 'swa'],
   gear: ['gear', 'gear_num', 'gear_number'],
   rpm: ['rpm', 'engine_rpm', 'engine_speed', 'revs'],
@@ -131,6 +146,8 @@ const UNITS: Record<Quantity, Record<string, number | null>> = {
   },
   throttle: { '': null, pct: 0.01, percent: 0.01, '01': 1, frac: 1, ratio: 1 },
   brake: { '': null, pct: 0.01, percent: 0.01, '01': 1, frac: 1, ratio: 1 },
+  // To pascals (NIST SP 811 appendix B: 1 bar = 1e5 Pa, 1 psi = 6894.757 Pa).
+  brakePressure: { bar: 1e5, mbar: 100, psi: 6894.757293168, kpa: 1000, mpa: 1e6, pa: 1 },
   steering: { '': 1, deg: 1, degrees: 1, rad: 180 / Math.PI },
   gear: { '': 1 },
   rpm: { '': 1, rpm: 1 },
@@ -148,6 +165,7 @@ const QUANTITY_ORDER: Quantity[] = [
   'speed',
   'throttle',
   'brake',
+  'brakePressure',
   'steering',
   'gear',
   'rpm',

@@ -23,6 +23,7 @@ const NOTE_ORDER: Quantity[] = [
   'speed',
   'throttle',
   'brake',
+  'brakePressure',
   'ax',
   'ay',
   'steering',

@@ -7,6 +7,7 @@ import { channelArrays, CHANNELS, CHUNK_ROWS, type TelemetryChannel, type Teleme
 import { localPlane, projectLatLon } from '../../track/geodesy.js';
 import type { PipelineResult } from './pipeline.js';
 import { composeNotes } from './read-notes.js';
+import { brakePressureNote, brakeShareFromPressure } from './brake-pressure.js';
 import { applyFactor, projectInPlace, UnitEvidence, type ChannelLayout, type DecidedUnits } from './units-from-data.js';
 import { lerp } from '../../numeric/interpolate.js';
 
@@ -62,6 +63,13 @@ export class SessionAssembler {
       if (factor !== undefined) applyFactor(values, field, factor);
       channels[field] = values;
     }
+    const notes = composeNotes(result, decided);
+    // A pressure column stands in for the brake pedal where the log has no pedal channel.
+    if (channels.brakePressurePa && !channels.brake) {
+      const { brake, fullPa } = brakeShareFromPressure(channels.brakePressurePa);
+      channels.brake = brake;
+      notes.push(brakePressureNote(layout.headers.brakePressurePa ?? 'brake pressure', fullPa));
+    }
     if (layout.positions === 'latlon' && decided?.geoOrigin)
       projectInPlace(channels.xM!, channels.yM!, localPlane(decided.geoOrigin));
     return {
@@ -69,7 +77,7 @@ export class SessionAssembler {
       count: rows,
       ...channelArrays((field) => channels[field] ?? null),
       geoOrigin: decided?.geoOrigin ?? null,
-      notes: composeNotes(result, decided),
+      notes,
     };
   }
 }
