@@ -1,4 +1,5 @@
-// The reflap library: everything a script needs to compute a reference lap and compare a driver against it.
+// The reflap library's face: the entry points a script needs, grouped by family, and their records (docs/library.md
+// shows each family in use). Internals (solvers' building blocks, the worker pool, shard parsing) stay in their modules.
 // This file only re-exports.
 
 export type { TrackGrid, Path, NamedCorner } from './track/types.js';
@@ -29,16 +30,6 @@ export {
   type CentrelineOptions,
 } from './track/resample.js';
 export { whittakerSmoother, smoothingLambda } from './track/smooth.js';
-export {
-  bandedSolver,
-  cyclicBandedSolver,
-  factorBanded,
-  solveBanded,
-  factorCyclicBanded,
-  solveCyclicBanded,
-  type BandEntry,
-  type BandedSolve,
-} from './numeric/banded.js';
 
 export { ambientFrom, airDensityKgPerM3, ISA_SEA_LEVEL } from './car/ambient.js';
 export { readCarFile, parseCarJson, carFromJson } from './io/read-car.js';
@@ -73,6 +64,7 @@ export {
   applySettings,
   variationValues,
   airInputsOf,
+  setupBaseFrom,
   type Setting,
   type Variation,
   type SetupBase,
@@ -81,9 +73,8 @@ export {
 export { matchBrakingZones, signedLapShiftM } from './sweep/match-zones.js';
 export { brakingPointM } from './sweep/braking-point.js';
 export { compareSetupChange, type LapComparison, type ZoneChange } from './sweep/compare-laps.js';
-export { planSweep, parseShard, shardRange, type SweepPlan, type SweepMode, type Shard } from './sweep/plan.js';
+export { planSweep, type SweepPlan, type SweepMode, type Shard } from './sweep/plan.js';
 export { runSweep, prepareSweep, type SweepInput, type SweepOutput } from './sweep/run-sweep.js';
-export { runSetups, runSetupsInProcess } from './sweep/pool.js';
 export { sensitivities, type Sensitivity, type SweepTable, type SweepRecord, type SweepMeta } from './sweep/table.js';
 export { sweepCsv, parseSweepCsv, mergeSweepCsv } from './sweep/csv.js';
 export { sweepChartData, type SweepSeries } from './sweep/chart-data.js';
@@ -160,7 +151,7 @@ export { checkTransient, type TransientCheck, type TransientOptions, type Satura
 
 // The comparison of a driver's lap with the reference: corners, delta, findings, the demonstrated envelope, the demo driver.
 export type { ComparisonResult, CornerComparison, Finding, GripStretch } from './compare/types.js';
-export { compareLaps, compareLaps as compareDriverLap } from './compare/compare-laps.js';
+export { compareLaps } from './compare/compare-laps.js';
 export { DEFAULT_COMPARE_OPTIONS, type CompareOptions } from './compare/compare-options.js';
 export { estimatedPedal } from './compare/estimated-pedal.js';
 export {
@@ -214,8 +205,6 @@ export {
   type DemoDriverLap,
   type DemoFault,
 } from './demo/demo-driver.js';
-export { seededRandom } from './numeric/seeded-random.js';
-export { quantileSorted, median } from './numeric/quantile.js';
 export { compareSummaryText, compareSummaryJson, alignedTracesCsv } from './report/compare-summary.js';
 
 // Validation that lists every problem in car, track and telemetry files (`reflap check`).
@@ -236,7 +225,6 @@ export { fitDrive, type DriveFit } from './calibrate/power-fit.js';
 export { fitGrip, type GripFit } from './calibrate/grip-fit.js';
 export { identifiability, type Identifiability } from './calibrate/identify.js';
 export { carFileJson, carFileObject } from './report/car-file.js';
-export { latinHypercube, normalDraws } from './uncertainty/design.js';
 export {
   drawParameters,
   applyDraw,
@@ -254,4 +242,3 @@ export {
 } from './uncertainty/uncertain-reference.js';
 export { uncertaintyJson, robustFindingsText, uncertainReferenceText } from './report/uncertainty-summary.js';
 export { calibrationText, calibrationJson } from './report/calibration-summary.js';
-export { normalQuantile, normalCdf, logNormalCdf, studentQuantile } from './numeric/normal.js';

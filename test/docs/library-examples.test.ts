@@ -1,0 +1,74 @@
+// Every ```ts example of docs/library.md runs as written against the build (dist/, made before vitest runs): each is
+// transpiled by the TypeScript compiler (ts.transpileModule), its `from 'reflap'` pointed at dist/src/index.js, and
+// run with node from a copy of the package's cars/ and tracks/. An example checks its own result and throws when it
+// is wrong, so a run that exits 0 is one whose checks held.
+
+import { afterAll, describe, expect, it } from 'vitest';
+import ts from 'typescript';
+import { spawnSync } from 'node:child_process';
+import { cpSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { pathToFileURL } from 'node:url';
+import { projectRoot } from '../helpers/cli.js';
+
+interface ScriptExample {
+  line: number;
+  code: string;
+}
+
+const LIBRARY_DOC = 'docs/library.md';
+
+/** The ```ts and ```js blocks of a Markdown text, with the line each starts on. */
+function scriptExamples(text: string): ScriptExample[] {
+  const examples: ScriptExample[] = [];
+  const lines = text.split('\n');
+  let current: ScriptExample | null = null;
+  lines.forEach((line, index) => {
+    const fence = /^```(\S*)/.exec(line);
+    if (fence && current === null && (fence[1] === 'ts' || fence[1] === 'js')) current = { line: index + 1, code: '' };
+    else if (fence && current !== null) {
+      examples.push(current);
+      current = null;
+    } else if (current !== null) current.code += `${line}\n`;
+  });
+  return examples;
+}
+
+const indexUrl = pathToFileURL(join(projectRoot, 'dist/src/index.js')).href;
+const examples = scriptExamples(readFileSync(join(projectRoot, LIBRARY_DOC), 'utf8'));
+
+describe('library examples', () => {
+  it('finds the examples of docs/library.md, one per family', () => {
+    expect(examples.length).toBeGreaterThanOrEqual(4);
+    for (const name of ['simulate(', 'racingLine(', 'compareSession(', 'runSweep(']) {
+      expect(examples.some((example) => example.code.includes(name))).toBe(true);
+    }
+  });
+
+  it('reads the blocks of a Markdown text, ts and js only', () => {
+    const text = 'intro\n```ts\nconst a = 1;\n```\n```sh\nreflap demo\n```\n```js\nconsole.log(2);\n```\n';
+    expect(scriptExamples(text)).toEqual([
+      { line: 2, code: 'const a = 1;\n' },
+      { line: 8, code: 'console.log(2);\n' },
+    ]);
+  });
+
+  const root = mkdtempSync(join(tmpdir(), 'reflap-library-'));
+  for (const folder of ['cars', 'tracks']) cpSync(join(projectRoot, folder), join(root, folder), { recursive: true });
+  afterAll(() => rmSync(root, { recursive: true, force: true }));
+
+  for (const example of examples) {
+    it(`runs ${LIBRARY_DOC}:${example.line} against the build`, { timeout: 120_000 }, () => {
+      const js = ts.transpileModule(example.code, {
+        compilerOptions: { module: ts.ModuleKind.ESNext, target: ts.ScriptTarget.ES2022 },
+      }).outputText;
+      const file = join(root, `example-${example.line}.mjs`);
+      writeFileSync(file, js.replace(/from 'reflap'/g, `from '${indexUrl}'`));
+      const run = spawnSync(process.execPath, [file], { cwd: root, encoding: 'utf8' });
+      expect(run.stderr).toBe('');
+      expect(run.status).toBe(0);
+      expect(run.stdout.trim().length).toBeGreaterThan(0);
+    });
+  }
+});
