@@ -1,12 +1,17 @@
 // Box-constrained convex quadratic programme with a symmetric band of half-bandwidth 2 (pentadiagonal, plain
 // or cyclic): minimise x^T Q x + 2 q^T x subject to lower <= x <= upper.
-// Method: Bertsekas' projected Newton method ("Projected Newton methods for optimization problems with simple
-// constraints", SIAM J. Control Optim. 20 (1982) 221-246): variables held at a bound by the gradient take a
-// scaled gradient step, the others a Newton step, and a projected Armijo search keeps every iterate feasible
-// and descending. Holding a variable replaces its row and column by the identity, so the Newton system keeps
-// its band and is solved by the banded Cholesky (src/numeric/banded.ts) at linear cost.
+// Method: Mehrotra's primal-dual interior-point method (Mehrotra, "On the implementation of a primal-dual interior
+// point method", SIAM J. Optim. 2 (1992) 575-601), in the form for bound-constrained QPs of Nocedal and Wright,
+// Numerical Optimization, 2nd ed., section 16.6 (algorithm 16.4): x stays strictly inside the box, the bounds'
+// multipliers z (lower) and w (upper) stay positive, and each step solves
+//   (Q + Z/S + W/T) dx = -(Q x + q) + sigma mu (1/s - 1/t) - (corrector terms),   s = x - lower, t = upper - x,
+// whose matrix keeps Q's band, so a step costs one pentadiagonal factorisation at linear cost (penta-cholesky.ts).
+// Its step count hardly depends on the size of the problem or on which bounds end up active, which is what a
+// line of thousands of points along the edges of a track needs (an active-set method here changed hundreds of
+// bounds per step and cycled). Variables whose box has no width are fixed and leave the system.
 
-import { bandedSolver, cyclicBandedSolver, type BandEntry } from '../numeric/banded.js';
+import { cyclicBandedSolver, bandedSolver, type BandEntry } from '../numeric/banded.js';
+import { factorPenta, pentaFactorFor, solvePenta, SMALLEST_CYCLIC_PENTA, type PentaFactor } from './penta-cholesky.js';
 
 /** Q's band: diag[i] = Q[i][i], off1[i] = Q[i][i+1], off2[i] = Q[i][i+2] (indices modulo n when cyclic). */
 export interface PentaBand {
@@ -21,28 +26,44 @@ export function emptyBand(count: number, cyclic: boolean): PentaBand {
   return { count, cyclic, diag: new Float64Array(count), off1: new Float64Array(count), off2: new Float64Array(count) };
 }
 
+/** Row i of Q x, indices wrapping on a cyclic band and ending at the edges of a plain one. */
+function rowProduct(band: PentaBand, x: Float64Array, i: number): number {
+  const { count: n, cyclic, diag, off1, off2 } = band;
+  let sum = diag[i]! * x[i]!;
+  for (let k = 1; k <= 2; k++) {
+    const off = k === 1 ? off1 : off2;
+    if (cyclic || i + k < n) sum += off[i]! * x[(i + k) % n]!;
+    if (cyclic || i - k >= 0) {
+      const j = (i - k + n) % n;
+      sum += off[j]! * x[j]!;
+    }
+  }
+  return sum;
+}
+
 /** y = Q x. */
 export function multiplyBand(
   band: PentaBand,
   x: Float64Array,
   out: Float64Array = new Float64Array(band.count),
 ): Float64Array {
-  const { count: n, cyclic, diag, off1, off2 } = band;
-  for (let i = 0; i < n; i++) out[i] = diag[i]! * x[i]!;
-  for (let i = 0; i < n; i++) {
-    const j1 = i + 1;
-    const j2 = i + 2;
-    if (cyclic || j1 < n) {
-      const j = j1 % n;
-      out[i]! += off1[i]! * x[j]!;
-      out[j]! += off1[i]! * x[i]!;
-    }
-    if (cyclic || j2 < n) {
-      const j = j2 % n;
-      out[i]! += off2[i]! * x[j]!;
-      out[j]! += off2[i]! * x[i]!;
-    }
+  const { count: n, diag, off1, off2 } = band;
+  if (n < 5) {
+    // Wrapped entries of a tiny cyclic band land on the same places: add them one by one.
+    for (let i = 0; i < n; i++) out[i] = rowProduct(band, x, i);
+    return out;
   }
+  for (let i = 2; i < n - 2; i++)
+    out[i] =
+      diag[i]! * x[i]! +
+      off1[i]! * x[i + 1]! +
+      off1[i - 1]! * x[i - 1]! +
+      off2[i]! * x[i + 2]! +
+      off2[i - 2]! * x[i - 2]!;
+  out[0] = rowProduct(band, x, 0);
+  out[1] = rowProduct(band, x, 1);
+  out[n - 2] = rowProduct(band, x, n - 2);
+  out[n - 1] = rowProduct(band, x, n - 1);
   return out;
 }
 
@@ -52,16 +73,207 @@ export interface BoxQpResult {
   converged: boolean;
 }
 
-function objectiveOf(band: PentaBand, q: Float64Array, x: Float64Array, work: Float64Array): number {
-  multiplyBand(band, x, work);
-  let sum = 0;
-  for (let i = 0; i < x.length; i++) sum += x[i]! * (work[i]! + 2 * q[i]!);
-  return sum;
+/** Work arrays of one problem size, reused from one solve to the next. */
+export interface BoxQpWorkspace {
+  /** Q plus the barrier's diagonal, with the rows and columns of fixed variables made the identity's. */
+  system: PentaBand;
+  factor: PentaFactor;
+  /** Multipliers of the lower and upper bounds. */
+  z: Float64Array;
+  w: Float64Array;
+  gradient: Float64Array;
+  /** 1 / (x - lower) and 1 / (upper - x). */
+  inverseS: Float64Array;
+  inverseT: Float64Array;
+  rhs: Float64Array;
+  dx: Float64Array;
+  dz: Float64Array;
+  dw: Float64Array;
+  /** 1 where the box has no width and the variable is fixed. */
+  fixed: Uint8Array;
+  /** The polish's guess (-1 held at the lower bound, 1 at the upper bound, 0 free), right-hand side and gradient. */
+  held: Int8Array;
+  polishRhs: Float64Array;
+  polishGradient: Float64Array;
+}
+
+export function boxQpWorkspace(count: number, cyclic: boolean): BoxQpWorkspace {
+  const vector = () => new Float64Array(count);
+  return {
+    system: emptyBand(count, cyclic),
+    factor: pentaFactorFor(count, cyclic),
+    z: vector(),
+    w: vector(),
+    gradient: vector(),
+    inverseS: vector(),
+    inverseT: vector(),
+    rhs: vector(),
+    dx: vector(),
+    dz: vector(),
+    dw: vector(),
+    fixed: new Uint8Array(count),
+    held: new Int8Array(count),
+    polishRhs: vector(),
+    polishGradient: vector(),
+  };
+}
+
+export interface BoxQpOptions {
+  /** Interior-point steps at most (default 80). */
+  maxIterations?: number;
+  /** Stop when the duality gap and the dual residual bound the objective's error by this (default 1e-12 of its
+   * scale at the start). */
+  tolerance?: number;
+  workspace?: BoxQpWorkspace;
+  /** Where the answer goes (default a new array). */
+  out?: Float64Array;
+}
+
+/** A polish is tried once the duality gap is within this factor of the tolerance, and again at each hundredth. */
+const POLISH_FROM = 1e3;
+/** Where the polished point may stray outside the box (share of the width) and a multiplier have the wrong sign
+ * (share of the gradient's largest terms): rounding, both. */
+const POLISH_SLACK = 1e-9;
+/** A box narrower than this fixes its variable, m. */
+const FIXED_WIDTH = 1e-9;
+/** Share of the way to a bound a step may go (Nocedal and Wright, section 16.6: 0.995 is usual). */
+const STEP_TO_BOUNDARY = 0.995;
+/** A dual residual this share of the gradient's largest terms is rounding (1e4 times the unit roundoff). */
+const RESIDUAL_FLOOR = 1e-12;
+/** How far inside the box the start is pushed, as a share of each box's width. */
+const START_INSET = 0.01;
+
+/** Q's off-diagonals into the system, less those of fixed variables (their rows and columns leave it). */
+function systemBand(band: PentaBand, work: BoxQpWorkspace): void {
+  const n = band.count;
+  const { system, fixed } = work;
+  system.off1.set(band.off1);
+  system.off2.set(band.off2);
+  for (let i = 0; i < n; i++) {
+    if (!fixed[i]) continue;
+    system.off1[i] = 0;
+    system.off2[i] = 0;
+    if (band.cyclic || i >= 1) system.off1[i === 0 ? n - 1 : i - 1] = 0;
+    if (band.cyclic || i >= 2) system.off2[i < 2 ? i + n - 2 : i - 2] = 0;
+  }
+}
+
+/** The system's solve; tiny systems (corner entries meeting the band) go through the general banded solvers. */
+function solveSystem(work: BoxQpWorkspace, rhs: Float64Array, out: Float64Array): boolean {
+  const { system } = work;
+  const n = system.count;
+  if (n >= SMALLEST_CYCLIC_PENTA) {
+    solvePenta(work.factor, rhs, out);
+    return true;
+  }
+  const entry: BandEntry = (i, k) => (k === 0 ? system.diag[i]! : k === 1 ? system.off1[i]! : system.off2[i]!);
+  try {
+    (system.cyclic ? cyclicBandedSolver(n, 2, entry) : bandedSolver(n, 2, entry))(rhs, out);
+  } catch {
+    return false;
+  }
+  return true;
+}
+
+/** The longest steps (at most 1) along dx that keep x inside the box, and along dz and dw that keep the
+ * multipliers positive, each `share` of the way to the nearest bound, into out[0] (primal) and out[1] (dual). */
+function longestSteps(work: BoxQpWorkspace, share: number, out: Float64Array): void {
+  const { dx, dz, dw, z, w, inverseS, inverseT, fixed } = work;
+  let primal = 1 / share;
+  let dual = 1 / share;
+  for (let i = 0; i < dx.length; i++) {
+    if (fixed[i]) continue;
+    const towardsLower = dx[i]! * inverseS[i]!;
+    const towardsUpper = dx[i]! * inverseT[i]!;
+    if (towardsLower < -1 / primal) primal = -1 / towardsLower;
+    if (towardsUpper > 1 / primal) primal = 1 / towardsUpper;
+    if (dz[i]! < -z[i]! / dual) dual = -z[i]! / dz[i]!;
+    if (dw[i]! < -w[i]! / dual) dual = -w[i]! / dw[i]!;
+  }
+  out[0] = primal * share;
+  out[1] = dual * share;
 }
 
 /**
- * Solves the box QP from a starting point (clipped into the box), to a step below toleranceX. Each iterate is
- * feasible and lowers the objective, so stopping early still gives a usable point.
+ * Solution polishing (Stellato, Banjac, Goulart, Bemporad and Boyd, "OSQP: an operator splitting solver for
+ * quadratic programs", Math. Prog. Comp. 12 (2020) 637-672, section 5.2): near the end the barrier tells which
+ * bounds hold (there z / s or w / t outweighs Q's own diagonal); holding those and solving for the rest gives the
+ * exact answer if the guess is right, which the KKT conditions confirm (every free point inside the box, every
+ * held one pushed against its bound). True, with x replaced, when it is.
+ */
+function polish(
+  band: PentaBand,
+  q: Float64Array,
+  lower: Float64Array,
+  upper: Float64Array,
+  work: BoxQpWorkspace,
+  x: Float64Array,
+  signSlack: number,
+): boolean {
+  const n = band.count;
+  const {
+    system,
+    z,
+    w,
+    inverseS,
+    inverseT,
+    fixed,
+    held,
+    polishRhs: rhs,
+    dx: candidate,
+    polishGradient: gradient,
+  } = work;
+  for (let i = 0; i < n; i++) {
+    const pullLower = fixed[i] ? 0 : z[i]! * inverseS[i]!;
+    const pullUpper = fixed[i] ? 0 : w[i]! * inverseT[i]!;
+    const own = band.diag[i]!;
+    held[i] = fixed[i] ? 2 : pullLower > own && pullLower > pullUpper ? -1 : pullUpper > own ? 1 : 0;
+  }
+  const boundOf = (i: number) => (held[i] === -1 ? lower[i]! : held[i] === 1 ? upper[i]! : x[i]!);
+  for (let i = 0; i < n; i++) {
+    system.diag[i] = held[i] ? 1 : band.diag[i]!;
+    rhs[i] = held[i] ? boundOf(i) : -q[i]!;
+    system.off1[i] = 0;
+    system.off2[i] = 0;
+  }
+  // Each band pair (i, j): kept between two free variables, moved to the right-hand side next to a held one.
+  for (let reach = 1; reach <= 2; reach++) {
+    const offsets = reach === 1 ? band.off1 : band.off2;
+    const kept = reach === 1 ? system.off1 : system.off2;
+    const pairs = band.cyclic ? n : n - reach;
+    for (let i = 0; i < pairs; i++) {
+      const j = i + reach < n ? i + reach : i + reach - n;
+      if (!held[i] && !held[j]) kept[i] = offsets[i]!;
+      else if (!held[i]) rhs[i]! -= offsets[i]! * boundOf(j);
+      else if (!held[j]) rhs[j]! -= offsets[i]! * boundOf(i);
+    }
+  }
+  let solved = n < SMALLEST_CYCLIC_PENTA || factorPenta(system, work.factor);
+  if (solved) solved = solveSystem(work, rhs, candidate);
+  if (solved) {
+    multiplyBand(band, candidate, gradient);
+    for (let i = 0; i < n && solved; i++) {
+      const g = gradient[i]! + q[i]!;
+      const slack = POLISH_SLACK * (upper[i]! - lower[i]!);
+      if (held[i] === 0) solved = candidate[i]! >= lower[i]! - slack && candidate[i]! <= upper[i]! + slack;
+      else if (held[i] === -1) solved = g >= -signSlack;
+      else if (held[i] === 1) solved = g <= signSlack;
+    }
+  }
+  if (!solved) {
+    // The interior-point steps go on with their own system.
+    systemBand(band, work);
+    for (let i = 0; i < n; i++)
+      system.diag[i] = fixed[i] ? 1 : band.diag[i]! + z[i]! * inverseS[i]! + w[i]! * inverseT[i]!;
+    return false;
+  }
+  for (let i = 0; i < n; i++) x[i] = Math.min(upper[i]!, Math.max(lower[i]!, candidate[i]!));
+  return true;
+}
+
+/**
+ * Solves the box QP from a starting point (pushed just inside the box). Returns a point inside the box, to the
+ * tolerance when converged.
  */
 export function solveBoxQp(
   band: PentaBand,
@@ -69,73 +281,145 @@ export function solveBoxQp(
   lower: Float64Array,
   upper: Float64Array,
   start: Float64Array,
-  maxIterations = 30,
-  toleranceX = 1e-6,
+  options: BoxQpOptions = {},
 ): BoxQpResult {
   const n = band.count;
-  const x = new Float64Array(n);
-  for (let i = 0; i < n; i++) x[i] = Math.min(upper[i]!, Math.max(lower[i]!, start[i]!));
-  const gradient = new Float64Array(n);
-  const step = new Float64Array(n);
-  const trial = new Float64Array(n);
-  const work = new Float64Array(n);
-  const binding = new Uint8Array(n);
-  let value = objectiveOf(band, q, x, work);
-  let converged = false;
-  let iterations = 0;
-  for (; iterations < maxIterations; iterations++) {
-    // Half the gradient of x^T Q x + 2 q^T x.
-    multiplyBand(band, x, gradient);
-    for (let i = 0; i < n; i++) gradient[i]! += q[i]!;
-    // Bertsekas' epsilon-binding set: at (or within epsilon, in metres, of) a bound the gradient pushes against.
-    const epsilon = 1e-3;
-    for (let i = 0; i < n; i++) {
-      const g = gradient[i]!;
-      binding[i] = (x[i]! <= lower[i]! + epsilon && g > 0) || (x[i]! >= upper[i]! - epsilon && g < 0) ? 1 : 0;
-      step[i] = binding[i] ? -g / band.diag[i]! : -g;
+  const maxIterations = options.maxIterations ?? 80;
+  const work = options.workspace ?? boxQpWorkspace(n, band.cyclic);
+  const x = options.out ?? new Float64Array(n);
+  const { system, z, w, gradient: g, inverseS, inverseT, rhs, dx, dz, dw, fixed } = work;
+  let free = 0;
+  for (let i = 0; i < n; i++) {
+    const width = upper[i]! - lower[i]!;
+    fixed[i] = width <= FIXED_WIDTH ? 1 : 0;
+    if (fixed[i]) {
+      x[i] = 0.5 * (lower[i]! + upper[i]!);
+      continue;
     }
-    // Newton step on the free variables: the reduced band, with identity rows and columns for the binding ones.
-    const entry: BandEntry = (i, k) => {
-      if (k === 0) return binding[i] ? 1 : band.diag[i]!;
-      const j = (i + k) % n;
-      if (binding[i] || binding[j]) return 0;
-      return k === 1 ? band.off1[i]! : band.off2[i]!;
-    };
-    const solve = band.cyclic ? cyclicBandedSolver(n, 2, entry) : bandedSolver(n, 2, entry);
-    const newton = solve(step);
-    for (let i = 0; i < n; i++) step[i] = binding[i] ? step[i]! : newton[i]!;
-    // Projected search along the step with Armijo's rule (Bertsekas, SIAM J. Control Optim. 20 (1982) 221-246).
-    let accepted = false;
-    let largestMove = 0;
-    let fullMove = -1;
-    for (let alpha = 1; alpha > 1e-6; alpha *= 0.5) {
-      let predicted = 0;
-      largestMove = 0;
-      for (let i = 0; i < n; i++) {
-        const next = Math.min(upper[i]!, Math.max(lower[i]!, x[i]! + alpha * step[i]!));
-        trial[i] = next;
-        predicted += 2 * gradient[i]! * (x[i]! - next);
-        largestMove = Math.max(largestMove, Math.abs(next - x[i]!));
+    free++;
+    const inset = START_INSET * width;
+    x[i] = Math.min(upper[i]! - inset, Math.max(lower[i]! + inset, start[i]!));
+  }
+  systemBand(band, work);
+  // Multipliers from the gradient at the start, each at least a small share of the gradient's scale over the
+  // width, so that every product s z and t w starts positive and of one size.
+  multiplyBand(band, x, g);
+  let scale = 0;
+  for (let i = 0; i < n; i++) {
+    g[i]! += q[i]!;
+    if (!fixed[i]) scale += Math.abs(g[i]!) * (upper[i]! - lower[i]!);
+  }
+  scale = free > 0 ? scale / free : 0;
+  if (!(scale > 0)) scale = 1;
+  // The size of the gradient's rounding error: a dual residual below a small multiple of it is as good as zero.
+  let largestTerm = 0;
+  for (let i = 0; i < n; i++) {
+    const row = Math.abs(band.diag[i]!) + 2 * Math.abs(band.off1[i]!) + 2 * Math.abs(band.off2[i]!);
+    const reach = Math.max(Math.abs(lower[i]!), Math.abs(upper[i]!));
+    largestTerm = Math.max(largestTerm, Math.abs(q[i]!) + row * reach);
+    const floor = fixed[i] ? 0 : (0.1 * scale) / (upper[i]! - lower[i]!);
+    z[i] = fixed[i] ? 0 : Math.max(g[i]!, 0) + floor;
+    w[i] = fixed[i] ? 0 : Math.max(-g[i]!, 0) + floor;
+    // Fixed variables do not move: zeros in the right-hand sides and the multipliers' steps keep them.
+    dz[i] = 0;
+    dw[i] = 0;
+  }
+  const residualFloor = RESIDUAL_FLOOR * largestTerm;
+  const tolerance = options.tolerance ?? 1e-12 * scale * free;
+  let polishAt = POLISH_FROM * tolerance;
+  const steps = new Float64Array(2);
+  let converged = free === 0;
+  let iterations = 0;
+  while (!converged && iterations < maxIterations) {
+    // Gradient, duality gap, the dual residual's bound on the objective (sum |r| times the box's width), and the
+    // system's diagonal Q + Z/S + W/T.
+    multiplyBand(band, x, g);
+    let gap = 0;
+    let residual = 0;
+    let largestResidual = 0;
+    for (let i = 0; i < n; i++) {
+      const gi = g[i]! + q[i]!;
+      g[i] = gi;
+      if (fixed[i]) {
+        system.diag[i] = 1;
+        rhs[i] = 0;
+        continue;
       }
-      if (fullMove < 0) fullMove = largestMove;
-      if (fullMove < toleranceX) break;
-      const trialValue = objectiveOf(band, q, trial, work);
-      if (value - trialValue >= 1e-4 * predicted && trialValue <= value) {
-        x.set(trial);
-        value = trialValue;
-        accepted = true;
+      const s = x[i]! - lower[i]!;
+      const t = upper[i]! - x[i]!;
+      const iS = 1 / s;
+      const iT = 1 / t;
+      inverseS[i] = iS;
+      inverseT[i] = iT;
+      const r = Math.abs(gi - z[i]! + w[i]!);
+      gap += s * z[i]! + t * w[i]!;
+      residual += r * (s + t);
+      if (r > largestResidual) largestResidual = r;
+      system.diag[i] = band.diag[i]! + z[i]! * iS + w[i]! * iT;
+      rhs[i] = -gi;
+    }
+    // x^T Q x + 2 q^T x is twice the form the multipliers belong to.
+    if (2 * gap <= polishAt) {
+      if (polish(band, q, lower, upper, work, x, POLISH_SLACK * largestTerm)) {
+        converged = true;
         break;
       }
+      polishAt /= 100;
     }
-    if (fullMove < toleranceX) {
+    if (2 * gap <= tolerance && (2 * residual <= tolerance || largestResidual <= residualFloor)) {
       converged = true;
       break;
     }
-    if (!accepted || largestMove < toleranceX) {
-      converged = accepted;
-      iterations++;
-      break;
+    iterations++;
+    if (n >= SMALLEST_CYCLIC_PENTA && !factorPenta(system, work.factor)) break;
+    const mu = gap / (2 * free);
+    // Predictor (affine scaling): the Newton step towards a zero gap, dx from -g, the multipliers' from dx, and
+    // the longest steps that keep x inside the box and the multipliers positive.
+    if (!solveSystem(work, rhs, dx)) break;
+    for (let i = 0; i < n; i++) {
+      if (fixed[i]) continue;
+      dz[i] = -z[i]! * (1 + dx[i]! * inverseS[i]!);
+      dw[i] = -w[i]! * (1 - dx[i]! * inverseT[i]!);
+    }
+    longestSteps(work, 1, steps);
+    let primal = steps[0]!;
+    let dual = steps[1]!;
+    // The gap that step would reach gives the centring weight sigma = (mu_aff / mu)^3; the corrector adds the
+    // centring and the affine step's second-order term to the right-hand side.
+    let gapAffine = 0;
+    for (let i = 0; i < n; i++) {
+      if (fixed[i]) continue;
+      const d = primal * dx[i]!;
+      gapAffine +=
+        (x[i]! - lower[i]! + d) * (z[i]! + dual * dz[i]!) + (upper[i]! - x[i]! - d) * (w[i]! + dual * dw[i]!);
+    }
+    const target = Math.min(1, (gapAffine / gap) ** 3) * mu;
+    for (let i = 0; i < n; i++) {
+      if (fixed[i]) continue;
+      const d = dx[i]!;
+      const iS = inverseS[i]!;
+      const iT = inverseT[i]!;
+      // Right-hand side first (it needs the affine steps), then the affine parts of the multipliers' steps.
+      rhs[i] = -g[i]! + target * (iS - iT) - d * dz[i]! * iS - d * dw[i]! * iT;
+      dz[i] = (target - d * dz[i]!) * iS - z[i]!;
+      dw[i] = (target + d * dw[i]!) * iT - w[i]!;
+    }
+    if (!solveSystem(work, rhs, dx)) break;
+    for (let i = 0; i < n; i++) {
+      if (fixed[i]) continue;
+      dz[i]! -= z[i]! * dx[i]! * inverseS[i]!;
+      dw[i]! += w[i]! * dx[i]! * inverseT[i]!;
+    }
+    longestSteps(work, STEP_TO_BOUNDARY, steps);
+    primal = steps[0]!;
+    dual = steps[1]!;
+    for (let i = 0; i < n; i++) {
+      if (fixed[i]) continue;
+      x[i]! += primal * dx[i]!;
+      z[i]! += dual * dz[i]!;
+      w[i]! += dual * dw[i]!;
     }
   }
+  for (let i = 0; i < n; i++) x[i] = Math.min(upper[i]!, Math.max(lower[i]!, x[i]!));
   return { x, iterations, converged };
 }

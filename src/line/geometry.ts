@@ -9,6 +9,9 @@
 
 import type { Path, TrackGrid } from '../track/types.js';
 
+/** The grid a line's geometry needs: its step, whether it closes, and the centreline's curvature. */
+export type OffsetGrid = Pick<TrackGrid, 'closed' | 'stepM' | 'curvaturePerM'>;
+
 /** Curvature of the offset curve from n, n', n'' and the centreline's kc, kc' (module header). */
 export function offsetCurvature(n: number, dn: number, ddn: number, kc: number, dkc: number): number {
   const a = 1 - n * kc;
@@ -42,7 +45,7 @@ export function offsetCurvaturePartials(
 }
 
 /** Derivative of the centreline curvature along s (central differences; one-sided at open ends). */
-export function centrelineCurvatureSlope(track: TrackGrid): Float64Array {
+export function centrelineCurvatureSlope(track: OffsetGrid): Float64Array {
   const kc = track.curvaturePerM;
   const n = kc.length;
   const h = track.stepM;
@@ -63,19 +66,25 @@ export function centrelineCurvatureSlope(track: TrackGrid): Float64Array {
   return out;
 }
 
-/** Offsets of the neighbours of sample i: on an open grid the line continues straight past the ends. */
-export function neighbourOffsets(offsetM: Float64Array, i: number, closed: boolean): [number, number] {
+/** Offset of the sample before i: on an open grid the line continues straight past the first sample. */
+export function previousOffset(offsetM: Float64Array, i: number, closed: boolean): number {
+  if (i > 0) return offsetM[i - 1]!;
   const n = offsetM.length;
-  if (closed) return [offsetM[(i - 1 + n) % n]!, offsetM[(i + 1) % n]!];
-  if (n < 2) return [offsetM[0]!, offsetM[0]!];
-  const prev = i > 0 ? offsetM[i - 1]! : 2 * offsetM[0]! - offsetM[1]!;
-  const next = i < n - 1 ? offsetM[i + 1]! : 2 * offsetM[n - 1]! - offsetM[n - 2]!;
-  return [prev, next];
+  if (closed) return offsetM[n - 1]!;
+  return n < 2 ? offsetM[0]! : 2 * offsetM[0]! - offsetM[1]!;
+}
+
+/** Offset of the sample after i: on an open grid the line continues straight past the last sample. */
+export function nextOffset(offsetM: Float64Array, i: number, closed: boolean): number {
+  const n = offsetM.length;
+  if (i < n - 1) return offsetM[i + 1]!;
+  if (closed) return offsetM[0]!;
+  return n < 2 ? offsetM[0]! : 2 * offsetM[n - 1]! - offsetM[n - 2]!;
 }
 
 /** Signed curvature of the line at every sample, 1/m. */
 export function lineCurvature(
-  track: TrackGrid,
+  track: OffsetGrid,
   offsetM: Float64Array,
   curvatureSlope: Float64Array = centrelineCurvatureSlope(track),
   out: Float64Array = new Float64Array(offsetM.length),
@@ -83,7 +92,8 @@ export function lineCurvature(
   const h = track.stepM;
   const kc = track.curvaturePerM;
   for (let i = 0; i < offsetM.length; i++) {
-    const [prev, next] = neighbourOffsets(offsetM, i, track.closed);
+    const prev = previousOffset(offsetM, i, track.closed);
+    const next = nextOffset(offsetM, i, track.closed);
     const n = offsetM[i]!;
     out[i] = offsetCurvature(n, (next - prev) / (2 * h), (next - 2 * n + prev) / (h * h), kc[i]!, curvatureSlope[i]!);
   }
@@ -97,11 +107,14 @@ export function segmentCurvature(kc: Float64Array, i: number): number {
 }
 
 /** Path length of each segment: h sqrt(a^2 + n'^2) with a and n' taken at the segment's middle. */
-export function lineSegmentLengths(track: TrackGrid, offsetM: Float64Array): Float64Array {
+export function lineSegmentLengths(
+  track: OffsetGrid,
+  offsetM: Float64Array,
+  out: Float64Array = new Float64Array(Math.max(track.closed ? offsetM.length : offsetM.length - 1, 0)),
+): Float64Array {
   const count = offsetM.length;
   const segments = track.closed ? count : count - 1;
   const h = track.stepM;
-  const out = new Float64Array(Math.max(segments, 0));
   for (let i = 0; i < segments; i++) {
     const j = i + 1 === count ? 0 : i + 1;
     const a = 1 - 0.5 * (offsetM[i]! + offsetM[j]!) * segmentCurvature(track.curvaturePerM, i);

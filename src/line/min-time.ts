@@ -35,6 +35,8 @@ export interface MinimumTimeResult {
   lap: LapResult;
   /** Laps driven by the solver during the search (the start's lap counts only when driven here). */
   evaluations: number;
+  /** Length weight of the last candidate kept, or null when none beat the start. */
+  lengthWeight: number | null;
 }
 
 /** Length weights of the first round; later rounds try the best one and its half again, on new weights.
@@ -83,6 +85,7 @@ export function minimumTimeOffsets(
   let evaluations = startLap ? 0 : 1;
   const rounds = options.rounds ?? 3;
   let lengthWeights: readonly number[] = options.lengthWeights ?? FIRST_ROUND_LENGTH_WEIGHTS;
+  let keptWeight: number | null = null;
   for (let round = 0; round < rounds; round++) {
     const reference = bestLap;
     const referenceOffsets = bestOffsets;
@@ -100,11 +103,12 @@ export function minimumTimeOffsets(
         bestLap = lap;
         bestOffsets = candidate;
         bestWeight = lengthWeight;
+        keptWeight = lengthWeight;
         improved = true;
       }
     }
     if (!improved) break;
     lengthWeights = [bestWeight, bestWeight / 2];
   }
-  return { offsetM: bestOffsets, lap: bestLap, evaluations };
+  return { offsetM: bestOffsets, lap: bestLap, evaluations, lengthWeight: keptWeight };
 }

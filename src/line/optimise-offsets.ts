@@ -8,18 +8,19 @@
 // depends on n_(i-1), n_i, n_(i+1) and each l_i on n_i, n_(i+1), so the programme's matrix is a (cyclic)
 // pentadiagonal band: no n-by-n matrix appears anywhere.
 
-import type { TrackGrid } from '../track/types.js';
 import type { Corridor } from './corridor.js';
 import {
   centrelineCurvatureSlope,
   lineCurvature,
-  offsetCurvature,
   lineSegmentLengths,
-  neighbourOffsets,
+  nextOffset,
+  offsetCurvature,
   offsetCurvaturePartials,
+  previousOffset,
   segmentCurvature,
+  type OffsetGrid,
 } from './geometry.js';
-import { emptyBand, solveBoxQp, type PentaBand } from './box-qp.js';
+import { boxQpWorkspace, emptyBand, solveBoxQp, type BoxQpWorkspace, type PentaBand } from './box-qp.js';
 
 export interface OffsetWeights {
   /** Weight of k_i^2 at each sample. */
@@ -35,36 +36,57 @@ export interface OptimiseOptions {
   relativeTolerance: number;
 }
 
-/** Inner iterations per linearisation: the outer loop re-linearises anyway, so the QP need not be exact. */
-const QP_ITERATIONS = 10;
+/** Interior-point steps per linearisation at most (box-qp.ts); it usually needs 15 to 30. */
+const QP_ITERATIONS = 80;
+/** Each quadratic programme is solved to this share of the decrease that ends the outer iterations. */
+const QP_TOLERANCE = 1e-3;
 
 export const DEFAULT_OPTIMISE_OPTIONS: OptimiseOptions = { maxIterations: 40, relativeTolerance: 1e-6 };
 
 export interface OptimiseResult {
   offsetM: Float64Array;
   objective: number;
+  /** Gauss-Newton iterations, and the interior-point steps of their quadratic programmes in all. */
   iterations: number;
+  qpSteps: number;
 }
 
-function clampInto(corridor: Corridor, offsetM: Float64Array): Float64Array {
-  const out = new Float64Array(offsetM.length);
-  for (let i = 0; i < out.length; i++)
-    out[i] = Math.min(corridor.upperM[i]!, Math.max(corridor.lowerM[i]!, offsetM[i]!));
-  return out;
+/** Work arrays of one grid size, allocated once per optimisation. */
+interface Scratch {
+  band: PentaBand;
+  q: Float64Array;
+  partials: Float64Array;
+  kappa: Float64Array;
+  lengths: Float64Array;
+  qp: BoxQpWorkspace;
+  step: Float64Array;
+}
+
+function scratchFor(count: number, closed: boolean): Scratch {
+  return {
+    band: emptyBand(count, closed),
+    q: new Float64Array(count),
+    partials: new Float64Array(3),
+    kappa: new Float64Array(count),
+    lengths: new Float64Array(closed ? count : Math.max(count - 1, 0)),
+    qp: boxQpWorkspace(count, closed),
+    step: new Float64Array(count),
+  };
 }
 
 /** F(n), the exact objective. */
 export function offsetObjective(
-  track: TrackGrid,
+  track: OffsetGrid,
   weights: OffsetWeights,
   offsetM: Float64Array,
   slope: Float64Array,
+  scratch: Pick<Scratch, 'kappa' | 'lengths'> = scratchFor(offsetM.length, track.closed),
 ): number {
-  const kappa = lineCurvature(track, offsetM, slope);
+  const kappa = lineCurvature(track, offsetM, slope, scratch.kappa);
   let sum = 0;
   for (let i = 0; i < kappa.length; i++) sum += weights.curvature[i]! * kappa[i]! * kappa[i]!;
   if (weights.length && weights.lengthWeight > 0) {
-    const lengths = lineSegmentLengths(track, offsetM);
+    const lengths = lineSegmentLengths(track, offsetM, scratch.lengths);
     let lengthSum = 0;
     for (let i = 0; i < lengths.length; i++) lengthSum += weights.length[i]! * lengths[i]!;
     sum += weights.lengthWeight * lengthSum;
@@ -72,7 +94,8 @@ export function offsetObjective(
   return sum;
 }
 
-/** Adds weight * (e + c . x)^2 for a residual over columns i - 1, i, i + 1 to the band and to q. */
+/** Adds weight * (e + c . x)^2 for a residual over columns i - 1, i, i + 1 to the band and to q (cp = 0: over i and
+ * i + 1 alone). */
 function addResidual3(
   band: PentaBand,
   q: Float64Array,
@@ -84,8 +107,8 @@ function addResidual3(
   weight: number,
 ): void {
   const n = band.count;
-  const ip = band.cyclic ? (i - 1 + n) % n : i - 1;
-  const inx = band.cyclic ? (i + 1) % n : i + 1;
+  const ip = band.cyclic ? (i === 0 ? n - 1 : i - 1) : i - 1;
+  const inx = band.cyclic ? (i + 1 === n ? 0 : i + 1) : i + 1;
   const { diag, off1, off2 } = band;
   diag[i]! += weight * cm * cm;
   q[i]! += weight * e * cm;
@@ -102,27 +125,34 @@ function addResidual3(
   }
 }
 
-/** The Gauss-Newton quadratic model about `offsetM` (without damping): band Q and vector q of x^T Q x + 2 q^T x. */
+/** The Gauss-Newton quadratic model about `offsetM` (without damping) into scratch.band and scratch.q: the band
+ * Q and vector q of x^T Q x + 2 q^T x. */
 function buildModel(
-  track: TrackGrid,
+  track: OffsetGrid,
   weights: OffsetWeights,
   offsetM: Float64Array,
   slope: Float64Array,
-): { band: PentaBand; q: Float64Array } {
+  scratch: Scratch,
+): void {
   const count = offsetM.length;
   const closed = track.closed;
-  const band = emptyBand(count, closed);
-  const q = new Float64Array(count);
+  const { band, q, partials } = scratch;
+  band.diag.fill(0);
+  band.off1.fill(0);
+  band.off2.fill(0);
+  q.fill(0);
   const h = track.stepM;
   const kc = track.curvaturePerM;
-  const partials = new Float64Array(3);
   for (let i = 0; i < count; i++) {
-    const [prev, next] = neighbourOffsets(offsetM, i, closed);
+    const prev = previousOffset(offsetM, i, closed);
+    const next = nextOffset(offsetM, i, closed);
     const n = offsetM[i]!;
     const dn = (next - prev) / (2 * h);
     const ddn = (next - 2 * n + prev) / (h * h);
     offsetCurvaturePartials(n, dn, ddn, kc[i]!, slope[i]!, partials);
-    const [kN, kD, kDD] = partials as unknown as [number, number, number];
+    const kN = partials[0]!;
+    const kD = partials[1]!;
+    const kDD = partials[2]!;
     let cp = -kD / (2 * h) + kDD / (h * h);
     let cm = kN - (2 * kDD) / (h * h);
     let cn = kD / (2 * h) + kDD / (h * h);
@@ -138,48 +168,27 @@ function buildModel(
       cn = 0;
     }
     const kappa0 = offsetCurvature(n, dn, ddn, kc[i]!, slope[i]!);
-    const ip = closed ? (i - 1 + count) % count : i - 1;
-    const inx = closed ? (i + 1) % count : i + 1;
+    const ip = closed ? (i === 0 ? count - 1 : i - 1) : i - 1;
+    const inx = closed ? (i + 1 === count ? 0 : i + 1) : i + 1;
     const e = kappa0 - cm * n - (ip >= 0 ? cp * offsetM[ip]! : 0) - (inx < count ? cn * offsetM[inx]! : 0);
     addResidual3(band, q, i, cp, cm, cn, e, weights.curvature[i]!);
   }
   if (weights.length && weights.lengthWeight > 0) {
     const segments = closed ? count : count - 1;
-    const lengths = lineSegmentLengths(track, offsetM);
+    const lengths = lineSegmentLengths(track, offsetM, scratch.lengths);
     for (let i = 0; i < segments; i++) {
       const weight = (weights.lengthWeight * weights.length[i]!) / (2 * lengths[i]!);
       const half = 0.5 * h * segmentCurvature(kc, i);
       // l_i^2 = (h - half (n_i + n_j))^2 + (n_j - n_i)^2, two linear residuals over columns i, i + 1.
-      addResidual2(band, q, i, -half, -half, h, weight);
-      addResidual2(band, q, i, -1, 1, 0, weight);
+      addResidual3(band, q, i, 0, -half, -half, h, weight);
+      addResidual3(band, q, i, 0, -1, 1, 0, weight);
     }
-  }
-  return { band, q };
-}
-
-function addResidual2(
-  band: PentaBand,
-  q: Float64Array,
-  i: number,
-  cm: number,
-  cn: number,
-  e: number,
-  weight: number,
-): void {
-  const n = band.count;
-  const inx = band.cyclic ? (i + 1) % n : i + 1;
-  band.diag[i]! += weight * cm * cm;
-  q[i]! += weight * e * cm;
-  if (inx < n) {
-    band.off1[i]! += weight * cm * cn;
-    band.diag[inx]! += weight * cn * cn;
-    q[inx]! += weight * e * cn;
   }
 }
 
 /** Minimises F inside the corridor, starting from `start` (clipped into the corridor). */
 export function optimiseOffsets(
-  track: TrackGrid,
+  track: OffsetGrid,
   corridor: Corridor,
   weights: OffsetWeights,
   start: Float64Array,
@@ -187,13 +196,19 @@ export function optimiseOffsets(
 ): OptimiseResult {
   const count = start.length;
   const slope = centrelineCurvatureSlope(track);
-  let current = clampInto(corridor, start);
-  let value = offsetObjective(track, weights, current, slope);
+  const scratch = scratchFor(count, track.closed);
+  const { band, q, step } = scratch;
+  const lower = corridor.lowerM;
+  const upper = corridor.upperM;
+  let current = new Float64Array(count);
+  let trial = new Float64Array(count);
+  for (let i = 0; i < count; i++) current[i] = Math.min(upper[i]!, Math.max(lower[i]!, start[i]!));
+  let value = offsetObjective(track, weights, current, slope, scratch);
   let damping = -1;
   let iterations = 0;
-  const trial = new Float64Array(count);
+  let qpSteps = 0;
   for (; iterations < options.maxIterations; iterations++) {
-    const { band, q } = buildModel(track, weights, current, slope);
+    buildModel(track, weights, current, slope, scratch);
     let scale = 0;
     for (let i = 0; i < count; i++) scale += band.diag[i]!;
     scale = scale / count || 1;
@@ -206,18 +221,23 @@ export function optimiseOffsets(
         band.diag[i]! += damping;
         q[i]! -= damping * current[i]!;
       }
-      const { x } = solveBoxQp(band, q, corridor.lowerM, corridor.upperM, current, QP_ITERATIONS);
+      qpSteps += solveBoxQp(band, q, lower, upper, current, {
+        maxIterations: QP_ITERATIONS,
+        tolerance: QP_TOLERANCE * options.relativeTolerance * Math.abs(value),
+        workspace: scratch.qp,
+        out: step,
+      }).iterations;
       for (let i = 0; i < count; i++) {
         band.diag[i]! -= damping;
         q[i]! += damping * current[i]!;
       }
       // Backtracking along the step; the corridor is convex, so every point of the step stays inside.
       for (let t = 1; t > 0.01 && !accepted; t *= 0.5) {
-        for (let i = 0; i < count; i++) trial[i] = current[i]! + t * (x[i]! - current[i]!);
-        const trialValue = offsetObjective(track, weights, trial, slope);
+        for (let i = 0; i < count; i++) trial[i] = current[i]! + t * (step[i]! - current[i]!);
+        const trialValue = offsetObjective(track, weights, trial, slope, scratch);
         if (trialValue < value) {
           decrease = value - trialValue;
-          current = Float64Array.from(trial);
+          [current, trial] = [trial, current];
           value = trialValue;
           accepted = true;
           if (t === 1) damping = Math.max(damping / 10, 1e-14 * scale);
@@ -230,5 +250,5 @@ export function optimiseOffsets(
       break;
     }
   }
-  return { offsetM: current, objective: value, iterations };
+  return { offsetM: current, objective: value, iterations, qpSteps };
 }

@@ -9,8 +9,9 @@ import { buildEnvelope } from '../car/build-envelope.js';
 import { simulate } from '../solve/simulate.js';
 import { corridorOf, defaultMarginM } from './corridor.js';
 import { linePath, linePositions } from './geometry.js';
-import { minimumCurvatureOffsets } from './min-curvature.js';
-import { driveLine, minimumTimeOffsets } from './min-time.js';
+import { warmStartedCurvatureLine } from './min-curvature.js';
+import { driveLine, minimumTimeOffsets, type MinimumTimeOptions } from './min-time.js';
+import { coarseLevel, prolongOffsets } from './coarse-track.js';
 import type { LineGeometry, LineObjective, RacingLine } from './types.js';
 import { validateCar } from '../car/validate.js';
 import { validateTrackGrid } from '../track/validate-grid.js';
@@ -67,13 +68,33 @@ export function racingLine(track: TrackGrid, car: Car, options: RacingLineOption
   const startSpeedMps = options.startSpeedMps ?? 0;
   const drive = { ambient, envelope, startSpeedMps };
   const centrelineLap = simulate(track, car, drive);
-  const curvatureLine = minimumCurvatureOffsets(track, corridor).offsetM;
+  // Both searches start on a coarse grid where the track's grid is fine (coarse-track.ts).
+  const coarse = coarseLevel(track, marginM);
+  const curvatureSearch = warmStartedCurvatureLine(track, corridor, coarse);
+  const curvatureLine = curvatureSearch.offsetM;
   const curvatureLap = driveLine(track, car, curvatureLine, drive);
   let offsetM = curvatureLine;
   let lap = curvatureLap;
   let lapEvaluations = 1;
   if (objective === 'time') {
-    const best = minimumTimeOffsets(track, car, corridor, curvatureLine, drive, curvatureLap);
+    let search: MinimumTimeOptions = drive;
+    if (coarse && curvatureSearch.coarseOffsetM) {
+      // The whole search on the coarse grid; its line, carried over, starts the fine grid's last round when it
+      // beats the fine minimum-curvature line there, with the length weights that won on the coarse grid.
+      const rough = minimumTimeOffsets(coarse.track, car, coarse.corridor, curvatureSearch.coarseOffsetM, drive);
+      lapEvaluations += rough.evaluations;
+      if (rough.lengthWeight !== null) {
+        const carried = prolongOffsets(track, corridor, coarse.track, rough.offsetM);
+        const carriedLap = driveLine(track, car, carried, drive);
+        lapEvaluations++;
+        if (carriedLap.lapTimeS < lap.lapTimeS) {
+          offsetM = carried;
+          lap = carriedLap;
+        }
+        search = { ...drive, rounds: 1, lengthWeights: [rough.lengthWeight, rough.lengthWeight / 2] };
+      }
+    }
+    const best = minimumTimeOffsets(track, car, corridor, offsetM, search, lap);
     offsetM = best.offsetM;
     lap = best.lap;
     lapEvaluations += best.evaluations;

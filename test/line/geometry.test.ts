@@ -3,7 +3,8 @@
 import { describe, expect, it } from 'vitest';
 import { Matrix, solve as denseSolve } from 'ml-matrix';
 import { lineCurvature, linePath, linePositions, offsetCurvature } from '../../src/line/geometry.js';
-import { emptyBand, solveBoxQp } from '../../src/line/box-qp.js';
+import { solveBoxQp } from '../../src/line/box-qp.js';
+import { bandFromRows } from './band-fixtures.js';
 import { corridorOf, defaultMarginM } from '../../src/line/corridor.js';
 import { InputError } from '../../src/errors.js';
 import { testCar } from '../helpers/cars.js';
@@ -132,40 +133,21 @@ describe('banded box QP', () => {
     for (const cyclic of [true, false]) {
       for (let trial = 0; trial < 5; trial++) {
         const n = 7;
-        const band = emptyBand(n, cyclic);
-        const dense = Matrix.zeros(n, n);
         // Q = sum of r r^T over three-wide residual rows (like the curvature model) plus a small diagonal.
-        for (let i = 0; i < n; i++) {
-          const r = [random() - 0.5, 1 + random(), random() - 0.5];
-          const cols = [i - 1, i, i + 1].map((j) => (cyclic ? (j + n) % n : j));
-          for (let a = 0; a < 3; a++) {
-            for (let b = 0; b < 3; b++) {
-              const ja = cols[a]!;
-              const jb = cols[b]!;
-              if (ja < 0 || jb < 0 || ja >= n || jb >= n) continue;
-              dense.set(ja, jb, dense.get(ja, jb) + r[a]! * r[b]!);
-            }
-          }
-        }
-        for (let i = 0; i < n; i++) {
-          dense.set(i, i, dense.get(i, i) + 0.01);
-          band.diag[i] = dense.get(i, i);
-          band.off1[i] = cyclic || i + 1 < n ? dense.get(i, (i + 1) % n) : 0;
-          band.off2[i] = cyclic || i + 2 < n ? dense.get(i, (i + 2) % n) : 0;
-        }
+        const { band, dense } = bandFromRows(n, cyclic, () => [random() - 0.5, 1 + random(), random() - 0.5], 0.01);
         const c = Array.from({ length: n }, () => 4 * (random() - 0.5));
         const lower = Array.from({ length: n }, () => -0.5 - random());
         const upper = Array.from({ length: n }, () => 0.5 + random());
         const expected = bruteForceBoxQp(dense, c, lower, upper);
-        const { x } = solveBoxQp(
+        const { x, converged } = solveBoxQp(
           band,
           Float64Array.from(c),
           Float64Array.from(lower),
           Float64Array.from(upper),
           new Float64Array(n),
-          100,
-          1e-12,
+          { tolerance: 1e-14 },
         );
+        expect(converged).toBe(true);
         for (let i = 0; i < n; i++) expect(x[i]).toBeCloseTo(expected[i]!, 6);
       }
     }
