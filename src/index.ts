@@ -37,7 +37,7 @@ export { validateCar } from './car/validate.js';
 export { pointMassEnvelope, totalMassKg } from './car/point-mass.js';
 export { buildEnvelope } from './car/build-envelope.js';
 export { gripBudget, type GripBudget } from './car/budget.js';
-export { simulate, type SimulateOptions } from './solve/simulate.js';
+export { simulate, simulateLapTime, type LapTimeResult, type SimulateOptions } from './solve/simulate.js';
 export { findBrakingZones } from './solve/braking-zones.js';
 export { traceCsv } from './report/trace-csv.js';
 export { lapSummaryJson, lapSummaryText, SAFETY_CAUTION } from './report/lap-summary.js';

@@ -11,12 +11,16 @@ import { STANDARD_GRAVITY_MPS2 } from '../units.js';
 /** Mass the physics uses: the car with driver plus its fuel. */
 export const totalMassKg = (car: Car): number => car.massKg + car.fuel.massKg;
 
+/** x^p for x >= 0 (0 and Infinity included) as exp(p ln x): the same to a few units in the last place as Math.pow,
+ * at about half its cost in the solver's hot loops, where the friction ellipse's exponent is rarely 2. */
+const powerOf = (x: number, p: number): number => Math.exp(p * Math.log(x));
+
 /** Share of the tyre budget left for the other direction when `used` of it (0-1) is taken, on the super-ellipse. */
 export function remainingShare(used: number, exponent: number): number {
   if (used >= 1) return 0;
   if (used <= 0) return 1;
   if (exponent === 2) return Math.sqrt(1 - used * used);
-  return Math.pow(1 - Math.pow(used, exponent), 1 / exponent);
+  return powerOf(1 - powerOf(used, exponent), 1 / exponent);
 }
 
 /** Combined use of a super-ellipse budget by two shares. */
@@ -24,7 +28,7 @@ export function combinedShare(longShare: number, latShare: number, exponent: num
   const a = Math.abs(longShare);
   const b = Math.abs(latShare);
   if (exponent === 2) return Math.sqrt(a * a + b * b);
-  return Math.pow(Math.pow(a, exponent) + Math.pow(b, exponent), 1 / exponent);
+  return powerOf(powerOf(a, exponent) + powerOf(b, exponent), 1 / exponent);
 }
 
 /** Friction coefficient under load: falls linearly with the load above the static load (tyre load sensitivity). */
@@ -65,32 +69,36 @@ export function pointMassEnvelope(car: Car, ambient: Ambient): Envelope {
   const sensitivity = car.tyre.loadSensitivity;
   const brakeCapMps2 = car.brakes.maxDecelG === null ? Infinity : car.brakes.maxDecelG * STANDARD_GRAVITY_MPS2;
   const drive = driveForceTable(car, ambient.powerFactor);
+  const liftN = halfRho * car.aero.liftAreaM2;
+  const dragN = halfRho * car.aero.dragAreaM2;
+  const rolling = car.rollingResistanceCoeff;
+  const muLat = car.tyre.muLat;
+  const muLong = car.tyre.muLong;
 
+  // The solver calls these several times per grid point, so each computes the normal load once and the friction
+  // coefficients from it, in the same order of operations as the formulas in the module header.
   // The road's load (loadFactor x weight) replaces the weight in every normal force; load sensitivity is still
   // counted from the static weight, so a compression loads the tyres and lowers their mu, as on a flat road.
   const normalLoadN = (speedMps: number, load = 1) =>
-    Math.max(0.1 * weightN, weightN * load + halfRho * car.aero.liftAreaM2 * speedMps * speedMps);
-  const coastDecelMps2 = (speedMps: number, load = 1) =>
-    (halfRho * car.aero.dragAreaM2 * speedMps * speedMps + car.rollingResistanceCoeff * normalLoadN(speedMps, load)) /
-    massKg;
+    Math.max(0.1 * weightN, weightN * load + liftN * speedMps * speedMps);
+  const muAt = (mu: number, loadN: number) =>
+    sensitivity === 0 ? mu : loadSensitiveMu(mu, loadN, weightN, sensitivity);
+  const coastOf = (speedMps: number, loadN: number) => (dragN * speedMps * speedMps + rolling * loadN) / massKg;
+  const coastDecelMps2 = (speedMps: number, load = 1) => coastOf(speedMps, normalLoadN(speedMps, load));
   const lateralLimitMps2 = (speedMps: number, _side?: number, load = 1) => {
     const loadN = normalLoadN(speedMps, load);
-    return (loadSensitiveMu(car.tyre.muLat, loadN, weightN, sensitivity) * loadN) / massKg;
+    return (muAt(muLat, loadN) * loadN) / massKg;
   };
-  const tractionLimitMps2 = (speedMps: number, load = 1) => {
-    const loadN = normalLoadN(speedMps, load);
-    const muLong = loadSensitiveMu(car.tyre.muLong, loadN, weightN, sensitivity);
-    return (muLong * drivenLoadN(car, weightN * load, loadN - weightN * load)) / massKg;
-  };
-  const tyreBrakeLimitMps2 = (speedMps: number, load = 1) => {
-    const loadN = normalLoadN(speedMps, load);
-    return Math.min(brakeCapMps2, (loadSensitiveMu(car.tyre.muLong, loadN, weightN, sensitivity) * loadN) / massKg);
-  };
+  const tractionOf = (loadN: number, load: number) =>
+    (muAt(muLong, loadN) * drivenLoadN(car, weightN * load, loadN - weightN * load)) / massKg;
+  const tyreBrakeOf = (loadN: number) => Math.min(brakeCapMps2, (muAt(muLong, loadN) * loadN) / massKg);
+  const leftFor = (lateralMps2: number, loadN: number) =>
+    remainingShare(Math.abs(lateralMps2) / ((muAt(muLat, loadN) * loadN) / massKg), exponent);
 
   const accelLimitMps2 = (speedMps: number, lateralMps2: number, load = 1) => {
-    const left = remainingShare(Math.abs(lateralMps2) / lateralLimitMps2(speedMps, 0, load), exponent);
-    const tyre = tractionLimitMps2(speedMps, load) * left;
-    return Math.min(tyre, drive.forceN(speedMps) / massKg) - coastDecelMps2(speedMps, load);
+    const loadN = normalLoadN(speedMps, load);
+    const tyre = tractionOf(loadN, load) * leftFor(lateralMps2, loadN);
+    return Math.min(tyre, drive.forceN(speedMps) / massKg) - coastOf(speedMps, loadN);
   };
 
   return {
@@ -99,16 +107,17 @@ export function pointMassEnvelope(car: Car, ambient: Ambient): Envelope {
     lateralLimitMps2,
     accelLimitMps2,
     brakeLimitMps2(speedMps, lateralMps2, load = 1) {
-      const left = remainingShare(Math.abs(lateralMps2) / lateralLimitMps2(speedMps, 0, load), exponent);
-      return tyreBrakeLimitMps2(speedMps, load) * left + coastDecelMps2(speedMps, load);
+      const loadN = normalLoadN(speedMps, load);
+      return tyreBrakeOf(loadN) * leftFor(lateralMps2, loadN) + coastOf(speedMps, loadN);
     },
     coastDecelMps2,
     gripUse(speedMps, axMps2, ayMps2) {
       // The tyres' share of their friction ellipse only: being held back by the engine is not grip in use.
-      const tyreAx = axMps2 + coastDecelMps2(speedMps);
-      const lateralShare = ayMps2 / lateralLimitMps2(speedMps);
-      if (tyreAx < 0) return combinedShare(tyreAx / tyreBrakeLimitMps2(speedMps), lateralShare, exponent);
-      return combinedShare(tyreAx / tractionLimitMps2(speedMps), lateralShare, exponent);
+      const loadN = normalLoadN(speedMps);
+      const tyreAx = axMps2 + coastOf(speedMps, loadN);
+      const lateralShare = ayMps2 / ((muAt(muLat, loadN) * loadN) / massKg);
+      if (tyreAx < 0) return combinedShare(tyreAx / tyreBrakeOf(loadN), lateralShare, exponent);
+      return combinedShare(tyreAx / tractionOf(loadN, 1), lateralShare, exponent);
     },
     driveLimitMps2: (speedMps) => drive.forceN(speedMps) / massKg,
     gearAt: drive.gearAt,

@@ -15,7 +15,7 @@ import type { Car, Ambient } from '../car/types.js';
 import type { Envelope } from '../car/envelope.js';
 import type { TrackGrid } from '../track/types.js';
 import type { LapResult } from '../solve/types.js';
-import { simulate } from '../solve/simulate.js';
+import { simulate, simulateLapTime, type LapTimeResult, type SimulateOptions } from '../solve/simulate.js';
 import type { Corridor } from './corridor.js';
 import { linePath } from './geometry.js';
 import { optimiseOffsets, type OffsetWeights } from './optimise-offsets.js';
@@ -43,19 +43,39 @@ export interface MinimumTimeResult {
  * On the open-track set at 2 m, the first round's winners were 2 to 8 and later rounds added under 0.5 s. */
 const FIRST_ROUND_LENGTH_WEIGHTS = [1, 2, 4, 8] as const;
 
+/** A lap the search has driven: in full (LapResult) or in the solver's lap-time mode (LapTimeResult). */
+export type DrivenLap = LapResult | LapTimeResult;
+
+const speedsOf = (lap: DrivenLap): Float64Array => ('trace' in lap ? lap.trace.speedMps : lap.speedMps);
+
+/** The line's lap with every channel. */
 export function driveLine(track: TrackGrid, car: Car, offsetM: Float64Array, options: MinimumTimeOptions): LapResult {
-  return simulate(track, car, {
+  return simulate(track, car, driveOptions(track, offsetM, options));
+}
+
+/** The line's lap time and speeds alone (the solver's lap-time mode): what a candidate line needs. */
+export function driveLineLapTime(
+  track: TrackGrid,
+  car: Car,
+  offsetM: Float64Array,
+  options: MinimumTimeOptions,
+): LapTimeResult {
+  return simulateLapTime(track, car, driveOptions(track, offsetM, options));
+}
+
+function driveOptions(track: TrackGrid, offsetM: Float64Array, options: MinimumTimeOptions): SimulateOptions {
+  return {
     ambient: options.ambient,
     envelope: options.envelope,
     path: linePath(track, offsetM),
     startSpeedMps: options.startSpeedMps,
-  });
+  };
 }
 
 /** Step (2)'s weights from step (1)'s lap, each term scaled to 1 on the reference line. */
-export function timeWeights(lap: LapResult, lengthWeight: number): OffsetWeights {
-  const trace = lap.trace;
-  const count = trace.count;
+export function timeWeights(lap: DrivenLap, lengthWeight: number): OffsetWeights {
+  const speedMps = speedsOf(lap);
+  const count = speedMps.length;
   const segments = lap.path.segmentLengthM;
   let curvatureSum = 0;
   for (let i = 0; i < count; i++) curvatureSum += lap.path.curvaturePerM[i]! ** 2;
@@ -64,7 +84,7 @@ export function timeWeights(lap: LapResult, lengthWeight: number): OffsetWeights
   let timeSum = 0;
   for (let i = 0; i < segments.length; i++) {
     const j = i + 1 === count ? 0 : i + 1;
-    length[i] = 2 / (Math.max(trace.speedMps[i]!, 1) + Math.max(trace.speedMps[j]!, 1));
+    length[i] = 2 / (Math.max(speedMps[i]!, 1) + Math.max(speedMps[j]!, 1));
     timeSum += length[i]! * segments[i]!;
   }
   for (let i = 0; i < length.length; i++) length[i] = length[i]! / (timeSum || 1);
@@ -78,10 +98,10 @@ export function minimumTimeOffsets(
   corridor: Corridor,
   start: Float64Array,
   options: MinimumTimeOptions,
-  startLap?: LapResult,
+  startLap?: DrivenLap,
 ): MinimumTimeResult {
   let bestOffsets = start;
-  let bestLap = startLap ?? driveLine(track, car, start, options);
+  let bestLap: DrivenLap = startLap ?? driveLineLapTime(track, car, start, options);
   let evaluations = startLap ? 0 : 1;
   const rounds = options.rounds ?? 3;
   let lengthWeights: readonly number[] = options.lengthWeights ?? FIRST_ROUND_LENGTH_WEIGHTS;
@@ -97,7 +117,7 @@ export function minimumTimeOffsets(
         maxIterations: 12,
         relativeTolerance: 1e-6,
       }).offsetM;
-      const lap = driveLine(track, car, candidate, options);
+      const lap = driveLineLapTime(track, car, candidate, options);
       evaluations++;
       if (lap.lapTimeS < bestLap.lapTimeS) {
         bestLap = lap;
@@ -110,5 +130,7 @@ export function minimumTimeOffsets(
     if (!improved) break;
     lengthWeights = [bestWeight, bestWeight / 2];
   }
-  return { offsetM: bestOffsets, lap: bestLap, evaluations, lengthWeight: keptWeight };
+  // The candidates were driven for their lap time alone; the line kept is driven once more with every channel.
+  const lap = 'trace' in bestLap ? bestLap : driveLine(track, car, bestOffsets, options);
+  return { offsetM: bestOffsets, lap, evaluations, lengthWeight: keptWeight };
 }

@@ -10,7 +10,13 @@ import { simulate } from '../solve/simulate.js';
 import { corridorOf, defaultMarginM } from './corridor.js';
 import { linePath, linePositions } from './geometry.js';
 import { warmStartedCurvatureLine } from './min-curvature.js';
-import { driveLine, minimumTimeOffsets, type MinimumTimeOptions } from './min-time.js';
+import {
+  driveLine,
+  driveLineLapTime,
+  minimumTimeOffsets,
+  type DrivenLap,
+  type MinimumTimeOptions,
+} from './min-time.js';
 import { coarseLevel, prolongOffsets } from './coarse-track.js';
 import type { LineGeometry, LineObjective, RacingLine } from './types.js';
 import { validateCar } from '../car/validate.js';
@@ -78,6 +84,7 @@ export function racingLine(track: TrackGrid, car: Car, options: RacingLineOption
   let lapEvaluations = 1;
   if (objective === 'time') {
     let search: MinimumTimeOptions = drive;
+    let startLap: DrivenLap = curvatureLap;
     if (coarse && curvatureSearch.coarseOffsetM) {
       // The whole search on the coarse grid; its line, carried over, starts the fine grid's last round when it
       // beats the fine minimum-curvature line there, with the length weights that won on the coarse grid.
@@ -85,16 +92,16 @@ export function racingLine(track: TrackGrid, car: Car, options: RacingLineOption
       lapEvaluations += rough.evaluations;
       if (rough.lengthWeight !== null) {
         const carried = prolongOffsets(track, corridor, coarse.track, rough.offsetM);
-        const carriedLap = driveLine(track, car, carried, drive);
+        const carriedLap = driveLineLapTime(track, car, carried, drive);
         lapEvaluations++;
-        if (carriedLap.lapTimeS < lap.lapTimeS) {
+        if (carriedLap.lapTimeS < startLap.lapTimeS) {
           offsetM = carried;
-          lap = carriedLap;
+          startLap = carriedLap;
         }
         search = { ...drive, rounds: 1, lengthWeights: [rough.lengthWeight, rough.lengthWeight / 2] };
       }
     }
-    const best = minimumTimeOffsets(track, car, corridor, offsetM, search, lap);
+    const best = minimumTimeOffsets(track, car, corridor, offsetM, search, startLap);
     offsetM = best.offsetM;
     lap = best.lap;
     lapEvaluations += best.evaluations;

@@ -13,6 +13,73 @@ import type { LapTrace } from './types.js';
  * drive limit only to rounding. */
 export const POWER_LIMITED_SHARE = 0.995;
 
+/**
+ * Longitudinal acceleration at sample i: over the step to the next sample (constant acceleration between them); on
+ * the last sample of an open stage, which has no step after it, the previous step's, clipped to what the envelope
+ * allows at this sample's own lateral demand.
+ */
+function accelerationAt(
+  path: Path,
+  envelope: Envelope,
+  speedMps: Float64Array,
+  i: number,
+  previousAxMps2: number,
+): number {
+  const n = speedMps.length;
+  const speed = speedMps[i]!;
+  if (i < (path.closed ? n : n - 1)) {
+    const next = speedMps[i + 1 === n ? 0 : i + 1]!;
+    return (next * next - speed * speed) / (2 * path.segmentLengthM[i]!);
+  }
+  if (i === 0) return 0;
+  const ay = speed * speed * path.curvaturePerM[i]!;
+  return Math.min(
+    Math.max(previousAxMps2, -envelope.brakeLimitMps2(speed, ay)),
+    Math.max(envelope.accelLimitMps2(speed, ay), -envelope.coastDecelMps2(speed)),
+  );
+}
+
+/** Time over the step from sample i (constant acceleration: the mean of the two speeds), 0 past an open end. */
+function stepTimeS(path: Path, speedMps: Float64Array, i: number): number {
+  const n = speedMps.length;
+  if (i >= (path.closed ? n : n - 1)) return 0;
+  return (2 * path.segmentLengthM[i]!) / Math.max(speedMps[i]! + speedMps[i + 1 === n ? 0 : i + 1]!, 1e-9);
+}
+
+/** Share of the tyres' braking (left beside the cornering) in use at this speed, demand and acceleration. */
+function brakeShare(envelope: Envelope, speed: number, ay: number, tyreAx: number, coast: number): number {
+  const available = envelope.brakeLimitMps2(speed, ay) - coast;
+  return available > 1e-9 ? Math.min(1, -tyreAx / available) : 1;
+}
+
+/** The lap time, the path's length and the brake channel alone: what a sweep or the line search needs. */
+export function lapTimeAndBrake(
+  path: Path,
+  envelope: Envelope,
+  speedMps: Float64Array,
+  shift: Uint8Array,
+): { lapTimeS: number; lengthM: number; brake: Float64Array } {
+  const n = speedMps.length;
+  const brake = new Float64Array(n);
+  let elapsedS = 0;
+  let travelledM = 0;
+  let ax = 0;
+  const segments = path.closed ? n : n - 1;
+  for (let i = 0; i < n; i++) {
+    const speed = speedMps[i]!;
+    ax = accelerationAt(path, envelope, speedMps, i, ax);
+    elapsedS += stepTimeS(path, speedMps, i);
+    if (i < segments) travelledM += path.segmentLengthM[i]!;
+    // Only a deceleration beyond drag and rolling resistance can be braking, and never during a shift.
+    if (ax < 0 && !shift[i]) {
+      const coast = envelope.coastDecelMps2(speed);
+      if (ax + coast < 0)
+        brake[i] = brakeShare(envelope, speed, speed * speed * path.curvaturePerM[i]!, ax + coast, coast);
+    }
+  }
+  return { lapTimeS: elapsedS, lengthM: travelledM, brake };
+}
+
 export function lapChannels(
   path: Path,
   envelope: Envelope,
@@ -36,6 +103,7 @@ export function lapChannels(
   let hasGears = false;
   let elapsedS = 0;
   let travelledM = 0;
+  let ax = 0;
   const segments = path.closed ? n : n - 1;
   for (let i = 0; i < n; i++) {
     distanceM[i] = travelledM;
@@ -43,23 +111,9 @@ export function lapChannels(
     const speed = speedMps[i]!;
     const ay = speed * speed * kappa[i]!;
     ayMps2[i] = ay;
-    let ax = 0;
-    if (i < segments) {
-      const j = i + 1 === n ? 0 : i + 1;
-      const next = speedMps[j]!;
-      const lengthM = ds[i]!;
-      ax = (next * next - speed * speed) / (2 * lengthM);
-      elapsedS += (2 * lengthM) / Math.max(speed + next, 1e-9);
-      travelledM += lengthM;
-    } else if (i > 0) {
-      // The last sample of an open stage has no step after it: carry the previous step's acceleration,
-      // clipped to what the envelope allows at this sample's own lateral demand.
-      const coastHere = envelope.coastDecelMps2(speed);
-      ax = Math.min(
-        Math.max(axMps2[i - 1]!, -envelope.brakeLimitMps2(speed, ay)),
-        Math.max(envelope.accelLimitMps2(speed, ay), -coastHere),
-      );
-    }
+    ax = accelerationAt(path, envelope, speedMps, i, ax);
+    elapsedS += stepTimeS(path, speedMps, i);
+    if (i < segments) travelledM += ds[i]!;
     axMps2[i] = ax;
     const coast = envelope.coastDecelMps2(speed);
     const tyreAx = ax + coast;
@@ -71,8 +125,7 @@ export function lapChannels(
       throttle[i] = Math.min(1, share);
       if (share >= POWER_LIMITED_SHARE) powerLimited[i] = 1;
     } else {
-      const available = envelope.brakeLimitMps2(speed, ay) - coast;
-      brake[i] = available > 1e-9 ? Math.min(1, -tyreAx / available) : 1;
+      brake[i] = brakeShare(envelope, speed, ay, tyreAx, coast);
     }
     gripUse[i] = envelope.gripUse(speed, ax, ay);
     const g = envelope.gearAt(speed);

@@ -3,11 +3,11 @@
 import type { Ambient, Car } from '../car/types.js';
 import type { Envelope } from '../car/envelope.js';
 import type { Path, TrackGrid } from '../track/types.js';
-import type { LapResult } from './types.js';
+import type { BrakingZone, LapResult } from './types.js';
 import { ambientFrom } from '../car/ambient.js';
 import { buildEnvelope } from '../car/build-envelope.js';
 import { solveSpeedProfile } from './speed-profile.js';
-import { lapChannels } from './channels.js';
+import { lapChannels, lapTimeAndBrake } from './channels.js';
 import { findBrakingZones } from './braking-zones.js';
 import { centrelinePath } from '../track/resample.js';
 import { cornerLayoutOf } from '../track/corner-layout.js';
@@ -34,18 +34,54 @@ function roadTermsOf(track: TrackGrid) {
   return profile ? roadTerms(profile) : null;
 }
 
-export function simulate(track: TrackGrid, car: Car, options: SimulateOptions = {}): LapResult {
-  validateTrackGrid(track, 'simulate: track');
-  validateCar(car, 'simulate: car');
+/** The speed profile on the path the options ask for, with the envelope and path it was solved on; `caller` names
+ * the entry point in the messages of a record that fails its checks. */
+function solveOn(track: TrackGrid, car: Car, options: SimulateOptions, caller: string) {
+  validateTrackGrid(track, `${caller}: track`);
+  validateCar(car, `${caller}: car`);
   const ambient = options.ambient ?? ambientFrom();
   const envelope = options.envelope ?? buildEnvelope(car, ambient);
   const path = options.path ?? centrelinePath(track);
-  if (options.path) validatePath(options.path, track.distanceM.length, 'simulate: options.path');
+  if (options.path) validatePath(options.path, track.distanceM.length, `${caller}: options.path`);
   const profile = solveSpeedProfile(path, envelope, {
     startSpeedMps: options.startSpeedMps ?? 0,
     shiftTimeS: car.powertrain.gearing?.shiftTimeS ?? 0,
     road: roadTermsOf(track),
   });
+  return { envelope, path, profile };
+}
+
+/** The lap time and the braking points of simulate() without its other channels (lap-time mode). */
+export interface LapTimeResult {
+  lapTimeS: number;
+  /** Length of the driven path, m. */
+  lengthM: number;
+  /** Speed at each sample, m/s, as simulate()'s trace has it. */
+  speedMps: Float64Array;
+  /** Where the brakes come on and the slowest point after, as simulate() finds them (not yet matched to corners). */
+  brakingZones: BrakingZone[];
+  path: Path;
+}
+
+/**
+ * The same passes as simulate() and the same lap time and braking zones, without the channels a driver reads
+ * (throttle, grip use, gear and the rest): what a setup sweep or the line search needs from each of its many laps.
+ */
+export function simulateLapTime(track: TrackGrid, car: Car, options: SimulateOptions = {}): LapTimeResult {
+  const { envelope, path, profile } = solveOn(track, car, options, 'simulateLapTime');
+  const { lapTimeS, lengthM, brake } = lapTimeAndBrake(path, envelope, profile.speedMps, profile.shift);
+  const brakingZones = findBrakingZones({
+    closed: path.closed,
+    count: profile.speedMps.length,
+    speedMps: profile.speedMps,
+    stationM: track.distanceM,
+    brake,
+  });
+  return { lapTimeS, lengthM, speedMps: profile.speedMps, brakingZones, path };
+}
+
+export function simulate(track: TrackGrid, car: Car, options: SimulateOptions = {}): LapResult {
+  const { envelope, path, profile } = solveOn(track, car, options, 'simulate');
   const { trace, lapTimeS, lengthM } = lapChannels(
     path,
     envelope,

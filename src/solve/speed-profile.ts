@@ -25,6 +25,8 @@ export interface SpeedProfile {
 }
 
 const MAX_PERIODIC_LAPS = 20;
+/** A braking step's entry speed is solved to this share of itself (a few hundred units in the last place). */
+const ROOT_TOLERANCE = 1e-13;
 const PERIODIC_TOLERANCE_MPS = 1e-6;
 
 function argMin(values: Float64Array): number {
@@ -94,7 +96,7 @@ function forwardPass(
  * Speed at the start of a braking step that ends at `exitSpeedMps`: the root of
  * v = sqrt(v_exit^2 + 2 b(v, v^2 kappa) ds), so the braking is limited by the lateral demand at the speed the
  * car actually has there (an explicit step would use the lower exit speed and ask for more than the envelope).
- * The explicit step bounds the root from above when b falls with speed; a few secant steps close in on it.
+ * The explicit step bounds the root from above when b falls with speed; a bracketing secant closes in on it.
  */
 /** Braking limit at a speed; on a three-dimensional road with its load and lateral force, and gravity along it. */
 function brakeLimitAt(
@@ -133,18 +135,24 @@ function brakingEntrySpeedMps(
   let fLo = hi - lo;
   let fHi = residual(hi);
   if (fHi >= 0 || fLo <= 0) return hi;
-  for (let k = 0; k < 8; k++) {
+  // The Illinois variant of regula falsi (Dowell and Jarratt, BIT 11 (1971) 168-174): the end that stays put twice
+  // running has its value halved, so both ends close in on the root, superlinearly, to rounding.
+  let kept = 0;
+  for (let k = 0; k < 100 && hi - lo > ROOT_TOLERANCE * hi; k++) {
     const mid = hi - (fHi * (hi - lo)) / (fHi - fLo);
+    if (!(mid > lo && mid < hi)) break;
     const fMid = residual(mid);
-    if (Math.abs(fMid) < 1e-9) return mid;
     if (fMid > 0) {
       lo = mid;
       fLo = fMid;
-    } else {
+      if (kept === 1) fHi *= 0.5;
+      kept = 1;
+    } else if (fMid < 0) {
       hi = mid;
       fHi = fMid;
-    }
-    if (hi - lo < 1e-9) break;
+      if (kept === -1) fLo *= 0.5;
+      kept = -1;
+    } else return mid;
   }
   // The lower bracket never asks more of the envelope than it has.
   return lo;
