@@ -11,6 +11,7 @@
 import { Matrix, inverse, pseudoInverse } from 'ml-matrix';
 import { logNormalCdf, logNormalPdf } from '../numeric/normal.js';
 import { MIN_CLUSTERS, clusterScoreProduct, conservativeCovariance, sandwich } from './covariance.js';
+import { ar1VarianceInflation, lag1Autocorrelation } from './serial-correlation.js';
 
 export interface FrontierProblem {
   /** Number of samples. */
@@ -24,6 +25,12 @@ export interface FrontierProblem {
   scales: Float64Array;
   /** How many of the samples count as independent for the skewness pre-test (default: the clusters). */
   independent?: number;
+  /**
+   * Whether neighbouring samples of a cluster are serially correlated beyond what the clusters capture (channels
+   * derived by smoothing): the classical covariance is then inflated by the AR(1) factor of the residuals' lag-1
+   * autocorrelation (./serial-correlation.ts) before it is set beside the cluster sandwich.
+   */
+  serialCorrelation?: boolean;
 }
 
 export interface FrontierFit {
@@ -37,6 +44,8 @@ export interface FrontierFit {
   converged: boolean;
   /** de_i / d(theta_k / scale_k), row-major, at the answer (for the identifiability diagnostics). */
   jacobian: Float64Array;
+  /** Factor on the classical variance for serially correlated residuals (1 when not asked for or none found). */
+  varianceInflation: number;
 }
 
 const LN2 = Math.LN2;
@@ -396,7 +405,12 @@ export function fitFrontier(problem: FrontierProblem, start: Float64Array): Fron
     }
     robust = sandwich(informationInverse, clusterScoreProduct(scores, m, problem.cluster, problem.clusters));
   }
-  const chosen = conservativeCovariance(informationInverse, robust, problem.clusters);
+  // Classical variances assume independent samples; smoothed channels are not (the factor is 1 when not asked for).
+  const varianceInflation = problem.serialCorrelation
+    ? ar1VarianceInflation(lag1Autocorrelation(e, problem.cluster), n)
+    : 1;
+  const classical = varianceInflation > 1 ? informationInverse.clone().mul(varianceInflation) : informationInverse;
+  const chosen = conservativeCovariance(classical, robust, problem.clusters);
   const covariance = Matrix.zeros(p, p);
   for (let j = 0; j < p; j++)
     for (let k = 0; k < p; k++) covariance.set(j, k, chosen.get(j, k) * problem.scales[j]! * problem.scales[k]!);
@@ -411,5 +425,6 @@ export function fitFrontier(problem: FrontierProblem, start: Float64Array): Fron
     iterations,
     converged,
     jacobian,
+    varianceInflation,
   };
 }

@@ -157,6 +157,7 @@ function problemFor(
     cluster: selection.cluster,
     clusters: selection.clusters,
     independent: selection.independent,
+    serialCorrelation: samples.derivedChannels.includes('ayMps2') || samples.derivedChannels.includes('axMps2'),
     scales: Float64Array.from(fields, (field) => SCALES[field]),
     residuals(theta, out) {
       // A grip at or below nothing is no tyre (and the friction ellipse, squared, cannot tell its sign): such a step
