@@ -22,6 +22,11 @@ export interface TelemetrySession {
   /** Positions in the local plane, m (from x/y columns, or latitude/longitude projected). */
   xM: Float64Array | null;
   yM: Float64Array | null;
+  /**
+   * GPS altitude, m above mean sea level (GPX <ele>, NMEA GGA antenna altitude); absent or null where the log has
+   * none. Read so that it is not dropped; GPS heights scatter several metres, so nothing uses them unsmoothed.
+   */
+  altitudeM?: Float64Array | null;
   /** Latitude/longitude origin of the local plane when positions came from GPS, degrees. */
   geoOrigin: { latDeg: number; lonDeg: number } | null;
   /** Messages for the user (skipped sentences, guessed units), one line each. */

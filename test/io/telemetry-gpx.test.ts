@@ -33,6 +33,24 @@ describe('GPX 1.1', () => {
     expect(session.speedMps![1]).toBeCloseTo((2 * Math.PI * 100) / 72, 3);
   });
 
+  it('keeps <ele> as the altitude and names the track point elements it does not use', () => {
+    // GPX 1.1 (topografix.com/GPX/1/1): <ele> is the elevation in metres; <sat> and vendor extensions such as a
+    // heart rate are elements the reader has no use for.
+    const point = (i: number, inner: string) =>
+      `<trkpt lat="${47 + i * 1e-4}" lon="8"><time>2026-01-01T10:00:0${i}Z</time>${inner}</trkpt>`;
+    const text = `<?xml version="1.0"?><gpx version="1.1"><trk><trkseg>${[
+      point(0, '<ele>412.5</ele><sat>9</sat>'),
+      point(1, '<ele>413.0</ele><extensions><x:hr>120</x:hr><x:speed>11</x:speed></extensions>'),
+      point(2, '<extensions><x:speed>11</x:speed></extensions>'),
+    ].join('')}</trkseg></trk></gpx>`;
+    const session = parseTelemetryText(text, 'ele.gpx', { columns: {} });
+    expect(Array.from(session.altitudeM!)).toEqual([412.5, 413, 413]);
+    expect(session.notes).toContain('track point elements not used: sat, x:hr');
+    expect(
+      session.notes.some((note) => /^GPS altitude \(<ele>\) read on 2 of 3 fixes, 412\.5 to 413\.0 m/.test(note)),
+    ).toBe(true);
+  });
+
   it('refuses a .gpx that is not XML in one line naming the file', async () => {
     const read = readTelemetryFile(path.join(fixtures, 'broken.gpx'), { columns: {} });
     await expect(read).rejects.toThrow(InputError);

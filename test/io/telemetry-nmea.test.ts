@@ -63,6 +63,26 @@ describe('NMEA 0183', () => {
     expect(session.yM![1]! - session.yM![0]!).toBeCloseTo(0.012 * 1852, 0);
   });
 
+  it("keeps GGA's altitude (field 9, metres) and names the sentence types it does not use", () => {
+    // The published GGA example (from memory, as above) gives an antenna altitude of 545.4 M; the second fix's
+    // GGA is written here 2.5 m higher, the third fix has no GGA and takes the altitude by interpolation in time.
+    const text = [
+      '$GPGGA,123519,4807.038,N,01131.000,E,1,08,0.9,545.4,M,46.9,M,,*47',
+      '$GPRMC,123519,A,4807.038,N,01131.000,E,022.4,084.4,230394,003.1,W*6A',
+      sentence('GPGSV,1,1,01,01,40,083,46'),
+      sentence('GPGGA,123520,4807.050,N,01131.010,E,1,08,0.9,547.9,M,46.9,M,,'),
+      sentence('GPRMC,123520,A,4807.050,N,01131.010,E,022.6,084.4,230394,003.1,W'),
+      sentence('GPVTG,084.4,T,,M,022.6,N,041.9,K'),
+      sentence('GPRMC,123521,A,4807.062,N,01131.020,E,022.6,084.4,230394,003.1,W'),
+    ].join('\r\n');
+    const session = parseTelemetryText(text, 'altitude.nmea', { columns: {} });
+    expect(Array.from(session.altitudeM!)).toEqual([545.4, 547.9, 547.9]);
+    expect(session.notes).toContain('sentences not used: GSV, VTG');
+    expect(
+      session.notes.some((note) => /^GPS altitude \(GGA\) read on 2 of 3 fixes, 545\.4 to 547\.9 m/.test(note)),
+    ).toBe(true);
+  });
+
   it('skips and counts sentences with a wrong checksum, ignores fixes without a fix, any talker id', () => {
     const good1 = sentence('GNRMC,100000.00,A,4807.000,N,01131.000,E,010.0,000.0,010125,,,A');
     const bad = `$GNRMC,100000.10,A,4807.001,N,01131.000,E,010.0,000.0,010125,,,A*${xor('GNRMC,100000.10,A,4807.001,N,01131.000,E,010.0,000.0,010125,,,A') === '00' ? '01' : '00'}`;

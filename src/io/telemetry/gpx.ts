@@ -1,11 +1,12 @@
-// GPX 1.1 tracks (topografix.com/GPX/1/1): <trk><trkseg><trkpt lat lon><time>, with an optional speed in
-// <extensions> (any element whose local name is "speed", m/s), parsed with fast-xml-parser.
+// GPX 1.1 tracks (topografix.com/GPX/1/1): <trk><trkseg><trkpt lat lon><time>, with the optional elevation <ele>
+// (metres) and a speed in <extensions> (any element whose local name is "speed", m/s), parsed with fast-xml-parser.
+// Other elements of a track point are named in a note.
 
 import { createRequire } from 'node:module';
 import type * as FastXmlParser from 'fast-xml-parser';
 import { InputError } from '../../errors.js';
 import type { TelemetrySession } from '../../telemetry/types.js';
-import { fillGaps, gpsSession } from './session.js';
+import { fillGaps, gpsSession, withAltitude } from './session.js';
 
 export function looksLikeGpx(head: string): boolean {
   const text = head.replace(/^\uFEFF/, '').trimStart();
@@ -39,6 +40,25 @@ function extensionSpeed(node: unknown): number {
     if (!Number.isNaN(nested)) return nested;
   }
   return NaN;
+}
+
+/** Elements of a track point the reader uses (the speed inside <extensions> is looked for by name). */
+const READ_ELEMENTS = new Set(['time', 'ele', 'extensions']);
+
+/** Names of the leaf elements below <extensions> other than the speed, for the note on what is not used. */
+function otherExtensions(node: unknown, out: Set<string>): void {
+  if (node === null || typeof node !== 'object') return;
+  for (const [key, value] of Object.entries(node as XmlNode)) {
+    if (key.startsWith('@_') || key === '#text') continue;
+    const local = key.includes(':') ? key.slice(key.indexOf(':') + 1) : key;
+    if (
+      value !== null &&
+      typeof value === 'object' &&
+      Object.keys(value).some((k) => !k.startsWith('@_') && k !== '#text')
+    )
+      otherExtensions(value, out);
+    else if (local !== 'speed') out.add(key);
+  }
 }
 
 /** Deeper than any GPX (gpx, trk, trkseg, trkpt, extensions and a vendor block are under ten). */
@@ -87,7 +107,10 @@ export function parseGpxText(text: string, source: string): TelemetrySession {
   const lon = new Float64Array(count);
   const timeS = new Float64Array(count);
   const speed = new Float64Array(count);
+  const elevation = new Float64Array(count);
   let speedSamples = 0;
+  let elevationSamples = 0;
+  const otherElements = new Set<string>();
   let t0 = 0;
   points.forEach((point, i) => {
     const place = `track point ${i + 1}`;
@@ -110,6 +133,12 @@ export function parseGpxText(text: string, source: string): TelemetrySession {
       throw new InputError(`${source}: ${place}: time runs backwards (${String(stamp)})`);
     speed[i] = extensionSpeed(point['extensions']);
     if (!Number.isNaN(speed[i])) speedSamples++;
+    const ele = point['ele'];
+    elevation[i] = typeof ele === 'string' && ele.trim() !== '' ? Number(ele) : NaN;
+    if (Number.isFinite(elevation[i])) elevationSamples++;
+    else elevation[i] = NaN;
+    for (const key of Object.keys(point)) if (!key.startsWith('@_') && !READ_ELEMENTS.has(key)) otherElements.add(key);
+    otherExtensions(point['extensions'], otherElements);
   });
   const notes: string[] = [];
   let speedMps: Float64Array | null = null;
@@ -117,5 +146,6 @@ export function parseGpxText(text: string, source: string): TelemetrySession {
     fillGaps(speed, timeS);
     speedMps = speed;
   }
-  return gpsSession(source, timeS, lat, lon, speedMps, notes);
+  if (otherElements.size > 0) notes.push(`track point elements not used: ${[...otherElements].sort().join(', ')}`);
+  return withAltitude(gpsSession(source, timeS, lat, lon, speedMps, notes), elevation, elevationSamples, '<ele>');
 }

@@ -1,10 +1,11 @@
 // NMEA 0183 GPS logs: RMC (time, date, status, position, speed over ground in knots) and GGA (time, position,
 // fix quality) from any talker, each sentence's checksum verified (XOR of the characters between '$' and '*',
-// two hex digits, NMEA 0183 v4.10 sec. 5.2.1), combined by timestamp into one sample per fix.
+// two hex digits, NMEA 0183 v4.10 sec. 5.2.1), combined by timestamp into one sample per fix. GGA's antenna
+// altitude (field 9, metres above mean sea level) is kept; other sentence types are named in a note.
 
 import { InputError } from '../../errors.js';
 import type { TelemetrySession } from '../../telemetry/types.js';
-import { fillGaps, gpsSession } from './session.js';
+import { fillGaps, gpsSession, withAltitude } from './session.js';
 
 const KNOT_MPS = 1852 / 3600;
 
@@ -22,6 +23,7 @@ interface Fix {
   latDeg: number;
   lonDeg: number;
   speedMps: number;
+  altitudeM: number;
   line: number;
 }
 
@@ -66,6 +68,7 @@ export function parseNmeaText(text: string, source: string): TelemetrySession {
   let withoutFix = 0;
   let sentences = 0;
   let currentDay: number | null = null;
+  const otherKinds = new Set<string>();
   const lines = text.replace(/^\uFEFF/, '').split(/\r?\n/);
   lines.forEach((rawLine, lineIndex) => {
     const start = rawLine.indexOf('$');
@@ -85,13 +88,17 @@ export function parseNmeaText(text: string, source: string): TelemetrySession {
     }
     const fields = body.split(',');
     const kind = fields[0]!.slice(-3);
-    if (fields[0]!.length !== 5 || (kind !== 'RMC' && kind !== 'GGA')) return;
+    if (fields[0]!.length !== 5 || (kind !== 'RMC' && kind !== 'GGA')) {
+      if (/^[A-Z]{2}[A-Z]{3}$/.test(fields[0]!)) otherKinds.add(kind);
+      return;
+    }
     const timeKey = fields[1] ?? '';
     const secondOfDay = parseTimeOfDay(timeKey);
     if (Number.isNaN(secondOfDay)) return;
     let latDeg: number;
     let lonDeg: number;
     let speedMps = NaN;
+    let altitudeM = NaN;
     if (kind === 'RMC') {
       // $--RMC,hhmmss.ss,A,llll.ll,a,yyyyy.yy,a,x.x(knots),x.x(course),ddmmyy,...; status V = no fix.
       const day = parseDate(fields[9] ?? '');
@@ -113,6 +120,9 @@ export function parseNmeaText(text: string, source: string): TelemetrySession {
       }
       latDeg = parseAngle(fields[2] ?? '', fields[3] ?? '', 2);
       lonDeg = parseAngle(fields[4] ?? '', fields[5] ?? '', 3);
+      // Altitude in the unit of field 10, which NMEA 0183 fixes as M (metres); an empty field is no altitude.
+      const altitude = Number(fields[9]);
+      if (fields[9] !== '' && fields[10] === 'M' && Number.isFinite(altitude)) altitudeM = altitude;
     }
     if (Number.isNaN(latDeg) || Number.isNaN(lonDeg)) {
       throw new InputError(`${source}: line ${lineIndex + 1}: ${fields[0]} sentence has an unreadable position`);
@@ -129,10 +139,20 @@ export function parseNmeaText(text: string, source: string): TelemetrySession {
     );
     if (held) {
       if (Number.isNaN(held.speedMps)) held.speedMps = speedMps;
+      if (Number.isNaN(held.altitudeM)) held.altitudeM = altitudeM;
       if (held.dayNumber === null) held.dayNumber = currentDay;
       return;
     }
-    const fix: Fix = { timeKey, secondOfDay, dayNumber: currentDay, latDeg, lonDeg, speedMps, line: lineIndex + 1 };
+    const fix: Fix = {
+      timeKey,
+      secondOfDay,
+      dayNumber: currentDay,
+      latDeg,
+      lonDeg,
+      speedMps,
+      altitudeM,
+      line: lineIndex + 1,
+    };
     order.push(fix);
   });
   if (sentences === 0 && noChecksum === 0) throw new InputError(`${source}: no NMEA sentences found`);
@@ -148,8 +168,10 @@ export function parseNmeaText(text: string, source: string): TelemetrySession {
   const lat = new Float64Array(count);
   const lon = new Float64Array(count);
   const speed = new Float64Array(count);
+  const altitude = new Float64Array(count);
   let extraDays = 0;
   let speedSamples = 0;
+  let altitudeSamples = 0;
   const firstDay = order.find((fix) => fix.dayNumber !== null)?.dayNumber ?? 0;
   for (let i = 0; i < count; i++) {
     const fix = order[i]!;
@@ -171,6 +193,8 @@ export function parseNmeaText(text: string, source: string): TelemetrySession {
     lon[i] = fix.lonDeg;
     speed[i] = fix.speedMps;
     if (!Number.isNaN(fix.speedMps)) speedSamples++;
+    altitude[i] = fix.altitudeM;
+    if (!Number.isNaN(fix.altitudeM)) altitudeSamples++;
   }
   const t0 = timeS[0]!;
   for (let i = 0; i < count; i++) timeS[i] = timeS[i]! - t0;
@@ -189,5 +213,6 @@ export function parseNmeaText(text: string, source: string): TelemetrySession {
     speedMps = speed;
     if (speedSamples < count) notes.push(`${count - speedSamples} fixes without RMC speed: filled by interpolation`);
   }
-  return gpsSession(source, timeS, lat, lon, speedMps, notes);
+  if (otherKinds.size > 0) notes.push(`sentences not used: ${[...otherKinds].sort().join(', ')}`);
+  return withAltitude(gpsSession(source, timeS, lat, lon, speedMps, notes), altitude, altitudeSamples, 'GGA');
 }

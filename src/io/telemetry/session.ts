@@ -111,6 +111,29 @@ export function fillGaps(values: Float64Array, timeS: Float64Array): number | nu
 }
 
 /** A session of GPS fixes only: positions projected about their mean, speed where the log gave one. */
+/**
+ * The session with the GPS altitude where at least one fix has one (gaps filled by interpolation in time, as the
+ * speed's are), and a note that says it was read and what it is good for; the session as it is otherwise.
+ */
+export function withAltitude(
+  session: TelemetrySession,
+  altitudeM: Float64Array,
+  samples: number,
+  origin: string,
+): TelemetrySession {
+  if (samples === 0) return session;
+  fillGaps(altitudeM, session.timeS);
+  let low = Infinity;
+  let high = -Infinity;
+  for (const value of altitudeM) {
+    low = Math.min(low, value);
+    high = Math.max(high, value);
+  }
+  const on = samples < altitudeM.length ? ` on ${samples} of ${altitudeM.length} fixes` : '';
+  const note = `GPS altitude (${origin}) read${on}, ${low.toFixed(1)} to ${high.toFixed(1)} m, but not used: the comparison works in the plane, and GPS heights scatter several metres`;
+  return { ...session, altitudeM, notes: [...session.notes, note] };
+}
+
 export function gpsSession(
   source: string,
   timeS: Float64Array,
