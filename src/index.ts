@@ -183,6 +183,19 @@ export { readCornersFile, parseCornersText } from './io/read-corners.js';
 export { roadProfileOf, type RoadProfile } from './track/road-profile.js';
 export { cornersFileJson, cornersText } from './report/corners-file.js';
 export { timeDeltaS, clockAt, distanceAsTimeS } from './compare/delta.js';
+// Lap against lap: the driver's lap set against a second lap and the reference, corner by corner.
+export { lapAgainstLap, lapLabel, type AgainstResult, type AgainstOptions } from './compare/against/lap-against-lap.js';
+export { otherLapOf, type OtherLapOptions } from './compare/against/other-lap.js';
+export { pairCorners, stretchTimesLostS, type CornerPair, type PairOptions } from './compare/against/corner-pair.js';
+export { lapCornerFigures, type LapCornerFigures } from './compare/against/lap-corner.js';
+export { pairLapOfDriver, pairLapOfReference, type PairLap } from './compare/against/pair-lap.js';
+export {
+  rankAgainstFindings,
+  DEFAULT_AGAINST_FINDING_OPTIONS,
+  type AgainstCorner,
+  type AgainstFindingOptions,
+} from './compare/against/against-findings.js';
+export { againstSummaryText, againstJson } from './report/against-summary.js';
 export { rankFindings, cornerFindingText, DEFAULT_FINDING_OPTIONS, type FindingOptions } from './compare/findings.js';
 export {
   fitEnvelope,

@@ -45,6 +45,10 @@ export interface SessionComparison {
   demonstratedLap: LapResult | null;
   demonstratedRecord: DemonstratedEnvelopeRecord | null;
   notes: string[];
+  /** The session the lap was cut from, with any accelerations derived from its positions (for its other laps). */
+  session?: TelemetrySession;
+  /** Every lap the session was cut into. */
+  laps?: LapCut[];
 }
 
 /**
@@ -177,5 +181,7 @@ export function compareSession(
     demonstratedLap,
     demonstratedRecord: record,
     notes: result.notes,
+    session,
+    laps: selected.laps,
   };
 }

@@ -4,45 +4,23 @@
 // examples/real_track_data_debug/gps_race_data_long_lap.h), GNU GPL v3, read from ../shared/data/real-gps/ and not
 // copied here. The track is the log's own path, as no track file comes with it.
 
-import { existsSync } from 'node:fs';
-import path from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { readTelemetryFile } from '../../src/io/telemetry/read-telemetry.js';
-import { trackFromCentreline } from '../../src/track/resample.js';
 import { parseCarJson } from '../../src/io/read-car.js';
 import { ambientFrom } from '../../src/car/ambient.js';
 import { simulate } from '../../src/solve/simulate.js';
 import { calibrationSamples } from '../../src/calibrate/samples.js';
 import { calibrateCar } from '../../src/calibrate/calibrate-car.js';
-import { projectRoot } from '../helpers/cli.js';
+import { kartTrackOf, REAL_KART_LOG, realKartLogPresent } from '../helpers/real-gps.js';
 
-const file = path.resolve(projectRoot, '..', 'shared', 'data', 'real-gps', 'kart-circuit-long-layout.nmea');
-const present = existsSync(file);
+const file = REAL_KART_LOG;
+const present = realKartLogPresent;
 if (!present) console.warn(`skipping the real-GPS calibration: ${file} is absent`);
 
 describe.skipIf(!present)('calibration on a real kart lap (GPS only)', () => {
   it('fits a kart that drives the lap within a few per cent of the driver, where a guessed car is far off', async () => {
     const session = await readTelemetryFile(file, { columns: {} });
-    // An open stage along the log's own path: every fifth fix and the last.
-    const picks: number[] = [];
-    for (let i = 0; i < session.count; i += 5) picks.push(i);
-    picks.push(session.count - 1);
-    const track = trackFromCentreline(
-      {
-        xM: Float64Array.from(picks, (i) => session.xM![i]!),
-        yM: Float64Array.from(picks, (i) => session.yM![i]!),
-        widthLeftM: null,
-        widthRightM: null,
-      },
-      {
-        name: 'kart lap',
-        closed: false,
-        stepM: 1,
-        smoothingM: 10,
-        source: 'the kart log',
-        geoOrigin: session.geoOrigin,
-      },
-    );
+    const track = kartTrackOf(session);
     // An invented guess at a kart with its driver.
     const guess = parseCarJson(
       JSON.stringify({

@@ -6,6 +6,7 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { projectRoot, runCli } from '../helpers/cli.js';
+import { writeOffTrackLog } from '../helpers/logs.js';
 
 const track = path.join(projectRoot, 'tracks', 'velmora-downs.json');
 const car = path.join(projectRoot, 'cars', 'tarnfell-gt.json');
@@ -132,13 +133,7 @@ describe('bad input', () => {
   });
 
   it('refuses positions that do not belong to the track', () => {
-    const file = path.join(work, 'elsewhere.csv');
-    const rows = ['time_s,x_m,y_m,speed_mps'];
-    for (let k = 0; k < 2000; k++)
-      rows.push(
-        `${(k * 0.1).toFixed(1)},${(5000 + 100 * Math.cos(k / 100)).toFixed(2)},${(5000 + 100 * Math.sin(k / 100)).toFixed(2)},30`,
-      );
-    writeFileSync(file, rows.join('\n') + '\n');
+    const file = writeOffTrackLog(path.join(work, 'elsewhere.csv'));
     failsCleanly(file, /track/);
   });
 

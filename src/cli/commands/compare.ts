@@ -4,7 +4,7 @@
 import type { Command } from 'commander';
 import { addCarOptions, addTrackOptions, inputFilesOf, loadCar, loadTrack, startSpeedMps } from '../options.js';
 import { outputBatch } from '../output.js';
-import { addTelemetryOptions, loadSession } from '../telemetry-options.js';
+import { addTelemetryOptions, loadSession, startFinishOption } from '../telemetry-options.js';
 import { compareFromRecords, comparisonFiles, type CompareValues } from '../compare-records.js';
 import { compareSummaryJson, compareSummaryText } from '../../report/compare-summary.js';
 import { addLineOption, referencePathJson, withReferencePath } from '../reference-path.js';
@@ -15,6 +15,8 @@ import { addUncertaintyOption, drawsOption } from '../uncertainty-options.js';
 import { uncertainComparison } from '../../uncertainty/uncertain-reference.js';
 import { uncertaintyJson } from '../../report/uncertainty-summary.js';
 import { addUnitsOption, unitsOf } from '../units-option.js';
+import { addAgainstOptions, againstFromOptions, type AgainstOptionValues } from '../against-options.js';
+import { againstJson, againstSummaryText } from '../../report/against-summary.js';
 
 export function register(program: Command): void {
   const command = program
@@ -24,6 +26,7 @@ export function register(program: Command): void {
   addCarOptions(command);
   addTelemetryOptions(command);
   addLineOption(command);
+  addAgainstOptions(command);
   command
     .option(
       '--envelope <file>',
@@ -36,10 +39,10 @@ export function register(program: Command): void {
     );
   addUncertaintyOption(command);
   addUnitsOption(command);
-  addReportOptions(command).action((values: CompareValues) => runCompare(values));
+  addReportOptions(command).action((values: CompareValues & AgainstOptionValues) => runCompare(values));
 }
 
-export async function runCompare(values: CompareValues): Promise<void> {
+export async function runCompare(values: CompareValues & AgainstOptionValues): Promise<void> {
   const units = unitsOf(values);
   const track = loadTrack(values);
   const { car, ambient } = loadCar(values);
@@ -50,11 +53,12 @@ export async function runCompare(values: CompareValues): Promise<void> {
     );
   const session = await loadSession(values);
   const comparison = compareFromRecords(track, car, ambient, session, values);
+  const against = await againstFromOptions(track, comparison, values, startFinishOption(values));
   const uncertainty =
     draws === null
       ? null
       : await uncertainComparison(comparison, car, ambient, { draws, startSpeedMps: startSpeedMps(values) });
-  const outputs = outputBatch(inputFilesOf(values));
+  const outputs = outputBatch([...inputFilesOf(values), ...(values.against ? [values.against] : [])]);
   if (values.out)
     for (const { file, content } of comparisonFiles(comparison, values.out, units)) outputs.add(file, content);
   const report = sessionReportInput(comparison, car, ambient, comparison.linePositions);
@@ -67,6 +71,7 @@ export async function runCompare(values: CompareValues): Promise<void> {
           ...compareSummaryJson(comparison.result),
           ...referencePathJson(comparison.referencePath),
           ...(uncertainty ? { uncertainty: uncertaintyJson(uncertainty) } : {}),
+          ...(against ? { against: againstJson(against) } : {}),
         },
         null,
         2,
@@ -79,6 +84,7 @@ export async function runCompare(values: CompareValues): Promise<void> {
         comparison.referencePath,
       ),
     );
+    if (against) process.stdout.write('\n' + againstSummaryText(against, units));
     if (values.out) process.stdout.write(`Aligned traces and corner table written to ${values.out}\n`);
     process.stdout.write(reportWrittenText(reportFiles));
   }
