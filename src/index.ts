@@ -196,6 +196,22 @@ export {
   type AgainstFindingOptions,
 } from './compare/against/against-findings.js';
 export { againstSummaryText, againstJson } from './report/against-summary.js';
+// The session: every lap with sector times, the corners across the laps, the session best and the four answers.
+export {
+  sessionOverview,
+  type SessionOverview,
+  type SessionLap,
+  type SessionCorner,
+  type SessionInputs,
+} from './compare/session/session-overview.js';
+export {
+  cornerVerdicts,
+  DEFAULT_VERDICT_OPTIONS,
+  type CornerVerdict,
+  type VerdictOptions,
+} from './compare/session/corner-verdicts.js';
+export { sectorTimesS } from './compare/session/lap-sectors.js';
+export { sessionText, sessionJson } from './report/session-summary.js';
 export { rankFindings, cornerFindingText, DEFAULT_FINDING_OPTIONS, type FindingOptions } from './compare/findings.js';
 export {
   fitEnvelope,

@@ -59,6 +59,12 @@ export const commandEntries: CommandEntry[] = [
     load: () => import('./commands/compare.js'),
   },
   {
+    name: 'session',
+    term: 'session [options]',
+    description: 'every lap of a logged session: lap and sector times, corners across the laps, the session best',
+    load: () => import('./commands/session.js'),
+  },
+  {
     name: 'envelope',
     term: 'envelope [options]',
     description:

@@ -2,46 +2,22 @@
 // `simulate` for two cars that differ only in tyre.muLong, a lap against itself, a session of several laps, and
 // bad input (one line, exit 2, nothing written).
 
-import { existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdtempSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
-import { beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { projectRoot, runCli } from '../helpers/cli.js';
-import { writeOffTrackLog } from '../helpers/logs.js';
+import { readTrace, writeGripPair, writeOffTrackLog, writeSessionLog, type TraceRows } from '../helpers/logs.js';
 
 const track = path.join(projectRoot, 'tracks', 'velmora-downs.json');
 const carFile = path.join(projectRoot, 'cars', 'tarnfell-gt.json');
 const work = mkdtempSync(path.join(tmpdir(), 'reflap-against-'));
-const highGrip = path.join(work, 'high.csv');
-const lowGrip = path.join(work, 'low.csv');
-const lowCar = path.join(work, 'low-grip-car.json');
 const STANDARD_GRAVITY_MPS2 = 9.80665; // CGPM 1901, the conventional value
 const MU_HIGH = 1.45;
 const MU_LOW = 1.2;
+const { highGrip, lowGrip, highMuLong } = writeGripPair(work, track, carFile, MU_LOW);
 
-interface TraceRows {
-  header: string[];
-  rows: number[][];
-}
-
-const readTrace = (file: string): TraceRows => {
-  const lines = readFileSync(file, 'utf8').trim().split('\n');
-  return { header: lines[0]!.split(','), rows: lines.slice(1).map((line) => line.split(',').map(Number)) };
-};
-
-beforeAll(() => {
-  const car = JSON.parse(readFileSync(carFile, 'utf8'));
-  expect(car.tyre.muLong).toBe(MU_HIGH);
-  car.tyre.muLong = MU_LOW;
-  writeFileSync(lowCar, JSON.stringify(car));
-  for (const [file, carPath] of [
-    [highGrip, carFile],
-    [lowGrip, lowCar],
-  ] as const) {
-    const run = runCli(['simulate', '--track', track, '--car', carPath, '--out', file]);
-    expect(run.code, run.stderr).toBe(0);
-  }
-});
+it('starts from the demo car with the braking grip the check assumes', () => expect(highMuLong).toBe(MU_HIGH));
 
 const compare = (telemetry: string, extra: string[]) =>
   runCli(['compare', '--track', track, '--car', carFile, '--telemetry', telemetry, ...extra]);
@@ -139,24 +115,8 @@ describe('a lap against itself', () => {
   });
 });
 
-/** One log of several laps: each given trace driven in turn, times running on. */
-function sessionOf(files: string[], lastShare = 1): string {
-  const lines: string[] = [];
-  let offsetS = 0;
-  files.forEach((file, k) => {
-    const trace = readTrace(file);
-    const time = trace.header.indexOf('time_s');
-    if (k === 0) lines.push(trace.header.join(','));
-    const rows = k === files.length - 1 ? trace.rows.slice(0, Math.round(trace.rows.length * lastShare)) : trace.rows;
-    const lapS = trace.rows.at(-1)![time]! + 0.02;
-    for (const row of rows)
-      lines.push(row.map((v, c) => (c === time ? (v + offsetS).toFixed(4) : String(v))).join(','));
-    offsetS += lapS;
-  });
-  const file = path.join(work, `session-${files.length}-${lastShare}.csv`);
-  writeFileSync(file, lines.join('\n') + '\n');
-  return file;
-}
+const sessionOf = (traces: string[], lastShare = 1) =>
+  writeSessionLog(path.join(work, `session-${traces.length}-${lastShare}.csv`), traces, lastShare);
 
 describe('--against-lap: another lap of the same session', () => {
   it('sets lap 2 against lap 3 of one log with the same numbers as the two files apart', () => {
