@@ -212,6 +212,16 @@ export {
 } from './compare/session/corner-verdicts.js';
 export { sectorTimesS } from './compare/session/lap-sectors.js';
 export { sessionText, sessionJson } from './report/session-summary.js';
+// The driver's line: lateral offset from positions, per-corner turn-in, apex and exit, with the resolution stated.
+export {
+  driverLine,
+  type DriverLineResult,
+  type DriverLineInputs,
+  type CornerLineComparison,
+} from './compare/driver-line/driver-line.js';
+export { cornerLine, type CornerLine } from './compare/driver-line/corner-line.js';
+export { lateralOffsetM, smoothedOffset } from './compare/driver-line/lateral-offset.js';
+export { lineSummaryText, lineJson } from './report/line-summary.js';
 export { rankFindings, cornerFindingText, DEFAULT_FINDING_OPTIONS, type FindingOptions } from './compare/findings.js';
 export {
   fitEnvelope,

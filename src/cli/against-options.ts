@@ -7,6 +7,7 @@ import { numberOption } from './options.js';
 import { loadSession, type TelemetryOptionValues } from './telemetry-options.js';
 import type { SessionComparison } from '../compare/compare-session.js';
 import type { TrackGrid } from '../track/types.js';
+import type { DriverLap } from '../compare/types.js';
 import { otherLapOf } from '../compare/against/other-lap.js';
 import { lapAgainstLap, type AgainstResult } from '../compare/against/lap-against-lap.js';
 
@@ -38,7 +39,7 @@ export async function againstFromOptions(
   comparison: SessionComparison,
   values: AgainstOptionValues & TelemetryOptionValues,
   startFinish: { xM: number; yM: number } | undefined,
-): Promise<AgainstResult | null> {
+): Promise<{ result: AgainstResult; other: DriverLap } | null> {
   const lap = againstLapNumber(values);
   if (values.against === undefined && lap === undefined) return null;
   const optionName = values.against === undefined ? '--against-lap' : '--against';
@@ -53,5 +54,5 @@ export async function againstFromOptions(
   });
   const result = lapAgainstLap(track, comparison.reference, comparison.lap, other.lap, comparison.envelope);
   result.notes.unshift(...other.notes);
-  return result;
+  return { result, other: other.lap };
 }

@@ -113,6 +113,15 @@ describe('a lap against itself', () => {
     }
     expect(against.findings).toEqual([]);
   });
+
+  it('reads the line of a simulated lap on the reference line it drove', () => {
+    const line = JSON.parse(compare(highGrip, ['--json']).stdout).line;
+    expect(line.corners.length).toBeGreaterThanOrEqual(7);
+    // The trace's positions are the reference's own racing line: the same offsets at every apex, within the 0.3 m
+    // the issue asks of the line (the log is read back through the 1 m grid).
+    for (const corner of line.corners)
+      expect(Math.abs(corner.apexOffsetM - corner.referenceApexOffsetM)).toBeLessThan(0.3);
+  });
 });
 
 const sessionOf = (traces: string[], lastShare = 1) =>

@@ -17,6 +17,9 @@ import { uncertaintyJson } from '../../report/uncertainty-summary.js';
 import { addUnitsOption, unitsOf } from '../units-option.js';
 import { addAgainstOptions, againstFromOptions, type AgainstOptionValues } from '../against-options.js';
 import { againstJson, againstSummaryText } from '../../report/against-summary.js';
+import { driverLine } from '../../compare/driver-line/driver-line.js';
+import { estimatedPedal } from '../../compare/estimated-pedal.js';
+import { lineJson, lineSummaryText } from '../../report/line-summary.js';
 
 export function register(program: Command): void {
   const command = program
@@ -53,7 +56,16 @@ export async function runCompare(values: CompareValues & AgainstOptionValues): P
     );
   const session = await loadSession(values);
   const comparison = compareFromRecords(track, car, ambient, session, values);
-  const against = await againstFromOptions(track, comparison, values, startFinishOption(values));
+  const paired = await againstFromOptions(track, comparison, values, startFinishOption(values));
+  const against = paired?.result ?? null;
+  const line = driverLine({
+    track,
+    lap: comparison.lap,
+    brake: comparison.lap.brake ?? estimatedPedal(comparison.lap, comparison.envelope, 'brake'),
+    referenceLine: comparison.linePositions ?? null,
+    other: paired?.other ?? null,
+    fromGps: Boolean(comparison.session?.geoOrigin),
+  });
   const uncertainty =
     draws === null
       ? null
@@ -72,6 +84,7 @@ export async function runCompare(values: CompareValues & AgainstOptionValues): P
           ...referencePathJson(comparison.referencePath),
           ...(uncertainty ? { uncertainty: uncertaintyJson(uncertainty) } : {}),
           ...(against ? { against: againstJson(against) } : {}),
+          ...(line ? { line: lineJson(line) } : {}),
         },
         null,
         2,
@@ -85,6 +98,7 @@ export async function runCompare(values: CompareValues & AgainstOptionValues): P
       ),
     );
     if (against) process.stdout.write('\n' + againstSummaryText(against, units));
+    if (line) process.stdout.write('\n' + lineSummaryText(line, units));
     if (values.out) process.stdout.write(`Aligned traces and corner table written to ${values.out}\n`);
     process.stdout.write(reportWrittenText(reportFiles));
   }

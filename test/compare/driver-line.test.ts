@@ -1,0 +1,82 @@
+// The driver's line from positions: a lap on the reference's speeds whose path is moved across the track over one
+// corner by a known amount (a smooth sin^2 ramp), with and without white position noise of a known size.
+
+import { describe, expect, it } from 'vitest';
+import { simulate } from '../../src/solve/simulate.js';
+import { driverLine } from '../../src/compare/driver-line/driver-line.js';
+import { cornerLayoutOf } from '../../src/track/corner-layout.js';
+import type { DriverLap } from '../../src/compare/types.js';
+import { circuitCar, driverLapFromReference, testCircuit } from './fixtures.js';
+import { gaussian, uniform } from './gps-session.js';
+
+const track = testCircuit();
+const reference = simulate(track, circuitCar());
+const n = track.distanceM.length;
+const corner = cornerLayoutOf(track).corners[0]!;
+const RAMP_M = 30;
+
+/** The reference's lap driven `inwardM` towards the inside of the first corner, with noise of `noiseM` (SD). */
+function movedLap(inwardM: number, noiseM: number, seed = 1): DriverLap {
+  const lap = driverLapFromReference(track, reference);
+  const normal = gaussian(uniform(seed));
+  const from = corner.entryIndex - RAMP_M;
+  const to = corner.exitIndex + RAMP_M;
+  const xM = new Float64Array(n);
+  const yM = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    const ramp = i > from && i < to ? Math.sin((Math.PI * (i - from)) / (to - from)) ** 2 : 0;
+    // Left normal of the heading h is (-sin h, cos h); the corner's side is +1 for a left turn.
+    const offset = corner.side * inwardM * ramp;
+    const h = track.headingRad[i]!;
+    xM[i] = track.xM[i]! - offset * Math.sin(h) + noiseM * normal();
+    yM[i] = track.yM[i]! + offset * Math.cos(h) + noiseM * normal();
+  }
+  return { ...lap, xM, yM };
+}
+
+describe("the driver's line", () => {
+  it('reports a line moved 2 m inward over one corner within 0.3 m at the apex (issue 13)', () => {
+    const apexRamp =
+      Math.sin(
+        (Math.PI * (corner.apexIndex - corner.entryIndex + RAMP_M)) /
+          (corner.exitIndex - corner.entryIndex + 2 * RAMP_M),
+      ) ** 2;
+    const result = driverLine({ track, lap: movedLap(2, 0), brake: null })!;
+    const first = result.corners[0]!;
+    expect(Math.abs(first.driver.apexOffsetM - corner.side * 2 * apexRamp)).toBeLessThan(0.3);
+    // The other corners are driven on the centreline.
+    for (const other of result.corners.slice(2)) expect(Math.abs(other.driver.apexOffsetM)).toBeLessThan(0.3);
+  });
+
+  it('measures the scatter of a noisy log and names the resolution it allows', () => {
+    // White noise of 0.5 m on each coordinate puts 0.5 m of scatter across the track (a normal vector's
+    // projection on a unit direction keeps its standard deviation).
+    const result = driverLine({ track, lap: movedLap(0, 0.5), brake: null })!;
+    expect(result.scatterM).toBeGreaterThan(0.4);
+    expect(result.scatterM).toBeLessThan(0.6);
+    expect(result.resolutionM).toBeCloseTo(2 * result.scatterM, 9);
+    expect(result.notes.join(' ')).toMatch(/line differences under 1\.\d m are not reported/);
+  });
+
+  it('calls a missed apex against the reference line only when it is larger than the scatter allows', () => {
+    const referenceLine = { xM: track.xM, yM: track.yM };
+    // 3 m wide of the centreline line with 0.5 m of noise (resolution about 1 m): a finding.
+    const wide = driverLine({ track, lap: movedLap(-3, 0.5), brake: null, referenceLine })!;
+    expect(wide.findings.some((f) => f.corner === corner.id && /misses the apex by [23]\.\d m/.test(f.text))).toBe(
+      true,
+    );
+    // 1 m wide with 1 m of noise (resolution about 2 m): no finding.
+    const hidden = driverLine({ track, lap: movedLap(-1, 1, 7), brake: null, referenceLine })!;
+    expect(hidden.findings.filter((f) => f.corner === corner.id)).toEqual([]);
+  });
+
+  it("holds a GPS line against the reference to the receiver's absolute error", () => {
+    const referenceLine = { xM: track.xM, yM: track.yM };
+    // 2 m wide with little scatter: seen from a simulator's positions, not from GPS (a few metres absolute error).
+    const simulator = driverLine({ track, lap: movedLap(-2.5, 0.05), brake: null, referenceLine })!;
+    expect(simulator.findings.some((f) => f.corner === corner.id && /misses the apex/.test(f.text))).toBe(true);
+    const gps = driverLine({ track, lap: movedLap(-2.5, 0.05), brake: null, referenceLine, fromGps: true })!;
+    expect(gps.findings.filter((f) => f.corner === corner.id)).toEqual([]);
+    expect(gps.placedResolutionM).toBeGreaterThanOrEqual(3);
+  });
+});
