@@ -6,7 +6,7 @@ import type { LapCornerFigures } from '../compare/against/lap-corner.js';
 import { formatLapTime, kphToMps, mps2ToG } from '../units.js';
 import { displayUnits, plainNumber, type DisplayUnits } from './units.js';
 import { formatTable } from './text-table.js';
-import { round } from './lap-summary.js';
+import { roundToDigits as round } from '../numeric/round.js';
 
 const signed = (value: number, digits: number) => plainNumber(value, digits, true);
 const maybe = (value: number | null, show: (v: number) => string) => (value === null ? '-' : show(value));

@@ -4,7 +4,7 @@
 import type { DriverLineResult } from '../compare/driver-line/driver-line.js';
 import { displayUnits, plainNumber, type DisplayUnits } from './units.js';
 import { formatTable } from './text-table.js';
-import { round } from './lap-summary.js';
+import { roundToDigits as round } from '../numeric/round.js';
 
 export function lineSummaryText(line: DriverLineResult, units: DisplayUnits = displayUnits('metric')): string {
   const d = units.distanceLabel;

@@ -5,7 +5,8 @@ import type { SessionOverview } from '../compare/session/session-overview.js';
 import { formatLapTime, kphToMps } from '../units.js';
 import { displayUnits, plainNumber, type DisplayUnits } from './units.js';
 import { formatTable } from './text-table.js';
-import { round, SAFETY_CAUTION } from './lap-summary.js';
+import { SAFETY_CAUTION } from './lap-summary.js';
+import { roundToDigits as round } from '../numeric/round.js';
 
 const signed = (value: number, digits: number) => plainNumber(value, digits, true);
 const cornerName = (id: number, overview: SessionOverview) => {

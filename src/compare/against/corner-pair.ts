@@ -4,6 +4,7 @@
 // reference comparison shares it (../corner-phases.ts), so the corners' times add up to the lap-time difference.
 
 import type { TrackGrid } from '../../track/types.js';
+import { wrapIndex } from '../../numeric/lap-index.js';
 import { cornerLayoutOf } from '../../track/corner-layout.js';
 import { compareBraking } from '../braking-points.js';
 import { ownershipBounds, phaseTimesLost } from '../corner-phases.js';
@@ -62,7 +63,7 @@ export function pairCorners(
   const spans = cornerLayoutOf(track).corners;
   const bounds = options.bounds ?? ownershipBounds(spans, second, first, n, step, closed);
   const deltaAt = (u: number) => clockBetween(first, u, closed) - clockBetween(second, u, closed);
-  const fold = (u: number) => (closed ? (((u % n) + n) % n) * step : u * step);
+  const fold = (u: number) => (closed ? wrapIndex(u, n) * step : u * step);
   const corners = spans.map((span, c): CornerPair => {
     const ownStart = bounds[c]!;
     const ownEnd = bounds[c + 1]!;

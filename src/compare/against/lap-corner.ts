@@ -4,6 +4,7 @@
 
 import type { CornerSpan } from '../../track/corners.js';
 import type { TrackGrid } from '../../track/types.js';
+import { wrapIndex } from '../../numeric/lap-index.js';
 import { clockAt } from '../delta.js';
 import { slowestPoint } from '../lap-samples.js';
 import { coastingTime } from '../corner-phases.js';
@@ -37,8 +38,6 @@ export interface LapCornerFigures {
   cornerTimeS: number;
 }
 
-const wrap = (u: number, n: number) => ((u % n) + n) % n;
-
 /** A lap's clock at a fractional unwrapped station, s. */
 export function clockBetween(lap: PairLap, u: number, closed: boolean): number {
   const lo = Math.floor(u);
@@ -62,7 +61,7 @@ export function lapCornerFigures(
   const closed = track.closed;
   const slowest = slowestPoint(lap.speedMps, span.entryIndex, span.exitIndex, n);
   const braking = brakeU === null ? null : brakingFigures(lap, span, brakeU, n, closed, pedalThreshold);
-  const foldM = (u: number) => (closed ? wrap(u, n) * step : u * step);
+  const foldM = (u: number) => (closed ? wrapIndex(u, n) * step : u * step);
   return {
     brakingPointM: brakeU === null ? null : foldM(brakeU),
     brakingBeforeTurnInM: brakeU === null ? null : (span.entryIndex - brakeU) * step,
@@ -70,10 +69,10 @@ export function lapCornerFigures(
     brakeBuildS: braking?.buildS ?? null,
     brakeReleaseFromApexM: braking ? (braking.releaseU - span.apexIndex) * step : null,
     trailBrakingM: braking ? Math.max(0, braking.releaseU - span.entryIndex) * step : null,
-    entrySpeedKph: mpsToKph(lap.speedMps[wrap(span.entryIndex, n)]!),
+    entrySpeedKph: mpsToKph(lap.speedMps[wrapIndex(span.entryIndex, n)]!),
     minSpeedKph: mpsToKph(slowest.value),
     minSpeedOffsetFromApexM: (slowest.index - span.apexIndex) * step,
-    exitSpeedKph: mpsToKph(lap.speedMps[wrap(span.exitIndex, n)]!),
+    exitSpeedKph: mpsToKph(lap.speedMps[wrapIndex(span.exitIndex, n)]!),
     coastingS: lap.throttle
       ? coastingTime(lap.throttle, lap.brake, lap.timeS, lap.lapTimeS, ownStart, ownEnd, closed, pedalThreshold)
       : null,
@@ -91,12 +90,12 @@ function brakingFigures(
 ): { peakMps2: number; buildS: number; releaseU: number } {
   const onU = Math.ceil(brakeU);
   let releaseU = onU;
-  while (releaseU < span.exitIndex && lap.brake[wrap(releaseU, n)]! > threshold) releaseU++;
+  while (releaseU < span.exitIndex && lap.brake[wrapIndex(releaseU, n)]! > threshold) releaseU++;
   let peakMps2 = 0;
-  for (let u = Math.floor(brakeU); u <= releaseU; u++) peakMps2 = Math.max(peakMps2, -lap.axMps2[wrap(u, n)]!);
+  for (let u = Math.floor(brakeU); u <= releaseU; u++) peakMps2 = Math.max(peakMps2, -lap.axMps2[wrapIndex(u, n)]!);
   let builtU = releaseU;
   for (let u = onU; u <= releaseU; u++) {
-    if (-lap.axMps2[wrap(u, n)]! >= BUILT_SHARE * peakMps2) {
+    if (-lap.axMps2[wrapIndex(u, n)]! >= BUILT_SHARE * peakMps2) {
       builtU = u;
       break;
     }

@@ -5,6 +5,7 @@
 
 import type { CornerSpan } from '../../track/corners.js';
 import type { TrackGrid } from '../../track/types.js';
+import { wrapIndex } from '../../numeric/lap-index.js';
 
 /** How far before the corner's entry the turn-in is looked for, m. */
 const TURN_IN_SEARCH_M = 60;
@@ -23,8 +24,6 @@ export interface CornerLine {
   turnInFromOutsideM: number | null;
 }
 
-const wrap = (u: number, n: number) => ((u % n) + n) % n;
-
 export function cornerLine(offsetM: Float64Array, span: CornerSpan, track: TrackGrid): CornerLine {
   const n = offsetM.length;
   const step = track.stepM;
@@ -34,25 +33,25 @@ export function cornerLine(offsetM: Float64Array, span: CornerSpan, track: Track
   let turnIn = span.apexIndex;
   let outermost = Infinity;
   for (let u = from; u <= span.apexIndex; u++) {
-    const inward = side * offsetM[wrap(u, n)]!;
+    const inward = side * offsetM[wrapIndex(u, n)]!;
     if (inward <= outermost) {
       outermost = inward;
       turnIn = u;
     }
   }
-  const at = (u: number) => offsetM[wrap(u, n)]!;
+  const at = (u: number) => offsetM[wrapIndex(u, n)]!;
   const insideWidth = (u: number) => {
     const widths = side > 0 ? track.widthLeftM : track.widthRightM;
-    return widths ? widths[wrap(u, n)]! : null;
+    return widths ? widths[wrapIndex(u, n)]! : null;
   };
   const outsideWidth = (u: number) => {
     const widths = side > 0 ? track.widthRightM : track.widthLeftM;
-    return widths ? widths[wrap(u, n)]! : null;
+    return widths ? widths[wrapIndex(u, n)]! : null;
   };
   const apexInside = insideWidth(span.apexIndex);
   const turnInOutside = outsideWidth(turnIn);
   return {
-    turnInM: wrap(turnIn, n) * step,
+    turnInM: wrapIndex(turnIn, n) * step,
     turnInBeforeApexM: (span.apexIndex - turnIn) * step,
     turnInOffsetM: at(turnIn),
     apexOffsetM: at(span.apexIndex),

@@ -3,6 +3,7 @@
 // differences smaller than the log's own position scatter allows are not reported (lateral-offset.ts).
 
 import type { TrackGrid } from '../../track/types.js';
+import { wrapIndex } from '../../numeric/lap-index.js';
 import type { DriverLap, Finding } from '../types.js';
 import { cornerLayoutOf } from '../../track/corner-layout.js';
 import { cornerLabel } from '../findings.js';
@@ -72,7 +73,7 @@ export function driverLine(inputs: DriverLineInputs): DriverLineResult | null {
     : null;
   const otherOffset =
     inputs.other?.xM && inputs.other.yM ? lateralOffsetM(track, inputs.other.xM, inputs.other.yM) : null;
-  const wrap = (u: number) => ((u % n) + n) % n;
+  const wrap = (u: number) => wrapIndex(u, n);
   const corners = cornerLayoutOf(track).corners.map((span): CornerLineComparison => {
     const driver = cornerLine(offsetM, span, track);
     let brakeAtTurnIn: number | null = null;

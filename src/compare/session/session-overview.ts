@@ -17,7 +17,8 @@ import { DEFAULT_COMPARE_OPTIONS } from '../compare-options.js';
 import { lapCornerFigures, type LapCornerFigures } from '../against/lap-corner.js';
 import { pairLapOfDriver, pairLapOfReference } from '../against/pair-lap.js';
 import { sectorTimesS } from './lap-sectors.js';
-import { medianOfList, sampleStandardDeviation } from './spread.js';
+import { sampleStandardDeviation } from './spread.js';
+import { median } from '../../numeric/quantile.js';
 import { cornerVerdicts, type CornerVerdict, DEFAULT_VERDICT_OPTIONS, type VerdictOptions } from './corner-verdicts.js';
 
 export interface SessionLap {
@@ -150,14 +151,14 @@ export function sessionOverview(
       apexM: span.apexM,
       bestTimeS: times[bestIndex]!,
       bestLap: figures[bestIndex]!.lap,
-      medianTimeS: medianOfList(times),
+      medianTimeS: median(times),
       spreadTimeS: sampleStandardDeviation(times),
       referenceTimeS: referenceFigures[c]!.cornerTimeS,
-      medianBrakingBeforeTurnInM: braking.length > 0 ? medianOfList(braking) : null,
+      medianBrakingBeforeTurnInM: braking.length > 0 ? median(braking) : null,
       spreadBrakingPointM: braking.length > 0 ? sampleStandardDeviation(braking) : null,
       brakingLaps: braking.length,
       bestMinSpeedKph: Math.max(...slowest),
-      medianMinSpeedKph: medianOfList(slowest),
+      medianMinSpeedKph: median(slowest),
       spreadMinSpeedKph: sampleStandardDeviation(slowest),
       referenceMinSpeedKph: referenceFigures[c]!.minSpeedKph,
     };
