@@ -16,6 +16,7 @@ const modules: [string, () => Promise<BenchModule>][] = [
   ['transient', () => import('./transient.bench.js')],
   ['large-telemetry', () => import('./large-telemetry.bench.js')],
   ['calibrate', () => import('./calibrate.bench.js')],
+  ['session', () => import('./session.bench.js')],
 ];
 
 const only = process.argv.slice(2);
