@@ -109,9 +109,14 @@ export function honestyChecks(input: HonestyInput): HonestyResult {
     }
   }
 
+  // A list, not a sentence split at commas: the causes carry commas inside their brackets.
   const causes = input.derivedAccelerations
-    ? 'noisy accelerations derived from GPS positions, a wrong car file (grip, power or mass too low)'
-    : 'a wrong unit in the log (accelerations in m/s^2 read as g, or the reverse), noisy accelerometer channels, a wrong car file (grip, power or mass too low)';
+    ? ['noisy accelerations derived from GPS positions', 'a wrong car file (grip, power or mass too low)']
+    : [
+        'a wrong unit in the log (accelerations in m/s^2 read as g, or the reverse)',
+        'noisy accelerometer channels',
+        'a wrong car file (grip, power or mass too low)',
+      ];
   const problems: string[] = [];
   const fasterShare = 1 - lap.lapTimeS / carModelLap.lapTimeS;
   if (fasterShare > FASTER_THAN_MODEL_LIMIT)
@@ -123,9 +128,9 @@ export function honestyChecks(input: HonestyInput): HonestyResult {
     problems.push(`the driver's grip use peaks at ${(peak * 100).toFixed(0)} % of the car model's limit`);
   let caveat: string | null = null;
   if (problems.length > 0) {
-    caveat = `likely ${causes.split(', ')[0]}`;
+    caveat = `likely ${causes[0]}`;
     notes.push(
-      `doubtful: ${problems.join(', and ')}; likely causes: ${causes}. The figures are shown with this caveat`,
+      `doubtful: ${problems.join(', and ')}; likely causes: ${causes.join(', ')}. The figures are shown with this caveat`,
     );
   }
   return { record, envelope, demonstratedLap: lap, caveat, notes };

@@ -205,8 +205,8 @@ describe('the reference on a racing line (--line auto | centreline | FILE)', () 
     expect(fromFile.code, fromFile.stderr).toBe(0);
     const onFileLine = JSON.parse(fromFile.stdout);
     expect(onFileLine.referencePath).toBe('file');
-    // The file keeps the offsets to 0.1 mm; the line's curvature, recomputed from them by differences over a
-    // 1 m step, picks up that rounding, which moves the lap by about 9 ms here (simulate --line shows the same).
+    // The file keeps the offsets to a micrometre; the line's curvature, recomputed from them by differences over a
+    // 1 m step, picks up that rounding, which can move the lap by a few milliseconds (simulate --line the same).
     // 0.02 s is 0.03 % of the lap, far below the 0.5 s the line gains.
     expect(Math.abs(onFileLine.referenceLapTimeS - onLine.referenceLapTimeS)).toBeLessThan(0.02);
     expect(onFileLine.corners.length).toBe(onLine.corners.length);
