@@ -17,7 +17,7 @@ const orDash = (value: number | null | undefined, digits: number, sign = true) =
     ? '-'
     : sign
       ? signed(value, digits)
-      : value.toFixed(digits);
+      : plainNumber(value, digits);
 
 /** The gaps a driver reads first: to the reference used, and to the other envelope when it is known. */
 function gapLines(result: ComparisonResult): string[] {

@@ -23,6 +23,10 @@ describe('reflap demo', () => {
     expect(run.stdout).toMatch(/Caution/);
   });
 
+  it('prints no negative zero in its tables (issue 16: a zero reads as 0, not -0)', () => {
+    expect(run.stdout).not.toMatch(/(^|[\s/(])-0(\.0+)?(?=[\s/)]|$)/m);
+  });
+
   it('says in one line that the partial laps of its invented session are the out and in laps', () => {
     expect(run.stdout).not.toMatch(/lap \d+ left out/);
     expect(run.stdout).toMatch(/Note: the invented session has an out lap and an in lap around the timed lap/);
