@@ -31,6 +31,12 @@ export interface FrontierProblem {
    * autocorrelation (./serial-correlation.ts) before it is set beside the cluster sandwich.
    */
   serialCorrelation?: boolean;
+  /**
+   * Whether samples may stay inside the boundary (the one-sided term, after the skewness pre-test); false holds
+   * lambda at 0, symmetric noise about the boundary, for samples whose skew says more about how they were made than
+   * about the driver (accelerations derived by smoothing: ./grip-fit.ts).
+   */
+  insideTerm?: boolean;
 }
 
 export interface FrontierFit {
@@ -375,7 +381,7 @@ export function fitFrontier(problem: FrontierProblem, start: Float64Array): Fron
       if (noise.lambdaLocked) {
         // Least squares has converged: let the inefficiency in only if the residuals lean inside.
         noise.lambdaLocked = false;
-        if (insideSkewSignificant(e, problem.independent ?? problem.clusters)) {
+        if (problem.insideTerm !== false && insideSkewSignificant(e, problem.independent ?? problem.clusters)) {
           noise.lambda = 1;
           noise.lambdaFixed = false;
           current = maximiseNoise(e, noise, d);

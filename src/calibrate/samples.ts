@@ -31,6 +31,10 @@ export interface CalibrationSamples {
   notes: string[];
 }
 
+/** The note on a grip fitted from derived accelerations. */
+export const DERIVED_GRIP_NOTE =
+  'grip fitted from derived accelerations, taken as on the limit up to noise: a driver who stayed below the limit fits less grip than the car has';
+
 /** A gap in the log longer than this ends a run: nothing is fitted across it, s. */
 export const RUN_GAP_S = 1;
 
@@ -146,9 +150,9 @@ function lapSamples(session: TelemetrySession, track: TrackGrid): CalibrationSam
   notes.push(`${laps.length} complete lap${laps.length > 1 ? 's' : ''} aligned on the track's grid`);
   if (laps[0]!.derivedChannels.includes('ayMps2')) {
     notes.push("no lateral acceleration in the log: taken as the speed squared times the track's curvature");
-    // Measured on synthetic GPS-only logs of a known car (docs/calibrate.md): the grip's own standard error leaves
-    // out the error of the derived accelerations.
-    notes.push('grip fitted from derived accelerations: good to about 6 %, not to its standard error');
+    // The grip fit holds such samples on the boundary up to symmetric noise (./grip-fit.ts): it cannot see a driver
+    // who stayed below the limit.
+    notes.push(DERIVED_GRIP_NOTE);
   }
   return {
     source: session.source,
