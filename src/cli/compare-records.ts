@@ -10,7 +10,7 @@ import type { UnitsOptionValues } from './units-option.js';
 import { resolveReferenceLine } from './reference-path.js';
 import { compareSession, type SessionComparison } from '../compare/compare-session.js';
 import { readEnvelopeFile } from '../io/read-envelope.js';
-import { alignedTracesCsv } from '../report/compare-summary.js';
+import { alignedTracesCsv, type AlignedOtherLap } from '../report/compare-summary.js';
 import { comparisonCornersCsv } from '../report/comparison-corners-csv.js';
 import { displayUnits, type DisplayUnits } from '../report/units.js';
 import type { ReferenceLine } from '../line/reference-line.js';
@@ -72,16 +72,17 @@ export function compareFromRecords(
   return { ...comparison, referencePath: reference, ...(xM && yM ? { linePositions: { xM, yM } } : {}) };
 }
 
-/** Files `--out DIR` writes: the aligned traces and the corner table. */
+/** Files `--out DIR` writes: the aligned traces (with the other lap of `--against`, where given) and the corner table. */
 export function comparisonFiles(
   comparison: SessionComparison,
   dir: string,
   units: DisplayUnits = displayUnits('metric'),
+  other: AlignedOtherLap | null = null,
 ): { file: string; content: string }[] {
   return [
     {
       file: path.join(dir, 'aligned.csv'),
-      content: alignedTracesCsv(comparison.result, comparison.reference, comparison.lap),
+      content: alignedTracesCsv(comparison.result, comparison.reference, comparison.lap, other),
     },
     { file: path.join(dir, 'corners.csv'), content: comparisonCornersCsv(comparison, units) },
   ];

@@ -178,8 +178,21 @@ export function compareSummaryJson(result: ComparisonResult) {
 const fixed = (value: number | undefined, digits: number) =>
   value !== undefined && Number.isFinite(value) ? value.toFixed(digits) : '';
 
-/** Both laps on the track grid, one row per station, with the delta and both grip uses. */
-export function alignedTracesCsv(result: ComparisonResult, reference: LapResult, driver: DriverLap): string {
+/** A second lap for the aligned traces (`compare --against`): its channels and the driver's delta to it. */
+export interface AlignedOtherLap {
+  lap: DriverLap;
+  /** Driver minus other lap at each station, s. */
+  driverDeltaS: Float64Array;
+}
+
+/** Both laps on the track grid, one row per station, with the delta and both grip uses; the other lap of
+ * `--against`, where there is one, in columns of its own after them. */
+export function alignedTracesCsv(
+  result: ComparisonResult,
+  reference: LapResult,
+  driver: DriverLap,
+  other: AlignedOtherLap | null = null,
+): string {
   const t = reference.trace;
   const header = [
     'station_m',
@@ -204,6 +217,17 @@ export function alignedTracesCsv(result: ComparisonResult, reference: LapResult,
   // The logged brake pressure, where the log gave pressure instead of a pedal share.
   const pressurePa = driver.brakePressurePa ?? null;
   if (pressurePa) header.push('brake_pressure_driver_bar');
+  if (other)
+    header.push(
+      'time_other_s',
+      'delta_other_s',
+      'speed_other_kph',
+      'throttle_other',
+      'brake_other',
+      'ax_other_mps2',
+      'ay_other_mps2',
+    );
+  const o = other?.lap;
   const lines = [header.join(',')];
   for (let i = 0; i < t.count; i++) {
     lines.push(
@@ -227,6 +251,17 @@ export function alignedTracesCsv(result: ComparisonResult, reference: LapResult,
         String(t.powerLimited[i]),
         String(t.shift[i]),
         ...(pressurePa ? [fixed(pressurePa[i]! / 1e5, 2)] : []),
+        ...(o
+          ? [
+              fixed(o.timeS[i], 4),
+              fixed(other.driverDeltaS[i], 4),
+              fixed(mpsToKph(o.speedMps[i]!), 2),
+              o.throttle ? fixed(o.throttle[i], 3) : '',
+              o.brake ? fixed(o.brake[i], 3) : '',
+              fixed(o.axMps2[i], 3),
+              fixed(o.ayMps2[i], 3),
+            ]
+          : []),
       ].join(','),
     );
   }

@@ -17,6 +17,7 @@ import type { Envelope } from '../../src/car/envelope.js';
 import { readTrackFile } from '../../src/io/read-track.js';
 import { compareLaps } from '../../src/compare/compare-laps.js';
 import { driverLapFromSpeeds } from '../compare/fixtures.js';
+import { lapAgainstLap } from '../../src/compare/against/lap-against-lap.js';
 
 export const projectRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', '..');
 
@@ -199,4 +200,22 @@ export function pipelineInput(names: { carName?: string; trackName?: string; cor
     ambient,
   );
   return { reference, carName: car.name, envelope, comparison: { result, driver, demonstratedEnvelope } };
+}
+
+/**
+ * The pipeline's driver set against a second lap through the library (lapAgainstLap): the reference's speeds
+ * scaled by 0.97 with its pedals, a steadier lap than the driver's, lap 4 of another invented log.
+ */
+export function againstInput(): ReportInput {
+  const base = pipelineInput();
+  const comparison = base.comparison!;
+  const reference = base.reference;
+  const track = reference.track;
+  const trace = reference.trace;
+  const speedMps = trace.speedMps.map((v) => v * 0.97);
+  const lap = driverLapFromSpeeds(track, speedMps, trace.throttle.slice(), trace.brake.slice(), 'teammate-07.csv');
+  const lapTimeS = track.closed ? lap.lapTimeS : lap.timeS[trace.count - 1]!;
+  const other: DriverLap = { ...lap, lapNumber: 4, lapTimeS };
+  const result = lapAgainstLap(track, reference, comparison.driver, other, base.envelope);
+  return { ...base, against: { result, other } };
 }

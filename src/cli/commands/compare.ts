@@ -72,9 +72,19 @@ export async function runCompare(values: CompareValues & AgainstOptionValues): P
       : await uncertainComparison(comparison, car, ambient, { draws, startSpeedMps: startSpeedMps(values) });
   const outputs = outputBatch([...inputFilesOf(values), ...(values.against ? [values.against] : [])]);
   if (values.out)
-    for (const { file, content } of comparisonFiles(comparison, values.out, units)) outputs.add(file, content);
-  const report = sessionReportInput(comparison, car, ambient, comparison.linePositions);
-  const reportFiles = addReportOutputs(outputs, values, uncertainty ? { ...report, uncertainty } : report);
+    for (const { file, content } of comparisonFiles(
+      comparison,
+      values.out,
+      units,
+      paired ? { lap: paired.other, driverDeltaS: paired.result.deltaS } : null,
+    ))
+      outputs.add(file, content);
+  const report = {
+    ...sessionReportInput(comparison, car, ambient, comparison.linePositions),
+    ...(uncertainty ? { uncertainty } : {}),
+    ...(paired ? { against: { result: paired.result, other: paired.other } } : {}),
+  };
+  const reportFiles = addReportOutputs(outputs, values, report);
   outputs.commit();
   if (values.json) {
     process.stdout.write(

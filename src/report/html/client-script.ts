@@ -10,8 +10,8 @@ const SCRIPT_BODY = String.raw`(function () {
   var data = JSON.parse(document.getElementById('lap-data').textContent);
   var charts = Array.prototype.slice.call(document.querySelectorAll('svg[data-distance-chart]'));
   var svgNs = charts.length ? charts[0].namespaceURI : null;
-  var map = document.querySelector('svg[data-chart="map"]');
-  var mapDot = map && map.querySelector('.map-dot');
+  var maps = Array.prototype.slice.call(document.querySelectorAll('svg[data-track-map]'));
+  var mapDots = maps.map(function (map) { return map.querySelector('.map-dot'); });
   var gg = document.querySelector('svg[data-chart="gg"]');
   var ggDots = gg ? { R: gg.querySelector('.gg-dot-reference'), D: gg.querySelector('.gg-dot-driver') } : {};
   var resetButton = document.getElementById('zoom-reset');
@@ -40,13 +40,57 @@ const SCRIPT_BODY = String.raw`(function () {
     title.textContent = 'distance, m';
     axis.appendChild(title);
   }
+  // The y range of a chart's series inside [from, to], padded, held inside the axis of the whole lap (whose
+  // ranges already leave out a logged lap's spikes), and with zero where the chart reads against zero.
+  function yDomainOf(svg, from, to) {
+    var whole = svg.getAttribute('data-y-domain').split(' ').map(Number);
+    if (to - from >= data.lengthM) return whole;
+    var low = Infinity;
+    var high = -Infinity;
+    svg.getAttribute('data-y-keys').split(' ').forEach(function (key) {
+      var series = data.series[key];
+      if (!series) return;
+      for (var i = 0; i < data.d.length; i++) {
+        if (data.d[i] < from || data.d[i] > to) continue;
+        if (series[i] < low) low = series[i];
+        if (series[i] > high) high = series[i];
+      }
+    });
+    if (svg.hasAttribute('data-y-zero')) { low = Math.min(low, 0); high = Math.max(high, 0); }
+    if (!(high >= low)) return whole;
+    var pad = Math.max((high - low) * 0.08, (whole[1] - whole[0]) * 0.01);
+    return [Math.max(whole[0], low - pad), Math.min(whole[1], high + pad)];
+  }
+  function drawYAxis(svg, plot, yDomain, top, bottom) {
+    var ticks = svg.querySelector('.y-ticks');
+    while (ticks.firstChild) ticks.removeChild(ticks.firstChild);
+    niceTicks(yDomain[0], yDomain[1], 4).forEach(function (tick) {
+      var y = bottom - ((tick - yDomain[0]) / (yDomain[1] - yDomain[0])) * (bottom - top);
+      ticks.appendChild(attrs(document.createElementNS(svgNs, 'line'), { x1: plot.left, x2: plot.left + plot.width, y1: y, y2: y, stroke: tick === 0 ? '#b8b8b8' : '#e3e3e3' }));
+      var label = attrs(document.createElementNS(svgNs, 'text'), { x: plot.left - 6, y: y, dy: '0.32em', 'text-anchor': 'end', fill: '#555555' });
+      label.textContent = String(Number(tick.toFixed(2)));
+      ticks.appendChild(label);
+    });
+  }
   function zoomTo(from, to, label) {
     domain = [from, to];
     var k = data.lengthM / (to - from);
     charts.forEach(function (svg) {
       var plot = plotOf(svg);
       var shift = (-from / data.lengthM) * plot.width;
-      svg.querySelector('.zoom').setAttribute('transform', 'translate(' + plot.left + ' 0) scale(' + k + ' 1) translate(' + shift + ' 0)');
+      var yPart = ' 0) scale(' + k + ' 1)';
+      if (svg.hasAttribute('data-y-keys')) {
+        var whole = svg.getAttribute('data-y-domain').split(' ').map(Number);
+        var top = +svg.getAttribute('data-plot-top');
+        var bottom = +svg.getAttribute('data-plot-bottom');
+        var yDomain = yDomainOf(svg, from, to);
+        var ky = (whole[1] - whole[0]) / (yDomain[1] - yDomain[0]);
+        var ty = bottom * (1 - ky) - ((whole[0] - yDomain[0]) * (bottom - top)) / (yDomain[1] - yDomain[0]);
+        yPart = ' ' + ty + ') scale(' + k + ' ' + ky + ')';
+        svg.setAttribute('data-y-shown', yDomain.map(function (v) { return Number(v.toPrecision(6)); }).join(' '));
+        drawYAxis(svg, plot, yDomain, top, bottom);
+      }
+      svg.querySelector('.zoom').setAttribute('transform', 'translate(' + plot.left + yPart + ' translate(' + shift + ' 0)');
       drawAxis(svg, plot);
     });
     document.body.setAttribute('data-zoom', label ? 'corner' : 'lap');
@@ -84,8 +128,8 @@ const SCRIPT_BODY = String.raw`(function () {
       var x = plot.left + ((distance - domain[0]) / (domain[1] - domain[0])) * plot.width;
       attrs(svg.querySelector('.cursor'), { x1: x, x2: x, visibility: 'visible' });
     });
-    if (mapDot) attrs(mapDot, { cx: data.mapX[index], cy: data.mapY[index], visibility: 'visible' });
-    ['R', 'D'].forEach(function (who) {
+    mapDots.forEach(function (dot) { if (dot) attrs(dot, { cx: data.mapX[index], cy: data.mapY[index], visibility: 'visible' }); });
+    ['R', 'D', 'O'].forEach(function (who) {
       var dot = ggDots[who];
       var ax = channel('ax' + who, index);
       var ay = channel('ay' + who, index);
@@ -93,7 +137,7 @@ const SCRIPT_BODY = String.raw`(function () {
       attrs(dot, { cx: data.gg.cx + ay * data.gg.pxPerG, cy: data.gg.cy - ax * data.gg.pxPerG, visibility: 'visible' });
     });
     setField('distance', text(distance, 0, ' m'));
-    ['R', 'D'].forEach(function (who) {
+    ['R', 'D', 'O'].forEach(function (who) {
       setField('speed' + who, text(channel('v' + who, index), 1, ' km/h'));
       setField('throttle' + who, text(channel('t' + who, index), 0, ' %'));
       setField('brake' + who, text(channel('b' + who, index), 0, ' %'));
@@ -102,12 +146,14 @@ const SCRIPT_BODY = String.raw`(function () {
       var ay = channel('ay' + who, index);
       setField('accel' + who, ax === null ? '–' : ax.toFixed(2) + ' / ' + ay.toFixed(2) + ' g');
     });
-    var delta = channel('dt', index);
-    setField('delta', delta === null ? '–' : (delta > 0 ? '+' : '') + delta.toFixed(3) + ' s');
+    ['dt', 'dtO'].forEach(function (name) {
+      var delta = channel(name, index);
+      setField(name === 'dt' ? 'delta' : 'deltaO', delta === null ? '–' : (delta > 0 ? '+' : '') + delta.toFixed(3) + ' s');
+    });
   }
   function hide() {
     charts.forEach(function (svg) { svg.querySelector('.cursor').setAttribute('visibility', 'hidden'); });
-    if (mapDot) mapDot.setAttribute('visibility', 'hidden');
+    mapDots.forEach(function (dot) { if (dot) dot.setAttribute('visibility', 'hidden'); });
     if (ggDots.R) ggDots.R.setAttribute('visibility', 'hidden');
     if (ggDots.D) ggDots.D.setAttribute('visibility', 'hidden');
   }
@@ -126,7 +172,7 @@ const SCRIPT_BODY = String.raw`(function () {
     });
     area.addEventListener('pointerleave', hide);
   });
-  if (map) {
+  maps.forEach(function (map) {
     map.addEventListener('pointermove', function (event) {
       var local = svgPoint(map, event);
       var best = -1;
@@ -140,7 +186,7 @@ const SCRIPT_BODY = String.raw`(function () {
       if (best >= 0) show(best); else hide();
     });
     map.addEventListener('pointerleave', hide);
-  }
+  });
   var cornerById = {};
   data.corners.forEach(function (corner) { cornerById[corner.id] = corner; });
   Array.prototype.slice.call(document.querySelectorAll('[data-corner]')).forEach(function (element) {

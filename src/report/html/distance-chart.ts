@@ -69,6 +69,11 @@ export interface DistanceChartSpec {
   guides?: number[];
   legendExtra?: LegendItem[];
   note?: string;
+  /** The page-data series (client-script.ts) whose values inside a zoomed stretch set the y axis there; a chart
+   * without them keeps its axis (the pedals' 0-100 % is the scale the reader needs at any zoom). */
+  rescaleKeys?: string[];
+  /** Keep zero inside the zoomed axis (a delta reads against zero). */
+  rescaleWithZero?: boolean;
 }
 
 export function distanceChartSvg(spec: DistanceChartSpec, options: SvgOptions): string {
@@ -149,7 +154,11 @@ export function distanceChartSvg(spec: DistanceChartSpec, options: SvgOptions): 
   body +=
     `<line class="cursor" x1="0" x2="0" y1="${PLOT_TOP}" y2="${plotBottom}" stroke="${PALETTE.cursor}" stroke-width="1" visibility="hidden"/>` +
     `<rect class="hover-area" x="${PLOT_LEFT}" y="${PLOT_TOP}" width="${plotWidth}" height="${plotHeight}" fill="transparent"/>`;
-  const attributes = ` data-distance-chart="" data-plot-left="${PLOT_LEFT}" data-plot-width="${plotWidth}"`;
+  const rescale = spec.rescaleKeys?.length
+    ? ` data-y-keys="${spec.rescaleKeys.join(' ')}" data-y-domain="${spec.yDomain.map((v) => Number(v.toPrecision(6))).join(' ')}"` +
+      ` data-plot-top="${PLOT_TOP}" data-plot-bottom="${plotBottom}"${spec.rescaleWithZero ? ' data-y-zero=""' : ''}`
+    : '';
+  const attributes = ` data-distance-chart="" data-plot-left="${PLOT_LEFT}" data-plot-width="${plotWidth}"${rescale}`;
   return svgElement(
     spec.name,
     CHART_WIDTH,

@@ -3,6 +3,7 @@
 
 import type { Envelope } from '../../car/envelope.js';
 import type { ComparisonResult, DriverLap } from '../../compare/types.js';
+import type { AgainstResult } from '../../compare/against/lap-against-lap.js';
 import type { LapResult } from '../../solve/types.js';
 import { mpsToKph, STANDARD_GRAVITY_MPS2 } from '../../units.js';
 import type { UncertainReference } from '../../uncertainty/uncertain-reference.js';
@@ -19,6 +20,12 @@ export interface ReportInput {
     driver: DriverLap;
     /** The envelope fitted to the driver's own data, when there is one. */
     demonstratedEnvelope?: Envelope;
+  };
+  /** A second lap the driver's lap is set against (`compare --against`): drawn as a third trace, with the
+   * driver's delta to it and the map coloured by where the driver gains or loses against it. */
+  against?: {
+    result: AgainstResult;
+    other: DriverLap;
   };
   /** The reference over draws of the car's uncertain fields: the speed is drawn as a band, the corners carry how often
    * their findings hold. */
@@ -49,6 +56,9 @@ export interface LapChannels {
   yM: Float64Array | null;
 }
 
+/** A second logged lap as drawn: the channels the log gives, no grip use (its envelope is the driver's). */
+export type OtherLapChannels = Pick<LapChannels, 'speedKph' | 'throttlePct' | 'brakePct' | 'axG' | 'ayG' | 'xM' | 'yM'>;
+
 export interface ReportModel {
   input: ReportInput;
   lengthM: number;
@@ -56,6 +66,8 @@ export interface ReportModel {
   stationM: Float64Array;
   reference: LapChannels;
   driver: (LapChannels & { deltaS: Float64Array }) | null;
+  /** The other lap of `compare --against`, with the driver's delta to it (driver minus other lap, s). */
+  other: (OtherLapChannels & { label: string; driverDeltaS: Float64Array }) | null;
   corners: ReportCorner[];
 }
 
@@ -146,7 +158,32 @@ export function reportModel(input: ReportInput): ReportModel {
     stationM: trace.stationM,
     reference: referenceChannels,
     driver,
+    other: driver ? otherChannels(input, count) : null,
     corners,
+  };
+}
+
+function otherChannels(input: ReportInput, count: number): ReportModel['other'] {
+  const against = input.against;
+  if (!against) return null;
+  const lap = against.other;
+  for (const [name, values] of [
+    ['other lap speed', lap.speedMps],
+    ['other lap throttle', lap.throttle],
+    ['other lap brake', lap.brake],
+    ['delta to the other lap', against.result.deltaS],
+  ] as const)
+    requireLength(name, values, count);
+  return {
+    label: against.result.label,
+    speedKph: scaled(lap.speedMps, mpsToKph(1)),
+    throttlePct: lap.throttle ? scaled(lap.throttle, 100) : null,
+    brakePct: lap.brake ? scaled(lap.brake, 100) : null,
+    axG: scaled(lap.axMps2, 1 / STANDARD_GRAVITY_MPS2),
+    ayG: scaled(lap.ayMps2, 1 / STANDARD_GRAVITY_MPS2),
+    xM: lap.xM,
+    yM: lap.yM,
+    driverDeltaS: Float64Array.from(against.result.deltaS),
   };
 }
 

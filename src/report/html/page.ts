@@ -11,15 +11,24 @@ import {
 } from './distance-chart.js';
 import { htmlPage } from './page-frame.js';
 import { ggDiagramSvg, ggFrame } from './gg-diagram.js';
-import { cornerRangeM, reportModel, type ReportInput, type ReportModel } from './model.js';
+import {
+  cornerRangeM,
+  reportModel,
+  type LapChannels,
+  type OtherLapChannels,
+  type ReportInput,
+  type ReportModel,
+} from './model.js';
 import { GRIP_NEAR_LIMIT, GRIP_OVER_LIMIT, PALETTE } from './palette.js';
 import { paddedDomain, quantileOf } from './scale.js';
 import { strideIndices } from './downsample.js';
 import { cornerTableHtml, findingsHtml, summaryHtml } from './tables.js';
+import { againstFindingsHtml, againstTableHtml } from './against-tables.js';
 import { mapPoint, mapProjection, trackMapSvg } from './track-map.js';
 import type { SvgOptions } from './svg-frame.js';
 import { mpsToKph } from '../../units.js';
 import { roundToDigits } from '../../numeric/round.js';
+import { escapeHtml } from './escape.js';
 
 /** Hover values are kept for at most this many points along the lap. */
 const MAX_HOVER_POINTS = 2500;
@@ -61,6 +70,13 @@ function distanceCharts(model: ReportModel): DistanceChartSpec[] {
     colour: PALETTE.driver,
     values,
   });
+  const other = model.other;
+  const othSeries = (values: ArrayLike<number>, label = other?.label ?? ''): DistanceSeries => ({
+    label,
+    colour: PALETTE.other,
+    values,
+    width: 1.3,
+  });
   const charts: DistanceChartSpec[] = [];
 
   const uncertainty = model.input.uncertainty;
@@ -78,8 +94,12 @@ function distanceCharts(model: ReportModel): DistanceChartSpec[] {
   const [speedMin, speedMax] = range([
     reference.speedKph,
     driver?.speedKph,
+    other?.speedKph,
     ...speedRange.flatMap((r) => [r.low, r.high]),
   ]);
+  const speedSeries = [refSeries(reference.speedKph)];
+  if (driver) speedSeries.push(drvSeries(driver.speedKph));
+  if (other) speedSeries.push(othSeries(other.speedKph));
   charts.push({
     ...base,
     name: 'speed',
@@ -87,29 +107,41 @@ function distanceCharts(model: ReportModel): DistanceChartSpec[] {
     yTitle: 'speed, km/h',
     yDomain: [Math.max(0, paddedDomain(speedMin, speedMax)[0]), paddedDomain(speedMin, speedMax)[1]],
     height: 210,
-    series: driver ? [refSeries(reference.speedKph), drvSeries(driver.speedKph)] : [refSeries(reference.speedKph)],
+    series: speedSeries,
     ...(speedRange.length > 0 ? { ranges: speedRange } : {}),
+    rescaleKeys: ['vR', 'vD', 'vO', 'vLo', 'vHi'],
   });
 
   if (driver) {
-    const [deltaMin, deltaMax] = range([driver.deltaS]);
+    const [deltaMin, deltaMax] = range([driver.deltaS, other?.driverDeltaS]);
+    const deltaSeries: DistanceSeries[] = [
+      {
+        label: other ? 'driver − reference' : 'driver − reference (+ = slower)',
+        colour: PALETTE.delta,
+        values: driver.deltaS,
+        // With two deltas the lines alone read more clearly than two overlapping fills.
+        fillToZero: !other,
+        width: 1.8,
+      },
+    ];
+    if (other)
+      deltaSeries.push({
+        label: `driver − ${other.label}`,
+        colour: PALETTE.other,
+        values: other.driverDeltaS,
+        width: 1.5,
+      });
     charts.push({
       ...base,
       name: 'delta',
-      title: 'Time delta (driver − reference)',
+      title: other ? 'Time delta of the driver (+ = slower)' : 'Time delta (driver − reference)',
       yTitle: 'delta, s',
       yDomain: paddedDomain(Math.min(0, deltaMin), Math.max(0, deltaMax), 0.08),
       height: 150,
-      series: [
-        {
-          label: 'driver − reference (+ = slower)',
-          colour: PALETTE.delta,
-          values: driver.deltaS,
-          fillToZero: true,
-          width: 1.8,
-        },
-      ],
+      series: deltaSeries,
       guides: [0],
+      rescaleKeys: ['dt', 'dtO'],
+      rescaleWithZero: true,
     });
   }
 
@@ -123,9 +155,13 @@ function distanceCharts(model: ReportModel): DistanceChartSpec[] {
   if (driver) {
     if (driver.throttlePct) pedalSeries.push(drvSeries(driver.throttlePct, 'driver'));
     if (driver.brakePct) pedalSeries.push({ ...drvSeries(negated(driver.brakePct)), label: '' });
+    if (other?.throttlePct) pedalSeries.push(othSeries(other.throttlePct));
+    if (other?.brakePct) pedalSeries.push({ ...othSeries(negated(other.brakePct)), label: '' });
     if (!driver.throttlePct && !driver.brakePct) note = 'the driver’s log has no pedal channels';
     else if (!driver.throttlePct || !driver.brakePct)
       note = `the driver’s log has no ${driver.throttlePct ? 'brake' : 'throttle'} channel`;
+    if (other && !other.throttlePct && !other.brakePct)
+      note = [note, `${other.label} has no pedal channels`].filter(Boolean).join('; ');
   }
   // Throttle is the share of the engine's drive in use; an upshift's gap in drive is shaded, not drawn as a lift.
   const shiftSpans = reference.shift ? stateSpans(reference.shift, model.stationM, base.stepM, PALETTE.shiftShade) : [];
@@ -173,6 +209,7 @@ function distanceCharts(model: ReportModel): DistanceChartSpec[] {
       { label: 'over', colour: '#f5e1ec', mark: 'swatch' },
       { label: 'power-limited (reference)', colour: PALETTE.powerLimitedShade, mark: 'swatch' },
     ],
+    rescaleKeys: ['gR', 'gD'],
   });
   return charts;
 }
@@ -189,6 +226,8 @@ function allCharts(model: ReportModel, options: SvgOptions): ChartSvg[] {
     { name: 'track-map.svg', title: 'Track map', svg: trackMapSvg(model, options) },
     { name: 'g-g.svg', title: 'g-g diagram', svg: ggDiagramSvg(model, options) },
   ];
+  if (model.other)
+    charts.push({ name: 'gain-map.svg', title: 'Gain and loss map', svg: trackMapSvg(model, options, 'gain') });
   for (const spec of distanceCharts(model))
     charts.push({ name: `${spec.name}.svg`, title: spec.title, svg: distanceChartSvg(spec, options) });
   return charts;
@@ -207,6 +246,22 @@ function rounded(values: ArrayLike<number> | null | undefined, indices: number[]
   });
 }
 
+/** One lap's hover values under the page data's short names (speed, throttle, brake, grip use, accelerations). */
+function lapSeries(
+  who: 'R' | 'D' | 'O',
+  lap: (Partial<LapChannels> & OtherLapChannels) | null,
+  indices: number[],
+): Record<string, number[] | null> {
+  return {
+    [`v${who}`]: rounded(lap?.speedKph, indices, 1),
+    [`t${who}`]: rounded(lap?.throttlePct, indices, 0),
+    [`b${who}`]: rounded(lap?.brakePct, indices, 0),
+    ...(who === 'O' ? {} : { [`g${who}`]: rounded(lap?.gripUsePct, indices, 0) }),
+    [`ax${who}`]: rounded(lap?.axG, indices, 2),
+    [`ay${who}`]: rounded(lap?.ayG, indices, 2),
+  };
+}
+
 function pageData(model: ReportModel): unknown {
   const count = model.stationM.length;
   const indices = strideIndices(count, Math.ceil(count / MAX_HOVER_POINTS));
@@ -218,7 +273,8 @@ function pageData(model: ReportModel): unknown {
     mapX.push(x);
     mapY.push(y);
   }
-  const { reference: r, driver: d } = model;
+  const { reference: r, driver: d, other: o } = model;
+  const band = model.input.uncertainty?.speedMps;
   const { frame } = ggFrame(model);
   return {
     lengthM: model.lengthM,
@@ -231,19 +287,13 @@ function pageData(model: ReportModel): unknown {
       pxPerG: Math.round(frame.pxPerG * 1000) / 1000,
     },
     series: {
-      vR: rounded(r.speedKph, indices, 1),
-      tR: rounded(r.throttlePct, indices, 0),
-      bR: rounded(r.brakePct, indices, 0),
-      gR: rounded(r.gripUsePct, indices, 0),
-      axR: rounded(r.axG, indices, 2),
-      ayR: rounded(r.ayG, indices, 2),
-      vD: rounded(d?.speedKph, indices, 1),
-      tD: rounded(d?.throttlePct, indices, 0),
-      bD: rounded(d?.brakePct, indices, 0),
-      gD: rounded(d?.gripUsePct, indices, 0),
-      axD: rounded(d?.axG, indices, 2),
-      ayD: rounded(d?.ayG, indices, 2),
+      ...lapSeries('R', r, indices),
+      ...lapSeries('D', d, indices),
       dt: rounded(d?.deltaS, indices, 3),
+      ...lapSeries('O', o, indices),
+      dtO: rounded(o?.driverDeltaS, indices, 3),
+      vLo: rounded(band ? band.low.map(mpsToKph) : null, indices, 1),
+      vHi: rounded(band ? band.high.map(mpsToKph) : null, indices, 1),
     },
     corners: model.corners.map((corner) => {
       const [from, to] = cornerRangeM(corner, model.lengthM);
@@ -259,13 +309,17 @@ function pageData(model: ReportModel): unknown {
 
 function readoutHtml(model: ReportModel): string {
   const cell = (name: string) => `<td data-field="${name}">–</td>`;
-  const row = (label: string, who: 'R' | 'D', className: string) =>
-    `<tr><th class="${className}">${label}</th>${['speed', 'throttle', 'brake', 'grip', 'accel'].map((field) => cell(field + who)).join('')}</tr>`;
+  const row = (label: string, who: 'R' | 'D' | 'O', className: string) =>
+    `<tr><th class="${className}">${escapeHtml(label)}</th>${['speed', 'throttle', 'brake', 'grip', 'accel'].map((field) => cell(field + who)).join('')}</tr>`;
   const head = '<tr><th></th><th>speed</th><th>throttle</th><th>brake</th><th>grip use</th><th>long / lat</th></tr>';
-  const distanceRow = `<tr><th>distance</th>${cell('distance')}${model.driver ? `<th>delta</th>${cell('delta')}` : ''}</tr>`;
+  const other = model.other;
+  const deltas = model.driver
+    ? `<th>delta${other ? ' to reference' : ''}</th>${cell('delta')}${other ? `<th>to ${escapeHtml(other.label)}</th>${cell('deltaO')}` : ''}`
+    : '';
+  const distanceRow = `<tr><th>distance</th>${cell('distance')}${deltas}</tr>`;
   return (
     `<table class="readout" id="readout" aria-live="off"><thead>${head}</thead><tbody>${row('reference', 'R', 'who-r')}` +
-    `${model.driver ? row('driver', 'D', 'who-d') : ''}</tbody></table>` +
+    `${model.driver ? row('driver', 'D', 'who-d') : ''}${other ? row(other.label, 'O', 'who-o') : ''}</tbody></table>` +
     `<table class="readout"><tbody>${distanceRow}</tbody></table>`
   );
 }
@@ -274,24 +328,29 @@ function readoutHtml(model: ReportModel): string {
 export function lapReportHtml(input: ReportInput): string {
   const model = reportModel(input);
   const options: SvgOptions = { standalone: false };
-  const [mapSvg, ggSvg, ...distanceSvgs] = allCharts(model, options);
+  const charts = allCharts(model, options);
+  const [mapSvg, ggSvg] = charts;
+  const gainSvg = charts.find((chart) => chart.name === 'gain-map.svg');
+  const distanceSvgs = charts.slice(gainSvg ? 3 : 2);
   const reference = input.reference;
   const trackName = reference.track.name;
+  const other = model.other;
   const title = input.comparison
-    ? `Lap report: ${trackName} · ${input.carName} · driver against reference`
+    ? `Lap report: ${trackName} · ${input.carName} · driver against ${other ? `${other.label} and the ` : ''}reference`
     : `Reference lap: ${trackName} · ${input.carName}`;
   const subtitle = input.comparison
-    ? `${input.comparison.driver.source}, lap ${input.comparison.driver.lapNumber}, against the reference lap of the ${reference.envelopeKind} model`
+    ? `${input.comparison.driver.source}, lap ${input.comparison.driver.lapNumber}, against ${other ? `${other.label} and ` : ''}the reference lap of the ${reference.envelopeKind} model`
     : `Reference lap of the ${reference.envelopeKind} model, grid step ${reference.track.stepM.toFixed(2)} m`;
   const main = `<section class="overview">
 <div class="panel">${mapSvg!.svg}</div>
+${gainSvg ? `<div class="panel">${gainSvg.svg}</div>` : ''}
 <div class="panel">${ggSvg!.svg}</div>
 </section>
 <div class="controls"><div class="controls-inner"><div class="view">View: <span id="zoom-label">whole lap</span> <button type="button" id="zoom-reset" disabled>Whole lap</button></div>${readoutHtml(model)}</div></div>
 <section class="panel stack" aria-label="Channels against distance">
 ${distanceSvgs.map((chart) => chart.svg).join('\n')}
 </section>
-<section class="panel">${cornerTableHtml(model)}</section>
+${model.other ? `<section class="panel">${againstTableHtml(model)}</section>\n<section class="panel">${againstFindingsHtml(model)}</section>\n` : ''}<section class="panel">${cornerTableHtml(model)}</section>
 ${input.comparison ? `<section class="panel">${findingsHtml(model)}</section>` : ''}`;
   const hoverStepM = (Math.max(1, Math.ceil(reference.trace.count / MAX_HOVER_POINTS)) * reference.track.stepM).toFixed(
     1,

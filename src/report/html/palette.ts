@@ -16,6 +16,12 @@ export const OKABE_ITO = {
 export const PALETTE = {
   reference: OKABE_ITO.blue,
   driver: OKABE_ITO.vermillion,
+  /** The second lap of a lap-against-lap page. */
+  other: OKABE_ITO.black,
+  /** Where the driver gains or loses time against the chosen lap, and where the two are even. */
+  gain: OKABE_ITO.bluishGreen,
+  loss: OKABE_ITO.vermillion,
+  even: '#c4c4c4',
   delta: OKABE_ITO.reddishPurple,
   carEnvelope: OKABE_ITO.black,
   demonstratedEnvelope: OKABE_ITO.bluishGreen,

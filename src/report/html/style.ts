@@ -27,6 +27,7 @@ svg.chart { display: block; width: 100%; height: auto; }
 .readout th { font-weight: 500; }
 .who-r { color: #0072B2; }
 .who-d { color: #D55E00; }
+.who-o { color: #000000; }
 button { font: inherit; cursor: pointer; border: 1px solid #8a8a90; background: var(--paper); border-radius: 6px; padding: 3px 10px; }
 button:disabled { cursor: default; color: #9a9aa0; border-color: var(--line); }
 #zoom-label { font-weight: 600; }

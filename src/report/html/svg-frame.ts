@@ -62,7 +62,8 @@ export function legendRow(items: LegendItem[], rightX: number, y: number): strin
   return out + '</g>';
 }
 
-/** Horizontal grid lines with labels at round values, and the axis title turned upright at the left. */
+/** Horizontal grid lines with labels at round values, and the axis title turned upright at the left. The grid
+ * and labels sit in their own group (`.y-ticks`), which the page's script redraws when a zoom rescales the axis. */
 export function yAxis(
   scale: LinearScale,
   left: number,
@@ -71,16 +72,29 @@ export function yAxis(
   format: (value: number) => string,
   tickCount = 4,
 ): string {
+  const middle = coord((scale.range[0] + scale.range[1]) / 2);
+  return (
+    `<g class="y-axis"><g class="y-ticks">${yTicks(scale, left, right, format, tickCount)}</g>` +
+    `<text transform="translate(14 ${middle}) rotate(-90)" text-anchor="middle" fill="${PALETTE.axis}">${escapeHtml(title)}</text></g>`
+  );
+}
+
+/** The grid lines and tick labels of a y axis alone. */
+export function yTicks(
+  scale: LinearScale,
+  left: number,
+  right: number,
+  format: (value: number) => string,
+  tickCount = 4,
+): string {
   const [d0, d1] = scale.domain;
-  let out = '<g class="y-axis">';
+  let out = '';
   for (const tick of niceTicks(Math.min(d0, d1), Math.max(d0, d1), tickCount)) {
     const y = coord(scale(tick));
     out += `<line x1="${left}" x2="${right}" y1="${y}" y2="${y}" stroke="${tick === 0 ? '#b8b8b8' : PALETTE.grid}"/>`;
     out += `<text x="${left - 6}" y="${y}" dy="0.32em" text-anchor="end" fill="${PALETTE.axis}">${escapeHtml(format(tick))}</text>`;
   }
-  const middle = coord((scale.range[0] + scale.range[1]) / 2);
-  out += `<text transform="translate(14 ${middle}) rotate(-90)" text-anchor="middle" fill="${PALETTE.axis}">${escapeHtml(title)}</text>`;
-  return out + '</g>';
+  return out;
 }
 
 /** Tick marks and labels under a plot at round values, and the axis title at the right end below them. */

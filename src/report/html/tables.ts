@@ -4,18 +4,11 @@
 import { formatLapTime, mpsToKph } from '../../units.js';
 import { escapeHtml } from './escape.js';
 import type { ReportModel } from './model.js';
+import { againstTilesHtml } from './against-tables.js';
+import { cornerCell, fixed, signed, tile } from './cells.js';
+
+export { tile } from './cells.js';
 import type { UncertainFinding } from '../../uncertainty/uncertain-reference.js';
-
-const fixed = (value: number | null | undefined, digits: number): string =>
-  value === null || value === undefined || !Number.isFinite(value) ? '–' : value.toFixed(digits);
-const signed = (value: number | null | undefined, digits: number): string =>
-  value === null || value === undefined || !Number.isFinite(value)
-    ? '–'
-    : `${value > 0 ? '+' : value < 0 ? '−' : '±'}${Math.abs(value).toFixed(digits)}`;
-
-export function tile(label: string, value: string, note = ''): string {
-  return `<div class="tile"><div class="tile-label">${escapeHtml(label)}</div><div class="tile-value">${escapeHtml(value)}</div>${note ? `<div class="tile-note">${escapeHtml(note)}</div>` : ''}</div>`;
-}
 
 export function summaryHtml(model: ReportModel): string {
   const reference = model.input.reference;
@@ -46,6 +39,7 @@ export function summaryHtml(model: ReportModel): string {
       ),
     );
   }
+  tiles.push(againstTilesHtml(model));
   tiles.push(tile('Top speed', `${mpsToKph(reference.maxSpeedMps).toFixed(1)} km/h`, 'reference'));
   tiles.push(tile('Lowest speed', `${mpsToKph(reference.minSpeedMps).toFixed(1)} km/h`, 'reference'));
   tiles.push(
@@ -56,10 +50,6 @@ export function summaryHtml(model: ReportModel): string {
     ),
   );
   return `<section class="summary" aria-label="Lap summary">${tiles.join('')}</section>`;
-}
-
-function cornerCell(id: number | string, name: string | null): string {
-  return `<td class="corner-id"><span class="badge">${id}</span>${name ? ` ${escapeHtml(name)}` : ''}</td>`;
 }
 
 export function cornerTableHtml(model: ReportModel): string {

@@ -97,7 +97,56 @@ function colouredPath(
   return out;
 }
 
-export function trackMapSvg(model: ReportModel, options: SvgOptions): string {
+/** What the map colours the lap by: the tyres' grip use, or where the driver gains or loses against the other lap. */
+export type MapColouring = 'grip' | 'gain';
+
+/** The driver's delta to the other lap is compared between the GAIN_WINDOW_M before a point and the GAIN_WINDOW_M
+ * after it (the mean over each, so that a logged clock's jitter does not speckle the map); a change within
+ * GAIN_EVEN_S counts as even. */
+export const GAIN_WINDOW_M = 30;
+export const GAIN_EVEN_S = 0.01;
+
+type GainClass = 'gain' | 'loss' | 'even';
+const GAIN_COLOUR: Record<GainClass, string> = { gain: PALETTE.gain, loss: PALETTE.loss, even: PALETTE.even };
+
+/** Each drawn point's class: the mean of the driver's delta to the other lap over the window after it, minus the
+ * mean over the window before it. The windows stop at the ends of the lap (the delta restarts at the line). */
+export function gainClasses(deltaS: ArrayLike<number>, indices: number[], stepM: number): GainClass[] {
+  const n = deltaS.length;
+  const half = Math.max(1, Math.round(GAIN_WINDOW_M / stepM));
+  const prefix = new Float64Array(n + 1);
+  for (let i = 0; i < n; i++) prefix[i + 1] = prefix[i]! + (Number.isFinite(deltaS[i]!) ? deltaS[i]! : 0);
+  const mean = (from: number, to: number) => (prefix[to + 1]! - prefix[from]!) / (to - from + 1);
+  return indices.map((i) => {
+    const before = mean(Math.max(0, i - half), i);
+    const after = mean(i, Math.min(n - 1, i + half));
+    const change = after - before;
+    return change > GAIN_EVEN_S ? 'loss' : change < -GAIN_EVEN_S ? 'gain' : 'even';
+  });
+}
+
+function gainPath(
+  indices: number[],
+  classes: GainClass[],
+  xs: ArrayLike<number>,
+  ys: ArrayLike<number>,
+  map: MapProjection,
+): string {
+  let out = '';
+  let k = 0;
+  while (k < indices.length) {
+    const cls = classes[k]!;
+    const run = [indices[k]!];
+    while (k + 1 < indices.length && classes[k + 1] === cls) run.push(indices[++k]!);
+    if (k + 1 < indices.length) run.push(indices[k + 1]!);
+    k++;
+    if (run.length > 1)
+      out += `<path class="gain-${cls}" d="${polyline(run, xs, ys, map)}" fill="none" stroke="${GAIN_COLOUR[cls]}" stroke-width="4" stroke-linecap="round" stroke-linejoin="round"/>`;
+  }
+  return out;
+}
+
+export function trackMapSvg(model: ReportModel, options: SvgOptions, colouring: MapColouring = 'grip'): string {
   const { track } = model.input.reference;
   const map = mapProjection(model);
   const count = model.stationM.length;
@@ -113,20 +162,33 @@ export function trackMapSvg(model: ReportModel, options: SvgOptions): string {
     widthM = sum / count;
   }
   const surfaceWidth = Math.max(6, widthM * map.pxPerM);
-  let body = `<text class="chart-title" x="14" y="18" font-size="13" font-weight="600">Track map</text>`;
+  const other = colouring === 'gain' ? model.other : null;
+  if (colouring === 'gain' && !other) throw new Error('track map: a gain map needs a lap to set the driver against');
+  const title = other ? `Gain and loss against ${other.label}` : 'Track map';
+  let body = `<text class="chart-title" x="14" y="18" font-size="13" font-weight="600">${escapeHtml(title)}</text>`;
   const classes: GripClass[] = driverHasPath ? ['unused', 'near', 'over'] : ['unused', 'power', 'near', 'over'];
-  const legend: LegendItem[] = classes.map((cls) => ({
-    label: GRIP_CLASS_LABEL[cls],
-    colour: GRIP_CLASS_COLOUR[cls],
-  }));
+  const legend: LegendItem[] = other
+    ? [
+        { label: 'driver gains', colour: PALETTE.gain },
+        { label: 'loses', colour: PALETTE.loss },
+        { label: `even (within ${GAIN_EVEN_S} s per ${GAIN_WINDOW_M} m)`, colour: PALETTE.even },
+      ]
+    : classes.map((cls) => ({ label: GRIP_CLASS_LABEL[cls], colour: GRIP_CLASS_COLOUR[cls] }));
   body += legendRow(legend, MAP_WIDTH - 10, 36);
-  const subject = driverHasPath
-    ? 'driver’s path coloured by grip use; reference line in black'
-    : 'reference line coloured by grip use';
+  const path = driverHasPath ? 'driver’s path' : 'reference line';
+  const subject = other
+    ? `${path} coloured by the driver’s time to ${other.label}`
+    : driverHasPath
+      ? 'driver’s path coloured by grip use; reference line in black'
+      : 'reference line coloured by grip use';
   body += `<text x="${MAP_WIDTH - 10}" y="52" text-anchor="end" fill="${PALETTE.axis}">${escapeHtml(subject)}</text>`;
   body += `<path class="track-surface" d="${polyline(indices, track.xM, track.yM, map)}" fill="none" stroke="${PALETTE.trackSurface}" stroke-width="${coord(surfaceWidth)}" stroke-linejoin="round" stroke-linecap="round"/>`;
   const reference = model.reference;
-  if (driver && driverHasPath) {
+  if (other) {
+    const xs = driverHasPath ? driver!.xM! : reference.xM!;
+    const ys = driverHasPath ? driver!.yM! : reference.yM!;
+    body += gainPath(indices, gainClasses(other.driverDeltaS, indices, track.stepM), xs, ys, map);
+  } else if (driver && driverHasPath) {
     body += colouredPath(indices, driver.xM!, driver.yM!, driver.gripUsePct, map, 4);
     body += `<path class="reference-line" d="${polyline(indices, reference.xM!, reference.yM!, map)}" fill="none" stroke="#111" stroke-width="1.2" stroke-linejoin="round"/>`;
   } else {
@@ -171,7 +233,15 @@ export function trackMapSvg(model: ReportModel, options: SvgOptions): string {
   body += `<circle class="map-dot" cx="0" cy="0" r="5.5" fill="#111" stroke="#fff" stroke-width="2" visibility="hidden"/>`;
   body += `<text x="14" y="${MAP_HEIGHT - 10}" fill="${PALETTE.axis}">${escapeHtml(scaleBarLabel(map.pxPerM))}</text>`;
   body += scaleBar(map.pxPerM);
-  return svgElement('map', MAP_WIDTH, MAP_HEIGHT, body, options, 'Track map with the corners numbered');
+  return svgElement(
+    other ? 'map-gain' : 'map',
+    MAP_WIDTH,
+    MAP_HEIGHT,
+    body,
+    options,
+    other ? `${title}, the corners numbered` : 'Track map with the corners numbered',
+    ' data-track-map=""',
+  );
 }
 
 function scaleBarLengthM(pxPerM: number): number {
