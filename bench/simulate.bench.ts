@@ -1,4 +1,4 @@
-// Benchmark of the core solver: one lap of a 5 km circuit at 1 m and 0.25 m step, median of 20 runs after warm-up.
+// Benchmark of the core solver: one lap of a 5 km circuit at 1 m and 0.25 m step, median of 40 runs after 20 of warm-up (the JIT settles).
 // Issue 18's targets at 1 m: simulate with every channel under 0.8 ms for a point-mass car without gears and under
 // 1.0 ms with gears, the lap-time mode (lap time and braking points) under 0.5 ms, and reflap within 2.5 times a
 // plain reference of the same passes written below in tight JavaScript (Brayshaw and Harrison's method, the point
@@ -194,8 +194,8 @@ function roadCost(
   const hilly = lapOf(benchmarkCircuitSegments3d());
   let flatLapS = 0;
   let hillyLapS = 0;
-  const flatTiming = medianTimes(() => (flatLapS = simulate(flat, car, { ambient, envelope }).lapTimeS), 20, 5);
-  const hillyTiming = medianTimes(() => (hillyLapS = simulate(hilly, car, { ambient, envelope }).lapTimeS), 20, 5);
+  const flatTiming = medianTimes(() => (flatLapS = simulate(flat, car, { ambient, envelope }).lapTimeS), 40, 20);
+  const hillyTiming = medianTimes(() => (hillyLapS = simulate(hilly, car, { ambient, envelope }).lapTimeS), 40, 20);
   process.stdout.write(
     `simulate 3D: flat ${flatTiming.wallMs.toFixed(2)} ms wall / ${flatTiming.cpuMs.toFixed(2)} ms CPU (lap ${flatLapS.toFixed(3)} s); ` +
       `grades and banks ${hillyTiming.wallMs.toFixed(2)} ms wall / ${hillyTiming.cpuMs.toFixed(2)} ms CPU (lap ${hillyLapS.toFixed(3)} s)\n`,
@@ -216,9 +216,9 @@ function againstTargets(name: string, fullTargetMs: number, ambient: Ambient): v
   let fullS = 0;
   let quickS = 0;
   let plainS = 0;
-  const full = medianTimes(() => (fullS = simulate(track, car, { ambient, envelope }).lapTimeS), 20, 5);
-  const quick = medianTimes(() => (quickS = simulateLapTime(track, car, { ambient, envelope }).lapTimeS), 20, 5);
-  const plain = medianTimes(() => (plainS = plainLapTimeS(track, car, ambient)), 20, 5);
+  const full = medianTimes(() => (fullS = simulate(track, car, { ambient, envelope }).lapTimeS), 40, 20);
+  const quick = medianTimes(() => (quickS = simulateLapTime(track, car, { ambient, envelope }).lapTimeS), 40, 20);
+  const plain = medianTimes(() => (plainS = plainLapTimeS(track, car, ambient)), 40, 20);
   const gears = car.powertrain.gearing ? 'with gears' : 'no gears';
   process.stdout.write(
     `${name} (${gears}), 5 km at 1 m: simulate ${full.wallMs.toFixed(2)} ms wall / ${full.cpuMs.toFixed(2)} ms CPU (lap ${fullS.toFixed(4)} s); ` +

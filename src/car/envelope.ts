@@ -10,6 +10,10 @@ export interface Envelope {
   readonly topSpeedMps: number;
   /** Pure lateral limit at this speed, m/s^2; side > 0 for a left turn, < 0 for a right turn. */
   lateralLimitMps2(speedMps: number, side: number, loadFactor?: number): number;
+  /** Where the model has a closed form for it: the largest v^2 at which a lateral demand d0 + d1 v^2 (signed, m/s^2)
+   * fits lateralLimitMps2 under a load factor l0 + l1 v^2, to rounding; null where the closed form does not apply.
+   * The solver settles the last units in the last place against lateralLimitMps2 itself. */
+  cornerSpeedSquaredEstimate?(load0: number, loadPerV2: number, demand0: number, demandPerV2: number): number | null;
   /** Largest net forward acceleration at this speed while using lateralMps2 (signed) for turning, m/s^2;
    * net of drag and rolling resistance, so it may be negative near top speed. */
   accelLimitMps2(speedMps: number, lateralMps2: number, loadFactor?: number): number;

@@ -28,7 +28,14 @@ export function combinedShare(longShare: number, latShare: number, exponent: num
   const a = Math.abs(longShare);
   const b = Math.abs(latShare);
   if (exponent === 2) return Math.sqrt(a * a + b * b);
-  return powerOf(powerOf(a, exponent) + powerOf(b, exponent), 1 / exponent);
+  // One share alone is its own combination (a straight, or a steady corner at constant speed).
+  if (b === 0) return a;
+  if (a === 0) return b;
+  // (a^n + b^n)^(1/n) = big (1 + (small/big)^n)^(1/n): two powers instead of three, and no overflow.
+  const big = a > b ? a : b;
+  const small = a > b ? b : a;
+  if (big === Infinity) return Infinity;
+  return big * powerOf(1 + powerOf(small / big, exponent), 1 / exponent);
 }
 
 /** Friction coefficient under load: falls linearly with the load above the static load (tyre load sensitivity). */
@@ -101,10 +108,39 @@ export function pointMassEnvelope(car: Car, ambient: Ambient): Envelope {
     return Math.min(tyre, drive.forceN(speedMps) / massKg) - coastOf(speedMps, loadN);
   };
 
+  // Corner speed in closed form. With x = v^2, a load factor l0 + l1 x and a lateral demand d0 + d1 x (both linear
+  // in x on flat and three-dimensional roads alike), the normal load N = W (l0 + l1 x) + L x is linear in x and the
+  // lateral limit muLat (1 - s (N - W) / W) N / m is a concave quadratic in x, so each side of |demand| <= limit is
+  // a concave quadratic >= 0 and the limit is the lower of their positive roots, each taken in the form that does
+  // not cancel. Outside the load and mu floors the solver searches instead.
+  const lateralPerN = muLat / massKg;
+  const upperRoot = (a: number, b: number, c: number): number => {
+    if (!(c > 0)) return NaN;
+    const root = Math.sqrt(b * b - 4 * a * c);
+    if (b < 0) return (2 * c) / (root - b);
+    return a < 0 ? (b + root) / (-2 * a) : Infinity;
+  };
+  const cornerSpeedSquaredEstimate = (load0: number, loadPerV2: number, demand0: number, demandPerV2: number) => {
+    const n0 = weightN * load0;
+    const n1 = weightN * loadPerV2 + liftN;
+    const shrink = sensitivity / weightN;
+    const a = -lateralPerN * shrink * n1 * n1;
+    const b = lateralPerN * ((1 + sensitivity) * n1 - 2 * shrink * n0 * n1);
+    const c = lateralPerN * ((1 + sensitivity) * n0 - shrink * n0 * n0);
+    const x = Math.min(upperRoot(a, b - demandPerV2, c - demand0), upperRoot(a, b + demandPerV2, c + demand0));
+    if (!(x >= 0) || (loadPerV2 < 0 && load0 + loadPerV2 * x <= 0)) return null;
+    // The load floor and the mu floor (linear in x) must hold over [0, x].
+    for (const loadN of [n0, n0 + n1 * x])
+      if (!(loadN >= 0.1 * weightN) || (sensitivity !== 0 && 1 - (sensitivity * (loadN - weightN)) / weightN < 0.2))
+        return null;
+    return x;
+  };
+
   return {
     kind: 'point-mass',
     topSpeedMps: topSpeedOf(accelLimitMps2),
     lateralLimitMps2,
+    cornerSpeedSquaredEstimate,
     accelLimitMps2,
     brakeLimitMps2(speedMps, lateralMps2, load = 1) {
       const loadN = normalLoadN(speedMps, load);

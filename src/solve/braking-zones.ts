@@ -40,7 +40,13 @@ export function findBrakingZones(
     if (origin === n) return [];
   }
   const zones: BrakingZone[] = [];
-  const index = (k: number) => (closed ? (origin + k) % n : k);
+  // k counts from the origin and stays below three laps (a zone's scan runs at most a lap past its start).
+  const index = (k: number) => {
+    if (!closed) return k;
+    let i = origin + k;
+    while (i >= n) i -= n;
+    return i;
+  };
   let k = 0;
   while (k < n) {
     if (!on(index(k))) {

@@ -89,6 +89,7 @@ export function lapChannels(
   shift: Uint8Array = new Uint8Array(speedMps.length),
 ): { trace: LapTrace; lapTimeS: number; lengthM: number } {
   const n = speedMps.length;
+  const closed = path.closed;
   const kappa = path.curvaturePerM;
   const ds = path.segmentLengthM;
   const distanceM = new Float64Array(n);
@@ -104,7 +105,7 @@ export function lapChannels(
   let elapsedS = 0;
   let travelledM = 0;
   let ax = 0;
-  const segments = path.closed ? n : n - 1;
+  const segments = closed ? n : n - 1;
   for (let i = 0; i < n; i++) {
     distanceM[i] = travelledM;
     timeS[i] = elapsedS;
@@ -133,7 +134,7 @@ export function lapChannels(
     if (g > 0) hasGears = true;
   }
   const trace: LapTrace = {
-    closed: path.closed,
+    closed,
     count: n,
     distanceM,
     stationM,

@@ -1,53 +1,128 @@
 // Corner-limit speed at each sample: the highest speed at which v^2 |kappa| fits within the envelope's
-// lateral limit at that speed (quasi-steady-state cornering, Brayshaw and Harrison 2005).
+// lateral limit at that speed (quasi-steady-state cornering, Brayshaw and Harrison 2005). An envelope with a closed
+// form for it (the point mass) gives it to rounding, and the last units in the last place are settled against the
+// limit itself, so the speed is the largest double that holds, as a search to rounding would find it; any other is
+// solved by the Illinois variant of regula falsi (Dowell and Jarratt, BIT 11 (1971) 168-174) on a bracket.
 
 import type { Envelope } from '../car/envelope.js';
 import { roadLateralMps2, roadLoadFactor, type RoadTerms } from './road-terms.js';
+import { STANDARD_GRAVITY_MPS2 as G } from '../units.js';
 
 const CURVATURE_FLOOR_PER_M = 1e-7;
+/** The bracket is closed to this share of the speed (a few hundred units in the last place). */
+const ROOT_TOLERANCE = 1e-13;
+const MAX_STEPS = 100;
+/** v +- v 2^-53 is the neighbouring double (half to one unit in the last place, rounded to the nearest). */
+const HALF_EPSILON = Number.EPSILON / 2;
+const SETTLE_STEPS = 8;
 
-/** Largest speed with v^2 |kappa| <= lateral limit(v), by bisection on [0, top speed]. */
+/** The largest double near sqrt(squared) at which `holds` is true, or null if it is not within a few units. */
+function settled(squared: number | null | undefined, holds: (speedMps: number) => boolean): number | null {
+  if (squared === null || squared === undefined || !(squared < Infinity)) return null;
+  let v = Math.sqrt(squared);
+  for (let k = 0; k < SETTLE_STEPS && !holds(v); k++) v -= v * HALF_EPSILON;
+  for (let k = 0; k < SETTLE_STEPS; k++) {
+    const up = v + v * HALF_EPSILON;
+    if (!holds(up)) break;
+    v = up;
+  }
+  return holds(v) ? v : null;
+}
+
+/**
+ * Largest speed in [0, top] where `margin` (>= 0 where the speed holds, falling through zero once) is still >= 0,
+ * given margin(0) >= 0 > margin(top): Illinois regula falsi on the bracket, then the last holding end.
+ */
+function largestHolding(margin: (speedMps: number) => number, topMps: number, topMargin: number, zeroMargin: number) {
+  let lo = 0;
+  let hi = topMps;
+  let fLo = zeroMargin;
+  let fHi = topMargin;
+  let kept = 0;
+  for (let k = 0; k < MAX_STEPS && hi - lo > ROOT_TOLERANCE * hi; k++) {
+    let mid = hi - (fHi * (hi - lo)) / (fHi - fLo);
+    // A margin that is not finite or a step that lands on an end falls back to halving.
+    if (!(mid > lo && mid < hi)) mid = 0.5 * (lo + hi);
+    const fMid = margin(mid);
+    if (fMid >= 0) {
+      lo = mid;
+      fLo = fMid;
+      if (kept === 1) fHi *= 0.5;
+      kept = 1;
+    } else {
+      hi = mid;
+      fHi = fMid;
+      if (kept === -1) fLo *= 0.5;
+      kept = -1;
+    }
+  }
+  return lo;
+}
+
+/** Largest speed with v^2 |kappa| <= lateral limit(v), on [0, top speed]. */
 export function cornerLimitSpeedMps(envelope: Envelope, curvaturePerM: number): number {
   const top = envelope.topSpeedMps;
   const kappa = Math.abs(curvaturePerM);
   if (kappa < CURVATURE_FLOOR_PER_M) return top;
   const side = curvaturePerM >= 0 ? 1 : -1;
-  if (top * top * kappa <= envelope.lateralLimitMps2(top, side)) return top;
-  // Start from the limit without downforce's speed dependence, then bracket.
-  let lo = 0;
-  let hi = top;
-  for (let k = 0; k < 40; k++) {
-    const mid = 0.5 * (lo + hi);
-    if (mid * mid * kappa <= envelope.lateralLimitMps2(mid, side)) lo = mid;
-    else hi = mid;
-    if (hi - lo < 1e-6) break;
-  }
-  return lo;
+  const topMargin = envelope.lateralLimitMps2(top, side) - top * top * kappa;
+  if (topMargin >= 0) return top;
+  const closed = settled(
+    envelope.cornerSpeedSquaredEstimate?.(1, 0, 0, kappa),
+    (v) => v * v * kappa <= envelope.lateralLimitMps2(v, side),
+  );
+  if (closed !== null && closed <= top) return closed;
+  return largestHolding(
+    (v) => envelope.lateralLimitMps2(v, side) - v * v * kappa,
+    top,
+    topMargin,
+    envelope.lateralLimitMps2(0, side),
+  );
 }
 
-/** Whether speed v holds sample i of a three-dimensional road: tyres on the ground, lateral force within the limit. */
-function holdsOnRoad(envelope: Envelope, road: RoadTerms, i: number, v: number, curvaturePerM: number): boolean {
+/** How far within the lateral limit speed v holds sample i of a three-dimensional road (negative: it does not); -1
+ * where the tyres leave the ground. */
+function roadMargin(envelope: Envelope, road: RoadTerms, i: number, v: number, curvaturePerM: number): number {
   const v2 = v * v;
   const load = roadLoadFactor(road, i, v2, curvaturePerM);
-  if (!(load > 0)) return false;
+  if (!(load > 0)) return -1;
   const lateral = roadLateralMps2(road, i, v2, curvaturePerM);
-  return Math.abs(lateral) <= envelope.lateralLimitMps2(v, lateral >= 0 ? 1 : -1, load);
+  return envelope.lateralLimitMps2(v, lateral >= 0 ? 1 : -1, load) - Math.abs(lateral);
 }
 
-/** Largest speed that holds sample i of a three-dimensional road, by bisection on [0, top speed]. */
+/** Largest speed that holds sample i of a three-dimensional road, on [0, top speed]. */
 export function roadCornerLimitSpeedMps(envelope: Envelope, road: RoadTerms, i: number, curvaturePerM: number): number {
+  // A level, unbanked sample without vertical curvature is flat ground: the same limit, the same way.
+  if (
+    road.gravityNormalShare[i] === 1 &&
+    road.sinBank[i] === 0 &&
+    road.verticalCurvaturePerM[i] === 0 &&
+    road.gravityLateralMps2[i] === 0
+  )
+    return cornerLimitSpeedMps(envelope, curvaturePerM);
   const top = envelope.topSpeedMps;
-  if (holdsOnRoad(envelope, road, i, top, curvaturePerM)) return top;
+  const topMargin = roadMargin(envelope, road, i, top, curvaturePerM);
+  if (topMargin >= 0) return top;
+  const sinBank = road.sinBank[i]!;
+  const cosBank = road.cosBank[i]!;
+  const verticalPerM = road.verticalCurvaturePerM[i]!;
+  const closed = settled(
+    envelope.cornerSpeedSquaredEstimate?.(
+      road.gravityNormalShare[i]!,
+      (curvaturePerM * sinBank + verticalPerM * cosBank) / G,
+      -road.gravityLateralMps2[i]!,
+      curvaturePerM * cosBank - verticalPerM * sinBank,
+    ),
+    (v) => roadMargin(envelope, road, i, v, curvaturePerM) >= 0,
+  );
+  if (closed !== null && closed <= top) return closed;
   // The car is taken to hold the road at rest (a bank within the tyres' grip: 45 degrees with mu >= 1).
-  let lo = 0;
-  let hi = top;
-  for (let k = 0; k < 60; k++) {
-    const mid = 0.5 * (lo + hi);
-    if (holdsOnRoad(envelope, road, i, mid, curvaturePerM)) lo = mid;
-    else hi = mid;
-    if (hi - lo < 1e-6) break;
-  }
-  return lo;
+  return largestHolding(
+    (v) => roadMargin(envelope, road, i, v, curvaturePerM),
+    top,
+    topMargin,
+    Math.max(0, roadMargin(envelope, road, i, 0, curvaturePerM)),
+  );
 }
 
 export function cornerLimitProfile(
@@ -61,6 +136,16 @@ export function cornerLimitProfile(
       out[i] = roadCornerLimitSpeedMps(envelope, road, i, curvaturePerM[i]!);
     return out;
   }
-  for (let i = 0; i < curvaturePerM.length; i++) out[i] = cornerLimitSpeedMps(envelope, curvaturePerM[i]!);
+  // An arc holds one curvature over many samples: its limit is solved once.
+  let lastKappa = NaN;
+  let lastLimit = 0;
+  for (let i = 0; i < curvaturePerM.length; i++) {
+    const kappa = curvaturePerM[i]!;
+    if (kappa !== lastKappa) {
+      lastKappa = kappa;
+      lastLimit = cornerLimitSpeedMps(envelope, kappa);
+    }
+    out[i] = lastLimit;
+  }
   return out;
 }

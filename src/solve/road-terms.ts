@@ -31,7 +31,7 @@ export function roadTerms(profile: RoadProfile): RoadTerms {
     gravityLateralMps2: new Float64Array(n),
     sinBank: new Float64Array(n),
     cosBank: new Float64Array(n),
-    verticalCurvaturePerM: Float64Array.from(profile.verticalCurvaturePerM),
+    verticalCurvaturePerM: profile.verticalCurvaturePerM.slice(),
   };
   for (let i = 0; i < n; i++) {
     const grade = profile.gradeRad[i]!;

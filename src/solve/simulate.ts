@@ -61,6 +61,7 @@ export interface LapTimeResult {
   /** Where the brakes come on and the slowest point after, as simulate() finds them (not yet matched to corners). */
   brakingZones: BrakingZone[];
   path: Path;
+  track: TrackGrid;
 }
 
 /**
@@ -77,7 +78,7 @@ export function simulateLapTime(track: TrackGrid, car: Car, options: SimulateOpt
     stationM: track.distanceM,
     brake,
   });
-  return { lapTimeS, lengthM, speedMps: profile.speedMps, brakingZones, path };
+  return { lapTimeS, lengthM, speedMps: profile.speedMps, brakingZones, path, track };
 }
 
 export function simulate(track: TrackGrid, car: Car, options: SimulateOptions = {}): LapResult {

@@ -55,8 +55,8 @@ function forwardPass(
   let speed = firstSpeedMps;
   let gear = envelope.gearAt(speed);
   let shiftLeftS = 0;
-  for (let k = 0; k < steps; k++) {
-    const i = path.closed ? (first + k) % n : k;
+  // Sample i walks on from `first` (0 on an open path) and wraps past the last sample of a closed lap.
+  for (let k = 0, i = path.closed ? first : 0; k < steps; k++, i = i + 1 === n ? 0 : i + 1) {
     const j = i + 1 === n ? 0 : i + 1;
     const lengthM = ds[i]!;
     let accel: number;
@@ -126,22 +126,24 @@ function brakingEntrySpeedMps(
   h: number,
 ): number {
   const exitSquared = exitSpeedMps * exitSpeedMps;
-  const residual = (speed: number) =>
-    Math.sqrt(Math.max(0, exitSquared + 2 * brakeLimitAt(envelope, speed, curvaturePerM, road, h) * lengthM)) - speed;
+  const twiceLengthM = 2 * lengthM;
   let lo = exitSpeedMps;
   let hi = Math.sqrt(
-    Math.max(0, exitSquared + 2 * brakeLimitAt(envelope, exitSpeedMps, curvaturePerM, road, h) * lengthM),
+    Math.max(0, exitSquared + twiceLengthM * brakeLimitAt(envelope, exitSpeedMps, curvaturePerM, road, h)),
   );
   let fLo = hi - lo;
-  let fHi = residual(hi);
-  if (fHi >= 0 || fLo <= 0) return hi;
+  if (fLo <= 0) return hi;
+  let fHi =
+    Math.sqrt(Math.max(0, exitSquared + twiceLengthM * brakeLimitAt(envelope, hi, curvaturePerM, road, h))) - hi;
+  if (fHi >= 0) return hi;
   // The Illinois variant of regula falsi (Dowell and Jarratt, BIT 11 (1971) 168-174): the end that stays put twice
   // running has its value halved, so both ends close in on the root, superlinearly, to rounding.
   let kept = 0;
   for (let k = 0; k < 100 && hi - lo > ROOT_TOLERANCE * hi; k++) {
     const mid = hi - (fHi * (hi - lo)) / (fHi - fLo);
     if (!(mid > lo && mid < hi)) break;
-    const fMid = residual(mid);
+    const fMid =
+      Math.sqrt(Math.max(0, exitSquared + twiceLengthM * brakeLimitAt(envelope, mid, curvaturePerM, road, h))) - mid;
     if (fMid > 0) {
       lo = mid;
       fLo = fMid;
@@ -158,6 +160,10 @@ function brakingEntrySpeedMps(
   return lo;
 }
 
+/**
+ * The backward pass from `last`, where the speed is `lastSpeedMps`, taking the lower of it and the forward pass into
+ * `speed` as it goes (a braking step also drops the forward pass's shift gap there, which never happens).
+ */
 function backwardPass(
   path: Path,
   envelope: Envelope,
@@ -166,19 +172,35 @@ function backwardPass(
   lastSpeedMps: number,
   out: Float64Array,
   road: RoadTerms | null,
+  shift: Uint8Array,
 ): void {
   const n = limit.length;
   const steps = path.closed ? n : n - 1;
   const kappa = path.curvaturePerM;
   const ds = path.segmentLengthM;
-  out[last] = lastSpeedMps;
+  if (lastSpeedMps < out[last]!) {
+    out[last] = lastSpeedMps;
+    shift[last] = 0;
+  }
   let speed = lastSpeedMps;
-  for (let k = 0; k < steps; k++) {
-    const i = path.closed ? (last - k + n) % n : n - 1 - k;
+  // Sample i walks back from `last` (the last sample on an open path) and wraps past the first of a closed lap.
+  for (let k = 0, i = path.closed ? last : n - 1; k < steps; k++, i = i === 0 ? n - 1 : i - 1) {
     const h = i === 0 ? n - 1 : i - 1;
-    let previous = brakingEntrySpeedMps(envelope, speed, kappa[h]!, ds[h]!, road, h);
-    if (previous > limit[h]!) previous = limit[h]!;
-    out[h] = previous;
+    // Braking never lowers the speed backwards where the net braking at the exit speed is positive (always on flat
+    // ground; downhill the pull may outweigh it), so an exit already at the entry's limit gives that limit without
+    // solving for it: the straights at top speed and the arcs at their corner limit.
+    let previous = limit[h]!;
+    if (
+      speed < previous ||
+      (road && road.gravityAlongMps2[h]! < 0 && brakeLimitAt(envelope, speed, kappa[h]!, road, h) < 0)
+    ) {
+      previous = brakingEntrySpeedMps(envelope, speed, kappa[h]!, ds[h]!, road, h);
+      if (previous > limit[h]!) previous = limit[h]!;
+    }
+    if (previous < out[h]!) {
+      out[h] = previous;
+      shift[h] = 0;
+    }
     speed = previous;
   }
 }
@@ -187,8 +209,7 @@ export function solveSpeedProfile(path: Path, envelope: Envelope, options: Speed
   const n = path.curvaturePerM.length;
   const road = options.road ?? null;
   const cornerLimitMps = cornerLimitProfile(envelope, path.curvaturePerM, undefined, road);
-  const forward = new Float64Array(n);
-  const backward = new Float64Array(n);
+  const speedMps = new Float64Array(n);
   const shift = new Uint8Array(n);
   if (path.closed) {
     const slowest = argMin(cornerLimitMps);
@@ -197,12 +218,12 @@ export function solveSpeedProfile(path: Path, envelope: Envelope, options: Speed
     // speed it came back with until the lap closes on itself.
     let startMps = cornerLimitMps[slowest]!;
     for (let lap = 0; lap < MAX_PERIODIC_LAPS; lap++) {
-      forwardPass(path, envelope, cornerLimitMps, slowest, startMps, options.shiftTimeS, forward, road, shift);
-      const backAt = forward[slowest]!;
+      forwardPass(path, envelope, cornerLimitMps, slowest, startMps, options.shiftTimeS, speedMps, road, shift);
+      const backAt = speedMps[slowest]!;
       if (backAt >= startMps - PERIODIC_TOLERANCE_MPS) break;
       startMps = backAt;
     }
-    backwardPass(path, envelope, cornerLimitMps, slowest, cornerLimitMps[slowest]!, backward, road);
+    backwardPass(path, envelope, cornerLimitMps, slowest, cornerLimitMps[slowest]!, speedMps, road, shift);
   } else {
     forwardPass(
       path,
@@ -211,18 +232,11 @@ export function solveSpeedProfile(path: Path, envelope: Envelope, options: Speed
       0,
       Math.min(options.startSpeedMps, cornerLimitMps[0]!),
       options.shiftTimeS,
-      forward,
+      speedMps,
       road,
       shift,
     );
-    backwardPass(path, envelope, cornerLimitMps, n - 1, cornerLimitMps[n - 1]!, backward, road);
+    backwardPass(path, envelope, cornerLimitMps, n - 1, cornerLimitMps[n - 1]!, speedMps, road, shift);
   }
-  // Where braking takes over, the forward pass's shift never happens.
-  for (let i = 0; i < n; i++) {
-    if (backward[i]! < forward[i]!) {
-      forward[i] = backward[i]!;
-      shift[i] = 0;
-    }
-  }
-  return { speedMps: forward, cornerLimitMps, shift };
+  return { speedMps, cornerLimitMps, shift };
 }

@@ -4,7 +4,7 @@
 
 import type { BrakingZone, LapResult } from '../solve/types.js';
 import type { Path, TrackGrid } from '../track/types.js';
-import { simulate } from '../solve/simulate.js';
+import { simulate, simulateLapTime, type LapTimeResult } from '../solve/simulate.js';
 import { applySetup, type SetupBase } from './settings.js';
 import { DEFAULT_MATCH_TOLERANCE_M, matchBrakingZones } from './match-zones.js';
 import { brakingPointM } from './braking-point.js';
@@ -42,10 +42,20 @@ export function solveSetup(
   });
 }
 
+/** The same lap as solveSetup in the solver's lap-time mode: the lap time and the braking points a run reports. */
+function solveSetupLapTime(context: SweepContext, values: ArrayLike<number>, where: string): LapTimeResult {
+  const { car, ambient } = applySetup(context.base, context.fields, values, where);
+  return simulateLapTime(context.track, car, {
+    ambient,
+    startSpeedMps: context.startSpeedMps,
+    ...(context.path ? { path: context.path } : {}),
+  });
+}
+
 /** Writes one run's outcome into `out` at `offset` (outcomeWidth(corners) numbers). */
 export function writeOutcome(
   context: Pick<SweepContext, 'corners' | 'matchToleranceM'>,
-  result: LapResult,
+  result: LapResult | LapTimeResult,
   out: Float64Array,
   offset: number,
 ): void {
@@ -75,7 +85,7 @@ export function evaluateRun(
   offset: number,
   where = 'sweep run',
 ): void {
-  writeOutcome(context, solveSetup(context, values, where), out, offset);
+  writeOutcome(context, solveSetupLapTime(context, values, where), out, offset);
 }
 
 /** A sweep's runs for the pool (./pool.ts). */

@@ -157,5 +157,5 @@ export function centrelinePath(track: TrackGrid): Path {
   const n = track.curvaturePerM.length;
   const segments = new Float64Array(track.closed ? n : n - 1);
   segments.fill(track.stepM);
-  return { closed: track.closed, curvaturePerM: Float64Array.from(track.curvaturePerM), segmentLengthM: segments };
+  return { closed: track.closed, curvaturePerM: track.curvaturePerM.slice(), segmentLengthM: segments };
 }

@@ -84,13 +84,14 @@ function plainLap(track: TrackGrid, car: Car): { speeds: number[]; lapTimeS: num
   const k = Array.from(track.curvaturePerM);
   const ds = track.stepM;
   const top = physics.top;
-  // Corner limit: the largest v with v^2 |k| within the lateral limit, by bisection to 1e-6 m/s.
+  // Corner limit: the largest v with v^2 |k| within the lateral limit, by bisection until the bracket cannot shrink.
   const limit = k.map((kappa) => {
     if (Math.abs(kappa) < 1e-7 || top * top * Math.abs(kappa) <= physics.lateral(top)) return top;
     let lo = 0;
     let hi = top;
-    for (let it = 0; it < 40 && hi - lo >= 1e-6; it++) {
+    for (let it = 0; it < 2000; it++) {
       const mid = 0.5 * (lo + hi);
+      if (mid <= lo || mid >= hi) break;
       if (mid * mid * Math.abs(kappa) <= physics.lateral(mid)) lo = mid;
       else hi = mid;
     }
