@@ -5,10 +5,8 @@
 
 import { InputError } from '../errors.js';
 import type { Car } from './types.js';
+import { isRecord } from '../is-record.js';
 import { CAR_FIELD_RANGES, GEARING_RANGES, inRange, rangeText, type FieldRange } from './car-ranges.js';
-
-const isRecord = (value: unknown): value is Record<string, unknown> =>
-  typeof value === 'object' && value !== null && !Array.isArray(value);
 
 /** The value at a dotted path, or undefined where any part of the path is missing. */
 function valueAt(record: Record<string, unknown>, dotted: string): unknown {

@@ -18,7 +18,7 @@ import { slowestPoint, type LapView } from './lap-samples.js';
 import { coastingTime, ownershipBounds, phaseTimesLost } from './corner-phases.js';
 import { compareBraking } from './braking-points.js';
 import { gripFigures, gripStretches } from './grip-use.js';
-import { lapIndex, wrapIndex } from '../numeric/lap-index.js';
+import { lapIndex, wrapDistanceM, wrapIndex } from '../numeric/lap-index.js';
 
 export function compareLaps(
   track: TrackGrid,
@@ -129,7 +129,7 @@ export function compareLaps(
     const beforeM = (pointM: number | null, placeM: number) =>
       pointM === null ? null : metresBeforeM(pointM, placeM, track);
     const foldM = (u: number | null) =>
-      u === null ? null : closed ? (((u * step) % track.lengthM) + track.lengthM) % track.lengthM : u * step;
+      u === null ? null : closed ? wrapDistanceM(u * step, track.lengthM) : u * step;
     return {
       id: span.id,
       name: span.name,

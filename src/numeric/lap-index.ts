@@ -6,6 +6,9 @@ export function wrapIndex(k: number, n: number): number {
   return ((k % n) + n) % n;
 }
 
+/** A station on a closed lap of lengthM, brought into [0, lengthM) from either side: the same floored modulo. */
+export const wrapDistanceM: (distanceM: number, lengthM: number) => number = wrapIndex;
+
 /** Index k of a path of n samples: wrapped on a closed lap, held at the first or last sample on an open path. */
 export function lapIndex(k: number, n: number, closed: boolean): number {
   return closed ? wrapIndex(k, n) : Math.min(n - 1, Math.max(0, k));

@@ -2,6 +2,7 @@
 // acceleration between samples), and the room from the reference line to each edge of the track, against which
 // the followed car's deviation is judged.
 
+import { wrapDistanceM } from '../numeric/lap-index.js';
 import type { Car } from '../car/types.js';
 import type { LapResult } from './types.js';
 import type { ReferenceLookup } from './transient-driver.js';
@@ -46,7 +47,7 @@ export function referenceLookup(
   let share = 0;
   const locate = (stationM: number) => {
     let s = stationM;
-    if (closed) s = ((s % lengthM) + lengthM) % lengthM;
+    if (closed) s = wrapDistanceM(s, lengthM);
     else s = Math.min(Math.max(s, 0), endM);
     while (k > 0 && d[k]! > s) k--;
     while (k < n - 1 && d[k + 1]! <= s) k++;

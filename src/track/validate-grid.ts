@@ -2,6 +2,7 @@
 // changes a grid in code gets an InputError naming the field and the sample, never a TypeError or a NaN lap.
 // The readers build grids that pass by construction; this guards records that did not come from them.
 
+import { isRecord } from '../is-record.js';
 import { InputError } from '../errors.js';
 import type { Path, TrackGrid } from './types.js';
 
@@ -12,8 +13,6 @@ const MAX_EXTENT_M = 1e7;
 
 /** Grids checked already: a sweep simulates one grid thousands of times, and the check costs a pass over it. */
 const checkedGrids = new WeakSet<object>();
-
-const isRecord = (value: unknown): value is Record<string, unknown> => typeof value === 'object' && value !== null;
 
 function firstBadSample(values: Float64Array, limit: number, nonNegative: boolean): number {
   for (let i = 0; i < values.length; i++) {

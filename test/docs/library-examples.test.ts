@@ -1,4 +1,7 @@
-// Every ```ts example of docs/library.md runs as written against the build (dist/, made before vitest runs): each is
+// Every ```ts block of README.md and docs/*.md is one of the scripts in docs/examples/, to the character, and every
+// script there is shown in a doc: `npm test`'s `tsc -p test/tsconfig.json` type-checks those scripts against the
+// library's source ('reflap' mapped to src/index.ts), so a doc that calls the library wrongly fails the build.
+// Every ```ts example of docs/library.md also runs as written against the build (dist/, made before vitest runs): each is
 // transpiled by the TypeScript compiler (ts.transpileModule), its `from 'reflap'` pointed at dist/src/index.js, and
 // run with node from a copy of the package's cars/ and tracks/. An example checks its own result and throws when it
 // is wrong, so a run that exits 0 is one whose checks held.
@@ -6,7 +9,7 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import ts from 'typescript';
 import { spawnSync } from 'node:child_process';
-import { cpSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { cpSync, mkdtempSync, readFileSync, readdirSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
@@ -20,19 +23,32 @@ interface ScriptExample {
 const LIBRARY_DOC = 'docs/library.md';
 
 /** The ```ts and ```js blocks of a Markdown text, with the line each starts on. */
-function scriptExamples(text: string): ScriptExample[] {
+function scriptExamples(text: string, languages: readonly string[] = ['ts', 'js']): ScriptExample[] {
   const examples: ScriptExample[] = [];
   const lines = text.split('\n');
   let current: ScriptExample | null = null;
   lines.forEach((line, index) => {
     const fence = /^```(\S*)/.exec(line);
-    if (fence && current === null && (fence[1] === 'ts' || fence[1] === 'js')) current = { line: index + 1, code: '' };
+    if (fence && current === null && languages.includes(fence[1]!)) current = { line: index + 1, code: '' };
     else if (fence && current !== null) {
       examples.push(current);
       current = null;
     } else if (current !== null) current.code += `${line}\n`;
   });
   return examples;
+}
+
+/** The ```ts blocks of the README and of every doc, with where each was found. */
+function documentedScripts(): { where: string; code: string }[] {
+  const documents = ['README.md', ...readdirSync(join(projectRoot, 'docs')).map((name) => `docs/${name}`)];
+  return documents
+    .filter((document) => document.endsWith('.md'))
+    .flatMap((document) =>
+      scriptExamples(readFileSync(join(projectRoot, document), 'utf8'), ['ts']).map((example) => ({
+        where: `${document}:${example.line}`,
+        code: example.code,
+      })),
+    );
 }
 
 const indexUrl = pathToFileURL(join(projectRoot, 'dist/src/index.js')).href;
@@ -52,6 +68,27 @@ describe('library examples', () => {
       { line: 2, code: 'const a = 1;\n' },
       { line: 8, code: 'console.log(2);\n' },
     ]);
+  });
+
+  it('shows in the docs exactly the scripts that tsc type-checks in docs/examples/, each once', () => {
+    const folder = join(projectRoot, 'docs/examples');
+    const scripts = new Map(
+      readdirSync(folder)
+        .filter((name) => name.endsWith('.ts'))
+        .map((name) => [readFileSync(join(folder, name), 'utf8'), name] as const),
+    );
+    const shown = documentedScripts();
+    expect(shown.length).toBeGreaterThanOrEqual(scripts.size);
+    for (const { where, code } of shown)
+      expect(scripts.has(code), `${where} is not a file of docs/examples/`).toBe(true);
+    const unshown = [...scripts.values()].filter((name) => !shown.some(({ code }) => scripts.get(code) === name));
+    expect(unshown).toEqual([]);
+  });
+
+  it('includes docs/examples/ in the type-checked test project', () => {
+    const config = ts.readConfigFile(join(projectRoot, 'test/tsconfig.json'), (path) => ts.sys.readFile(path));
+    expect(config.config.include).toContain('../docs/examples');
+    expect(config.config.compilerOptions.paths.reflap).toEqual(['../src/index.ts']);
   });
 
   const root = mkdtempSync(join(tmpdir(), 'reflap-library-'));
