@@ -3,8 +3,8 @@
 
 import type { Command } from 'commander';
 import { InputError } from '../../errors.js';
-import { checkFiles, type CheckReport } from '../../check/check-files.js';
-import { KIND_LABELS } from '../../check/detect-kind.js';
+import { checkFiles } from '../../check/check-files.js';
+import { formatCheckReport } from '../../report/check-report-text.js';
 
 export function register(program: Command): void {
   program
@@ -13,20 +13,6 @@ export function register(program: Command): void {
     .argument('<files...>', 'files to check (kind told from the name and the content)')
     .option('--json', 'print the report as one JSON object')
     .action(async (files: string[], values: { json?: boolean }) => runCheck(files, values));
-}
-
-export function formatCheckReport(report: CheckReport): string {
-  const lines: string[] = [];
-  for (const check of report.files) {
-    if (check.problems.length === 0) lines.push(`${check.file}: ok (${check.summary ?? KIND_LABELS[check.kind]})`);
-    else
-      lines.push(
-        `${check.file}: ${check.problems.length} problem${check.problems.length > 1 ? 's' : ''} (${KIND_LABELS[check.kind]})`,
-      );
-    for (const problem of check.problems) lines.push(`  ${problem}`);
-    for (const note of check.notes) lines.push(`  note: ${note}`);
-  }
-  return lines.join('\n') + '\n';
 }
 
 export async function runCheck(files: string[], values: { json?: boolean }): Promise<void> {

@@ -9,15 +9,13 @@ import { inputFilesOf, loadCar, type CarOptionValues } from '../options.js';
 import { writeFileAtomic } from '../output.js';
 import { loadSession, type TelemetryOptionValues } from '../telemetry-options.js';
 import { fitEnvelope, EnvelopeFitError, type DemonstratedEnvelopeRecord } from '../../compare/envelope-fit.js';
-import type { TelemetrySession } from '../../telemetry/types.js';
 import { deriveSessionAccelerations, derivationNote } from '../../compare/derive-session.js';
 import { buildEnvelope } from '../../car/build-envelope.js';
 import { Option } from 'commander';
-import { formatTable } from '../../report/text-table.js';
-import { mps2ToG } from '../../units.js';
 import { roundedJson } from '../../report/json-numbers.js';
-import { plainNumber, type DisplayUnits } from '../../report/units.js';
 import { addUnitsOption, unitsOf, type UnitsOptionValues } from '../units-option.js';
+import { envelopeText } from '../../report/envelope-text.js';
+import { sessionSamples } from '../../compare/envelope-samples.js';
 
 interface EnvelopeValues
   extends Pick<TelemetryOptionValues, 'telemetry' | 'telemetryColumns'>, Partial<CarOptionValues>, UnitsOptionValues {
@@ -48,46 +46,6 @@ export function register(program: Command): void {
     .option('--out <file>', 'write the envelope as JSON for simulate --envelope and compare --envelope')
     .option('--json', 'print the envelope as JSON instead of the table');
   addUnitsOption(command).action((values: EnvelopeValues) => runEnvelope(values));
-}
-
-/** Samples of the session for the fit; the log must carry speed and both accelerations (logged or derived). */
-export function sessionSamples(session: TelemetrySession) {
-  const missing = [
-    !session.speedMps && 'speed',
-    !session.axMps2 && 'longitudinal acceleration',
-    !session.ayMps2 && 'lateral acceleration',
-  ].filter(Boolean);
-  if (missing.length > 0) {
-    throw new InputError(
-      `${session.source}: fitting an envelope needs ${missing.join(', ')} channels, or positions to derive them from; the log has neither (map them with --telemetry-columns)`,
-    );
-  }
-  return {
-    speedMps: session.speedMps!,
-    axMps2: session.axMps2!,
-    ayMps2: session.ayMps2!,
-    throttle: session.throttle,
-    brake: session.brake,
-  };
-}
-
-export function envelopeText(record: DemonstratedEnvelopeRecord, units: DisplayUnits, notes: string[] = []): string {
-  const rows = record.bands.map((band) => [
-    plainNumber(units.speed(band.speedMps), 0),
-    String(band.samples),
-    plainNumber(mps2ToG(band.brakeMps2), 2),
-    plainNumber(mps2ToG(band.accelMps2), 2),
-    plainNumber(mps2ToG(band.leftMps2), 2),
-    plainNumber(mps2ToG(band.rightMps2), 2),
-  ]);
-  return (
-    [
-      `Demonstrated envelope from ${record.source} (${(record.quantile * 100).toFixed(0)}th percentile per ${plainNumber(units.speed(record.bandWidthMps), 0)} ${units.speedLabel} band)`,
-      formatTable([`speed ${units.speedLabel}`, 'samples', 'braking g', 'accelerating g', 'left g', 'right g'], rows),
-      `Top speed reached ${plainNumber(units.speed(record.topSpeedMps), 1)} ${units.speedLabel}; coasting ${record.coast.fitted ? 'fitted from the log' : 'assumed (the log has no coasting with pedal channels)'}.`,
-      ...[...notes, ...(record.notes ?? [])].map((note) => `Note: ${note}`),
-    ].join('\n') + '\n'
-  );
 }
 
 export async function runEnvelope(values: EnvelopeValues): Promise<void> {

@@ -3,15 +3,11 @@
 import { Option, type Command } from 'commander';
 import { InputError } from '../../errors.js';
 import type { Car } from '../../car/types.js';
-import type { TrackGrid } from '../../track/types.js';
 import { buildEnvelope } from '../../car/build-envelope.js';
 import { defaultMarginM } from '../../line/corridor.js';
 import { lineCsv } from '../../line/line-csv.js';
 import { racingLine } from '../../line/racing-line.js';
-import { LINE_OBJECTIVES, type LineObjective, type RacingLine } from '../../line/types.js';
-import { SAFETY_CAUTION } from '../../report/lap-summary.js';
-import { roundToDigits } from '../../numeric/round.js';
-import { formatLapTime } from '../../units.js';
+import { LINE_OBJECTIVES, type LineObjective } from '../../line/types.js';
 import {
   addCarOptions,
   addTrackOptions,
@@ -24,6 +20,7 @@ import {
   type TrackOptionValues,
 } from '../options.js';
 import { outputBatch } from '../output.js';
+import { racingLineJson, racingLineText } from '../../report/racing-line-summary.js';
 
 interface LineValues extends TrackOptionValues, CarOptionValues {
   objective?: LineObjective;
@@ -55,43 +52,6 @@ export function marginFrom(value: string | undefined, car: Car): number {
   return marginM;
 }
 
-export function lineSummaryJson(line: RacingLine, track: TrackGrid, carName: string) {
-  return {
-    track: track.name,
-    car: carName,
-    objective: line.objective,
-    marginM: roundToDigits(line.marginM, 3),
-    lapTimeCentrelineS: roundToDigits(line.centrelineLap.lapTimeS, 4),
-    lapTimeLineS: roundToDigits(line.lap.lapTimeS, 4),
-    lapTimeCurvatureLineS: roundToDigits(line.curvatureLineLapTimeS, 4),
-    gainS: roundToDigits(line.centrelineLap.lapTimeS - line.lap.lapTimeS, 4),
-    lengthM: roundToDigits(line.lengthM, 2),
-    centrelineLengthM: roundToDigits(track.lengthM, 2),
-    minRadiusM: Number.isFinite(line.minRadiusM) ? roundToDigits(line.minRadiusM, 2) : null,
-    minRadiusAtM: roundToDigits(line.minRadiusAtM, 1),
-    maxOffsetM: roundToDigits(line.maxOffsetM, 3),
-    lapsDriven: line.lapEvaluations,
-  };
-}
-
-export function lineSummaryText(line: RacingLine, track: TrackGrid, carName: string): string {
-  const gain = line.centrelineLap.lapTimeS - line.lap.lapTimeS;
-  const radius = Number.isFinite(line.minRadiusM)
-    ? `${line.minRadiusM.toFixed(1)} m at ${line.minRadiusAtM.toFixed(0)} m`
-    : 'none (straight)';
-  return [
-    `${track.name} · ${carName} · ${line.objective} line, ${line.marginM.toFixed(2)} m from the edges`,
-    `Lap on the centreline   ${formatLapTime(line.centrelineLap.lapTimeS)}`,
-    `Lap on the line         ${formatLapTime(line.lap.lapTimeS)}  (${gain >= 0 ? '-' : '+'}${Math.abs(gain).toFixed(3)} s)`,
-    `Line length             ${line.lengthM.toFixed(1)} m (centreline ${track.lengthM.toFixed(1)} m)`,
-    `Tightest radius         ${radius}`,
-    `Largest offset          ${line.maxOffsetM.toFixed(2)} m`,
-    '',
-    SAFETY_CAUTION,
-    '',
-  ].join('\n');
-}
-
 export function runLine(values: LineValues): void {
   const track = loadTrack(values);
   const { car, ambient } = loadCar(values);
@@ -108,9 +68,9 @@ export function runLine(values: LineValues): void {
   if (values.out) outputs.add(values.out, lineCsv(line));
   outputs.commit();
   if (values.json) {
-    process.stdout.write(JSON.stringify(lineSummaryJson(line, track, car.name), null, 2) + '\n');
+    process.stdout.write(JSON.stringify(racingLineJson(line, track, car.name), null, 2) + '\n');
   } else {
-    process.stdout.write(lineSummaryText(line, track, car.name));
+    process.stdout.write(racingLineText(line, track, car.name));
     if (values.out) process.stdout.write(`Line written to ${values.out}\n`);
   }
 }

@@ -20,15 +20,12 @@ import { parseSetting, parseVariation } from '../../sweep/settings.js';
 import { parseShard, type SweepMode } from '../../sweep/plan.js';
 import { runSweep } from '../../sweep/run-sweep.js';
 import { mergeSweepCsv, sweepCsv } from '../../sweep/csv.js';
-import { sensitivities, type Sensitivity, type SweepTable } from '../../sweep/table.js';
+import { sensitivities, type SweepTable } from '../../sweep/table.js';
 import { DEFAULT_MATCH_TOLERANCE_M } from '../../sweep/match-zones.js';
-import { formatTable } from '../../report/text-table.js';
-import { SAFETY_CAUTION } from '../../report/lap-summary.js';
-import { sensitivityRows } from '../../report/sweep-format.js';
-import { formatLapTime } from '../../units.js';
 import { InputError } from '../../errors.js';
 import { readTextFile } from '../../io/read-text.js';
 import { addLineOption, referencePathJson, withReferencePath } from '../reference-path.js';
+import { sweepJson, sweepSummaryText } from '../../report/sweep-summary.js';
 
 interface SweepValues extends Partial<TrackOptionValues>, Partial<CarOptionValues>, ReportOptionValues {
   vary?: string[];
@@ -79,72 +76,6 @@ export function register(program: Command): void {
   ).action((values: SweepValues) => runSweepCommand(values));
 }
 
-function sensitivityText(table: SweepTable, found: Sensitivity[]): string {
-  if (found.length === 0) return 'No sensitivities: the runs around the baseline are not in this table.\n';
-  const { header, rows } = sensitivityRows(table, found);
-  return `Sensitivity around the baseline (central differences; braking point: negative = earlier)\n${formatTable(header, rows)}\n`;
-}
-
-function summaryText(table: SweepTable, found: Sensitivity[], complete: boolean, out: string | undefined): string {
-  const { meta, records } = table;
-  const sweepRuns = records.filter((r) => r.kind === 'grid' || r.kind === 'oat');
-  const lines = [
-    `${meta.trackName} · ${meta.carName} · ${meta.mode} sweep of ${meta.fields.join(', ')}`,
-    `${records.length} of ${meta.totalRuns} runs${complete ? '' : ' (one shard)'}`,
-  ];
-  const baseline = records.find((r) => r.kind === 'baseline');
-  if (baseline)
-    lines.push(
-      `Baseline lap ${formatLapTime(baseline.lapTimeS)} (${meta.fields.map((f, k) => `${f} ${meta.baseValues[k]}`).join(', ')})`,
-    );
-  if (sweepRuns.length > 0) {
-    const best = sweepRuns.reduce((a, b) => (b.lapTimeS < a.lapTimeS ? b : a));
-    const worst = sweepRuns.reduce((a, b) => (b.lapTimeS > a.lapTimeS ? b : a));
-    const at = (r: typeof best) => meta.fields.map((f, k) => `${f} ${r.values[k]}`).join(', ');
-    lines.push(
-      `Quickest ${formatLapTime(best.lapTimeS)} at ${at(best)}`,
-      `Slowest  ${formatLapTime(worst.lapTimeS)} at ${at(worst)}`,
-    );
-  }
-  lines.push('');
-  if (!out && sweepRuns.length <= 40 && sweepRuns.length > 0) {
-    lines.push(
-      formatTable(
-        ['run', ...meta.fields, 'lap s', ...meta.corners.map((c) => `${c.tag} brake m`)],
-        sweepRuns.map((r) => [
-          String(r.run),
-          ...r.values.map(String),
-          r.lapTimeS.toFixed(3),
-          ...r.brakingPointM.map((m) => (Number.isFinite(m) ? m.toFixed(1) : '-')),
-        ]),
-      ),
-      '',
-    );
-  } else if (!out) {
-    lines.push('Use --out FILE to keep every run (lap time and braking points) as CSV.', '');
-  } else {
-    lines.push(`Runs written to ${out}`, '');
-  }
-  lines.push(sensitivityText(table, found).trimEnd(), '', SAFETY_CAUTION);
-  return lines.join('\n') + '\n';
-}
-
-function sweepJson(table: SweepTable, found: Sensitivity[], complete: boolean) {
-  const nan = (v: number) => (Number.isFinite(v) ? v : null);
-  return {
-    meta: { ...table.meta, baseValues: table.meta.baseValues.map(nan) },
-    complete,
-    runs: table.records.map((r) => ({
-      ...r,
-      values: r.values.map(nan),
-      brakingPointM: r.brakingPointM.map(nan),
-      entrySpeedKph: r.entrySpeedKph.map(nan),
-      minSpeedKph: r.minSpeedKph.map(nan),
-    })),
-    sensitivities: found,
-  };
-}
-
 function addSweepReport(outputs: OutputBatch, values: ReportOptionValues, table: SweepTable): string[] {
   return addPageOutputs(outputs, values, { html: () => sweepReportHtml(table), charts: () => sweepChartSvgs(table) });
 }
@@ -162,7 +93,7 @@ export async function runSweepCommand(values: SweepValues): Promise<void> {
     const found = sensitivities(table);
     if (values.json) process.stdout.write(JSON.stringify(sweepJson(table, found, true), null, 2) + '\n');
     else if (values.out)
-      process.stdout.write(summaryText(table, found, true, values.out) + reportWrittenText(reportFiles));
+      process.stdout.write(sweepSummaryText(table, found, true, values.out) + reportWrittenText(reportFiles));
     else process.stdout.write(csv);
     return;
   }
@@ -213,7 +144,7 @@ export async function runSweepCommand(values: SweepValues): Promise<void> {
     );
   else
     process.stdout.write(
-      withReferencePath(summaryText(table, found, complete, values.out), reference, true) +
+      withReferencePath(sweepSummaryText(table, found, complete, values.out), reference, true) +
         reportWrittenText(reportFiles),
     );
 }
