@@ -39,46 +39,43 @@ function atTime(values: Float64Array, timeS: Float64Array, i: number, tq: number
   return lerp(values[i]!, values[j]!, w);
 }
 
-export function alignLapWithNotes(
+/** The lap's samples placed along it, with anchors at its two ends: (0, 0) and (L, lap time). */
+interface LapSamples {
+  alongM: Float64Array;
+  elapsedS: Float64Array;
+  /** Resamples a session channel onto the lap's samples (the two anchors interpolated in time). */
+  channelAt: (values: Float64Array) => Float64Array;
+}
+
+function lapSamples(
   session: TelemetrySession,
-  lap: LapCut,
-  track: TrackGrid,
-): { lap: DriverLap; notes: string[] } {
-  const notes: string[] = [];
-  if (lap.startTimeS === undefined || lap.endTimeS === undefined || lap.progressStartM === undefined) {
-    throw new Error('alignLap needs a LapCut made by cutLaps');
-  }
-  const L = track.lengthM;
-  const n = track.distanceM.length;
+  lap: Required<Pick<LapCut, 'startTimeS' | 'endTimeS' | 'progressStartM'>> & LapCut,
+  lengthM: number,
+  progressM: (i: number) => number,
+): LapSamples {
   const t = session.timeS;
   const startT = lap.startTimeS;
   const endT = lap.endTimeS;
-  const lapTimeS = endT - startT;
-  const placed = placeSession(session, track);
-  const distance = placed ? null : sessionDistance(session);
-  const scale = lap.distanceScale ?? 1;
-
-  // Sample times strictly inside the lap, with anchors at its two ends: (0, 0) and (L, lapTime).
   let first = lap.startIndex;
   while (first <= lap.endIndex && t[first]! <= startT) first++;
   let last = lap.endIndex;
   while (last >= first && t[last]! >= endT) last--;
   const inner = Math.max(0, last - first + 1);
   const m = inner + 2;
-  const along = new Float64Array(m);
-  const elapsed = new Float64Array(m);
-  along[m - 1] = L;
-  elapsed[m - 1] = lapTimeS;
+  const alongM = new Float64Array(m);
+  const elapsedS = new Float64Array(m);
+  alongM[m - 1] = lengthM;
+  elapsedS[m - 1] = endT - startT;
   let running = 0;
   for (let k = 0; k < inner; k++) {
     const i = first + k;
-    let r = placed ? placed.progressM[i]! - lap.progressStartM : distance![i]! * scale - lap.progressStartM;
+    let r = progressM(i) - lap.progressStartM;
     // Monotone along the lap: small backward steps (GPS jitter, a stop) hold the furthest point reached.
     if (r < running) r = running;
-    if (r > L) r = L;
+    if (r > lengthM) r = lengthM;
     running = r;
-    along[k + 1] = r;
-    elapsed[k + 1] = t[i]! - startT;
+    alongM[k + 1] = r;
+    elapsedS[k + 1] = t[i]! - startT;
   }
   const startBracket = Math.max(0, first - 1);
   const endBracket = Math.max(0, last);
@@ -89,11 +86,21 @@ export function alignLapWithNotes(
     out[m - 1] = atTime(values, t, endBracket, endT);
     return out;
   };
+  return { alongM, elapsedS, channelAt };
+}
 
-  // Stations in the order the lap passes them: from the line round to the line.
-  const lineM = track.closed ? (lap.startFinishM ?? 0) : 0;
+/** Linear and held resampling from the lap's samples onto the stations, in the order the lap passes them. */
+interface StationResampler {
+  linear: (values: Float64Array) => Float64Array;
+  held: (values: Float64Array) => Float64Array;
+}
+
+function stationResampler(track: TrackGrid, lineM: number, alongM: Float64Array): StationResampler {
+  const L = track.lengthM;
+  const n = track.distanceM.length;
+  const m = alongM.length;
+  // Stations from the line round to the line.
   const firstStation = track.closed ? Math.ceil(lineM / track.stepM - 1e-9) % n : 0;
-  const stationAlong = new Float64Array(n);
   const weightIndex = new Int32Array(n);
   const weight = new Float64Array(n);
   let k = 0;
@@ -102,36 +109,93 @@ export function alignLapWithNotes(
     let r = track.distanceM[j]! - lineM;
     if (r < 0) r += L;
     if (c === 0 && r > L - 1e-9) r = 0;
-    stationAlong[j] = r;
-    while (k < m - 2 && along[k + 1]! <= r) k++;
-    const span = along[k + 1]! - along[k]!;
+    while (k < m - 2 && alongM[k + 1]! <= r) k++;
+    const span = alongM[k + 1]! - alongM[k]!;
     weightIndex[j] = k;
-    weight[j] = span > 0 ? Math.min(1, Math.max(0, (r - along[k]!) / span)) : 0;
+    weight[j] = span > 0 ? Math.min(1, Math.max(0, (r - alongM[k]!) / span)) : 0;
   }
-  const resample = (values: Float64Array): Float64Array => {
-    const out = new Float64Array(n);
-    for (let j = 0; j < n; j++) {
-      const a = weightIndex[j]!;
-      out[j] = values[a]! + weight[j]! * (values[a + 1]! - values[a]!);
-    }
-    return out;
+  return {
+    linear: (values) => {
+      const out = new Float64Array(n);
+      for (let j = 0; j < n; j++) {
+        const a = weightIndex[j]!;
+        out[j] = values[a]! + weight[j]! * (values[a + 1]! - values[a]!);
+      }
+      return out;
+    },
+    held: (values) => {
+      const out = new Float64Array(n);
+      for (let j = 0; j < n; j++) out[j] = weight[j]! < 0.5 ? values[weightIndex[j]!]! : values[weightIndex[j]! + 1]!;
+      return out;
+    },
   };
-  const resampleHeld = (values: Float64Array): Float64Array => {
-    const out = new Float64Array(n);
-    for (let j = 0; j < n; j++) out[j] = weight[j]! < 0.5 ? values[weightIndex[j]!]! : values[weightIndex[j]! + 1]!;
-    return out;
-  };
-  const channel = (values: Float64Array | null, held = false) =>
-    values ? (held ? resampleHeld : resample)(channelAt(values)) : null;
+}
 
-  // Time from station 0 (rotated when the line is elsewhere, so timeS[0] = 0 and the lap time is kept).
-  const passTime = resample(elapsed);
-  const timeS = new Float64Array(n);
-  const zeroTime = passTime[0]!;
-  for (let j = 0; j < n; j++) {
-    const sinceZero = passTime[j]! - zeroTime;
+/** Time from station 0 (rotated when the line is elsewhere, so timeS[0] = 0 and the lap time is kept). */
+function timeFromStationZero(passTimeS: Float64Array, lapTimeS: number): Float64Array {
+  const timeS = new Float64Array(passTimeS.length);
+  const zeroTime = passTimeS[0]!;
+  for (let j = 0; j < passTimeS.length; j++) {
+    const sinceZero = passTimeS[j]! - zeroTime;
     timeS[j] = sinceZero >= -1e-12 ? Math.max(0, sinceZero) : sinceZero + lapTimeS;
   }
+  return timeS;
+}
+
+/** Speed at each station from the pass times of its neighbours along the centreline (a distance-only log). */
+function speedFromPassTimes(track: TrackGrid, passTimeS: Float64Array, lapTimeS: number): Float64Array {
+  const n = passTimeS.length;
+  const speedMps = new Float64Array(n);
+  for (let j = 0; j < n; j++) {
+    const previous = j > 0 ? j - 1 : track.closed ? n - 1 : 0;
+    const next = j < n - 1 ? j + 1 : track.closed ? 0 : n - 1;
+    let dt = passTimeS[next]! - passTimeS[previous]!;
+    if (dt < 0) dt += lapTimeS;
+    const ds = wrapIndex(next - previous, n) || 1;
+    speedMps[j] = dt > 0 ? (ds * track.stepM) / dt : 0;
+  }
+  return speedMps;
+}
+
+/**
+ * A logged acceleration checked against the one derived from speed or curvature: taken as derived when the log
+ * has none, its sign turned (with the note) when it runs against the derived one.
+ */
+function signCheckedAcceleration(
+  logged: Float64Array | null,
+  derived: Float64Array,
+  turnedNote: string,
+): { values: Float64Array; derived: boolean; note: string | null } {
+  if (!logged) return { values: derived, derived: true, note: null };
+  if (correlation(logged, derived) >= -0.5) return { values: logged, derived: false, note: null };
+  for (let j = 0; j < logged.length; j++) logged[j] = -logged[j]!;
+  return { values: logged, derived: false, note: turnedNote };
+}
+
+export function alignLapWithNotes(
+  session: TelemetrySession,
+  lap: LapCut,
+  track: TrackGrid,
+): { lap: DriverLap; notes: string[] } {
+  const notes: string[] = [];
+  if (lap.startTimeS === undefined || lap.endTimeS === undefined || lap.progressStartM === undefined) {
+    throw new Error('alignLap needs a LapCut made by cutLaps');
+  }
+  const cut = { ...lap, startTimeS: lap.startTimeS, endTimeS: lap.endTimeS, progressStartM: lap.progressStartM };
+  const t = session.timeS;
+  const lapTimeS = cut.endTimeS - cut.startTimeS;
+  const placed = placeSession(session, track);
+  const distance = placed ? null : sessionDistance(session);
+  const scale = lap.distanceScale ?? 1;
+  const samples = lapSamples(session, cut, track.lengthM, (i) =>
+    placed ? placed.progressM[i]! : distance![i]! * scale,
+  );
+  const resampler = stationResampler(track, track.closed ? (lap.startFinishM ?? 0) : 0, samples.alongM);
+  const channel = (values: Float64Array | null, held = false) =>
+    values ? (held ? resampler.held : resampler.linear)(samples.channelAt(values)) : null;
+
+  const passTime = resampler.linear(samples.elapsedS);
+  const timeS = timeFromStationZero(passTime, lapTimeS);
 
   const derivedChannels: string[] = [];
   const xM = placed ? channel(placed.xM) : null;
@@ -149,31 +213,18 @@ export function alignLapWithNotes(
       speedMps = channel(full)!;
       notes.push('speed derived from the positions');
     } else {
-      // From the pass times of neighbouring stations along the centreline.
-      speedMps = new Float64Array(n);
-      for (let j = 0; j < n; j++) {
-        const previous = j > 0 ? j - 1 : track.closed ? n - 1 : 0;
-        const next = j < n - 1 ? j + 1 : track.closed ? 0 : n - 1;
-        let dt = passTime[next]! - passTime[previous]!;
-        if (dt < 0) dt += lapTimeS;
-        const ds = wrapIndex(next - previous, n) || 1;
-        speedMps[j] = dt > 0 ? (ds * track.stepM) / dt : 0;
-      }
+      speedMps = speedFromPassTimes(track, passTime, lapTimeS);
       notes.push('speed derived from the distance channel');
     }
   }
 
-  const derivedAx = axFromSpeed(speedMps, track.stepM, track.closed);
-  let axMps2 = channel(session.axMps2);
-  if (!axMps2) {
-    axMps2 = derivedAx;
-    derivedChannels.push('axMps2');
-  } else if (correlation(axMps2, derivedAx) < -0.5) {
-    for (let j = 0; j < n; j++) axMps2[j] = -axMps2[j]!;
-    notes.push(
-      'the logged longitudinal acceleration runs opposite to the speed trace: sign turned (positive = speeding up)',
-    );
-  }
+  const ax = signCheckedAcceleration(
+    channel(session.axMps2),
+    axFromSpeed(speedMps, track.stepM, track.closed),
+    'the logged longitudinal acceleration runs opposite to the speed trace: sign turned (positive = speeding up)',
+  );
+  if (ax.derived) derivedChannels.push('axMps2');
+  if (ax.note) notes.push(ax.note);
 
   let curvature = track.curvaturePerM;
   if (xM && yM) {
@@ -182,15 +233,13 @@ export function alignLapWithNotes(
       notes.push("the driver's path is too noisy for its curvature: lateral acceleration uses the track's");
     else curvature = own;
   }
-  const derivedAy = ayFromCurvature(speedMps, curvature);
-  let ayMps2 = channel(session.ayMps2);
-  if (!ayMps2) {
-    ayMps2 = derivedAy;
-    derivedChannels.push('ayMps2');
-  } else if (correlation(ayMps2, derivedAy) < -0.5) {
-    for (let j = 0; j < n; j++) ayMps2[j] = -ayMps2[j]!;
-    notes.push('the logged lateral acceleration is positive to the right: sign turned (positive = left)');
-  }
+  const ay = signCheckedAcceleration(
+    channel(session.ayMps2),
+    ayFromCurvature(speedMps, curvature),
+    'the logged lateral acceleration is positive to the right: sign turned (positive = left)',
+  );
+  if (ay.derived) derivedChannels.push('ayMps2');
+  if (ay.note) notes.push(ay.note);
 
   return {
     lap: {
@@ -202,8 +251,8 @@ export function alignLapWithNotes(
       throttle: channel(session.throttle),
       brake: channel(session.brake),
       ...(session.brakePressurePa ? { brakePressurePa: channel(session.brakePressurePa) } : {}),
-      axMps2,
-      ayMps2,
+      axMps2: ax.values,
+      ayMps2: ay.values,
       steeringDeg: channel(session.steeringDeg),
       gear: channel(session.gear, true),
       rpm: channel(session.rpm),
