@@ -8,6 +8,7 @@ import type { TrackGrid } from '../track/types.js';
 import type { ComparisonResult, CornerComparison, DriverLap } from './types.js';
 import { findBrakingZones } from '../solve/braking-zones.js';
 import { cornerLayoutOf, metresBeforeM } from '../track/corner-layout.js';
+import type { CornerSpan } from '../track/corners.js';
 import { movingAverage } from './derive.js';
 import { clockAt, timeDeltaS } from './delta.js';
 import { rankFindings } from './findings.js';
@@ -20,18 +21,24 @@ import { compareBraking } from './braking-points.js';
 import { gripFigures, gripStretches } from './grip-use.js';
 import { lapIndex, wrapDistanceM, wrapIndex } from '../numeric/lap-index.js';
 
-export function compareLaps(
-  track: TrackGrid,
-  car: { name: string },
-  reference: LapResult,
-  driver: DriverLap,
-  envelope: Envelope,
-  options: Partial<CompareOptions> = {},
-): ComparisonResult {
-  const settings = { ...DEFAULT_COMPARE_OPTIONS, ...options };
+/** What every corner's comparison reads: both laps on the grid, their braking zones, grip use and the clock gap. */
+interface LapPair {
+  track: TrackGrid;
+  settings: CompareOptions;
+  driver: DriverLap;
+  reference: LapResult;
+  drv: LapView;
+  refView: LapView;
+  driverZones: readonly { startIndex: number }[];
+  driverGripUse: Float64Array;
+  driverGripSmooth: Float64Array;
+  referenceGripSmooth: Float64Array;
+  /** Driver's clock minus the reference's at fractional station u. */
+  deltaAt: (u: number) => number;
+}
+
+function assertOnGrid(track: TrackGrid, reference: LapResult, driver: DriverLap): void {
   const n = track.distanceM.length;
-  const step = track.stepM;
-  const closed = track.closed;
   for (const [name, values] of [
     ['time', driver.timeS],
     ['speed', driver.speedMps],
@@ -43,8 +50,134 @@ export function compareLaps(
   }
   if (reference.trace.count !== n)
     throw new Error(`reference lap has ${reference.trace.count} samples but the track grid has ${n}`);
+}
+
+/** Coasting time of the driver (where the log has both pedals) and of the reference over [ownStart, ownEnd]. */
+function cornerCoasting(pair: LapPair, ownStart: number, ownEnd: number) {
+  const { driver, reference, track, settings } = pair;
+  if (!driver.throttle || !driver.brake) return { coastingS: null, referenceCoastingS: null };
   const ref = reference.trace;
-  const deltaS = timeDeltaS(driver.timeS, ref.timeS);
+  const threshold = settings.pedalThreshold;
+  return {
+    coastingS: coastingTime(
+      driver.throttle,
+      driver.brake,
+      driver.timeS,
+      driver.lapTimeS,
+      ownStart,
+      ownEnd,
+      track.closed,
+      threshold,
+    ),
+    referenceCoastingS: coastingTime(
+      ref.throttle,
+      ref.brake,
+      ref.timeS,
+      reference.lapTimeS,
+      ownStart,
+      ownEnd,
+      track.closed,
+      threshold,
+    ),
+  };
+}
+
+/** One corner of the lap, owned from station ownStart to ownEnd: braking, speeds, time by phase, grip. */
+function compareCorner(pair: LapPair, span: CornerSpan, ownStart: number, ownEnd: number): CornerComparison {
+  const { track, settings, driver, reference, drv, refView } = pair;
+  const n = track.distanceM.length;
+  const step = track.stepM;
+  const closed = track.closed;
+  const ref = reference.trace;
+  const at = (values: Float64Array, u: number) => values[wrapIndex(u, n)]!;
+  const braking = compareBraking(
+    reference.brakingZones,
+    pair.driverZones,
+    refView,
+    drv,
+    span,
+    ownStart,
+    n,
+    step,
+    settings.pedalThreshold,
+  );
+  const refMin = slowestPoint(ref.speedMps, span.entryIndex, span.exitIndex, n);
+  const drvMin = slowestPoint(driver.speedMps, span.entryIndex, span.exitIndex, n);
+  const lost = phaseTimesLost(span, ownStart, ownEnd, pair.deltaAt);
+  const { coastingS, referenceCoastingS } = cornerCoasting(pair, ownStart, ownEnd);
+  const grip = gripFigures(pair.driverGripUse, pair.driverGripSmooth, span.entryIndex, span.exitIndex, n);
+  const referenceGrip = gripFigures(ref.gripUse, pair.referenceGripSmooth, span.entryIndex, span.exitIndex, n);
+  const fold = (u: number) => lapIndex(u, n, closed) * step;
+  const beforeM = (pointM: number | null, placeM: number) =>
+    pointM === null ? null : metresBeforeM(pointM, placeM, track);
+  const foldM = (u: number | null) => (u === null ? null : closed ? wrapDistanceM(u * step, track.lengthM) : u * step);
+  const referenceBrakingPointM = foldM(braking.referenceBrake);
+  const driverBrakingPointM = foldM(braking.driverBrake);
+  return {
+    id: span.id,
+    name: span.name,
+    entryM: span.entryM,
+    apexM: span.apexM,
+    exitM: span.exitM,
+    brakingPointDeltaM: braking.brakingPointDeltaM,
+    brakingPointDeltaS: braking.brakingPointDeltaS,
+    referenceBrakingPointM,
+    driverBrakingPointM,
+    turnInM: span.entryM,
+    referenceBeforeTurnInM: beforeM(referenceBrakingPointM, span.entryM),
+    driverBeforeTurnInM: beforeM(driverBrakingPointM, span.entryM),
+    markerName: span.marker?.name ?? null,
+    driverBeforeMarkerM: span.marker ? beforeM(driverBrakingPointM, span.marker.atM) : null,
+    entrySpeedDriverKph: mpsToKph(at(driver.speedMps, span.entryIndex)),
+    entrySpeedReferenceKph: mpsToKph(at(ref.speedMps, span.entryIndex)),
+    minSpeedDriverKph: mpsToKph(drvMin.value),
+    minSpeedReferenceKph: mpsToKph(refMin.value),
+    minSpeedDeltaKph: mpsToKph(drvMin.value - refMin.value),
+    minSpeedOffsetFromApexM: (drvMin.index - span.apexIndex) * step,
+    exitSpeedDriverKph: mpsToKph(at(driver.speedMps, span.exitIndex)),
+    exitSpeedReferenceKph: mpsToKph(at(ref.speedMps, span.exitIndex)),
+    entryTimeLostS: lost.entryS,
+    middleTimeLostS: lost.middleS,
+    exitTimeLostS: lost.exitS,
+    timeLostS: lost.entryS + lost.middleS + lost.exitS,
+    coastingS,
+    meanGripUse: grip.mean,
+    peakGripUse: grip.peak,
+    stretches: gripStretches(
+      pair.driverGripSmooth,
+      pair.referenceGripSmooth,
+      ownStart,
+      ownEnd,
+      n,
+      step,
+      fold,
+      settings,
+    ),
+    ownStartM: fold(ownStart),
+    ownEndM: fold(ownEnd),
+    referenceMinSpeedOffsetFromApexM: (refMin.index - span.apexIndex) * step,
+    driverLiftPointM: foldM(braking.driverLift),
+    liftPointDeltaM: braking.liftPointDeltaM,
+    referenceCoastingS,
+    referenceMeanGripUse: referenceGrip.mean,
+    referencePeakGripUse: referenceGrip.peak,
+  };
+}
+
+export function compareLaps(
+  track: TrackGrid,
+  car: { name: string },
+  reference: LapResult,
+  driver: DriverLap,
+  envelope: Envelope,
+  options: Partial<CompareOptions> = {},
+): ComparisonResult {
+  const settings = { ...DEFAULT_COMPARE_OPTIONS, ...options };
+  assertOnGrid(track, reference, driver);
+  const n = track.distanceM.length;
+  const step = track.stepM;
+  const closed = track.closed;
+  const ref = reference.trace;
   const notes: string[] = [];
 
   const driverBrake = driver.brake ?? estimatedPedal(driver, envelope, 'brake');
@@ -53,9 +186,6 @@ export function compareLaps(
   for (let i = 0; i < n; i++)
     driverGripUse[i] = envelope.gripUse(driver.speedMps[i]!, driver.axMps2[i]!, driver.ayMps2[i]!);
   const smoothHalf = Math.round(2.5 / step);
-  const driverGripSmooth = movingAverage(driverGripUse, smoothHalf, closed);
-  const referenceGripSmooth = movingAverage(ref.gripUse, smoothHalf, closed);
-
   const drv: LapView = {
     speedMps: driver.speedMps,
     timeS: driver.timeS,
@@ -63,114 +193,31 @@ export function compareLaps(
     brake: driverBrake,
   };
   const refView: LapView = { speedMps: ref.speedMps, timeS: ref.timeS, lapTimeS: reference.lapTimeS, brake: ref.brake };
-  const stationM = track.distanceM;
-  const driverZones = findBrakingZones({ closed, count: n, speedMps: driver.speedMps, stationM, brake: driverBrake });
-  const referenceZones = reference.brakingZones;
+  const pair: LapPair = {
+    track,
+    settings,
+    driver,
+    reference,
+    drv,
+    refView,
+    driverZones: findBrakingZones({
+      closed,
+      count: n,
+      speedMps: driver.speedMps,
+      stationM: track.distanceM,
+      brake: driverBrake,
+    }),
+    driverGripUse,
+    driverGripSmooth: movingAverage(driverGripUse, smoothHalf, closed),
+    referenceGripSmooth: movingAverage(ref.gripUse, smoothHalf, closed),
+    deltaAt: (u: number) =>
+      clockAt(driver.timeS, driver.lapTimeS, u, closed) - clockAt(ref.timeS, reference.lapTimeS, u, closed),
+  };
 
   const spans = cornerLayoutOf(track).corners;
   if (spans.length === 0) notes.push('no corners found on this track: the whole lap is reported as one stretch');
   const bounds = ownershipBounds(spans, refView, drv, n, step, closed);
-  const at = (values: Float64Array, u: number) => values[wrapIndex(u, n)]!;
-  const deltaAt = (u: number) =>
-    clockAt(driver.timeS, driver.lapTimeS, u, closed) - clockAt(ref.timeS, reference.lapTimeS, u, closed);
-
-  const corners: CornerComparison[] = spans.map((span, c) => {
-    const ownStart = bounds[c]!;
-    const ownEnd = bounds[c + 1]!;
-    const braking = compareBraking(
-      referenceZones,
-      driverZones,
-      refView,
-      drv,
-      span,
-      ownStart,
-      n,
-      step,
-      settings.pedalThreshold,
-    );
-    const refBrake = braking.referenceBrake;
-    const drvBrake = braking.driverBrake;
-    const drvLift = braking.driverLift;
-    const refMin = slowestPoint(ref.speedMps, span.entryIndex, span.exitIndex, n);
-    const drvMin = slowestPoint(driver.speedMps, span.entryIndex, span.exitIndex, n);
-    const lost = phaseTimesLost(span, ownStart, ownEnd, deltaAt);
-    const entryLost = lost.entryS;
-    const middleLost = lost.middleS;
-    const exitLost = lost.exitS;
-    const coastingS =
-      driver.throttle && driver.brake
-        ? coastingTime(
-            driver.throttle,
-            driver.brake,
-            driver.timeS,
-            driver.lapTimeS,
-            ownStart,
-            ownEnd,
-            closed,
-            settings.pedalThreshold,
-          )
-        : null;
-    const referenceCoastingS =
-      coastingS === null
-        ? null
-        : coastingTime(
-            ref.throttle,
-            ref.brake,
-            ref.timeS,
-            reference.lapTimeS,
-            ownStart,
-            ownEnd,
-            closed,
-            settings.pedalThreshold,
-          );
-    const grip = gripFigures(driverGripUse, driverGripSmooth, span.entryIndex, span.exitIndex, n);
-    const referenceGrip = gripFigures(ref.gripUse, referenceGripSmooth, span.entryIndex, span.exitIndex, n);
-    const fold = (u: number) => lapIndex(u, n, closed) * step;
-    const beforeM = (pointM: number | null, placeM: number) =>
-      pointM === null ? null : metresBeforeM(pointM, placeM, track);
-    const foldM = (u: number | null) =>
-      u === null ? null : closed ? wrapDistanceM(u * step, track.lengthM) : u * step;
-    return {
-      id: span.id,
-      name: span.name,
-      entryM: span.entryM,
-      apexM: span.apexM,
-      exitM: span.exitM,
-      brakingPointDeltaM: braking.brakingPointDeltaM,
-      brakingPointDeltaS: braking.brakingPointDeltaS,
-      referenceBrakingPointM: foldM(refBrake),
-      driverBrakingPointM: foldM(drvBrake),
-      turnInM: span.entryM,
-      referenceBeforeTurnInM: beforeM(foldM(refBrake), span.entryM),
-      driverBeforeTurnInM: beforeM(foldM(drvBrake), span.entryM),
-      markerName: span.marker?.name ?? null,
-      driverBeforeMarkerM: span.marker ? beforeM(foldM(drvBrake), span.marker.atM) : null,
-      entrySpeedDriverKph: mpsToKph(at(driver.speedMps, span.entryIndex)),
-      entrySpeedReferenceKph: mpsToKph(at(ref.speedMps, span.entryIndex)),
-      minSpeedDriverKph: mpsToKph(drvMin.value),
-      minSpeedReferenceKph: mpsToKph(refMin.value),
-      minSpeedDeltaKph: mpsToKph(drvMin.value - refMin.value),
-      minSpeedOffsetFromApexM: (drvMin.index - span.apexIndex) * step,
-      exitSpeedDriverKph: mpsToKph(at(driver.speedMps, span.exitIndex)),
-      exitSpeedReferenceKph: mpsToKph(at(ref.speedMps, span.exitIndex)),
-      entryTimeLostS: entryLost,
-      middleTimeLostS: middleLost,
-      exitTimeLostS: exitLost,
-      timeLostS: entryLost + middleLost + exitLost,
-      coastingS,
-      meanGripUse: grip.mean,
-      peakGripUse: grip.peak,
-      stretches: gripStretches(driverGripSmooth, referenceGripSmooth, ownStart, ownEnd, n, step, fold, settings),
-      ownStartM: fold(ownStart),
-      ownEndM: fold(ownEnd),
-      referenceMinSpeedOffsetFromApexM: (refMin.index - span.apexIndex) * step,
-      driverLiftPointM: foldM(drvLift),
-      liftPointDeltaM: braking.liftPointDeltaM,
-      referenceCoastingS,
-      referenceMeanGripUse: referenceGrip.mean,
-      referencePeakGripUse: referenceGrip.peak,
-    };
-  });
+  const corners = spans.map((span, c) => compareCorner(pair, span, bounds[c]!, bounds[c + 1]!));
 
   return {
     trackName: track.name,
@@ -178,7 +225,7 @@ export function compareLaps(
     driverLapTimeS: driver.lapTimeS,
     referenceLapTimeS: reference.lapTimeS,
     demonstratedLapTimeS: settings.demonstratedLapTimeS,
-    deltaS,
+    deltaS: timeDeltaS(driver.timeS, ref.timeS),
     driverGripUse,
     corners,
     findings: rankFindings(corners, settings.findings),
