@@ -61,14 +61,62 @@ export function looksLikeNmea(head: string): boolean {
   return sentences.length > 0 && sentences.length >= lines.length / 2;
 }
 
-export function parseNmeaText(text: string, source: string): TelemetrySession {
-  const order: Fix[] = [];
-  let badChecksums = 0;
-  let noChecksum = 0;
-  let withoutFix = 0;
-  let sentences = 0;
+/** What a fix sentence (RMC or GGA) says, or null when it reports no fix. */
+interface FixReading {
+  latDeg: number;
+  lonDeg: number;
+  speedMps: number;
+  altitudeM: number;
+}
+
+/** Reads the fields of an RMC or GGA sentence; an RMC date updates the day through setDay. */
+function readFixSentence(kind: string, fields: string[], setDay: (day: number) => void): FixReading | null {
+  if (kind === 'RMC') {
+    // $--RMC,hhmmss.ss,A,llll.ll,a,yyyyy.yy,a,x.x(knots),x.x(course),ddmmyy,...; status V = no fix.
+    const day = parseDate(fields[9] ?? '');
+    if (day !== null) setDay(day);
+    if (fields[2] !== 'A' || fields[12] === 'N') return null;
+    const knots = Number(fields[7]);
+    return {
+      latDeg: parseAngle(fields[3] ?? '', fields[4] ?? '', 2),
+      lonDeg: parseAngle(fields[5] ?? '', fields[6] ?? '', 3),
+      speedMps: fields[7] !== '' && Number.isFinite(knots) ? knots * KNOT_MPS : NaN,
+      altitudeM: NaN,
+    };
+  }
+  // $--GGA,hhmmss.ss,llll.ll,a,yyyyy.yy,a,quality,satellites,hdop,altitude,M,...; quality 0 = no fix.
+  if (!(Number(fields[6]) > 0)) return null;
+  // Altitude in the unit of field 10, which NMEA 0183 fixes as M (metres); an empty field is no altitude.
+  const altitude = Number(fields[9]);
+  return {
+    latDeg: parseAngle(fields[2] ?? '', fields[3] ?? '', 2),
+    lonDeg: parseAngle(fields[4] ?? '', fields[5] ?? '', 3),
+    speedMps: NaN,
+    altitudeM: fields[9] !== '' && fields[10] === 'M' && Number.isFinite(altitude) ? altitude : NaN,
+  };
+}
+
+/** The fixes of a log in the order they arrive, one per time stamp, with counts of what was skipped. */
+interface FixList {
+  fixes: Fix[];
+  badChecksums: number;
+  noChecksum: number;
+  withoutFix: number;
+  sentences: number;
+  otherKinds: Set<string>;
+}
+
+function collectFixes(text: string, source: string): FixList {
+  const list: FixList = {
+    fixes: [],
+    badChecksums: 0,
+    noChecksum: 0,
+    withoutFix: 0,
+    sentences: 0,
+    otherKinds: new Set<string>(),
+  };
+  const order = list.fixes;
   let currentDay: number | null = null;
-  const otherKinds = new Set<string>();
   const lines = text.replace(/^\uFEFF/, '').split(/\r?\n/);
   lines.forEach((rawLine, lineIndex) => {
     const start = rawLine.indexOf('$');
@@ -76,54 +124,31 @@ export function parseNmeaText(text: string, source: string): TelemetrySession {
     const line = rawLine.slice(start).trim();
     const star = line.lastIndexOf('*');
     if (star < 0) {
-      noChecksum++;
+      list.noChecksum++;
       return;
     }
-    sentences++;
+    list.sentences++;
     const body = line.slice(1, star);
     const stated = line.slice(star + 1, star + 3);
     if (!/^[0-9A-Fa-f]{2}$/.test(stated) || parseInt(stated, 16) !== nmeaChecksum(body)) {
-      badChecksums++;
+      list.badChecksums++;
       return;
     }
     const fields = body.split(',');
     const kind = fields[0]!.slice(-3);
     if (fields[0]!.length !== 5 || (kind !== 'RMC' && kind !== 'GGA')) {
-      if (/^[A-Z]{2}[A-Z]{3}$/.test(fields[0]!)) otherKinds.add(kind);
+      if (/^[A-Z]{2}[A-Z]{3}$/.test(fields[0]!)) list.otherKinds.add(kind);
       return;
     }
     const timeKey = fields[1] ?? '';
     const secondOfDay = parseTimeOfDay(timeKey);
     if (Number.isNaN(secondOfDay)) return;
-    let latDeg: number;
-    let lonDeg: number;
-    let speedMps = NaN;
-    let altitudeM = NaN;
-    if (kind === 'RMC') {
-      // $--RMC,hhmmss.ss,A,llll.ll,a,yyyyy.yy,a,x.x(knots),x.x(course),ddmmyy,...; status V = no fix.
-      const day = parseDate(fields[9] ?? '');
-      if (day !== null) currentDay = day;
-      if (fields[2] !== 'A' || fields[12] === 'N') {
-        withoutFix++;
-        return;
-      }
-      latDeg = parseAngle(fields[3] ?? '', fields[4] ?? '', 2);
-      lonDeg = parseAngle(fields[5] ?? '', fields[6] ?? '', 3);
-      const knots = Number(fields[7]);
-      if (fields[7] !== '' && Number.isFinite(knots)) speedMps = knots * KNOT_MPS;
-    } else {
-      // $--GGA,hhmmss.ss,llll.ll,a,yyyyy.yy,a,quality,satellites,hdop,altitude,M,...; quality 0 = no fix.
-      const quality = Number(fields[6]);
-      if (!(quality > 0)) {
-        withoutFix++;
-        return;
-      }
-      latDeg = parseAngle(fields[2] ?? '', fields[3] ?? '', 2);
-      lonDeg = parseAngle(fields[4] ?? '', fields[5] ?? '', 3);
-      // Altitude in the unit of field 10, which NMEA 0183 fixes as M (metres); an empty field is no altitude.
-      const altitude = Number(fields[9]);
-      if (fields[9] !== '' && fields[10] === 'M' && Number.isFinite(altitude)) altitudeM = altitude;
+    const reading = readFixSentence(kind, fields, (day) => (currentDay = day));
+    if (reading === null) {
+      list.withoutFix++;
+      return;
     }
+    const { latDeg, lonDeg, speedMps, altitudeM } = reading;
     if (Number.isNaN(latDeg) || Number.isNaN(lonDeg)) {
       throw new InputError(`${source}: line ${lineIndex + 1}: ${fields[0]} sentence has an unreadable position`);
     }
@@ -143,7 +168,7 @@ export function parseNmeaText(text: string, source: string): TelemetrySession {
       if (held.dayNumber === null) held.dayNumber = currentDay;
       return;
     }
-    const fix: Fix = {
+    order.push({
       timeKey,
       secondOfDay,
       dayNumber: currentDay,
@@ -152,26 +177,16 @@ export function parseNmeaText(text: string, source: string): TelemetrySession {
       speedMps,
       altitudeM,
       line: lineIndex + 1,
-    };
-    order.push(fix);
+    });
   });
-  if (sentences === 0 && noChecksum === 0) throw new InputError(`${source}: no NMEA sentences found`);
-  if (order.length === 0) {
-    const skipped =
-      badChecksums > 0 ? ` (${badChecksums} sentence${badChecksums > 1 ? 's' : ''} skipped for bad checksums)` : '';
-    throw new InputError(`${source}: no RMC or GGA sentence with a GPS fix${skipped}`);
-  }
+  return list;
+}
 
-  // Absolute time: the RMC date where known; otherwise the time of day, with a day added at each midnight.
+/** Seconds from the first fix: the RMC date where known; otherwise the time of day, a day added at each midnight. */
+function fixTimesS(order: readonly Fix[], source: string): Float64Array {
   const count = order.length;
   const timeS = new Float64Array(count);
-  const lat = new Float64Array(count);
-  const lon = new Float64Array(count);
-  const speed = new Float64Array(count);
-  const altitude = new Float64Array(count);
   let extraDays = 0;
-  let speedSamples = 0;
-  let altitudeSamples = 0;
   const firstDay = order.find((fix) => fix.dayNumber !== null)?.dayNumber ?? 0;
   for (let i = 0; i < count; i++) {
     const fix = order[i]!;
@@ -189,22 +204,37 @@ export function parseNmeaText(text: string, source: string): TelemetrySession {
       );
     }
     timeS[i] = t;
-    lat[i] = fix.latDeg;
-    lon[i] = fix.lonDeg;
-    speed[i] = fix.speedMps;
-    if (!Number.isNaN(fix.speedMps)) speedSamples++;
-    altitude[i] = fix.altitudeM;
-    if (!Number.isNaN(fix.altitudeM)) altitudeSamples++;
   }
   const t0 = timeS[0]!;
   for (let i = 0; i < count; i++) timeS[i] = timeS[i]! - t0;
+  return timeS;
+}
+
+const counted = (count: number, one: string, many: string) => `${count} ${count === 1 ? one : many}`;
+
+export function parseNmeaText(text: string, source: string): TelemetrySession {
+  const list = collectFixes(text, source);
+  const order = list.fixes;
+  if (list.sentences === 0 && list.noChecksum === 0) throw new InputError(`${source}: no NMEA sentences found`);
+  if (order.length === 0) {
+    const bad = list.badChecksums;
+    const skipped = bad > 0 ? ` (${bad} sentence${bad > 1 ? 's' : ''} skipped for bad checksums)` : '';
+    throw new InputError(`${source}: no RMC or GGA sentence with a GPS fix${skipped}`);
+  }
+  const count = order.length;
+  const timeS = fixTimesS(order, source);
+  const lat = Float64Array.from(order, (fix) => fix.latDeg);
+  const lon = Float64Array.from(order, (fix) => fix.lonDeg);
+  const speed = Float64Array.from(order, (fix) => fix.speedMps);
+  const altitude = Float64Array.from(order, (fix) => fix.altitudeM);
+  const speedSamples = order.filter((fix) => !Number.isNaN(fix.speedMps)).length;
+  const altitudeSamples = order.filter((fix) => !Number.isNaN(fix.altitudeM)).length;
   const notes: string[] = [];
-  if (badChecksums > 0)
-    notes.push(`skipped ${badChecksums} ${badChecksums === 1 ? 'sentence' : 'sentences'} with bad checksums`);
-  if (noChecksum > 0)
-    notes.push(`skipped ${noChecksum} ${noChecksum === 1 ? 'sentence' : 'sentences'} without a checksum`);
-  if (withoutFix > 0)
-    notes.push(`ignored ${withoutFix} ${withoutFix === 1 ? 'sentence' : 'sentences'} without a GPS fix`);
+  if (list.badChecksums > 0)
+    notes.push(`skipped ${counted(list.badChecksums, 'sentence', 'sentences')} with bad checksums`);
+  if (list.noChecksum > 0)
+    notes.push(`skipped ${counted(list.noChecksum, 'sentence', 'sentences')} without a checksum`);
+  if (list.withoutFix > 0) notes.push(`ignored ${counted(list.withoutFix, 'sentence', 'sentences')} without a GPS fix`);
   if (count < 2) throw new InputError(`${source}: only one GPS fix; a lap needs many`);
 
   let speedMps: Float64Array | null = null;
@@ -213,6 +243,6 @@ export function parseNmeaText(text: string, source: string): TelemetrySession {
     speedMps = speed;
     if (speedSamples < count) notes.push(`${count - speedSamples} fixes without RMC speed: filled by interpolation`);
   }
-  if (otherKinds.size > 0) notes.push(`sentences not used: ${[...otherKinds].sort().join(', ')}`);
+  if (list.otherKinds.size > 0) notes.push(`sentences not used: ${[...list.otherKinds].sort().join(', ')}`);
   return withAltitude(gpsSession(source, timeS, lat, lon, speedMps, notes), altitude, altitudeSamples, 'GGA');
 }
