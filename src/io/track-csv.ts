@@ -53,7 +53,18 @@ function columnIndex(
   return index;
 }
 
-export function parseTrackCsv(text: string, source: string, options: TrackReadOptions): TrackGrid {
+/** Where each track column is in the header (-1 where absent), after the user's --columns mapping. */
+interface TrackColumnIndices {
+  x: number;
+  y: number;
+  left: number;
+  right: number;
+  z: number;
+  bank: number;
+}
+
+/** A --columns mapping may only name track columns; checked before the file is read. */
+function checkColumnMapping(options: TrackReadOptions, source: string): void {
   for (const key of Object.keys(options.columns)) {
     if (!(TRACK_COLUMNS as readonly string[]).includes(key)) {
       throw new InputError(
@@ -61,86 +72,131 @@ export function parseTrackCsv(text: string, source: string, options: TrackReadOp
       );
     }
   }
-  const table = parseCsvTable(text, source);
-  const { header, rows, lines } = table;
-  const xIndex = columnIndex(header, 'x_m', options.columns, true, source);
-  const yIndex = columnIndex(header, 'y_m', options.columns, true, source);
-  const leftIndex = columnIndex(header, 'width_left_m', options.columns, false, source);
-  const rightIndex = columnIndex(header, 'width_right_m', options.columns, false, source);
-  if (leftIndex < 0 !== rightIndex < 0) {
-    const [has, lacks] = leftIndex >= 0 ? ['width_left_m', 'width_right_m'] : ['width_right_m', 'width_left_m'];
+}
+
+function trackColumnIndices(header: string[], options: TrackReadOptions, source: string): TrackColumnIndices {
+  const at = (column: TrackColumn, required: boolean) => columnIndex(header, column, options.columns, required, source);
+  const indices = {
+    x: at('x_m', true),
+    y: at('y_m', true),
+    left: at('width_left_m', false),
+    right: at('width_right_m', false),
+    z: at('z_m', false),
+    bank: at('bank_deg', false),
+  };
+  if (indices.left < 0 !== indices.right < 0) {
+    const [has, lacks] = indices.left >= 0 ? ['width_left_m', 'width_right_m'] : ['width_right_m', 'width_left_m'];
     throw new InputError(
       `${source}: column ${has} found but ${lacks} missing; give both or neither (columns found: ${header.join(', ')})`,
     );
   }
-  const hasWidths = leftIndex >= 0;
-  const zIndex = columnIndex(header, 'z_m', options.columns, false, source);
-  const bankIndex = columnIndex(header, 'bank_deg', options.columns, false, source);
+  return indices;
+}
 
-  let n = rows.length;
-  if (n < 4) throw new InputError(`${source}: only ${n} points; a centreline needs at least 4`);
-  let x = new Float64Array(n);
-  let y = new Float64Array(n);
-  let left = hasWidths ? new Float64Array(n) : null;
-  let right = hasWidths ? new Float64Array(n) : null;
-  let z = zIndex >= 0 ? new Float64Array(n) : null;
-  let bank = bankIndex >= 0 ? new Float64Array(n) : null;
-  const names = header;
+/** The centreline's points as read, each row checked: a place on a local plane, widths, grade and bank. */
+interface CentrelineColumns {
+  x: Float64Array;
+  y: Float64Array;
+  left: Float64Array | null;
+  right: Float64Array | null;
+  z: Float64Array | null;
+  bank: Float64Array | null;
+}
+
+function readCentrelineRows(
+  table: ReturnType<typeof parseCsvTable>,
+  at: TrackColumnIndices,
+  source: string,
+): CentrelineColumns {
+  const { header: names, rows, lines } = table;
+  const n = rows.length;
+  const hasWidths = at.left >= 0;
+  const points: CentrelineColumns = {
+    x: new Float64Array(n),
+    y: new Float64Array(n),
+    left: hasWidths ? new Float64Array(n) : null,
+    right: hasWidths ? new Float64Array(n) : null,
+    z: at.z >= 0 ? new Float64Array(n) : null,
+    bank: at.bank >= 0 ? new Float64Array(n) : null,
+  };
+  const { x, y, left, right, z, bank } = points;
   for (let i = 0; i < n; i++) {
     const row = rows[i]!;
     const line = lines[i]!;
-    x[i] = numberCell(row[xIndex] ?? '', source, line, names[xIndex]!);
-    y[i] = numberCell(row[yIndex] ?? '', source, line, names[yIndex]!);
+    const cell = (index: number) => numberCell(row[index] ?? '', source, line, names[index]!);
+    x[i] = cell(at.x);
+    y[i] = cell(at.y);
     if (!(Math.abs(x[i]!) <= MAX_COORDINATE_M && Math.abs(y[i]!) <= MAX_COORDINATE_M)) {
       throw new InputError(
         `${source}: row ${line}: point (${x[i]}, ${y[i]}) is over 10,000 km from the origin; coordinates must be metres on a local plane`,
       );
     }
     if (left && right) {
-      left[i] = numberCell(row[leftIndex] ?? '', source, line, names[leftIndex]!);
-      right[i] = numberCell(row[rightIndex] ?? '', source, line, names[rightIndex]!);
+      left[i] = cell(at.left);
+      right[i] = cell(at.right);
       if (left[i]! < 0)
-        throw new InputError(`${source}: row ${line}, column ${names[leftIndex]}: negative width ${left[i]} m`);
+        throw new InputError(`${source}: row ${line}, column ${names[at.left]}: negative width ${left[i]} m`);
       if (right[i]! < 0)
-        throw new InputError(`${source}: row ${line}, column ${names[rightIndex]}: negative width ${right[i]} m`);
+        throw new InputError(`${source}: row ${line}, column ${names[at.right]}: negative width ${right[i]} m`);
     }
     if (i > 0 && Math.hypot(x[i]! - x[i - 1]!, y[i]! - y[i - 1]!) < SAME_POINT_M) {
       throw new InputError(`${source}: row ${line}: the point repeats the one before it (row ${lines[i - 1]})`);
     }
     if (z) {
-      z[i] = numberCell(row[zIndex] ?? '', source, line, names[zIndex]!);
+      z[i] = cell(at.z);
       const runM = i > 0 ? Math.hypot(x[i]! - x[i - 1]!, y[i]! - y[i - 1]!) : 0;
       if (i > 0 && Math.abs(z[i]! - z[i - 1]!) > MAX_GRADE * runM)
         throw new InputError(
-          `${source}: row ${line}, column ${names[zIndex]}: the height jumps ${(z[i]! - z[i - 1]!).toFixed(2)} m over ${runM.toFixed(2)} m from row ${lines[i - 1]} (a grade over ${MAX_GRADE * 100} %)`,
+          `${source}: row ${line}, column ${names[at.z]}: the height jumps ${(z[i]! - z[i - 1]!).toFixed(2)} m over ${runM.toFixed(2)} m from row ${lines[i - 1]} (a grade over ${MAX_GRADE * 100} %)`,
         );
     }
     if (bank) {
-      bank[i] = numberCell(row[bankIndex] ?? '', source, line, names[bankIndex]!);
+      bank[i] = cell(at.bank);
       if (Math.abs(bank[i]!) > MAX_BANK_DEG)
         throw new InputError(
-          `${source}: row ${line}, column ${names[bankIndex]}: bank ${bank[i]} degrees is over ${MAX_BANK_DEG} degrees`,
+          `${source}: row ${line}, column ${names[at.bank]}: bank ${bank[i]} degrees is over ${MAX_BANK_DEG} degrees`,
         );
     }
   }
+  return points;
+}
 
-  const closingDuplicate = Math.hypot(x[n - 1]! - x[0]!, y[n - 1]! - y[0]!) < SAME_POINT_M;
-  const closed = options.layout === 'closed' || (options.layout === 'auto' && (closingDuplicate || endsMeet(x, y)));
+/** The first n points of every column (a closed centreline whose last row repeats its first drops that row). */
+function firstPoints(points: CentrelineColumns, n: number): CentrelineColumns {
+  const head = (values: Float64Array | null) => values && values.subarray(0, n);
+  return {
+    x: points.x.subarray(0, n),
+    y: points.y.subarray(0, n),
+    left: head(points.left),
+    right: head(points.right),
+    z: head(points.z),
+    bank: head(points.bank),
+  };
+}
+
+export function parseTrackCsv(text: string, source: string, options: TrackReadOptions): TrackGrid {
+  checkColumnMapping(options, source);
+  const table = parseCsvTable(text, source);
+  const indices = trackColumnIndices(table.header, options, source);
+  let n = table.rows.length;
+  if (n < 4) throw new InputError(`${source}: only ${n} points; a centreline needs at least 4`);
+  let points = readCentrelineRows(table, indices, source);
+
+  const closingDuplicate = Math.hypot(points.x[n - 1]! - points.x[0]!, points.y[n - 1]! - points.y[0]!) < SAME_POINT_M;
+  const closed =
+    options.layout === 'closed' || (options.layout === 'auto' && (closingDuplicate || endsMeet(points.x, points.y)));
   if (closed && closingDuplicate) {
     n -= 1;
-    x = x.subarray(0, n);
-    y = y.subarray(0, n);
-    left = left && left.subarray(0, n);
-    right = right && right.subarray(0, n);
-    z = z && z.subarray(0, n);
-    bank = bank && bank.subarray(0, n);
+    points = firstPoints(points, n);
     if (n < 4) throw new InputError(`${source}: only ${n} distinct points; a closed centreline needs at least 4`);
   }
+  const { x, y, z, bank } = points;
   const fold = firstFold(x, y, closed);
   if (fold >= 0)
     throw new InputError(
-      `${source}: row ${lines[fold]}: the centreline turns back on itself at (${x[fold]}, ${y[fold]}) (over ${MAX_TURN_AT_POINT_DEG} degrees at one point); a track does not run out and back along itself`,
+      `${source}: row ${table.lines[fold]}: the centreline turns back on itself at (${x[fold]}, ${y[fold]}) (over ${MAX_TURN_AT_POINT_DEG} degrees at one point); a track does not run out and back along itself`,
     );
+  let { left, right } = points;
   if (!left && options.widthM !== null) {
     left = new Float64Array(n).fill(options.widthM / 2);
     right = new Float64Array(n).fill(options.widthM / 2);

@@ -189,6 +189,114 @@ export function applyRigid(
   return { xM: outX, yM: outY };
 }
 
+function centroid(xs: ArrayLike<number>, ys: ArrayLike<number>): [number, number] {
+  let sx = 0;
+  let sy = 0;
+  for (let i = 0; i < xs.length; i++) {
+    sx += xs[i]!;
+    sy += ys[i]!;
+  }
+  return [sx / xs.length, sy / ys.length];
+}
+
+/** Points matched to the centreline: each point's nearest centreline point (qx, qy) and its gap. */
+interface Matches {
+  px: readonly number[];
+  py: readonly number[];
+  qx: Float64Array;
+  qy: Float64Array;
+  gaps: Float64Array;
+}
+
+/** Moves every point by the transform and matches it to its nearest centreline point. */
+function matchToCentreline(
+  track: TrackGrid,
+  transform: RigidTransform,
+  matches: Matches,
+  projection: PointProjection,
+): void {
+  const { px, py, qx, qy, gaps } = matches;
+  const c = Math.cos(transform.rotationRad);
+  const s = Math.sin(transform.rotationRad);
+  const n = track.xM.length;
+  for (let i = 0; i < px.length; i++) {
+    const x = c * px[i]! - s * py[i]! + transform.txM;
+    const y = s * px[i]! + c * py[i]! + transform.tyM;
+    projectGlobal(track, x, y, projection);
+    const a = projection.segment;
+    const b = a + 1 < n ? a + 1 : 0;
+    const t = n > 1 ? segmentFraction(track, a, b, x, y) : 0;
+    qx[i] = lerp(track.xM[a]!, track.xM[b]!, t);
+    qy[i] = lerp(track.yM[a]!, track.yM[b]!, t);
+    gaps[i] = projection.gapM;
+  }
+}
+
+/**
+ * Kabsch in 2-D (Kabsch 1976): the rotation and translation that best map the points onto their matches, over
+ * the pairs whose gap is at most keepM; null with fewer than three such pairs.
+ */
+function kabschStep(matches: Matches, keepM: number): { rotationRad: number; txM: number; tyM: number } | null {
+  const { px, py, qx, qy, gaps } = matches;
+  let count = 0;
+  let mpx = 0;
+  let mpy = 0;
+  let mqx = 0;
+  let mqy = 0;
+  for (let i = 0; i < px.length; i++) {
+    if (gaps[i]! > keepM) continue;
+    mpx += px[i]!;
+    mpy += py[i]!;
+    mqx += qx[i]!;
+    mqy += qy[i]!;
+    count++;
+  }
+  if (count < 3) return null;
+  mpx /= count;
+  mpy /= count;
+  mqx /= count;
+  mqy /= count;
+  let sp = 0;
+  let sq = 0;
+  for (let i = 0; i < px.length; i++) {
+    if (gaps[i]! > keepM) continue;
+    const ax = px[i]! - mpx;
+    const ay = py[i]! - mpy;
+    const bx = qx[i]! - mqx;
+    const by = qy[i]! - mqy;
+    sp += ax * bx + ay * by;
+    sq += ax * by - ay * bx;
+  }
+  const rotationRad = Math.atan2(sq, sp);
+  const c = Math.cos(rotationRad);
+  const s = Math.sin(rotationRad);
+  return { rotationRad, txM: mqx - (c * mpx - s * mpy), tyM: mqy - (s * mpx + c * mpy) };
+}
+
+/** ICP from a start: match, drop the pairs beyond 2.5 x the median gap, Kabsch, until the transform settles. */
+function iterateRigid(
+  track: TrackGrid,
+  start: RigidTransform,
+  iterations: number,
+  matches: Matches,
+  projection: PointProjection,
+): RigidTransform {
+  let current = start;
+  let medianGap = Infinity;
+  for (let iteration = 0; iteration < iterations; iteration++) {
+    matchToCentreline(track, current, matches, projection);
+    medianGap = median(matches.gaps);
+    const next = kabschStep(matches, Math.max(2.5 * medianGap, 1));
+    if (next === null) break;
+    const change =
+      Math.abs(next.rotationRad - current.rotationRad) +
+      Math.hypot(next.txM - current.txM, next.tyM - current.tyM) / 1000;
+    current = { ...next, medianGapM: medianGap };
+    if (change < 1e-9) break;
+  }
+  return { rotationRad: current.rotationRad, txM: current.txM, tyM: current.tyM, medianGapM: medianGap };
+}
+
 /**
  * Rotation + translation (no scale, no mirror) that lays a path onto the centreline. ICP from twelve starting
  * headings about the centroids; in each iteration the pairs further than 2.5 x the median gap are dropped
@@ -203,86 +311,10 @@ export function fitRigidToCentreline(track: TrackGrid, xM: Float64Array, yM: Flo
     py.push(yM[i]!);
   }
   const m = px.length;
-  const centroid = (xs: ArrayLike<number>, ys: ArrayLike<number>): [number, number] => {
-    let sx = 0;
-    let sy = 0;
-    for (let i = 0; i < xs.length; i++) {
-      sx += xs[i]!;
-      sy += ys[i]!;
-    }
-    return [sx / xs.length, sy / ys.length];
-  };
   const [pcx, pcy] = centroid(px, py);
   const [tcx, tcy] = centroid(track.xM, track.yM);
   const projection = emptyProjection();
-  const qx = new Float64Array(m);
-  const qy = new Float64Array(m);
-  const gaps = new Float64Array(m);
-
-  const iterate = (start: RigidTransform, iterations: number): RigidTransform => {
-    let { rotationRad, txM, tyM } = start;
-    let medianGap = Infinity;
-    for (let iteration = 0; iteration < iterations; iteration++) {
-      const c = Math.cos(rotationRad);
-      const s = Math.sin(rotationRad);
-      // Match each transformed point to its nearest centreline point.
-      for (let i = 0; i < m; i++) {
-        const x = c * px[i]! - s * py[i]! + txM;
-        const y = s * px[i]! + c * py[i]! + tyM;
-        projectGlobal(track, x, y, projection);
-        const n = track.xM.length;
-        const a = projection.segment;
-        const b = a + 1 < n ? a + 1 : 0;
-        const t = n > 1 ? segmentFraction(track, a, b, x, y) : 0;
-        qx[i] = lerp(track.xM[a]!, track.xM[b]!, t);
-        qy[i] = lerp(track.yM[a]!, track.yM[b]!, t);
-        gaps[i] = projection.gapM;
-      }
-      medianGap = median(gaps);
-      const keep = Math.max(2.5 * medianGap, 1);
-      // Kabsch in 2-D: the rotation that best maps the original points onto their matches.
-      let sp = 0;
-      let sq = 0;
-      let count = 0;
-      let mpx = 0;
-      let mpy = 0;
-      let mqx = 0;
-      let mqy = 0;
-      for (let i = 0; i < m; i++) {
-        if (gaps[i]! > keep) continue;
-        mpx += px[i]!;
-        mpy += py[i]!;
-        mqx += qx[i]!;
-        mqy += qy[i]!;
-        count++;
-      }
-      if (count < 3) break;
-      mpx /= count;
-      mpy /= count;
-      mqx /= count;
-      mqy /= count;
-      for (let i = 0; i < m; i++) {
-        if (gaps[i]! > keep) continue;
-        const ax = px[i]! - mpx;
-        const ay = py[i]! - mpy;
-        const bx = qx[i]! - mqx;
-        const by = qy[i]! - mqy;
-        sp += ax * bx + ay * by;
-        sq += ax * by - ay * bx;
-      }
-      const next = Math.atan2(sq, sp);
-      const cn = Math.cos(next);
-      const sn = Math.sin(next);
-      const nextTx = mqx - (cn * mpx - sn * mpy);
-      const nextTy = mqy - (sn * mpx + cn * mpy);
-      const change = Math.abs(next - rotationRad) + Math.hypot(nextTx - txM, nextTy - tyM) / 1000;
-      rotationRad = next;
-      txM = nextTx;
-      tyM = nextTy;
-      if (change < 1e-9) break;
-    }
-    return { rotationRad, txM, tyM, medianGapM: medianGap };
-  };
+  const matches: Matches = { px, py, qx: new Float64Array(m), qy: new Float64Array(m), gaps: new Float64Array(m) };
 
   let best: RigidTransform | null = null;
   for (let k = 0; k < 12; k++) {
@@ -295,12 +327,13 @@ export function fitRigidToCentreline(track: TrackGrid, xM: Float64Array, yM: Flo
       tyM: tcy - (s * pcx + c * pcy),
       medianGapM: Infinity,
     };
-    const candidate = iterate(start, 12);
+    const candidate = iterateRigid(track, start, 12, matches, projection);
     if (!best || candidate.medianGapM < best.medianGapM) best = candidate;
   }
-  const refined = iterate(best!, 40);
+  const refined = iterateRigid(track, best!, 40, matches, projection);
   // Report the gap of the final transform over all sampled points.
   const placed = applyRigid(refined, Float64Array.from(px), Float64Array.from(py));
+  const gaps = matches.gaps;
   for (let i = 0; i < m; i++) {
     projectGlobal(track, placed.xM[i]!, placed.yM[i]!, projection);
     gaps[i] = projection.gapM;
