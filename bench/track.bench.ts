@@ -6,7 +6,7 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { parseTrackText } from '../src/io/read-track.js';
 import type { TrackReadOptions } from '../src/io/track-read-options.js';
-import { cyclicBandedSolver, factorCyclicBanded, solveCyclicBanded } from '../src/numeric/banded.js';
+import { factorCyclicBanded } from '../src/numeric/banded.js';
 import { machineLoad, medianTimes, peakRssMb, verdict } from './stats.js';
 
 const projectRoot = fileURLToPath(new URL('../..', import.meta.url));
@@ -67,7 +67,7 @@ export async function run(): Promise<void> {
   const out = new Float64Array(n);
   const factorTime = medianTimes(
     () => {
-      cyclicBandedSolver(n, 2, entry)(rhs, out);
+      factorCyclicBanded(n, 2, entry).solve(rhs, out);
     },
     50,
     10,
@@ -75,7 +75,7 @@ export async function run(): Promise<void> {
   const factor = factorCyclicBanded(n, 2, entry);
   const solveTime = medianTimes(
     () => {
-      solveCyclicBanded(factor, rhs, out);
+      factor.solve(rhs, out);
     },
     200,
     20,

@@ -10,7 +10,7 @@
 // line of thousands of points along the edges of a track needs (an active-set method here changed hundreds of
 // bounds per step and cycled). Variables whose box has no width are fixed and leave the system.
 
-import { cyclicBandedSolver, bandedSolver, type BandEntry } from '../numeric/banded.js';
+import { factorBanded, factorCyclicBanded, type BandEntry } from '../numeric/banded.js';
 import { factorPenta, pentaFactorFor, solvePenta, SMALLEST_CYCLIC_PENTA, type PentaFactor } from './penta-cholesky.js';
 
 /** Q's band: diag[i] = Q[i][i], off1[i] = Q[i][i+1], off2[i] = Q[i][i+2] (indices modulo n when cyclic). */
@@ -168,7 +168,7 @@ function solveSystem(work: BoxQpWorkspace, rhs: Float64Array, out: Float64Array)
   }
   const entry: BandEntry = (i, k) => (k === 0 ? system.diag[i]! : k === 1 ? system.off1[i]! : system.off2[i]!);
   try {
-    (system.cyclic ? cyclicBandedSolver(n, 2, entry) : bandedSolver(n, 2, entry))(rhs, out);
+    (system.cyclic ? factorCyclicBanded : factorBanded)(n, 2, entry).solve(rhs, out);
   } catch {
     return false;
   }

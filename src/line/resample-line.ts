@@ -4,7 +4,7 @@
 // track), whose second derivative is continuous (de Boor, A Practical Guide to Splines, 1978, ch. IV), and
 // positions through the chord-length spline of src/track/spline.ts, cut by each grid sample's normal.
 
-import { bandedSolver, cyclicBandedSolver } from '../numeric/banded.js';
+import { factorBanded, factorCyclicBanded } from '../numeric/banded.js';
 import { chordSpline, type ChordSpline } from '../track/spline.js';
 import type { TrackGrid } from '../track/types.js';
 
@@ -83,12 +83,15 @@ export function splineOffsets(track: TrackGrid, stationM: Float64Array, offsetM:
   if (closed && n >= 3) {
     const rhs = new Float64Array(n);
     for (let i = 0; i < n; i++) rhs[i] = 6 * (slope(i) - slope(i === 0 ? n - 1 : i - 1));
-    cyclicBandedSolver(n, 1, (i, k) => (k === 0 ? 2 * (h[i === 0 ? n - 1 : i - 1]! + h[i]!) : h[i]!))(rhs, second);
+    factorCyclicBanded(n, 1, (i, k) => (k === 0 ? 2 * (h[i === 0 ? n - 1 : i - 1]! + h[i]!) : h[i]!)).solve(
+      rhs,
+      second,
+    );
   } else if (n > 2) {
     const last = n - 3;
     const rhs = new Float64Array(n - 2);
     for (let i = 1; i < n - 1; i++) rhs[i - 1] = 6 * (slope(i) - slope(i - 1));
-    const solve = bandedSolver(n - 2, 1, (j, k) =>
+    const { solve } = factorBanded(n - 2, 1, (j, k) =>
       k === 1 ? h[j + 1]! : 2 * (h[j]! + h[j + 1]!) + (j === 0 ? h[0]! : 0) + (j === last ? h[n - 2]! : 0),
     );
     second.set(solve(rhs), 1);

@@ -1,4 +1,6 @@
-// Linear solvers for symmetric positive definite banded systems, plain and cyclic, at linear cost in n.
+// Linear solvers for symmetric positive definite banded systems, plain and cyclic, at linear cost in n. As with
+// ml-matrix's decomposition objects, a matrix is factored once (factorBanded, factorCyclicBanded) and the factor's
+// solve(rhs, out?) serves every right-hand side.
 //
 // Storage. A banded matrix of half-bandwidth p is given by entry(i, k) = A[i][i + k] for k = 0..p (the upper
 // half; symmetry gives the rest). The Cholesky factor A = L L^T is kept compactly, row by row, in one
@@ -23,34 +25,18 @@ import { CholeskyDecomposition, LuDecomposition, Matrix } from 'ml-matrix';
 /** entry(i, k) = A[i][i + k] for k = 0..halfBandwidth (cyclic solvers: column index taken modulo n). */
 export type BandEntry = (i: number, offset: number) => number;
 
+/** Solves A x = rhs; out may be rhs itself. */
 export type BandedSolve = (rhs: Float64Array, out?: Float64Array) => Float64Array;
 
+/** A factored banded matrix: factor once, solve for as many right-hand sides as needed. */
 export interface BandedFactor {
   n: number;
   halfBandwidth: number;
-  /** Cholesky factor, band[i * (p + 1) + k] = L[i][i - k]. */
-  band: Float64Array;
+  solve: BandedSolve;
 }
 
-export interface CyclicBandedFactor {
-  n: number;
-  halfBandwidth: number;
-  /** Factor of the banded matrix B = A + U U^T (see the module header); null when n is too small for the band trick. */
-  inner: BandedFactor | null;
-  /** Z = B^-1 U, column-major: z[j * n + i]. */
-  z: Float64Array;
-  /** U's non-zero rows: the first p rows are sqrt(alpha) I; the last p rows are stored here, u[r * p + j]. */
-  sqrtAlpha: number;
-  uTail: Float64Array;
-  /** C^-1, p x p row-major. */
-  capacitanceInverse: Float64Array;
-  /** Dense fallback for tiny systems (n < 2p + 2). */
-  dense: Matrix | null;
-}
-
-/** Factors a symmetric positive definite banded matrix; throws RangeError when it is not positive definite. */
-export function factorBanded(n: number, halfBandwidth: number, entry: BandEntry): BandedFactor {
-  const p = halfBandwidth;
+/** Cholesky factor, band[i * (p + 1) + k] = L[i][i - k]. */
+function choleskyBand(n: number, p: number, entry: BandEntry): Float64Array {
   const w = p + 1;
   const band = new Float64Array(n * w);
   for (let i = 0; i < n; i++) {
@@ -68,27 +54,20 @@ export function factorBanded(n: number, halfBandwidth: number, entry: BandEntry)
       }
     }
   }
-  return { n, halfBandwidth: p, band };
+  return band;
 }
 
-/** Solves A x = rhs with a factor from factorBanded; out may be rhs itself. */
-export function solveBanded(
-  factor: BandedFactor,
-  rhs: Float64Array,
-  out: Float64Array = new Float64Array(factor.n),
-): Float64Array {
-  const { n, band } = factor;
-  const p = factor.halfBandwidth;
+/** Forward and backward substitution with a Cholesky band: L y = rhs, then L^T x = y. */
+function substitute(band: Float64Array, n: number, p: number, rhs: Float64Array, out: Float64Array): Float64Array {
   const w = p + 1;
   if (rhs.length !== n || out.length !== n) throw new RangeError(`banded solve: expected vectors of length ${n}`);
-  // Forward: L y = rhs.
   for (let i = 0; i < n; i++) {
     let sum = rhs[i]!;
     const mStart = Math.max(0, i - p);
     for (let m = mStart; m < i; m++) sum -= band[i * w + (i - m)]! * out[m]!;
     out[i] = sum / band[i * w]!;
   }
-  // Backward: L^T x = y; L^T[i][m] = L[m][i] for m = i + 1..i + p.
+  // L^T[i][m] = L[m][i] for m = i + 1..i + p.
   for (let i = n - 1; i >= 0; i--) {
     let sum = out[i]!;
     const mEnd = Math.min(n - 1, i + p);
@@ -98,9 +77,14 @@ export function solveBanded(
   return out;
 }
 
-export function bandedSolver(n: number, halfBandwidth: number, entry: BandEntry): BandedSolve {
-  const factor = factorBanded(n, halfBandwidth, entry);
-  return (rhs, out) => solveBanded(factor, rhs, out);
+/** Factors a symmetric positive definite banded matrix; throws RangeError when it is not positive definite. */
+export function factorBanded(n: number, halfBandwidth: number, entry: BandEntry): BandedFactor {
+  const band = choleskyBand(n, halfBandwidth, entry);
+  return {
+    n,
+    halfBandwidth,
+    solve: (rhs, out = new Float64Array(n)) => substitute(band, n, halfBandwidth, rhs, out),
+  };
 }
 
 /** Dense copy of a cyclic band; entries that fall on the same place (tiny n) add up. */
@@ -118,36 +102,27 @@ function denseCyclic(n: number, p: number, entry: BandEntry): Matrix {
   return a;
 }
 
-/** Factors a symmetric positive definite cyclic banded matrix (see the module header for the method). */
-export function factorCyclicBanded(n: number, halfBandwidth: number, entry: BandEntry): CyclicBandedFactor {
-  const p = halfBandwidth;
-  if (p === 0) {
-    return {
-      n,
-      halfBandwidth: p,
-      inner: factorBanded(n, 0, entry),
-      z: new Float64Array(0),
-      sqrtAlpha: 0,
-      uTail: new Float64Array(0),
-      capacitanceInverse: new Float64Array(0),
-      dense: null,
-    };
-  }
-  if (n < 2 * p + 2) {
-    const dense = denseCyclic(n, p, entry);
-    return {
-      n,
-      halfBandwidth: p,
-      inner: null,
-      z: new Float64Array(0),
-      sqrtAlpha: 0,
-      uTail: new Float64Array(0),
-      capacitanceInverse: new Float64Array(0),
-      dense,
-    };
-  }
-  // Corner block E[t][s] = A[t][n - p + s] for t, s = 0..p-1; non-zero only where the cyclic offset
-  // k = t + p - s is at most p, i.e. s >= t: entry(n - p + s, t + p - s) (row n-p+s reaching column t).
+/** A tiny cyclic system (n < 2p + 2, the corners meet the band) solved densely by LU. */
+function denseCyclicFactor(n: number, p: number, entry: BandEntry): BandedFactor {
+  const lu = new LuDecomposition(denseCyclic(n, p, entry));
+  return {
+    n,
+    halfBandwidth: p,
+    solve: (rhs, out = new Float64Array(n)) => {
+      if (rhs.length !== n || out.length !== n)
+        throw new RangeError(`cyclic banded solve: expected vectors of length ${n}`);
+      const x = lu.solve(Matrix.columnVector(Array.from(rhs)));
+      for (let i = 0; i < n; i++) out[i] = x.get(i, 0);
+      return out;
+    },
+  };
+}
+
+/**
+ * Corner block E[t][s] = A[t][n - p + s] for t, s = 0..p-1; non-zero only where the cyclic offset k = t + p - s
+ * is at most p, i.e. s >= t: entry(n - p + s, t + p - s) (row n-p+s reaching column t). With its norm alpha.
+ */
+function cornerBlock(n: number, p: number, entry: BandEntry): { e: Float64Array; alpha: number } {
   const e = new Float64Array(p * p);
   let norm2 = 0;
   for (let t = 0; t < p; t++) {
@@ -157,51 +132,18 @@ export function factorCyclicBanded(n: number, halfBandwidth: number, entry: Band
       norm2 += v * v;
     }
   }
-  const alpha = Math.sqrt(norm2);
-  if (alpha === 0) {
-    const inner = factorBanded(n, p, entry);
-    return {
-      n,
-      halfBandwidth: p,
-      inner,
-      z: new Float64Array(0),
-      sqrtAlpha: 0,
-      uTail: new Float64Array(0),
-      capacitanceInverse: new Float64Array(0),
-      dense: null,
-    };
-  }
-  // Bottom-right addition G = E^T E / alpha (p x p, symmetric).
-  const g = new Float64Array(p * p);
-  for (let a = 0; a < p; a++) {
-    for (let b = 0; b < p; b++) {
-      let sum = 0;
-      for (let t = 0; t < p; t++) sum += e[t * p + a]! * e[t * p + b]!;
-      g[a * p + b] = sum / alpha;
-    }
-  }
+  return { e, alpha: Math.sqrt(norm2) };
+}
+
+/** C^-1 for the capacitance matrix C = I - U^T Z (p x p), row-major. */
+function capacitanceInverseOf(
+  z: Float64Array,
+  uTail: Float64Array,
+  sqrtAlpha: number,
+  n: number,
+  p: number,
+): Float64Array {
   const tailStart = n - p;
-  const modifiedEntry: BandEntry = (i, k) => {
-    if (i + k >= n) return 0; // the wrapped entries are carried by U U^T
-    let v = entry(i, k);
-    if (k === 0 && i < p) v += alpha;
-    if (i >= tailStart) v += g[(i - tailStart) * p + (i + k - tailStart)]!;
-    return v;
-  };
-  const inner = factorBanded(n, p, modifiedEntry);
-  const sqrtAlpha = Math.sqrt(alpha);
-  // U's tail rows: U[n - p + r][j] = -E[j][r] / sqrt(alpha).
-  const uTail = new Float64Array(p * p);
-  for (let r = 0; r < p; r++) for (let j = 0; j < p; j++) uTail[r * p + j] = -e[j * p + r]! / sqrtAlpha;
-  const z = new Float64Array(p * n);
-  const column = new Float64Array(n);
-  for (let j = 0; j < p; j++) {
-    column.fill(0);
-    column[j] = sqrtAlpha;
-    for (let r = 0; r < p; r++) column[tailStart + r] = uTail[r * p + j]!;
-    solveBanded(inner, column, z.subarray(j * n, (j + 1) * n));
-  }
-  // C = I - U^T Z.
   const capacitance = Matrix.zeros(p, p);
   for (let a = 0; a < p; a++) {
     for (let b = 0; b < p; b++) {
@@ -223,46 +165,67 @@ export function factorCyclicBanded(n: number, halfBandwidth: number, entry: Band
   const inverse = cholesky.isPositiveDefinite()
     ? cholesky.solve(identity)
     : new LuDecomposition(capacitance).solve(identity);
-  const capacitanceInverse = new Float64Array(p * p);
-  for (let a = 0; a < p; a++) for (let b = 0; b < p; b++) capacitanceInverse[a * p + b] = inverse.get(a, b);
-  return { n, halfBandwidth: p, inner, z, sqrtAlpha, uTail, capacitanceInverse, dense: null };
-}
-
-/** Solves A x = rhs with a factor from factorCyclicBanded; out may be rhs itself. */
-export function solveCyclicBanded(
-  factor: CyclicBandedFactor,
-  rhs: Float64Array,
-  out: Float64Array = new Float64Array(factor.n),
-): Float64Array {
-  const { n, inner, z, uTail, capacitanceInverse, sqrtAlpha } = factor;
-  const p = factor.halfBandwidth;
-  if (rhs.length !== n || out.length !== n)
-    throw new RangeError(`cyclic banded solve: expected vectors of length ${n}`);
-  if (factor.dense) {
-    const x = new LuDecomposition(factor.dense).solve(Matrix.columnVector(Array.from(rhs)));
-    for (let i = 0; i < n; i++) out[i] = x.get(i, 0);
-    return out;
-  }
-  solveBanded(inner!, rhs, out);
-  if (sqrtAlpha === 0) return out;
-  const tailStart = n - p;
-  // w = C^-1 U^T y, then x = y + Z w.
-  const uty = new Float64Array(p);
-  for (let j = 0; j < p; j++) {
-    let sum = sqrtAlpha * out[j]!;
-    for (let r = 0; r < p; r++) sum += uTail[r * p + j]! * out[tailStart + r]!;
-    uty[j] = sum;
-  }
-  for (let a = 0; a < p; a++) {
-    let wa = 0;
-    for (let b = 0; b < p; b++) wa += capacitanceInverse[a * p + b]! * uty[b]!;
-    const zj = z.subarray(a * n, (a + 1) * n);
-    for (let i = 0; i < n; i++) out[i]! += zj[i]! * wa;
-  }
+  const out = new Float64Array(p * p);
+  for (let a = 0; a < p; a++) for (let b = 0; b < p; b++) out[a * p + b] = inverse.get(a, b);
   return out;
 }
 
-export function cyclicBandedSolver(n: number, halfBandwidth: number, entry: BandEntry): BandedSolve {
-  const factor = factorCyclicBanded(n, halfBandwidth, entry);
-  return (rhs, out) => solveCyclicBanded(factor, rhs, out);
+/** Factors a symmetric positive definite cyclic banded matrix (see the module header for the method). */
+export function factorCyclicBanded(n: number, halfBandwidth: number, entry: BandEntry): BandedFactor {
+  const p = halfBandwidth;
+  if (p === 0) return factorBanded(n, 0, entry);
+  if (n < 2 * p + 2) return denseCyclicFactor(n, p, entry);
+  const { e, alpha } = cornerBlock(n, p, entry);
+  if (alpha === 0) return factorBanded(n, p, entry);
+  // Bottom-right addition G = E^T E / alpha (p x p, symmetric).
+  const g = new Float64Array(p * p);
+  for (let a = 0; a < p; a++) {
+    for (let b = 0; b < p; b++) {
+      let sum = 0;
+      for (let t = 0; t < p; t++) sum += e[t * p + a]! * e[t * p + b]!;
+      g[a * p + b] = sum / alpha;
+    }
+  }
+  const tailStart = n - p;
+  const inner = factorBanded(n, p, (i, k) => {
+    if (i + k >= n) return 0; // the wrapped entries are carried by U U^T
+    let v = entry(i, k);
+    if (k === 0 && i < p) v += alpha;
+    if (i >= tailStart) v += g[(i - tailStart) * p + (i + k - tailStart)]!;
+    return v;
+  });
+  const sqrtAlpha = Math.sqrt(alpha);
+  // U's tail rows: U[n - p + r][j] = -E[j][r] / sqrt(alpha); its first p rows are sqrt(alpha) I.
+  const uTail = new Float64Array(p * p);
+  for (let r = 0; r < p; r++) for (let j = 0; j < p; j++) uTail[r * p + j] = -e[j * p + r]! / sqrtAlpha;
+  // Z = B^-1 U, column-major: z[j * n + i].
+  const z = new Float64Array(p * n);
+  const column = new Float64Array(n);
+  for (let j = 0; j < p; j++) {
+    column.fill(0);
+    column[j] = sqrtAlpha;
+    for (let r = 0; r < p; r++) column[tailStart + r] = uTail[r * p + j]!;
+    inner.solve(column, z.subarray(j * n, (j + 1) * n));
+  }
+  const capacitanceInverse = capacitanceInverseOf(z, uTail, sqrtAlpha, n, p);
+  const uty = new Float64Array(p);
+  const solve: BandedSolve = (rhs, out = new Float64Array(n)) => {
+    if (rhs.length !== n || out.length !== n)
+      throw new RangeError(`cyclic banded solve: expected vectors of length ${n}`);
+    inner.solve(rhs, out);
+    // w = C^-1 U^T y, then x = y + Z w.
+    for (let j = 0; j < p; j++) {
+      let sum = sqrtAlpha * out[j]!;
+      for (let r = 0; r < p; r++) sum += uTail[r * p + j]! * out[tailStart + r]!;
+      uty[j] = sum;
+    }
+    for (let a = 0; a < p; a++) {
+      let wa = 0;
+      for (let b = 0; b < p; b++) wa += capacitanceInverse[a * p + b]! * uty[b]!;
+      const zj = z.subarray(a * n, (a + 1) * n);
+      for (let i = 0; i < n; i++) out[i]! += zj[i]! * wa;
+    }
+    return out;
+  };
+  return { n, halfBandwidth: p, solve };
 }

@@ -7,7 +7,7 @@
 // lambda = (smoothingM / (2 pi h))^4 so that smoothingM is the wavelength at half response. Longer waves pass
 // almost untouched (at 2 x smoothingM the response is 0.94), shorter ones are cut with the fourth power.
 
-import { bandedSolver, cyclicBandedSolver, type BandedSolve } from '../numeric/banded.js';
+import { factorBanded, factorCyclicBanded, type BandedSolve } from '../numeric/banded.js';
 
 /** Penalty weight for a half-response wavelength smoothingM on a grid of step stepM (second differences). */
 export function smoothingLambda(smoothingM: number, stepM: number): number {
@@ -32,6 +32,6 @@ const CYCLIC_PENALTY = [6, -4, 1];
  * Needs n >= 3 for an open series.
  */
 export function whittakerSmoother(n: number, lambda: number, closed: boolean): BandedSolve {
-  if (closed) return cyclicBandedSolver(n, 2, (_i, k) => (k === 0 ? 1 : 0) + lambda * CYCLIC_PENALTY[k]!);
-  return bandedSolver(n, 2, (i, k) => (i + k >= n ? 0 : (k === 0 ? 1 : 0) + lambda * openPenaltyEntry(n, i, k)));
+  if (closed) return factorCyclicBanded(n, 2, (_i, k) => (k === 0 ? 1 : 0) + lambda * CYCLIC_PENALTY[k]!).solve;
+  return factorBanded(n, 2, (i, k) => (i + k >= n ? 0 : (k === 0 ? 1 : 0) + lambda * openPenaltyEntry(n, i, k))).solve;
 }

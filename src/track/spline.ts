@@ -3,7 +3,7 @@
 // straight-line joins. Second-derivative form: de Boor, A Practical Guide to Splines (1978), ch. IV; the
 // tridiagonal systems are solved with the banded solvers.
 
-import { bandedSolver, cyclicBandedSolver } from '../numeric/banded.js';
+import { factorBanded, factorCyclicBanded } from '../numeric/banded.js';
 
 export interface ChordSpline {
   closed: boolean;
@@ -55,14 +55,14 @@ export function chordSpline(x: Float64Array, y: Float64Array, closed: boolean): 
   const x2 = new Float64Array(n);
   const y2 = new Float64Array(n);
   if (closed) {
-    const solve = cyclicBandedSolver(n, 1, (i, k) => (k === 0 ? 2 * (h[i === 0 ? n - 1 : i - 1]! + h[i]!) : h[i]!));
+    const { solve } = factorCyclicBanded(n, 1, (i, k) => (k === 0 ? 2 * (h[i === 0 ? n - 1 : i - 1]! + h[i]!) : h[i]!));
     solve(secondDerivativeRhs(x, h, true), x2);
     solve(secondDerivativeRhs(y, h, true), y2);
   } else if (n > 2) {
     // Parabolic run-out ends (x2[0] = x2[1], x2[n - 1] = x2[n - 2]): an end on a curve keeps its curvature,
     // where natural ends would force it to zero. Unknowns 1..n-2; the end terms fold into the diagonal.
     const last = n - 3;
-    const solve = bandedSolver(n - 2, 1, (j, k) => {
+    const { solve } = factorBanded(n - 2, 1, (j, k) => {
       if (k === 1) return h[j + 1]!;
       return 2 * (h[j]! + h[j + 1]!) + (j === 0 ? h[0]! : 0) + (j === last ? h[n - 2]! : 0);
     });
