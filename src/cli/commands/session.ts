@@ -21,6 +21,8 @@ import { sessionReportInput } from '../../report/html/from-session.js';
 import { addUnitsOption, unitsOf, type UnitsOptionValues } from '../units-option.js';
 import { sessionOverview } from '../../compare/session/session-overview.js';
 import { sessionJson, sessionText } from '../../report/session-summary.js';
+import { cornerTracesCollector } from '../../compare/session/corner-traces.js';
+import { cornerRangeM } from '../../report/html/model.js';
 
 export interface SessionValues
   extends TrackOptionValues, CarOptionValues, TelemetryOptionValues, ReportOptionValues, UnitsOptionValues {
@@ -41,9 +43,10 @@ export function register(program: Command): void {
   addLineOption(command);
   command.option('--json', 'print one JSON object instead of the summary');
   addUnitsOption(command);
-  addReportOptions(command, "the best lap's report: one HTML page with linked charts").action((values: SessionValues) =>
-    runSession(values),
-  );
+  addReportOptions(
+    command,
+    "the session's report (laps, corners across them, every lap's speed and brake per corner, the best lap's charts) as one HTML page",
+  ).action((values: SessionValues) => runSession(values));
 }
 
 export async function runSession(values: SessionValues): Promise<void> {
@@ -52,18 +55,30 @@ export async function runSession(values: SessionValues): Promise<void> {
   const { car, ambient } = loadCar(values);
   const session = await loadSession(values);
   const comparison = compareFromRecords(track, car, ambient, session, { ...values, lap: undefined });
-  const overview = sessionOverview({
-    track,
-    session: comparison.session ?? session,
-    laps: comparison.laps ?? [],
-    reference: comparison.reference,
-    envelope: comparison.envelope,
-    demonstratedLapTimeS: comparison.demonstratedLap?.lapTimeS ?? null,
+  // Each corner's small multiple covers the stretch the report zooms to for that corner.
+  const windows = comparison.result.corners.map((corner) => {
+    const [fromM, toM] = cornerRangeM(corner, track.lengthM);
+    return { id: corner.id, fromM, toM };
   });
+  const traces = cornerTracesCollector(track, windows, comparison.reference);
+  const overview = sessionOverview(
+    {
+      track,
+      session: comparison.session ?? session,
+      laps: comparison.laps ?? [],
+      reference: comparison.reference,
+      envelope: comparison.envelope,
+      demonstratedLapTimeS: comparison.demonstratedLap?.lapTimeS ?? null,
+    },
+    { onLap: (lapNumber, lap) => traces.add(lapNumber, lap) },
+  );
   // The laps table lists every lap and why any is left out; the note naming compare's chosen lap does not apply.
   overview.notes.unshift(...comparison.notes.filter((note) => !/^lap \d+ chosen:/.test(note)));
   const outputs = outputBatch(inputFilesOf(values));
-  const report = sessionReportInput(comparison, car, ambient, comparison.linePositions);
+  const report = {
+    ...sessionReportInput(comparison, car, ambient, comparison.linePositions),
+    session: { overview, cornerTraces: traces.traces },
+  };
   const reportFiles = addReportOutputs(outputs, values, report);
   outputs.commit();
   if (values.json) process.stdout.write(JSON.stringify(sessionJson(overview), null, 2) + '\n');

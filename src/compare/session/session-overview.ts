@@ -15,7 +15,7 @@ import { compareBraking } from '../braking-points.js';
 import { ownershipBounds } from '../corner-phases.js';
 import { DEFAULT_COMPARE_OPTIONS } from '../compare-options.js';
 import { lapCornerFigures, type LapCornerFigures } from '../against/lap-corner.js';
-import { pairLapOfDriver, pairLapOfReference } from '../against/pair-lap.js';
+import { pairLapOfDriver, pairLapOfReference, type PairLap } from '../against/pair-lap.js';
 import { sectorTimesS } from './lap-sectors.js';
 import { sampleStandardDeviation } from './spread.js';
 import { median } from '../../numeric/quantile.js';
@@ -84,7 +84,12 @@ export interface SessionInputs {
 
 export function sessionOverview(
   inputs: SessionInputs,
-  options: { pedalThreshold?: number; verdicts?: VerdictOptions } = {},
+  options: {
+    pedalThreshold?: number;
+    verdicts?: VerdictOptions;
+    /** Called with each complete lap as it is read, for a caller that keeps more of it (corner-traces.ts). */
+    onLap?: (lapNumber: number, lap: PairLap) => void;
+  } = {},
 ): SessionOverview {
   const { track, session, reference, envelope } = inputs;
   const threshold = options.pedalThreshold ?? DEFAULT_COMPARE_OPTIONS.pedalThreshold;
@@ -127,6 +132,7 @@ export function sessionOverview(
       return lapCornerFigures(lap, span, bounds[c]!, bounds[c + 1]!, braking.driverBrake, track, threshold);
     });
     figures.push({ lap: cut.lapNumber, corners });
+    options.onLap?.(cut.lapNumber, lap);
     laps.push({
       lap: cut.lapNumber,
       lapTimeS: cut.lapTimeS,

@@ -4,6 +4,7 @@
 import type { Envelope } from '../../car/envelope.js';
 import type { ComparisonResult, DriverLap } from '../../compare/types.js';
 import type { AgainstResult } from '../../compare/against/lap-against-lap.js';
+import type { SessionReportPart } from './session-sections.js';
 import type { LapResult } from '../../solve/types.js';
 import { mpsToKph, STANDARD_GRAVITY_MPS2 } from '../../units.js';
 import type { UncertainReference } from '../../uncertainty/uncertain-reference.js';
@@ -27,6 +28,8 @@ export interface ReportInput {
     result: AgainstResult;
     other: DriverLap;
   };
+  /** The whole session (`session --html`): its laps, corners and small multiples, above the best lap's report. */
+  session?: SessionReportPart;
   /** The reference over draws of the car's uncertain fields: the speed is drawn as a band, the corners carry how often
    * their findings hold. */
   uncertainty?: UncertainReference;

@@ -24,6 +24,7 @@ import { paddedDomain, quantileOf } from './scale.js';
 import { strideIndices } from './downsample.js';
 import { cornerTableHtml, findingsHtml, summaryHtml } from './tables.js';
 import { againstFindingsHtml, againstTableHtml } from './against-tables.js';
+import { cornerMultipleCharts, sessionSectionsHtml } from './session-sections.js';
 import { mapPoint, mapProjection, trackMapSvg } from './track-map.js';
 import type { SvgOptions } from './svg-frame.js';
 import { mpsToKph } from '../../units.js';
@@ -228,9 +229,11 @@ function allCharts(model: ReportModel, options: SvgOptions): ChartSvg[] {
   ];
   if (model.other)
     charts.push({ name: 'gain-map.svg', title: 'Gain and loss map', svg: trackMapSvg(model, options, 'gain') });
+  const session = model.input.session;
+  const multiples = session ? cornerMultipleCharts(session, options) : [];
   for (const spec of distanceCharts(model))
     charts.push({ name: `${spec.name}.svg`, title: spec.title, svg: distanceChartSvg(spec, options) });
-  return charts;
+  return [...charts, ...multiples];
 }
 
 /** Each chart as a standalone SVG file (with its namespace), for slides and documents. */
@@ -331,17 +334,22 @@ export function lapReportHtml(input: ReportInput): string {
   const charts = allCharts(model, options);
   const [mapSvg, ggSvg] = charts;
   const gainSvg = charts.find((chart) => chart.name === 'gain-map.svg');
-  const distanceSvgs = charts.slice(gainSvg ? 3 : 2);
+  const distanceSvgs = charts.slice(gainSvg ? 3 : 2).filter((chart) => !chart.name.startsWith('corner-'));
+  const session = input.session;
   const reference = input.reference;
   const trackName = reference.track.name;
   const other = model.other;
-  const title = input.comparison
-    ? `Lap report: ${trackName} · ${input.carName} · driver against ${other ? `${other.label} and the ` : ''}reference`
-    : `Reference lap: ${trackName} · ${input.carName}`;
-  const subtitle = input.comparison
-    ? `${input.comparison.driver.source}, lap ${input.comparison.driver.lapNumber}, against ${other ? `${other.label} and ` : ''}the reference lap of the ${reference.envelopeKind} model`
-    : `Reference lap of the ${reference.envelopeKind} model, grid step ${reference.track.stepM.toFixed(2)} m`;
-  const main = `<section class="overview">
+  const title = session
+    ? `Session: ${trackName} · ${input.carName}`
+    : input.comparison
+      ? `Lap report: ${trackName} · ${input.carName} · driver against ${other ? `${other.label} and the ` : ''}reference`
+      : `Reference lap: ${trackName} · ${input.carName}`;
+  const subtitle = session
+    ? `${session.overview.source}: ${session.overview.laps.length} laps; the best lap against the reference lap of the ${reference.envelopeKind} model`
+    : input.comparison
+      ? `${input.comparison.driver.source}, lap ${input.comparison.driver.lapNumber}, against ${other ? `${other.label} and ` : ''}the reference lap of the ${reference.envelopeKind} model`
+      : `Reference lap of the ${reference.envelopeKind} model, grid step ${reference.track.stepM.toFixed(2)} m`;
+  const main = `${session ? sessionSectionsHtml(session) + summaryHtml(model) : ''}<section class="overview">
 <div class="panel">${mapSvg!.svg}</div>
 ${gainSvg ? `<div class="panel">${gainSvg.svg}</div>` : ''}
 <div class="panel">${ggSvg!.svg}</div>
@@ -358,7 +366,7 @@ ${input.comparison ? `<section class="panel">${findingsHtml(model)}</section>` :
   return htmlPage({
     title,
     subtitle,
-    header: summaryHtml(model),
+    header: session ? '' : summaryHtml(model),
     main,
     footerNote: `Made by reflap. Charts are drawn about one point per ${DRAW_BUCKET_M} m; hover values every ${hoverStepM} m. Colours: Okabe–Ito palette, chosen to stay readable for colour-blind readers.`,
     data: { id: 'lap-data', value: pageData(model) },

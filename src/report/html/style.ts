@@ -32,6 +32,13 @@ button { font: inherit; cursor: pointer; border: 1px solid #8a8a90; background: 
 button:disabled { cursor: default; color: #9a9aa0; border-color: var(--line); }
 #zoom-label { font-weight: 600; }
 .stack .chart + .chart { margin-top: 4px; }
+svg.chart[data-chart="corner-legend"] { width: 560px; max-width: 100%; }
+.multiples { display: grid; grid-template-columns: repeat(auto-fill, minmax(330px, 1fr)); gap: 8px; }
+.multiple { border: 1px solid var(--line); border-radius: 6px; padding: 4px; }
+.lap-trace:hover path { stroke-width: 3; }
+.lap-row.best td { font-weight: 650; background: #fdf1e8; }
+td.state, td.verdict { text-align: left; white-space: normal; }
+.best-lap-heading { margin: 18px 0 10px; }
 .chart-pair { display: grid; grid-template-columns: 1fr 1fr; gap: 10px; align-items: start; }
 @media (max-width: 900px) { .chart-pair { grid-template-columns: 1fr; } }
 .hover-area { cursor: crosshair; }

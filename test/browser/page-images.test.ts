@@ -1,0 +1,157 @@
+// Every report page reflap writes, in Chromium (playwright-core, headless, fresh profile, background networking off):
+// drawn, no console errors, no requests, and its layout against a stored reference image with a tolerance
+// (page-image.ts; the images are rewritten only by scripts/update-page-images.sh). The session page's own checks
+// come first: the laps and corners it lists against the laps the log was built from, and its small multiples.
+
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { BrowserContext } from 'playwright-core';
+import { haveChromium, launchChromium, openFile, requireChromium } from './chromium.js';
+import { comparePageImage, IMAGE_TOLERANCE, UPDATE_PAGE_IMAGES } from './page-image.js';
+import { lapReportHtml } from '../../src/report/html/page.js';
+import { againstInput, comparisonInput, referenceInput } from '../report/report-fixtures.js';
+import { writeTestLoop } from '../report/sweep-fixtures.js';
+import { projectRoot, runCli } from '../helpers/cli.js';
+import { readTrace, writeGripPair, writeSessionLog } from '../helpers/logs.js';
+
+requireChromium('report page');
+
+const work = mkdtempSync(path.join(tmpdir(), 'reflap-pages-'));
+const velmora = path.join(projectRoot, 'tracks', 'velmora-downs.json');
+const gtCar = path.join(projectRoot, 'cars', 'tarnfell-gt.json');
+const clubCar = path.join(projectRoot, 'cars', 'brackle-club.json');
+
+/** The session page: four complete laps (high, low, high, low braking grip) and half a fifth. */
+function writeSessionPage(): { file: string; lapTimesS: number[] } {
+  const { highGrip, lowGrip } = writeGripPair(work, velmora, gtCar, 1.2);
+  const log = writeSessionLog(path.join(work, 'session.csv'), [highGrip, lowGrip, highGrip, lowGrip, highGrip], 0.5);
+  const file = path.join(work, 'session.html');
+  const run = runCli(['session', '--track', velmora, '--car', gtCar, '--telemetry', log, '--html', file]);
+  if (run.code !== 0) throw new Error(run.stderr);
+  // A trace's own lap time: its last row's time plus the 0.02 s step writeSessionLog adds between laps.
+  const lapTimeOf = (trace: string) => {
+    const rows = readTrace(trace);
+    return rows.rows.at(-1)![rows.header.indexOf('time_s')]! + 0.02;
+  };
+  return { file, lapTimesS: [highGrip, lowGrip, highGrip, lowGrip].map(lapTimeOf) };
+}
+
+function pageFiles(): Record<string, string> {
+  const write = (name: string, html: string) => {
+    const file = path.join(work, `${name}.html`);
+    writeFileSync(file, html);
+    return file;
+  };
+  const loop = writeTestLoop(work);
+  const cli = (name: string, args: string[]) => {
+    const file = path.join(work, `${name}.html`);
+    const run = runCli([...args, '--html', file]);
+    if (run.code !== 0) throw new Error(run.stderr);
+    return file;
+  };
+  const onLoop = ['--track', loop, '--car', clubCar, '--line', 'centreline'];
+  return {
+    'reference-lap': write('reference-lap', lapReportHtml(referenceInput())),
+    'driver-lap': write('driver-lap', lapReportHtml(comparisonInput())),
+    'lap-against-lap': write('lap-against-lap', lapReportHtml(againstInput())),
+    car: cli('car', ['car', '--car', clubCar]),
+    sweep: cli('sweep', ['sweep', ...onLoop, '--vary', 'massKg=600:640:20', 'tyre.muLat=-5%:+5%:5%', '--workers', '1']),
+    whatif: cli('whatif', ['whatif', ...onLoop, '--set', 'massKg=+20']),
+  };
+}
+
+const session = writeSessionPage();
+const pages = { ...pageFiles(), session: session.file };
+
+afterAll(() => rmSync(work, { recursive: true, force: true }));
+
+describe('the session page', () => {
+  const html = readFileSync(session.file, 'utf8');
+  it('lists every lap with its time and the corners across the laps', () => {
+    const rows = [
+      ...html.matchAll(/<tr class="lap-row[^"]*" data-lap="(\d+)"><td>[^<]*<\/td><td class="strong">([^<]+)</g),
+    ];
+    expect(rows.map((m) => Number(m[1]))).toEqual([1, 2, 3, 4, 5]);
+    // Lap times m:ss.sss against the traces' own (within 0.05 s, the line's interpolation at 1 m, common practice).
+    session.lapTimesS.forEach((expected, k) => {
+      const [minutes, seconds] = rows[k]![2]!.split(':').map(Number);
+      expect(Math.abs(minutes! * 60 + seconds! - expected)).toBeLessThan(0.05);
+    });
+    // The best lap is a high-grip lap by construction (laps 1 and 3).
+    expect(/<tr class="lap-row best" data-lap="(\d+)"/.exec(html)![1]).toMatch(/^[13]$/);
+  });
+
+  it('draws one small multiple per corner with every complete lap and the reference', () => {
+    const cornerRows = [...html.matchAll(/<tr class="corner-row" data-corner="(\d+)"/g)].map((m) => m[1]);
+    const multiples = [...html.matchAll(/data-corner-multiple="(\d+)"/g)].map((m) => m[1]);
+    expect(multiples.length).toBeGreaterThanOrEqual(7);
+    for (const id of multiples) expect(cornerRows).toContain(id);
+    for (const id of multiples) {
+      const start = html.indexOf(`data-corner-multiple="${id}"`);
+      const svg = html.slice(start, html.indexOf('</svg>', start));
+      // The four complete laps, each with a speed and a brake line, and the reference's pair.
+      expect([...svg.matchAll(/<g class="lap-trace" data-lap="(\d+)"/g)].map((m) => Number(m[1])).sort()).toEqual([
+        1, 2, 3, 4,
+      ]);
+      expect(svg.match(/<path class="speed" d="M/g)).toHaveLength(5);
+      expect(svg.match(/<path class="brake" d="M/g)).toHaveLength(5);
+    }
+  });
+});
+
+describe.skipIf(!haveChromium)('report pages in Chromium', () => {
+  let context: BrowserContext;
+  let profile: string;
+
+  beforeAll(async () => {
+    profile = mkdtempSync(path.join(tmpdir(), 'reflap-chromium-'));
+    context = await launchChromium(profile);
+  });
+
+  afterAll(async () => {
+    await context?.close();
+    rmSync(profile, { recursive: true, force: true });
+  });
+
+  for (const name of Object.keys(pages) as (keyof typeof pages)[]) {
+    it(`${name}: drawn, quiet, offline, and laid out as its reference image`, async () => {
+      const { page, problems, requests, dialogs } = await openFile(context, pages[name]);
+      // Every picture (charts, legends, the car's g-g-v envelope) has something drawn in it.
+      const empty = await page.$$eval('svg[role="img"]', (svgs) =>
+        svgs
+          .filter(
+            (svg) =>
+              !Array.from(svg.querySelectorAll('path, circle, line, polyline, rect.bar')).some((shape) => {
+                const box = (shape as SVGGraphicsElement).getBBox();
+                return box.width + box.height > 5;
+              }),
+          )
+          .map((svg) => svg.getAttribute('aria-label')),
+      );
+      expect(await page.$$eval('svg[role="img"]', (svgs) => svgs.length)).toBeGreaterThan(0);
+      expect(empty).toEqual([]);
+      const difference = await comparePageImage(context, page, name);
+      if (!UPDATE_PAGE_IMAGES) {
+        expect(difference).not.toBeNull();
+        const { actual, reference, meanDifference, changedShare } = difference!;
+        expect(actual.width).toBe(reference.width);
+        expect(Math.abs(actual.height - reference.height) / reference.height).toBeLessThanOrEqual(
+          IMAGE_TOLERANCE.heightShare,
+        );
+        expect(meanDifference).toBeLessThanOrEqual(IMAGE_TOLERANCE.meanDifference);
+        expect(changedShare).toBeLessThanOrEqual(IMAGE_TOLERANCE.changedShare);
+      }
+      if (name === 'session') {
+        // A corner row of the session's table zooms the best lap's charts below it.
+        await page.click('tr.corner-row[data-corner="2"]');
+        expect(await page.$eval('#zoom-label', (label) => label.textContent)).toMatch(/^corner 2/);
+      }
+      expect(problems).toEqual([]);
+      expect(dialogs).toEqual([]);
+      expect(requests.filter((url) => !url.startsWith('file:'))).toEqual([]);
+      await page.close();
+    });
+  }
+});
