@@ -90,6 +90,12 @@ export const commandEntries: CommandEntry[] = [
     load: () => import('./commands/corners.js'),
   },
   {
+    name: 'heights',
+    term: 'heights [options]',
+    description: "build a track's height profile from a log's GPS altitudes and write the track with it (z_m)",
+    load: () => import('./commands/heights.js'),
+  },
+  {
     name: 'car',
     term: 'car [options]',
     description: 'describe a car: axle loads, understeer gradient, envelope at a few speeds',

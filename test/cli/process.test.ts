@@ -3,7 +3,7 @@
 // tests call the same `main` in-process (test/helpers/cli.ts). Exit codes 0, 2 and 1 as docs/robustness.md states
 // them; a process ends by the signal that interrupted it (exit status 128 + signal, POSIX shell convention).
 
-import { mkdtempSync, readdirSync } from 'node:fs';
+import { mkdtempSync, readdirSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
@@ -15,6 +15,18 @@ const work = mkdtempSync(path.join(tmpdir(), 'reflap-process-'));
 const car = path.join(projectRoot, 'cars', 'brackle-club.json');
 const oval = writeTestOval(work);
 const log = path.join(work, 'lap.csv');
+/** The circle the GPX fixture drives, as a centreline CSV (a point every 5 degrees). */
+const ring = path.join(work, 'ring.csv');
+writeFileSync(
+  ring,
+  [
+    'x_m,y_m',
+    ...Array.from(
+      { length: 72 },
+      (_, k) => `${100 * Math.cos((k * Math.PI) / 36)},${100 * Math.sin((k * Math.PI) / 36)}`,
+    ),
+  ].join('\n') + '\n',
+);
 const out = (name: string) => path.join(work, 'out', name);
 
 /** One cheap run of each command, with words its output must hold (from the inputs where they carry a number). */
@@ -36,6 +48,18 @@ const runs: Record<string, { args: string[]; shows: RegExp }> = {
   // The car file's 620 kg and 25 kg of fuel.
   car: { args: ['--car', car], shows: /Mass with fuel 645 kg/ },
   check: { args: [car], shows: /ok/ },
+  // The fixture's 72 fixes on a circle of radius 100 m at a constant 512 m (test/fixtures/telemetry/circle.gpx).
+  heights: {
+    args: [
+      '--track',
+      ring,
+      '--telemetry',
+      path.join(projectRoot, 'test/fixtures/telemetry/circle.gpx'),
+      '--out',
+      out('ring.csv'),
+    ],
+    shows: /from 72 GPS fixes/,
+  },
   demo: { args: ['--out', out('demo')], shows: /report/ },
 };
 
