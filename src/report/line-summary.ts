@@ -13,7 +13,7 @@ export function lineSummaryText(line: DriverLineResult, units: DisplayUnits = di
   const hasReference = line.corners.some((c) => c.reference !== null);
   const hasOther = line.corners.some((c) => c.other !== null);
   const lines = [
-    `The line (offsets from the centreline in ${d}, positive = left; turn-in = furthest to the outside before the apex;`,
+    `The line (offsets from the centreline in ${d}, positive = left; turn-in = where the car leaves the outside before the apex, within the resolution;`,
     `apex miss = gap to the inside edge at the apex${hasReference ? '; ref = the reference line' : ''}${hasOther ? '; other = the other lap' : ''})`,
     formatTable(
       [

@@ -34,7 +34,56 @@ function movedLap(inwardM: number, noiseM: number, seed = 1): DriverLap {
   return { ...lap, xM, yM };
 }
 
+/**
+ * An outside-inside line through the first corner: `outsideM` towards the outside from 80 m before the turn-in point
+ * (a sin^2 ramp out), held there up to the turn-in, then a straight run across to `outsideM` inside at the apex and
+ * a sin^2 ramp back after the exit; white noise of `noiseM` (SD) on each coordinate.
+ */
+function outsideInsideLap(turnInIndex: number, outsideM: number, noiseM: number, seed: number): DriverLap {
+  const lap = driverLapFromReference(track, reference);
+  const normal = gaussian(uniform(seed));
+  const xM = new Float64Array(n);
+  const yM = new Float64Array(n);
+  const out = turnInIndex - 80;
+  const back = corner.exitIndex + RAMP_M;
+  for (let i = 0; i < n; i++) {
+    let inward = 0;
+    if (i > out - RAMP_M && i <= out) inward = -outsideM * Math.sin((Math.PI / 2) * ((i - out + RAMP_M) / RAMP_M)) ** 2;
+    else if (i > out && i <= turnInIndex) inward = -outsideM;
+    else if (i > turnInIndex && i <= corner.apexIndex)
+      inward = -outsideM + (2 * outsideM * (i - turnInIndex)) / (corner.apexIndex - turnInIndex);
+    else if (i > corner.apexIndex && i < back)
+      inward = outsideM * Math.cos((Math.PI / 2) * ((i - corner.apexIndex) / (back - corner.apexIndex))) ** 2;
+    const offset = corner.side * inward;
+    const h = track.headingRad[i]!;
+    xM[i] = track.xM[i]! - offset * Math.sin(h) + noiseM * normal();
+    yM[i] = track.yM[i]! + offset * Math.cos(h) + noiseM * normal();
+  }
+  return { ...lap, xM, yM };
+}
+
 describe("the driver's line", () => {
+  it('finds the turn-in of an outside-inside line where the line leaves the outside, through GPS-like scatter', () => {
+    // The turn-in is where the constructed line stops running along the outside (the test's own construction);
+    // with 0.3 m of scatter the running-mean offset wanders along the flat outside run, and the turn-in must not
+    // follow its wiggles: within 10 m of the true point on every seed.
+    const turnInIndex = corner.apexIndex - 60;
+    for (const seed of [1, 2, 3, 4, 5, 6]) {
+      const result = driverLine({ track, lap: outsideInsideLap(turnInIndex, 3, 0.3, seed), brake: null })!;
+      const found = result.corners[0]!.driver;
+      expect(Math.abs(found.turnInBeforeApexM - (corner.apexIndex - turnInIndex) * track.stepM)).toBeLessThan(10);
+    }
+  });
+
+  it('puts no turn-in ahead of the apex for a line that stays on the centreline, whatever the noise', () => {
+    // A driver on the centreline with 0.5 m of scatter never moves inward by more than the resolution (twice the
+    // scatter): no turn-in is read from the noise, so the turn-in sits at the apex on every seed.
+    for (const seed of [11, 12, 13, 14, 15]) {
+      const result = driverLine({ track, lap: movedLap(0, 0.5, seed), brake: null })!;
+      expect(result.corners[0]!.driver.turnInBeforeApexM).toBe(0);
+    }
+  });
+
   it('reports a line moved 2 m inward over one corner within 0.3 m at the apex (issue 13)', () => {
     const apexRamp =
       Math.sin(

@@ -1,5 +1,7 @@
 // The line a lap takes through each corner, from its lateral offset (lateral-offset.ts; positive to the left): where
-// it turns in (the last point before the apex where it is furthest to the outside), its offset there, at the
+// it turns in (the last point before the apex still within the log's resolution of its furthest to the outside: the
+// end of the run along the outside, so a noisy or flat approach does not put the turn-in at a random wiggle, and a
+// line that never moves inward by more than the resolution turns in at the apex itself), its offset there, at the
 // corner's geometric apex and at the exit (the track used), and how far it stays from the inside edge at the apex
 // (the apex missed). The corner's side: +1 left (the inside is the left), -1 right.
 
@@ -24,21 +26,19 @@ export interface CornerLine {
   turnInFromOutsideM: number | null;
 }
 
-export function cornerLine(offsetM: Float64Array, span: CornerSpan, track: TrackGrid): CornerLine {
+/** The line through one corner; offsets within toleranceM of the outermost count as at the outside (the log's resolution). */
+export function cornerLine(offsetM: Float64Array, span: CornerSpan, track: TrackGrid, toleranceM = 0): CornerLine {
   const n = offsetM.length;
   const step = track.stepM;
   const side = span.side;
   const from = Math.max(span.entryIndex - Math.round(TURN_IN_SEARCH_M / step), track.closed ? -Infinity : 0);
-  // Furthest to the outside (least towards the inside) before the apex: the last such point is the turn-in.
-  let turnIn = span.apexIndex;
+  // Furthest to the outside (least towards the inside) before the apex, then the last point still within the
+  // tolerance of it: the turn-in.
   let outermost = Infinity;
-  for (let u = from; u <= span.apexIndex; u++) {
-    const inward = side * offsetM[wrapIndex(u, n)]!;
-    if (inward <= outermost) {
-      outermost = inward;
-      turnIn = u;
-    }
-  }
+  for (let u = from; u <= span.apexIndex; u++) outermost = Math.min(outermost, side * offsetM[wrapIndex(u, n)]!);
+  let turnIn = from;
+  for (let u = from; u <= span.apexIndex; u++)
+    if (side * offsetM[wrapIndex(u, n)]! <= outermost + toleranceM) turnIn = u;
   const at = (u: number) => offsetM[wrapIndex(u, n)]!;
   const insideWidth = (u: number) => {
     const widths = side > 0 ? track.widthLeftM : track.widthRightM;

@@ -75,7 +75,7 @@ export function driverLine(inputs: DriverLineInputs): DriverLineResult | null {
     inputs.other?.xM && inputs.other.yM ? lateralOffsetM(track, inputs.other.xM, inputs.other.yM) : null;
   const wrap = (u: number) => wrapIndex(u, n);
   const corners = cornerLayoutOf(track).corners.map((span): CornerLineComparison => {
-    const driver = cornerLine(offsetM, span, track);
+    const driver = cornerLine(offsetM, span, track, resolutionM);
     let brakeAtTurnIn: number | null = null;
     let driftUnderBrakingM: number | null = null;
     if (inputs.brake) {
@@ -90,7 +90,7 @@ export function driverLine(inputs: DriverLineInputs): DriverLineResult | null {
       name: span.name,
       driver,
       reference: referenceOffset ? cornerLine(referenceOffset, span, track) : null,
-      other: otherOffset ? cornerLine(otherOffset, span, track) : null,
+      other: otherOffset ? cornerLine(otherOffset, span, track, resolutionM) : null,
       brakeAtTurnIn,
       driftUnderBrakingM,
     };
