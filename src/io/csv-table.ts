@@ -12,10 +12,31 @@ export interface CsvTable {
   lines: number[];
 }
 
+/** The longest line read, characters: a centreline or line row is tens of characters. */
+export const MAX_ROW_CHARS = 64 * 1024;
+
+/**
+ * Refuses a line longer than MAX_ROW_CHARS before the tokeniser sees it: a file of numbers with no line breaks
+ * would otherwise cost seconds of tokenising a million cells for a header that cannot be right.
+ */
+function refuseLongLines(text: string, source: string): void {
+  let start = 0;
+  for (let line = 1; start < text.length; line++) {
+    const end = text.indexOf('\n', start);
+    const stop = end < 0 ? text.length : end;
+    if (stop - start > MAX_ROW_CHARS)
+      throw new InputError(
+        `${source}: line ${line}: a row of over ${MAX_ROW_CHARS / 1024} KiB; not a CSV of rows of numbers`,
+      );
+    start = stop + 1;
+  }
+}
+
 const NUMBER_PATTERN = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
 const NON_FINITE_PATTERN = /^[+-]?(nan|inf|infinity)$/i;
 
 export function parseCsvTable(text: string, source: string): CsvTable {
+  refuseLongLines(text, source);
   let body = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
   const headerStart = body.search(/\S/);
   if (headerStart < 0) throw new InputError(`${source}: the file is empty`);

@@ -319,3 +319,57 @@ export function runs(numRuns: number, seed: number): fc.Parameters<unknown> {
     seed: chosen !== undefined ? Number(chosen) + seed : seed,
   };
 }
+
+/** A value at, just inside or beyond an edge of a range, or a value no range admits; `expected` is what it is. */
+export interface EdgeValue {
+  value: unknown;
+  /** Written into a JSON file as this text (NaN and Infinity have no JSON spelling: the file is then not JSON). */
+  json: string;
+  label: string;
+}
+
+const numberEdge = (value: number, label: string): EdgeValue => ({
+  value,
+  json: Number.isFinite(value) ? JSON.stringify(value) : String(value),
+  label,
+});
+
+/**
+ * The edges of a range (each bound, the nearest double inside it and a value beyond it, relative and absolute),
+ * then non-finite numbers, signed zero, the extremes of the double format, and a number written as a string.
+ */
+export function edgeValues(range: { min: number; max: number; minInclusive: boolean }): EdgeValue[] {
+  const { min, max } = range;
+  const step = (x: number, towards: number) => (x === towards ? x : x + (towards - x) * 1e-9 || towards);
+  return [
+    numberEdge(min, 'lower bound'),
+    numberEdge(step(min, max), 'just above the lower bound'),
+    numberEdge(min === 0 ? -1e-9 : min - Math.abs(min) * 1e-6, 'just below the lower bound'),
+    numberEdge(min - Math.max(1, Math.abs(min)) * 10, 'far below the lower bound'),
+    numberEdge(max, 'upper bound'),
+    numberEdge(step(max, min), 'just below the upper bound'),
+    numberEdge(max + Math.abs(max) * 1e-6 || 1e-9, 'just above the upper bound'),
+    numberEdge(max * 10 + 1, 'far above the upper bound'),
+    numberEdge(Number.NaN, 'NaN'),
+    numberEdge(Number.POSITIVE_INFINITY, 'Infinity'),
+    numberEdge(Number.NEGATIVE_INFINITY, '-Infinity'),
+    { value: -0, json: '-0', label: 'negative zero' },
+    numberEdge(1e308, '1e308'),
+    numberEdge(-1e308, '-1e308'),
+    numberEdge(1e-300, '1e-300'),
+    { value: Number.POSITIVE_INFINITY, json: '1e400', label: '1e400 (Infinity once parsed)' },
+    {
+      value: String(Math.min(max, Math.max(min, 1))),
+      json: JSON.stringify(String(Math.min(max, Math.max(min, 1)))),
+      label: 'a number as a string',
+    },
+    { value: 'abc', json: '"abc"', label: 'text' },
+    { value: true, json: 'true', label: 'true' },
+  ];
+}
+
+/** Whether a range admits a value (the bounds as the range states them; a non-number never). */
+export function admits(range: { min: number; max: number; minInclusive: boolean }, value: unknown): boolean {
+  if (typeof value !== 'number' || !Number.isFinite(value)) return false;
+  return (range.minInclusive ? value >= range.min : value > range.min) && value <= range.max;
+}

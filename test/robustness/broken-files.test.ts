@@ -149,11 +149,8 @@ describe('broken telemetry files', () => {
       const file = join(folder, 'one-line.csv');
       writeFileSync(file, '1.25,'.repeat(600_000));
       const message = await failure(readTelemetryFile(file, { columns: {} }));
-      expect(message).toMatch(
-        new RegExp(
-          `^${escape(file)}: header only, no data rows \\(header: (1\\.25, )+1\\.2?\\.\\.\\. \\(600001 columns\\)\\)$`,
-        ),
-      );
+      // 600,000 separators make 600,001 cells: far more than any logger's channels, refused before matching them.
+      expect(message).toBe(`${file}: line 1: a header of 600001 columns; a log has at most 10000`);
       expect(message.length).toBeLessThan(600);
     });
 

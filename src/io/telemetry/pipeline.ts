@@ -18,6 +18,9 @@ import type { RowBlock } from './row-block.js';
 import { TimeOrder } from './time-order.js';
 import type { ChannelLayout, DecidedUnits } from './units-from-data.js';
 
+/** Most columns a log's header may have: loggers write tens to a few hundred channels (from memory). */
+export const MAX_COLUMNS = 10_000;
+
 /** Thrown when more rows are held than allowed and no scan is known yet: the caller scans and reads again. */
 export class HeldTooLong extends Error {}
 
@@ -143,6 +146,12 @@ export class RowPipeline {
   }
 
   private header(cells: string[]): void {
+    // A line of a million cells is not a logger's header (a file of numbers with no line breaks): refused before
+    // each cell is matched against the known channel names.
+    if (cells.length > MAX_COLUMNS)
+      throw new InputError(
+        `${this.options.source}: line ${this.options.headerLine}: a header of ${cells.length} columns; a log has at most ${MAX_COLUMNS}`,
+      );
     this.headers = headerNames(cells, this.options.logger);
     this.unitsRowAhead = (this.options.logger?.units ?? null) !== null;
     const { source, scan, mode, decided, skipRows, sink } = this.options;
