@@ -59,6 +59,7 @@ function pageFiles(): Record<string, string> {
     car: cli('car', ['car', '--car', clubCar]),
     sweep: cli('sweep', ['sweep', ...onLoop, '--vary', 'massKg=600:640:20', 'tyre.muLat=-5%:+5%:5%', '--workers', '1']),
     whatif: cli('whatif', ['whatif', ...onLoop, '--set', 'massKg=+20']),
+    budget: cli('budget', ['budget', '--car', clubCar, '--speed-kph', '80', '--radius-m', '60']),
   };
 }
 

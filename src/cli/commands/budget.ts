@@ -1,7 +1,11 @@
 // `reflap budget`: the friction-circle arithmetic at one speed and lateral demand, ellipse beside linear split.
 
 import type { Command } from 'commander';
-import { addCarOptions, loadCar, numberOption, type CarOptionValues } from '../options.js';
+import { addCarOptions, inputFilesOf, loadCar, numberOption, type CarOptionValues } from '../options.js';
+import { outputBatch } from '../output.js';
+import { addPageOutputs, addReportOptions, reportWrittenText, type ReportOptionValues } from '../html-options.js';
+import { budgetHtml, budgetSvg } from '../../report/html/budget-page.js';
+import { envelopeBoundaryG } from '../../report/html/gg-diagram.js';
 import { buildEnvelope } from '../../car/build-envelope.js';
 import { gripBudget, lateralLoadTable } from '../../car/budget.js';
 import { cornerLimitSpeedMps } from '../../solve/corner-limit.js';
@@ -12,7 +16,7 @@ import { gToMps2, kphToMps, mps2ToG, mpsToKph } from '../../units.js';
 import { MAX_ACCEL_MPS2, MAX_SPEED_MPS } from '../../car/plausible.js';
 import { roundToDigits } from '../../numeric/round.js';
 
-interface BudgetValues extends CarOptionValues, UnitsOptionValues {
+interface BudgetValues extends CarOptionValues, UnitsOptionValues, ReportOptionValues {
   speedKph: string;
   lateralG?: string;
   radiusM?: string;
@@ -29,7 +33,11 @@ export function register(program: Command): void {
     .option('--lateral-g <g>', 'lateral acceleration in use, g')
     .option('--radius-m <r>', 'corner radius, m (lateral demand v^2 / R)')
     .option('--json', 'print one JSON object');
-  addUnitsOption(command).action((values: BudgetValues) => runBudget(values));
+  addUnitsOption(command);
+  addReportOptions(
+    command,
+    'the friction circle with the point on it and what is left to brake and accelerate with: one page',
+  ).action((values: BudgetValues) => runBudget(values));
 }
 
 export function runBudget(values: BudgetValues): void {
@@ -62,6 +70,14 @@ export function runBudget(values: BudgetValues): void {
   const cornerSpeedLimitMps = radiusM !== null ? cornerLimitSpeedMps(envelope, 1 / radiusM) : null;
   const tightestRadiusM = (speedMps * speedMps) / envelope.lateralLimitMps2(speedMps, 1);
   const lateralLoads = lateralLoadTable(envelope, speedMps);
+  const report = { carName: car.name, speedMps, radiusM, budget, cornerSpeedLimitMps, tightestRadiusM, lateralLoads };
+  const picture = { report, boundaryG: envelopeBoundaryG(envelope, speedMps) };
+  const outputs = outputBatch(inputFilesOf(values));
+  const pictureFiles = addPageOutputs(outputs, values, {
+    html: () => budgetHtml(picture, units),
+    charts: () => [{ name: 'budget.svg', title: 'Grip budget', svg: budgetSvg(picture, units, { standalone: true }) }],
+  });
+  outputs.commit();
   if (values.json) {
     process.stdout.write(
       JSON.stringify(
@@ -99,10 +115,5 @@ export function runBudget(values: BudgetValues): void {
     );
     return;
   }
-  process.stdout.write(
-    budgetText(
-      { carName: car.name, speedMps, radiusM, budget, cornerSpeedLimitMps, tightestRadiusM, lateralLoads },
-      units,
-    ),
-  );
+  process.stdout.write(budgetText(report, units) + reportWrittenText(pictureFiles));
 }
