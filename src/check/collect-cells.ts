@@ -1,7 +1,7 @@
 // Cell-by-cell passes over CSV files that list every bad cell (the readers stop at the first): centreline
 // coordinates and widths, and the recognised numeric channels of a telemetry log with its time order.
 
-import { parse } from 'csv-parse/sync';
+import { csvParseSync } from '../io/lazy-libraries.js';
 import { InputError } from '../errors.js';
 import { numberCell, parseCsvTable } from '../io/csv-table.js';
 import { TRACK_COLUMNS } from '../io/track-csv.js';
@@ -100,7 +100,7 @@ export function telemetryCellProblems(text: string, source: string): CellProblem
   };
   try {
     dialect = sniffDialect(text.slice(0, 65536), source);
-    parse(text, {
+    csvParseSync().parse(text, {
       delimiter: dialect.delimiter,
       bom: true,
       from_line: dialect.headerLine,

@@ -3,7 +3,7 @@
 // value came from. Validated against the car they belong to, so a typo or an impossible correlation is one message.
 
 import { z } from 'zod';
-import { CholeskyDecomposition, Matrix } from 'ml-matrix';
+import { mlMatrix } from '../numeric/matrix-library.js';
 import type { Car, CarUncertainty } from '../car/types.js';
 import { CAR_FIELDS, closestField, readCarField } from '../sweep/fields.js';
 
@@ -43,6 +43,7 @@ export function uncertaintyOf(data: UncertaintyFile, car: Car): { uncertainty: C
   if (problems.length === 0 && correlation.length > 0) {
     // The pairs must make a valid correlation matrix (positive definite), or no draws can have them.
     const fields = Object.keys(data.sd);
+    const { CholeskyDecomposition, Matrix } = mlMatrix();
     const matrix = Matrix.eye(fields.length, fields.length);
     for (const {
       fields: [a, b],

@@ -2,7 +2,7 @@
 // the tokenising). A first line starting with '#' that names the columns counts as the header; later lines
 // starting with '#' are comments.
 
-import { parse } from 'csv-parse/sync';
+import { csvParseSync } from './lazy-libraries.js';
 import { InputError } from '../errors.js';
 
 export interface CsvTable {
@@ -52,7 +52,7 @@ export function parseCsvTable(text: string, source: string): CsvTable {
         : ',';
   let records: { record: string[]; info: { lines: number } }[];
   try {
-    records = parse(body, {
+    records = csvParseSync().parse(body, {
       delimiter,
       trim: true,
       skip_empty_lines: true,

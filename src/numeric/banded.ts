@@ -20,7 +20,8 @@
 // and the small capacitance matrix C is inverted once with ml-matrix. Factoring costs p + 1 banded solves;
 // each solve costs one banded solve plus O(n p).
 
-import { CholeskyDecomposition, LuDecomposition, Matrix } from 'ml-matrix';
+import type { Matrix } from 'ml-matrix';
+import { mlMatrix } from './matrix-library.js';
 
 /** entry(i, k) = A[i][i + k] for k = 0..halfBandwidth (cyclic solvers: column index taken modulo n). */
 export type BandEntry = (i: number, offset: number) => number;
@@ -89,7 +90,7 @@ export function factorBanded(n: number, halfBandwidth: number, entry: BandEntry)
 
 /** Dense copy of a cyclic band; entries that fall on the same place (tiny n) add up. */
 function denseCyclic(n: number, p: number, entry: BandEntry): Matrix {
-  const a = Matrix.zeros(n, n);
+  const a = mlMatrix().Matrix.zeros(n, n);
   for (let i = 0; i < n; i++) {
     a.set(i, i, a.get(i, i) + entry(i, 0));
     for (let k = 1; k <= p; k++) {
@@ -104,6 +105,7 @@ function denseCyclic(n: number, p: number, entry: BandEntry): Matrix {
 
 /** A tiny cyclic system (n < 2p + 2, the corners meet the band) solved densely by LU. */
 function denseCyclicFactor(n: number, p: number, entry: BandEntry): BandedFactor {
+  const { LuDecomposition, Matrix } = mlMatrix();
   const lu = new LuDecomposition(denseCyclic(n, p, entry));
   return {
     n,
@@ -144,6 +146,7 @@ function capacitanceInverseOf(
   p: number,
 ): Float64Array {
   const tailStart = n - p;
+  const { CholeskyDecomposition, LuDecomposition, Matrix } = mlMatrix();
   const capacitance = Matrix.zeros(p, p);
   for (let a = 0; a < p; a++) {
     for (let b = 0; b < p; b++) {

@@ -4,7 +4,7 @@
 // weights are computed once and the filter costs linear time. Its frequency response and the cut-off estimate
 // below follow Schafer, "What is a Savitzky-Golay filter?", IEEE Signal Processing Magazine 28(4) (2011) 111-117.
 
-import { Matrix, inverse } from 'ml-matrix';
+import { mlMatrix } from './matrix-library.js';
 
 /**
  * Weights w_k, k = -halfWidth..halfWidth, such that sum w_k y_k is the `derivative`-th derivative (per sample
@@ -17,6 +17,7 @@ export function savitzkyGolayWeights(halfWidth: number, order: number, derivativ
   }
   // Normal equations of the fit, A^T A c = A^T y with A[k][j] = k^j (k centred); the weights are the row of
   // (A^T A)^-1 A^T that gives the derivative of the polynomial at `at`.
+  const { Matrix, inverse } = mlMatrix();
   const design = new Matrix(size, order + 1);
   for (let k = 0; k < size; k++) for (let j = 0; j <= order; j++) design.set(k, j, Math.pow(k - halfWidth, j));
   const projector = inverse(design.transpose().mmul(design)).mmul(design.transpose());

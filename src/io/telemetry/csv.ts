@@ -5,8 +5,8 @@
 
 import { createReadStream } from 'node:fs';
 import { open, stat } from 'node:fs/promises';
-import { parse as parseStream, type Options } from 'csv-parse';
-import { parse as parseSync } from 'csv-parse/sync';
+import type { Options } from 'csv-parse';
+import { csvParseStream, csvParseSync } from '../lazy-libraries.js';
 import { InputError } from '../../errors.js';
 import type { TelemetrySession } from '../../telemetry/types.js';
 import { HeldTooLong, RowPipeline } from './pipeline.js';
@@ -124,7 +124,7 @@ export function feedCsvText(
     const bytes = Buffer.from(text, 'utf8');
     if (reader === 'fast' && scanner.scan(bytes, 0, bytes.length, true) >= 0) return;
     const feed = skipping(scanner.records, target);
-    parseSync(text, {
+    csvParseSync().parse(text, {
       ...parserOptions(dialect),
       on_record: (cells: string[]) => {
         feed(cells);
@@ -176,7 +176,7 @@ export async function feedCsvFile(file: string, dialect: CsvDialect, target: Sca
 
 /** Streams the file's records through csv-parse to `record`; an error thrown by `record` ends the read. */
 async function parseCsvFile(file: string, dialect: CsvDialect, record: (cells: string[]) => void): Promise<void> {
-  const parser = parseStream(parserOptions(dialect));
+  const parser = csvParseStream().parse(parserOptions(dialect));
   const input = createReadStream(file, { highWaterMark: 1 << 20 });
   await new Promise<void>((resolve, reject) => {
     input.on('error', reject);
