@@ -3,6 +3,7 @@
 // accelerating and on all wheels when braking, the power limit, drag and rolling resistance, and the two combined
 // by the friction ellipse |ax/axMax|^n + |ay/ayMax|^n = 1 with n = tyre.ggExponent.
 
+import { largestHolding } from '../numeric/bisect.js';
 import type { Ambient, Car } from './types.js';
 import type { Envelope } from './envelope.js';
 import { driveForceTable } from './drive-force.js';
@@ -58,14 +59,7 @@ export function topSpeedOf(
   ceilingMps = 250,
 ): number {
   if (accelLimitMps2(ceilingMps, 0) > 0) return ceilingMps;
-  let lo = 0.5;
-  let hi = ceilingMps;
-  for (let k = 0; k < 60; k++) {
-    const mid = 0.5 * (lo + hi);
-    if (accelLimitMps2(mid, 0) > 0) lo = mid;
-    else hi = mid;
-  }
-  return lo;
+  return largestHolding((speedMps) => accelLimitMps2(speedMps, 0) > 0, 0.5, ceilingMps, 60);
 }
 
 export function pointMassEnvelope(car: Car, ambient: Ambient): Envelope {
