@@ -57,6 +57,59 @@ export interface FollowedLap {
   evaluations: number;
 }
 
+/** Why the followed car counts as lost at state y, or '' while it still follows the line. */
+function lostReason(y: number[], wrapM: number): string {
+  // A spin shows as a large sideslip or heading error (the course, heading plus sideslip, can stay on the path).
+  const sideslip = Math.atan2(y[3]!, Math.max(y[5]!, 1));
+  const at = (y[0]! % wrapM).toFixed(0);
+  if (
+    Math.abs(sideslip) > SPIN_SIDESLIP_RAD ||
+    Math.abs(y[2]!) > SPIN_HEADING_ERROR_RAD ||
+    Math.abs(y[2]! + sideslip) > SPIN_HEADING_ERROR_RAD
+  )
+    return `the car spins at ${at} m`;
+  if (Math.abs(y[1]!) > LOST_DEVIATION_M)
+    return `the car leaves the line by more than ${LOST_DEVIATION_M} m at ${at} m`;
+  if (y[5]! < 0.5) return `the car stops at ${at} m`;
+  return '';
+}
+
+/**
+ * Where and how the follow starts. A closed lap is followed from a calm point (mid-way along the longest stretch
+ * of straight-line acceleration), so the car starts in a steady state; an open one from its start. The state is
+ * steady cornering: r = u kappa, and the lateral velocity that gives the rear axle its share m ay a / L on the tyre
+ * law (vy = b r - u tan alpha_r), heading error -sideslip so that the car moves along the line.
+ */
+function steadyStart(
+  result: LapResult,
+  car: Car,
+  setup: FollowSetup,
+  halfRhoLift: number,
+): { startIndex: number; startM: number; y0: number[] } {
+  const { params: p, law, reference } = setup;
+  const startIndex = result.trace.closed ? calmStartIndex(result) : 0;
+  const startM = result.trace.distanceM[startIndex]!;
+  const startSpeed = Math.max(result.trace.speedMps[startIndex]!, 2);
+  const startYawRate = startSpeed * reference.curvaturePerM(startM);
+  const startAxles = axleState(
+    p,
+    car.tyre,
+    halfRhoLift * startSpeed * startSpeed,
+    0,
+    startSpeed * startYawRate,
+    newAxleState(),
+  );
+  const rearSlipRad = axleSlipForForceRad(
+    p.corneringStiffnessRearNPerRad,
+    Math.sign(startYawRate) * startAxles.rearLatDemandN,
+    startAxles.rearLatCapN,
+    law,
+    0.995,
+  );
+  const startVy = p.cgToRearAxleM * startYawRate - startSpeed * Math.tan(rearSlipRad);
+  return { startIndex, startM, y0: [startM, 0, -Math.atan2(startVy, startSpeed), startVy, startYawRate, startSpeed] };
+}
+
 /** Integrates the single-track model with the driver following the reference; see the module comment. */
 export function followLap(result: LapResult, car: Car, setup: FollowSetup): FollowedLap {
   const { ambient, law, settings, params: p, reference } = setup;
@@ -116,45 +169,11 @@ export function followLap(result: LapResult, car: Car, setup: FollowSetup): Foll
     steers.push(input.steerRad);
     frontUses.push(forces.frontUse);
     rearUses.push(forces.rearUse);
-    // A spin shows as a large sideslip or heading error (the course, heading plus sideslip, can stay on the path).
-    const sideslip = Math.atan2(y[3]!, Math.max(y[5]!, 1));
-    const at = (y[0]! % wrapM).toFixed(0);
-    if (
-      Math.abs(sideslip) > SPIN_SIDESLIP_RAD ||
-      Math.abs(y[2]!) > SPIN_HEADING_ERROR_RAD ||
-      Math.abs(y[2]! + sideslip) > SPIN_HEADING_ERROR_RAD
-    )
-      lost = `the car spins at ${at} m`;
-    else if (Math.abs(y[1]!) > LOST_DEVIATION_M)
-      lost = `the car leaves the line by more than ${LOST_DEVIATION_M} m at ${at} m`;
-    else if (y[5]! < 0.5) lost = `the car stops at ${at} m`;
+    const reason = lostReason(y, wrapM);
+    if (reason) lost = reason;
   };
 
-  // A closed lap is followed from a calm point (mid-way along the longest stretch of straight-line acceleration),
-  // so the car starts in a steady state; an open one from its start.
-  const startIndex = result.trace.closed ? calmStartIndex(result) : 0;
-  const startM = result.trace.distanceM[startIndex]!;
-  const startSpeed = Math.max(result.trace.speedMps[startIndex]!, 2);
-  // Start in steady cornering: r = u kappa, and the lateral velocity that gives the rear axle its share m ay a / L
-  // on the tyre law (vy = b r - u tan alpha_r), heading error -sideslip so that the car moves along the line.
-  const startYawRate = startSpeed * reference.curvaturePerM(startM);
-  const startAxles = axleState(
-    p,
-    car.tyre,
-    model.halfRhoLift * startSpeed * startSpeed,
-    0,
-    startSpeed * startYawRate,
-    newAxleState(),
-  );
-  const rearSlipRad = axleSlipForForceRad(
-    p.corneringStiffnessRearNPerRad,
-    Math.sign(startYawRate) * startAxles.rearLatDemandN,
-    startAxles.rearLatCapN,
-    law,
-    0.995,
-  );
-  const startVy = p.cgToRearAxleM * startYawRate - startSpeed * Math.tan(rearSlipRad);
-  const y0 = [startM, 0, -Math.atan2(startVy, startSpeed), startVy, startYawRate, startSpeed];
+  const { startIndex, startM, y0 } = steadyStart(result, car, setup, model.halfRhoLift);
   const solver = newOdexSolver(6);
   solver.denseOutput = false;
   // A lap takes some thousands of steps; far more means the inputs chatter (bounded so the check stays quick).
