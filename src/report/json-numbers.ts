@@ -12,3 +12,12 @@ export function jsonNumber(value: number): number {
 export function roundedJson(value: unknown): string {
   return JSON.stringify(value, (_key, item: unknown) => (typeof item === 'number' ? jsonNumber(item) : item), 2) + '\n';
 }
+
+/** A copy of a plain record (objects, arrays, numbers, strings) with every number rounded by jsonNumber. */
+export function roundedNumbers<T>(value: T): T {
+  if (typeof value === 'number') return jsonNumber(value) as T;
+  if (Array.isArray(value)) return value.map((item: unknown) => roundedNumbers(item)) as T;
+  if (typeof value === 'object' && value !== null)
+    return Object.fromEntries(Object.entries(value).map(([key, item]) => [key, roundedNumbers(item)])) as T;
+  return value;
+}

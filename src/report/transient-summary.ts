@@ -1,6 +1,7 @@
 // The transient check as the simulate command shows it: a few summary lines, and a JSON record.
 // The axle-saturation stretches are merged for reading: a driver thinks of one corner, not of its flickers.
 
+import { roundedNumbers } from './json-numbers.js';
 import type { SaturationZone, TransientCheck } from '../solve/transient.js';
 import { formatLapTime } from '../units.js';
 
@@ -82,7 +83,7 @@ export function transientSummaryText(check: TransientCheck): string {
 }
 
 export function transientJson(check: TransientCheck) {
-  return {
+  return roundedNumbers({
     completed: check.completed,
     drivable: check.drivable,
     verdict: check.verdict,
@@ -99,5 +100,5 @@ export function transientJson(check: TransientCheck) {
     referenceSpeedAtShareMps: check.referenceSpeedAtShareMps,
     maxSteerDeg: check.maxSteerDeg,
     saturation: check.saturation,
-  };
+  });
 }
