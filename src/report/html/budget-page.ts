@@ -7,9 +7,10 @@ import type { BudgetReport } from '../budget-text.js';
 import { plainNumber, type DisplayUnits } from '../units.js';
 import { escapeHtml } from './escape.js';
 import { htmlPage } from './page-frame.js';
-import { coord, linearScale, niceTicks } from './scale.js';
-import { legendRows, svgElement, tickText, type LegendItem, type SvgOptions } from './svg-frame.js';
+import { coord, linearScale } from './scale.js';
+import { legendRows, svgElement, type LegendItem, type SvgOptions } from './svg-frame.js';
 import { PALETTE } from './palette.js';
+import { ggGridSvg } from './gg-grid.js';
 import { tile } from './cells.js';
 
 const SIZE = 520;
@@ -41,15 +42,7 @@ export function budgetSvg(picture: BudgetPicture, units: DisplayUnits, options: 
     { label: 'linear split', colour: PALETTE.gripNear },
   ];
   body += legendRows(legend, SIZE - 10, 38, SIZE - 20).svg;
-  for (const tick of niceTicks(-maxG, maxG, 6)) {
-    const px = coord(lateral(tick));
-    const py = coord(longitudinal(tick));
-    const stroke = tick === 0 ? '#a8a8a8' : PALETTE.grid;
-    body += `<line x1="${px}" x2="${px}" y1="${TOP}" y2="${TOP + plot}" stroke="${stroke}"/>`;
-    body += `<line x1="${PAD}" x2="${PAD + plot}" y1="${py}" y2="${py}" stroke="${stroke}"/>`;
-    body += `<text x="${px}" y="${TOP + plot + 14}" text-anchor="middle" fill="${PALETTE.axis}">${tickText(tick)}</text>`;
-    body += `<text x="${PAD - 6}" y="${py}" dy="0.32em" text-anchor="end" fill="${PALETTE.axis}">${tickText(tick)}</text>`;
-  }
+  body += ggGridSvg({ maxG, lateral, longitudinal, left: PAD, right: PAD + plot, top: TOP, bottom: TOP + plot });
   body += `<text x="${coord(PAD + plot / 2)}" y="${TOP + plot + 32}" text-anchor="middle" fill="${PALETTE.axis}">lateral acceleration, g (left turn +)</text>`;
   body += `<text transform="translate(16 ${coord(TOP + plot / 2)}) rotate(-90)" text-anchor="middle" fill="${PALETTE.axis}">longitudinal acceleration, g (drive +, braking −)</text>`;
   const boundary =

@@ -6,9 +6,10 @@ import type { Envelope } from '../../car/envelope.js';
 import { STANDARD_GRAVITY_MPS2, mpsToKph, kphToMps } from '../../units.js';
 import { escapeHtml } from './escape.js';
 import { strideIndices } from './downsample.js';
-import { coord, linearScale, niceTicks, quantileOf } from './scale.js';
-import { legendRow, svgElement, tickText, type LegendItem, type SvgOptions } from './svg-frame.js';
+import { coord, linearScale, quantileOf } from './scale.js';
+import { legendRow, svgElement, type LegendItem, type SvgOptions } from './svg-frame.js';
 import { PALETTE } from './palette.js';
+import { ggGridSvg } from './gg-grid.js';
 import type { ReportModel } from './model.js';
 
 export const GG_SIZE = 440;
@@ -119,15 +120,7 @@ export function ggDiagramSvg(model: ReportModel, options: SvgOptions): string {
   body += legendRow(legend, GG_SIZE - 10, 36);
   body += `<text x="${GG_SIZE - 10}" y="52" text-anchor="end" fill="${PALETTE.axis}">${escapeHtml(`envelope at ${speeds.join(', ')} km/h`)}</text>`;
 
-  for (const tick of niceTicks(-maxG, maxG, 6)) {
-    const px = coord(lateral(tick));
-    const py = coord(longitudinal(tick));
-    const stroke = tick === 0 ? '#a8a8a8' : PALETTE.grid;
-    body += `<line x1="${px}" x2="${px}" y1="${coord(top)}" y2="${coord(bottom)}" stroke="${stroke}"/>`;
-    body += `<line x1="${coord(left)}" x2="${coord(right)}" y1="${py}" y2="${py}" stroke="${stroke}"/>`;
-    body += `<text x="${px}" y="${coord(bottom + 14)}" text-anchor="middle" fill="${PALETTE.axis}">${tickText(tick)}</text>`;
-    body += `<text x="${coord(left - 6)}" y="${py}" dy="0.32em" text-anchor="end" fill="${PALETTE.axis}">${tickText(tick)}</text>`;
-  }
+  body += ggGridSvg({ maxG, lateral, longitudinal, left, right, top, bottom });
   body += `<text x="${coord(frame.centreX)}" y="${coord(bottom + 30)}" text-anchor="middle" fill="${PALETTE.axis}">lateral acceleration, g (left turn +)</text>`;
   body += `<text transform="translate(${coord(left - 34)} ${coord(frame.centreY)}) rotate(-90)" text-anchor="middle" fill="${PALETTE.axis}">longitudinal acceleration, g (drive +)</text>`;
 
