@@ -72,7 +72,7 @@ export {
 } from './sweep/settings.js';
 export { matchBrakingZones, signedLapShiftM } from './sweep/match-zones.js';
 export { brakingPointM } from './sweep/braking-point.js';
-export { compareSetupChange, type LapComparison, type ZoneChange } from './sweep/compare-laps.js';
+export { compareSetupChange, type LapComparison, type ZoneChange } from './sweep/setup-change.js';
 export { planSweep, type SweepPlan, type SweepMode, type Shard } from './sweep/plan.js';
 export { runSweep, prepareSweep, type SweepInput, type SweepOutput } from './sweep/run-sweep.js';
 export { sensitivities, type Sensitivity, type SweepTable, type SweepRecord, type SweepMeta } from './sweep/table.js';

@@ -2,7 +2,7 @@
 // shift per corner as a bar chart, in the lap report's frame. Pure: the CLI writes the strings.
 
 import { zoneLabel } from '../track/corner-layout.js';
-import type { LapComparison } from '../sweep/compare-laps.js';
+import type { LapComparison } from '../sweep/setup-change.js';
 import { formatLapTime } from '../units.js';
 import { barChartSvg, type BarChartSpec } from './html/bar-chart.js';
 import { htmlPage } from './html/page-frame.js';

@@ -3,7 +3,7 @@
 
 import { zoneLabel } from '../track/corner-layout.js';
 import { baseValueOf, type Setting, type SetupBase } from '../sweep/settings.js';
-import type { LapComparison } from '../sweep/compare-laps.js';
+import type { LapComparison } from '../sweep/setup-change.js';
 import { unitOf } from '../sweep/fields.js';
 import { formatTable } from './text-table.js';
 import { SAFETY_CAUTION } from './lap-summary.js';

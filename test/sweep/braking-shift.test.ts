@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { simulate } from '../../src/solve/simulate.js';
-import { compareSetupChange } from '../../src/sweep/compare-laps.js';
+import { compareSetupChange } from '../../src/sweep/setup-change.js';
 import { applySettings, parseSetting } from '../../src/sweep/settings.js';
 import { ambientFrom } from '../../src/car/ambient.js';
 import { STANDARD_GRAVITY_MPS2 } from '../../src/units.js';

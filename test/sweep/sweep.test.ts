@@ -6,7 +6,7 @@ import { runSweep } from '../../src/sweep/run-sweep.js';
 import { sensitivities } from '../../src/sweep/table.js';
 import { mergeSweepCsv, parseSweepCsv, sweepCsv } from '../../src/sweep/csv.js';
 import { sweepChartData } from '../../src/sweep/chart-data.js';
-import { compareSetupChange } from '../../src/sweep/compare-laps.js';
+import { compareSetupChange } from '../../src/sweep/setup-change.js';
 import { runStint } from '../../src/sweep/stint.js';
 // Worker threads run compiled modules, so the runs on workers call the build (dist/, made before vitest runs).
 import { runSweep as runSweepBuilt } from '../../dist/src/sweep/run-sweep.js';

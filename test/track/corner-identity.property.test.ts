@@ -7,7 +7,7 @@ import { trackFromCurvature } from '../line/hand-tracks.js';
 import { runs } from '../fuzz/generators.js';
 import { cornerLayoutOf } from '../../src/track/corner-layout.js';
 import { simulate } from '../../src/solve/simulate.js';
-import { compareSetupChange } from '../../src/sweep/compare-laps.js';
+import { compareSetupChange } from '../../src/sweep/setup-change.js';
 import { cornersOf } from '../../src/sweep/table.js';
 import { runStint } from '../../src/sweep/stint.js';
 import { compareLaps } from '../../src/compare/compare-laps.js';

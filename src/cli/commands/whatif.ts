@@ -12,7 +12,7 @@ import {
 } from '../options.js';
 import { simulate } from '../../solve/simulate.js';
 import { applySettings, baseValueOf, parseSetting } from '../../sweep/settings.js';
-import { compareSetupChange } from '../../sweep/compare-laps.js';
+import { compareSetupChange } from '../../sweep/setup-change.js';
 import { DEFAULT_MATCH_TOLERANCE_M } from '../../sweep/match-zones.js';
 import { InputError } from '../../errors.js';
 import { loadSetupInputs, setupReference } from '../setup-inputs.js';
