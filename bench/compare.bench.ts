@@ -11,12 +11,10 @@ import { existsSync, mkdtempSync, rmSync, statSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { readTrackFile } from '../src/io/read-track.js';
-import { readCarFile } from '../src/io/read-car.js';
 import { ambientFrom } from '../src/car/ambient.js';
 import { readTelemetryFile } from '../src/io/telemetry/read-telemetry.js';
 import { compareSession } from '../src/compare/compare-session.js';
-import { writeSession } from './telemetry.bench.js';
+import { clubTrackAndCar, writeSession } from './telemetry.bench.js';
 import { childCpuS, machineLoad, median, peakRssMb, timeOnce, verdict } from './stats.js';
 
 const projectRoot = fileURLToPath(new URL('../..', import.meta.url));
@@ -61,14 +59,7 @@ export async function run(): Promise<void> {
   try {
     const { rows } = await writeSession(file, 100, 3600);
     process.stdout.write(`generated ${rows} rows x 20 channels (${(statSync(file).size / 1e6).toFixed(0)} MB)\n`);
-    const track = readTrackFile(path.join(projectRoot, 'tracks', 'tarnwick-club.json'), {
-      stepM: 1,
-      columns: {},
-      widthM: null,
-      layout: 'auto',
-      smoothingM: null,
-    });
-    const car = readCarFile(path.join(projectRoot, 'cars', 'brackle-club.json'));
+    const { track, car } = clubTrackAndCar();
     const ambient = ambientFrom();
     const read: number[] = [];
     const rest: number[] = [];

@@ -7,19 +7,14 @@
 import { mkdtempSync, rmSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { fileURLToPath } from 'node:url';
-import { readTrackFile } from '../src/io/read-track.js';
-import { readCarFile } from '../src/io/read-car.js';
 import { ambientFrom } from '../src/car/ambient.js';
 import { readTelemetryFile } from '../src/io/telemetry/read-telemetry.js';
 import { compareSession } from '../src/compare/compare-session.js';
 import { sessionOverview } from '../src/compare/session/session-overview.js';
 import { otherLapOf } from '../src/compare/against/other-lap.js';
 import { lapAgainstLap } from '../src/compare/against/lap-against-lap.js';
-import { writeSession } from './telemetry.bench.js';
+import { clubTrackAndCar, writeSession } from './telemetry.bench.js';
 import { machineLoad, median, peakRssMb, timeOnce, verdict } from './stats.js';
-
-const projectRoot = fileURLToPath(new URL('../..', import.meta.url));
 
 /** Heap held after a full collection, MB (needs node --expose-gc, as `npm run bench` gives it). */
 function heapAfterGcMb(): number {
@@ -33,14 +28,7 @@ export async function run(): Promise<void> {
   try {
     const { rows, laps } = await writeSession(file, 100, 3600);
     process.stdout.write(`generated ${rows} rows, ${laps} laps\n`);
-    const track = readTrackFile(path.join(projectRoot, 'tracks', 'tarnwick-club.json'), {
-      stepM: 1,
-      columns: {},
-      widthM: null,
-      layout: 'auto',
-      smoothingM: null,
-    });
-    const car = readCarFile(path.join(projectRoot, 'cars', 'brackle-club.json'));
+    const { track, car } = clubTrackAndCar();
     const ambient = ambientFrom();
     const sessionWall: number[] = [];
     const sessionCpu: number[] = [];

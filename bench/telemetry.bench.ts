@@ -44,11 +44,8 @@ const HEADER = [
   'fuel_l',
 ];
 
-export async function writeSession(
-  file: string,
-  rateHz: number,
-  durationS: number,
-): Promise<{ rows: number; laps: number }> {
+/** The bundled club circuit on a 1 m grid and the club car: the session benches' track and car. */
+export function clubTrackAndCar() {
   const track = readTrackFile(path.join(projectRoot, 'tracks', 'tarnwick-club.json'), {
     stepM: 1,
     columns: {},
@@ -57,6 +54,15 @@ export async function writeSession(
     smoothingM: null,
   });
   const car = readCarFile(path.join(projectRoot, 'cars', 'brackle-club.json'));
+  return { track, car };
+}
+
+export async function writeSession(
+  file: string,
+  rateHz: number,
+  durationS: number,
+): Promise<{ rows: number; laps: number }> {
+  const { track, car } = clubTrackAndCar();
   const lap = simulate(track, car);
   const trace = lap.trace;
   const n = trace.count;

@@ -69,6 +69,18 @@ interface BicycleModel {
   downforceN: (speedMps: number) => number;
 }
 
+/** The axles' state at these accelerations, or null when either axle cannot hold the lateral demand. */
+function cornerHolds(
+  m: BicycleModel,
+  speedMps: number,
+  axMps2: number,
+  ayMps2: number,
+  extraN: number,
+): AxleState | null {
+  const s = axleState(m.p, m.tyre, m.downforceN(speedMps), axMps2, ayMps2, m.scratch, extraN);
+  return s.frontLatDemandN > s.frontLatCapN || s.rearLatDemandN > s.rearLatCapN ? null : s;
+}
+
 /** Can the tyres give a drive force of forceN at this speed while cornering at ayMps2? */
 function driveFits(
   m: BicycleModel,
@@ -78,9 +90,9 @@ function driveFits(
   coastMps2: number,
   extraN: number,
 ): boolean {
-  const { p, tyre, exponent } = m;
-  const s = axleState(p, tyre, m.downforceN(speedMps), forceN / m.massKg - coastMps2, ayMps2, m.scratch, extraN);
-  if (s.frontLatDemandN > s.frontLatCapN || s.rearLatDemandN > s.rearLatCapN) return false;
+  const { p, exponent } = m;
+  const s = cornerHolds(m, speedMps, forceN / m.massKg - coastMps2, ayMps2, extraN);
+  if (s === null) return false;
   const frontLeftN = s.frontLongCapN * remainingShare(share(s.frontLatDemandN, s.frontLatCapN), exponent);
   const rearLeftN = s.rearLongCapN * remainingShare(share(s.rearLatDemandN, s.rearLatCapN), exponent);
   if (p.drive === 'rear') return forceN <= rearLeftN;
@@ -100,9 +112,9 @@ function brakeFits(
   coastMps2: number,
   extraN: number,
 ): boolean {
-  const { p, tyre, exponent } = m;
-  const s = axleState(p, tyre, m.downforceN(speedMps), -forceN / m.massKg - coastMps2, ayMps2, m.scratch, extraN);
-  if (s.frontLatDemandN > s.frontLatCapN || s.rearLatDemandN > s.rearLatCapN) return false;
+  const { p, exponent } = m;
+  const s = cornerHolds(m, speedMps, -forceN / m.massKg - coastMps2, ayMps2, extraN);
+  if (s === null) return false;
   const cap = Math.min(1, m.brakeCapN / (s.frontLongCapN + s.rearLongCapN));
   const frontLeftN = cap * s.frontLongCapN * remainingShare(share(s.frontLatDemandN, s.frontLatCapN), exponent);
   const rearLeftN = cap * s.rearLongCapN * remainingShare(share(s.rearLatDemandN, s.rearLatCapN), exponent);
