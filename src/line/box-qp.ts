@@ -12,60 +12,7 @@
 
 import { factorBanded, factorCyclicBanded, type BandEntry } from '../numeric/banded.js';
 import { factorPenta, pentaFactorFor, solvePenta, SMALLEST_CYCLIC_PENTA, type PentaFactor } from './penta-cholesky.js';
-
-/** Q's band: diag[i] = Q[i][i], off1[i] = Q[i][i+1], off2[i] = Q[i][i+2] (indices modulo n when cyclic). */
-export interface PentaBand {
-  count: number;
-  cyclic: boolean;
-  diag: Float64Array;
-  off1: Float64Array;
-  off2: Float64Array;
-}
-
-export function emptyBand(count: number, cyclic: boolean): PentaBand {
-  return { count, cyclic, diag: new Float64Array(count), off1: new Float64Array(count), off2: new Float64Array(count) };
-}
-
-/** Row i of Q x, indices wrapping on a cyclic band and ending at the edges of a plain one. */
-function rowProduct(band: PentaBand, x: Float64Array, i: number): number {
-  const { count: n, cyclic, diag, off1, off2 } = band;
-  let sum = diag[i]! * x[i]!;
-  for (let k = 1; k <= 2; k++) {
-    const off = k === 1 ? off1 : off2;
-    if (cyclic || i + k < n) sum += off[i]! * x[(i + k) % n]!;
-    if (cyclic || i - k >= 0) {
-      const j = (i - k + n) % n;
-      sum += off[j]! * x[j]!;
-    }
-  }
-  return sum;
-}
-
-/** y = Q x. */
-export function multiplyBand(
-  band: PentaBand,
-  x: Float64Array,
-  out: Float64Array = new Float64Array(band.count),
-): Float64Array {
-  const { count: n, diag, off1, off2 } = band;
-  if (n < 5) {
-    // Wrapped entries of a tiny cyclic band land on the same places: add them one by one.
-    for (let i = 0; i < n; i++) out[i] = rowProduct(band, x, i);
-    return out;
-  }
-  for (let i = 2; i < n - 2; i++)
-    out[i] =
-      diag[i]! * x[i]! +
-      off1[i]! * x[i + 1]! +
-      off1[i - 1]! * x[i - 1]! +
-      off2[i]! * x[i + 2]! +
-      off2[i - 2]! * x[i - 2]!;
-  out[0] = rowProduct(band, x, 0);
-  out[1] = rowProduct(band, x, 1);
-  out[n - 2] = rowProduct(band, x, n - 2);
-  out[n - 1] = rowProduct(band, x, n - 1);
-  return out;
-}
+import { emptyBand, multiplyBand, type PentaBand } from './penta-band.js';
 
 export interface BoxQpResult {
   x: Float64Array;
@@ -271,6 +218,188 @@ function polish(
   return true;
 }
 
+/** Pushes the start just inside the box (x) and fixes the variables whose box has no width; returns how many
+ * are free. */
+function startInside(
+  lower: Float64Array,
+  upper: Float64Array,
+  start: Float64Array,
+  fixed: Uint8Array,
+  x: Float64Array,
+): number {
+  let free = 0;
+  for (let i = 0; i < x.length; i++) {
+    const width = upper[i]! - lower[i]!;
+    fixed[i] = width <= FIXED_WIDTH ? 1 : 0;
+    if (fixed[i]) {
+      x[i] = 0.5 * (lower[i]! + upper[i]!);
+      continue;
+    }
+    free++;
+    const inset = START_INSET * width;
+    x[i] = Math.min(upper[i]! - inset, Math.max(lower[i]! + inset, start[i]!));
+  }
+  return free;
+}
+
+/** The gradient's scale over the box (mean of |g| times the width over the free variables) and the size of its
+ * largest terms (which sets its rounding error). */
+interface ProblemScale {
+  scale: number;
+  largestTerm: number;
+}
+
+/**
+ * Multipliers from the gradient at the start, each at least a small share of the gradient's scale over the
+ * width, so that every product s z and t w starts positive and of one size.
+ */
+function startMultipliers(
+  band: PentaBand,
+  q: Float64Array,
+  lower: Float64Array,
+  upper: Float64Array,
+  x: Float64Array,
+  free: number,
+  work: BoxQpWorkspace,
+): ProblemScale {
+  const n = band.count;
+  const { z, w, gradient: g, dz, dw, fixed } = work;
+  multiplyBand(band, x, g);
+  let scale = 0;
+  for (let i = 0; i < n; i++) {
+    g[i]! += q[i]!;
+    if (!fixed[i]) scale += Math.abs(g[i]!) * (upper[i]! - lower[i]!);
+  }
+  scale = free > 0 ? scale / free : 0;
+  if (!(scale > 0)) scale = 1;
+  let largestTerm = 0;
+  for (let i = 0; i < n; i++) {
+    const row = Math.abs(band.diag[i]!) + 2 * Math.abs(band.off1[i]!) + 2 * Math.abs(band.off2[i]!);
+    const reach = Math.max(Math.abs(lower[i]!), Math.abs(upper[i]!));
+    largestTerm = Math.max(largestTerm, Math.abs(q[i]!) + row * reach);
+    const floor = fixed[i] ? 0 : (0.1 * scale) / (upper[i]! - lower[i]!);
+    z[i] = fixed[i] ? 0 : Math.max(g[i]!, 0) + floor;
+    w[i] = fixed[i] ? 0 : Math.max(-g[i]!, 0) + floor;
+    // Fixed variables do not move: zeros in the right-hand sides and the multipliers' steps keep them.
+    dz[i] = 0;
+    dw[i] = 0;
+  }
+  return { scale, largestTerm };
+}
+
+/** Where an iterate stands: the duality gap, the dual residual's bound on the objective (sum |r| times the box's
+ * width) and the largest dual residual. */
+interface Standing {
+  gap: number;
+  residual: number;
+  largestResidual: number;
+}
+
+/** The gradient, the standing of x, and the system's diagonal Q + Z/S + W/T with its right-hand side -g. */
+function measure(
+  band: PentaBand,
+  q: Float64Array,
+  lower: Float64Array,
+  upper: Float64Array,
+  x: Float64Array,
+  work: BoxQpWorkspace,
+  out: Standing,
+): void {
+  const n = band.count;
+  const { system, z, w, gradient: g, inverseS, inverseT, rhs, fixed } = work;
+  multiplyBand(band, x, g);
+  let gap = 0;
+  let residual = 0;
+  let largestResidual = 0;
+  for (let i = 0; i < n; i++) {
+    const gi = g[i]! + q[i]!;
+    g[i] = gi;
+    if (fixed[i]) {
+      system.diag[i] = 1;
+      rhs[i] = 0;
+      continue;
+    }
+    const s = x[i]! - lower[i]!;
+    const t = upper[i]! - x[i]!;
+    const iS = 1 / s;
+    const iT = 1 / t;
+    inverseS[i] = iS;
+    inverseT[i] = iT;
+    const r = Math.abs(gi - z[i]! + w[i]!);
+    gap += s * z[i]! + t * w[i]!;
+    residual += r * (s + t);
+    if (r > largestResidual) largestResidual = r;
+    system.diag[i] = band.diag[i]! + z[i]! * iS + w[i]! * iT;
+    rhs[i] = -gi;
+  }
+  out.gap = gap;
+  out.residual = residual;
+  out.largestResidual = largestResidual;
+}
+
+/**
+ * One step of Mehrotra's predictor-corrector from x (its system measured and factored): false when a solve
+ * fails. `steps` holds the primal and dual step lengths.
+ */
+function predictorCorrector(
+  lower: Float64Array,
+  upper: Float64Array,
+  x: Float64Array,
+  mu: number,
+  gap: number,
+  work: BoxQpWorkspace,
+  steps: Float64Array,
+): boolean {
+  const n = x.length;
+  const { z, w, gradient: g, inverseS, inverseT, rhs, dx, dz, dw, fixed } = work;
+  // Predictor (affine scaling): the Newton step towards a zero gap, dx from -g, the multipliers' from dx, and
+  // the longest steps that keep x inside the box and the multipliers positive.
+  if (!solveSystem(work, rhs, dx)) return false;
+  for (let i = 0; i < n; i++) {
+    if (fixed[i]) continue;
+    dz[i] = -z[i]! * (1 + dx[i]! * inverseS[i]!);
+    dw[i] = -w[i]! * (1 - dx[i]! * inverseT[i]!);
+  }
+  longestSteps(work, 1, steps);
+  let primal = steps[0]!;
+  let dual = steps[1]!;
+  // The gap that step would reach gives the centring weight sigma = (mu_aff / mu)^3; the corrector adds the
+  // centring and the affine step's second-order term to the right-hand side.
+  let gapAffine = 0;
+  for (let i = 0; i < n; i++) {
+    if (fixed[i]) continue;
+    const d = primal * dx[i]!;
+    gapAffine += (x[i]! - lower[i]! + d) * (z[i]! + dual * dz[i]!) + (upper[i]! - x[i]! - d) * (w[i]! + dual * dw[i]!);
+  }
+  const target = Math.min(1, (gapAffine / gap) ** 3) * mu;
+  for (let i = 0; i < n; i++) {
+    if (fixed[i]) continue;
+    const d = dx[i]!;
+    const iS = inverseS[i]!;
+    const iT = inverseT[i]!;
+    // Right-hand side first (it needs the affine steps), then the affine parts of the multipliers' steps.
+    rhs[i] = -g[i]! + target * (iS - iT) - d * dz[i]! * iS - d * dw[i]! * iT;
+    dz[i] = (target - d * dz[i]!) * iS - z[i]!;
+    dw[i] = (target + d * dw[i]!) * iT - w[i]!;
+  }
+  if (!solveSystem(work, rhs, dx)) return false;
+  for (let i = 0; i < n; i++) {
+    if (fixed[i]) continue;
+    dz[i]! -= z[i]! * dx[i]! * inverseS[i]!;
+    dw[i]! += w[i]! * dx[i]! * inverseT[i]!;
+  }
+  longestSteps(work, STEP_TO_BOUNDARY, steps);
+  primal = steps[0]!;
+  dual = steps[1]!;
+  for (let i = 0; i < n; i++) {
+    if (fixed[i]) continue;
+    x[i]! += primal * dx[i]!;
+    z[i]! += dual * dz[i]!;
+    w[i]! += dual * dw[i]!;
+  }
+  return true;
+}
+
 /**
  * Solves the box QP from a starting point (pushed just inside the box). Returns a point inside the box, to the
  * tolerance when converged.
@@ -287,77 +416,19 @@ export function solveBoxQp(
   const maxIterations = options.maxIterations ?? 80;
   const work = options.workspace ?? boxQpWorkspace(n, band.cyclic);
   const x = options.out ?? new Float64Array(n);
-  const { system, z, w, gradient: g, inverseS, inverseT, rhs, dx, dz, dw, fixed } = work;
-  let free = 0;
-  for (let i = 0; i < n; i++) {
-    const width = upper[i]! - lower[i]!;
-    fixed[i] = width <= FIXED_WIDTH ? 1 : 0;
-    if (fixed[i]) {
-      x[i] = 0.5 * (lower[i]! + upper[i]!);
-      continue;
-    }
-    free++;
-    const inset = START_INSET * width;
-    x[i] = Math.min(upper[i]! - inset, Math.max(lower[i]! + inset, start[i]!));
-  }
+  const free = startInside(lower, upper, start, work.fixed, x);
   systemBand(band, work);
-  // Multipliers from the gradient at the start, each at least a small share of the gradient's scale over the
-  // width, so that every product s z and t w starts positive and of one size.
-  multiplyBand(band, x, g);
-  let scale = 0;
-  for (let i = 0; i < n; i++) {
-    g[i]! += q[i]!;
-    if (!fixed[i]) scale += Math.abs(g[i]!) * (upper[i]! - lower[i]!);
-  }
-  scale = free > 0 ? scale / free : 0;
-  if (!(scale > 0)) scale = 1;
-  // The size of the gradient's rounding error: a dual residual below a small multiple of it is as good as zero.
-  let largestTerm = 0;
-  for (let i = 0; i < n; i++) {
-    const row = Math.abs(band.diag[i]!) + 2 * Math.abs(band.off1[i]!) + 2 * Math.abs(band.off2[i]!);
-    const reach = Math.max(Math.abs(lower[i]!), Math.abs(upper[i]!));
-    largestTerm = Math.max(largestTerm, Math.abs(q[i]!) + row * reach);
-    const floor = fixed[i] ? 0 : (0.1 * scale) / (upper[i]! - lower[i]!);
-    z[i] = fixed[i] ? 0 : Math.max(g[i]!, 0) + floor;
-    w[i] = fixed[i] ? 0 : Math.max(-g[i]!, 0) + floor;
-    // Fixed variables do not move: zeros in the right-hand sides and the multipliers' steps keep them.
-    dz[i] = 0;
-    dw[i] = 0;
-  }
+  const { scale, largestTerm } = startMultipliers(band, q, lower, upper, x, free, work);
   const residualFloor = RESIDUAL_FLOOR * largestTerm;
   const tolerance = options.tolerance ?? 1e-12 * scale * free;
   let polishAt = POLISH_FROM * tolerance;
   const steps = new Float64Array(2);
+  const standing: Standing = { gap: 0, residual: 0, largestResidual: 0 };
   let converged = free === 0;
   let iterations = 0;
   while (!converged && iterations < maxIterations) {
-    // Gradient, duality gap, the dual residual's bound on the objective (sum |r| times the box's width), and the
-    // system's diagonal Q + Z/S + W/T.
-    multiplyBand(band, x, g);
-    let gap = 0;
-    let residual = 0;
-    let largestResidual = 0;
-    for (let i = 0; i < n; i++) {
-      const gi = g[i]! + q[i]!;
-      g[i] = gi;
-      if (fixed[i]) {
-        system.diag[i] = 1;
-        rhs[i] = 0;
-        continue;
-      }
-      const s = x[i]! - lower[i]!;
-      const t = upper[i]! - x[i]!;
-      const iS = 1 / s;
-      const iT = 1 / t;
-      inverseS[i] = iS;
-      inverseT[i] = iT;
-      const r = Math.abs(gi - z[i]! + w[i]!);
-      gap += s * z[i]! + t * w[i]!;
-      residual += r * (s + t);
-      if (r > largestResidual) largestResidual = r;
-      system.diag[i] = band.diag[i]! + z[i]! * iS + w[i]! * iT;
-      rhs[i] = -gi;
-    }
+    measure(band, q, lower, upper, x, work, standing);
+    const { gap, residual, largestResidual } = standing;
     // x^T Q x + 2 q^T x is twice the form the multipliers belong to.
     if (2 * gap <= polishAt) {
       if (polish(band, q, lower, upper, work, x, POLISH_SLACK * largestTerm)) {
@@ -371,54 +442,8 @@ export function solveBoxQp(
       break;
     }
     iterations++;
-    if (n >= SMALLEST_CYCLIC_PENTA && !factorPenta(system, work.factor)) break;
-    const mu = gap / (2 * free);
-    // Predictor (affine scaling): the Newton step towards a zero gap, dx from -g, the multipliers' from dx, and
-    // the longest steps that keep x inside the box and the multipliers positive.
-    if (!solveSystem(work, rhs, dx)) break;
-    for (let i = 0; i < n; i++) {
-      if (fixed[i]) continue;
-      dz[i] = -z[i]! * (1 + dx[i]! * inverseS[i]!);
-      dw[i] = -w[i]! * (1 - dx[i]! * inverseT[i]!);
-    }
-    longestSteps(work, 1, steps);
-    let primal = steps[0]!;
-    let dual = steps[1]!;
-    // The gap that step would reach gives the centring weight sigma = (mu_aff / mu)^3; the corrector adds the
-    // centring and the affine step's second-order term to the right-hand side.
-    let gapAffine = 0;
-    for (let i = 0; i < n; i++) {
-      if (fixed[i]) continue;
-      const d = primal * dx[i]!;
-      gapAffine +=
-        (x[i]! - lower[i]! + d) * (z[i]! + dual * dz[i]!) + (upper[i]! - x[i]! - d) * (w[i]! + dual * dw[i]!);
-    }
-    const target = Math.min(1, (gapAffine / gap) ** 3) * mu;
-    for (let i = 0; i < n; i++) {
-      if (fixed[i]) continue;
-      const d = dx[i]!;
-      const iS = inverseS[i]!;
-      const iT = inverseT[i]!;
-      // Right-hand side first (it needs the affine steps), then the affine parts of the multipliers' steps.
-      rhs[i] = -g[i]! + target * (iS - iT) - d * dz[i]! * iS - d * dw[i]! * iT;
-      dz[i] = (target - d * dz[i]!) * iS - z[i]!;
-      dw[i] = (target + d * dw[i]!) * iT - w[i]!;
-    }
-    if (!solveSystem(work, rhs, dx)) break;
-    for (let i = 0; i < n; i++) {
-      if (fixed[i]) continue;
-      dz[i]! -= z[i]! * dx[i]! * inverseS[i]!;
-      dw[i]! += w[i]! * dx[i]! * inverseT[i]!;
-    }
-    longestSteps(work, STEP_TO_BOUNDARY, steps);
-    primal = steps[0]!;
-    dual = steps[1]!;
-    for (let i = 0; i < n; i++) {
-      if (fixed[i]) continue;
-      x[i]! += primal * dx[i]!;
-      z[i]! += dual * dz[i]!;
-      w[i]! += dual * dw[i]!;
-    }
+    if (n >= SMALLEST_CYCLIC_PENTA && !factorPenta(work.system, work.factor)) break;
+    if (!predictorCorrector(lower, upper, x, gap / (2 * free), gap, work, steps)) break;
   }
   for (let i = 0; i < n; i++) x[i] = Math.min(upper[i]!, Math.max(lower[i]!, x[i]!));
   return { x, iterations, converged };

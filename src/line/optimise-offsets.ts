@@ -20,7 +20,8 @@ import {
   segmentCurvature,
   type OffsetGrid,
 } from './geometry.js';
-import { boxQpWorkspace, emptyBand, solveBoxQp, type BoxQpWorkspace, type PentaBand } from './box-qp.js';
+import { boxQpWorkspace, solveBoxQp, type BoxQpWorkspace } from './box-qp.js';
+import { emptyBand, type PentaBand } from './penta-band.js';
 
 export interface OffsetWeights {
   /** Weight of k_i^2 at each sample. */

@@ -6,7 +6,7 @@
 // two rows of L completely and nothing else (the "arrowhead" fill of a bordered band), so L keeps its two
 // sub-diagonals plus two dense rows, still O(n) numbers.
 
-import type { PentaBand } from './box-qp.js';
+import type { PentaBand } from './penta-band.js';
 
 /** Cyclic bands smaller than this have corner entries that meet the band itself; they go to the dense path. */
 export const SMALLEST_CYCLIC_PENTA = 6;

@@ -3,7 +3,7 @@
 // ml-matrix for the reference solves.
 
 import { Matrix } from 'ml-matrix';
-import { emptyBand, type PentaBand } from '../../src/line/box-qp.js';
+import { emptyBand, type PentaBand } from '../../src/line/penta-band.js';
 
 export function bandFromRows(
   n: number,

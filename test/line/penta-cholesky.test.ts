@@ -5,7 +5,8 @@
 
 import { describe, expect, it } from 'vitest';
 import { Matrix, solve as denseSolve } from 'ml-matrix';
-import { emptyBand, multiplyBand, solveBoxQp } from '../../src/line/box-qp.js';
+import { solveBoxQp } from '../../src/line/box-qp.js';
+import { emptyBand, multiplyBand } from '../../src/line/penta-band.js';
 import { bandFromRows } from './band-fixtures.js';
 import { factorPenta, pentaFactorFor, solvePenta } from '../../src/line/penta-cholesky.js';
 
