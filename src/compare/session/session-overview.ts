@@ -9,6 +9,7 @@ import type { LapResult } from '../../solve/types.js';
 import type { TrackGrid } from '../../track/types.js';
 import type { TelemetrySession } from '../../telemetry/types.js';
 import { cornerLayoutOf } from '../../track/corner-layout.js';
+import type { CornerSpan } from '../../track/corners.js';
 import type { LapCut } from '../laps.js';
 import { alignLap } from '../align.js';
 import { compareBraking } from '../braking-points.js';
@@ -82,6 +83,62 @@ export interface SessionInputs {
   demonstratedLapTimeS: number | null;
 }
 
+/** One complete lap's figures at every corner, its braking matched against the reference's. */
+function cornerFiguresOfLap(
+  lap: PairLap,
+  ref: PairLap,
+  spans: readonly CornerSpan[],
+  bounds: readonly number[],
+  track: TrackGrid,
+  threshold: number,
+): LapCornerFigures[] {
+  const n = track.distanceM.length;
+  return spans.map((span, c) => {
+    const braking = compareBraking(
+      ref.brakingStarts,
+      lap.brakingStarts,
+      ref,
+      lap,
+      span,
+      bounds[c]!,
+      n,
+      track.stepM,
+      threshold,
+    );
+    return lapCornerFigures(lap, span, bounds[c]!, bounds[c + 1]!, braking.driverBrake, track, threshold);
+  });
+}
+
+/** Corner c across the complete laps: best, median and spread of its time, braking point and slowest speed. */
+function cornerAcrossLaps(
+  span: CornerSpan,
+  figures: readonly { lap: number; corners: LapCornerFigures[] }[],
+  c: number,
+  reference: LapCornerFigures,
+): SessionCorner {
+  const times = figures.map((f) => f.corners[c]!.cornerTimeS);
+  const bestIndex = times.reduce((bi, t, i) => (t < times[bi]! ? i : bi), 0);
+  const braking = figures.map((f) => f.corners[c]!.brakingBeforeTurnInM).filter((v): v is number => v !== null);
+  const slowest = figures.map((f) => f.corners[c]!.minSpeedKph);
+  return {
+    id: span.id,
+    name: span.name,
+    apexM: span.apexM,
+    bestTimeS: times[bestIndex]!,
+    bestLap: figures[bestIndex]!.lap,
+    medianTimeS: median(times),
+    spreadTimeS: sampleStandardDeviation(times),
+    referenceTimeS: reference.cornerTimeS,
+    medianBrakingBeforeTurnInM: braking.length > 0 ? median(braking) : null,
+    spreadBrakingPointM: braking.length > 0 ? sampleStandardDeviation(braking) : null,
+    brakingLaps: braking.length,
+    bestMinSpeedKph: Math.max(...slowest),
+    medianMinSpeedKph: median(slowest),
+    spreadMinSpeedKph: sampleStandardDeviation(slowest),
+    referenceMinSpeedKph: reference.minSpeedKph,
+  };
+}
+
 export function sessionOverview(
   inputs: SessionInputs,
   options: {
@@ -117,20 +174,7 @@ export function sessionOverview(
       continue;
     }
     const lap = pairLapOfDriver(alignLap(session, cut, track), envelope, track, `lap ${cut.lapNumber}`);
-    const corners = spans.map((span, c) => {
-      const braking = compareBraking(
-        ref.brakingStarts,
-        lap.brakingStarts,
-        ref,
-        lap,
-        span,
-        bounds[c]!,
-        n,
-        track.stepM,
-        threshold,
-      );
-      return lapCornerFigures(lap, span, bounds[c]!, bounds[c + 1]!, braking.driverBrake, track, threshold);
-    });
+    const corners = cornerFiguresOfLap(lap, ref, spans, bounds, track, threshold);
     figures.push({ lap: cut.lapNumber, corners });
     options.onLap?.(cut.lapNumber, lap);
     laps.push({
@@ -146,29 +190,7 @@ export function sessionOverview(
   if (figures.length === 0) throw new Error('sessionOverview needs at least one complete lap');
   if (figures.length === 1) notes.push('one complete lap: no spread and no session best beyond that lap');
   const best = laps.filter((lap) => lap.complete).reduce((a, b) => (b.lapTimeS < a.lapTimeS ? b : a));
-  const corners = spans.map((span, c): SessionCorner => {
-    const times = figures.map((f) => f.corners[c]!.cornerTimeS);
-    const bestIndex = times.reduce((bi, t, i) => (t < times[bi]! ? i : bi), 0);
-    const braking = figures.map((f) => f.corners[c]!.brakingBeforeTurnInM).filter((v): v is number => v !== null);
-    const slowest = figures.map((f) => f.corners[c]!.minSpeedKph);
-    return {
-      id: span.id,
-      name: span.name,
-      apexM: span.apexM,
-      bestTimeS: times[bestIndex]!,
-      bestLap: figures[bestIndex]!.lap,
-      medianTimeS: median(times),
-      spreadTimeS: sampleStandardDeviation(times),
-      referenceTimeS: referenceFigures[c]!.cornerTimeS,
-      medianBrakingBeforeTurnInM: braking.length > 0 ? median(braking) : null,
-      spreadBrakingPointM: braking.length > 0 ? sampleStandardDeviation(braking) : null,
-      brakingLaps: braking.length,
-      bestMinSpeedKph: Math.max(...slowest),
-      medianMinSpeedKph: median(slowest),
-      spreadMinSpeedKph: sampleStandardDeviation(slowest),
-      referenceMinSpeedKph: referenceFigures[c]!.minSpeedKph,
-    };
-  });
+  const corners = spans.map((span, c) => cornerAcrossLaps(span, figures, c, referenceFigures[c]!));
   const available = (corner: SessionCorner) => corner.medianTimeS - corner.referenceTimeS;
   const verdictOptions = options.verdicts ?? DEFAULT_VERDICT_OPTIONS;
   return {
