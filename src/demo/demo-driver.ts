@@ -134,45 +134,87 @@ export function demoDriverLap(
   if (braked[2]) {
     // Coasting: after the slowest point 1.5 s with neither pedal before the throttle comes back.
     const { corner, zone } = braked[2];
-    let i = zone.minSpeedIndex;
-    let v = speed[wrapIndex(i, n)]!;
-    let elapsed = 0;
-    while (elapsed < 1.5) {
-      const k = wrapIndex(i, n);
-      speed[k] = Math.min(speed[k]!, v);
-      coastMask[k] = 1;
-      const decel = envelope.coastDecelMps2(v);
-      const next = Math.sqrt(Math.max(1, v * v - 2 * decel * segmentM[k]!));
-      elapsed += (2 * segmentM[k]!) / (v + next);
-      v = next;
-      i++;
-    }
-    recoverFrom(speed, i - 1, envelope, path, n);
+    const end = coastFor(speed, coastMask, zone.minSpeedIndex, 1.5, envelope, segmentM);
+    recoverFrom(speed, end, envelope, path, n);
     note('coasting', corner);
   }
   const liftCorner = fast.find((corner) => ref.speedMps[corner.apexIndex]! > 25);
   if (liftCorner) {
     // Early lift: off the throttle 150 m before the apex, coasting down, back on at the apex.
-    let i = liftCorner.apexIndex - Math.round(150 / step);
-    let v = speed[wrapIndex(i, n)]!;
-    for (; i <= liftCorner.apexIndex; i++) {
-      const k = wrapIndex(i, n);
-      v = Math.min(v, speed[k]!);
-      speed[k] = v;
-      coastMask[k] = 1;
-      v = Math.sqrt(Math.max(1, v * v - 2 * (envelope.coastDecelMps2(v) + 0.8) * segmentM[k]!));
-    }
+    liftBefore(
+      speed,
+      coastMask,
+      liftCorner.apexIndex - Math.round(150 / step),
+      liftCorner.apexIndex,
+      envelope,
+      segmentM,
+    );
     recoverFrom(speed, liftCorner.apexIndex, envelope, path, n);
     note('early-lift', liftCorner);
   }
   const { throttle, brake } = pedalsFor(speed, path, envelope, coastMask);
+  const { timeS, lapTimeS } = lapClock(speed, segmentM);
+  return { speedMps: speed, throttle, brake, timeS, lapTimeS, faults, path };
+}
+
+/** Time at each point of a closed lap and the lap time, at the mean speed of each segment. */
+function lapClock(speed: Float64Array, segmentM: Float64Array): { timeS: Float64Array; lapTimeS: number } {
+  const n = speed.length;
   const timeS = new Float64Array(n);
   let elapsed = 0;
   for (let i = 0; i < n; i++) {
     timeS[i] = elapsed;
     elapsed += (2 * segmentM[i]!) / (speed[i]! + speed[(i + 1) % n]!);
   }
-  return { speedMps: speed, throttle, brake, timeS, lapTimeS: elapsed, faults, path };
+  return { timeS, lapTimeS: elapsed };
+}
+
+/** Neither pedal from `start` for `durationS`, the car slowing by its coasting drag alone; returns the last index
+ * coasted (unwrapped). */
+function coastFor(
+  speed: Float64Array,
+  coastMask: Uint8Array,
+  start: number,
+  durationS: number,
+  envelope: Envelope,
+  segmentM: Float64Array,
+): number {
+  const n = speed.length;
+  let i = start;
+  let v = speed[wrapIndex(i, n)]!;
+  let elapsed = 0;
+  while (elapsed < durationS) {
+    const k = wrapIndex(i, n);
+    speed[k] = Math.min(speed[k]!, v);
+    coastMask[k] = 1;
+    const decel = envelope.coastDecelMps2(v);
+    const next = Math.sqrt(Math.max(1, v * v - 2 * decel * segmentM[k]!));
+    elapsed += (2 * segmentM[k]!) / (v + next);
+    v = next;
+    i++;
+  }
+  return i - 1;
+}
+
+/** Off the throttle from `start` to `apex` (unwrapped indices), slowing by the coasting drag and a light 0.8 m/s^2
+ * of engine braking. */
+function liftBefore(
+  speed: Float64Array,
+  coastMask: Uint8Array,
+  start: number,
+  apex: number,
+  envelope: Envelope,
+  segmentM: Float64Array,
+): void {
+  const n = speed.length;
+  let v = speed[wrapIndex(start, n)]!;
+  for (let i = start; i <= apex; i++) {
+    const k = wrapIndex(i, n);
+    v = Math.min(v, speed[k]!);
+    speed[k] = v;
+    coastMask[k] = 1;
+    v = Math.sqrt(Math.max(1, v * v - 2 * (envelope.coastDecelMps2(v) + 0.8) * segmentM[k]!));
+  }
 }
 
 function near(index: number, corner: CornerSpan, n: number): boolean {
