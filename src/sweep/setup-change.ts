@@ -78,6 +78,43 @@ function cornerOf(
   };
 }
 
+/** One baseline zone against the changed car's matching zone (null: the changed car does not brake there). */
+function zoneChange(baseline: LapResult, changed: LapResult, zone: CornerZone, other: BrakingZone | null): ZoneChange {
+  const closed = baseline.trace.closed;
+  const count = baseline.trace.count;
+  const basePointM = brakingPointM(baseline, zone);
+  const changedPointM = other ? brakingPointM(changed, other) : null;
+  let deltas: Pick<ZoneChange, 'brakingPointShiftM' | 'entrySpeedDeltaKph' | 'minSpeedDeltaKph' | 'zoneTimeDeltaS'> = {
+    brakingPointShiftM: null,
+    entrySpeedDeltaKph: null,
+    minSpeedDeltaKph: null,
+    zoneTimeDeltaS: null,
+  };
+  if (other && changedPointM !== null) {
+    // The zone's time runs from the earlier of the two braking points to the later of the two slowest points.
+    const i0 = before(zone.startIndex, other.startIndex, count, closed) ? zone.startIndex : other.startIndex;
+    const i1 = before(zone.minSpeedIndex, other.minSpeedIndex, count, closed)
+      ? other.minSpeedIndex
+      : zone.minSpeedIndex;
+    deltas = {
+      brakingPointShiftM: signedLapShiftM(basePointM, changedPointM, baseline.track.lengthM, closed),
+      entrySpeedDeltaKph: mpsToKph(other.entrySpeedMps - zone.entrySpeedMps),
+      minSpeedDeltaKph: mpsToKph(other.minSpeedMps - zone.minSpeedMps),
+      zoneTimeDeltaS: elapsedS(changed, i0, i1) - elapsedS(baseline, i0, i1),
+    };
+  }
+  return {
+    ...cornerOf(zone, baseline.track, basePointM, changedPointM),
+    startM: zone.startM,
+    minSpeedAtM: zone.minSpeedAtM,
+    brakingPointM: basePointM,
+    changedBrakingPointM: changedPointM,
+    ...deltas,
+    baseline: zone,
+    changed: other,
+  };
+}
+
 /** Compares two laps on the same track and grid (same sample count). */
 export function compareSetupChange(
   baseline: LapResult,
@@ -86,46 +123,10 @@ export function compareSetupChange(
 ): LapComparison {
   const closed = baseline.trace.closed;
   const lengthM = baseline.track.lengthM;
-  const count = baseline.trace.count;
   const matching = matchBrakingZones(baseline.brakingZones, changed.brakingZones, lengthM, closed, toleranceM);
-  const zones: ZoneChange[] = baseline.brakingZones.map((zone, b) => {
+  const zones = baseline.brakingZones.map((zone, b) => {
     const c = matching.changedIndexOf[b]!;
-    const other = c >= 0 ? changed.brakingZones[c]! : null;
-    if (!other) {
-      const basePointM = brakingPointM(baseline, zone);
-      return {
-        ...cornerOf(zone, baseline.track, basePointM, null),
-        startM: zone.startM,
-        minSpeedAtM: zone.minSpeedAtM,
-        brakingPointM: basePointM,
-        changedBrakingPointM: null,
-        brakingPointShiftM: null,
-        entrySpeedDeltaKph: null,
-        minSpeedDeltaKph: null,
-        zoneTimeDeltaS: null,
-        baseline: zone,
-        changed: null,
-      };
-    }
-    const i0 = before(zone.startIndex, other.startIndex, count, closed) ? zone.startIndex : other.startIndex;
-    const i1 = before(zone.minSpeedIndex, other.minSpeedIndex, count, closed)
-      ? other.minSpeedIndex
-      : zone.minSpeedIndex;
-    const basePointM = brakingPointM(baseline, zone);
-    const changedPointM = brakingPointM(changed, other);
-    return {
-      ...cornerOf(zone, baseline.track, basePointM, changedPointM),
-      startM: zone.startM,
-      minSpeedAtM: zone.minSpeedAtM,
-      brakingPointM: basePointM,
-      changedBrakingPointM: changedPointM,
-      brakingPointShiftM: signedLapShiftM(basePointM, changedPointM, lengthM, closed),
-      entrySpeedDeltaKph: mpsToKph(other.entrySpeedMps - zone.entrySpeedMps),
-      minSpeedDeltaKph: mpsToKph(other.minSpeedMps - zone.minSpeedMps),
-      zoneTimeDeltaS: elapsedS(changed, i0, i1) - elapsedS(baseline, i0, i1),
-      baseline: zone,
-      changed: other,
-    };
+    return zoneChange(baseline, changed, zone, c >= 0 ? changed.brakingZones[c]! : null);
   });
   return {
     baselineLapTimeS: baseline.lapTimeS,
