@@ -6,7 +6,13 @@
 // of a linear least-squares estimate, Savitzky and Golay 1964), is at most the target below. The noise itself is
 // measured as the residual of a short cubic fit, corrected by the fit's own leverage: E[r^2] = sigma^2 (1 - w_0).
 
-import { savitzkyGolayFilter, applySavitzkyGolay, savitzkyGolayCutoffShare } from '../numeric/savitzky-golay.js';
+import {
+  savitzkyGolayFilter,
+  applySavitzkyGolay,
+  savitzkyGolayCutoffShare,
+  type SavitzkyGolayFilter,
+} from '../numeric/savitzky-golay.js';
+import { chooseHalfWidth, pooledNoise } from './derive-window.js';
 import type { TelemetrySession } from '../telemetry/types.js';
 import { sampledMedian } from '../numeric/quantile.js';
 import { lerp } from '../numeric/interpolate.js';
@@ -69,26 +75,28 @@ const SPEED_ORDER = 2;
 const MIN_HEADING_SPEED_MPS = 3;
 const MOVING_SPEED_MPS = 5;
 
-export function deriveSessionAccelerations(
-  session: TelemetrySession,
-  options: DeriveOptions = DEFAULT_DERIVE,
-): DerivedSession {
-  const { xM, yM } = session;
-  if ((session.axMps2 && session.ayMps2) || !xM || !yM || session.count < 8) {
-    return { session, derived: [], quality: null };
-  }
+/** Stretches of the log between gaps (each gridded on its own: interpolating across a gap would invent a straight
+ * line), the longest gap while moving, and the time the stretches cover. */
+interface GappedRuns {
+  runs: { from: number; to: number }[];
+  coveredS: number;
+  longestGapS: number;
+  longestGapAtS: number;
+  medianIntervalS: number;
+}
+
+function gappedRuns(session: TelemetrySession, xM: Float64Array, yM: Float64Array): GappedRuns {
   const t = session.timeS;
   const n = session.count;
   const intervals = new Float64Array(n - 1);
   for (let i = 1; i < n; i++) intervals[i - 1] = t[i]! - t[i - 1]!;
   const medianIntervalS = sampledMedian(intervals);
-  // Stretches between gaps are gridded separately: interpolating across a gap would invent a straight line.
   const splitS = Math.max(0.5, 5 * medianIntervalS);
   const runs: { from: number; to: number }[] = [];
   let from = 0;
   let longestGapS = 0;
   let longestGapAtS = t[0]!;
-  let covered = 0;
+  let coveredS = 0;
   for (let i = 1; i <= n; i++) {
     const gap = i < n ? t[i]! - t[i - 1]! : Infinity;
     if (i < n && gap > longestGapS) {
@@ -100,15 +108,101 @@ export function deriveSessionAccelerations(
     }
     if (gap > splitS) {
       runs.push({ from, to: i - 1 });
-      covered += t[i - 1]! - t[from]!;
+      coveredS += t[i - 1]! - t[from]!;
       from = i;
     }
   }
-  const stepS = covered > 0 ? covered / Math.max(1, n - runs.length) : medianIntervalS;
+  return { runs, coveredS, longestGapS, longestGapAtS, medianIntervalS };
+}
+
+/** Why the derived accelerations cannot be trusted, one line each: too few samples, a gap longer than a corner,
+ * noise the longest window cannot bring down. */
+function derivationProblems(
+  meanRateHz: number,
+  gaps: GappedRuns,
+  positionNoiseM: number,
+  lateralNoiseMps2: number,
+  options: DeriveOptions,
+): string[] {
+  const problems: string[] = [];
+  if (meanRateHz < options.minRateHz)
+    problems.push(
+      `${meanRateHz.toFixed(1)} samples per second is too few to derive accelerations (at least ${options.minRateHz} are needed)`,
+    );
+  if (gaps.longestGapS > options.maxGapS)
+    problems.push(
+      `a ${gaps.longestGapS.toFixed(1)} s gap in the log at ${gaps.longestGapAtS.toFixed(1)} s is longer than a corner (${options.maxGapS} s)`,
+    );
+  if (lateralNoiseMps2 > 2 * options.targetNoiseMps2)
+    problems.push(
+      `position noise of ${positionNoiseM.toFixed(2)} m at ${meanRateHz.toFixed(0)} Hz leaves ${lateralNoiseMps2.toFixed(2)} m/s^2 of noise in the lateral acceleration even over a ${(2 * options.maxHalfWindowS).toFixed(0)} s window`,
+    );
+  return problems;
+}
+
+interface RunFilters {
+  positionSmooth: SavitzkyGolayFilter;
+  positionCurve: SavitzkyGolayFilter;
+  speedSlope: SavitzkyGolayFilter | null;
+}
+
+/** Speed and the tangential and normal accelerations on one uniform stretch. */
+function accelerationsOfRun(
+  grid: UniformRun,
+  filters: RunFilters,
+  stepS: number,
+): { speed: Float64Array; along: Float64Array; across: Float64Array } {
+  const count = grid.x.length;
+  const vx = applySavitzkyGolay(filters.positionSmooth, grid.x, stepS);
+  const vy = applySavitzkyGolay(filters.positionSmooth, grid.y, stepS);
+  const axWorld = applySavitzkyGolay(filters.positionCurve, grid.x, stepS);
+  const ayWorld = applySavitzkyGolay(filters.positionCurve, grid.y, stepS);
+  const dvdt = filters.speedSlope && grid.v ? applySavitzkyGolay(filters.speedSlope, grid.v, stepS) : null;
+  const speed = new Float64Array(count);
+  const along = new Float64Array(count);
+  const across = new Float64Array(count);
+  for (let k = 0; k < count; k++) {
+    const pathSpeed = Math.hypot(vx[k]!, vy[k]!);
+    const v = grid.v ? Math.max(0, grid.v[k]!) : pathSpeed;
+    speed[k] = v;
+    if (pathSpeed < MIN_HEADING_SPEED_MPS) {
+      along[k] = dvdt ? dvdt[k]! : 0;
+      continue;
+    }
+    // Tangential and normal parts of the acceleration vector; with a speed channel the normal part is
+    // v^2 times the path's curvature (the Doppler speed is far less noisy than the positions' own).
+    const cross = vx[k]! * ayWorld[k]! - vy[k]! * axWorld[k]!;
+    along[k] = dvdt ? dvdt[k]! : (vx[k]! * axWorld[k]! + vy[k]! * ayWorld[k]!) / pathSpeed;
+    across[k] = grid.v ? (cross / (pathSpeed * pathSpeed * pathSpeed)) * v * v : cross / pathSpeed;
+  }
+  return { speed, along, across };
+}
+
+export function deriveSessionAccelerations(
+  session: TelemetrySession,
+  options: DeriveOptions = DEFAULT_DERIVE,
+): DerivedSession {
+  const { xM, yM } = session;
+  if ((session.axMps2 && session.ayMps2) || !xM || !yM || session.count < 8) {
+    return { session, derived: [], quality: null };
+  }
+  const t = session.timeS;
+  const n = session.count;
+  const gaps = gappedRuns(session, xM, yM);
+  const { runs } = gaps;
+  const stepS = gaps.coveredS > 0 ? gaps.coveredS / Math.max(1, n - runs.length) : gaps.medianIntervalS;
   const grids = runs.map((run) => uniformRun(session, run.from, run.to, stepS));
 
-  const positionNoiseM = pooledNoise(grids, (g) => [g.x, g.y], stepS);
-  const speedNoiseMps = session.speedMps ? pooledNoise(grids, (g) => [g.v!], stepS) : null;
+  const positionNoiseM = pooledNoise(
+    grids.flatMap((g) => [g.x, g.y]),
+    stepS,
+  );
+  const speedNoiseMps = session.speedMps
+    ? pooledNoise(
+        grids.map((g) => g.v!),
+        stepS,
+      )
+    : null;
   const minHalf = Math.max(2, Math.round(options.minHalfWindowS / stepS));
   const maxHalf = Math.max(minHalf, Math.round(options.maxHalfWindowS / stepS));
   const lateral = chooseHalfWidth(positionNoiseM, stepS, 2, minHalf, maxHalf, options.targetNoiseMps2);
@@ -116,52 +210,20 @@ export function deriveSessionAccelerations(
     speedNoiseMps !== null
       ? chooseHalfWidth(speedNoiseMps, stepS, 1, minHalf, maxHalf, options.targetNoiseMps2)
       : lateral;
-
-  const problems: string[] = [];
   const meanRateHz = 1 / stepS;
-  if (meanRateHz < options.minRateHz)
-    problems.push(
-      `${meanRateHz.toFixed(1)} samples per second is too few to derive accelerations (at least ${options.minRateHz} are needed)`,
-    );
-  if (longestGapS > options.maxGapS)
-    problems.push(
-      `a ${longestGapS.toFixed(1)} s gap in the log at ${longestGapAtS.toFixed(1)} s is longer than a corner (${options.maxGapS} s)`,
-    );
-  if (lateral.noiseMps2 > 2 * options.targetNoiseMps2)
-    problems.push(
-      `position noise of ${positionNoiseM.toFixed(2)} m at ${meanRateHz.toFixed(0)} Hz leaves ${lateral.noiseMps2.toFixed(2)} m/s^2 of noise in the lateral acceleration even over a ${(2 * options.maxHalfWindowS).toFixed(0)} s window`,
-    );
+  const problems = derivationProblems(meanRateHz, gaps, positionNoiseM, lateral.noiseMps2, options);
 
-  const positionSmooth = savitzkyGolayFilter(lateral.halfWidth, POSITION_ORDER, 1);
-  const positionCurve = savitzkyGolayFilter(lateral.halfWidth, POSITION_ORDER, 2);
-  const speedSlope = speedNoiseMps !== null ? savitzkyGolayFilter(longitudinal.halfWidth, SPEED_ORDER, 1) : null;
+  const filters: RunFilters = {
+    positionSmooth: savitzkyGolayFilter(lateral.halfWidth, POSITION_ORDER, 1),
+    positionCurve: savitzkyGolayFilter(lateral.halfWidth, POSITION_ORDER, 2),
+    speedSlope: speedNoiseMps !== null ? savitzkyGolayFilter(longitudinal.halfWidth, SPEED_ORDER, 1) : null,
+  };
   const speedOut = session.speedMps ? session.speedMps : new Float64Array(n);
   const axOut = new Float64Array(n);
   const ayOut = new Float64Array(n);
   for (const [r, grid] of grids.entries()) {
     const count = grid.x.length;
-    const vx = applySavitzkyGolay(positionSmooth, grid.x, stepS);
-    const vy = applySavitzkyGolay(positionSmooth, grid.y, stepS);
-    const axWorld = applySavitzkyGolay(positionCurve, grid.x, stepS);
-    const ayWorld = applySavitzkyGolay(positionCurve, grid.y, stepS);
-    const dvdt = speedSlope && grid.v ? applySavitzkyGolay(speedSlope, grid.v, stepS) : null;
-    const speed = new Float64Array(count);
-    const along = new Float64Array(count);
-    const across = new Float64Array(count);
-    for (let k = 0; k < count; k++) {
-      const pathSpeed = Math.hypot(vx[k]!, vy[k]!);
-      const v = grid.v ? Math.max(0, grid.v[k]!) : pathSpeed;
-      speed[k] = v;
-      if (pathSpeed < MIN_HEADING_SPEED_MPS) {
-        along[k] = dvdt ? dvdt[k]! : 0;
-        continue;
-      }
-      // Tangential and normal parts of the acceleration vector; with a speed channel the normal part is
-      // v^2 times the path's curvature (the Doppler speed is far less noisy than the positions' own).
-      const cross = vx[k]! * ayWorld[k]! - vy[k]! * axWorld[k]!;
-      along[k] = dvdt ? dvdt[k]! : (vx[k]! * axWorld[k]! + vy[k]! * ayWorld[k]!) / pathSpeed;
-      across[k] = grid.v ? (cross / (pathSpeed * pathSpeed * pathSpeed)) * v * v : cross / pathSpeed;
-    }
+    const { speed, along, across } = accelerationsOfRun(grid, filters, stepS);
     const run = runs[r]!;
     for (let i = run.from; i <= run.to; i++) {
       const position = (t[i]! - grid.startS) / stepS;
@@ -187,8 +249,8 @@ export function deriveSessionAccelerations(
     derived,
     quality: {
       meanRateHz,
-      longestGapS,
-      longestGapAtS,
+      longestGapS: gaps.longestGapS,
+      longestGapAtS: gaps.longestGapAtS,
       positionNoiseM,
       speedNoiseMps,
       lateralHalfWindowS: lateral.halfWidth * stepS,
@@ -238,61 +300,4 @@ function uniformRun(session: TelemetrySession, from: number, to: number, stepS: 
     if (v) v[k] = lerp(session.speedMps![i]!, session.speedMps![j]!, w);
   }
   return { startS, x, y, v };
-}
-
-/**
- * White-noise standard deviation of the gridded channels: residuals from a cubic fit over +-0.5 s, divided by
- * sqrt(1 - w_0) (w_0 = the fit's weight on the sample itself, so E[r^2] = sigma^2 (1 - w_0) for a least-squares
- * smoother); channels are pooled, one value per log.
- */
-function pooledNoise(grids: UniformRun[], channels: (g: UniformRun) => Float64Array[], stepS: number): number {
-  const half = Math.max(3, Math.round(0.5 / stepS));
-  const fit = savitzkyGolayFilter(half, 3, 0);
-  const w0 = fit.centre[half]!;
-  let sum = 0;
-  let count = 0;
-  for (const grid of grids) {
-    for (const values of channels(grid)) {
-      if (values.length < 2 * half + 1) continue;
-      const smooth = applySavitzkyGolay(fit, values, stepS);
-      for (let k = half; k < values.length - half; k++) {
-        const r = values[k]! - smooth[k]!;
-        sum += r * r;
-        count++;
-      }
-    }
-  }
-  return count > 0 ? Math.sqrt(sum / count / (1 - w0)) : 0;
-}
-
-/**
- * Smallest half-width (samples) whose derivative of order `derivative` leaves at most targetMps2 of noise from an
- * input noise sigma, by the closed forms of the least-squares estimates on a symmetric window: the slope's variance
- * sigma^2 / sum k^2, the second derivative's 4 sigma^2 / sum (k^2 - mean k^2)^2 (quadratic and cubic fits alike).
- */
-function chooseHalfWidth(
-  sigma: number,
-  stepS: number,
-  derivative: 1 | 2,
-  minHalf: number,
-  maxHalf: number,
-  targetMps2: number,
-): { halfWidth: number; noiseMps2: number } {
-  let noise = Infinity;
-  let m = minHalf;
-  for (; m <= maxHalf; m++) {
-    noise = sigma * derivativeNoiseGain(m, derivative) * Math.pow(stepS, -derivative);
-    if (noise <= targetMps2) break;
-  }
-  return { halfWidth: Math.min(m, maxHalf), noiseMps2: noise };
-}
-
-export function derivativeNoiseGain(halfWidth: number, derivative: 1 | 2): number {
-  let sumK2 = 0;
-  for (let k = -halfWidth; k <= halfWidth; k++) sumK2 += k * k;
-  if (derivative === 1) return 1 / Math.sqrt(sumK2);
-  const meanK2 = sumK2 / (2 * halfWidth + 1);
-  let spread = 0;
-  for (let k = -halfWidth; k <= halfWidth; k++) spread += (k * k - meanK2) * (k * k - meanK2);
-  return 2 / Math.sqrt(spread);
 }

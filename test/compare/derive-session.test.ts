@@ -5,8 +5,7 @@
 import { describe, expect, it } from 'vitest';
 import { existsSync, readFileSync } from 'node:fs';
 import { simulate } from '../../src/solve/simulate.js';
-import { DEFAULT_DERIVE, deriveSessionAccelerations, derivativeNoiseGain } from '../../src/compare/derive-session.js';
-import { savitzkyGolayFilter } from '../../src/numeric/savitzky-golay.js';
+import { DEFAULT_DERIVE, deriveSessionAccelerations } from '../../src/compare/derive-session.js';
 import { parseTelemetryText } from '../../src/io/telemetry/read-telemetry.js';
 import { STANDARD_GRAVITY_MPS2 } from '../../src/units.js';
 import { circuitCar } from './fixtures.js';
@@ -20,15 +19,6 @@ function rms(values: number[]): number {
 }
 
 describe('accelerations derived from a GPS-only log', () => {
-  it('the closed-form noise gains equal the Savitzky-Golay weights’ root sum of squares', () => {
-    // Variance of a linear least-squares estimate = sigma^2 sum w_k^2 (Savitzky and Golay 1964): the closed forms
-    // the window rule uses must agree with the weights themselves.
-    for (const m of [3, 8, 20]) {
-      expect(derivativeNoiseGain(m, 1)).toBeCloseTo(savitzkyGolayFilter(m, 2, 1).noiseGain, 10);
-      expect(derivativeNoiseGain(m, 2)).toBeCloseTo(savitzkyGolayFilter(m, 3, 2).noiseGain, 10);
-    }
-  });
-
   for (const rateHz of [10, 25]) {
     for (const positionNoiseM of [0.5, 1.5]) {
       it(`${rateHz} Hz, ${positionNoiseM} m position noise: errors stated and bounded`, () => {
