@@ -244,7 +244,8 @@ export {
   type DemoDriverLap,
   type DemoFault,
 } from './demo/demo-driver.js';
-export { compareSummaryText, compareSummaryJson, alignedTracesCsv } from './report/compare-summary.js';
+export { compareSummaryText, compareSummaryJson } from './report/compare-summary.js';
+export { alignedTracesCsv } from './report/aligned-traces-csv.js';
 
 // Validation that lists every problem in car, track and telemetry files (`reflap check`).
 export { checkFiles, checkText, MAX_PROBLEMS_PER_FILE, type CheckReport, type FileCheck } from './check/check-files.js';

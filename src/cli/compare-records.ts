@@ -10,7 +10,7 @@ import type { UnitsOptionValues } from './units-option.js';
 import { resolveReferenceLine } from './reference-path.js';
 import { compareSession, type SessionComparison } from '../compare/compare-session.js';
 import { readEnvelopeFile } from '../io/read-envelope.js';
-import { alignedTracesCsv, type AlignedOtherLap } from '../report/compare-summary.js';
+import { alignedTracesCsv, type AlignedOtherLap } from '../report/aligned-traces-csv.js';
 import { comparisonCornersCsv } from '../report/comparison-corners-csv.js';
 import { displayUnits, type DisplayUnits } from '../report/units.js';
 import type { ReferenceLine } from '../line/reference-line.js';
@@ -82,7 +82,7 @@ export function comparisonFiles(
   return [
     {
       file: path.join(dir, 'aligned.csv'),
-      content: alignedTracesCsv(comparison.result, comparison.reference, comparison.lap, other),
+      content: alignedTracesCsv(comparison.result, comparison.reference, comparison.lap, other, units),
     },
     { file: path.join(dir, 'corners.csv'), content: comparisonCornersCsv(comparison, units) },
   ];

@@ -52,7 +52,7 @@ const CURVE_COLOURS = ['#1b6f8a', '#c2571a', '#5b8a1b', '#8a1b6f', '#6f6f6f', '#
 const CAR_PAGE_STYLE =
   'body{font-family:system-ui,sans-serif;margin:24px;color:#222}figure{display:flex;gap:24px;align-items:flex-start;margin:0}ul{list-style:none;padding:0;font-size:14px}small{color:#666}';
 
-export function carGgHtml(d: CarDescription, envelope: Envelope): string {
+export function carGgHtml(d: CarDescription, envelope: Envelope, units: DisplayUnits = displayUnits('metric')): string {
   const boundaries = d.envelope.map((row) => ({
     speedKph: row.speedKph,
     points: envelopeBoundaryG(envelope, kphToMps(row.speedKph)),
@@ -84,7 +84,7 @@ export function carGgHtml(d: CarDescription, envelope: Envelope): string {
     .map(
       (b, k) =>
         // A swatch drawn with presentation attributes: the page's Content-Security-Policy admits no style attribute.
-        `<li><svg width="10" height="10" aria-hidden="true"><rect width="10" height="10" fill="${CURVE_COLOURS[k % CURVE_COLOURS.length]}"/></svg> ${escapeHtml(`${b.speedKph} km/h`)}</li>`,
+        `<li><svg width="10" height="10" aria-hidden="true"><rect width="10" height="10" fill="${CURVE_COLOURS[k % CURVE_COLOURS.length]}"/></svg> ${escapeHtml(`${plainNumber(units.speed(kphToMps(b.speedKph)), 0)} ${units.speedLabel}`)}</li>`,
     )
     .join('');
   const title = escapeHtml(`${d.name}: g-g-v envelope (${d.model} model)`);

@@ -1,9 +1,8 @@
 // The driver-against-reference comparison for the terminal (a table per corner and the ranked findings), as a
 // JSON object, and the two laps' aligned traces as CSV on the shared distance grid.
 
-import type { ComparisonResult, CornerComparison, DriverLap } from '../compare/types.js';
-import type { LapResult } from '../solve/types.js';
-import { formatLapTime, kphToMps, mpsToKph } from '../units.js';
+import type { ComparisonResult, CornerComparison } from '../compare/types.js';
+import { formatLapTime, kphToMps } from '../units.js';
 import { displayUnits, plainNumber, type DisplayUnits } from './units.js';
 import { formatTable } from './text-table.js';
 import { SAFETY_CAUTION } from './lap-summary.js';
@@ -173,97 +172,4 @@ export function compareSummaryJson(result: ComparisonResult) {
     findings: result.findings.map((f) => ({ corner: f.corner, timeS: roundToDigits(f.timeS, 3), text: f.text })),
     notes: result.notes,
   };
-}
-
-const fixed = (value: number | undefined, digits: number) =>
-  value !== undefined && Number.isFinite(value) ? value.toFixed(digits) : '';
-
-/** A second lap for the aligned traces (`compare --against`): its channels and the driver's delta to it. */
-export interface AlignedOtherLap {
-  lap: DriverLap;
-  /** Driver minus other lap at each station, s. */
-  driverDeltaS: Float64Array;
-}
-
-/** Both laps on the track grid, one row per station, with the delta and both grip uses; the other lap of
- * `--against`, where there is one, in columns of its own after them. */
-export function alignedTracesCsv(
-  result: ComparisonResult,
-  reference: LapResult,
-  driver: DriverLap,
-  other: AlignedOtherLap | null = null,
-): string {
-  const t = reference.trace;
-  const header = [
-    'station_m',
-    'time_driver_s',
-    'time_reference_s',
-    'delta_s',
-    'speed_driver_kph',
-    'speed_reference_kph',
-    'throttle_driver',
-    'throttle_reference',
-    'brake_driver',
-    'brake_reference',
-    'ax_driver_mps2',
-    'ax_reference_mps2',
-    'ay_driver_mps2',
-    'ay_reference_mps2',
-    'grip_use_driver',
-    'grip_use_reference',
-    'power_limited_reference',
-    'shift_reference',
-  ];
-  // The logged brake pressure, where the log gave pressure instead of a pedal share.
-  const pressurePa = driver.brakePressurePa ?? null;
-  if (pressurePa) header.push('brake_pressure_driver_bar');
-  if (other)
-    header.push(
-      'time_other_s',
-      'delta_other_s',
-      'speed_other_kph',
-      'throttle_other',
-      'brake_other',
-      'ax_other_mps2',
-      'ay_other_mps2',
-    );
-  const o = other?.lap;
-  const lines = [header.join(',')];
-  for (let i = 0; i < t.count; i++) {
-    lines.push(
-      [
-        fixed(t.stationM[i], 2),
-        fixed(driver.timeS[i], 4),
-        fixed(t.timeS[i], 4),
-        fixed(result.deltaS[i], 4),
-        fixed(mpsToKph(driver.speedMps[i]!), 2),
-        fixed(mpsToKph(t.speedMps[i]!), 2),
-        driver.throttle ? fixed(driver.throttle[i], 3) : '',
-        fixed(t.throttle[i], 3),
-        driver.brake ? fixed(driver.brake[i], 3) : '',
-        fixed(t.brake[i], 3),
-        fixed(driver.axMps2[i], 3),
-        fixed(t.axMps2[i], 3),
-        fixed(driver.ayMps2[i], 3),
-        fixed(t.ayMps2[i], 3),
-        fixed(result.driverGripUse[i], 3),
-        fixed(t.gripUse[i], 3),
-        String(t.powerLimited[i]),
-        String(t.shift[i]),
-        ...(pressurePa ? [fixed(pressurePa[i]! / 1e5, 2)] : []),
-        ...(o
-          ? [
-              fixed(o.timeS[i], 4),
-              fixed(other.driverDeltaS[i], 4),
-              fixed(mpsToKph(o.speedMps[i]!), 2),
-              o.throttle ? fixed(o.throttle[i], 3) : '',
-              o.brake ? fixed(o.brake[i], 3) : '',
-              fixed(o.axMps2[i], 3),
-              fixed(o.ayMps2[i], 3),
-            ]
-          : []),
-      ].join(','),
-    );
-  }
-  return lines.join('\n') + '\n';
 }

@@ -10,6 +10,7 @@ import type { XyChartSpec, XySeries } from './html/xy-chart.js';
 import { valueWithUnit } from './sweep-format.js';
 import { fieldAxisTitle } from './field-steps.js';
 import { formatLapTime } from '../units.js';
+import { displayUnits, type DisplayUnits } from './units.js';
 
 /** A grid draws one lap-time line per combination of the other fields up to this many; beyond, the grid's points. */
 export const MAX_GRID_LINES = 7;
@@ -95,7 +96,7 @@ function lapTimeSeries(table: SweepTable, k: number, series: SweepSeries): XySer
   ];
 }
 
-function shiftSeries(table: SweepTable, k: number, series: SweepSeries): XySeries[] {
+function shiftSeries(table: SweepTable, k: number, series: SweepSeries, units: DisplayUnits): XySeries[] {
   const field = table.meta.fields[k]!;
   const unit = table.meta.units[k];
   return table.meta.corners.map((corner, c) => ({
@@ -103,9 +104,9 @@ function shiftSeries(table: SweepTable, k: number, series: SweepSeries): XySerie
     ...seriesStyle(c),
     markerRadius: 2.4,
     points: series.values.map((value, v) => {
-      const shift = series.brakingPointShiftM[c]![v]!;
+      const shift = units.distance(series.brakingPointShiftM[c]![v]!);
       const text = Number.isFinite(shift)
-        ? `${shift >= 0 ? '+' : ''}${shift.toFixed(2)} m (${shift < 0 ? 'earlier' : shift > 0 ? 'later' : 'unchanged'})`
+        ? `${shift >= 0 ? '+' : ''}${shift.toFixed(2)} ${units.distanceLabel} (${shift < 0 ? 'earlier' : shift > 0 ? 'later' : 'unchanged'})`
         : 'no braking';
       return { x: value, y: shift, title: `${zoneLabel(corner)} at ${field} ${valueWithUnit(value, unit)}: ${text}` };
     }),
@@ -113,7 +114,7 @@ function shiftSeries(table: SweepTable, k: number, series: SweepSeries): XySerie
 }
 
 /** Two charts per swept field, lap time first, in the order of the fields. */
-export function sweepChartSpecs(table: SweepTable): XyChartSpec[] {
+export function sweepChartSpecs(table: SweepTable, units: DisplayUnits = displayUnits('metric')): XyChartSpec[] {
   const data = sweepChartData(table);
   const held = table.meta.mode !== 'one-at-a-time' && table.meta.fields.length > 1;
   const specs: XyChartSpec[] = [];
@@ -139,8 +140,8 @@ export function sweepChartSpecs(table: SweepTable): XyChartSpec[] {
       name: `braking-shift-${fieldSlug(field)}`,
       title: `Braking-point shift per corner against ${fieldAxisTitle(field, undefined)}`,
       xTitle,
-      yTitle: 'shift from baseline, m (− = earlier)',
-      series: shiftSeries(table, k, series),
+      yTitle: `shift from baseline, ${units.distanceLabel} (− = earlier)`,
+      series: shiftSeries(table, k, series, units),
       yGuides: [0],
       xGuides,
       ...(held ? { note: 'other fields held at the grid value nearest their baseline' } : {}),

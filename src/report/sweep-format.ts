@@ -3,7 +3,7 @@
 import type { Sensitivity, SweepTable } from '../sweep/table.js';
 import { readableField, userStep } from './field-steps.js';
 import { zoneLabel } from '../track/corner-layout.js';
-import { plainNumber } from './units.js';
+import { displayUnits, plainNumber, type DisplayUnits } from './units.js';
 
 /** '620 kg', or the value alone for a dimensionless field. */
 export function valueWithUnit(value: number, unit: string | undefined): string {
@@ -11,7 +11,11 @@ export function valueWithUnit(value: number, unit: string | undefined): string {
 }
 
 /** The sensitivity table, header and rows, per the step a person thinks in (the step in each column's header). */
-export function sensitivityRows(table: SweepTable, found: Sensitivity[]): { header: string[]; rows: string[][] } {
+export function sensitivityRows(
+  table: SweepTable,
+  found: Sensitivity[],
+  units: DisplayUnits = displayUnits('metric'),
+): { header: string[]; rows: string[][] } {
   const steps = found.map((s) =>
     userStep(s.field, s.unit, table.meta.baseValues[table.meta.fields.indexOf(s.field)] ?? 0),
   );
@@ -22,10 +26,12 @@ export function sensitivityRows(table: SweepTable, found: Sensitivity[]): { head
   const rows = [
     ['lap time, s', ...found.map((s, k) => plainNumber(s.lapTimeSPerUnit * steps[k]!.size, 3, true))],
     ...table.meta.corners.map((corner, c) => [
-      `${zoneLabel(corner)} braking point, m`,
+      `${zoneLabel(corner)} braking point, ${units.distanceLabel}`,
       ...found.map((s, k) => {
         const perUnit = s.brakingPointMPerUnit[c];
-        return perUnit === null || perUnit === undefined ? '' : plainNumber(perUnit * steps[k]!.size, 1, true);
+        return perUnit === null || perUnit === undefined
+          ? ''
+          : plainNumber(units.distance(perUnit * steps[k]!.size), 1, true);
       }),
     ]),
     ['difference step ±', ...found.map((s) => `${s.stepUsed}${s.scheme === 'central' ? '' : ` (${s.scheme})`}`)],

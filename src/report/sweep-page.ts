@@ -12,9 +12,10 @@ import { tile } from './html/tables.js';
 import { xyChartSvg } from './html/xy-chart.js';
 import { sweepChartSpecs } from './sweep-charts.js';
 import { sensitivityRows } from './sweep-format.js';
+import { displayUnits, type DisplayUnits } from './units.js';
 
-function charts(table: SweepTable, options: SvgOptions): ChartSvg[] {
-  return sweepChartSpecs(table).map((spec) => ({
+function charts(table: SweepTable, options: SvgOptions, units: DisplayUnits): ChartSvg[] {
+  return sweepChartSpecs(table, units).map((spec) => ({
     name: `${spec.name}.svg`,
     title: spec.title,
     svg: xyChartSvg(spec, options),
@@ -22,8 +23,8 @@ function charts(table: SweepTable, options: SvgOptions): ChartSvg[] {
 }
 
 /** Each chart of the sweep page as a standalone SVG file. */
-export function sweepChartSvgs(table: SweepTable): ChartSvg[] {
-  return charts(table, { standalone: true });
+export function sweepChartSvgs(table: SweepTable, units: DisplayUnits = displayUnits('metric')): ChartSvg[] {
+  return charts(table, { standalone: true }, units);
 }
 
 function summaryTiles(table: SweepTable): string {
@@ -58,11 +59,15 @@ function summaryTiles(table: SweepTable): string {
   return `<section class="summary" aria-label="Sweep summary">${tiles.join('')}</section>`;
 }
 
-export function sensitivityTableHtml(table: SweepTable, found: Sensitivity[]): string {
+export function sensitivityTableHtml(
+  table: SweepTable,
+  found: Sensitivity[],
+  units: DisplayUnits = displayUnits('metric'),
+): string {
   const heading = '<h2>Sensitivity around the baseline</h2>';
   if (found.length === 0)
     return `<section class="sensitivity">${heading}<p>No sensitivities: the runs around the baseline are not in this table.</p></section>`;
-  const { header, rows: cells } = sensitivityRows(table, found);
+  const { header, rows: cells } = sensitivityRows(table, found, units);
   const head = `<tr>${header.map((title) => `<th>${escapeHtml(title)}</th>`).join('')}</tr>`;
   const rows = cells.map(
     ([label, ...values]) =>
@@ -75,9 +80,9 @@ export function sensitivityTableHtml(table: SweepTable, found: Sensitivity[]): s
 }
 
 /** The whole sweep page as one string. It needs no script: each point's values show as its tooltip. */
-export function sweepReportHtml(table: SweepTable): string {
+export function sweepReportHtml(table: SweepTable, units: DisplayUnits = displayUnits('metric')): string {
   const { meta } = table;
-  const svgs = charts(table, { standalone: false });
+  const svgs = charts(table, { standalone: false }, units);
   const byField = meta.fields.map(
     (field, k) =>
       `<section class="panel" aria-label="${escapeHtml(field)}"><div class="chart-pair">${svgs[2 * k]!.svg}${svgs[2 * k + 1]!.svg}</div></section>`,
@@ -85,9 +90,9 @@ export function sweepReportHtml(table: SweepTable): string {
   const changes = [...meta.variations.map((v) => `vary ${v}`), ...meta.settings.map((s) => `set ${s}`)].join('; ');
   return htmlPage({
     title: `Setup sweep: ${meta.trackName} · ${meta.carName}`,
-    subtitle: `${meta.mode} sweep of ${meta.fields.join(', ')} (${changes}), track ${(meta.trackLengthM / 1000).toFixed(3)} km at a ${Number(meta.stepM.toPrecision(4))} m step`,
+    subtitle: `${meta.mode} sweep of ${meta.fields.join(', ')} (${changes}), track ${units.length(meta.trackLengthM).toFixed(3)} ${units.lengthLabel} at a ${Number(units.distance(meta.stepM).toPrecision(4))} ${units.distanceLabel} step`,
     header: summaryTiles(table),
-    main: `${byField.join('\n')}\n<section class="panel">${sensitivityTableHtml(table, sensitivities(table))}</section>`,
+    main: `${byField.join('\n')}\n<section class="panel">${sensitivityTableHtml(table, sensitivities(table), units)}</section>`,
     footerNote:
       'Made by reflap. Each point is one run; hold the pointer on a point for its values. Braking-point shifts are from the baseline’s braking point of each corner. ' +
       'Colours: Okabe–Ito palette, chosen to stay readable for colour-blind readers; after seven corners the lines repeat the colours dashed.',

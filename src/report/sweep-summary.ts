@@ -6,10 +6,11 @@ import { formatTable } from './text-table.js';
 import { SAFETY_CAUTION } from './lap-summary.js';
 import { sensitivityRows } from './sweep-format.js';
 import { formatLapTime } from '../units.js';
+import { displayUnits, type DisplayUnits } from './units.js';
 
-function sensitivityText(table: SweepTable, found: Sensitivity[]): string {
+function sensitivityText(table: SweepTable, found: Sensitivity[], units: DisplayUnits): string {
   if (found.length === 0) return 'No sensitivities: the runs around the baseline are not in this table.\n';
-  const { header, rows } = sensitivityRows(table, found);
+  const { header, rows } = sensitivityRows(table, found, units);
   return `Sensitivity around the baseline (central differences; braking point: negative = earlier)\n${formatTable(header, rows)}\n`;
 }
 
@@ -18,6 +19,7 @@ export function sweepSummaryText(
   found: Sensitivity[],
   complete: boolean,
   out: string | undefined,
+  units: DisplayUnits = displayUnits('metric'),
 ): string {
   const { meta, records } = table;
   const sweepRuns = records.filter((r) => r.kind === 'grid' || r.kind === 'oat');
@@ -43,12 +45,12 @@ export function sweepSummaryText(
   if (!out && sweepRuns.length <= 40 && sweepRuns.length > 0) {
     lines.push(
       formatTable(
-        ['run', ...meta.fields, 'lap s', ...meta.corners.map((c) => `${c.tag} brake m`)],
+        ['run', ...meta.fields, 'lap s', ...meta.corners.map((c) => `${c.tag} brake ${units.distanceLabel}`)],
         sweepRuns.map((r) => [
           String(r.run),
           ...r.values.map(String),
           r.lapTimeS.toFixed(3),
-          ...r.brakingPointM.map((m) => (Number.isFinite(m) ? m.toFixed(1) : '-')),
+          ...r.brakingPointM.map((m) => (Number.isFinite(m) ? units.distance(m).toFixed(1) : '-')),
         ]),
       ),
       '',
@@ -58,7 +60,7 @@ export function sweepSummaryText(
   } else {
     lines.push(`Runs written to ${out}`, '');
   }
-  lines.push(sensitivityText(table, found).trimEnd(), '', SAFETY_CAUTION);
+  lines.push(sensitivityText(table, found, units).trimEnd(), '', SAFETY_CAUTION);
   return lines.join('\n') + '\n';
 }
 

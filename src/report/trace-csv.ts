@@ -1,18 +1,18 @@
-// The reference lap as a CSV trace, one row per grid sample. The same columns read back as telemetry.
+// The reference lap as a CSV trace, one row per grid sample. The metric columns read back as telemetry.
 // `power_limited` (1 = the engine's full drive in use) and `shift` (1 = an upshift's gap in drive) are states, 0/1.
 
 import type { LapResult } from '../solve/types.js';
 import { mpsToKph } from '../units.js';
 import { roadProfileOf } from '../track/road-profile.js';
 import { requireFiniteLap } from './finite.js';
+import { columnsInUnits, csvText, type CsvColumn } from './csv-columns.js';
+import { displayUnits, type DisplayUnits } from './units.js';
 
 export interface ExtraColumn {
   name: string;
   values: ArrayLike<number>;
   digits: number;
 }
-
-const fixed = (value: number, digits: number) => (Number.isFinite(value) ? value.toFixed(digits) : '');
 
 /** Height, grade and bank columns where the track has them (z_m, grade_pct, bank_deg); none on a flat track. */
 export function roadColumns(result: LapResult): ExtraColumn[] {
@@ -25,43 +25,33 @@ export function roadColumns(result: LapResult): ExtraColumn[] {
   ];
 }
 
-export function traceCsv(result: LapResult, extra: ExtraColumn[] = []): string {
+/** The trace in the chosen units (metric when omitted): distances in m or ft, speeds in km/h (and m/s) or mph. */
+export function traceCsv(
+  result: LapResult,
+  extra: ExtraColumn[] = [],
+  units: DisplayUnits = displayUnits('metric'),
+): string {
   requireFiniteLap(result);
   const t = result.trace;
-  const extraColumns = [...roadColumns(result), ...extra];
-  const header = [
-    'distance_m',
-    'time_s',
-    'speed_mps',
-    'speed_kph',
-    'ax_mps2',
-    'ay_mps2',
-    'curvature_1pm',
-    'throttle',
-    'brake',
-    'grip_use',
-    'power_limited',
+  const of = (name: string, values: ArrayLike<number>, digits: number): CsvColumn => ({
+    name,
+    value: (i) => values[i]!,
+    digits,
+  });
+  const columns: CsvColumn[] = [
+    of('distance_m', t.distanceM, 3),
+    of('time_s', t.timeS, 4),
+    of('speed_mps', t.speedMps, 4),
+    { name: 'speed_kph', value: (i) => mpsToKph(t.speedMps[i]!), digits: 3 },
+    of('ax_mps2', t.axMps2, 4),
+    of('ay_mps2', t.ayMps2, 4),
+    of('curvature_1pm', t.curvaturePerM, 6),
+    of('throttle', t.throttle, 4),
+    of('brake', t.brake, 4),
+    of('grip_use', t.gripUse, 4),
+    of('power_limited', t.powerLimited, 0),
   ];
-  if (t.hasGears) header.push('gear', 'shift');
-  for (const column of extraColumns) header.push(column.name);
-  const lines: string[] = [header.join(',')];
-  for (let i = 0; i < t.count; i++) {
-    const row = [
-      fixed(t.distanceM[i]!, 3),
-      fixed(t.timeS[i]!, 4),
-      fixed(t.speedMps[i]!, 4),
-      fixed(mpsToKph(t.speedMps[i]!), 3),
-      fixed(t.axMps2[i]!, 4),
-      fixed(t.ayMps2[i]!, 4),
-      fixed(t.curvaturePerM[i]!, 6),
-      fixed(t.throttle[i]!, 4),
-      fixed(t.brake[i]!, 4),
-      fixed(t.gripUse[i]!, 4),
-      String(t.powerLimited[i]),
-    ];
-    if (t.hasGears) row.push(String(t.gear[i]), String(t.shift[i]));
-    for (const column of extraColumns) row.push(fixed(column.values[i]!, column.digits));
-    lines.push(row.join(','));
-  }
-  return lines.join('\n') + '\n';
+  if (t.hasGears) columns.push(of('gear', t.gear, 0), of('shift', t.shift, 0));
+  for (const column of [...roadColumns(result), ...extra]) columns.push(of(column.name, column.values, column.digits));
+  return csvText(columnsInUnits(columns, units), t.count);
 }

@@ -17,6 +17,9 @@ export interface DisplayUnits {
   /** Short distances (braking points, offsets, radii) label and conversion from m. */
   distanceLabel: 'm' | 'ft';
   distance(distanceM: number): number;
+  /** Long distances (a lap's length) label and conversion from m. */
+  lengthLabel: 'km' | 'mi';
+  length(distanceM: number): number;
   /** Column-name suffix of a speed and a distance in a CSV a person reads (`_kph`/`_mph`, `_m`/`_ft`). */
   speedSuffix: 'kph' | 'mph';
   distanceSuffix: 'm' | 'ft';
@@ -28,6 +31,8 @@ const metric: DisplayUnits = {
   speed: (speedMps) => speedMps * 3.6,
   distanceLabel: 'm',
   distance: (distanceM) => distanceM,
+  lengthLabel: 'km',
+  length: (distanceM) => distanceM / 1000,
   speedSuffix: 'kph',
   distanceSuffix: 'm',
 };
@@ -38,6 +43,8 @@ const imperial: DisplayUnits = {
   speed: (speedMps) => (speedMps * 3600) / METRES_PER_MILE,
   distanceLabel: 'ft',
   distance: (distanceM) => distanceM / METRES_PER_FOOT,
+  lengthLabel: 'mi',
+  length: (distanceM) => distanceM / METRES_PER_MILE,
   speedSuffix: 'mph',
   distanceSuffix: 'ft',
 };

@@ -8,7 +8,8 @@ import { unitOf } from '../sweep/fields.js';
 import { formatTable } from './text-table.js';
 import { SAFETY_CAUTION } from './lap-summary.js';
 import { roundToDigits } from '../numeric/round.js';
-import { formatLapTime } from '../units.js';
+import { formatLapTime, kphToMps } from '../units.js';
+import { displayUnits, type DisplayUnits } from './units.js';
 
 const signed = (value: number, digits: number) => `${value >= 0 ? '+' : ''}${value.toFixed(digits)}`;
 
@@ -50,9 +51,17 @@ export function whatifJson(comparison: LapComparison, changes: { field: string; 
   };
 }
 
-export function whatifText(comparison: LapComparison, described: string[], trackName: string, carName: string): string {
+export function whatifText(
+  comparison: LapComparison,
+  described: string[],
+  trackName: string,
+  carName: string,
+  units: DisplayUnits = displayUnits('metric'),
+): string {
+  const m = units.distance;
+  const speed = (kph: number) => units.speed(kphToMps(kph));
   const rows = comparison.zones.map((zone) => {
-    const shift = zone.brakingPointShiftM;
+    const shift = zone.brakingPointShiftM === null ? null : m(zone.brakingPointShiftM);
     const moved =
       shift === null
         ? 'no braking now'
@@ -61,12 +70,12 @@ export function whatifText(comparison: LapComparison, described: string[], track
           : `${signed(shift, 1)} ${shift < 0 ? 'earlier' : 'later'}`;
     return [
       zoneLabel({ tag: zone.tag, name: zone.cornerName }),
-      zone.minSpeedAtM.toFixed(0),
-      zone.brakingPointM.toFixed(1),
-      zone.beforeTurnInM === null ? '' : zone.beforeTurnInM.toFixed(1),
+      m(zone.minSpeedAtM).toFixed(0),
+      m(zone.brakingPointM).toFixed(1),
+      zone.beforeTurnInM === null ? '' : m(zone.beforeTurnInM).toFixed(1),
       moved,
-      zone.entrySpeedDeltaKph === null ? '' : signed(zone.entrySpeedDeltaKph, 1),
-      zone.minSpeedDeltaKph === null ? '' : signed(zone.minSpeedDeltaKph, 1),
+      zone.entrySpeedDeltaKph === null ? '' : signed(speed(zone.entrySpeedDeltaKph), 1),
+      zone.minSpeedDeltaKph === null ? '' : signed(speed(zone.minSpeedDeltaKph), 1),
       zone.zoneTimeDeltaS === null ? '' : signed(zone.zoneTimeDeltaS, 3),
     ];
   });
@@ -78,12 +87,12 @@ export function whatifText(comparison: LapComparison, described: string[], track
     formatTable(
       [
         'corner',
-        'slowest at m',
-        'brake at m',
-        'before turn-in m',
-        'braking point m',
-        'entry km/h',
-        'slowest km/h',
+        `slowest at ${units.distanceLabel}`,
+        `brake at ${units.distanceLabel}`,
+        `before turn-in ${units.distanceLabel}`,
+        `braking point ${units.distanceLabel}`,
+        `entry ${units.speedLabel}`,
+        `slowest ${units.speedLabel}`,
         'zone time s',
       ],
       rows,
@@ -92,7 +101,7 @@ export function whatifText(comparison: LapComparison, described: string[], track
   if (comparison.newZones.length > 0) {
     lines.push(
       '',
-      `New braking zones: ${comparison.newZones.map((z) => `brake at ${z.startM.toFixed(0)} m for ${z.minSpeedAtM.toFixed(0)} m`).join(', ')}`,
+      `New braking zones: ${comparison.newZones.map((z) => `brake at ${m(z.startM).toFixed(0)} ${units.distanceLabel} for ${m(z.minSpeedAtM).toFixed(0)} ${units.distanceLabel}`).join(', ')}`,
     );
   }
   lines.push('', SAFETY_CAUTION);

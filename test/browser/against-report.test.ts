@@ -14,7 +14,7 @@ import { againstInput } from '../report/report-fixtures.js';
 requireChromium('lap-against-lap report');
 
 interface PageData {
-  lengthM: number;
+  length: number;
   d: number[];
   series: Record<string, number[] | null>;
   corners: { id: number; from: number; to: number }[];

@@ -32,7 +32,7 @@ export function runCar(values: CarValues): void {
   const envelope = buildEnvelope(car, ambient);
   const description = describeCar(car, ambient, envelope);
   const outputs = outputBatch(inputFilesOf(values));
-  if (values.html) outputs.add(values.html, carGgHtml(description, envelope));
+  if (values.html) outputs.add(values.html, carGgHtml(description, envelope, units));
   outputs.commit();
   if (values.json) {
     process.stdout.write(roundedJson(description));

@@ -83,6 +83,7 @@ export async function runCompare(values: CompareValues & AgainstOptionValues): P
     ...sessionReportInput(comparison, car, ambient, comparison.linePositions),
     ...(uncertainty ? { uncertainty } : {}),
     ...(paired ? { against: { result: paired.result, other: paired.other } } : {}),
+    units,
   };
   const reportFiles = addReportOutputs(outputs, values, report);
   outputs.commit();

@@ -89,11 +89,10 @@ export function runDemo(values: DemoValues): void {
     html: values.html ?? path.join(values.out, 'report.html'),
     ...(values.svg ? { svg: values.svg } : {}),
   };
-  const reportFiles = addReportOutputs(
-    outputs,
-    reportOptions,
-    sessionReportInput(comparison, car, ambient, comparison.linePositions),
-  );
+  const reportFiles = addReportOutputs(outputs, reportOptions, {
+    ...sessionReportInput(comparison, car, ambient, comparison.linePositions),
+    units,
+  });
   outputs.commit();
   const faults = lap.faults
     .map((f) => `${f.kind.replace(/-/g, ' ')} at corner ${f.cornerId}${f.cornerName ? ` (${f.cornerName})` : ''}`)

@@ -78,6 +78,7 @@ export async function runSession(values: SessionValues): Promise<void> {
   const report = {
     ...sessionReportInput(comparison, car, ambient, comparison.linePositions),
     session: { overview, cornerTraces: traces.traces },
+    units,
   };
   const reportFiles = addReportOutputs(outputs, values, report);
   outputs.commit();

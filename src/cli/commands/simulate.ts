@@ -105,18 +105,19 @@ export async function runSimulate(values: SimulateValues): Promise<void> {
   }
   const outputs = outputBatch(inputFilesOf(values));
   const traceToStdout = values.out === '-';
-  if (values.out && !traceToStdout) outputs.add(values.out, traceCsv(result, extraColumns));
+  if (values.out && !traceToStdout) outputs.add(values.out, traceCsv(result, extraColumns, units));
   const reportFiles = addReportOutputs(outputs, values, {
     reference: result,
     carName: car.name,
     envelope,
     ...(xM && yM ? { linePositions: { xM, yM } } : {}),
     ...(uncertainty ? { uncertainty } : {}),
+    units,
   });
   outputs.commit();
   if (traceToStdout) {
     // The trace is the whole of stdout, so that it pipes into another tool; the JSON summary cannot share it.
-    process.stdout.write(traceCsv(result, extraColumns));
+    process.stdout.write(traceCsv(result, extraColumns, units));
   } else if (values.json) {
     process.stdout.write(
       JSON.stringify(

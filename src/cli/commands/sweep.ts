@@ -26,8 +26,11 @@ import { InputError } from '../../errors.js';
 import { readTextFile } from '../../io/read-text.js';
 import { addLineOption, referencePathJson, withReferencePath } from '../reference-path.js';
 import { sweepJson, sweepSummaryText } from '../../report/sweep-summary.js';
+import { addUnitsOption, unitsOf, type UnitsOptionValues } from '../units-option.js';
+import type { DisplayUnits } from '../../report/units.js';
 
-interface SweepValues extends Partial<TrackOptionValues>, Partial<CarOptionValues>, ReportOptionValues {
+interface SweepValues
+  extends Partial<TrackOptionValues>, Partial<CarOptionValues>, ReportOptionValues, UnitsOptionValues {
   vary?: string[];
   set?: string[];
   mode?: SweepMode;
@@ -70,17 +73,27 @@ export function register(program: Command): void {
     )
     .option('--json', 'print one JSON object instead of the tables');
   addLineOption(command, true);
+  addUnitsOption(command);
   addReportOptions(
     command,
     'the sweep report: one HTML page with lap time and braking-point shift against each field',
   ).action((values: SweepValues) => runSweepCommand(values));
 }
 
-function addSweepReport(outputs: OutputBatch, values: ReportOptionValues, table: SweepTable): string[] {
-  return addPageOutputs(outputs, values, { html: () => sweepReportHtml(table), charts: () => sweepChartSvgs(table) });
+function addSweepReport(
+  outputs: OutputBatch,
+  values: ReportOptionValues,
+  table: SweepTable,
+  units: DisplayUnits,
+): string[] {
+  return addPageOutputs(outputs, values, {
+    html: () => sweepReportHtml(table, units),
+    charts: () => sweepChartSvgs(table, units),
+  });
 }
 
 export async function runSweepCommand(values: SweepValues): Promise<void> {
+  const units = unitsOf(values);
   if (values.merge) {
     if (values.vary || values.shard)
       throw new InputError('sweep --merge joins finished shards; it takes no --vary or --shard');
@@ -88,12 +101,12 @@ export async function runSweepCommand(values: SweepValues): Promise<void> {
     const { csv, table } = mergeSweepCsv(files);
     const outputs = outputBatch(values.merge);
     if (values.out) outputs.add(values.out, csv);
-    const reportFiles = addSweepReport(outputs, values, table);
+    const reportFiles = addSweepReport(outputs, values, table, units);
     outputs.commit();
     const found = sensitivities(table);
     if (values.json) process.stdout.write(JSON.stringify(sweepJson(table, found, true), null, 2) + '\n');
     else if (values.out)
-      process.stdout.write(sweepSummaryText(table, found, true, values.out) + reportWrittenText(reportFiles));
+      process.stdout.write(sweepSummaryText(table, found, true, values.out, units) + reportWrittenText(reportFiles));
     else process.stdout.write(csv);
     return;
   }
@@ -135,7 +148,7 @@ export async function runSweepCommand(values: SweepValues): Promise<void> {
   const { table, complete } = output;
   const outputs = outputBatch(inputFilesOf(values));
   if (values.out) outputs.add(values.out, sweepCsv(table));
-  const reportFiles = addSweepReport(outputs, values, table);
+  const reportFiles = addSweepReport(outputs, values, table, units);
   outputs.commit();
   const found = sensitivities(table);
   if (values.json)
@@ -144,7 +157,7 @@ export async function runSweepCommand(values: SweepValues): Promise<void> {
     );
   else
     process.stdout.write(
-      withReferencePath(sweepSummaryText(table, found, complete, values.out), reference, true) +
+      withReferencePath(sweepSummaryText(table, found, complete, values.out, units), reference, true) +
         reportWrittenText(reportFiles),
     );
 }

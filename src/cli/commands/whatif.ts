@@ -22,8 +22,9 @@ import { outputBatch } from '../output.js';
 import { addPageOutputs, addReportOptions, reportWrittenText, type ReportOptionValues } from '../html-options.js';
 import { whatifChartSvgs, whatifReportHtml } from '../../report/sweep-whatif.js';
 import { describeSettings, whatifJson, whatifText } from '../../report/whatif-summary.js';
+import { addUnitsOption, unitsOf, type UnitsOptionValues } from '../units-option.js';
 
-interface WhatifValues extends TrackOptionValues, CarOptionValues, ReportOptionValues {
+interface WhatifValues extends TrackOptionValues, CarOptionValues, ReportOptionValues, UnitsOptionValues {
   set?: string[];
   matchM?: string;
   line?: string;
@@ -47,7 +48,8 @@ export function register(program: Command): void {
     )
     .option('--json', 'print one JSON object instead of the table');
   addLineOption(command, true);
-  addReportOptions(command, 'a page with the braking-point shift per corner as a bar chart').action(
+  addUnitsOption(command);
+  addReportOptions(command, 'a page with the braking-point shift and the speed changes per corner').action(
     (values: WhatifValues) => runWhatif(values),
   );
 }
@@ -55,6 +57,7 @@ export function register(program: Command): void {
 export function runWhatif(values: WhatifValues): void {
   const texts = values.set ?? [];
   if (texts.length === 0) throw new InputError('whatif: give at least one --set FIELD=VALUE');
+  const units = unitsOf(values);
   const settings = texts.map((text) => parseSetting(text));
   const toleranceM = numberOption(values.matchM, '--match-m', DEFAULT_MATCH_TOLERANCE_M);
   if (!(toleranceM > 0)) throw new InputError(`option --match-m: ${toleranceM} must be positive`);
@@ -79,7 +82,7 @@ export function runWhatif(values: WhatifValues): void {
   });
   const comparison = compareSetupChange(baseline, result, toleranceM);
   const described = describeSettings(base, settings, changed.values);
-  const page = { comparison, described, trackName: track.name, carName: car.name };
+  const page = { comparison, described, trackName: track.name, carName: car.name, units };
   const outputs = outputBatch(inputFilesOf(values));
   const reportFiles = addPageOutputs(outputs, values, {
     html: () => whatifReportHtml(page),
@@ -97,7 +100,7 @@ export function runWhatif(values: WhatifValues): void {
     );
   } else {
     process.stdout.write(
-      withReferencePath(whatifText(comparison, described, track.name, car.name), reference, true) +
+      withReferencePath(whatifText(comparison, described, track.name, car.name, units), reference, true) +
         reportWrittenText(reportFiles),
     );
   }

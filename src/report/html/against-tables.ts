@@ -5,7 +5,7 @@
 import { formatLapTime, mps2ToG } from '../../units.js';
 import type { LapCornerFigures } from '../../compare/against/lap-corner.js';
 import { escapeHtml } from './escape.js';
-import type { ReportModel } from './model.js';
+import { shownUnits, type ReportModel } from './model.js';
 import { cornerCell, fixed, signed, tile } from './cells.js';
 
 /** Summary tiles for the chosen lap: its time and the driver's gap to it. */
@@ -32,17 +32,18 @@ export function againstTableHtml(model: ReportModel): string {
     (pick: (f: LapCornerFigures) => number | null, digits: number) =>
     (c: { first: LapCornerFigures; second: LapCornerFigures }) =>
       `${fixed(pick(c.first), digits)} / ${fixed(pick(c.second), digits)}`;
+  const { speedOfKph: v, distanceOfM: m } = shownUnits(model);
   const rows = result.corners
     .map(
       (c) =>
         `<tr class="corner-row" data-corner="${c.id}" tabindex="0">${cornerCell(c.id, c.name)}` +
-        `<td>${signed(c.brakingPointDeltaM, 0)}</td>` +
-        `<td>${pair((f) => f.brakingBeforeTurnInM, 0)(c)}</td>` +
+        `<td>${signed(m(c.brakingPointDeltaM), 0)}</td>` +
+        `<td>${pair((f) => m(f.brakingBeforeTurnInM), 0)(c)}</td>` +
         `<td>${pair((f) => (f.peakBrakingMps2 === null ? null : mps2ToG(f.peakBrakingMps2)), 2)(c)}</td>` +
-        `<td>${pair((f) => f.brakeReleaseFromApexM, 0)(c)}</td>` +
-        `<td>${pair((f) => f.entrySpeedKph, 1)(c)}</td>` +
-        `<td>${pair((f) => f.minSpeedKph, 1)(c)}</td>` +
-        `<td>${pair((f) => f.exitSpeedKph, 1)(c)}</td>` +
+        `<td>${pair((f) => m(f.brakeReleaseFromApexM), 0)(c)}</td>` +
+        `<td>${pair((f) => v(f.entrySpeedKph), 1)(c)}</td>` +
+        `<td>${pair((f) => v(f.minSpeedKph), 1)(c)}</td>` +
+        `<td>${pair((f) => v(f.exitSpeedKph), 1)(c)}</td>` +
         `<td>${pair((f) => f.coastingS, 2)(c)}</td>` +
         `<td>${signed(c.entryTimeLostS, 2)} / ${signed(c.middleTimeLostS, 2)} / ${signed(c.exitTimeLostS, 2)}</td>` +
         `<td class="strong">${signed(c.timeLostS, 2)}</td>` +
@@ -50,11 +51,12 @@ export function againstTableHtml(model: ReportModel): string {
     )
     .join('');
   const label = escapeHtml(result.label);
+  const { speedLabel: sl, distanceLabel: dl } = model.units;
   return (
     `<section class="corners against"><h2>Corner by corner against ${label}</h2>` +
     `<p class="hint">Pairs are driver / ${label}. Brake point Δ is positive where the driver brakes later; lost is the driver's time minus ${label}'s, positive where the driver is slower; to the reference is each lap's time lost to the reference over the same stretch. Click a row to zoom every chart to that corner.</p>` +
-    `<div class="table-wrap"><table><thead><tr><th>corner</th><th>brake point Δ, m</th><th>brakes before turn-in, m</th><th>peak braking, g</th>` +
-    `<th>brake off from apex, m</th><th>entry, km/h</th><th>slowest, km/h</th><th>exit, km/h</th><th>coasting, s</th>` +
+    `<div class="table-wrap"><table><thead><tr><th>corner</th><th>brake point Δ, ${dl}</th><th>brakes before turn-in, ${dl}</th><th>peak braking, g</th>` +
+    `<th>brake off from apex, ${dl}</th><th>entry, ${sl}</th><th>slowest, ${sl}</th><th>exit, ${sl}</th><th>coasting, s</th>` +
     `<th>lost in entry / middle / exit, s</th><th>lost, s</th><th>to the reference, s</th></tr></thead>` +
     `<tbody>${rows}</tbody></table></div></section>`
   );

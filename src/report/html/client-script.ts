@@ -16,7 +16,7 @@ const SCRIPT_BODY = String.raw`(function () {
   var ggDots = gg ? { R: gg.querySelector('.gg-dot-reference'), D: gg.querySelector('.gg-dot-driver') } : {};
   var resetButton = document.getElementById('zoom-reset');
   var zoomLabel = document.getElementById('zoom-label');
-  var domain = [0, data.lengthM];
+  var domain = [0, data.length];
 
   function attrs(element, values) {
     for (var key in values) element.setAttribute(key, String(values[key]));
@@ -37,14 +37,14 @@ const SCRIPT_BODY = String.raw`(function () {
       axis.appendChild(label);
     });
     var title = attrs(document.createElementNS(svgNs, 'text'), { x: plot.left + plot.width, y: y + 26, 'text-anchor': 'end', fill: '#555555' });
-    title.textContent = 'distance, m';
+    title.textContent = 'distance, ' + data.labels.distance;
     axis.appendChild(title);
   }
   // The y range of a chart's series inside [from, to], padded, held inside the axis of the whole lap (whose
   // ranges already leave out a logged lap's spikes), and with zero where the chart reads against zero.
   function yDomainOf(svg, from, to) {
     var whole = svg.getAttribute('data-y-domain').split(' ').map(Number);
-    if (to - from >= data.lengthM) return whole;
+    if (to - from >= data.length) return whole;
     var low = Infinity;
     var high = -Infinity;
     svg.getAttribute('data-y-keys').split(' ').forEach(function (key) {
@@ -74,10 +74,10 @@ const SCRIPT_BODY = String.raw`(function () {
   }
   function zoomTo(from, to, label) {
     domain = [from, to];
-    var k = data.lengthM / (to - from);
+    var k = data.length / (to - from);
     charts.forEach(function (svg) {
       var plot = plotOf(svg);
-      var shift = (-from / data.lengthM) * plot.width;
+      var shift = (-from / data.length) * plot.width;
       var yPart = ' 0) scale(' + k + ' 1)';
       if (svg.hasAttribute('data-y-keys')) {
         var whole = svg.getAttribute('data-y-domain').split(' ').map(Number);
@@ -136,9 +136,9 @@ const SCRIPT_BODY = String.raw`(function () {
       if (!dot || ax === null || ay === null) return;
       attrs(dot, { cx: data.gg.cx + ay * data.gg.pxPerG, cy: data.gg.cy - ax * data.gg.pxPerG, visibility: 'visible' });
     });
-    setField('distance', text(distance, 0, ' m'));
+    setField('distance', text(distance, 0, ' ' + data.labels.distance));
     ['R', 'D', 'O'].forEach(function (who) {
-      setField('speed' + who, text(channel('v' + who, index), 1, ' km/h'));
+      setField('speed' + who, text(channel('v' + who, index), 1, ' ' + data.labels.speed));
       setField('throttle' + who, text(channel('t' + who, index), 0, ' %'));
       setField('brake' + who, text(channel('b' + who, index), 0, ' %'));
       setField('grip' + who, text(channel('g' + who, index), 0, ' %'));
@@ -199,9 +199,9 @@ const SCRIPT_BODY = String.raw`(function () {
       if (event.key === 'Enter' || event.key === ' ') { event.preventDefault(); zoom(); }
     });
   });
-  resetButton.addEventListener('click', function () { zoomTo(0, data.lengthM, null); });
-  document.addEventListener('keydown', function (event) { if (event.key === 'Escape') zoomTo(0, data.lengthM, null); });
-  zoomTo(0, data.lengthM, null);
+  resetButton.addEventListener('click', function () { zoomTo(0, data.length, null); });
+  document.addEventListener('keydown', function (event) { if (event.key === 'Escape') zoomTo(0, data.length, null); });
+  zoomTo(0, data.length, null);
 })();`;
 
 /** The script's text, with the tick function the server uses built in. */

@@ -61,6 +61,9 @@ export interface DistanceChartSpec {
   stationM: Float64Array;
   lengthM: number;
   stepM: number;
+  /** The distance axis in the page's units: its label and the factor from metres. */
+  distanceLabel: string;
+  distancePerM: number;
   series: DistanceSeries[];
   bands?: Band[];
   spans?: Span[];
@@ -148,7 +151,7 @@ export function distanceChartSvg(spec: DistanceChartSpec, options: SvgOptions): 
   }
   body += '</g></g>';
   body += `<rect x="${PLOT_LEFT}" y="${PLOT_TOP}" width="${plotWidth}" height="${plotHeight}" fill="none" stroke="#bdbdbd"/>`;
-  body += `<g class="x-axis" data-y="${plotBottom}">${xTicks(0, spec.lengthM, plotWidth, plotBottom)}</g>`;
+  body += `<g class="x-axis" data-y="${plotBottom}">${xTicks(0, spec.lengthM * spec.distancePerM, plotWidth, plotBottom, spec.distanceLabel)}</g>`;
   if (spec.note)
     body += `<text x="${PLOT_LEFT + 8}" y="${PLOT_TOP + 14}" fill="${PALETTE.axis}" font-style="italic">${escapeHtml(spec.note)}</text>`;
   body +=
@@ -165,7 +168,7 @@ export function distanceChartSvg(spec: DistanceChartSpec, options: SvgOptions): 
     spec.height,
     body,
     options,
-    `${spec.title}: ${spec.yTitle} against distance, m`,
+    `${spec.title}: ${spec.yTitle} against distance, ${spec.distanceLabel}`,
     attributes,
   );
 }
@@ -187,7 +190,8 @@ export function stateSpans(
   return spans;
 }
 
-/** Distance ticks under the plot for the range [fromM, toM]; the page's script redraws them on zoom. */
-export function xTicks(fromM: number, toM: number, plotWidth: number, plotBottom: number): string {
-  return xAxis(linearScale([fromM, toM], [PLOT_LEFT, PLOT_LEFT + plotWidth]), plotBottom, 'distance, m');
+/** Distance ticks under the plot for the range [from, to] in the page's distance unit; the page's script redraws
+ * them on zoom. */
+export function xTicks(from: number, to: number, plotWidth: number, plotBottom: number, distanceLabel: string): string {
+  return xAxis(linearScale([from, to], [PLOT_LEFT, PLOT_LEFT + plotWidth]), plotBottom, `distance, ${distanceLabel}`);
 }

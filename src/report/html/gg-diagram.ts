@@ -3,7 +3,7 @@
 // the driver demonstrated.
 
 import type { Envelope } from '../../car/envelope.js';
-import { STANDARD_GRAVITY_MPS2, mpsToKph, kphToMps } from '../../units.js';
+import { STANDARD_GRAVITY_MPS2 } from '../../units.js';
 import { escapeHtml } from './escape.js';
 import { strideIndices } from './downsample.js';
 import { coord, linearScale, quantileOf } from './scale.js';
@@ -41,14 +41,20 @@ export function envelopeBoundaryG(envelope: Envelope, speedMps: number): Array<[
   return points.filter(([a, b]) => Number.isFinite(a) && Number.isFinite(b));
 }
 
-/** Speeds for the boundaries: slow, middle and fast parts of this lap, rounded to 10 km/h. */
-export function boundarySpeedsKph(model: ReportModel): number[] {
-  const topKph = mpsToKph(model.input.reference.maxSpeedMps);
-  const lowKph = mpsToKph(model.input.reference.minSpeedMps);
-  const picks = [lowKph + 0.1 * (topKph - lowKph), (lowKph + topKph) / 2, topKph * 0.95].map((v) =>
+/** Speeds for the boundaries in the page's unit: slow, middle and fast parts of this lap, rounded to 10 km/h or
+ * 10 mph so that each curve's label is a round number. */
+export function boundarySpeedsShown(model: ReportModel): number[] {
+  const top = model.units.speed(model.input.reference.maxSpeedMps);
+  const low = model.units.speed(model.input.reference.minSpeedMps);
+  const picks = [low + 0.1 * (top - low), (low + top) / 2, top * 0.95].map((v) =>
     Math.max(10, Math.round(v / 10) * 10),
   );
   return [...new Set(picks)];
+}
+
+/** A speed in the page's unit back in m/s. */
+function shownToMps(model: ReportModel, speedShown: number): number {
+  return speedShown / model.units.speed(1);
 }
 
 export function ggFrame(model: ReportModel): { frame: GgFrame; maxG: number } {
@@ -60,8 +66,9 @@ export function ggFrame(model: ReportModel): { frame: GgFrame; maxG: number } {
     maxG = Math.max(maxG, Math.abs(reference.axG[i]!), Math.abs(reference.ayG[i]!));
   if (model.driver) maxG = Math.max(maxG, quantileOf([model.driver.axG, model.driver.ayG], 0.995, true) || 0);
   const envelope = model.input.envelope;
-  for (const speed of boundarySpeedsKph(model)) {
-    for (const [a, b] of envelopeBoundaryG(envelope, kphToMps(speed))) maxG = Math.max(maxG, Math.abs(a), Math.abs(b));
+  for (const speed of boundarySpeedsShown(model)) {
+    for (const [a, b] of envelopeBoundaryG(envelope, shownToMps(model, speed)))
+      maxG = Math.max(maxG, Math.abs(a), Math.abs(b));
   }
   maxG = Math.min(6, Math.ceil(maxG * 1.08 * 4) / 4);
   const plotSize = GG_SIZE - 2 * PAD;
@@ -85,12 +92,12 @@ function dotsPath(ax: Float64Array, ay: Float64Array, frame: GgFrame, colour: st
 
 function boundaryPath(
   envelope: Envelope,
-  speedKph: number,
+  speedMps: number,
   frame: GgFrame,
   colour: string,
   dash: string | null,
 ): string {
-  const points = envelopeBoundaryG(envelope, kphToMps(speedKph));
+  const points = envelopeBoundaryG(envelope, speedMps);
   const d =
     points
       .map(
@@ -111,14 +118,14 @@ export function ggDiagramSvg(model: ReportModel, options: SvgOptions): string {
   const lateral = linearScale([-maxG, maxG], [left, right]);
   const longitudinal = linearScale([-maxG, maxG], [bottom, top]);
   let body = `<text class="chart-title" x="14" y="18" font-size="13" font-weight="600">g-g diagram</text>`;
-  const speeds = boundarySpeedsKph(model);
+  const speeds = boundarySpeedsShown(model);
   const legend: LegendItem[] = [{ label: 'reference', colour: PALETTE.reference, mark: 'dot' }];
   if (model.driver) legend.push({ label: 'driver', colour: PALETTE.driver, mark: 'dot' });
   legend.push({ label: 'car envelope', colour: PALETTE.carEnvelope });
   const demonstrated = model.input.comparison?.demonstratedEnvelope;
   if (demonstrated) legend.push({ label: 'demonstrated', colour: PALETTE.demonstratedEnvelope, dash: '5 3' });
   body += legendRow(legend, GG_SIZE - 10, 36);
-  body += `<text x="${GG_SIZE - 10}" y="52" text-anchor="end" fill="${PALETTE.axis}">${escapeHtml(`envelope at ${speeds.join(', ')} km/h`)}</text>`;
+  body += `<text x="${GG_SIZE - 10}" y="52" text-anchor="end" fill="${PALETTE.axis}">${escapeHtml(`envelope at ${speeds.join(', ')} ${model.units.speedLabel}`)}</text>`;
 
   body += ggGridSvg({ maxG, lateral, longitudinal, left, right, top, bottom });
   body += `<text x="${coord(frame.centreX)}" y="${coord(bottom + 30)}" text-anchor="middle" fill="${PALETTE.axis}">lateral acceleration, g (left turn +)</text>`;
@@ -127,8 +134,9 @@ export function ggDiagramSvg(model: ReportModel, options: SvgOptions): string {
   body += `<clipPath id="clip-gg"><rect x="${coord(left)}" y="${coord(top)}" width="${coord(2 * extent)}" height="${coord(2 * extent)}"/></clipPath><g clip-path="url(#clip-gg)">`;
   // Boundaries under the points: the reference rides on them, and its dots must stay visible.
   speeds.forEach((speed) => {
-    body += boundaryPath(model.input.envelope, speed, frame, PALETTE.carEnvelope, null);
-    if (demonstrated) body += boundaryPath(demonstrated, speed, frame, PALETTE.demonstratedEnvelope, '5 3');
+    const speedMps = shownToMps(model, speed);
+    body += boundaryPath(model.input.envelope, speedMps, frame, PALETTE.carEnvelope, null);
+    if (demonstrated) body += boundaryPath(demonstrated, speedMps, frame, PALETTE.demonstratedEnvelope, '5 3');
   });
   if (model.driver) body += dotsPath(model.driver.axG, model.driver.ayG, frame, PALETTE.driver, 'gg-driver');
   body += dotsPath(model.reference.axG, model.reference.ayG, frame, PALETTE.reference, 'gg-reference');

@@ -1,12 +1,13 @@
 // What the lap report draws, gathered once from the solver's and the comparison's records and converted to
-// display units (km/h, %, g), so the chart builders only map numbers to pixels.
+// display units (km/h or mph, %, g), so the chart builders only map numbers to pixels.
 
 import type { Envelope } from '../../car/envelope.js';
 import type { ComparisonResult, DriverLap } from '../../compare/types.js';
 import type { AgainstResult } from '../../compare/against/lap-against-lap.js';
 import type { SessionReportPart } from './session-sections.js';
 import type { LapResult } from '../../solve/types.js';
-import { mpsToKph, STANDARD_GRAVITY_MPS2 } from '../../units.js';
+import { kphToMps, STANDARD_GRAVITY_MPS2 } from '../../units.js';
+import { displayUnits, type DisplayUnits } from '../units.js';
 import type { UncertainReference } from '../../uncertainty/uncertain-reference.js';
 
 export interface ReportInput {
@@ -33,6 +34,8 @@ export interface ReportInput {
   /** The reference over draws of the car's uncertain fields: the speed is drawn as a band, the corners carry how often
    * their findings hold. */
   uncertainty?: UncertainReference;
+  /** The units the page shows (metric when omitted); the page's data stays SI inside. */
+  units?: DisplayUnits;
 }
 
 /** A stretch of the lap the page can zoom to: a corner of the comparison, or a braking zone of the reference. */
@@ -45,7 +48,8 @@ export interface ReportCorner {
 }
 
 export interface LapChannels {
-  speedKph: Float64Array;
+  /** Speed in the page's units (ReportModel.units.speedLabel). */
+  speedShown: Float64Array;
   /** 0-100 %, null where the log has no such channel. */
   throttlePct: Float64Array | null;
   brakePct: Float64Array | null;
@@ -60,10 +64,14 @@ export interface LapChannels {
 }
 
 /** A second logged lap as drawn: the channels the log gives, no grip use (its envelope is the driver's). */
-export type OtherLapChannels = Pick<LapChannels, 'speedKph' | 'throttlePct' | 'brakePct' | 'axG' | 'ayG' | 'xM' | 'yM'>;
+export type OtherLapChannels = Pick<
+  LapChannels,
+  'speedShown' | 'throttlePct' | 'brakePct' | 'axG' | 'ayG' | 'xM' | 'yM'
+>;
 
 export interface ReportModel {
   input: ReportInput;
+  units: DisplayUnits;
   lengthM: number;
   closed: boolean;
   stationM: Float64Array;
@@ -101,12 +109,14 @@ export function reportModel(input: ReportInput): ReportModel {
   const { trace, track } = reference;
   const count = trace.count;
   const g = 1 / STANDARD_GRAVITY_MPS2;
+  const units = input.units ?? displayUnits('metric');
+  const speedFactor = units.speed(1);
   const xM = input.linePositions?.xM ?? track.xM;
   const yM = input.linePositions?.yM ?? track.yM;
   requireLength('line positions', xM, count);
   requireLength('line positions', yM, count);
   const referenceChannels: LapChannels = {
-    speedKph: scaled(trace.speedMps, mpsToKph(1)),
+    speedShown: scaled(trace.speedMps, speedFactor),
     throttlePct: scaled(trace.throttle, 100),
     brakePct: scaled(trace.brake, 100),
     gripUsePct: scaled(trace.gripUse, 100),
@@ -134,7 +144,7 @@ export function reportModel(input: ReportInput): ReportModel {
       requireLength(name, values, count);
     }
     driver = {
-      speedKph: scaled(lap.speedMps, mpsToKph(1)),
+      speedShown: scaled(lap.speedMps, speedFactor),
       throttlePct: lap.throttle ? scaled(lap.throttle, 100) : null,
       brakePct: lap.brake ? scaled(lap.brake, 100) : null,
       gripUsePct: scaled(result.driverGripUse, 100),
@@ -156,17 +166,18 @@ export function reportModel(input: ReportInput): ReportModel {
   }
   return {
     input,
+    units,
     lengthM: track.lengthM,
     closed: track.closed,
     stationM: trace.stationM,
     reference: referenceChannels,
     driver,
-    other: driver ? otherChannels(input, count) : null,
+    other: driver ? otherChannels(input, count, speedFactor) : null,
     corners,
   };
 }
 
-function otherChannels(input: ReportInput, count: number): ReportModel['other'] {
+function otherChannels(input: ReportInput, count: number, speedFactor: number): ReportModel['other'] {
   const against = input.against;
   if (!against) return null;
   const lap = against.other;
@@ -179,7 +190,7 @@ function otherChannels(input: ReportInput, count: number): ReportModel['other'] 
     requireLength(name, values, count);
   return {
     label: against.result.label,
-    speedKph: scaled(lap.speedMps, mpsToKph(1)),
+    speedShown: scaled(lap.speedMps, speedFactor),
     throttlePct: lap.throttle ? scaled(lap.throttle, 100) : null,
     brakePct: lap.brake ? scaled(lap.brake, 100) : null,
     axG: scaled(lap.axMps2, 1 / STANDARD_GRAVITY_MPS2),
@@ -198,4 +209,16 @@ export function cornerRangeM(corner: ReportCorner, lengthM: number): [number, nu
   const from = Math.max(0, start - margin);
   const to = Math.min(lengthM, end + margin);
   return to - from > 20 ? [from, to] : [Math.max(0, from - 10), Math.min(lengthM, to + 10)];
+}
+
+/** Converters of the comparison's km/h and m figures into the page's units, a missing value kept missing. */
+export function shownUnits(model: ReportModel): {
+  speedOfKph: (kph: number | null | undefined) => number | null;
+  distanceOfM: (m: number | null | undefined) => number | null;
+} {
+  const units = model.units;
+  return {
+    speedOfKph: (kph) => (kph === null || kph === undefined ? null : units.speed(kphToMps(kph))),
+    distanceOfM: (m) => (m === null || m === undefined ? null : units.distance(m)),
+  };
 }

@@ -27,7 +27,6 @@ import { againstFindingsHtml, againstTableHtml } from './against-tables.js';
 import { cornerMultipleCharts, sessionSectionsHtml } from './session-sections.js';
 import { mapPoint, mapProjection, trackMapSvg } from './track-map.js';
 import type { SvgOptions } from './svg-frame.js';
-import { mpsToKph } from '../../units.js';
 import { roundToDigits } from '../../numeric/round.js';
 import { escapeHtml } from './escape.js';
 
@@ -59,7 +58,14 @@ function negated(values: ArrayLike<number>): Float64Array {
 function distanceCharts(model: ReportModel): DistanceChartSpec[] {
   const { reference, driver } = model;
   const track = model.input.reference.track;
-  const base = { stationM: model.stationM, lengthM: model.lengthM, stepM: track.stepM };
+  const units = model.units;
+  const base = {
+    stationM: model.stationM,
+    lengthM: model.lengthM,
+    stepM: track.stepM,
+    distanceLabel: units.distanceLabel,
+    distancePerM: units.distance(1),
+  };
   const refSeries = (values: ArrayLike<number>, label = 'reference'): DistanceSeries => ({
     label,
     colour: PALETTE.reference,
@@ -81,31 +87,31 @@ function distanceCharts(model: ReportModel): DistanceChartSpec[] {
   const charts: DistanceChartSpec[] = [];
 
   const uncertainty = model.input.uncertainty;
-  const kph = (values: Float64Array) => values.map(mpsToKph);
+  const shown = (values: Float64Array) => values.map(units.speed);
   const speedRange = uncertainty
     ? [
         {
-          low: kph(uncertainty.speedMps.low),
-          high: kph(uncertainty.speedMps.high),
+          low: shown(uncertainty.speedMps.low),
+          high: shown(uncertainty.speedMps.high),
           colour: PALETTE.reference,
           label: `reference, 90 % band over ${uncertainty.draws} draws`,
         },
       ]
     : [];
   const [speedMin, speedMax] = range([
-    reference.speedKph,
-    driver?.speedKph,
-    other?.speedKph,
+    reference.speedShown,
+    driver?.speedShown,
+    other?.speedShown,
     ...speedRange.flatMap((r) => [r.low, r.high]),
   ]);
-  const speedSeries = [refSeries(reference.speedKph)];
-  if (driver) speedSeries.push(drvSeries(driver.speedKph));
-  if (other) speedSeries.push(othSeries(other.speedKph));
+  const speedSeries = [refSeries(reference.speedShown)];
+  if (driver) speedSeries.push(drvSeries(driver.speedShown));
+  if (other) speedSeries.push(othSeries(other.speedShown));
   charts.push({
     ...base,
     name: 'speed',
     title: 'Speed',
-    yTitle: 'speed, km/h',
+    yTitle: `speed, ${units.speedLabel}`,
     yDomain: [Math.max(0, paddedDomain(speedMin, speedMax)[0]), paddedDomain(speedMin, speedMax)[1]],
     height: 210,
     series: speedSeries,
@@ -230,7 +236,7 @@ function allCharts(model: ReportModel, options: SvgOptions): ChartSvg[] {
   if (model.other)
     charts.push({ name: 'gain-map.svg', title: 'Gain and loss map', svg: trackMapSvg(model, options, 'gain') });
   const session = model.input.session;
-  const multiples = session ? cornerMultipleCharts(session, options) : [];
+  const multiples = session ? cornerMultipleCharts(session, options, model.units) : [];
   for (const spec of distanceCharts(model))
     charts.push({ name: `${spec.name}.svg`, title: spec.title, svg: distanceChartSvg(spec, options) });
   return [...charts, ...multiples];
@@ -256,7 +262,7 @@ function lapSeries(
   indices: number[],
 ): Record<string, number[] | null> {
   return {
-    [`v${who}`]: rounded(lap?.speedKph, indices, 1),
+    [`v${who}`]: rounded(lap?.speedShown, indices, 1),
     [`t${who}`]: rounded(lap?.throttlePct, indices, 0),
     [`b${who}`]: rounded(lap?.brakePct, indices, 0),
     ...(who === 'O' ? {} : { [`g${who}`]: rounded(lap?.gripUsePct, indices, 0) }),
@@ -279,9 +285,17 @@ function pageData(model: ReportModel): unknown {
   const { reference: r, driver: d, other: o } = model;
   const band = model.input.uncertainty?.speedMps;
   const { frame } = ggFrame(model);
+  const units = model.units;
+  const distance = units.distance(1);
   return {
-    lengthM: model.lengthM,
-    d: rounded(model.stationM, indices, 1),
+    // Distances along the lap in the page's unit, so the axes, the zoom and the read-out share one scale.
+    length: model.lengthM * distance,
+    d: rounded(
+      model.stationM.map((m) => m * distance),
+      indices,
+      1,
+    ),
+    labels: { distance: units.distanceLabel, speed: units.speedLabel },
     mapX,
     mapY,
     gg: {
@@ -295,15 +309,15 @@ function pageData(model: ReportModel): unknown {
       dt: rounded(d?.deltaS, indices, 3),
       ...lapSeries('O', o, indices),
       dtO: rounded(o?.driverDeltaS, indices, 3),
-      vLo: rounded(band ? band.low.map(mpsToKph) : null, indices, 1),
-      vHi: rounded(band ? band.high.map(mpsToKph) : null, indices, 1),
+      vLo: rounded(band ? band.low.map(units.speed) : null, indices, 1),
+      vHi: rounded(band ? band.high.map(units.speed) : null, indices, 1),
     },
     corners: model.corners.map((corner) => {
       const [from, to] = cornerRangeM(corner, model.lengthM);
       return {
         id: corner.id,
-        from: Math.round(from),
-        to: Math.round(to),
+        from: Math.round(from * distance),
+        to: Math.round(to * distance),
         label: corner.name ? `corner ${corner.id}: ${corner.name}` : `corner ${corner.id}`,
       };
     }),
@@ -348,8 +362,8 @@ export function lapReportHtml(input: ReportInput): string {
     ? `${session.overview.source}: ${session.overview.laps.length} laps; the best lap against the reference lap of the ${reference.envelopeKind} model`
     : input.comparison
       ? `${input.comparison.driver.source}, lap ${input.comparison.driver.lapNumber}, against ${other ? `${other.label} and ` : ''}the reference lap of the ${reference.envelopeKind} model`
-      : `Reference lap of the ${reference.envelopeKind} model, grid step ${reference.track.stepM.toFixed(2)} m`;
-  const main = `${session ? sessionSectionsHtml(session) + summaryHtml(model) : ''}<section class="overview">
+      : `Reference lap of the ${reference.envelopeKind} model, grid step ${model.units.distance(reference.track.stepM).toFixed(2)} ${model.units.distanceLabel}`;
+  const main = `${session ? sessionSectionsHtml(session, model.units) + summaryHtml(model) : ''}<section class="overview">
 <div class="panel">${mapSvg!.svg}</div>
 ${gainSvg ? `<div class="panel">${gainSvg.svg}</div>` : ''}
 <div class="panel">${ggSvg!.svg}</div>
@@ -360,15 +374,16 @@ ${distanceSvgs.map((chart) => chart.svg).join('\n')}
 </section>
 ${model.other ? `<section class="panel">${againstTableHtml(model)}</section>\n<section class="panel">${againstFindingsHtml(model)}</section>\n` : ''}<section class="panel">${cornerTableHtml(model)}</section>
 ${input.comparison ? `<section class="panel">${findingsHtml(model)}</section>` : ''}`;
-  const hoverStepM = (Math.max(1, Math.ceil(reference.trace.count / MAX_HOVER_POINTS)) * reference.track.stepM).toFixed(
-    1,
-  );
+  const hoverStep = model.units
+    .distance(Math.max(1, Math.ceil(reference.trace.count / MAX_HOVER_POINTS)) * reference.track.stepM)
+    .toFixed(1);
+  const drawStep = Number(model.units.distance(DRAW_BUCKET_M).toPrecision(2));
   return htmlPage({
     title,
     subtitle,
     header: session ? '' : summaryHtml(model),
     main,
-    footerNote: `Made by reflap. Charts are drawn about one point per ${DRAW_BUCKET_M} m; hover values every ${hoverStepM} m. Colours: Okabe–Ito palette, chosen to stay readable for colour-blind readers.`,
+    footerNote: `Made by reflap. Charts are drawn about one point per ${drawStep} ${model.units.distanceLabel}; hover values every ${hoverStep} ${model.units.distanceLabel}. Colours: Okabe–Ito palette, chosen to stay readable for colour-blind readers.`,
     data: { id: 'lap-data', value: pageData(model) },
     script: clientScript(),
   });

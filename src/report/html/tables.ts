@@ -1,9 +1,9 @@
 // The report's HTML tables and lists: the lap summary, the per-corner table (or the reference's braking
 // zones when there is no driver) and the ranked findings. All input text goes through escapeHtml.
 
-import { formatLapTime, mpsToKph } from '../../units.js';
+import { formatLapTime } from '../../units.js';
 import { escapeHtml } from './escape.js';
-import type { ReportModel } from './model.js';
+import { shownUnits, type ReportModel } from './model.js';
 import { againstTilesHtml } from './against-tables.js';
 import { cornerCell, fixed, signed, tile } from './cells.js';
 
@@ -40,12 +40,13 @@ export function summaryHtml(model: ReportModel): string {
     );
   }
   tiles.push(againstTilesHtml(model));
-  tiles.push(tile('Top speed', `${mpsToKph(reference.maxSpeedMps).toFixed(1)} km/h`, 'reference'));
-  tiles.push(tile('Lowest speed', `${mpsToKph(reference.minSpeedMps).toFixed(1)} km/h`, 'reference'));
+  const units = model.units;
+  tiles.push(tile('Top speed', `${units.speed(reference.maxSpeedMps).toFixed(1)} ${units.speedLabel}`, 'reference'));
+  tiles.push(tile('Lowest speed', `${units.speed(reference.minSpeedMps).toFixed(1)} ${units.speedLabel}`, 'reference'));
   tiles.push(
     tile(
       'Length',
-      `${(reference.lengthM / 1000).toFixed(3)} km`,
+      `${units.length(reference.lengthM).toFixed(3)} ${units.lengthLabel}`,
       reference.track.closed ? 'closed circuit' : 'open stage',
     ),
   );
@@ -60,46 +61,51 @@ export function cornerTableHtml(model: ReportModel): string {
     const share = uncertainty?.corners[index]?.holds;
     return share === null || share === undefined ? '–' : `${Math.round(share * 100)} %`;
   };
+  const { speedOfKph: v, distanceOfM: m } = shownUnits(model);
   const rows = comparison.result.corners
     .map(
       (c, index) =>
         `<tr class="corner-row" data-corner="${c.id}" tabindex="0">${cornerCell(c.id, c.name)}` +
-        `<td>${fixed(c.entryM, 0)}–${fixed(c.exitM, 0)}</td>` +
-        `<td>${signed(c.brakingPointDeltaM, 0)}</td>` +
-        `<td>${fixed(c.entrySpeedDriverKph, 1)} / ${fixed(c.entrySpeedReferenceKph, 1)}</td>` +
-        `<td>${fixed(c.minSpeedDriverKph, 1)} / ${fixed(c.minSpeedReferenceKph, 1)}</td>` +
-        `<td>${signed(c.minSpeedDeltaKph, 1)}</td>` +
-        `<td>${signed(c.minSpeedOffsetFromApexM, 0)}</td>` +
-        `<td>${fixed(c.exitSpeedDriverKph, 1)} / ${fixed(c.exitSpeedReferenceKph, 1)}</td>` +
+        `<td>${fixed(m(c.entryM), 0)}–${fixed(m(c.exitM), 0)}</td>` +
+        `<td>${signed(m(c.brakingPointDeltaM), 0)}</td>` +
+        `<td>${fixed(v(c.entrySpeedDriverKph), 1)} / ${fixed(v(c.entrySpeedReferenceKph), 1)}</td>` +
+        `<td>${fixed(v(c.minSpeedDriverKph), 1)} / ${fixed(v(c.minSpeedReferenceKph), 1)}</td>` +
+        `<td>${signed(v(c.minSpeedDeltaKph), 1)}</td>` +
+        `<td>${signed(m(c.minSpeedOffsetFromApexM), 0)}</td>` +
+        `<td>${fixed(v(c.exitSpeedDriverKph), 1)} / ${fixed(v(c.exitSpeedReferenceKph), 1)}</td>` +
         `<td>${signed(c.entryTimeLostS, 2)} / ${signed(c.middleTimeLostS, 2)} / ${signed(c.exitTimeLostS, 2)}</td>` +
         `<td class="strong">${signed(c.timeLostS, 2)}</td>` +
         `<td>${fixed(c.coastingS, 2)}</td>` +
         `<td>${fixed(c.peakGripUse * 100, 0)}</td>${uncertainty ? `<td>${holds(index)}</td>` : ''}</tr>`,
     )
     .join('');
+  const { speedLabel: sl, distanceLabel: dl } = model.units;
   return (
     `<section class="corners"><h2>Corner by corner</h2><p class="hint">Driver / reference. Time lost is positive where the driver is slower. Click a row to zoom every chart to that corner.${uncertainty ? ` The last column is the share of the ${uncertainty.draws} draws of the car's uncertain values in which the corner's finding holds.` : ''}</p>` +
-    `<div class="table-wrap"><table><thead><tr><th>corner</th><th>entry–exit, m</th><th>brake point Δ, m</th><th>entry, km/h</th><th>slowest, km/h</th><th>slowest Δ, km/h</th>` +
-    `<th>slowest after apex, m</th><th>exit, km/h</th><th>lost in entry / middle / exit, s</th><th>lost, s</th><th>coasting, s</th><th>peak grip, %</th>${uncertainty ? '<th>finding holds in</th>' : ''}</tr></thead>` +
+    `<div class="table-wrap"><table><thead><tr><th>corner</th><th>entry–exit, ${dl}</th><th>brake point Δ, ${dl}</th><th>entry, ${sl}</th><th>slowest, ${sl}</th><th>slowest Δ, ${sl}</th>` +
+    `<th>slowest after apex, ${dl}</th><th>exit, ${sl}</th><th>lost in entry / middle / exit, s</th><th>lost, s</th><th>coasting, s</th><th>peak grip, %</th>${uncertainty ? '<th>finding holds in</th>' : ''}</tr></thead>` +
     `<tbody>${rows}</tbody></table></div></section>`
   );
 }
 
 function brakingZoneTableHtml(model: ReportModel): string {
   const zones = model.input.reference.brakingZones;
+  const { distanceOfM: m } = shownUnits(model);
+  const speed = (speedMps: number) => model.units.speed(speedMps);
   const rows = zones
     .map((zone) => {
-      const before = zone.beforeTurnInM === null ? '' : fixed(zone.beforeTurnInM, 0);
+      const before = zone.beforeTurnInM === null ? '' : fixed(m(zone.beforeTurnInM), 0);
       return (
         `<tr class="corner-row" data-corner="${zone.corner}" tabindex="0">${cornerCell(zone.tag, zone.cornerName)}` +
-        `<td>${fixed(zone.startM, 0)}</td><td>${before}</td><td>${fixed(mpsToKph(zone.entrySpeedMps), 1)}</td><td>${fixed(zone.brakingLengthM, 0)}</td>` +
-        `<td>${fixed(zone.minSpeedAtM, 0)}</td><td>${fixed(mpsToKph(zone.minSpeedMps), 1)}</td></tr>`
+        `<td>${fixed(m(zone.startM), 0)}</td><td>${before}</td><td>${fixed(speed(zone.entrySpeedMps), 1)}</td><td>${fixed(m(zone.brakingLengthM), 0)}</td>` +
+        `<td>${fixed(m(zone.minSpeedAtM), 0)}</td><td>${fixed(speed(zone.minSpeedMps), 1)}</td></tr>`
       );
     })
     .join('');
+  const { speedLabel: sl, distanceLabel: dl } = model.units;
   return (
     `<section class="corners"><h2>Braking zones of the reference</h2><p class="hint">Click a row to zoom every chart to that zone.</p>` +
-    `<div class="table-wrap"><table><thead><tr><th>corner</th><th>brakes at, m</th><th>before turn-in, m</th><th>entry, km/h</th><th>braking, m</th><th>slowest at, m</th><th>slowest, km/h</th></tr></thead>` +
+    `<div class="table-wrap"><table><thead><tr><th>corner</th><th>brakes at, ${dl}</th><th>before turn-in, ${dl}</th><th>entry, ${sl}</th><th>braking, ${dl}</th><th>slowest at, ${dl}</th><th>slowest, ${sl}</th></tr></thead>` +
     `<tbody>${rows}</tbody></table></div></section>`
   );
 }

@@ -7,6 +7,7 @@ import { coord } from './scale.js';
 import { legendRow, svgElement, type LegendItem, type SvgOptions } from './svg-frame.js';
 import { GRIP_CLASS_COLOUR, GRIP_CLASS_LABEL, gripClass, PALETTE, type GripClass } from './palette.js';
 import type { ReportModel } from './model.js';
+import type { DisplayUnits } from '../units.js';
 
 export const MAP_WIDTH = 520;
 export const MAP_HEIGHT = 440;
@@ -231,8 +232,9 @@ export function trackMapSvg(model: ReportModel, options: SvgOptions, colouring: 
       `<text x="${coord(cx)}" y="${coord(cy)}" dy="0.35em" text-anchor="middle" font-size="10" font-weight="600">${corner.id}</text></g>`;
   }
   body += `<circle class="map-dot" cx="0" cy="0" r="5.5" fill="#111" stroke="#fff" stroke-width="2" visibility="hidden"/>`;
-  body += `<text x="14" y="${MAP_HEIGHT - 10}" fill="${PALETTE.axis}">${escapeHtml(scaleBarLabel(map.pxPerM))}</text>`;
-  body += scaleBar(map.pxPerM);
+  const bar = scaleBarOf(map.pxPerM, model.units);
+  body += `<text x="14" y="${MAP_HEIGHT - 10}" fill="${PALETTE.axis}">${escapeHtml(bar.label)}</text>`;
+  body += scaleBar(bar.widthPx);
   return svgElement(
     other ? 'map-gain' : 'map',
     MAP_WIDTH,
@@ -244,18 +246,16 @@ export function trackMapSvg(model: ReportModel, options: SvgOptions, colouring: 
   );
 }
 
-function scaleBarLengthM(pxPerM: number): number {
-  const target = 90 / pxPerM;
+/** A round length (1, 2 or 5 times a power of ten, in the page's distance unit) that is at most about 90 px. */
+export function scaleBarOf(pxPerM: number, units: DisplayUnits): { label: string; widthPx: number } {
+  const perUnit = units.distance(1);
+  const target = (90 / pxPerM) * perUnit;
   const power = 10 ** Math.floor(Math.log10(target));
-  return [5, 2, 1].map((m) => m * power).find((m) => m <= target) ?? power;
+  const length = [5, 2, 1].map((m) => m * power).find((m) => m <= target) ?? power;
+  return { label: `${length} ${units.distanceLabel}`, widthPx: (length / perUnit) * pxPerM };
 }
 
-function scaleBarLabel(pxPerM: number): string {
-  return `${scaleBarLengthM(pxPerM)} m`;
-}
-
-function scaleBar(pxPerM: number): string {
-  const width = scaleBarLengthM(pxPerM) * pxPerM;
+function scaleBar(width: number): string {
   const y = MAP_HEIGHT - 24;
   return `<path d="M14,${y - 4}V${y}H${coord(14 + width)}V${y - 4}" fill="none" stroke="${PALETTE.axis}" stroke-width="1.5"/>`;
 }

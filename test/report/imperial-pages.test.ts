@@ -1,0 +1,188 @@
+// --units imperial in every report page and in the CSVs a person reads: mph and feet in axes, tables, tiles, the
+// read-out and the map's scale bar, the unit in every header, and the numbers converted. Every imperial figure is
+// checked against the metric run of the same command through the exact definitions 1 mph = 0.44704 m/s and
+// 1 ft = 0.3048 m (NIST SP 811, appendix B), never against the program's own imperial output.
+
+import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { runCli } from '../helpers/cli.js';
+import { scaleBarOf } from '../../src/report/html/track-map.js';
+import { displayUnits } from '../../src/report/units.js';
+
+const MPS_PER_MPH = 0.44704; // NIST SP 811, appendix B (exact)
+const M_PER_FT = 0.3048; // NIST SP 811, appendix B (exact)
+const kphToMph = (kph: number) => kph / 3.6 / MPS_PER_MPH;
+
+const gt = ['--track', 'tracks/velmora-downs.json', '--car', 'cars/tarnfell-gt.json'];
+const club = ['--track', 'tracks/tarnwick-club.json', '--car', 'cars/brackle-club.json'];
+let folder: string;
+let log: string;
+
+beforeAll(() => {
+  folder = mkdtempSync(path.join(tmpdir(), 'reflap-imperial-'));
+  // The demo's invented session is the driver's log of the comparison pages.
+  expect(runCli(['demo', '--out', path.join(folder, 'demo')]).code).toBe(0);
+  log = path.join(folder, 'demo', 'demo-lap.csv');
+});
+afterAll(() => rmSync(folder, { recursive: true, force: true }));
+
+/** Runs a command twice, metric and imperial, each writing FILE (the name given); returns both files' text. */
+function both(args: string[], flag: '--html' | '--out', name: string): { metric: string; imperial: string } {
+  const run = (units: string) => {
+    const file = path.join(folder, `${units}-${name}`);
+    const result = runCli([...args, flag, file, '--units', units]);
+    expect(result.code, result.stderr).toBe(0);
+    return file;
+  };
+  return { metric: readFileSync(run('metric'), 'utf8'), imperial: readFileSync(run('imperial'), 'utf8') };
+}
+
+function csvColumns(text: string): Record<string, number[]> {
+  const [header, ...lines] = text.trim().split('\n');
+  const names = header!.split(',');
+  const columns: Record<string, number[]> = Object.fromEntries(names.map((name) => [name, []]));
+  for (const line of lines) line.split(',').forEach((cell, k) => columns[names[k]!]!.push(Number(cell)));
+  return columns;
+}
+
+function pageData(html: string): {
+  length: number;
+  d: number[];
+  labels: { distance: string; speed: string };
+  series: Record<string, number[] | null>;
+} {
+  return JSON.parse(/<script type="application\/json" id="lap-data">([\s\S]*?)<\/script>/.exec(html)![1]!);
+}
+
+/** The page without its script and data: what a reader sees. */
+const visible = (html: string) => html.replace(/<script[\s\S]*?<\/script>/g, '');
+/** Each place a pattern occurs, with a little text either side (short failure messages on long pages). */
+const placesOf = (html: string, pattern: RegExp) =>
+  [...html.matchAll(new RegExp(pattern.source, 'g'))].map((m) => html.slice(Math.max(0, m.index - 60), m.index + 20));
+
+describe('CSVs a person reads', () => {
+  it('the trace CSV has feet and mph columns, each converted from the metric trace', () => {
+    const { metric, imperial } = both(['simulate', ...gt], '--out', 'trace.csv');
+    const m = csvColumns(metric);
+    const i = csvColumns(imperial);
+    const names = Object.keys(i);
+    expect(names).toEqual(expect.arrayContaining(['distance_ft', 'speed_mph', 'time_s', 'x_ft', 'y_ft']));
+    // No metre or km/h column is left, and the speed is written once.
+    expect(names.filter((name) => /_(m|kph|mps)$/.test(name))).toEqual([]);
+    expect(names.filter((name) => name.startsWith('speed_'))).toEqual(['speed_mph']);
+    expect(i.distance_ft!.length).toBe(m.distance_m!.length);
+    for (let k = 0; k < m.distance_m!.length; k += 97) {
+      expect(i.distance_ft![k]!).toBeCloseTo(m.distance_m![k]! / M_PER_FT, 2);
+      expect(i.speed_mph![k]!).toBeCloseTo(m.speed_mps![k]! / MPS_PER_MPH, 3);
+      expect(i.time_s![k]).toBe(m.time_s![k]);
+    }
+  });
+
+  it('the aligned compare CSV has station_ft and every speed in mph', () => {
+    const args = ['compare', ...gt, '--telemetry', log];
+    const metricOut = path.join(folder, 'aligned-metric');
+    const imperialOut = path.join(folder, 'aligned-imperial');
+    expect(runCli([...args, '--out', metricOut]).code).toBe(0);
+    expect(runCli([...args, '--out', imperialOut, '--units', 'imperial']).code).toBe(0);
+    const m = csvColumns(readFileSync(path.join(metricOut, 'aligned.csv'), 'utf8'));
+    const i = csvColumns(readFileSync(path.join(imperialOut, 'aligned.csv'), 'utf8'));
+    expect(Object.keys(i)).toEqual(
+      expect.arrayContaining(['station_ft', 'speed_driver_mph', 'speed_reference_mph', 'delta_s']),
+    );
+    expect(Object.keys(i).filter((name) => /_(m|kph|mps)$/.test(name))).toEqual([]);
+    for (let k = 0; k < m.station_m!.length; k += 113) {
+      expect(i.station_ft![k]!).toBeCloseTo(m.station_m![k]! / M_PER_FT, 1);
+      // km/h written to 0.01, so the converted value agrees within 0.01 mph.
+      expect(Math.abs(i.speed_driver_mph![k]! - kphToMph(m.speed_driver_kph![k]!))).toBeLessThan(0.011);
+      expect(i.delta_s![k]).toBe(m.delta_s![k]);
+    }
+  });
+});
+
+describe('report pages', () => {
+  it('the reference lap page: axes, tiles, table, read-out and data in mph and feet, no km/h', () => {
+    const { metric, imperial } = both(['simulate', ...gt], '--html', 'reference.html');
+    expect(placesOf(imperial, /km\/h/)).toEqual([]);
+    expect(imperial).toContain('speed, mph');
+    expect(imperial).toContain('distance, ft');
+    expect(imperial).toMatch(/<th>brakes at, ft<\/th>/);
+    const tile = (html: string, label: string) =>
+      Number(new RegExp(`${label}</div><div class="tile-value">([\\d.]+)`).exec(html)![1]);
+    // Tiles to 0.1: the converted metric figure within half a step of each rounding.
+    expect(Math.abs(tile(imperial, 'Top speed') - kphToMph(tile(metric, 'Top speed')))).toBeLessThan(0.09);
+    // Length in miles: 1 mi = 1609.344 m (NIST SP 811, appendix B).
+    expect(tile(imperial, 'Length')).toBeCloseTo((tile(metric, 'Length') * 1000) / 1609.344, 2);
+    const m = pageData(metric);
+    const i = pageData(imperial);
+    expect(i.labels).toEqual({ distance: 'ft', speed: 'mph' });
+    expect(i.length).toBeCloseTo(m.length / M_PER_FT, 6);
+    for (let k = 0; k < m.d.length; k += 101) {
+      expect(Math.abs(i.d[k]! - m.d[k]! / M_PER_FT)).toBeLessThan(0.5);
+      expect(Math.abs(i.series.vR![k]! - kphToMph(m.series.vR![k]!))).toBeLessThan(0.1);
+    }
+    // The first braking zone's entry speed, to 0.1 in each unit.
+    const entry = (html: string) =>
+      Number(/<tr class="corner-row"[^>]*>.*?<\/td><td>[^<]*<\/td><td>[^<]*<\/td><td>([\d.]+)<\/td>/.exec(html)![1]);
+    expect(Math.abs(entry(imperial) - kphToMph(entry(metric)))).toBeLessThan(0.1);
+  });
+
+  it('the driver and session pages: every table header, axis and tile in mph and feet', () => {
+    for (const args of [
+      ['compare', ...gt, '--telemetry', log],
+      ['session', ...gt, '--telemetry', log],
+    ]) {
+      const { imperial } = both(args, '--html', `${args[0]}.html`);
+      // Findings and notes are the comparison's and the envelope fit's own sentences, written in km/h where they
+      // name a speed; everything else the page draws is checked.
+      const drawn = visible(imperial)
+        .replace(/<section class="findings">[\s\S]*?<\/section>/g, '')
+        .replace(/<ul class="notes">[\s\S]*?<\/ul>/g, '');
+      const headers = [...drawn.matchAll(/<th>([^<]*)<\/th>/g)].map((m) => m[1]!);
+      expect(headers.filter((h) => /km\/h|, m$|, m\b/.test(h))).toEqual([]);
+      expect(headers).toEqual(expect.arrayContaining(['slowest, mph', 'brake point Δ, ft']));
+      expect(placesOf(drawn, /km\/h/)).toEqual([]);
+      expect(drawn).toMatch(/envelope at [\d, ]+ mph/);
+    }
+  });
+
+  it('the what-if, sweep, car and budget pages show mph and feet', () => {
+    const whatif = both(['whatif', ...club, '--set', 'massKg=+20'], '--html', 'whatif.html');
+    expect(whatif.imperial).toContain('shift, ft (− = earlier)');
+    expect(whatif.imperial).toContain('<th>braking point shift, ft</th>');
+    const sweep = both(['sweep', ...club, '--vary', 'massKg=600:640:20', '--workers', '1'], '--html', 'sweep.html');
+    expect(sweep.imperial).toContain('shift from baseline, ft');
+    expect(sweep.imperial).toMatch(/track [\d.]+ mi at a [\d.]+ ft step/);
+    const car = both(['car', '--car', 'cars/brackle-club.json'], '--html', 'car.html');
+    expect(car.imperial).toMatch(/\d+ mph/);
+    const budget = both(
+      ['budget', '--car', 'cars/brackle-club.json', '--speed-kph', '80', '--radius-m', '60'],
+      '--html',
+      'budget.html',
+    );
+    for (const page of [whatif, sweep, car, budget])
+      expect(placesOf(visible(page.imperial), /km\/h|, m\b| m step/)).toEqual([]);
+    // The what-if table's shifts: the metric metres converted to feet, each to 0.1.
+    const shifts = (html: string) =>
+      [...html.matchAll(/<td class="strong">([+−-][\d.]+)<\/td>/g)].map((m) => Number(m[1]!.replace('−', '-')));
+    const metricShifts = shifts(whatif.metric);
+    expect(metricShifts.length).toBeGreaterThan(2);
+    shifts(whatif.imperial).forEach((feet, k) =>
+      expect(Math.abs(feet - metricShifts[k]! / M_PER_FT)).toBeLessThan(0.05 + 0.05 / M_PER_FT),
+    );
+  });
+});
+
+describe('the map scale bar', () => {
+  it('is a round number of feet whose drawn width is that many feet at the map scale', () => {
+    const pxPerM = 0.37;
+    const bar = scaleBarOf(pxPerM, displayUnits('imperial'));
+    const feet = Number(bar.label.replace(' ft', ''));
+    // 1, 2 or 5 times a power of ten (common practice for scale bars), at most about 90 px.
+    expect(feet / 10 ** Math.floor(Math.log10(feet))).toSatisfy((lead: number) => [1, 2, 5].includes(lead));
+    expect(bar.widthPx).toBeCloseTo(feet * M_PER_FT * pxPerM, 9);
+    expect(bar.widthPx).toBeLessThanOrEqual(90);
+    expect(bar.widthPx).toBeGreaterThan(90 / 2.5);
+  });
+});
