@@ -13,6 +13,7 @@ export interface DriveForceTable {
 
 const TABLE_STEP_MPS = 0.1;
 const TABLE_TOP_MPS = 160;
+const TABLE_COUNT = Math.round(TABLE_TOP_MPS / TABLE_STEP_MPS) + 1;
 
 function torqueAt(rpmValues: number[], torqueValues: number[], rpm: number): number {
   const last = rpmValues.length - 1;
@@ -31,14 +32,35 @@ export function driveForceTable(car: Car, powerFactor: number): DriveForceTable 
   const gearing = car.powertrain.gearing;
   // Below walking pace P / v is unbounded; the tyre limit caps it in the envelope, but keep it finite here.
   const powerForce = (speedMps: number) => powerW / Math.max(speedMps, 1);
-  if (!gearing) {
-    return { forceN: powerForce, gearAt: () => 0 };
-  }
-  const count = Math.round(TABLE_TOP_MPS / TABLE_STEP_MPS) + 1;
-  const force = new Float64Array(count);
-  const gear = new Int8Array(count);
+  const table = gearing ? gearTable(gearing, efficiency, powerFactor, powerForce) : null;
+  // The same two functions with and without gears: the solver's calls through them then see one target whichever
+  // car ran before (two shapes of table make the calls in the hot passes polymorphic, at about a third more time).
+  return {
+    forceN(speedMps) {
+      if (table === null) return powerForce(speedMps);
+      const position = Math.min(Math.max(speedMps, 0), TABLE_TOP_MPS) / TABLE_STEP_MPS;
+      const lo = Math.min(Math.floor(position), TABLE_COUNT - 2);
+      const share = position - lo;
+      return table.force[lo]! + share * (table.force[lo + 1]! - table.force[lo]!);
+    },
+    gearAt(speedMps) {
+      if (table === null) return 0;
+      return table.gear[Math.round(Math.min(Math.max(speedMps, 0), TABLE_TOP_MPS) / TABLE_STEP_MPS)]!;
+    },
+  };
+}
+
+/** The best gear's wheel force at each step of road speed, capped by the power, and that gear. */
+function gearTable(
+  gearing: NonNullable<Car['powertrain']['gearing']>,
+  efficiency: number,
+  powerFactor: number,
+  powerForce: (speedMps: number) => number,
+): { force: Float64Array; gear: Int8Array } {
+  const force = new Float64Array(TABLE_COUNT);
+  const gear = new Int8Array(TABLE_COUNT);
   const radPerSToRpm = 60 / (2 * Math.PI);
-  for (let k = 0; k < count; k++) {
+  for (let k = 0; k < TABLE_COUNT; k++) {
     const speedMps = k * TABLE_STEP_MPS;
     let best = 0;
     let bestGear = 0;
@@ -57,16 +79,5 @@ export function driveForceTable(car: Car, powerFactor: number): DriveForceTable 
     force[k] = Math.min(best * powerFactor, powerForce(speedMps));
     gear[k] = bestGear;
   }
-  return {
-    forceN(speedMps) {
-      const position = Math.min(Math.max(speedMps, 0), TABLE_TOP_MPS) / TABLE_STEP_MPS;
-      const lo = Math.min(Math.floor(position), count - 2);
-      const share = position - lo;
-      return force[lo]! + share * (force[lo + 1]! - force[lo]!);
-    },
-    gearAt(speedMps) {
-      const k = Math.round(Math.min(Math.max(speedMps, 0), TABLE_TOP_MPS) / TABLE_STEP_MPS);
-      return gear[k]!;
-    },
-  };
+  return { force, gear };
 }

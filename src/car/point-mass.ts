@@ -124,11 +124,10 @@ export function pointMassEnvelope(car: Car, ambient: Ambient): Envelope {
     const x = Math.min(upperRoot(a, b - demandPerV2, c - demand0), upperRoot(a, b + demandPerV2, c + demand0));
     if (!(x >= 0) || (loadPerV2 < 0 && load0 + loadPerV2 * x <= 0)) return null;
     // The load floor and the mu floor (linear in x) must hold over [0, x].
-    for (const loadN of [n0, n0 + n1 * x])
-      if (!(loadN >= 0.1 * weightN) || (sensitivity !== 0 && 1 - (sensitivity * (loadN - weightN)) / weightN < 0.2))
-        return null;
-    return x;
+    return withinFloors(n0) && withinFloors(n0 + n1 * x) ? x : null;
   };
+  const withinFloors = (loadN: number) =>
+    loadN >= 0.1 * weightN && (sensitivity === 0 || 1 - (sensitivity * (loadN - weightN)) / weightN >= 0.2);
 
   return {
     kind: 'point-mass',

@@ -20,13 +20,18 @@ const SETTLE_STEPS = 8;
 function settled(squared: number | null | undefined, holds: (speedMps: number) => boolean): number | null {
   if (squared === null || squared === undefined || !(squared < Infinity)) return null;
   let v = Math.sqrt(squared);
-  for (let k = 0; k < SETTLE_STEPS && !holds(v); k++) v -= v * HALF_EPSILON;
+  let held = holds(v);
+  for (let k = 0; k < SETTLE_STEPS && !held; k++) {
+    v -= v * HALF_EPSILON;
+    held = holds(v);
+  }
+  if (!held) return null;
   for (let k = 0; k < SETTLE_STEPS; k++) {
     const up = v + v * HALF_EPSILON;
     if (!holds(up)) break;
     v = up;
   }
-  return holds(v) ? v : null;
+  return v;
 }
 
 /**
@@ -101,6 +106,9 @@ export function roadCornerLimitSpeedMps(envelope: Envelope, road: RoadTerms, i: 
   )
     return cornerLimitSpeedMps(envelope, curvaturePerM);
   const top = envelope.topSpeedMps;
+  // Straight and level across (no curvature, no bank): the tyres are asked for no lateral force at any speed, so
+  // only leaving the ground over a crest can limit the speed (the straights of a hilly lap, most of its samples).
+  if (curvaturePerM === 0 && road.sinBank[i] === 0 && roadLoadFactor(road, i, top * top, 0) > 0) return top;
   const topMargin = roadMargin(envelope, road, i, top, curvaturePerM);
   if (topMargin >= 0) return top;
   const sinBank = road.sinBank[i]!;
@@ -125,6 +133,17 @@ export function roadCornerLimitSpeedMps(envelope: Envelope, road: RoadTerms, i: 
   );
 }
 
+/** Whether samples i and j have the same grade, bank and vertical curvature (every road term the limit reads). */
+function sameRoad(road: RoadTerms, i: number, j: number): boolean {
+  return (
+    road.gravityNormalShare[i] === road.gravityNormalShare[j] &&
+    road.gravityLateralMps2[i] === road.gravityLateralMps2[j] &&
+    road.sinBank[i] === road.sinBank[j] &&
+    road.cosBank[i] === road.cosBank[j] &&
+    road.verticalCurvaturePerM[i] === road.verticalCurvaturePerM[j]
+  );
+}
+
 export function cornerLimitProfile(
   envelope: Envelope,
   curvaturePerM: Float64Array,
@@ -132,8 +151,12 @@ export function cornerLimitProfile(
   road: RoadTerms | null = null,
 ): Float64Array {
   if (road) {
+    // As on flat ground, a sample whose curvature and road are those of the one before has its limit.
     for (let i = 0; i < curvaturePerM.length; i++)
-      out[i] = roadCornerLimitSpeedMps(envelope, road, i, curvaturePerM[i]!);
+      out[i] =
+        i > 0 && curvaturePerM[i] === curvaturePerM[i - 1] && sameRoad(road, i, i - 1)
+          ? out[i - 1]!
+          : roadCornerLimitSpeedMps(envelope, road, i, curvaturePerM[i]!);
     return out;
   }
   // An arc holds one curvature over many samples: its limit is solved once.

@@ -23,7 +23,20 @@ export interface RoadTerms {
   verticalCurvaturePerM: Float64Array;
 }
 
+const computed = new WeakMap<RoadProfile, RoadTerms>();
+
+/** The road terms of a profile, computed once per profile (a track's profile is itself found once per grid), so a
+ * sweep or a line search that solves the same road many times pays for its trigonometry once. */
 export function roadTerms(profile: RoadProfile): RoadTerms {
+  let terms = computed.get(profile);
+  if (!terms) {
+    terms = roadTermsOnce(profile);
+    computed.set(profile, terms);
+  }
+  return terms;
+}
+
+function roadTermsOnce(profile: RoadProfile): RoadTerms {
   const n = profile.gradeRad.length;
   const terms: RoadTerms = {
     gravityAlongMps2: new Float64Array(n),
@@ -59,4 +72,38 @@ export function roadLateralMps2(road: RoadTerms, i: number, v2: number, curvatur
     v2 * (curvaturePerM * road.cosBank[i]! - road.verticalCurvaturePerM[i]! * road.sinBank[i]!) -
     road.gravityLateralMps2[i]!
   );
+}
+
+/** The road along one driven path: its curvature folded into the two speed-squared coefficients of the load and
+ * the lateral force, once per solve, so each step of the passes reads two numbers where it would compute them. */
+export interface PathRoad {
+  road: RoadTerms;
+  /** k sin(bank) + kv cos(bank), 1/m: times v^2 / g, the load the speed adds. */
+  loadPerV2: Float64Array;
+  /** k cos(bank) - kv sin(bank), 1/m: times v^2, the lateral force the speed asks for. */
+  lateralPerV2: Float64Array;
+}
+
+const alongPaths = new WeakMap<Float64Array, PathRoad>();
+
+/** The road along the path of this curvature, computed once per path (a sweep solves the same path many times). */
+export function pathRoad(road: RoadTerms, curvaturePerM: Float64Array): PathRoad {
+  const known = alongPaths.get(curvaturePerM);
+  if (known && known.road === road) return known;
+  const along = pathRoadOnce(road, curvaturePerM);
+  alongPaths.set(curvaturePerM, along);
+  return along;
+}
+
+function pathRoadOnce(road: RoadTerms, curvaturePerM: Float64Array): PathRoad {
+  const n = curvaturePerM.length;
+  const loadPerV2 = new Float64Array(n);
+  const lateralPerV2 = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    const k = curvaturePerM[i]!;
+    // The same products in the same order as roadLoadFactor and roadLateralMps2: the same limits to the last bit.
+    loadPerV2[i] = k * road.sinBank[i]! + road.verticalCurvaturePerM[i]! * road.cosBank[i]!;
+    lateralPerV2[i] = k * road.cosBank[i]! - road.verticalCurvaturePerM[i]! * road.sinBank[i]!;
+  }
+  return { road, loadPerV2, lateralPerV2 };
 }

@@ -6,7 +6,8 @@
 import type { Envelope } from '../car/envelope.js';
 import type { Path } from '../track/types.js';
 import { cornerLimitProfile } from './corner-limit.js';
-import { roadLateralMps2, roadLoadFactor, type RoadTerms } from './road-terms.js';
+import { pathRoad, type PathRoad, type RoadTerms } from './road-terms.js';
+import { STANDARD_GRAVITY_MPS2 as G } from '../units.js';
 
 export interface SpeedProfileOptions {
   /** Speed at the first sample of an open path, m/s (capped by its corner limit). */
@@ -43,7 +44,7 @@ function forwardPass(
   firstSpeedMps: number,
   shiftTimeS: number,
   out: Float64Array,
-  road: RoadTerms | null,
+  road: PathRoad | null,
   shiftOut: Uint8Array,
 ): void {
   const n = limit.length;
@@ -63,8 +64,8 @@ function forwardPass(
     const shifting = shiftLeftS > 0;
     // On a three-dimensional road the tyres carry the road's load and lateral force, and gravity pulls along it.
     const v2 = speed * speed;
-    const lateral = road ? roadLateralMps2(road, i, v2, kappa[i]!) : v2 * kappa[i]!;
-    const load = road ? roadLoadFactor(road, i, v2, kappa[i]!) : 1;
+    const lateral = road ? v2 * road.lateralPerV2[i]! - road.road.gravityLateralMps2[i]! : v2 * kappa[i]!;
+    const load = road ? road.road.gravityNormalShare[i]! + (v2 * road.loadPerV2[i]!) / G : 1;
     if (shifting) {
       // The shift may end part-way through this step: drive for the rest of it.
       const stepTimeS = lengthM / Math.max(speed, 0.5);
@@ -77,7 +78,7 @@ function forwardPass(
     } else {
       accel = envelope.accelLimitMps2(speed, lateral, load);
     }
-    if (road) accel -= road.gravityAlongMps2[i]!;
+    if (road) accel -= road.road.gravityAlongMps2[i]!;
     let next = Math.sqrt(Math.max(0, speed * speed + 2 * accel * lengthM));
     if (next > limit[j]!) next = limit[j]!;
     if (shiftTimeS > 0 && !shifting) {
@@ -103,7 +104,7 @@ function brakeLimitAt(
   envelope: Envelope,
   speed: number,
   curvaturePerM: number,
-  road: RoadTerms | null,
+  road: PathRoad | null,
   h: number,
 ): number {
   const v2 = speed * speed;
@@ -111,9 +112,9 @@ function brakeLimitAt(
   return (
     envelope.brakeLimitMps2(
       speed,
-      roadLateralMps2(road, h, v2, curvaturePerM),
-      roadLoadFactor(road, h, v2, curvaturePerM),
-    ) + road.gravityAlongMps2[h]!
+      v2 * road.lateralPerV2[h]! - road.road.gravityLateralMps2[h]!,
+      road.road.gravityNormalShare[h]! + (v2 * road.loadPerV2[h]!) / G,
+    ) + road.road.gravityAlongMps2[h]!
   );
 }
 
@@ -122,7 +123,7 @@ function brakingEntrySpeedMps(
   exitSpeedMps: number,
   curvaturePerM: number,
   lengthM: number,
-  road: RoadTerms | null,
+  road: PathRoad | null,
   h: number,
 ): number {
   const exitSquared = exitSpeedMps * exitSpeedMps;
@@ -171,7 +172,7 @@ function backwardPass(
   last: number,
   lastSpeedMps: number,
   out: Float64Array,
-  road: RoadTerms | null,
+  road: PathRoad | null,
   shift: Uint8Array,
 ): void {
   const n = limit.length;
@@ -192,7 +193,7 @@ function backwardPass(
     let previous = limit[h]!;
     if (
       speed < previous ||
-      (road && road.gravityAlongMps2[h]! < 0 && brakeLimitAt(envelope, speed, kappa[h]!, road, h) < 0)
+      (road && road.road.gravityAlongMps2[h]! < 0 && brakeLimitAt(envelope, speed, kappa[h]!, road, h) < 0)
     ) {
       previous = brakingEntrySpeedMps(envelope, speed, kappa[h]!, ds[h]!, road, h);
       if (previous > limit[h]!) previous = limit[h]!;
@@ -207,8 +208,8 @@ function backwardPass(
 
 export function solveSpeedProfile(path: Path, envelope: Envelope, options: SpeedProfileOptions): SpeedProfile {
   const n = path.curvaturePerM.length;
-  const road = options.road ?? null;
-  const cornerLimitMps = cornerLimitProfile(envelope, path.curvaturePerM, undefined, road);
+  const cornerLimitMps = cornerLimitProfile(envelope, path.curvaturePerM, undefined, options.road ?? null);
+  const road = options.road ? pathRoad(options.road, path.curvaturePerM) : null;
   const speedMps = new Float64Array(n);
   const shift = new Uint8Array(n);
   if (path.closed) {

@@ -153,9 +153,18 @@ export function trackFromCentreline(points: CentrelinePoints, options: Centrelin
 }
 
 /** The centreline as a Path for the solver: its curvature, and segments of one grid step. */
+const centrelines = new WeakMap<TrackGrid, Path>();
+
 export function centrelinePath(track: TrackGrid): Path {
-  const n = track.curvaturePerM.length;
-  const segments = new Float64Array(track.closed ? n : n - 1);
-  segments.fill(track.stepM);
-  return { closed: track.closed, curvaturePerM: track.curvaturePerM.slice(), segmentLengthM: segments };
+  // One path per grid, like the grid's other derived records: a sweep solving the same track many times reuses it
+  // and what the solver derives from it. Its arrays are read, never written, as every array of a result.
+  let path = centrelines.get(track);
+  if (!path) {
+    const n = track.curvaturePerM.length;
+    const segments = new Float64Array(track.closed ? n : n - 1);
+    segments.fill(track.stepM);
+    path = { closed: track.closed, curvaturePerM: track.curvaturePerM.slice(), segmentLengthM: segments };
+    centrelines.set(track, path);
+  }
+  return path;
 }

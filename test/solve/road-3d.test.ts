@@ -158,6 +158,27 @@ describe('crest', () => {
   });
 });
 
+describe('a straight crest', () => {
+  // No curvature and no bank: the tyres are asked for no lateral force, and only the normal load m (g - v^2 / Rv)
+  // falling to zero at the top limits the speed there, to v = sqrt(g Rv) (circular motion in the vertical plane; any
+  // mechanics textbook). The parabola z = -(s - s0)^2 / (2 Rv) has curvature exactly 1 / Rv at its top.
+  it('holds the car on the road up to sqrt(g Rv) at the top, and to its top speed on the level', () => {
+    const Rv = 60;
+    const lengthM = 200;
+    const straight = openStage([{ kind: 'straight', lengthM }]);
+    const crest = withRoad(straight, (s) => -((s - lengthM / 2) ** 2) / (2 * Rv));
+    const car = testCar({ mu: 1.2, maxPowerW: 2_000_000, dragAreaM2: 0.3 });
+    const lap = simulate(crest, car, { startSpeedMps: 0 });
+    const expected = Math.sqrt(g * Rv);
+    const top = lap.trace.cornerLimitMps[lengthM / 2]!;
+    // The grade at the top is zero to rounding (a central difference of a symmetric parabola), so cos(grade) = 1.
+    expect(Math.abs(top - expected) / expected).toBeLessThan(1e-6);
+    // Level and straight (no heights): nothing but the top speed limits it (the car's, on the same envelope).
+    const level = simulate(straight, car, { startSpeedMps: 0 });
+    expect(level.trace.cornerLimitMps[lengthM / 2]).toBeGreaterThan(2 * expected);
+  });
+});
+
 describe('a flat track', () => {
   it('gives exactly the lap time it gives without heights and banks (the new terms vanish)', () => {
     const track = testCircuit();
