@@ -1,12 +1,18 @@
 // The g-g-v envelope a driver has already shown: per speed band, a high quantile (default the 98th percentile,
-// robust against single spikes) of the combined acceleration in each of four directions (braking, accelerating,
-// left, right: each sample counts for the sector its combined vector points into, by its component along that axis), and the coasting deceleration fitted as c0 + c2 v^2 by least squares where the log has pedals.
-// Where a cell is thin even after borrowing from the next band, the car model's figure fills it, with a note.
+// robust against single spikes) of the acceleration in each of four directions (braking, accelerating, left,
+// right), and the coasting deceleration fitted as c0 + c2 v^2 by least squares where the log has pedals.
+// Every step moves continuously with the log, so that a sample more or less, or a speed a little off, moves the
+// envelope a little: samples weigh in each band by a triangular kernel of their speed (overlapping bands, Wand and
+// Jones, "Kernel Smoothing", 1995) and in each direction by an angular taper across the 45-degree sector
+// boundaries; each cell's quantile is the weighted type 7 quantile (src/numeric/weighted-quantile.ts); and a thin
+// cell leans on the other side, a wider kernel and then the car model by a weight that grows smoothly with its
+// effective sample size instead of switching at a count.
 
 import type { DemonstratedEnvelopeRecord, EnvelopeBand } from '../car/demonstrated-envelope.js';
 import type { Envelope } from '../car/envelope.js';
 import { mpsToKph } from '../units.js';
 import { quantileSorted } from '../numeric/quantile.js';
+import { effectiveSampleSize, weightedQuantileSorted } from '../numeric/weighted-quantile.js';
 
 export type { DemonstratedEnvelopeRecord, EnvelopeBand };
 export type EnvelopeDirection = 'brake' | 'accel' | 'left' | 'right';
@@ -21,11 +27,21 @@ export interface EnvelopeSamples {
 
 export interface EnvelopeFitOptions {
   quantile: number;
+  /** Spacing of the band centres, m/s. */
   bandWidthMps: number;
-  /** Cells with fewer samples borrow from the neighbouring bands until they have this many. */
+  /**
+   * Effective samples (Kish) at which a cell stands on its own data; below a third of this it borrows entirely,
+   * and in between the weight of its own figure rises smoothly (a smoothstep).
+   */
   minSamples: number;
   /** Samples slower than this are left out (standing, pit lane), m/s. */
   minSpeedMps: number;
+  /** Half-width of the triangular speed kernel of a band, in bands (1: each sample's weights sum to one). */
+  kernelBands: number;
+  /** Half-width of the wider speed kernel a thin cell borrows from, in bands. */
+  poolBands: number;
+  /** Half-width of the angular taper across each 45-degree sector boundary, degrees. */
+  sectorTaperDeg: number;
 }
 
 export const DEFAULT_ENVELOPE_FIT: EnvelopeFitOptions = {
@@ -33,6 +49,9 @@ export const DEFAULT_ENVELOPE_FIT: EnvelopeFitOptions = {
   bandWidthMps: 2.5,
   minSamples: 30,
   minSpeedMps: 5,
+  kernelBands: 1,
+  poolBands: 3,
+  sectorTaperDeg: 10,
 };
 
 /** Coasting deceleration used when the log has no coasting samples: rolling resistance about 0.013 g plus drag of
@@ -40,11 +59,28 @@ export const DEFAULT_ENVELOPE_FIT: EnvelopeFitOptions = {
 export const FALLBACK_COAST = { constantMps2: 0.13, quadraticPerM: 0.0003 };
 
 const DIRECTIONS: EnvelopeDirection[] = ['brake', 'accel', 'left', 'right'];
+/** Axis of each direction's sector, rad from straight ahead, positive to the left. */
+const AXIS_RAD = [Math.PI, 0, Math.PI / 2, -Math.PI / 2];
 
 /** Sector of an acceleration vector: within 45 degrees of straight back, ahead, left or right. */
 export function directionOf(axMps2: number, ayMps2: number): EnvelopeDirection {
   if (Math.abs(axMps2) >= Math.abs(ayMps2)) return axMps2 < 0 ? 'brake' : 'accel';
   return ayMps2 > 0 ? 'left' : 'right';
+}
+
+/**
+ * Weight of an acceleration vector in each direction's sector (into `out`): 1 well inside a sector, falling
+ * linearly to 0 across the taper around each 45-degree boundary, so the two sectors' weights always sum to one.
+ */
+export function sectorWeights(axMps2: number, ayMps2: number, taperRad: number, out: Float64Array): Float64Array {
+  const angle = Math.atan2(ayMps2, axMps2);
+  for (let d = 0; d < 4; d++) {
+    let off = Math.abs(angle - AXIS_RAD[d]!);
+    if (off > Math.PI) off = 2 * Math.PI - off;
+    out[d] = taperRad > 0 ? Math.min(1, Math.max(0, (Math.PI / 4 + taperRad - off) / (2 * taperRad))) : 0;
+  }
+  if (!(taperRad > 0)) out[DIRECTIONS.indexOf(directionOf(axMps2, ayMps2))] = 1;
+  return out;
 }
 
 export class EnvelopeFitError extends Error {}
@@ -58,9 +94,109 @@ function modelLimitMps2(model: Envelope, direction: number, speedMps: number): n
 
 const DIRECTION_WORDS = ['braking', 'acceleration', 'left turns', 'right turns'];
 
+/** Weighted values of one cell (a band and a direction). */
+interface Cell {
+  values: number[];
+  weights: number[];
+}
+
+/** A cell's quantile and effective sample size, and their figures for several cells merged (the two sides). */
+function cellQuantile(cells: Cell[], q: number): { value: number; effective: number } {
+  const values: number[] = [];
+  const weights: number[] = [];
+  for (const cell of cells) {
+    for (let i = 0; i < cell.values.length; i++) {
+      if (cell.weights[i]! <= 0) continue;
+      values.push(cell.values[i]!);
+      weights.push(cell.weights[i]!);
+    }
+  }
+  const order = Array.from(values.keys()).sort((a, b) => values[a]! - values[b]!);
+  const sortedValues = Float64Array.from(order, (i) => values[i]!);
+  const sortedWeights = Float64Array.from(order, (i) => weights[i]!);
+  return { value: weightedQuantileSorted(sortedValues, sortedWeights, q), effective: effectiveSampleSize(weights) };
+}
+
 /**
- * `carModel`: the envelope a thin cell falls back to (a cell with too few samples in its own band and the next
- * ones); without it, thin cells pool ever further bands, and a direction with too few samples in all is an error.
+ * The cells of every band under a triangular speed kernel of the given half-width around each band centre (an
+ * infinite half-width: every sample at full weight in one band) and each sample's sector weights.
+ */
+function collectCells(
+  samples: MovingSamples,
+  bandCount: number,
+  options: EnvelopeFitOptions,
+  halfWidthBands: number,
+): Cell[][] {
+  const cells: Cell[][] = Array.from({ length: bandCount }, () =>
+    DIRECTIONS.map(() => ({ values: [] as number[], weights: [] as number[] })),
+  );
+  const width = options.bandWidthMps;
+  for (let i = 0; i < samples.speedMps.length; i++) {
+    const v = samples.speedMps[i]!;
+    const position = v / width - 0.5;
+    const first = Number.isFinite(halfWidthBands) ? Math.max(0, Math.ceil(position - halfWidthBands)) : 0;
+    const last = Number.isFinite(halfWidthBands)
+      ? Math.min(bandCount - 1, Math.floor(position + halfWidthBands))
+      : bandCount - 1;
+    for (let b = first; b <= last; b++) {
+      const speedWeight = Number.isFinite(halfWidthBands) ? 1 - Math.abs(position - b) / halfWidthBands : 1;
+      if (!(speedWeight > 0)) continue;
+      for (let d = 0; d < 4; d++) {
+        const weight = speedWeight * samples.sectorWeight[4 * i + d]!;
+        if (!(weight > 0)) continue;
+        cells[b]![d]!.values.push(d < 2 ? Math.abs(samples.axMps2[i]!) : Math.abs(samples.ayMps2[i]!));
+        cells[b]![d]!.weights.push(weight);
+      }
+    }
+  }
+  return cells;
+}
+
+interface MovingSamples {
+  speedMps: Float64Array;
+  axMps2: Float64Array;
+  ayMps2: Float64Array;
+  /** Four sector weights per sample. */
+  sectorWeight: Float64Array;
+}
+
+function movingSamples(samples: EnvelopeSamples, options: EnvelopeFitOptions): MovingSamples {
+  const { speedMps, axMps2, ayMps2 } = samples;
+  const keep: number[] = [];
+  for (let i = 0; i < speedMps.length; i++) {
+    const v = speedMps[i]!;
+    if (v >= options.minSpeedMps && Number.isFinite(v) && Number.isFinite(axMps2[i]!) && Number.isFinite(ayMps2[i]!))
+      keep.push(i);
+  }
+  const sectorWeight = new Float64Array(4 * keep.length);
+  const taperRad = (options.sectorTaperDeg * Math.PI) / 180;
+  for (const [k, i] of keep.entries())
+    sectorWeights(axMps2[i]!, ayMps2[i]!, taperRad, sectorWeight.subarray(4 * k, 4 * k + 4));
+  return {
+    speedMps: Float64Array.from(keep, (i) => speedMps[i]!),
+    axMps2: Float64Array.from(keep, (i) => axMps2[i]!),
+    ayMps2: Float64Array.from(keep, (i) => ayMps2[i]!),
+    sectorWeight,
+  };
+}
+
+/** Weight of a cell's own figure against what it borrows: 0 below a third of minSamples, 1 from minSamples on,
+ * a smoothstep between (continuous, with a continuous slope). */
+function credibility(effective: number, minSamples: number): number {
+  const low = minSamples / 3;
+  const t = Math.min(1, Math.max(0, (effective - low) / (minSamples - low)));
+  return t * t * (3 - 2 * t);
+}
+
+/** Weight of a cell's own figure over what it borrows (none where it has no figure). */
+function ownWeight(cell: { value: number; effective: number }, minSamples: number): number {
+  return Number.isFinite(cell.value) ? credibility(cell.effective, minSamples) : 0;
+}
+
+/**
+ * `carModel`: the envelope a thin cell leans on at last (a cell with few samples in its band, on its other side
+ * and in the wider kernel); without it, the direction's figure over all speeds, and a direction with too few
+ * samples in all is an error.
  */
 export function fitEnvelope(
   samples: EnvelopeSamples,
@@ -68,69 +204,62 @@ export function fitEnvelope(
   options: EnvelopeFitOptions = DEFAULT_ENVELOPE_FIT,
   carModel: Envelope | null = null,
 ): DemonstratedEnvelopeRecord {
-  const { speedMps, axMps2, ayMps2 } = samples;
-  const n = speedMps.length;
-  const speeds: number[] = [];
-  for (let i = 0; i < n; i++) {
-    const v = speedMps[i]!;
-    if (v >= options.minSpeedMps && Number.isFinite(v) && Number.isFinite(axMps2[i]!) && Number.isFinite(ayMps2[i]!))
-      speeds.push(v);
-  }
-  if (speeds.length < options.minSamples)
+  const moving = movingSamples(samples, options);
+  if (moving.speedMps.length < options.minSamples)
     throw new EnvelopeFitError(
-      `only ${speeds.length} moving samples; at least ${options.minSamples} are needed to fit an envelope`,
+      `only ${moving.speedMps.length} moving samples; at least ${options.minSamples} are needed to fit an envelope`,
     );
-  const sortedSpeeds = Float64Array.from(speeds).sort();
+  const sortedSpeeds = Float64Array.from(moving.speedMps).sort();
   const topSpeedMps = quantileSorted(sortedSpeeds, 0.999);
   const bandCount = Math.max(1, Math.ceil(topSpeedMps / options.bandWidthMps));
-  // Magnitudes per band and direction, collected in plain arrays (a few per cell), sorted once.
-  const cells: number[][][] = Array.from({ length: bandCount }, () => DIRECTIONS.map(() => [] as number[]));
-  const counts = new Int32Array(bandCount);
-  for (let i = 0; i < n; i++) {
-    const v = speedMps[i]!;
-    const ax = axMps2[i]!;
-    const ay = ayMps2[i]!;
-    if (!(v >= options.minSpeedMps) || !Number.isFinite(ax) || !Number.isFinite(ay)) continue;
-    const band = Math.min(bandCount - 1, Math.floor(v / options.bandWidthMps));
-    // The component along the sector's axis: on a friction ellipse it peaks on the axis at the pure limit, where the
-    // magnitude would overstate the lesser axis with the greater one's combined points.
-    const direction = directionOf(ax, ay);
-    cells[band]![DIRECTIONS.indexOf(direction)]!.push(
-      direction === 'brake' || direction === 'accel' ? Math.abs(ax) : Math.abs(ay),
-    );
-    counts[band]!++;
-  }
-  const sortedCells = cells.map((band) => band.map((values) => Float64Array.from(values).sort()));
-  const totals = DIRECTIONS.map((_, d) => sortedCells.reduce((sum, band) => sum + band[d]!.length, 0));
+  const own = collectCells(moving, bandCount, options, options.kernelBands);
+  const pool = collectCells(moving, bandCount, options, options.poolBands);
+  const all = collectCells(moving, 1, options, Infinity)[0]!;
+  const totals = all.map((cell) => cell.weights.reduce((sum, w) => sum + w, 0));
   if (!carModel) {
     for (const [d, total] of totals.entries()) {
       if (total < options.minSamples)
         throw new EnvelopeFitError(
-          `only ${total} samples of ${DIRECTION_WORDS[d]}; at least ${options.minSamples} are needed (or give the car, whose model fills thin parts)`,
+          `only ${Math.round(total)} samples of ${DIRECTION_WORDS[d]}; at least ${options.minSamples} are needed (or give the car, whose model fills thin parts)`,
         );
     }
   }
+  const q = options.quantile;
+  const overall = [
+    cellQuantile([all[0]!], q).value,
+    cellQuantile([all[1]!], q).value,
+    cellQuantile([all[2]!, all[3]!], q).value,
+  ];
   const bands: EnvelopeBand[] = [];
   const fromModel: string[][] = DIRECTIONS.map(() => []);
   for (let b = 0; b < bandCount; b++) {
-    if (counts[b]! === 0) continue;
+    const weightInBand = own[b]!.reduce((sum, cell) => sum + cell.weights.reduce((s, w) => s + w, 0), 0);
+    if (!(weightInBand > 0)) continue;
     const speedMps = (b + 0.5) * options.bandWidthMps;
-    const reach = carModel ? 1 : cells.length;
-    const limit = DIRECTIONS.map((_, d) => pooledQuantile(sortedCells, b, d, options, reach));
-    // A side short of samples in this band borrows the other side's figure before the neighbouring bands'.
-    const own = (d: number) => sortedCells[b]![d]!.length >= options.minSamples;
-    if (!own(2) && own(3)) limit[2] = limit[3]!;
-    if (!own(3) && own(2)) limit[3] = limit[2]!;
-    if (carModel) {
-      for (let d = 0; d < DIRECTIONS.length; d++) {
-        if (Number.isFinite(limit[d]!) && totals[d]! >= options.minSamples) continue;
-        limit[d] = modelLimitMps2(carModel, d, speedMps);
-        fromModel[d]!.push(mpsToKph(speedMps).toFixed(0));
+    const last = (d: number) => (carModel ? modelLimitMps2(carModel, d, speedMps) : overall[Math.min(d, 2)]!);
+    const limit = [0, 0, 0, 0];
+    for (let d = 0; d < 4; d++) {
+      const lateral = d >= 2;
+      // From the most local figure to the least: this side in this band, both sides in this band (a side short
+      // of samples borrows the other side's figure before the neighbouring speeds'), the wider kernel, the last.
+      const chain = [
+        cellQuantile([own[b]![d]!], q),
+        ...(lateral ? [cellQuantile([own[b]![2]!, own[b]![3]!], q)] : []),
+        cellQuantile(lateral ? [pool[b]![2]!, pool[b]![3]!] : [pool[b]![d]!], q),
+      ];
+      let value = last(d);
+      let fallbackShare = 1;
+      for (let k = chain.length - 1; k >= 0; k--) {
+        const weight = ownWeight(chain[k]!, options.minSamples);
+        if (weight > 0) value = weight * chain[k]!.value + (1 - weight) * value;
+        fallbackShare *= 1 - weight;
       }
+      limit[d] = value;
+      if (carModel && fallbackShare >= 0.5) fromModel[d]!.push(mpsToKph(speedMps).toFixed(0));
     }
     bands.push({
-      speedMps: (b + 0.5) * options.bandWidthMps,
-      samples: counts[b]!,
+      speedMps,
+      samples: Math.round(weightInBand),
       brakeMps2: limit[0]!,
       accelMps2: limit[1]!,
       leftMps2: limit[2]!,
@@ -140,7 +269,7 @@ export function fitEnvelope(
   const notes = fromModel.flatMap((speeds, d) =>
     speeds.length > 0
       ? [
-          `${DIRECTION_WORDS[d]} at ${speeds.length === bands.length ? 'every speed' : `${speeds.join(', ')} km/h`}: too few samples in the log, the car model's limit used`,
+          `${DIRECTION_WORDS[d]} at ${speeds.length === bands.length ? 'every speed' : `${speeds.join(', ')} km/h`}: too few samples in the log, mostly the car model's limit`,
         ]
       : [],
   );
@@ -155,29 +284,6 @@ export function fitEnvelope(
     bands,
     ...(notes.length > 0 ? { notes } : {}),
   };
-}
-
-/** Quantile of one cell, pooling the nearest bands (up to maxReach away) while the cell is short of samples;
- * NaN when even the pool is short and the reach is limited. */
-function pooledQuantile(
-  cells: Float64Array[][],
-  band: number,
-  direction: number,
-  options: EnvelopeFitOptions,
-  maxReach: number,
-): number {
-  const own = cells[band]![direction]!;
-  if (own.length >= options.minSamples) return quantileSorted(own, options.quantile);
-  const pooled: number[] = Array.from(own);
-  for (let reach = 1; reach <= maxReach && reach < cells.length && pooled.length < options.minSamples; reach++) {
-    for (const b of [band - reach, band + reach]) {
-      if (b < 0 || b >= cells.length) continue;
-      for (const value of cells[b]![direction]!) pooled.push(value);
-    }
-  }
-  if (maxReach < cells.length && pooled.length < options.minSamples) return NaN;
-  const sorted = Float64Array.from(pooled).sort();
-  return sorted.length > 0 ? quantileSorted(sorted, options.quantile) : NaN;
 }
 
 /** Least-squares c0 + c2 v^2 through the deceleration of samples with neither pedal pressed (5 % threshold). */

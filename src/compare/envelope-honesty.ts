@@ -19,7 +19,52 @@ export const FASTER_THAN_MODEL_LIMIT = 0.03;
 export const PEAK_GRIP_USE_LIMIT = 1.3;
 /** Largest factor the limits are raised by; beyond it the mismatch is not the fit's. */
 const MAX_RAISE = 1.5;
-const RAISE_STEPS = 10;
+const RAISE_STEPS = 12;
+/** How close below the driven lap the raised lap lands, s. */
+const RAISE_TOLERANCE_S = 0.001;
+
+interface RaisedRun<T> {
+  factor: number;
+  lap: LapResult;
+  scaled: T;
+  scaledEnvelope: Envelope;
+}
+
+/**
+ * The least common factor whose lap is no slower than the driven lap, to within RAISE_TOLERANCE_S below it: the
+ * root of lap(factor) - driven by the Illinois variant of regula falsi (Dowell and Jarratt, BIT 11, 1971), which
+ * keeps the bracket and converges superlinearly on a smooth, monotone lap time. The raised lap lands on the
+ * driven lap however far the fit was off, so the result moves continuously with the log.
+ */
+function leastRaise<T>(
+  run: (factor: number) => RaisedRun<T>,
+  slowerAtOneS: number,
+  top: RaisedRun<T>,
+  drivenS: number,
+): RaisedRun<T> {
+  let lo = 1;
+  let gapLo = slowerAtOneS;
+  let hi = top;
+  let gapHi = top.lap.lapTimeS - drivenS;
+  let side = 0;
+  for (let k = 0; k < RAISE_STEPS && gapHi < -RAISE_TOLERANCE_S; k++) {
+    const factor = hi.factor - (gapHi * (hi.factor - lo)) / (gapHi - gapLo);
+    const tried = run(Math.min(hi.factor, Math.max(lo, factor)));
+    const gap = tried.lap.lapTimeS - drivenS;
+    if (gap > 0) {
+      lo = tried.factor;
+      gapLo = gap;
+      if (side === -1) gapHi /= 2;
+      side = -1;
+    } else {
+      hi = tried;
+      gapHi = gap;
+      if (side === 1) gapLo /= 2;
+      side = 1;
+    }
+  }
+  return hi;
+}
 
 export interface HonestyInput {
   track: TrackGrid;
@@ -75,11 +120,11 @@ export function honestyChecks(input: HonestyInput): HonestyResult {
   const notes: string[] = [];
   const drivenS = driverLap.lapTimeS;
 
-  if (lap.lapTimeS > drivenS * (1 + SLOWER_TOLERANCE)) {
+  if (lap.lapTimeS > drivenS) {
     const run = (factor: number) => {
       const scaled = scaledRecord(input.record, factor);
       const scaledEnvelope = demonstratedEnvelope(scaled);
-      return { scaled, scaledEnvelope, lap: simulate(track, car, { ...drive, envelope: scaledEnvelope }) };
+      return { factor, scaled, scaledEnvelope, lap: simulate(track, car, { ...drive, envelope: scaledEnvelope }) };
     };
     const fitS = lap.lapTimeS;
     const top = run(MAX_RAISE);
@@ -88,23 +133,12 @@ export function honestyChecks(input: HonestyInput): HonestyResult {
         `the lap on the grip already shown (${formatLapTime(fitS)}) is slower than the driven lap (${formatLapTime(drivenS)}) even with its limits raised by ${((MAX_RAISE - 1) * 100).toFixed(0)} %: the driver's path or the track file does not match the reference's`,
       );
     } else {
-      let lo = 1;
-      let hi = MAX_RAISE;
-      let best = top;
-      for (let k = 0; k < RAISE_STEPS; k++) {
-        const mid = 0.5 * (lo + hi);
-        const tried = run(mid);
-        if (tried.lap.lapTimeS > drivenS) lo = mid;
-        else {
-          hi = mid;
-          best = tried;
-        }
-      }
+      const best = leastRaise(run, fitS - drivenS, top, drivenS);
       record = best.scaled;
       envelope = best.scaledEnvelope;
       lap = best.lap;
       notes.push(
-        `the envelope fitted from the log drove ${formatLapTime(fitS)}, slower than the driven ${formatLapTime(drivenS)}, so the fit under-read the log (peaks smoothed away or too few samples): its limits were raised by ${((hi - 1) * 100).toFixed(1)} %, the least that matches the driven lap`,
+        `the envelope fitted from the log drove ${formatLapTime(fitS)}, slower than the driven ${formatLapTime(drivenS)}, so the fit under-read the log (peaks smoothed away or too few samples): its limits were raised by ${((best.factor - 1) * 100).toFixed(1)} %, the least that matches the driven lap`,
       );
     }
   }
