@@ -221,6 +221,7 @@ export {
 } from './compare/driver-line/driver-line.js';
 export { cornerLine, type CornerLine } from './compare/driver-line/corner-line.js';
 export { lateralOffsetM, smoothedOffset } from './compare/driver-line/lateral-offset.js';
+export { driverPath, type DriverPath, type DriverPathFixes } from './compare/driver-line/driver-path.js';
 export { lineSummaryText, lineJson } from './report/line-summary.js';
 export { rankFindings, cornerFindingText, DEFAULT_FINDING_OPTIONS, type FindingOptions } from './compare/findings.js';
 export {
@@ -254,6 +255,7 @@ export { detectKind, type FileKind } from './check/detect-kind.js';
 // The car from a driver's own log, and answers that carry the car file's uncertainty.
 export type { CarUncertainty } from './car/types.js';
 export { calibrationSamples, type CalibrationSamples } from './calibrate/samples.js';
+export { lateralPath, MAX_PATH_AY_NOISE_MPS2, type LateralPathSummary } from './calibrate/lateral-path.js';
 export {
   calibrateCar,
   CALIBRATED_FIELDS,

@@ -8,6 +8,7 @@ import type { Ambient, Car, CarUncertainty } from '../car/types.js';
 import { InputError } from '../errors.js';
 import { readCarField, unitOf, writeCarField } from '../sweep/fields.js';
 import type { CalibrationSamples } from './samples.js';
+import type { LateralPathSummary } from './lateral-path.js';
 import { DEFAULT_DRIVE_FIT, fitDrive, type DriveFit, type DriveFitOptions } from './power-fit.js';
 import { DEFAULT_GRIP_FIT, fitGrip, GRIP_FIELDS, type GripFit, type GripFitOptions } from './grip-fit.js';
 import { withDriveScaled } from './drive-scale.js';
@@ -40,6 +41,8 @@ export interface CalibrationResult {
   notSeparable: { fields: string[]; conditionIndex: number; kept: string }[];
   drive: DriveFit;
   grip: GripFit;
+  /** Where a derived lateral acceleration came from (null: the log measured it). */
+  lateralPath: LateralPathSummary | null;
   notes: string[];
 }
 
@@ -190,6 +193,7 @@ export function calibrateCar(
     })),
     drive,
     grip,
+    lateralPath: samples.lateralPath,
     notes,
   };
 }

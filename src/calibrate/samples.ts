@@ -7,7 +7,8 @@ import { InputError } from '../errors.js';
 import type { TrackGrid } from '../track/types.js';
 import type { DriverLap } from '../compare/types.js';
 import type { TelemetrySession } from '../telemetry/types.js';
-import { cutLaps } from '../compare/laps.js';
+import { cutLaps, type LapCut } from '../compare/laps.js';
+import { lateralPath, type LateralPathSummary } from './lateral-path.js';
 import { alignLapWithNotes } from '../compare/align.js';
 import { correlation, speedFromPositions } from '../compare/derive.js';
 
@@ -28,6 +29,8 @@ export interface CalibrationSamples {
   runStarts: Int32Array;
   /** Channels derived rather than measured. */
   derivedChannels: string[];
+  /** Where a derived lateral acceleration came from (null where the log measured it). */
+  lateralPath: LateralPathSummary | null;
   notes: string[];
 }
 
@@ -84,6 +87,7 @@ function sessionSamples(session: TelemetrySession): CalibrationSamples {
     gear: session.gear,
     runStarts: Int32Array.from(starts),
     derivedChannels,
+    lateralPath: null,
     notes,
   };
 }
@@ -105,15 +109,18 @@ function lapSamples(session: TelemetrySession, track: TrackGrid): CalibrationSam
   const cut = cutLaps(session, track);
   const notes = [...session.notes, ...cut.notes];
   const laps: DriverLap[] = [];
+  const cuts: LapCut[] = [];
   let offsetS = 0;
   for (const lapCut of cut.laps) {
     if (!lapCut.complete) continue;
+    cuts.push(lapCut);
     const aligned = alignLapWithNotes(session, lapCut, track);
     for (const note of aligned.notes) if (!notes.includes(note)) notes.push(note);
     laps.push(aligned.lap);
   }
   if (laps.length === 0)
     throw new InputError(`${session.source}: no complete lap on track ${track.name} to calibrate from`);
+  const lateral = laps[0]!.derivedChannels.includes('ayMps2') ? lateralPath(session, track, cuts, laps) : null;
   const stations = track.distanceM.length;
   const count = laps.length * stations;
   const timeS = new Float64Array(count);
@@ -133,12 +140,9 @@ function lapSamples(session: TelemetrySession, track: TrackGrid): CalibrationSam
     offsetS += lap.lapTimeS + RUN_GAP_S * 10;
     speedMps.set(lap.speedMps, at);
     axMps2.set(lap.axMps2, at);
-    if (lap.derivedChannels.includes('ayMps2')) {
-      // A GPS path's own curvature is far noisier than the limit it is meant to show (metres of position noise over
-      // a chord of metres): the lateral acceleration is taken on the track's curvature, as the comparison does when
-      // the path is too noisy. The centreline turns a little tighter than a racing line, so the grip comes out a
-      // little high.
-      for (let j = 0; j < stations; j++) ayMps2[at + j] = lap.speedMps[j]! * lap.speedMps[j]! * track.curvaturePerM[j]!;
+    if (lateral) {
+      const curvature = lateral.curvaturePerM;
+      for (let j = 0; j < stations; j++) ayMps2[at + j] = lap.speedMps[j]! * lap.speedMps[j]! * curvature[j]!;
     } else {
       ayMps2.set(lap.ayMps2, at);
     }
@@ -148,8 +152,8 @@ function lapSamples(session: TelemetrySession, track: TrackGrid): CalibrationSam
   });
   runStarts[laps.length] = count;
   notes.push(`${laps.length} complete lap${laps.length > 1 ? 's' : ''} aligned on the track's grid`);
-  if (laps[0]!.derivedChannels.includes('ayMps2')) {
-    notes.push("no lateral acceleration in the log: taken as the speed squared times the track's curvature");
+  if (lateral) {
+    notes.push(lateral.note);
     // The grip fit holds such samples on the boundary up to symmetric noise (./grip-fit.ts): it cannot see a driver
     // who stayed below the limit.
     notes.push(DERIVED_GRIP_NOTE);
@@ -166,6 +170,7 @@ function lapSamples(session: TelemetrySession, track: TrackGrid): CalibrationSam
     gear,
     runStarts,
     derivedChannels: [...laps[0]!.derivedChannels],
+    lateralPath: lateral?.summary ?? null,
     notes,
   };
 }

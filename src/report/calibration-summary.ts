@@ -96,6 +96,21 @@ export function calibrationJson(result: CalibrationResult, base: Car) {
       noiseSdMps2: Number.isFinite(grip.noiseSdMps2) ? roundToDigits(grip.noiseSdMps2, 4) : null,
       insideSdMps2: Number.isFinite(grip.insideSdMps2) ? roundToDigits(grip.insideSdMps2, 4) : null,
     },
+    lateralAcceleration: lateralJson(result),
     notes: result.notes,
+  };
+}
+
+/** Where the lateral acceleration came from: the log's channel, the driver's own path or the centreline. */
+function lateralJson({ lateralPath: path }: CalibrationResult) {
+  if (!path) return { from: 'log' as const };
+  const rounded = (value: number | null, digits: number) => (value === null ? null : roundToDigits(value, digits));
+  return {
+    from: path.path === 'driver' ? ('driver path' as const) : ('centreline' as const),
+    positionNoiseM: rounded(path.positionNoiseM, 3),
+    cutoffM: rounded(path.cutoffM, 1),
+    ayNoiseMps2: rounded(path.ayNoiseMps2, 3),
+    fixes: path.fixes,
+    laps: path.laps,
   };
 }

@@ -13,36 +13,12 @@ import { testCircuit } from '../compare/fixtures.js';
 import { ring } from '../line/hand-tracks.js';
 import { testCar } from '../helpers/cars.js';
 import { syntheticSession } from './synthetic-log.js';
+import { guessedCar, knownCar, knownValues } from './known-car.js';
 
 const ambient = ambientFrom();
-const truth = testCar({
-  massKg: 1000,
-  muLat: 1.4,
-  muLong: 1.3,
-  dragAreaM2: 0.8,
-  liftAreaM2: 2.0,
-  maxPowerW: 250_000,
-  rollingResistanceCoeff: 0.015,
-  drive: 'rear',
-});
-const known: Record<string, number> = {
-  'powertrain.maxPowerW': 250_000,
-  'aero.dragAreaM2': 0.8,
-  'tyre.muLat': 1.4,
-  'tyre.muLong': 1.3,
-  'aero.liftAreaM2': 2,
-};
-// The user's guess: every fitted value well off.
-const guess = testCar({
-  massKg: 1000,
-  muLat: 1.2,
-  muLong: 1.2,
-  dragAreaM2: 0.6,
-  liftAreaM2: 1.0,
-  maxPowerW: 200_000,
-  rollingResistanceCoeff: 0.015,
-  drive: 'rear',
-});
+const truth = knownCar;
+const known = knownValues;
+const guess = guessedCar;
 
 describe('calibration coverage', () => {
   it('recovers each identifiable parameter within 2 standard errors in at least 90 % of 50 seeded logs', () => {

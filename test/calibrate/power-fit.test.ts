@@ -47,6 +47,7 @@ function accelerationRun(car: Car, fromMps: number, durationS: number, rateHz: n
     speedMps,
     axMps2,
     ayMps2: new Float64Array(count),
+    lateralPath: null,
     throttle: new Float64Array(count).fill(1),
     brake: new Float64Array(count),
     gear: null,

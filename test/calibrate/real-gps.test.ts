@@ -34,7 +34,20 @@ describe.skipIf(!present)('calibration on a real kart lap (GPS only)', () => {
       'kart guess',
     );
     const ambient = ambientFrom();
-    const result = calibrateCar(guess, ambient, calibrationSamples(session, track));
+    const samples = calibrationSamples(session, track);
+    const result = calibrateCar(guess, ambient, samples);
+    // The lateral acceleration comes from the driver's own path. Here the track is the log's own path smoothed at
+    // 10 m, so the path and the centreline are one curve up to that smoothing: the two fits must agree on the grip
+    // within one standard error.
+    expect(samples.lateralPath?.path).toBe('driver');
+    const n = track.distanceM.length;
+    const onCentreline = Float64Array.from(
+      samples.ayMps2,
+      (_, i) => samples.speedMps[i]! ** 2 * track.curvaturePerM[i % n]!,
+    );
+    const centrelineMu = calibrateCar(guess, ambient, { ...samples, ayMps2: onCentreline }).fitted.find(
+      (f) => f.field === 'tyre.muLat',
+    )!;
     const fitted = new Map(result.fitted.map((f) => [f.field, f]));
     for (const field of ['powertrain.maxPowerW', 'aero.dragAreaM2', 'tyre.muLat', 'tyre.muLong']) {
       expect(fitted.get(field), field).toBeDefined();
@@ -42,6 +55,8 @@ describe.skipIf(!present)('calibration on a real kart lap (GPS only)', () => {
     }
     // A kart has no wings: the downforce the log shows must be nothing within two standard errors (from memory:
     // karts carry no aerodynamic devices that make downforce).
+    const muLat = fitted.get('tyre.muLat')!;
+    expect(Math.abs(muLat.value - centrelineMu.value)).toBeLessThan(muLat.sd);
     const lift = fitted.get('aero.liftAreaM2');
     if (lift) expect(Math.abs(lift.value)).toBeLessThan(2 * lift.sd);
     const driverLapS = session.timeS[session.count - 1]! - session.timeS[0]!;

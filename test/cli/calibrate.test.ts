@@ -65,9 +65,8 @@ describe('reflap calibrate', () => {
   });
 
   it('needs --track for a log without accelerometer channels, and works with it', () => {
-    // Without an accelerometer the lateral acceleration is v^2 times the centreline's curvature, which holds for a
-    // driver on the centreline (docs/calibrate.md measures what it does to one who uses the track): this log's
-    // invented driver is the demo's, driving the centreline.
+    // Without an accelerometer the lateral acceleration is v^2 times the curvature of the driver's own path, estimated
+    // from the log's positions (docs/calibrate.md): this log's invented driver is the demo's, driving the centreline.
     const demoTrack = readTrackFile(track);
     const demoCar = readCarFile(path.join(projectRoot, 'cars', 'tarnfell-gt.json'));
     const ambient = ambientFrom();
@@ -78,7 +77,9 @@ describe('reflap calibrate', () => {
       buildEnvelope(demoCar, ambient),
       onCentreline,
     );
-    const csv = demoLogCsv(demoTrack, centrelineLap, DEFAULT_DEMO_LOG).split('\n');
+    // Three laps: the lap before and after the flying lap logged as well (the same lap, fresh noise).
+    const laps = { ...DEFAULT_DEMO_LOG, leadInM: demoTrack.lengthM + 400, leadOutM: demoTrack.lengthM + 300 };
+    const csv = demoLogCsv(demoTrack, centrelineLap, laps).split('\n');
     const header = csv[0]!.split(',');
     const keep = header.map((name, i) => (name === 'ax_g' || name === 'ay_g' ? -1 : i)).filter((i) => i >= 0);
     const gpsOnly = path.join(work, 'gps-only.csv');
@@ -92,9 +93,11 @@ describe('reflap calibrate', () => {
     const run = runCli(['calibrate', '--telemetry', gpsOnly, '--car', guess, '--track', track, '--out', out, '--json']);
     expect(run.code).toBe(0);
     const summary = JSON.parse(run.stdout);
-    expect(summary.notes).toContain(
-      "no lateral acceleration in the log: taken as the speed squared times the track's curvature",
-    );
+    // The lateral acceleration comes from the driver's own path, and the summary says so with the noise it read.
+    expect(summary.lateralAcceleration.from).toBe('driver path');
+    expect(summary.lateralAcceleration.positionNoiseM).toBeGreaterThan(0);
+    expect(summary.lateralAcceleration.laps).toBeGreaterThan(0);
+    expect(summary.notes.join('\n')).toMatch(/curvature of the driver's own path/);
     // The same grip as the demo driver shows with the accelerometer (0.985^2 of the car file's 1.5), to within the
     // looser errors of derived accelerations.
     const muLat = summary.fitted.find((f: { field: string }) => f.field === 'tyre.muLat');
