@@ -25,7 +25,7 @@ import {
 import { compareSession } from '../src/compare/compare-session.js';
 import { uncertainComparison } from '../src/uncertainty/uncertain-reference.js';
 import { benchmarkCircuitSegments } from './simulate.bench.js';
-import { writeSession } from './telemetry.bench.js';
+import { clubTrackAndCar, writeSession } from './telemetry.bench.js';
 import { machineLoad, median, peakRssMb, timeOnce, verdict } from './stats.js';
 
 const projectRoot = fileURLToPath(new URL('../..', import.meta.url));
@@ -63,6 +63,32 @@ async function calibrateBench(dir: string): Promise<void> {
   );
   // Issue 15's target, one thread: on an idle machine its wall time is its CPU time.
   process.stdout.write(`  ${verdict('CPU', median(cpu), 5000, 'ms')}; ${verdict('wall', median(wall), 5000, 'ms')}\n`);
+
+  // The same session as a GPS logger would give it (no accelerometer channels), on the club circuit: laps cut and
+  // aligned, the driver's path smoothed from every fix of every lap, the lateral acceleration read on it.
+  const { track } = clubTrackAndCar();
+  const logged = await readTelemetryFile(file, { columns: {} });
+  const gpsOnly = { ...logged, axMps2: null, ayMps2: null };
+  const gpsWall: number[] = [];
+  const gpsCpu: number[] = [];
+  let lateral = '';
+  for (let run = 0; run < 3; run++) {
+    const measured = await timeOnce(async () => {
+      const samples = calibrationSamples(gpsOnly, track);
+      calibrateCar(guess, ambient, samples);
+      return samples;
+    });
+    gpsWall.push(measured.wallMs);
+    gpsCpu.push(measured.cpuMs);
+    const path = measured.value.lateralPath;
+    lateral = path ? `lateral from the ${path.path} (${path.fixes} fixes over ${path.laps} laps)` : 'lateral measured';
+  }
+  process.stdout.write(
+    `calibrate GPS-only, fit alone: median ${median(gpsWall).toFixed(0)} ms wall, ${median(gpsCpu).toFixed(0)} ms CPU; ${lateral}\n`,
+  );
+  process.stdout.write(
+    `  ${verdict('CPU', median(gpsCpu), 5000, 'ms')}; ${verdict('wall', median(gpsWall), 5000, 'ms')}\n`,
+  );
 }
 
 async function uncertaintyBench(dir: string): Promise<void> {
