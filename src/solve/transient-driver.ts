@@ -86,11 +86,70 @@ function excessShare(slipRad: number, plannedRad: number, peakRad: number): numb
   return excess > 0 && peakRad > 0 ? excess / peakRad : 0;
 }
 
+/**
+ * The pedals' force on each axle towards `wantedN` (drive or brake), within the engine, the brakes and what each
+ * axle's ellipse leaves after the cornering demand; the loads follow the acceleration the pedals give (two
+ * passes). Writes out.frontLongN and out.rearLongN and returns the acceleration they give, m/s^2.
+ */
+function pedalForces(
+  context: DriverContext,
+  wantedN: number,
+  speedMps: number,
+  downforceN: number,
+  resistanceN: number,
+  ayDemandMps2: number,
+  scratch: ReturnType<typeof newAxleState>,
+  out: SingleTrackInput,
+): number {
+  const { params: p, tyre, settings } = context;
+  const n = tyre.ggExponent;
+  const bias = p.brakeFrontBias;
+  const m = p.massKg;
+  const axBoundMps2 = tyre.muLong * STANDARD_GRAVITY_MPS2 * 2;
+  let axMps2 = Math.max(-axBoundMps2, Math.min(axBoundMps2, (wantedN - resistanceN) / m));
+  for (let pass = 0; pass < 2; pass++) {
+    const s = axleState(p, tyre, downforceN, axMps2, ayDemandMps2, scratch);
+    const frontLeftN =
+      settings.pedalShare *
+      s.frontLongCapN *
+      remainingShare(s.frontLatCapN > 0 ? s.frontLatDemandN / s.frontLatCapN : 1, n);
+    const rearLeftN =
+      settings.pedalShare *
+      s.rearLongCapN *
+      remainingShare(s.rearLatCapN > 0 ? s.rearLatDemandN / s.rearLatCapN : 1, n);
+    if (wantedN >= 0) {
+      const engineN = context.engineForceN(speedMps);
+      if (p.drive === 'rear') {
+        out.frontLongN = 0;
+        out.rearLongN = Math.min(wantedN, engineN, rearLeftN);
+      } else if (p.drive === 'front') {
+        out.frontLongN = Math.min(wantedN, engineN, frontLeftN);
+        out.rearLongN = 0;
+      } else {
+        const total = Math.min(wantedN, engineN, frontLeftN + rearLeftN);
+        const frontShare = frontLeftN + rearLeftN > 0 ? frontLeftN / (frontLeftN + rearLeftN) : 0.5;
+        out.frontLongN = total * frontShare;
+        out.rearLongN = total - out.frontLongN;
+      }
+    } else {
+      const limitN = Math.min(
+        context.brakeCapN,
+        bias > 0 ? frontLeftN / bias : Infinity,
+        bias < 1 ? rearLeftN / (1 - bias) : Infinity,
+      );
+      const brakeN = Math.min(-wantedN, Math.max(0, limitN));
+      out.frontLongN = -bias * brakeN;
+      out.rearLongN = -(1 - bias) * brakeN;
+    }
+    axMps2 = (out.frontLongN + out.rearLongN - resistanceN) / m;
+  }
+  return axMps2;
+}
+
 export function newDriver(context: DriverContext): Driver {
   const { params: p, tyre, settings, reference, law } = context;
   const scratch = newAxleState();
   const n = tyre.ggExponent;
-  const bias = p.brakeFrontBias;
   const m = p.massKg;
   const L = p.wheelbaseM;
   const clampSteer = (steerRad: number) => Math.max(-settings.maxSteerRad, Math.min(settings.maxSteerRad, steerRad));
@@ -112,47 +171,9 @@ export function newDriver(context: DriverContext): Driver {
       m * lateralVelocityMps * yawRateRadPerS;
     const wantedN = m * axWantedMps2 + resistance + corneringDragN;
     // Each axle's ellipse, after the path's steady cornering demand here or where the steering already aims (not
-    // u r: while the sideslip builds, the yaw rate runs ahead of the lateral acceleration); the loads follow the
-    // acceleration the pedals give (two passes).
+    // u r: while the sideslip builds, the yaw rate runs ahead of the lateral acceleration).
     const ayDemandMps2 = u * u * Math.max(Math.abs(kappaHere), Math.abs(kappaAhead));
-    const axBoundMps2 = tyre.muLong * STANDARD_GRAVITY_MPS2 * 2;
-    let axMps2 = Math.max(-axBoundMps2, Math.min(axBoundMps2, (wantedN - resistance) / m));
-    for (let pass = 0; pass < 2; pass++) {
-      const s = axleState(p, tyre, downforceN, axMps2, ayDemandMps2, scratch);
-      const frontLeftN =
-        settings.pedalShare *
-        s.frontLongCapN *
-        remainingShare(s.frontLatCapN > 0 ? s.frontLatDemandN / s.frontLatCapN : 1, n);
-      const rearLeftN =
-        settings.pedalShare *
-        s.rearLongCapN *
-        remainingShare(s.rearLatCapN > 0 ? s.rearLatDemandN / s.rearLatCapN : 1, n);
-      if (wantedN >= 0) {
-        const engineN = context.engineForceN(speedMps);
-        if (p.drive === 'rear') {
-          out.frontLongN = 0;
-          out.rearLongN = Math.min(wantedN, engineN, rearLeftN);
-        } else if (p.drive === 'front') {
-          out.frontLongN = Math.min(wantedN, engineN, frontLeftN);
-          out.rearLongN = 0;
-        } else {
-          const total = Math.min(wantedN, engineN, frontLeftN + rearLeftN);
-          const frontShare = frontLeftN + rearLeftN > 0 ? frontLeftN / (frontLeftN + rearLeftN) : 0.5;
-          out.frontLongN = total * frontShare;
-          out.rearLongN = total - out.frontLongN;
-        }
-      } else {
-        const limitN = Math.min(
-          context.brakeCapN,
-          bias > 0 ? frontLeftN / bias : Infinity,
-          bias < 1 ? rearLeftN / (1 - bias) : Infinity,
-        );
-        const brakeN = Math.min(-wantedN, Math.max(0, limitN));
-        out.frontLongN = -bias * brakeN;
-        out.rearLongN = -(1 - bias) * brakeN;
-      }
-      axMps2 = (out.frontLongN + out.rearLongN - resistance) / m;
-    }
+    const axMps2 = pedalForces(context, wantedN, speedMps, downforceN, resistance, ayDemandMps2, scratch, out);
 
     // Feedforward steer: the steady-state steer delta = L kappa + alpha_f - alpha_r at the curvature just ahead,
     // each slip angle the inverse of the model's tyre law at the axle's share Fyf = m ay b / L, Fyr = m ay a / L of
