@@ -4,14 +4,23 @@
 // column with a gap longer than the chunks held takes a scan that notes where its long gaps close.
 
 import { InputError } from '../../errors.js';
-import type { TelemetryChunk, TelemetryStreamSummary } from './chunk.js';
+import { CHUNK_ROWS, type TelemetryChunk, type TelemetryStreamSummary } from './chunk.js';
+import {
+  addPressures,
+  brakePressureNote,
+  FULL_BRAKING_QUANTILE,
+  histogramQuantilePa,
+  pressureHistogram,
+  shareOfPressure,
+  type PressureHistogram,
+} from './brake-pressure.js';
 import { feedCsvFile, sniffDialect, type CsvDialect } from './csv.js';
 import { readTelemetryHead, sniffTelemetryFormat } from './format.js';
 import type { ChunkSink } from './chunk-delivery.js';
 import type { ColumnScan } from './gap-fill.js';
 import { HeldTooLong, RowPipeline, type PipelineResult } from './pipeline.js';
 import { composeNotes } from './read-notes.js';
-import { UnitEvidence, type DecidedUnits } from './units-from-data.js';
+import { UnitEvidence, type ChannelLayout, type DecidedUnits } from './units-from-data.js';
 
 /** Chunks held back for an open gap before the reader scans the file for its long gaps (16 x 8,192 rows). */
 const MAX_HELD_CHUNKS = 16;
@@ -86,16 +95,35 @@ export async function streamTelemetryCsv(
   if (format !== 'csv')
     throw new InputError(`${file}: a ${format === 'gpx' ? 'GPX' : 'NMEA 0183'} log; only CSV logs are read in chunks`);
   const reader = new Reader(file, sniffDialect(head, file), options.columns);
+  let pressureNote: string | null = null;
   let evidence: UnitEvidence | null = null;
+  // A pressure column without a pedal gives the pedal share of the session's high quantile, which only the whole
+  // log decides: it is gathered in one pass more, as units are.
+  let pressure: PressureHistogram | null = null;
+  const pressureOnly = (layout: ChannelLayout) =>
+    layout.channels.includes('brakePressurePa') && !layout.channels.includes('brake');
   let result = await reader.read(null, (chunk, layout) => {
-    if (layout.pending.length === 0) onChunk(chunk);
-    else (evidence ??= new UnitEvidence(layout)).add(chunk);
+    if (pressureOnly(layout)) addPressures((pressure ??= pressureHistogram()), chunk.brakePressurePa!);
+    if (layout.pending.length > 0) (evidence ??= new UnitEvidence(layout)).add(chunk);
+    else if (pressure === null) onChunk(chunk);
   });
   let decided: DecidedUnits | null = null;
-  if (evidence !== null) {
-    // Some unit had to come from the whole log: read it again with the units decided.
-    decided = (evidence as UnitEvidence).decide();
-    result = await reader.read(decided, (chunk) => onChunk(chunk));
+  if (evidence !== null || pressure !== null) {
+    // Some unit or the full-braking pressure had to come from the whole log: read it again with them decided.
+    if (evidence !== null) decided = (evidence as UnitEvidence).decide();
+    const fullPa = pressure !== null ? histogramQuantilePa(pressure, FULL_BRAKING_QUANTILE) : 0;
+    const share = new Float64Array(CHUNK_ROWS);
+    result = await reader.read(decided, (chunk) =>
+      onChunk(
+        pressure === null
+          ? chunk
+          : { ...chunk, brake: shareOfPressure(chunk.brakePressurePa!, fullPa, share.subarray(0, chunk.rows)) },
+      ),
+    );
+    if (pressure !== null) {
+      result.layout.channels.push('brake');
+      pressureNote = brakePressureNote(result.layout.headers.brakePressurePa ?? 'brake pressure', fullPa);
+    }
   }
   return {
     source: file,
@@ -104,6 +132,6 @@ export async function streamTelemetryCsv(
     startTimeS: result.startTimeS,
     endTimeS: result.endTimeS,
     geoOrigin: decided?.geoOrigin ?? null,
-    notes: composeNotes(result, decided),
+    notes: pressureNote === null ? composeNotes(result, decided) : [...composeNotes(result, decided), pressureNote],
   };
 }
