@@ -2,21 +2,26 @@
 // deviation in the field's own unit, named as sweeps name fields), how pairs of them are correlated, and where each
 // value came from. Validated against the car they belong to, so a typo or an impossible correlation is one message.
 
-import { z } from 'zod';
+import type { z } from 'zod';
+import type { Zod } from './lazy-libraries.js';
 import { mlMatrix } from '../numeric/matrix-library.js';
 import type { Car, CarUncertainty } from '../car/types.js';
 import { CAR_FIELDS, closestField, readCarField } from '../sweep/fields.js';
 
-export const uncertaintySchema = z.strictObject({
-  sd: z.record(z.string(), z.number().finite().nonnegative()),
-  correlation: z
-    .array(z.strictObject({ fields: z.tuple([z.string(), z.string()]), r: z.number().finite().min(-1).max(1) }))
-    .optional(),
-});
+/** The schemas of the two blocks, built by the car file's schema with its zod. */
+export function uncertaintySchemas(z: Zod) {
+  return {
+    uncertainty: z.strictObject({
+      sd: z.record(z.string(), z.number().finite().nonnegative()),
+      correlation: z
+        .array(z.strictObject({ fields: z.tuple([z.string(), z.string()]), r: z.number().finite().min(-1).max(1) }))
+        .optional(),
+    }),
+    origin: z.record(z.string(), z.string().max(1000)),
+  };
+}
 
-export const originSchema = z.record(z.string(), z.string().max(1000));
-
-type UncertaintyFile = z.infer<typeof uncertaintySchema>;
+type UncertaintyFile = z.infer<ReturnType<typeof uncertaintySchemas>['uncertainty']>;
 
 function knownField(field: string, where: string): string | null {
   if (Object.hasOwn(CAR_FIELDS, field)) return null;

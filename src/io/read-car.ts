@@ -2,75 +2,81 @@
 // errors that name them, so a typo in a field name cannot pass silently.
 
 import { readTextFile } from './read-text.js';
-import { z } from 'zod';
+import type { z } from 'zod';
+import { zodLibrary, type Zod } from './lazy-libraries.js';
 import { InputError } from '../errors.js';
 import type { Car } from '../car/types.js';
 import { bicycleIncompleteMessage } from '../car/bicycle-params.js';
 import { validateCar } from '../car/validate.js';
-import { originProblems, originSchema, uncertaintyOf, uncertaintySchema } from './car-uncertainty.js';
+import { originProblems, uncertaintyOf, uncertaintySchemas } from './car-uncertainty.js';
 
-const positive = z.number().finite().positive();
-const nonNegative = z.number().finite().nonnegative();
-const fraction = z.number().finite().min(0).max(1);
+function carSchemaOf(z: Zod) {
+  const positive = z.number().finite().positive();
+  const nonNegative = z.number().finite().nonnegative();
+  const fraction = z.number().finite().min(0).max(1);
 
-const torqueCurveSchema = z.strictObject({
-  rpm: z.array(positive).min(2),
-  torqueNm: z.array(nonNegative).min(2),
-});
+  const blocks = uncertaintySchemas(z);
+  const torqueCurveSchema = z.strictObject({
+    rpm: z.array(positive).min(2),
+    torqueNm: z.array(nonNegative).min(2),
+  });
 
-const carSchema = z.strictObject({
-  name: z.string().min(1).max(200).optional(),
-  model: z.enum(['point-mass', 'bicycle']).optional(),
-  massKg: positive,
-  frontWeightFraction: z.number().finite().gt(0).lt(1).optional(),
-  cgHeightM: nonNegative.optional(),
-  wheelbaseM: positive.optional(),
-  widthM: positive.optional(),
-  trackFrontM: positive.optional(),
-  trackRearM: positive.optional(),
-  rollStiffnessFrontFraction: fraction.optional(),
-  rollingResistanceCoeff: nonNegative.max(0.2).optional(),
-  tyre: z.strictObject({
-    muLong: positive.max(5),
-    muLat: positive.max(5),
-    ggExponent: z.number().finite().min(1).max(10).optional(),
-    loadSensitivity: nonNegative.max(1).optional(),
-    corneringStiffnessFrontNPerRad: positive.optional(),
-    corneringStiffnessRearNPerRad: positive.optional(),
-  }),
-  aero: z.strictObject({
-    dragAreaM2: nonNegative,
-    liftAreaM2: z.number().finite(),
-    frontDownforceFraction: fraction.optional(),
-  }),
-  powertrain: z.strictObject({
-    maxPowerW: positive,
-    drive: z.enum(['rear', 'front', 'all']).optional(),
-    torqueCurve: torqueCurveSchema.optional(),
-    gearRatios: z.array(positive).min(1).optional(),
-    finalDrive: positive.optional(),
-    wheelRadiusM: positive.optional(),
-    shiftTimeS: nonNegative.max(2).optional(),
-    drivetrainEfficiency: z.number().finite().gt(0).max(1).optional(),
-    maxRpm: positive.optional(),
-  }),
-  brakes: z
-    .strictObject({
-      maxDecelG: positive.optional(),
-      frontBias: fraction.optional(),
-    })
-    .optional(),
-  fuel: z
-    .strictObject({
-      massKg: nonNegative,
-      burnKgPerLap: nonNegative.optional(),
-    })
-    .optional(),
-  uncertainty: uncertaintySchema.optional(),
-  origin: originSchema.optional(),
-});
+  return z.strictObject({
+    name: z.string().min(1).max(200).optional(),
+    model: z.enum(['point-mass', 'bicycle']).optional(),
+    massKg: positive,
+    frontWeightFraction: z.number().finite().gt(0).lt(1).optional(),
+    cgHeightM: nonNegative.optional(),
+    wheelbaseM: positive.optional(),
+    widthM: positive.optional(),
+    trackFrontM: positive.optional(),
+    trackRearM: positive.optional(),
+    rollStiffnessFrontFraction: fraction.optional(),
+    rollingResistanceCoeff: nonNegative.max(0.2).optional(),
+    tyre: z.strictObject({
+      muLong: positive.max(5),
+      muLat: positive.max(5),
+      ggExponent: z.number().finite().min(1).max(10).optional(),
+      loadSensitivity: nonNegative.max(1).optional(),
+      corneringStiffnessFrontNPerRad: positive.optional(),
+      corneringStiffnessRearNPerRad: positive.optional(),
+    }),
+    aero: z.strictObject({
+      dragAreaM2: nonNegative,
+      liftAreaM2: z.number().finite(),
+      frontDownforceFraction: fraction.optional(),
+    }),
+    powertrain: z.strictObject({
+      maxPowerW: positive,
+      drive: z.enum(['rear', 'front', 'all']).optional(),
+      torqueCurve: torqueCurveSchema.optional(),
+      gearRatios: z.array(positive).min(1).optional(),
+      finalDrive: positive.optional(),
+      wheelRadiusM: positive.optional(),
+      shiftTimeS: nonNegative.max(2).optional(),
+      drivetrainEfficiency: z.number().finite().gt(0).max(1).optional(),
+      maxRpm: positive.optional(),
+    }),
+    brakes: z
+      .strictObject({
+        maxDecelG: positive.optional(),
+        frontBias: fraction.optional(),
+      })
+      .optional(),
+    fuel: z
+      .strictObject({
+        massKg: nonNegative,
+        burnKgPerLap: nonNegative.optional(),
+      })
+      .optional(),
+    uncertainty: blocks.uncertainty.optional(),
+    origin: blocks.origin.optional(),
+  });
+}
 
-type CarFile = z.infer<typeof carSchema>;
+let carSchema: ReturnType<typeof carSchemaOf> | undefined;
+
+type CarFile = z.infer<ReturnType<typeof carSchemaOf>>;
 
 function describeIssue(issue: z.core.$ZodIssue): string {
   const path = issue.path.map(String).join('.');
@@ -162,7 +168,7 @@ function carFromFile(data: CarFile, source: string): Car {
 
 /** Validates a parsed JSON value as a car; throws one InputError naming the file and the field. */
 export function carFromJson(value: unknown, source: string): Car {
-  const parsed = carSchema.safeParse(value);
+  const parsed = (carSchema ??= carSchemaOf(zodLibrary())).safeParse(value);
   if (!parsed.success) {
     throw new InputError(`${source}: ${parsed.error.issues.map(describeIssue).join('; ')}`);
   }

@@ -2,48 +2,53 @@
 // corner names and a geo origin), validated with zod; unknown keys are errors that name them.
 
 import path from 'node:path';
-import { z } from 'zod';
+import type { z } from 'zod';
+import { zodLibrary, type Zod } from './lazy-libraries.js';
 import { InputError } from '../errors.js';
 import type { TrackGrid } from '../track/types.js';
 import { trackFromSegments } from '../track/segments.js';
 import type { TrackReadOptions } from './track-read-options.js';
 
-const positive = z.number().finite().positive();
+function trackSchemaOf(z: Zod) {
+  const positive = z.number().finite().positive();
 
-const road = { gradePct: z.number().finite().optional(), bankDeg: z.number().finite().optional() };
+  const road = { gradePct: z.number().finite().optional(), bankDeg: z.number().finite().optional() };
 
-const segmentSchema = z.discriminatedUnion('kind', [
-  z.strictObject({ kind: z.literal('straight'), lengthM: positive, ...road }),
-  z.strictObject({
-    kind: z.literal('arc'),
-    ...road,
-    radiusM: positive,
-    angleDeg: z
-      .number()
-      .finite()
-      .refine((v) => v !== 0, 'must not be 0'),
-  }),
-  z.strictObject({
-    kind: z.literal('transition'),
-    ...road,
-    lengthM: positive,
-    startCurvature: z.number().finite(),
-    endCurvature: z.number().finite(),
-  }),
-]);
+  const segmentSchema = z.discriminatedUnion('kind', [
+    z.strictObject({ kind: z.literal('straight'), lengthM: positive, ...road }),
+    z.strictObject({
+      kind: z.literal('arc'),
+      ...road,
+      radiusM: positive,
+      angleDeg: z
+        .number()
+        .finite()
+        .refine((v) => v !== 0, 'must not be 0'),
+    }),
+    z.strictObject({
+      kind: z.literal('transition'),
+      ...road,
+      lengthM: positive,
+      startCurvature: z.number().finite(),
+      endCurvature: z.number().finite(),
+    }),
+  ]);
 
-const trackSchema = z.strictObject({
-  name: z.string().min(1),
-  description: z.string().optional(),
-  closed: z.boolean(),
-  widthM: positive.optional(),
-  widthLeftM: positive.optional(),
-  widthRightM: positive.optional(),
-  startHeadingDeg: z.number().finite().optional(),
-  origin: z.strictObject({ latDeg: z.number().min(-90).max(90), lonDeg: z.number().min(-180).max(180) }).optional(),
-  corners: z.array(z.strictObject({ atM: z.number().finite().nonnegative(), name: z.string().min(1) })).optional(),
-  segments: z.array(segmentSchema).min(1),
-});
+  return z.strictObject({
+    name: z.string().min(1),
+    description: z.string().optional(),
+    closed: z.boolean(),
+    widthM: positive.optional(),
+    widthLeftM: positive.optional(),
+    widthRightM: positive.optional(),
+    startHeadingDeg: z.number().finite().optional(),
+    origin: z.strictObject({ latDeg: z.number().min(-90).max(90), lonDeg: z.number().min(-180).max(180) }).optional(),
+    corners: z.array(z.strictObject({ atM: z.number().finite().nonnegative(), name: z.string().min(1) })).optional(),
+    segments: z.array(segmentSchema).min(1),
+  });
+}
+
+let trackSchema: ReturnType<typeof trackSchemaOf> | undefined;
 
 function fieldPath(parts: PropertyKey[]): string {
   let text = '';
@@ -96,7 +101,7 @@ export function parseJsonText(text: string, source: string): unknown {
 
 export function parseTrackJson(text: string, source: string, options: TrackReadOptions): TrackGrid {
   const data = parseJsonText(text, source);
-  const parsed = trackSchema.safeParse(data);
+  const parsed = (trackSchema ??= trackSchemaOf(zodLibrary())).safeParse(data);
   if (!parsed.success) throw new InputError(zodMessage(parsed.error, source));
   const spec = parsed.data;
   const widthM = spec.widthM ?? options.widthM;
