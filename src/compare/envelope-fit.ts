@@ -12,7 +12,7 @@ import type { DemonstratedEnvelopeRecord, EnvelopeBand } from '../car/demonstrat
 import type { Envelope } from '../car/envelope.js';
 import { mpsToKph } from '../units.js';
 import { quantileSorted } from '../numeric/quantile.js';
-import { effectiveSampleSize, weightedQuantileSorted } from '../numeric/weighted-quantile.js';
+import { quantileWindow, windowShare } from '../numeric/weighted-quantile.js';
 
 export type { DemonstratedEnvelopeRecord, EnvelopeBand };
 export type EnvelopeDirection = 'brake' | 'accel' | 'left' | 'right';
@@ -72,15 +72,41 @@ export function directionOf(axMps2: number, ayMps2: number): EnvelopeDirection {
  * Weight of an acceleration vector in each direction's sector (into `out`): 1 well inside a sector, falling
  * linearly to 0 across the taper around each 45-degree boundary, so the two sectors' weights always sum to one.
  */
-export function sectorWeights(axMps2: number, ayMps2: number, taperRad: number, out: Float64Array): Float64Array {
+export function sectorWeights(
+  axMps2: number,
+  ayMps2: number,
+  taperRad: number,
+  out: Float64Array,
+  offset = 0,
+): Float64Array {
   const angle = Math.atan2(ayMps2, axMps2);
   for (let d = 0; d < 4; d++) {
     let off = Math.abs(angle - AXIS_RAD[d]!);
     if (off > Math.PI) off = 2 * Math.PI - off;
-    out[d] = taperRad > 0 ? Math.min(1, Math.max(0, (Math.PI / 4 + taperRad - off) / (2 * taperRad))) : 0;
+    out[offset + d] = taperRad > 0 ? Math.min(1, Math.max(0, (Math.PI / 4 + taperRad - off) / (2 * taperRad))) : 0;
   }
-  if (!(taperRad > 0)) out[DIRECTIONS.indexOf(directionOf(axMps2, ayMps2))] = 1;
+  if (!(taperRad > 0)) out[offset + DIRECTIONS.indexOf(directionOf(axMps2, ayMps2))] = 1;
   return out;
+}
+
+/** Largest sample count whose index fits beside the value in one sort key. */
+const PACKED_INDICES = 2 ** 22;
+
+/**
+ * Indices of non-negative values in increasing order of value. The native numeric sort of one key per sample (the
+ * value to 2^-20, about 1e-6, above the index: exact in a double for values under 256 and up to 2^22 samples) is
+ * several times faster than a sort with a comparator; ties closer than 1e-6 keep index order, which no quantile
+ * can tell apart. Longer logs take the comparator.
+ */
+function increasingOrder(values: Float64Array): Uint32Array {
+  const n = values.length;
+  if (n > PACKED_INDICES) return Uint32Array.from(values.keys()).sort((a, b) => values[a]! - values[b]!);
+  const keys = new Float64Array(n);
+  for (let i = 0; i < n; i++) keys[i] = Math.floor(Math.min(values[i]!, 255.999) * 2 ** 20) * PACKED_INDICES + i;
+  keys.sort();
+  const order = new Uint32Array(n);
+  for (let k = 0; k < n; k++) order[k] = keys[k]! % PACKED_INDICES;
+  return order;
 }
 
 export class EnvelopeFitError extends Error {}
@@ -94,62 +120,121 @@ function modelLimitMps2(model: Envelope, direction: number, speedMps: number): n
 
 const DIRECTION_WORDS = ['braking', 'acceleration', 'left turns', 'right turns'];
 
-/** Weighted values of one cell (a band and a direction). */
-interface Cell {
-  values: number[];
-  weights: number[];
+/** Cell kinds: the four directions, and left and right turns together. */
+const LATERAL = 4;
+const KINDS = 5;
+
+/** A cell's figure: its weighted quantile, Kish's effective sample size and its total weight. */
+interface CellFigure {
+  value: number;
+  effective: number;
+  total: number;
 }
 
-/** A cell's quantile and effective sample size, and their figures for several cells merged (the two sides). */
-function cellQuantile(cells: Cell[], q: number): { value: number; effective: number } {
-  const values: number[] = [];
-  const weights: number[] = [];
-  for (const cell of cells) {
-    for (let i = 0; i < cell.values.length; i++) {
-      if (cell.weights[i]! <= 0) continue;
-      values.push(cell.values[i]!);
-      weights.push(cell.weights[i]!);
+/** Weight of sample i in a kind's cell, before its speed weight. */
+function kindWeight(samples: MovingSamples, i: number, kind: number): number {
+  const w = samples.sectorWeight;
+  return kind === LATERAL ? w[4 * i + 2]! + w[4 * i + 3]! : w[4 * i + kind]!;
+}
+
+/** The kernels a fit reads: half-widths in bands (Infinity: one band holding every sample at full weight). */
+interface Kernels {
+  bandCount: number;
+  widthMps: number;
+  halfWidthBands: number[];
+}
+
+/** Cells (flat index) and weights of sample i in one kind under every kernel, into `out`; returns how many. */
+function cellsOf(samples: MovingSamples, i: number, kind: number, kernels: Kernels, out: CellBuffer): number {
+  const sector = kindWeight(samples, i, kind);
+  if (!(sector > 0)) return 0;
+  const position = samples.speedMps[i]! / kernels.widthMps - 0.5;
+  let count = 0;
+  let offset = 0;
+  for (const halfWidth of kernels.halfWidthBands) {
+    const bands = Number.isFinite(halfWidth) ? kernels.bandCount : 1;
+    const first = Number.isFinite(halfWidth) ? Math.max(0, Math.ceil(position - halfWidth)) : 0;
+    const last = Number.isFinite(halfWidth) ? Math.min(bands - 1, Math.floor(position + halfWidth)) : 0;
+    for (let b = first; b <= last; b++) {
+      const weight = Number.isFinite(halfWidth) ? sector * (1 - Math.abs(position - b) / halfWidth) : sector;
+      if (!(weight > 0)) continue;
+      out.cells[count] = (offset + b) * KINDS + kind;
+      out.weights[count++] = weight;
     }
+    offset += bands;
   }
-  const order = Array.from(values.keys()).sort((a, b) => values[a]! - values[b]!);
-  const sortedValues = Float64Array.from(order, (i) => values[i]!);
-  const sortedWeights = Float64Array.from(order, (i) => weights[i]!);
-  return { value: weightedQuantileSorted(sortedValues, sortedWeights, q), effective: effectiveSampleSize(weights) };
+  return count;
+}
+
+interface CellBuffer {
+  cells: Int32Array;
+  weights: Float64Array;
 }
 
 /**
- * The cells of every band under a triangular speed kernel of the given half-width around each band centre (an
- * infinite half-width: every sample at full weight in one band) and each sample's sector weights.
+ * Figures of every cell under every kernel (indexed [kernel][band][kind]). Each cell's quantile is the weighted
+ * type 7 quantile of src/numeric/weighted-quantile.ts, with its coefficients summed in one walk down each axis's
+ * sorted values: a cell is done once the walk is below its window, so only the top few per cent of each cell are
+ * read, and nothing is allocated per sample.
  */
-function collectCells(
-  samples: MovingSamples,
-  bandCount: number,
-  options: EnvelopeFitOptions,
-  halfWidthBands: number,
-): Cell[][] {
-  const cells: Cell[][] = Array.from({ length: bandCount }, () =>
-    DIRECTIONS.map(() => ({ values: [] as number[], weights: [] as number[] })),
-  );
-  const width = options.bandWidthMps;
-  for (let i = 0; i < samples.speedMps.length; i++) {
-    const v = samples.speedMps[i]!;
-    const position = v / width - 0.5;
-    const first = Number.isFinite(halfWidthBands) ? Math.max(0, Math.ceil(position - halfWidthBands)) : 0;
-    const last = Number.isFinite(halfWidthBands)
-      ? Math.min(bandCount - 1, Math.floor(position + halfWidthBands))
-      : bandCount - 1;
-    for (let b = first; b <= last; b++) {
-      const speedWeight = Number.isFinite(halfWidthBands) ? 1 - Math.abs(position - b) / halfWidthBands : 1;
-      if (!(speedWeight > 0)) continue;
-      for (let d = 0; d < 4; d++) {
-        const weight = speedWeight * samples.sectorWeight[4 * i + d]!;
-        if (!(weight > 0)) continue;
-        cells[b]![d]!.values.push(d < 2 ? Math.abs(samples.axMps2[i]!) : Math.abs(samples.ayMps2[i]!));
-        cells[b]![d]!.weights.push(weight);
+function cellFigures(samples: MovingSamples, kernels: Kernels, q: number): CellFigure[][][] {
+  const sizes = kernels.halfWidthBands.map((h) => (Number.isFinite(h) ? kernels.bandCount : 1));
+  const cellCount = sizes.reduce((sum, size) => sum + size, 0) * KINDS;
+  const total = new Float64Array(cellCount);
+  const squares = new Float64Array(cellCount);
+  const fromTop = new Float64Array(cellCount);
+  const value = new Float64Array(cellCount);
+  const done = new Uint8Array(cellCount);
+  const capacity = kernels.halfWidthBands.reduce((sum, h) => sum + (Number.isFinite(h) ? 2 * Math.ceil(h) + 1 : 1), 0);
+  const buffer: CellBuffer = { cells: new Int32Array(capacity), weights: new Float64Array(capacity) };
+  const n = samples.speedMps.length;
+  for (let i = 0; i < n; i++) {
+    for (let kind = 0; kind < KINDS; kind++) {
+      const count = cellsOf(samples, i, kind, kernels, buffer);
+      for (let j = 0; j < count; j++) {
+        const c = buffer.cells[j]!;
+        const w = buffer.weights[j]!;
+        total[c] = total[c]! + w;
+        squares[c] = squares[c]! + w * w;
       }
     }
   }
-  return cells;
+  const windows = Array.from(total, (sum, c) => quantileWindow(sum > 0 ? (sum * sum) / squares[c]! : 0, q));
+  for (let c = 0; c < cellCount; c++) if (!(total[c]! > 0)) done[c] = 1;
+  for (const [order, values, kinds] of [
+    [samples.byAx, samples.axMps2, [0, 1]],
+    [samples.byAy, samples.ayMps2, [2, 3, LATERAL]],
+  ] as const) {
+    for (let k = n - 1; k >= 0; k--) {
+      const i = order[k]!;
+      for (const kind of kinds) {
+        const count = cellsOf(samples, i, kind, kernels, buffer);
+        for (let j = 0; j < count; j++) {
+          const c = buffer.cells[j]!;
+          if (done[c]) continue;
+          const above = fromTop[c]!;
+          const below = above + buffer.weights[j]!;
+          fromTop[c] = below;
+          const lowShare = below >= total[c]! ? 0 : 1 - below / total[c]!;
+          const lowWindow = windowShare(windows[c]!, lowShare);
+          value[c] = value[c]! + (windowShare(windows[c]!, 1 - above / total[c]!) - lowWindow) * values[i]!;
+          if (lowWindow <= 0) done[c] = 1;
+        }
+      }
+    }
+  }
+  let offset = 0;
+  return sizes.map((size) => {
+    const figures = Array.from({ length: size }, (_, b) =>
+      Array.from({ length: KINDS }, (_, kind) => {
+        const c = (offset + b) * KINDS + kind;
+        const sum = total[c]!;
+        return { value: sum > 0 ? value[c]! : NaN, effective: windows[c]!.effective, total: sum };
+      }),
+    );
+    offset += size;
+    return figures;
+  });
 }
 
 interface MovingSamples {
@@ -158,25 +243,39 @@ interface MovingSamples {
   ayMps2: Float64Array;
   /** Four sector weights per sample. */
   sectorWeight: Float64Array;
+  /** Sample indices in increasing order of |ax| and of |ay|. */
+  byAx: Uint32Array;
+  byAy: Uint32Array;
 }
 
 function movingSamples(samples: EnvelopeSamples, options: EnvelopeFitOptions): MovingSamples {
   const { speedMps, axMps2, ayMps2 } = samples;
-  const keep: number[] = [];
+  let count = 0;
+  const keep = new Uint32Array(speedMps.length);
   for (let i = 0; i < speedMps.length; i++) {
     const v = speedMps[i]!;
     if (v >= options.minSpeedMps && Number.isFinite(v) && Number.isFinite(axMps2[i]!) && Number.isFinite(ayMps2[i]!))
-      keep.push(i);
+      keep[count++] = i;
   }
-  const sectorWeight = new Float64Array(4 * keep.length);
+  const speed = new Float64Array(count);
+  const ax = new Float64Array(count);
+  const ay = new Float64Array(count);
+  const sectorWeight = new Float64Array(4 * count);
   const taperRad = (options.sectorTaperDeg * Math.PI) / 180;
-  for (const [k, i] of keep.entries())
-    sectorWeights(axMps2[i]!, ayMps2[i]!, taperRad, sectorWeight.subarray(4 * k, 4 * k + 4));
+  for (let k = 0; k < count; k++) {
+    const i = keep[k]!;
+    speed[k] = speedMps[i]!;
+    ax[k] = Math.abs(axMps2[i]!);
+    ay[k] = Math.abs(ayMps2[i]!);
+    sectorWeights(axMps2[i]!, ayMps2[i]!, taperRad, sectorWeight, 4 * k);
+  }
   return {
-    speedMps: Float64Array.from(keep, (i) => speedMps[i]!),
-    axMps2: Float64Array.from(keep, (i) => axMps2[i]!),
-    ayMps2: Float64Array.from(keep, (i) => ayMps2[i]!),
+    speedMps: speed,
+    axMps2: ax,
+    ayMps2: ay,
     sectorWeight,
+    byAx: increasingOrder(ax),
+    byAy: increasingOrder(ay),
   };
 }
 
@@ -189,7 +288,7 @@ function credibility(effective: number, minSamples: number): number {
 }
 
 /** Weight of a cell's own figure over what it borrows (none where it has no figure). */
-function ownWeight(cell: { value: number; effective: number }, minSamples: number): number {
+function ownWeight(cell: CellFigure, minSamples: number): number {
   return Number.isFinite(cell.value) ? credibility(cell.effective, minSamples) : 0;
 }
 
@@ -212,41 +311,35 @@ export function fitEnvelope(
   const sortedSpeeds = Float64Array.from(moving.speedMps).sort();
   const topSpeedMps = quantileSorted(sortedSpeeds, 0.999);
   const bandCount = Math.max(1, Math.ceil(topSpeedMps / options.bandWidthMps));
-  const own = collectCells(moving, bandCount, options, options.kernelBands);
-  const pool = collectCells(moving, bandCount, options, options.poolBands);
-  const all = collectCells(moving, 1, options, Infinity)[0]!;
-  const totals = all.map((cell) => cell.weights.reduce((sum, w) => sum + w, 0));
+  const q = options.quantile;
+  const [own, pool, everySpeed] = cellFigures(
+    moving,
+    { bandCount, widthMps: options.bandWidthMps, halfWidthBands: [options.kernelBands, options.poolBands, Infinity] },
+    q,
+  ) as [CellFigure[][], CellFigure[][], CellFigure[][]];
+  const all = everySpeed[0]!;
   if (!carModel) {
-    for (const [d, total] of totals.entries()) {
+    for (let d = 0; d < 4; d++) {
+      const total = all[d]!.total;
       if (total < options.minSamples)
         throw new EnvelopeFitError(
           `only ${Math.round(total)} samples of ${DIRECTION_WORDS[d]}; at least ${options.minSamples} are needed (or give the car, whose model fills thin parts)`,
         );
     }
   }
-  const q = options.quantile;
-  const overall = [
-    cellQuantile([all[0]!], q).value,
-    cellQuantile([all[1]!], q).value,
-    cellQuantile([all[2]!, all[3]!], q).value,
-  ];
   const bands: EnvelopeBand[] = [];
   const fromModel: string[][] = DIRECTIONS.map(() => []);
   for (let b = 0; b < bandCount; b++) {
-    const weightInBand = own[b]!.reduce((sum, cell) => sum + cell.weights.reduce((s, w) => s + w, 0), 0);
+    const weightInBand = own[b]![0]!.total + own[b]![1]!.total + own[b]![2]!.total + own[b]![3]!.total;
     if (!(weightInBand > 0)) continue;
     const speedMps = (b + 0.5) * options.bandWidthMps;
-    const last = (d: number) => (carModel ? modelLimitMps2(carModel, d, speedMps) : overall[Math.min(d, 2)]!);
+    const last = (d: number) => (carModel ? modelLimitMps2(carModel, d, speedMps) : all[d < 2 ? d : LATERAL]!.value);
     const limit = [0, 0, 0, 0];
     for (let d = 0; d < 4; d++) {
       const lateral = d >= 2;
       // From the most local figure to the least: this side in this band, both sides in this band (a side short
       // of samples borrows the other side's figure before the neighbouring speeds'), the wider kernel, the last.
-      const chain = [
-        cellQuantile([own[b]![d]!], q),
-        ...(lateral ? [cellQuantile([own[b]![2]!, own[b]![3]!], q)] : []),
-        cellQuantile(lateral ? [pool[b]![2]!, pool[b]![3]!] : [pool[b]![d]!], q),
-      ];
+      const chain = [own[b]![d]!, ...(lateral ? [own[b]![LATERAL]!] : []), pool[b]![lateral ? LATERAL : d]!];
       let value = last(d);
       let fallbackShare = 1;
       for (let k = chain.length - 1; k >= 0; k--) {

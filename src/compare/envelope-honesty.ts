@@ -38,12 +38,12 @@ interface RaisedRun<T> {
  */
 function leastRaise<T>(
   run: (factor: number) => RaisedRun<T>,
-  slowerAtOneS: number,
+  low: { factor: number; gapS: number },
   top: RaisedRun<T>,
   drivenS: number,
 ): RaisedRun<T> {
-  let lo = 1;
-  let gapLo = slowerAtOneS;
+  let lo = low.factor;
+  let gapLo = low.gapS;
   let hi = top;
   let gapHi = top.lap.lapTimeS - drivenS;
   let side = 0;
@@ -127,13 +127,20 @@ export function honestyChecks(input: HonestyInput): HonestyResult {
       return { factor, scaled, scaledEnvelope, lap: simulate(track, car, { ...drive, envelope: scaledEnvelope }) };
     };
     const fitS = lap.lapTimeS;
-    const top = run(MAX_RAISE);
+    // First try the factor a grip-limited lap asks for (time as 1 / sqrt(grip): uniform circular motion); it
+    // usually brackets the root with the fit itself, and the search rarely needs the largest raise.
+    const guess = run(Math.min(MAX_RAISE, (fitS / drivenS) ** 2));
+    const guessFits = guess.lap.lapTimeS <= drivenS;
+    const top = guessFits ? guess : run(MAX_RAISE);
+    const low = guessFits
+      ? { factor: 1, gapS: fitS - drivenS }
+      : { factor: guess.factor, gapS: guess.lap.lapTimeS - drivenS };
     if (top.lap.lapTimeS > drivenS) {
       notes.push(
         `the lap on the grip already shown (${formatLapTime(fitS)}) is slower than the driven lap (${formatLapTime(drivenS)}) even with its limits raised by ${((MAX_RAISE - 1) * 100).toFixed(0)} %: the driver's path or the track file does not match the reference's`,
       );
     } else {
-      const best = leastRaise(run, fitS - drivenS, top, drivenS);
+      const best = leastRaise(run, low, top, drivenS);
       record = best.scaled;
       envelope = best.scaledEnvelope;
       lap = best.lap;
