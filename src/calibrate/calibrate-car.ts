@@ -63,23 +63,19 @@ function withFields(car: Car, values: readonly { field: string; value: number }[
   return out;
 }
 
-export function calibrateCar(
+/**
+ * The drive and grip fits in turn, since each needs the other's answer (the drive force decides which samples the
+ * tyres limit; the downforce sets the rolling resistance and the coasting): drive, grip from the samples the base
+ * car's grip chooses, drive, grip again from the samples the first grip chooses, drive.
+ */
+function alternateFits(
   base: Car,
   ambient: Ambient,
   samples: CalibrationSamples,
-  options: CalibrateOptions = {},
-): CalibrationResult {
-  if (base.model === 'bicycle' && base.aero.frontDownforceFraction === null) {
-    // The fit tries downforce on every car; the bicycle model cannot place it on the axles without the balance.
-    throw new InputError(
-      `car ${base.name}: calibrating with the bicycle model fits the downforce, which needs field aero.frontDownforceFraction (the front axle's share); add it to the car file`,
-    );
-  }
+  options: CalibrateOptions,
+): { drive: DriveFit; grip: GripFit; gripped: Car } {
   const driveOptions = options.drive ?? DEFAULT_DRIVE_FIT;
   const gripOptions = options.grip ?? DEFAULT_GRIP_FIT;
-  // Each fit needs the other's answer (the drive force decides which samples the tyres limit; the downforce sets the
-  // rolling resistance and the coasting): drive, grip from the samples the base car's grip chooses, drive, grip again
-  // from the samples the first grip chooses, drive.
   const drivenBy = (car: Car, fit: DriveFit) =>
     withFields(withDriveScaled(car, fit.driveScale), [{ field: DRAG_FIELD, value: fit.dragAreaM2 }]);
   const gripOf = (fit: GripFit) => fit.fields.map((field, k) => ({ field, value: fit.values[k]! }));
@@ -98,13 +94,15 @@ export function calibrateCar(
         );
   const gripped = withFields(base, gripOf(grip));
   const drive = fitDrive(gripped, ambient, samples, driveOptions);
-  const notes = [...samples.notes, ...drive.notes, ...grip.notes];
-  if (base.model === 'bicycle' && grip.fields.length > 0) {
-    notes.push(
-      'grip fitted on the point-mass envelope: with the bicycle model the load transfer between the wheels lowers the limits a little below what the log showed',
-    );
-  }
+  return { drive, grip, gripped };
+}
 
+/** Which values the log determined (with their standard errors) and which are kept as given, and why. */
+function fittedAndKept(
+  base: Car,
+  drive: DriveFit,
+  grip: GripFit,
+): { fitted: FittedValue[]; kept: KeptValue[]; powerFitted: boolean } {
   const fitted: FittedValue[] = [];
   const kept: KeptValue[] = [];
   const basePower = base.powertrain.maxPowerW;
@@ -149,15 +147,11 @@ export function calibrateCar(
   });
   for (const { field, reason } of grip.kept) kept.push({ field, value: readCarField(base, field) ?? 0, reason });
 
-  const problems = fitted.flatMap(({ field, value }) => outOfBounds(field, value) ?? []);
-  if (problems.length > 0)
-    throw new InputError(`${samples.source}: calibration refused: ${problems.join('; ')}; nothing written`);
+  return { fitted, kept, powerFitted };
+}
 
-  // Values kept to the digits their standard errors justify (three significant digits of the error), errors to two.
-  for (const f of fitted) {
-    f.value = roundToError(f.value, f.sd);
-    f.sd = Number(f.sd.toPrecision(2));
-  }
+/** The car with the fitted values (a fitted power scales the drive, gearing's torque curve rounded to 0.1 N m). */
+function carWithFitted(gripped: Car, fitted: readonly FittedValue[], drive: DriveFit, powerFitted: boolean): Car {
   let car = powerFitted ? withDriveScaled(gripped, drive.driveScale) : gripped;
   car = withFields(car, fitted);
   const gearing = car.powertrain.gearing;
@@ -176,8 +170,41 @@ export function calibrateCar(
       },
     };
   }
-  car = {
-    ...car,
+  return car;
+}
+
+export function calibrateCar(
+  base: Car,
+  ambient: Ambient,
+  samples: CalibrationSamples,
+  options: CalibrateOptions = {},
+): CalibrationResult {
+  if (base.model === 'bicycle' && base.aero.frontDownforceFraction === null) {
+    // The fit tries downforce on every car; the bicycle model cannot place it on the axles without the balance.
+    throw new InputError(
+      `car ${base.name}: calibrating with the bicycle model fits the downforce, which needs field aero.frontDownforceFraction (the front axle's share); add it to the car file`,
+    );
+  }
+  const { drive, grip, gripped } = alternateFits(base, ambient, samples, options);
+  const notes = [...samples.notes, ...drive.notes, ...grip.notes];
+  if (base.model === 'bicycle' && grip.fields.length > 0) {
+    notes.push(
+      'grip fitted on the point-mass envelope: with the bicycle model the load transfer between the wheels lowers the limits a little below what the log showed',
+    );
+  }
+
+  const { fitted, kept, powerFitted } = fittedAndKept(base, drive, grip);
+  const problems = fitted.flatMap(({ field, value }) => outOfBounds(field, value) ?? []);
+  if (problems.length > 0)
+    throw new InputError(`${samples.source}: calibration refused: ${problems.join('; ')}; nothing written`);
+
+  // Values kept to the digits their standard errors justify (three significant digits of the error), errors to two.
+  for (const f of fitted) {
+    f.value = roundToError(f.value, f.sd);
+    f.sd = Number(f.sd.toPrecision(2));
+  }
+  const car = {
+    ...carWithFitted(gripped, fitted, drive, powerFitted),
     name: `${base.name} (fitted)`,
     uncertainty: uncertaintyOf(base, fitted, drive, grip, powerFitted),
     origin: originOf(base, samples, fitted, kept, drive, grip),
