@@ -312,6 +312,63 @@ export function insideSkewSignificant(e: Float64Array, clusters: number): boolea
   return z < -1.6449;
 }
 
+/** The profile Hessian in theta: the Schur complement of the noise block (the theta block alone where the noise
+ * block is singular). */
+function profileHessian(hessian: Matrix, p: number): Matrix {
+  const m = hessian.rows;
+  const thetaBlock = hessian.subMatrix(0, p - 1, 0, p - 1);
+  const cross = hessian.subMatrix(0, p - 1, p, m - 1);
+  const noiseBlock = hessian.subMatrix(p, m - 1, p, m - 1);
+  try {
+    return thetaBlock.sub(cross.mmul(inverse(noiseBlock)).mmul(cross.transpose()));
+  } catch {
+    return thetaBlock;
+  }
+}
+
+/**
+ * The parameters' covariance at the answer (Jacobian by central differences): the inverse information, inflated
+ * for serially correlated samples where asked, or the cluster-robust sandwich where it is the more cautious.
+ */
+function covarianceAt(
+  problem: FrontierProblem,
+  theta: Float64Array,
+  jacobian: Float64Array,
+  e: Float64Array,
+  d: Float64Array,
+  noise: NoiseState,
+): { covariance: Matrix; varianceInflation: number; logLikelihood: number } {
+  const p = theta.length;
+  const n = problem.count;
+  const { c, lambda, lambdaFixed } = noise;
+  residualJacobian(problem, theta, jacobian);
+  const logLikelihood = derivatives(e, c, lambda, d);
+  const { hessian } = assemble(d, jacobian, n, p, !lambdaFixed);
+  const m = hessian.rows;
+  const informationInverse = invertOrPseudo(hessian.clone().mul(-1));
+  let robust: Matrix | null = null;
+  if (problem.clusters >= MIN_CLUSTERS) {
+    const scores = new Float64Array(n * m);
+    for (let i = 0; i < n; i++) {
+      const o = i * STRIDE;
+      for (let k = 0; k < p; k++) scores[i * m + k] = d[o + 1]! * jacobian[i * p + k]!;
+      scores[i * m + p] = d[o + 2]!;
+      if (!lambdaFixed) scores[i * m + p + 1] = d[o + 3]!;
+    }
+    robust = sandwich(informationInverse, clusterScoreProduct(scores, m, problem.cluster, problem.clusters));
+  }
+  // Classical variances assume independent samples; smoothed channels are not (the factor is 1 when not asked for).
+  const varianceInflation = problem.serialCorrelation
+    ? ar1VarianceInflation(lag1Autocorrelation(e, problem.cluster), n)
+    : 1;
+  const classical = varianceInflation > 1 ? informationInverse.clone().mul(varianceInflation) : informationInverse;
+  const chosen = conservativeCovariance(classical, robust, problem.clusters);
+  const covariance = Matrix.zeros(p, p);
+  for (let j = 0; j < p; j++)
+    for (let k = 0; k < p; k++) covariance.set(j, k, chosen.get(j, k) * problem.scales[j]! * problem.scales[k]!);
+  return { covariance, varianceInflation, logLikelihood };
+}
+
 export function fitFrontier(problem: FrontierProblem, start: Float64Array): FrontierFit {
   const p = start.length;
   const n = problem.count;
@@ -340,18 +397,7 @@ export function fitFrontier(problem: FrontierProblem, start: Float64Array): Fron
   for (; iterations < MAX_ITERATIONS; iterations++) {
     residualJacobian(problem, theta, jacobian, e);
     const { gradient, hessian } = assemble(d, jacobian, n, p, !noise.lambdaFixed);
-    // Profile Hessian in theta: the Schur complement of the noise block.
-    const m = hessian.rows;
-    const thetaBlock = hessian.subMatrix(0, p - 1, 0, p - 1);
-    const cross = hessian.subMatrix(0, p - 1, p, m - 1);
-    const noiseBlock = hessian.subMatrix(p, m - 1, p, m - 1);
-    let profile = thetaBlock;
-    try {
-      profile = thetaBlock.sub(cross.mmul(inverse(noiseBlock)).mmul(cross.transpose()));
-    } catch {
-      // A singular noise block: fall back to the theta block alone.
-    }
-    const step = newtonStep(gradient.subarray(0, p), profile);
+    const step = newtonStep(gradient.subarray(0, p), profileHessian(hessian, p));
     let decrement = 0;
     if (step) for (let j = 0; j < p; j++) decrement += step[j]! * gradient[j]!;
     let improved = false;
@@ -393,33 +439,8 @@ export function fitFrontier(problem: FrontierProblem, start: Float64Array): Fron
     }
   }
 
-  const { c, lambda, lambdaFixed } = noise;
-  // Covariance at the answer, with central differences.
-  residualJacobian(problem, theta, jacobian);
-  current = derivatives(e, c, lambda, d);
-  const { hessian } = assemble(d, jacobian, n, p, !lambdaFixed);
-  const m = hessian.rows;
-  const informationInverse = invertOrPseudo(hessian.clone().mul(-1));
-  let robust: Matrix | null = null;
-  if (problem.clusters >= MIN_CLUSTERS) {
-    const scores = new Float64Array(n * m);
-    for (let i = 0; i < n; i++) {
-      const o = i * STRIDE;
-      for (let k = 0; k < p; k++) scores[i * m + k] = d[o + 1]! * jacobian[i * p + k]!;
-      scores[i * m + p] = d[o + 2]!;
-      if (!lambdaFixed) scores[i * m + p + 1] = d[o + 3]!;
-    }
-    robust = sandwich(informationInverse, clusterScoreProduct(scores, m, problem.cluster, problem.clusters));
-  }
-  // Classical variances assume independent samples; smoothed channels are not (the factor is 1 when not asked for).
-  const varianceInflation = problem.serialCorrelation
-    ? ar1VarianceInflation(lag1Autocorrelation(e, problem.cluster), n)
-    : 1;
-  const classical = varianceInflation > 1 ? informationInverse.clone().mul(varianceInflation) : informationInverse;
-  const chosen = conservativeCovariance(classical, robust, problem.clusters);
-  const covariance = Matrix.zeros(p, p);
-  for (let j = 0; j < p; j++)
-    for (let k = 0; k < p; k++) covariance.set(j, k, chosen.get(j, k) * problem.scales[j]! * problem.scales[k]!);
+  const { c, lambda } = noise;
+  const { covariance, varianceInflation, logLikelihood } = covarianceAt(problem, theta, jacobian, e, d, noise);
   const sigma = Math.exp(c);
   const sigmaV = sigma / Math.sqrt(1 + lambda * lambda);
   return {
@@ -427,7 +448,7 @@ export function fitFrontier(problem: FrontierProblem, start: Float64Array): Fron
     covariance,
     sigmaV,
     sigmaU: lambda * sigmaV,
-    logLikelihood: current,
+    logLikelihood,
     iterations,
     converged,
     jacobian,
