@@ -5,7 +5,7 @@
 import { describe, expect, it } from 'vitest';
 import { createHash } from 'node:crypto';
 import { escapeHtml, jsonForScript } from '../../src/report/html/escape.js';
-import { carGgHtml } from '../../src/report/car-description.js';
+import { carPageHtml } from '../../src/report/html/car-page.js';
 import { describeCar } from '../../src/car/describe.js';
 import { buildEnvelope } from '../../src/car/build-envelope.js';
 import { ambientFrom } from '../../src/car/ambient.js';
@@ -36,7 +36,7 @@ describe('the car page', () => {
   const hostileName = `<img src=x onerror="window.__carInjected=1"> ${OVERRIDDEN}`;
   const car = { ...testCar(), name: hostileName };
   const envelope = buildEnvelope(car, ambientFrom());
-  const page = carGgHtml(describeCar(car, ambientFrom(), envelope), envelope);
+  const page = carPageHtml(describeCar(car, ambientFrom(), envelope), envelope);
 
   it('has a Content-Security-Policy admitting only its own style sheet, no script, no network', () => {
     const csp = /<meta http-equiv="Content-Security-Policy" content="([^"]+)">/.exec(page)?.[1];

@@ -6,7 +6,8 @@ import { addCarOptions, inputFilesOf, loadCar, type CarOptionValues } from '../o
 import { outputBatch } from '../output.js';
 import { buildEnvelope } from '../../car/build-envelope.js';
 import { describeCar } from '../../car/describe.js';
-import { carDescriptionText, carGgHtml } from '../../report/car-description.js';
+import { carDescriptionText } from '../../report/car-description.js';
+import { carPageHtml } from '../../report/html/car-page.js';
 import { addUnitsOption, unitsOf, type UnitsOptionValues } from '../units-option.js';
 import { roundedJson } from '../../report/json-numbers.js';
 
@@ -22,7 +23,10 @@ export function register(program: Command): void {
   addCarOptions(command);
   command
     .option('--json', 'print one JSON object instead of the text')
-    .option('--html <file>', 'also write a g-g-v picture of the envelope (one self-contained HTML page)');
+    .option(
+      '--html <file>',
+      'also write the car page: the g-g-v envelope and its figures (one self-contained HTML page)',
+    );
   addUnitsOption(command).action((values: CarValues) => runCar(values));
 }
 
@@ -32,7 +36,7 @@ export function runCar(values: CarValues): void {
   const envelope = buildEnvelope(car, ambient);
   const description = describeCar(car, ambient, envelope);
   const outputs = outputBatch(inputFilesOf(values));
-  if (values.html) outputs.add(values.html, carGgHtml(description, envelope, units));
+  if (values.html) outputs.add(values.html, carPageHtml(description, envelope, units));
   outputs.commit();
   if (values.json) {
     process.stdout.write(roundedJson(description));

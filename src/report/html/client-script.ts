@@ -72,6 +72,15 @@ const SCRIPT_BODY = String.raw`(function () {
       ticks.appendChild(label);
     });
   }
+  // Corner numbers stay at their apex: the whole lap shows the ones that fit; a zoomed corner shows every one inside it.
+  function placeCornerLabels(svg, plot, zoomed) {
+    Array.prototype.slice.call(svg.querySelectorAll('.corner-label')).forEach(function (text) {
+      var at = +text.getAttribute('data-at');
+      var inside = at >= domain[0] && at <= domain[1];
+      text.setAttribute('x', plot.left + ((at - domain[0]) / (domain[1] - domain[0])) * plot.width);
+      text.setAttribute('visibility', !inside ? 'hidden' : zoomed ? 'visible' : text.getAttribute('data-whole'));
+    });
+  }
   function zoomTo(from, to, label) {
     domain = [from, to];
     var k = data.length / (to - from);
@@ -92,6 +101,7 @@ const SCRIPT_BODY = String.raw`(function () {
       }
       svg.querySelector('.zoom').setAttribute('transform', 'translate(' + plot.left + yPart + ' translate(' + shift + ' 0)');
       drawAxis(svg, plot);
+      placeCornerLabels(svg, plot, Boolean(label));
     });
     document.body.setAttribute('data-zoom', label ? 'corner' : 'lap');
     resetButton.disabled = !label;

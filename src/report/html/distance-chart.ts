@@ -1,6 +1,7 @@
 // One chart against distance along the lap (speed, time delta, pedals, grip use), drawn with d3-shape.
 // Series are placed in full-lap coordinates inside a `zoom` group; the page's script zooms by changing that
-// group's transform, and vector-effect keeps the strokes their width.
+// group's transform, and vector-effect keeps the strokes their width. The corners are numbered at their apex in a
+// strip above the plot, the labels kept apart by greedy placement (label-placement.ts).
 
 import { area, line } from 'd3-shape';
 import { escapeHtml } from './escape.js';
@@ -8,12 +9,16 @@ import { minMaxIndices } from './downsample.js';
 import { coord, linearScale } from './scale.js';
 import { legendRow, svgElement, tickText, xAxis, yAxis, type LegendItem, type SvgOptions } from './svg-frame.js';
 import { PALETTE } from './palette.js';
+import { boxAround, placeLabels, textWidth, type LabelBox } from './label-placement.js';
 
 export const CHART_WIDTH = 960;
 export const PLOT_LEFT = 62;
 export const PLOT_RIGHT = 16;
 const PLOT_TOP = 30;
 const PLOT_BOTTOM = 28;
+/** Two rows of corner labels above the plot, where a chart numbers its corners. */
+const CORNER_ROW_PX = 12;
+export const CORNER_STRIP_PX = 2 * CORNER_ROW_PX;
 
 /** Samples per drawn bucket: about one bucket per this many metres keeps a 5 km lap light. */
 export const DRAW_BUCKET_M = 4;
@@ -77,13 +82,57 @@ export interface DistanceChartSpec {
   rescaleKeys?: string[];
   /** Keep zero inside the zoomed axis (a delta reads against zero). */
   rescaleWithZero?: boolean;
+  /** The lap's corners, numbered (and named where the track names them) at their apex above the plot. */
+  corners?: { id: number; name: string | null; apexM: number }[];
+}
+
+/** A corner's label above the plot: where it sits, its text, and whether the whole-lap view shows it. */
+export interface CornerLabel {
+  id: number;
+  text: string;
+  x: number;
+  y: number;
+  shown: boolean;
+}
+
+/** Each corner's label at its apex: the number and name where both fit, else the number alone, in the first of two
+ * rows where it clears the labels before it; a label that fits nowhere is hidden until the page zooms in. */
+export function cornerLabels(
+  corners: NonNullable<DistanceChartSpec['corners']>,
+  apexX: (apexM: number) => number,
+  plotLeft: number,
+  plotRight: number,
+  stripTop: number,
+): CornerLabel[] {
+  const rows = [stripTop + CORNER_ROW_PX / 2, stripTop + CORNER_ROW_PX * 1.5];
+  const texts = corners.map((c) => (c.name ? [`${c.id} ${c.name}`, String(c.id)] : [String(c.id)]));
+  const boxOf = (text: string, x: number, y: number): LabelBox =>
+    boxAround(x, y, textWidth(text, 10) + 4, CORNER_ROW_PX - 4);
+  const candidates = corners.map((corner, k) => {
+    const x = apexX(corner.apexM);
+    return texts[k]!.flatMap((text) => rows.map((y) => ({ text, y, box: boxOf(text, x, y) })));
+  });
+  const within = { x: plotLeft - 6, y: stripTop, width: plotRight - plotLeft + 12, height: 2 * CORNER_ROW_PX };
+  const chosen = placeLabels(
+    candidates.map((list) => list.map((c) => c.box)),
+    { within, gap: 3 },
+  );
+  return corners.map((corner, k) => {
+    const pick = chosen[k]!;
+    const place = candidates[k]![Math.max(0, pick)]!;
+    const text = pick >= 0 ? place.text : String(corner.id);
+    return { id: corner.id, text, x: apexX(corner.apexM), y: place.y, shown: pick >= 0 };
+  });
 }
 
 export function distanceChartSvg(spec: DistanceChartSpec, options: SvgOptions): string {
   const plotWidth = CHART_WIDTH - PLOT_LEFT - PLOT_RIGHT;
-  const plotBottom = spec.height - PLOT_BOTTOM;
-  const plotHeight = plotBottom - PLOT_TOP;
-  const y = linearScale(spec.yDomain, [plotBottom, PLOT_TOP]);
+  const strip = spec.corners?.length ? CORNER_STRIP_PX : 0;
+  const height = spec.height + strip;
+  const plotTop = PLOT_TOP + strip;
+  const plotBottom = height - PLOT_BOTTOM;
+  const plotHeight = plotBottom - plotTop;
+  const y = linearScale(spec.yDomain, [plotBottom, plotTop]);
   const x = (distanceM: number) => (distanceM / spec.lengthM) * plotWidth;
   const format = spec.yFormat ?? tickText;
   const bucket = Math.max(1, Math.round(DRAW_BUCKET_M / spec.stepM));
@@ -99,7 +148,7 @@ export function distanceChartSvg(spec: DistanceChartSpec, options: SvgOptions): 
   ];
   body += legendRow(legendItems, CHART_WIDTH - PLOT_RIGHT, 16);
   body += yAxis(y, PLOT_LEFT, PLOT_LEFT + plotWidth, spec.yTitle, format);
-  body += `<clipPath id="${clipId}"><rect x="${PLOT_LEFT}" y="${PLOT_TOP - 2}" width="${plotWidth}" height="${plotHeight + 4}"/></clipPath>`;
+  body += `<clipPath id="${clipId}"><rect x="${PLOT_LEFT}" y="${plotTop - 2}" width="${plotWidth}" height="${plotHeight + 4}"/></clipPath>`;
   body += `<g clip-path="url(#${clipId})"><g class="zoom" transform="translate(${PLOT_LEFT} 0)">`;
   for (const band of spec.bands ?? []) {
     const top = y(Math.min(band.to, spec.yDomain[1]));
@@ -108,7 +157,7 @@ export function distanceChartSvg(spec: DistanceChartSpec, options: SvgOptions): 
   }
   for (const span of spec.spans ?? []) {
     const left = x(span.fromM);
-    body += `<rect class="span" x="${coord(left)}" width="${coord(Math.max(0.8, x(span.toM) - left))}" y="${PLOT_TOP}" height="${plotHeight}" fill="${span.colour}"/>`;
+    body += `<rect class="span" x="${coord(left)}" width="${coord(Math.max(0.8, x(span.toM) - left))}" y="${plotTop}" height="${plotHeight}" fill="${span.colour}"/>`;
   }
   for (const guide of spec.guides ?? []) {
     body += `<line x1="0" x2="${plotWidth}" y1="${coord(y(guide))}" y2="${coord(y(guide))}" stroke="#777" stroke-dasharray="4 3" vector-effect="non-scaling-stroke"/>`;
@@ -149,28 +198,58 @@ export function distanceChartSvg(spec: DistanceChartSpec, options: SvgOptions): 
       `<path class="series" d="${path ?? ''}" fill="none" stroke="${series.colour}" stroke-width="${series.width ?? 1.6}" ` +
       `stroke-linejoin="round"${series.dash ? ` stroke-dasharray="${series.dash}"` : ''} vector-effect="non-scaling-stroke"/>`;
   }
+  for (const corner of spec.corners ?? []) {
+    const at = coord(x(corner.apexM));
+    body += `<line class="apex" x1="${at}" x2="${at}" y1="${plotTop}" y2="${plotBottom}" stroke="#c4c4c4" stroke-dasharray="2 3" vector-effect="non-scaling-stroke"/>`;
+  }
   body += '</g></g>';
-  body += `<rect x="${PLOT_LEFT}" y="${PLOT_TOP}" width="${plotWidth}" height="${plotHeight}" fill="none" stroke="#bdbdbd"/>`;
+  if (spec.corners?.length) body += cornerLabelsSvg(spec, x, plotWidth, PLOT_TOP);
+  body += `<rect x="${PLOT_LEFT}" y="${plotTop}" width="${plotWidth}" height="${plotHeight}" fill="none" stroke="#bdbdbd"/>`;
   body += `<g class="x-axis" data-y="${plotBottom}">${xTicks(0, spec.lengthM * spec.distancePerM, plotWidth, plotBottom, spec.distanceLabel)}</g>`;
   if (spec.note)
-    body += `<text x="${PLOT_LEFT + 8}" y="${PLOT_TOP + 14}" fill="${PALETTE.axis}" font-style="italic">${escapeHtml(spec.note)}</text>`;
+    body += `<text x="${PLOT_LEFT + 8}" y="${plotTop + 14}" fill="${PALETTE.axis}" font-style="italic">${escapeHtml(spec.note)}</text>`;
   body +=
-    `<line class="cursor" x1="0" x2="0" y1="${PLOT_TOP}" y2="${plotBottom}" stroke="${PALETTE.cursor}" stroke-width="1" visibility="hidden"/>` +
-    `<rect class="hover-area" x="${PLOT_LEFT}" y="${PLOT_TOP}" width="${plotWidth}" height="${plotHeight}" fill="transparent"/>`;
+    `<line class="cursor" x1="0" x2="0" y1="${plotTop}" y2="${plotBottom}" stroke="${PALETTE.cursor}" stroke-width="1" visibility="hidden"/>` +
+    `<rect class="hover-area" x="${PLOT_LEFT}" y="${plotTop}" width="${plotWidth}" height="${plotHeight}" fill="transparent"/>`;
   const rescale = spec.rescaleKeys?.length
     ? ` data-y-keys="${spec.rescaleKeys.join(' ')}" data-y-domain="${spec.yDomain.map((v) => Number(v.toPrecision(6))).join(' ')}"` +
-      ` data-plot-top="${PLOT_TOP}" data-plot-bottom="${plotBottom}"${spec.rescaleWithZero ? ' data-y-zero=""' : ''}`
+      ` data-plot-top="${plotTop}" data-plot-bottom="${plotBottom}"${spec.rescaleWithZero ? ' data-y-zero=""' : ''}`
     : '';
   const attributes = ` data-distance-chart="" data-plot-left="${PLOT_LEFT}" data-plot-width="${plotWidth}"${rescale}`;
   return svgElement(
     spec.name,
     CHART_WIDTH,
-    spec.height,
+    height,
     body,
     options,
     `${spec.title}: ${spec.yTitle} against distance, ${spec.distanceLabel}`,
     attributes,
   );
+}
+
+function cornerLabelsSvg(
+  spec: DistanceChartSpec,
+  x: (distanceM: number) => number,
+  plotWidth: number,
+  stripTop: number,
+): string {
+  const labels = cornerLabels(
+    spec.corners!,
+    (apexM) => PLOT_LEFT + x(apexM),
+    PLOT_LEFT,
+    PLOT_LEFT + plotWidth,
+    stripTop,
+  );
+  let svg = '<g class="corner-labels">';
+  spec.corners!.forEach((corner, k) => {
+    const label = labels[k]!;
+    const title = corner.name ? `Corner ${corner.id}: ${corner.name}` : `Corner ${corner.id}`;
+    svg +=
+      `<text class="corner-label" data-corner="${corner.id}" data-at="${Number((corner.apexM * spec.distancePerM).toFixed(1))}" ` +
+      `data-whole="${label.shown ? 'visible' : 'hidden'}" visibility="${label.shown ? 'visible' : 'hidden'}" x="${coord(label.x)}" y="${coord(label.y)}" dy="0.35em" ` +
+      `text-anchor="middle" font-size="10" font-weight="600" fill="#333" cursor="pointer"><title>${escapeHtml(title)}</title>${escapeHtml(label.text)}</text>`;
+  });
+  return svg + '</g>';
 }
 
 /** Stretches where a 0/1 state channel is 1, as spans along the stations (each to the next station). */

@@ -10,6 +10,7 @@ import { coord, linearScale, quantileOf } from './scale.js';
 import { legendRow, svgElement, type LegendItem, type SvgOptions } from './svg-frame.js';
 import { PALETTE } from './palette.js';
 import { ggGridSvg } from './gg-grid.js';
+import { curveLabelsSvg } from './gg-curve-labels.js';
 import type { ReportModel } from './model.js';
 
 export const GG_SIZE = 440;
@@ -141,6 +142,16 @@ export function ggDiagramSvg(model: ReportModel, options: SvgOptions): string {
   if (model.driver) body += dotsPath(model.driver.axG, model.driver.ayG, frame, PALETTE.driver, 'gg-driver');
   body += dotsPath(model.reference.axG, model.reference.ayG, frame, PALETTE.reference, 'gg-reference');
   body += '</g>';
+  // Each car-envelope curve named by its speed on the curve itself, over the dots.
+  body += curveLabelsSvg(
+    speeds.map((speed) => ({
+      text: `${speed} ${model.units.speedLabel}`,
+      colour: PALETTE.carEnvelope,
+      pointsG: envelopeBoundaryG(model.input.envelope, shownToMps(model, speed)),
+    })),
+    ([lat, lon]) => [frame.centreX + lat * frame.pxPerG, frame.centreY - lon * frame.pxPerG],
+    { x: left, y: top, width: 2 * extent, height: 2 * extent },
+  );
   body += `<rect x="${coord(left)}" y="${coord(top)}" width="${coord(2 * extent)}" height="${coord(2 * extent)}" fill="none" stroke="#bdbdbd"/>`;
   body += `<circle class="gg-dot-reference" r="5" fill="${PALETTE.reference}" stroke="#fff" stroke-width="1.5" visibility="hidden"/>`;
   if (model.driver)

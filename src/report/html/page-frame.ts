@@ -17,6 +17,8 @@ export interface PageParts {
   main: string;
   /** Markup of the footer's second paragraph (already escaped). */
   footerNote: string;
+  /** The caution of the footer, plain text (the lap's caution when omitted). */
+  caution?: string;
   /** Data for the script, written into <script type="application/json" id="...">. */
   data?: { id: string; value: unknown };
   /** The page's own script; a page without one gets script-src 'none'. */
@@ -70,7 +72,7 @@ ${parts.header ?? ''}
 ${parts.main}
 </main>
 <footer>
-<p class="caution">${escapeHtml(SAFETY_CAUTION)}</p>
+<p class="caution">${escapeHtml(parts.caution ?? SAFETY_CAUTION)}</p>
 <p>${parts.footerNote}</p>
 </footer>
 ${data}${script}</body>

@@ -65,6 +65,7 @@ function distanceCharts(model: ReportModel): DistanceChartSpec[] {
     stepM: track.stepM,
     distanceLabel: units.distanceLabel,
     distancePerM: units.distance(1),
+    corners: model.corners.map((corner) => ({ id: corner.id, name: corner.name, apexM: corner.apexM })),
   };
   const refSeries = (values: ArrayLike<number>, label = 'reference'): DistanceSeries => ({
     label,

@@ -33,7 +33,7 @@ button:disabled { cursor: default; color: #9a9aa0; border-color: var(--line); }
 #zoom-label { font-weight: 600; }
 .stack .chart + .chart { margin-top: 4px; }
 svg.chart[data-chart="corner-legend"] { width: 560px; max-width: 100%; }
-.budget-panel svg.chart { max-width: 640px; margin: 0 auto; }
+.budget-panel svg.chart, .car-panel svg.chart { max-width: 640px; margin: 0 auto; }
 .multiples { display: grid; grid-template-columns: repeat(auto-fill, minmax(330px, 1fr)); gap: 8px; }
 .multiple { border: 1px solid var(--line); border-radius: 6px; padding: 4px; }
 .lap-trace:hover path { stroke-width: 3; }

@@ -8,6 +8,7 @@ import { legendRow, svgElement, type LegendItem, type SvgOptions } from './svg-f
 import { GRIP_CLASS_COLOUR, GRIP_CLASS_LABEL, gripClass, PALETTE, type GripClass } from './palette.js';
 import type { ReportModel } from './model.js';
 import type { DisplayUnits } from '../units.js';
+import { boxAround, placeLabels, type LabelBox } from './label-placement.js';
 
 export const MAP_WIDTH = 520;
 export const MAP_HEIGHT = 440;
@@ -217,18 +218,15 @@ export function trackMapSvg(model: ReportModel, options: SvgOptions, colouring: 
     body += `<text x="${coord(ex + enx * (half + 4))}" y="${coord(ey - eny * (half + 4))}" font-size="10" fill="#111" text-anchor="middle">finish</text>`;
   }
 
-  for (const corner of model.corners) {
-    const i = Math.min(count - 1, Math.max(0, Math.round(corner.apexM / track.stepM)));
-    const h = track.headingRad[i]!;
-    // Numbers sit on the outside of the bend, clear of the surface.
-    const side = track.curvaturePerM[i]! >= 0 ? -1 : 1;
-    const offset = surfaceWidth / 2 + 13;
-    const cx = map.x(track.xM[i]!) + side * -Math.sin(h) * offset;
-    const cy = map.y(track.yM[i]!) - side * Math.cos(h) * offset;
+  for (const mark of cornerMarks(model, map, surfaceWidth, indices)) {
+    const { corner, cx, cy } = mark;
     const title = corner.name ? `Corner ${corner.id}: ${corner.name}` : `Corner ${corner.id}`;
+    const leader = mark.leader
+      ? `<line class="leader" x1="${coord(mark.leader[0])}" y1="${coord(mark.leader[1])}" x2="${coord(cx)}" y2="${coord(cy)}" stroke="#111" stroke-width="0.8"/>`
+      : '';
     body +=
-      `<g class="corner-mark" data-corner="${corner.id}" tabindex="0" role="button" cursor="pointer"><title>${escapeHtml(title)}</title>` +
-      `<circle cx="${coord(cx)}" cy="${coord(cy)}" r="9" fill="#ffffff" stroke="#111" stroke-width="1.2"/>` +
+      `<g class="corner-mark" data-corner="${corner.id}" tabindex="0" role="button" cursor="pointer"><title>${escapeHtml(title)}</title>${leader}` +
+      `<circle cx="${coord(cx)}" cy="${coord(cy)}" r="${MARK_RADIUS_PX}" fill="#ffffff" stroke="#111" stroke-width="1.2"/>` +
       `<text x="${coord(cx)}" y="${coord(cy)}" dy="0.35em" text-anchor="middle" font-size="10" font-weight="600">${corner.id}</text></g>`;
   }
   body += `<circle class="map-dot" cx="0" cy="0" r="5.5" fill="#111" stroke="#fff" stroke-width="2" visibility="hidden"/>`;
@@ -244,6 +242,74 @@ export function trackMapSvg(model: ReportModel, options: SvgOptions, colouring: 
     other ? `${title}, the corners numbered` : 'Track map with the corners numbered',
     ' data-track-map=""',
   );
+}
+
+const MARK_RADIUS_PX = 9;
+
+/** A corner's number on the map: its centre, and the start of a leader line where it is moved off its first place. */
+export interface CornerMark {
+  corner: ReportModel['corners'][number];
+  cx: number;
+  cy: number;
+  leader: [number, number] | null;
+}
+
+/** The corner numbers: each on the outside of its bend just clear of the surface; where that place is taken by
+ * another number or lies on the track, further out along the normal, then on the inside, with a leader line to the
+ * edge of the surface at the apex (greedy placement with collision tests, label-placement.ts). */
+export function cornerMarks(
+  model: ReportModel,
+  map: MapProjection,
+  surfaceWidth: number,
+  indices: number[],
+): CornerMark[] {
+  const { track } = model.input.reference;
+  const count = model.stationM.length;
+  const r = MARK_RADIUS_PX;
+  const trackX = indices.map((i) => map.x(track.xM[i]!));
+  const trackY = indices.map((i) => map.y(track.yM[i]!));
+  const clearance = surfaceWidth / 2 + r + 1;
+  // Off the surface: no drawn point of the track within the surface's half-width of the number's circle.
+  const offTrack = (box: LabelBox) => {
+    const cx = box.x + box.width / 2;
+    const cy = box.y + box.height / 2;
+    for (let k = 0; k < trackX.length; k++) {
+      const dx = trackX[k]! - cx;
+      const dy = trackY[k]! - cy;
+      if (dx * dx + dy * dy < clearance * clearance) return false;
+    }
+    return true;
+  };
+  const first = surfaceWidth / 2 + 13;
+  const offsets = [first, first + 16, first + 32];
+  const places = model.corners.map((corner) => {
+    const i = Math.min(count - 1, Math.max(0, Math.round(corner.apexM / track.stepM)));
+    const h = track.headingRad[i]!;
+    const ax = map.x(track.xM[i]!);
+    const ay = map.y(track.yM[i]!);
+    const outside = track.curvaturePerM[i]! >= 0 ? -1 : 1;
+    return [outside, -outside].flatMap((side) =>
+      offsets.map((offset) => ({
+        cx: ax + side * -Math.sin(h) * offset,
+        cy: ay - side * Math.cos(h) * offset,
+        edge: [ax + side * -Math.sin(h) * (surfaceWidth / 2), ay - side * Math.cos(h) * (surfaceWidth / 2)] as [
+          number,
+          number,
+        ],
+      })),
+    );
+  });
+  // The title, legend and caption above, and the scale bar below, stay clear.
+  const within = { x: 2, y: 58, width: MAP_WIDTH - 4, height: MAP_HEIGHT - 58 - 30 };
+  const chosen = placeLabels(
+    places.map((list) => list.map((p) => boxAround(p.cx, p.cy, 2 * r, 2 * r))),
+    { within, isClear: offTrack, gap: 1 },
+  );
+  return model.corners.map((corner, k) => {
+    const pick = chosen[k]!;
+    const place = places[k]![Math.max(0, pick)]!;
+    return { corner, cx: place.cx, cy: place.cy, leader: pick > 0 ? place.edge : null };
+  });
 }
 
 /** A round length (1, 2 or 5 times a power of ten, in the page's distance unit) that is at most about 90 px. */
