@@ -17,7 +17,7 @@ export function envelopeText(record: DemonstratedEnvelopeRecord, units: DisplayU
   ]);
   return (
     [
-      `Demonstrated envelope from ${record.source} (${(record.quantile * 100).toFixed(0)}th percentile per ${plainNumber(units.speed(record.bandWidthMps), 0)} ${units.speedLabel} band)`,
+      `Demonstrated envelope from ${record.source} (${(record.quantile * 100).toFixed(0)}th percentile in bands ${plainNumber(units.speed(record.bandWidthMps), 0)} ${units.speedLabel} apart, each weighing the samples up to the next band's speed)`,
       formatTable([`speed ${units.speedLabel}`, 'samples', 'braking g', 'accelerating g', 'left g', 'right g'], rows),
       `Top speed reached ${plainNumber(units.speed(record.topSpeedMps), 1)} ${units.speedLabel}; coasting ${record.coast.fitted ? 'fitted from the log' : 'assumed (the log has no coasting with pedal channels)'}.`,
       ...[...notes, ...(record.notes ?? [])].map((note) => `Note: ${note}`),
