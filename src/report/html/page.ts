@@ -2,14 +2,9 @@
 // inline style sheet and one inline script admitted by a Content-Security-Policy hash, no network at all.
 
 import { clientScript } from './client-script.js';
-import {
-  distanceChartSvg,
-  DRAW_BUCKET_M,
-  stateSpans,
-  type DistanceChartSpec,
-  type DistanceSeries,
-} from './distance-chart.js';
+import { distanceChartSvg, DRAW_BUCKET_M } from './distance-chart.js';
 import { htmlPage } from './page-frame.js';
+import { distanceCharts } from './distance-charts.js';
 import { ggDiagramSvg, ggFrame } from './gg-diagram.js';
 import {
   cornerRangeM,
@@ -19,8 +14,6 @@ import {
   type ReportInput,
   type ReportModel,
 } from './model.js';
-import { GRIP_NEAR_LIMIT, GRIP_OVER_LIMIT, PALETTE } from './palette.js';
-import { paddedDomain, quantileOf } from './scale.js';
 import { strideIndices } from './downsample.js';
 import { cornerTableHtml, findingsHtml, summaryHtml } from './tables.js';
 import { againstFindingsHtml, againstTableHtml } from './against-tables.js';
@@ -32,195 +25,6 @@ import { escapeHtml } from './escape.js';
 
 /** Hover values are kept for at most this many points along the lap. */
 const MAX_HOVER_POINTS = 2500;
-const REFERENCE_DASH = '6 3';
-
-function range(values: (ArrayLike<number> | null | undefined)[]): [number, number] {
-  let min = Infinity;
-  let max = -Infinity;
-  for (const series of values) {
-    if (!series) continue;
-    for (let i = 0; i < series.length; i++) {
-      const v = series[i]!;
-      if (!Number.isFinite(v)) continue;
-      if (v < min) min = v;
-      if (v > max) max = v;
-    }
-  }
-  return [min, max];
-}
-
-function negated(values: ArrayLike<number>): Float64Array {
-  const out = new Float64Array(values.length);
-  for (let i = 0; i < values.length; i++) out[i] = -values[i]!;
-  return out;
-}
-
-function distanceCharts(model: ReportModel): DistanceChartSpec[] {
-  const { reference, driver } = model;
-  const track = model.input.reference.track;
-  const units = model.units;
-  const base = {
-    stationM: model.stationM,
-    lengthM: model.lengthM,
-    stepM: track.stepM,
-    distanceLabel: units.distanceLabel,
-    distancePerM: units.distance(1),
-    corners: model.corners.map((corner) => ({ id: corner.id, name: corner.name, apexM: corner.apexM })),
-  };
-  const refSeries = (values: ArrayLike<number>, label = 'reference'): DistanceSeries => ({
-    label,
-    colour: PALETTE.reference,
-    values,
-    ...(driver ? { dash: REFERENCE_DASH } : {}),
-  });
-  const drvSeries = (values: ArrayLike<number>, label = 'driver'): DistanceSeries => ({
-    label,
-    colour: PALETTE.driver,
-    values,
-  });
-  const other = model.other;
-  const othSeries = (values: ArrayLike<number>, label = other?.label ?? ''): DistanceSeries => ({
-    label,
-    colour: PALETTE.other,
-    values,
-    width: 1.3,
-  });
-  const charts: DistanceChartSpec[] = [];
-
-  const uncertainty = model.input.uncertainty;
-  const shown = (values: Float64Array) => values.map(units.speed);
-  const speedRange = uncertainty
-    ? [
-        {
-          low: shown(uncertainty.speedMps.low),
-          high: shown(uncertainty.speedMps.high),
-          colour: PALETTE.reference,
-          label: `reference, 90 % band over ${uncertainty.draws} draws`,
-        },
-      ]
-    : [];
-  const [speedMin, speedMax] = range([
-    reference.speedShown,
-    driver?.speedShown,
-    other?.speedShown,
-    ...speedRange.flatMap((r) => [r.low, r.high]),
-  ]);
-  const speedSeries = [refSeries(reference.speedShown)];
-  if (driver) speedSeries.push(drvSeries(driver.speedShown));
-  if (other) speedSeries.push(othSeries(other.speedShown));
-  charts.push({
-    ...base,
-    name: 'speed',
-    title: 'Speed',
-    yTitle: `speed, ${units.speedLabel}`,
-    yDomain: [Math.max(0, paddedDomain(speedMin, speedMax)[0]), paddedDomain(speedMin, speedMax)[1]],
-    height: 210,
-    series: speedSeries,
-    ...(speedRange.length > 0 ? { ranges: speedRange } : {}),
-    rescaleKeys: ['vR', 'vD', 'vO', 'vLo', 'vHi'],
-  });
-
-  if (driver) {
-    const [deltaMin, deltaMax] = range([driver.deltaS, other?.driverDeltaS]);
-    const deltaSeries: DistanceSeries[] = [
-      {
-        label: other ? 'driver − reference' : 'driver − reference (+ = slower)',
-        colour: PALETTE.delta,
-        values: driver.deltaS,
-        // With two deltas the lines alone read more clearly than two overlapping fills.
-        fillToZero: !other,
-        width: 1.8,
-      },
-    ];
-    if (other)
-      deltaSeries.push({
-        label: `driver − ${other.label}`,
-        colour: PALETTE.other,
-        values: other.driverDeltaS,
-        width: 1.5,
-      });
-    charts.push({
-      ...base,
-      name: 'delta',
-      title: other ? 'Time delta of the driver (+ = slower)' : 'Time delta (driver − reference)',
-      yTitle: 'delta, s',
-      yDomain: paddedDomain(Math.min(0, deltaMin), Math.max(0, deltaMax), 0.08),
-      height: 150,
-      series: deltaSeries,
-      guides: [0],
-      rescaleKeys: ['dt', 'dtO'],
-      rescaleWithZero: true,
-    });
-  }
-
-  // Throttle upward, brake downward, so the two never hide each other.
-  const pedalSeries: DistanceSeries[] = [
-    refSeries(reference.throttlePct!, 'reference'),
-    // An empty label shares the legend entry of the series before it.
-    { ...refSeries(negated(reference.brakePct!)), label: '' },
-  ];
-  let note: string | undefined;
-  if (driver) {
-    if (driver.throttlePct) pedalSeries.push(drvSeries(driver.throttlePct, 'driver'));
-    if (driver.brakePct) pedalSeries.push({ ...drvSeries(negated(driver.brakePct)), label: '' });
-    if (other?.throttlePct) pedalSeries.push(othSeries(other.throttlePct));
-    if (other?.brakePct) pedalSeries.push({ ...othSeries(negated(other.brakePct)), label: '' });
-    if (!driver.throttlePct && !driver.brakePct) note = 'the driver’s log has no pedal channels';
-    else if (!driver.throttlePct || !driver.brakePct)
-      note = `the driver’s log has no ${driver.throttlePct ? 'brake' : 'throttle'} channel`;
-    if (other && !other.throttlePct && !other.brakePct)
-      note = [note, `${other.label} has no pedal channels`].filter(Boolean).join('; ');
-  }
-  // Throttle is the share of the engine's drive in use; an upshift's gap in drive is shaded, not drawn as a lift.
-  const shiftSpans = reference.shift ? stateSpans(reference.shift, model.stationM, base.stepM, PALETTE.shiftShade) : [];
-  charts.push({
-    ...base,
-    name: 'pedals',
-    title: 'Throttle (up) and brake (down)',
-    ...(shiftSpans.length > 0
-      ? {
-          spans: shiftSpans,
-          legendExtra: [{ label: 'gear shift (reference)', colour: PALETTE.shiftShade, mark: 'swatch' as const }],
-        }
-      : {}),
-    yTitle: 'brake ↓ · throttle ↑, %',
-    yDomain: [-108, 108],
-    yFormat: (value) => String(Math.abs(value)),
-    height: 190,
-    series: pedalSeries,
-    guides: [0],
-    ...(note ? { note } : {}),
-  });
-
-  // A logged lap's grip use can spike where its accelerations are noisy: the axis follows its 99.5th percentile.
-  const gripMax = Math.max(range([reference.gripUsePct])[1], driver ? quantileOf([driver.gripUsePct], 0.995) : 0);
-  charts.push({
-    ...base,
-    name: 'grip',
-    title: 'Grip use (the tyres’ share of their limit)',
-    spans: reference.powerLimited
-      ? stateSpans(reference.powerLimited, model.stationM, base.stepM, PALETTE.powerLimitedShade)
-      : [],
-    yTitle: 'grip use, %',
-    yDomain: [0, Math.min(200, Math.max(115, Math.ceil((gripMax + 5) / 10) * 10))],
-    height: 170,
-    series: driver
-      ? [refSeries(reference.gripUsePct), drvSeries(driver.gripUsePct)]
-      : [refSeries(reference.gripUsePct)],
-    bands: [
-      { from: GRIP_NEAR_LIMIT * 100, to: GRIP_OVER_LIMIT * 100, colour: '#fbe7bd' },
-      { from: GRIP_OVER_LIMIT * 100, to: 1000, colour: '#f5e1ec' },
-    ],
-    guides: [100],
-    legendExtra: [
-      { label: 'near the limit', colour: '#fbe7bd', mark: 'swatch' },
-      { label: 'over', colour: '#f5e1ec', mark: 'swatch' },
-      { label: 'power-limited (reference)', colour: PALETTE.powerLimitedShade, mark: 'swatch' },
-    ],
-    rescaleKeys: ['gR', 'gD'],
-  });
-  return charts;
-}
 
 export interface ChartSvg {
   /** File name for --svg, e.g. 'speed.svg'. */
