@@ -6,8 +6,7 @@ import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { BrowserContext } from 'playwright-core';
-import { haveChromium, launchChromium, openFile, requireChromium } from './chromium.js';
+import { haveChromium, requireChromium, useChromium } from './chromium.js';
 import { lapReportHtml } from '../../src/report/html/page.js';
 import { againstInput } from '../report/report-fixtures.js';
 
@@ -21,26 +20,21 @@ interface PageData {
 }
 
 describe.skipIf(!haveChromium)('lap-against-lap report in Chromium', () => {
-  let context: BrowserContext;
-  let profile: string;
+  const browser = useChromium();
   let workFolder: string;
 
   beforeAll(async () => {
-    profile = mkdtempSync(path.join(tmpdir(), 'reflap-chromium-'));
     workFolder = mkdtempSync(path.join(tmpdir(), 'reflap-against-page-'));
-    context = await launchChromium(profile);
   });
 
   afterAll(async () => {
-    await context?.close();
-    rmSync(profile, { recursive: true, force: true });
     rmSync(workFolder, { recursive: true, force: true });
   });
 
   it('draws three traces, reads the third lap out and rescales the y axes to a zoomed corner', async () => {
     const file = path.join(workFolder, 'against.html');
     writeFileSync(file, lapReportHtml(againstInput()));
-    const { page, problems, requests, dialogs } = await openFile(context, file);
+    const { page, problems, requests, dialogs } = await browser.open(file);
     await page.setViewportSize({
       width: 1280,
       height: Math.ceil(await page.evaluate(() => document.documentElement.scrollHeight)),

@@ -1,8 +1,11 @@
 // The browser the report tests drive: Debian's Chromium through playwright-core, headless, with a fresh
 // profile and background networking off; a page opened from disk records console problems, dialogs and requests.
 
-import { existsSync } from 'node:fs';
+import { existsSync, mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
 import { pathToFileURL } from 'node:url';
+import { afterAll, beforeAll } from 'vitest';
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
 
 export const CHROMIUM = '/usr/bin/chromium';
@@ -57,4 +60,24 @@ export async function openFile(context: BrowserContext, file: string): Promise<O
   page.on('request', (request) => requests.push(request.url()));
   await page.goto(pathToFileURL(file).href, { waitUntil: 'load' });
   return { page, problems, dialogs, requests };
+}
+
+/** A fresh browser for the describe block that calls this: launched with a new profile before its tests, closed
+ * and the profile removed after them. Call it before the block's own hooks that open pages. */
+export function useChromium(): { open: (file: string) => Promise<OpenedPage>; context: () => BrowserContext } {
+  let context: BrowserContext | undefined;
+  let profile: string | undefined;
+  beforeAll(async () => {
+    profile = mkdtempSync(path.join(tmpdir(), 'reflap-chromium-'));
+    context = await launchChromium(profile);
+  });
+  afterAll(async () => {
+    await context?.close();
+    if (profile) rmSync(profile, { recursive: true, force: true });
+  });
+  const opened = (): BrowserContext => {
+    if (!context) throw new Error('useChromium: the browser is opened in beforeAll; use it inside hooks or tests');
+    return context;
+  };
+  return { open: (file) => openFile(opened(), file), context: opened };
 }

@@ -8,8 +8,8 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { BrowserContext, Page } from 'playwright-core';
-import { haveChromium, launchChromium, openFile, requireChromium } from './chromium.js';
+import type { Page } from 'playwright-core';
+import { haveChromium, requireChromium, useChromium } from './chromium.js';
 import { runCli } from '../helpers/cli.js';
 
 requireChromium('report labels');
@@ -67,16 +67,13 @@ async function cornerLabelsOf(page: Page) {
 }
 
 describe.skipIf(!haveChromium)('labels in Chromium', () => {
-  let context: BrowserContext;
-  let profile: string;
+  const browser = useChromium();
   let work: string;
   let page: Page;
   let problems: string[];
 
   beforeAll(async () => {
-    profile = mkdtempSync(path.join(tmpdir(), 'reflap-chromium-'));
     work = mkdtempSync(path.join(tmpdir(), 'reflap-labels-'));
-    context = await launchChromium(profile);
     expect(runCli(['demo', '--out', work]).code).toBe(0);
     const file = path.join(work, 'imperial.html');
     const run = runCli([
@@ -84,7 +81,7 @@ describe.skipIf(!haveChromium)('labels in Chromium', () => {
       ...['--telemetry', path.join(work, 'demo-lap.csv'), '--units', 'imperial', '--html', file],
     ]);
     expect(run.code, run.stderr).toBe(0);
-    const opened = await openFile(context, file);
+    const opened = await browser.open(file);
     page = opened.page;
     problems = opened.problems;
     await page.setViewportSize({
@@ -94,8 +91,6 @@ describe.skipIf(!haveChromium)('labels in Chromium', () => {
   });
 
   afterAll(async () => {
-    await context?.close();
-    rmSync(profile, { recursive: true, force: true });
     rmSync(work, { recursive: true, force: true });
   });
 
@@ -192,7 +187,7 @@ describe.skipIf(!haveChromium)('labels in Chromium', () => {
     const file = path.join(work, 'car.html');
     const run = runCli(['car', '--car', 'cars/tarnfell-gt.json', '--model', 'bicycle', '--html', file]);
     expect(run.code, run.stderr).toBe(0);
-    const opened = await openFile(context, file);
+    const opened = await browser.open(file);
     const car = opened.page;
     // The frame every report page shares, with a caution about the car rather than a lap.
     expect(await car.$$eval('header h1, footer .caution, section.summary .tile', (e) => e.length)).toBeGreaterThan(4);

@@ -5,8 +5,8 @@ import { existsSync, mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { BrowserContext, Page } from 'playwright-core';
-import { haveChromium, launchChromium, openFile, requireChromium, type OpenedPage } from './chromium.js';
+import type { Page } from 'playwright-core';
+import { haveChromium, requireChromium, useChromium } from './chromium.js';
 import { lapReportHtml } from '../../src/report/html/page.js';
 import { runCli } from '../helpers/cli.js';
 import {
@@ -23,23 +23,18 @@ requireChromium('lap report');
 const outputFolder = path.join(projectRoot, 'test-output');
 
 describe.skipIf(!haveChromium)('lap report in Chromium', () => {
-  let context: BrowserContext;
-  let profile: string;
+  const browser = useChromium();
   let workFolder: string;
 
   beforeAll(async () => {
-    profile = mkdtempSync(path.join(tmpdir(), 'reflap-chromium-'));
     workFolder = mkdtempSync(path.join(tmpdir(), 'reflap-report-'));
-    context = await launchChromium(profile);
   });
 
   afterAll(async () => {
-    await context?.close();
-    rmSync(profile, { recursive: true, force: true });
     rmSync(workFolder, { recursive: true, force: true });
   });
 
-  const open = (file: string): Promise<OpenedPage> => openFile(context, file);
+  const open = browser.open;
 
   async function cursorXs(page: Page): Promise<Array<string | null>> {
     return page.$$eval('svg[data-distance-chart] .cursor', (lines) =>

@@ -6,9 +6,8 @@
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { BrowserContext } from 'playwright-core';
-import { haveChromium, launchChromium, openFile, requireChromium } from './chromium.js';
+import { afterAll, describe, expect, it } from 'vitest';
+import { haveChromium, requireChromium, useChromium } from './chromium.js';
 import { comparePageImage, IMAGE_TOLERANCE, UPDATE_PAGE_IMAGES } from './page-image.js';
 import { lapReportHtml } from '../../src/report/html/page.js';
 import { againstInput, comparisonInput, referenceInput } from '../report/report-fixtures.js';
@@ -103,22 +102,11 @@ describe('the session page', () => {
 });
 
 describe.skipIf(!haveChromium)('report pages in Chromium', () => {
-  let context: BrowserContext;
-  let profile: string;
-
-  beforeAll(async () => {
-    profile = mkdtempSync(path.join(tmpdir(), 'reflap-chromium-'));
-    context = await launchChromium(profile);
-  });
-
-  afterAll(async () => {
-    await context?.close();
-    rmSync(profile, { recursive: true, force: true });
-  });
+  const browser = useChromium();
 
   for (const name of Object.keys(pages) as (keyof typeof pages)[]) {
     it(`${name}: drawn, quiet, offline, and laid out as its reference image`, async () => {
-      const { page, problems, requests, dialogs } = await openFile(context, pages[name]);
+      const { page, problems, requests, dialogs } = await browser.open(pages[name]);
       // Every picture (charts, legends, the car's g-g-v envelope) has something drawn in it.
       const empty = await page.$$eval('svg[role="img"]', (svgs) =>
         svgs
@@ -133,7 +121,7 @@ describe.skipIf(!haveChromium)('report pages in Chromium', () => {
       );
       expect(await page.$$eval('svg[role="img"]', (svgs) => svgs.length)).toBeGreaterThan(0);
       expect(empty).toEqual([]);
-      const difference = await comparePageImage(context, page, name);
+      const difference = await comparePageImage(browser.context(), page, name);
       if (!UPDATE_PAGE_IMAGES) {
         expect(difference).not.toBeNull();
         const { actual, reference, meanDifference, changedShare } = difference!;

@@ -7,8 +7,8 @@ import { mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'nod
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { BrowserContext, Page } from 'playwright-core';
-import { haveChromium, launchChromium, openFile, requireChromium, type OpenedPage } from './chromium.js';
+import type { Page } from 'playwright-core';
+import { haveChromium, requireChromium, useChromium } from './chromium.js';
 import { runCli } from '../helpers/cli.js';
 import { projectRoot } from '../report/report-fixtures.js';
 import { writeTestLoop } from '../report/sweep-fixtures.js';
@@ -19,14 +19,12 @@ const outputFolder = path.join(projectRoot, 'test-output');
 const HOSTILE_CAR = '<img src=x onerror="window.__sweepInjected=1"><script>window.__sweepInjected=2</script>';
 
 describe.skipIf(!haveChromium)('sweep report in Chromium', () => {
-  let context: BrowserContext;
-  let profile: string;
+  const browser = useChromium();
   let workFolder: string;
   let loop: string;
   let hostileCar: string;
 
   beforeAll(async () => {
-    profile = mkdtempSync(path.join(tmpdir(), 'reflap-chromium-'));
     workFolder = mkdtempSync(path.join(tmpdir(), 'reflap-sweep-report-'));
     loop = writeTestLoop(workFolder);
     const car = JSON.parse(readFileSync(path.join(projectRoot, 'cars', 'brackle-club.json'), 'utf8')) as Record<
@@ -35,16 +33,13 @@ describe.skipIf(!haveChromium)('sweep report in Chromium', () => {
     >;
     hostileCar = path.join(workFolder, 'hostile-car.json');
     writeFileSync(hostileCar, JSON.stringify({ ...car, name: HOSTILE_CAR }));
-    context = await launchChromium(profile);
   });
 
   afterAll(async () => {
-    await context?.close();
-    rmSync(profile, { recursive: true, force: true });
     rmSync(workFolder, { recursive: true, force: true });
   });
 
-  const open = (file: string): Promise<OpenedPage> => openFile(context, file);
+  const open = browser.open;
 
   /** Per chart: how many paths are drawn with a visible extent, and how many point markers. */
   async function drawn(page: Page): Promise<{ name: string | null; paths: number; points: number }[]> {
