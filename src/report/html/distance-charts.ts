@@ -210,11 +210,30 @@ function gripChart({ model, base, refSeries, drvSeries }: ChartContext): Distanc
   };
 }
 
-/** The lap report's charts along the distance: speed, the driver's delta (with a driver), pedals, grip use. */
+/** The centreline's height along the lap, under the speed it shapes (tracks with heights only). */
+function heightChart({ model, base }: ChartContext, zM: Float64Array): DistanceChartSpec {
+  const units = model.units;
+  const shown = zM.map(units.distance);
+  const [low, high] = range([shown]);
+  return {
+    ...base,
+    name: 'height',
+    title: 'Height of the track',
+    yTitle: `height, ${units.distanceLabel}`,
+    yDomain: paddedDomain(low, high),
+    height: 120,
+    series: [{ label: 'centreline height', colour: PALETTE.axis, values: shown, width: 1.5 }],
+  };
+}
+
+/** The lap report's charts along the distance: speed, the track's height (where it has heights), the driver's
+ * delta (with a driver), pedals, grip use. */
 export function distanceCharts(model: ReportModel): DistanceChartSpec[] {
   const context = chartContext(model);
+  const zM = model.input.reference.track.zM;
   return [
     speedChart(context),
+    ...(zM ? [heightChart(context, zM)] : []),
     ...(model.driver ? [deltaChart(context, model.driver)] : []),
     pedalsChart(context),
     gripChart(context),
