@@ -6,7 +6,7 @@
 import { area, line } from 'd3-shape';
 import { escapeHtml } from './escape.js';
 import { minMaxIndices } from './downsample.js';
-import { coord, linearScale } from './scale.js';
+import { coord, linearScale, type LinearScale } from './scale.js';
 import { legendRow, svgElement, tickText, xAxis, yAxis, type LegendItem, type SvgOptions } from './svg-frame.js';
 import { PALETTE } from './palette.js';
 import { boxAround, placeLabels, textWidth, type LabelBox } from './label-placement.js';
@@ -125,6 +125,53 @@ export function cornerLabels(
   });
 }
 
+/** The uncertainty ranges and the series of a chart as thinned paths (each keeping its peaks within a bucket). */
+function seriesPathsSvg(
+  spec: DistanceChartSpec,
+  x: (distanceM: number) => number,
+  y: LinearScale,
+  bucket: number,
+): string {
+  let body = '';
+  const stationM = spec.stationM;
+  for (const range of spec.ranges ?? []) {
+    // The thinned points of both edges, so neither edge loses its peaks.
+    const indices = [...new Set([...minMaxIndices(range.low, bucket), ...minMaxIndices(range.high, bucket)])].sort(
+      (a, b) => a - b,
+    );
+    const fill = area<number>()
+      .x((i) => x(stationM[i]!))
+      .y0((i) => y(range.low[i]!))
+      .y1((i) => y(range.high[i]!))
+      .defined((i) => Number.isFinite(range.low[i]!) && Number.isFinite(range.high[i]!))
+      .digits(1)(indices);
+    body += `<path class="range" d="${fill ?? ''}" fill="${range.colour}" fill-opacity="0.25" stroke="none"/>`;
+  }
+  for (const series of spec.series) {
+    const values = series.values;
+    const indices = minMaxIndices(values, bucket);
+    const defined = (i: number) => Number.isFinite(values[i]!);
+    if (series.fillToZero) {
+      const fill = area<number>()
+        .x((i) => x(stationM[i]!))
+        .y0(y(0))
+        .y1((i) => y(values[i]!))
+        .defined(defined)
+        .digits(1)(indices);
+      body += `<path class="series-fill" d="${fill ?? ''}" fill="${series.colour}" fill-opacity="0.22"/>`;
+    }
+    const path = line<number>()
+      .x((i) => x(stationM[i]!))
+      .y((i) => y(values[i]!))
+      .defined(defined)
+      .digits(1)(indices);
+    body +=
+      `<path class="series" d="${path ?? ''}" fill="none" stroke="${series.colour}" stroke-width="${series.width ?? 1.6}" ` +
+      `stroke-linejoin="round"${series.dash ? ` stroke-dasharray="${series.dash}"` : ''} vector-effect="non-scaling-stroke"/>`;
+  }
+  return body;
+}
+
 export function distanceChartSvg(spec: DistanceChartSpec, options: SvgOptions): string {
   const plotWidth = CHART_WIDTH - PLOT_LEFT - PLOT_RIGHT;
   const strip = spec.corners?.length ? CORNER_STRIP_PX : 0;
@@ -162,42 +209,7 @@ export function distanceChartSvg(spec: DistanceChartSpec, options: SvgOptions): 
   for (const guide of spec.guides ?? []) {
     body += `<line x1="0" x2="${plotWidth}" y1="${coord(y(guide))}" y2="${coord(y(guide))}" stroke="#777" stroke-dasharray="4 3" vector-effect="non-scaling-stroke"/>`;
   }
-  const stationM = spec.stationM;
-  for (const range of spec.ranges ?? []) {
-    // The thinned points of both edges, so neither edge loses its peaks.
-    const indices = [...new Set([...minMaxIndices(range.low, bucket), ...minMaxIndices(range.high, bucket)])].sort(
-      (a, b) => a - b,
-    );
-    const fill = area<number>()
-      .x((i) => x(stationM[i]!))
-      .y0((i) => y(range.low[i]!))
-      .y1((i) => y(range.high[i]!))
-      .defined((i) => Number.isFinite(range.low[i]!) && Number.isFinite(range.high[i]!))
-      .digits(1)(indices);
-    body += `<path class="range" d="${fill ?? ''}" fill="${range.colour}" fill-opacity="0.25" stroke="none"/>`;
-  }
-  for (const series of spec.series) {
-    const values = series.values;
-    const indices = minMaxIndices(values, bucket);
-    const defined = (i: number) => Number.isFinite(values[i]!);
-    if (series.fillToZero) {
-      const fill = area<number>()
-        .x((i) => x(stationM[i]!))
-        .y0(y(0))
-        .y1((i) => y(values[i]!))
-        .defined(defined)
-        .digits(1)(indices);
-      body += `<path class="series-fill" d="${fill ?? ''}" fill="${series.colour}" fill-opacity="0.22"/>`;
-    }
-    const path = line<number>()
-      .x((i) => x(stationM[i]!))
-      .y((i) => y(values[i]!))
-      .defined(defined)
-      .digits(1)(indices);
-    body +=
-      `<path class="series" d="${path ?? ''}" fill="none" stroke="${series.colour}" stroke-width="${series.width ?? 1.6}" ` +
-      `stroke-linejoin="round"${series.dash ? ` stroke-dasharray="${series.dash}"` : ''} vector-effect="non-scaling-stroke"/>`;
-  }
+  body += seriesPathsSvg(spec, x, y, bucket);
   for (const corner of spec.corners ?? []) {
     const at = coord(x(corner.apexM));
     body += `<line class="apex" x1="${at}" x2="${at}" y1="${plotTop}" y2="${plotBottom}" stroke="#c4c4c4" stroke-dasharray="2 3" vector-effect="non-scaling-stroke"/>`;
