@@ -98,6 +98,36 @@ describe('compare --against: the aligned traces and the page', () => {
     expect(data.series.vO.length).toBe(data.d.length);
     expect(data.series.dtO.length).toBe(data.d.length);
   });
+
+  it('draws each corner small for both laps and the reference, the low-grip lap braking first', () => {
+    // Braking distance (v1^2 - v2^2) / (2 mu g) grows as the braking grip falls (any mechanics textbook): the lap of
+    // the car with muLong 1.2 starts braking no later than the bundled car's wherever both brake in a corner's
+    // window, and earlier in at least one (in others both already brake where the window starts).
+    const page = readFileSync(html, 'utf8');
+    const charts = [...page.matchAll(/<svg[^>]*data-corner-multiple="(\d+)"[\s\S]*?<\/svg>/g)].map((m) => m[0]);
+    expect(charts.length).toBeGreaterThan(3);
+    const firstBrakeX = (svg: string, lap: number): number | null => {
+      const group = new RegExp(`data-lap="${lap}"[\\s\\S]*?class="brake" d="([^"]+)"`).exec(svg);
+      expect(group, `lap ${lap} drawn`).not.toBeNull();
+      const points = [...group![1]!.matchAll(/(-?[\d.]+),(-?[\d.]+)/g)].map((m) => [Number(m[1]), Number(m[2])]);
+      const bottom = Math.max(...points.map((p) => p[1]!));
+      // A brake share above 5 % of the chart's 0-100 % height (50 px) is braking.
+      const first = points.find((p) => p[1]! < bottom - 2.5);
+      return first ? first[0]! : null;
+    };
+    let earlier = 0;
+    for (const svg of charts) {
+      expect(svg).toMatch(/<title>driver<\/title>/);
+      expect(svg).toMatch(/<title>lap 1 of high\.csv<\/title>/);
+      expect(svg).toContain('class="reference-trace"');
+      const driverX = firstBrakeX(svg, 1);
+      const otherX = firstBrakeX(svg, 2);
+      if (driverX === null || otherX === null) continue;
+      expect(driverX, 'the low-grip lap brakes first').toBeLessThanOrEqual(otherX + 0.5);
+      if (driverX < otherX - 1) earlier++;
+    }
+    expect(earlier).toBeGreaterThanOrEqual(1);
+  });
 });
 
 it('a lap set against itself has zero delta everywhere in the aligned traces', () => {

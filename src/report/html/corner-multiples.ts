@@ -28,6 +28,8 @@ export interface CornerMultipleSpec {
   bestLap: number;
   cornerBestLap: number;
   units?: DisplayUnits;
+  /** Fixed colours and names by lap (a lap-against-lap page), in place of the session's best-lap picking. */
+  styles?: ReadonlyMap<number, { colour: string; name: string }>;
 }
 
 export function cornerMultiplesLegend(): LegendItem[] {
@@ -70,13 +72,17 @@ export function cornerMultipleSvg(spec: CornerMultipleSpec, options: SvgOptions)
   body += yAxis(ySpeed, LEFT, WIDTH - RIGHT, `speed, ${units.speedLabel}`, tickText, 3);
   body += yAxis(yBrake, LEFT, WIDTH - RIGHT, 'brake, %', tickText, 1);
   // The laps drawn grey first, the picked laps over them, the reference on top.
-  const picked = new Set([spec.bestLap, spec.cornerBestLap]);
+  const picked = spec.styles ? new Set(spec.styles.keys()) : new Set([spec.bestLap, spec.cornerBestLap]);
   const order = [...traces.laps.filter((lap) => !picked.has(lap.lap)), ...traces.laps.filter((l) => picked.has(l.lap))];
   for (const lap of order) {
+    const style = spec.styles?.get(lap.lap);
     const colour =
-      lap.lap === spec.bestLap ? PALETTE.driver : lap.lap === spec.cornerBestLap ? PALETTE.gain : OTHER_LAP_COLOUR;
+      style?.colour ??
+      (lap.lap === spec.bestLap ? PALETTE.driver : lap.lap === spec.cornerBestLap ? PALETTE.gain : OTHER_LAP_COLOUR);
     const width = picked.has(lap.lap) ? 1.8 : 1;
-    const name = `lap ${lap.lap}${lap.lap === spec.bestLap ? ' (best lap)' : ''}${lap.lap === spec.cornerBestLap ? ' (best in this corner)' : ''}`;
+    const name =
+      style?.name ??
+      `lap ${lap.lap}${lap.lap === spec.bestLap ? ' (best lap)' : ''}${lap.lap === spec.cornerBestLap ? ' (best in this corner)' : ''}`;
     body +=
       `<g class="lap-trace" data-lap="${lap.lap}"><title>${escapeHtml(name)}${lap.brakeEstimated ? ', brake estimated from the deceleration' : ''}</title>` +
       `<path class="speed" d="${path(lap.speedMps, speedOf)}" fill="none" stroke="${colour}" stroke-width="${width}" stroke-linejoin="round"/>` +
@@ -104,7 +110,7 @@ export function cornerMultipleSvg(spec: CornerMultipleSpec, options: SvgOptions)
 }
 
 /** The legend the small multiples share, as its own small SVG above them. */
-export function cornerMultiplesLegendSvg(options: SvgOptions): string {
-  const { svg } = legendRows(cornerMultiplesLegend(), 700, 16, 690);
+export function cornerMultiplesLegendSvg(options: SvgOptions, items: LegendItem[] = cornerMultiplesLegend()): string {
+  const { svg } = legendRows(items, 700, 16, 690);
   return svgElement('corner-legend', 700, 24, svg, options, 'Legend of the corner charts');
 }

@@ -17,6 +17,7 @@ import {
 import { strideIndices } from './downsample.js';
 import { cornerTableHtml, findingsHtml, summaryHtml } from './tables.js';
 import { againstFindingsHtml, againstTableHtml } from './against-tables.js';
+import { againstMultiplesHtml } from './against-multiples.js';
 import { cornerMultipleCharts, sessionSectionsHtml } from './session-sections.js';
 import { mapPoint, mapProjection, trackMapSvg } from './track-map.js';
 import type { SvgOptions } from './svg-frame.js';
@@ -177,7 +178,7 @@ ${gainSvg ? `<div class="panel">${gainSvg.svg}</div>` : ''}
 <section class="panel stack" aria-label="Channels against distance">
 ${distanceSvgs.map((chart) => chart.svg).join('\n')}
 </section>
-${model.other ? `<section class="panel">${againstTableHtml(model)}</section>\n<section class="panel">${againstFindingsHtml(model)}</section>\n` : ''}<section class="panel">${cornerTableHtml(model)}</section>
+${model.other ? `<section class="panel">${againstTableHtml(model)}</section>\n${againstMultiplesHtml(model)}\n<section class="panel">${againstFindingsHtml(model)}</section>\n` : ''}<section class="panel">${cornerTableHtml(model)}</section>
 ${input.comparison ? `<section class="panel">${findingsHtml(model)}</section>` : ''}`;
   const hoverStep = model.units
     .distance(Math.max(1, Math.ceil(reference.trace.count / MAX_HOVER_POINTS)) * reference.track.stepM)
