@@ -13,6 +13,7 @@ import { selectLap } from '../../src/compare/align.js';
 import { simulate } from '../../src/solve/simulate.js';
 import { readCarFile } from '../../src/io/read-car.js';
 import { traceCsv } from '../../src/report/trace-csv.js';
+import { displayUnits } from '../../src/report/units.js';
 import { triangleTrack } from '../fixtures/telemetry/tracks.js';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', '..');
@@ -210,5 +211,28 @@ describe('simulate trace as telemetry (round trip)', () => {
     expect(worst).toBeLessThan(0.005);
     expect(lap.derivedChannels).toEqual([]);
     expect(notes.some((note) => /lap 1 chosen/.test(note))).toBe(true);
+  });
+
+  it('reads an imperial trace (feet and mph columns) back as the metric one', () => {
+    // distance_ft, x_ft, y_ft and speed_mph convert by 1 ft = 0.3048 m and 1 mph = 0.44704 m/s exactly (NIST SP 811
+    // appendix B): both traces read back to the same session within the files' rounding.
+    const track = triangleTrack(1);
+    const car = readCarFile(path.join(root, 'cars', 'brackle-club.json'));
+    const result = simulate(track, car);
+    const metric = parseTelemetryText(traceCsv(result), 'trace.csv', none);
+    const imperial = parseTelemetryText(traceCsv(result, [], displayUnits('imperial')), 'trace-ft.csv', none);
+    expect(imperial.count).toBe(metric.count);
+    expect(metric.distanceM).not.toBeNull();
+    expect(metric.speedMps).not.toBeNull();
+    for (const field of ['distanceM', 'xM', 'yM', 'speedMps'] as const) {
+      // Positions are written where the trace has them; then in both files.
+      expect(imperial[field] === null, field).toBe(metric[field] === null);
+      if (metric[field] === null) continue;
+      let worst = 0;
+      for (let i = 0; i < metric.count; i++)
+        worst = Math.max(worst, Math.abs(imperial[field]![i]! - metric[field]![i]!));
+      // Three decimals of a foot or a mile per hour: under 1 mm and 1 mm/s.
+      expect(worst, field).toBeLessThan(0.002);
+    }
   });
 });

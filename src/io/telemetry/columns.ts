@@ -131,7 +131,8 @@ const G = STANDARD_GRAVITY_MPS2;
 /** Unit spellings (after squashing to letters, digits and "pct") -> factor to SI; null = decide from the data. */
 const UNITS: Record<Quantity, Record<string, number | null>> = {
   time: { '': 1, s: 1, sec: 1, secs: 1, seconds: 1, ms: 0.001, msec: 0.001 },
-  distance: { '': 1, m: 1, meters: 1, metres: 1, km: 1000 },
+  // Feet and miles: NIST SP 811 appendix B, 1 ft = 0.3048 m and 1 mi = 1609.344 m exactly.
+  distance: { '': 1, m: 1, meters: 1, metres: 1, km: 1000, ft: 0.3048, feet: 0.3048, mi: 1609.344 },
   speed: {
     '': null,
     kmh: 1 / 3.6,
@@ -151,8 +152,8 @@ const UNITS: Record<Quantity, Record<string, number | null>> = {
   steering: { '': 1, deg: 1, degrees: 1, rad: 180 / Math.PI },
   gear: { '': 1 },
   rpm: { '': 1, rpm: 1 },
-  x: { '': 1, m: 1 },
-  y: { '': 1, m: 1 },
+  x: { '': 1, m: 1, ft: 0.3048, feet: 0.3048 },
+  y: { '': 1, m: 1, ft: 0.3048, feet: 0.3048 },
   lat: { '': 1, deg: 1 },
   lon: { '': 1, deg: 1 },
   ax: { '': null, g: G, ms2: 1, mps2: 1 },
