@@ -237,6 +237,7 @@ export {
 } from './car/demonstrated-envelope.js';
 export { readEnvelopeFile, parseEnvelopeJson } from './io/read-envelope.js';
 export {
+  demoDriver,
   demoDriverLap,
   demoDriverPath,
   demoDriverReference,

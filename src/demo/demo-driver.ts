@@ -69,6 +69,19 @@ export function demoDriverReference(track: TrackGrid, car: Car, ambient: Ambient
   return simulate(track, { ...car, tyre }, { ambient, path });
 }
 
+/** The invented driver's lap, whole: its own line from a racing line's offsets (the centreline without them), the
+ * car's lap on that line at the driver's share of the grip, and the four faults made from it. */
+export function demoDriver(
+  track: TrackGrid,
+  car: Car,
+  ambient: Ambient,
+  envelope: Envelope,
+  lineOffsetM: Float64Array | undefined,
+): DemoDriverLap {
+  const path = demoDriverPath(track, lineOffsetM);
+  return demoDriverLap(track, demoDriverReference(track, car, ambient, path), envelope, path);
+}
+
 /** The driver's lap on the grid, made by the four faults from its lap on its own line (demoDriverReference). */
 export function demoDriverLap(
   track: TrackGrid,

@@ -10,13 +10,7 @@ import { parseCarJson, readCarFile } from '../../src/io/read-car.js';
 import { readTrackFile } from '../../src/io/read-track.js';
 import { ambientFrom } from '../../src/car/ambient.js';
 import { buildEnvelope } from '../../src/car/build-envelope.js';
-import {
-  demoDriverLap,
-  demoDriverPath,
-  demoDriverReference,
-  demoLogCsv,
-  DEFAULT_DEMO_LOG,
-} from '../../src/demo/demo-driver.js';
+import { demoDriver, demoLogCsv, DEFAULT_DEMO_LOG } from '../../src/demo/demo-driver.js';
 
 const work = mkdtempSync(path.join(tmpdir(), 'reflap-calibrate-'));
 const log = path.join(work, 'demo', 'demo-lap.csv');
@@ -70,13 +64,7 @@ describe('reflap calibrate', () => {
     const demoTrack = readTrackFile(track);
     const demoCar = readCarFile(path.join(projectRoot, 'cars', 'tarnfell-gt.json'));
     const ambient = ambientFrom();
-    const onCentreline = demoDriverPath(demoTrack, undefined);
-    const centrelineLap = demoDriverLap(
-      demoTrack,
-      demoDriverReference(demoTrack, demoCar, ambient, onCentreline),
-      buildEnvelope(demoCar, ambient),
-      onCentreline,
-    );
+    const centrelineLap = demoDriver(demoTrack, demoCar, ambient, buildEnvelope(demoCar, ambient), undefined);
     // Three laps: the lap before and after the flying lap logged as well (the same lap, fresh noise).
     const laps = { ...DEFAULT_DEMO_LOG, leadInM: demoTrack.lengthM + 400, leadOutM: demoTrack.lengthM + 300 };
     const csv = demoLogCsv(demoTrack, centrelineLap, laps).split('\n');

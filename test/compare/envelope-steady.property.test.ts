@@ -14,13 +14,7 @@ import { buildEnvelope } from '../../src/car/build-envelope.js';
 import { readTrackFile } from '../../src/io/read-track.js';
 import { readCarFile } from '../../src/io/read-car.js';
 import { referenceLine } from '../../src/line/reference-line.js';
-import {
-  demoDriverLap,
-  demoDriverPath,
-  demoDriverReference,
-  demoLogCsv,
-  DEFAULT_DEMO_LOG,
-} from '../../src/demo/demo-driver.js';
+import { demoDriver, demoLogCsv, DEFAULT_DEMO_LOG } from '../../src/demo/demo-driver.js';
 import { parseTelemetryText } from '../../src/io/telemetry/read-telemetry.js';
 import { seededRandom } from '../../src/numeric/seeded-random.js';
 import type { TelemetrySession } from '../../src/telemetry/types.js';
@@ -140,8 +134,7 @@ describe('small perturbations of a realistic log move the demonstrated lap a lit
     const car = readCarFile(path.join(projectRoot, 'cars', 'tarnfell-gt.json'));
     const envelope = buildEnvelope(car, ambient);
     const line = referenceLine(track, car, { ambient, envelope, choice: 'auto' });
-    const driverPath = demoDriverPath(track, line.offsetM);
-    const lap = demoDriverLap(track, demoDriverReference(track, car, ambient, driverPath), envelope, driverPath);
+    const lap = demoDriver(track, car, ambient, envelope, line.offsetM);
     const session = parseTelemetryText(demoLogCsv(track, lap, DEFAULT_DEMO_LOG), 'demo-lap.csv', { columns: {} });
     const run = (log: TelemetrySession) =>
       compareSession(track, car, log, { ambient, ...(line.path ? { path: line.path } : {}), startSpeedMps: 0 });

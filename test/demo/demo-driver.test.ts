@@ -7,13 +7,7 @@ import { racingLine } from '../../src/line/racing-line.js';
 import { simulate } from '../../src/solve/simulate.js';
 import { buildEnvelope } from '../../src/car/build-envelope.js';
 import { ambientFrom } from '../../src/car/ambient.js';
-import {
-  demoDriverLap,
-  demoDriverPath,
-  demoDriverReference,
-  demoLogCsv,
-  DEFAULT_DEMO_LOG,
-} from '../../src/demo/demo-driver.js';
+import { demoDriver, demoDriverPath, demoLogCsv, DEFAULT_DEMO_LOG } from '../../src/demo/demo-driver.js';
 import { localPlane } from '../../src/track/geodesy.js';
 
 describe('demo driver line', () => {
@@ -58,7 +52,7 @@ describe('demo driver line', () => {
   });
 
   it("logs GPS positions along the driver's own line, about a metre from it", () => {
-    const lap = demoDriverLap(track, demoDriverReference(track, car, ambient, driver), envelope, driver);
+    const lap = demoDriver(track, car, ambient, envelope, line.offsetM);
     const rows = demoLogCsv(track, lap, DEFAULT_DEMO_LOG).trim().split('\n').slice(1);
     const plane = localPlane(track.geoOrigin);
     const xy = new Float64Array(2);

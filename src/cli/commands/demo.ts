@@ -8,13 +8,7 @@ import type { Command } from 'commander';
 import { loadCar, loadTrack, numberOption } from '../options.js';
 import { outputBatch } from '../output.js';
 import { buildEnvelope } from '../../car/build-envelope.js';
-import {
-  demoDriverLap,
-  demoDriverPath,
-  demoDriverReference,
-  demoLogCsv,
-  DEFAULT_DEMO_LOG,
-} from '../../demo/demo-driver.js';
+import { demoDriver, demoLogCsv, DEFAULT_DEMO_LOG } from '../../demo/demo-driver.js';
 import { parseTelemetryText } from '../../io/telemetry/read-telemetry.js';
 import { compareSummaryText } from '../../report/compare-summary.js';
 import { compareFromRecords, comparisonFiles } from '../compare-records.js';
@@ -75,8 +69,7 @@ export function runDemo(values: DemoValues): void {
   const envelope = buildEnvelope(car, ambient);
   // The reference drives the racing line (the default); the invented driver a line of its own that uses the track.
   const referencePath = resolveReferenceLine(track, car, ambient, undefined, { envelope });
-  const driverPath = demoDriverPath(track, referencePath.offsetM);
-  const lap = demoDriverLap(track, demoDriverReference(track, car, ambient, driverPath), envelope, driverPath);
+  const lap = demoDriver(track, car, ambient, envelope, referencePath.offsetM);
   const seed = numberOption(values.seed, '--seed', DEFAULT_DEMO_LOG.seed);
   const csv = demoLogCsv(track, lap, { ...DEFAULT_DEMO_LOG, seed });
   const logFile = path.join(values.out, 'demo-lap.csv');
