@@ -32,7 +32,7 @@ export function againstMultiplesHtml(model: ReportModel): string {
   collector.add(DRIVER, { speedMps: driver.speedMps, brake: brakeOf(driver), brakeEstimated: false });
   collector.add(OTHER, { speedMps: against.other.speedMps, brake: brakeOf(against.other), brakeEstimated: false });
   const otherLabel = against.result.label;
-  const styles = new Map([
+  const picked = new Map([
     [DRIVER, { colour: PALETTE.driver, name: `driver${driver.brake ? '' : ' (no brake channel)'}` }],
     [OTHER, { colour: PALETTE.other, name: `${otherLabel}${against.other.brake ? '' : ' (no brake channel)'}` }],
   ]);
@@ -44,10 +44,7 @@ export function againstMultiplesHtml(model: ReportModel): string {
   const charts = collector.traces.map((traces, c) => {
     const corner = model.corners[c]!;
     const title = corner.name ? `Corner ${corner.id}: ${corner.name}` : `Corner ${corner.id}`;
-    const svg = cornerMultipleSvg(
-      { traces, title, bestLap: DRIVER, cornerBestLap: OTHER, units: model.units, styles },
-      { standalone: false },
-    );
+    const svg = cornerMultipleSvg({ traces, title, units: model.units, picked }, { standalone: false });
     return `<div class="multiple">${svg}</div>`;
   });
   return (

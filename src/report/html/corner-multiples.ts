@@ -24,12 +24,23 @@ const OTHER_LAP_COLOUR = '#b3b3b3';
 export interface CornerMultipleSpec {
   traces: CornerTraces;
   title: string;
-  /** The session's best lap, and the lap with this corner's best time. */
-  bestLap: number;
-  cornerBestLap: number;
   units?: DisplayUnits;
-  /** Fixed colours and names by lap (a lap-against-lap page), in place of the session's best-lap picking. */
-  styles?: ReadonlyMap<number, { colour: string; name: string }>;
+  /** The laps picked out, drawn over the others in their own colour and named on hover; the rest are grey. */
+  picked: ReadonlyMap<number, { colour: string; name: string }>;
+}
+
+/** A session's picks: its best lap, and the lap with this corner's best time. */
+export function sessionPicks(
+  bestLap: number,
+  cornerBestLap: number,
+): ReadonlyMap<number, { colour: string; name: string }> {
+  const picks = new Map<number, { colour: string; name: string }>();
+  picks.set(cornerBestLap, { colour: PALETTE.gain, name: `lap ${cornerBestLap} (best in this corner)` });
+  picks.set(bestLap, {
+    colour: PALETTE.driver,
+    name: `lap ${bestLap} (best lap)${bestLap === cornerBestLap ? ' (best in this corner)' : ''}`,
+  });
+  return picks;
 }
 
 export function cornerMultiplesLegend(): LegendItem[] {
@@ -72,17 +83,13 @@ export function cornerMultipleSvg(spec: CornerMultipleSpec, options: SvgOptions)
   body += yAxis(ySpeed, LEFT, WIDTH - RIGHT, `speed, ${units.speedLabel}`, tickText, 3);
   body += yAxis(yBrake, LEFT, WIDTH - RIGHT, 'brake, %', tickText, 1);
   // The laps drawn grey first, the picked laps over them, the reference on top.
-  const picked = spec.styles ? new Set(spec.styles.keys()) : new Set([spec.bestLap, spec.cornerBestLap]);
+  const { picked } = spec;
   const order = [...traces.laps.filter((lap) => !picked.has(lap.lap)), ...traces.laps.filter((l) => picked.has(l.lap))];
   for (const lap of order) {
-    const style = spec.styles?.get(lap.lap);
-    const colour =
-      style?.colour ??
-      (lap.lap === spec.bestLap ? PALETTE.driver : lap.lap === spec.cornerBestLap ? PALETTE.gain : OTHER_LAP_COLOUR);
-    const width = picked.has(lap.lap) ? 1.8 : 1;
-    const name =
-      style?.name ??
-      `lap ${lap.lap}${lap.lap === spec.bestLap ? ' (best lap)' : ''}${lap.lap === spec.cornerBestLap ? ' (best in this corner)' : ''}`;
+    const pick = picked.get(lap.lap);
+    const colour = pick?.colour ?? OTHER_LAP_COLOUR;
+    const width = pick ? 1.8 : 1;
+    const name = pick?.name ?? `lap ${lap.lap}`;
     body +=
       `<g class="lap-trace" data-lap="${lap.lap}"><title>${escapeHtml(name)}${lap.brakeEstimated ? ', brake estimated from the deceleration' : ''}</title>` +
       `<path class="speed" d="${path(lap.speedMps, speedOf)}" fill="none" stroke="${colour}" stroke-width="${width}" stroke-linejoin="round"/>` +

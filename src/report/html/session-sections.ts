@@ -7,7 +7,7 @@ import type { CornerTraces } from '../../compare/session/corner-traces.js';
 import { formatLapTime } from '../../units.js';
 import { escapeHtml } from './escape.js';
 import { cornerCell, fixed, signed, tile } from './cells.js';
-import { cornerMultipleSvg, cornerMultiplesLegendSvg } from './corner-multiples.js';
+import { cornerMultipleSvg, cornerMultiplesLegendSvg, sessionPicks } from './corner-multiples.js';
 import type { ChartSvg } from './page.js';
 import type { SvgOptions } from './svg-frame.js';
 import { displayUnits, type DisplayUnits } from '../units.js';
@@ -104,8 +104,7 @@ export function cornerMultipleCharts(part: SessionReportPart, options: SvgOption
         {
           traces,
           title,
-          bestLap: part.overview.bestLap,
-          cornerBestLap: corner?.bestLap ?? part.overview.bestLap,
+          picked: sessionPicks(part.overview.bestLap, corner?.bestLap ?? part.overview.bestLap),
           ...(units ? { units } : {}),
         },
         options,
