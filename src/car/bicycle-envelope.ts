@@ -222,10 +222,10 @@ export function bicycleEnvelope(car: Car, ambient: Ambient): BicycleEnvelope {
     lateralLimitMps2: (speedMps, _side, load) => lateralLimitMps2(speedMps, load ?? 1),
     accelLimitMps2,
     brakeLimitMps2,
-    coastDecelMps2: base.coastDecelMps2,
+    coastDecelMps2: (speedMps, load) => base.coastDecelMps2(speedMps, load),
     gripUse: (speedMps, axMps2, ayMps2) => gripUseOf(model, base.coastDecelMps2(speedMps), speedMps, axMps2, ayMps2),
     driveLimitMps2: (speedMps) => drive.forceN(speedMps) / massKg,
-    gearAt: drive.gearAt,
+    gearAt: (speedMps) => drive.gearAt(speedMps),
     lateralLimitingAxle,
   };
 }

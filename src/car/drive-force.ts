@@ -4,6 +4,7 @@
 
 import type { Car } from './types.js';
 
+/** Methods, not free functions: call them on the table (`table.forceN(v)`), or wrap them to pass them on. */
 export interface DriveForceTable {
   /** Tractive force at the wheels, N, before the tyre limit, at this road speed. */
   forceN(speedMps: number): number;
@@ -26,28 +27,50 @@ function torqueAt(rpmValues: number[], torqueValues: number[], rpm: number): num
   return torqueValues[lo]! + share * (torqueValues[hi]! - torqueValues[lo]!);
 }
 
+/**
+ * The drive force of one car: the power's eta P / v, or the gear table read by linear interpolation. One class with
+ * the same fields and methods for every car, geared or not, so the solver's calls through it see one shape and one
+ * target whichever cars ran before in the process (closures per car made those calls polymorphic and uninlined).
+ */
+class DriveForce implements DriveForceTable {
+  constructor(
+    private readonly powerW: number,
+    private readonly hasGears: boolean,
+    /** Best gear's force at each TABLE_STEP_MPS of speed (empty without gears). */
+    private readonly tableForceN: Float64Array,
+    private readonly tableGear: Int8Array,
+  ) {}
+
+  // Ternaries rather than Math.min and Math.max: the same values, in less bytecode, which keeps these calls within
+  // what V8 inlines into the solver's loops.
+
+  forceN(speedMps: number): number {
+    if (!this.hasGears) return this.powerW / (speedMps > 1 ? speedMps : 1);
+    const force = this.tableForceN;
+    const position = tablePosition(speedMps);
+    const floor = Math.floor(position);
+    const lo = floor < TABLE_COUNT - 2 ? floor : TABLE_COUNT - 2;
+    return force[lo]! + (position - lo) * (force[lo + 1]! - force[lo]!);
+  }
+
+  gearAt(speedMps: number): number {
+    return this.hasGears ? this.tableGear[Math.round(tablePosition(speedMps))]! : 0;
+  }
+}
+
+/** Place of a speed on the table's steps, within the table. */
+function tablePosition(speedMps: number): number {
+  return (speedMps > 0 ? (speedMps < TABLE_TOP_MPS ? speedMps : TABLE_TOP_MPS) : 0) / TABLE_STEP_MPS;
+}
+
 export function driveForceTable(car: Car, powerFactor: number): DriveForceTable {
   const efficiency = car.powertrain.drivetrainEfficiency;
   const powerW = car.powertrain.maxPowerW * powerFactor * efficiency;
   const gearing = car.powertrain.gearing;
+  if (!gearing) return new DriveForce(powerW, false, new Float64Array(0), new Int8Array(0));
   // Below walking pace P / v is unbounded; the tyre limit caps it in the envelope, but keep it finite here.
-  const powerForce = (speedMps: number) => powerW / Math.max(speedMps, 1);
-  const table = gearing ? gearTable(gearing, efficiency, powerFactor, powerForce) : null;
-  // The same two functions with and without gears: the solver's calls through them then see one target whichever
-  // car ran before (two shapes of table make the calls in the hot passes polymorphic, at about a third more time).
-  return {
-    forceN(speedMps) {
-      if (table === null) return powerForce(speedMps);
-      const position = Math.min(Math.max(speedMps, 0), TABLE_TOP_MPS) / TABLE_STEP_MPS;
-      const lo = Math.min(Math.floor(position), TABLE_COUNT - 2);
-      const share = position - lo;
-      return table.force[lo]! + share * (table.force[lo + 1]! - table.force[lo]!);
-    },
-    gearAt(speedMps) {
-      if (table === null) return 0;
-      return table.gear[Math.round(Math.min(Math.max(speedMps, 0), TABLE_TOP_MPS) / TABLE_STEP_MPS)]!;
-    },
-  };
+  const table = gearTable(gearing, efficiency, powerFactor, (speedMps) => powerW / Math.max(speedMps, 1));
+  return new DriveForce(powerW, true, table.force, table.gear);
 }
 
 /** The best gear's wheel force at each step of road speed, capped by the power, and that gear. */

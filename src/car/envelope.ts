@@ -2,6 +2,8 @@
 // so a point-mass model, a bicycle model or an envelope fitted to a driver's own data plug in unchanged.
 // loadFactor: the normal force from gravity and the road's own curvature (slope, bank, crest or compression) as a
 // share of the car's weight on level ground; 1 (left out) is a flat road, and gives exactly the flat limits.
+// Call the methods on the envelope (`envelope.accelLimitMps2(v, ay)`): an implementation may keep its numbers on the
+// object and share one set of methods between cars; to pass one on, wrap it (`(v) => envelope.gearAt(v)`).
 
 export interface Envelope {
   /** Short label for reports: 'point-mass', 'bicycle', 'demonstrated'. */

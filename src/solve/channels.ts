@@ -14,42 +14,59 @@ import type { LapTrace } from './types.js';
 export const POWER_LIMITED_SHARE = 0.995;
 
 /**
- * Longitudinal acceleration at sample i: over the step to the next sample (constant acceleration between them); on
- * the last sample of an open stage, which has no step after it, the previous step's, clipped to what the envelope
- * allows at this sample's own lateral demand.
+ * Longitudinal acceleration at the last sample of an open stage, which has no step after it: the previous step's,
+ * clipped to what the envelope allows at this sample's own lateral demand. Every other sample takes the constant
+ * acceleration over the step to the next one, (v_next^2 - v^2) / (2 ds), computed in the loops themselves.
  */
-function accelerationAt(
-  path: Path,
-  envelope: Envelope,
-  speedMps: Float64Array,
-  i: number,
-  previousAxMps2: number,
-): number {
-  const n = speedMps.length;
-  const speed = speedMps[i]!;
-  if (i < (path.closed ? n : n - 1)) {
-    const next = speedMps[i + 1 === n ? 0 : i + 1]!;
-    return (next * next - speed * speed) / (2 * path.segmentLengthM[i]!);
-  }
-  if (i === 0) return 0;
-  const ay = speed * speed * path.curvaturePerM[i]!;
+function openEndAccelerationMps2(envelope: Envelope, speed: number, curvaturePerM: number, previousAxMps2: number) {
+  const ay = speed * speed * curvaturePerM;
   return Math.min(
     Math.max(previousAxMps2, -envelope.brakeLimitMps2(speed, ay)),
     Math.max(envelope.accelLimitMps2(speed, ay), -envelope.coastDecelMps2(speed)),
   );
 }
 
-/** Time over the step from sample i (constant acceleration: the mean of the two speeds), 0 past an open end. */
-function stepTimeS(path: Path, speedMps: Float64Array, i: number): number {
-  const n = speedMps.length;
-  if (i >= (path.closed ? n : n - 1)) return 0;
-  return (2 * path.segmentLengthM[i]!) / Math.max(speedMps[i]! + speedMps[i + 1 === n ? 0 : i + 1]!, 1e-9);
-}
-
 /** Share of the tyres' braking (left beside the cornering) in use at this speed, demand and acceleration. */
 function brakeShare(envelope: Envelope, speed: number, ay: number, tyreAx: number, coast: number): number {
   const available = envelope.brakeLimitMps2(speed, ay) - coast;
   return available > 1e-9 ? Math.min(1, -tyreAx / available) : 1;
+}
+
+/** Length of the path's steps (the last sample's step back to the first on a closed lap), m. */
+function pathLengthM(path: Path, n: number): number {
+  const segments = path.closed ? n : n - 1;
+  let travelledM = 0;
+  for (let i = 0; i < segments; i++) travelledM += path.segmentLengthM[i]!;
+  return travelledM;
+}
+
+// The per-sample loops below live in functions of their own that end on a plain return: V8 compiles a long loop
+// while it runs (on-stack replacement), before the code after it has ever run, and code after the loop that then
+// lacks type feedback (building the result's record) sent every call back to the interpreter.
+
+/** Fills the brake channel; returns the lap time. */
+function brakeLoop(path: Path, envelope: Envelope, speedMps: Float64Array, shift: Uint8Array, brake: Float64Array) {
+  const n = speedMps.length;
+  const kappa = path.curvaturePerM;
+  const ds = path.segmentLengthM;
+  const segments = path.closed ? n : n - 1;
+  let elapsedS = 0;
+  let ax = 0;
+  for (let i = 0; i < n; i++) {
+    const speed = speedMps[i]!;
+    if (i < segments) {
+      // Constant acceleration over the step: the mean of the two speeds gives its time.
+      const next = speedMps[i + 1 === n ? 0 : i + 1]!;
+      ax = (next * next - speed * speed) / (2 * ds[i]!);
+      elapsedS += (2 * ds[i]!) / Math.max(speed + next, 1e-9);
+    } else ax = i === 0 ? 0 : openEndAccelerationMps2(envelope, speed, kappa[i]!, ax);
+    // Only a deceleration beyond drag and rolling resistance can be braking, and never during a shift.
+    if (ax < 0 && !shift[i]) {
+      const coast = envelope.coastDecelMps2(speed);
+      if (ax + coast < 0) brake[i] = brakeShare(envelope, speed, speed * speed * kappa[i]!, ax + coast, coast);
+    }
+  }
+  return elapsedS;
 }
 
 /** The lap time, the path's length and the brake channel alone: what a sweep or the line search needs. */
@@ -61,60 +78,37 @@ export function lapTimeAndBrake(
 ): { lapTimeS: number; lengthM: number; brake: Float64Array } {
   const n = speedMps.length;
   const brake = new Float64Array(n);
+  const lapTimeS = brakeLoop(path, envelope, speedMps, shift, brake);
+  return { lapTimeS, lengthM: pathLengthM(path, n), brake };
+}
+
+type ChannelArrays = Pick<
+  LapTrace,
+  'distanceM' | 'timeS' | 'axMps2' | 'ayMps2' | 'throttle' | 'brake' | 'gripUse' | 'powerLimited' | 'gear'
+>;
+
+/** Fills every channel of `out` from the speed profile. */
+function channelLoop(path: Path, envelope: Envelope, speedMps: Float64Array, shift: Uint8Array, out: ChannelArrays) {
+  const n = speedMps.length;
+  const kappa = path.curvaturePerM;
+  const ds = path.segmentLengthM;
+  const { distanceM, timeS, axMps2, ayMps2, throttle, brake, gripUse, powerLimited, gear } = out;
   let elapsedS = 0;
   let travelledM = 0;
   let ax = 0;
   const segments = path.closed ? n : n - 1;
-  for (let i = 0; i < n; i++) {
-    const speed = speedMps[i]!;
-    ax = accelerationAt(path, envelope, speedMps, i, ax);
-    elapsedS += stepTimeS(path, speedMps, i);
-    if (i < segments) travelledM += path.segmentLengthM[i]!;
-    // Only a deceleration beyond drag and rolling resistance can be braking, and never during a shift.
-    if (ax < 0 && !shift[i]) {
-      const coast = envelope.coastDecelMps2(speed);
-      if (ax + coast < 0)
-        brake[i] = brakeShare(envelope, speed, speed * speed * path.curvaturePerM[i]!, ax + coast, coast);
-    }
-  }
-  return { lapTimeS: elapsedS, lengthM: travelledM, brake };
-}
-
-export function lapChannels(
-  path: Path,
-  envelope: Envelope,
-  speedMps: Float64Array,
-  cornerLimitMps: Float64Array,
-  stationM: Float64Array,
-  shift: Uint8Array = new Uint8Array(speedMps.length),
-): { trace: LapTrace; lapTimeS: number; lengthM: number } {
-  const n = speedMps.length;
-  const closed = path.closed;
-  const kappa = path.curvaturePerM;
-  const ds = path.segmentLengthM;
-  const distanceM = new Float64Array(n);
-  const timeS = new Float64Array(n);
-  const axMps2 = new Float64Array(n);
-  const ayMps2 = new Float64Array(n);
-  const throttle = new Float64Array(n);
-  const brake = new Float64Array(n);
-  const gripUse = new Float64Array(n);
-  const powerLimited = new Uint8Array(n);
-  const gear = new Int8Array(n);
-  let hasGears = false;
-  let elapsedS = 0;
-  let travelledM = 0;
-  let ax = 0;
-  const segments = closed ? n : n - 1;
   for (let i = 0; i < n; i++) {
     distanceM[i] = travelledM;
     timeS[i] = elapsedS;
     const speed = speedMps[i]!;
     const ay = speed * speed * kappa[i]!;
     ayMps2[i] = ay;
-    ax = accelerationAt(path, envelope, speedMps, i, ax);
-    elapsedS += stepTimeS(path, speedMps, i);
-    if (i < segments) travelledM += ds[i]!;
+    if (i < segments) {
+      const next = speedMps[i + 1 === n ? 0 : i + 1]!;
+      ax = (next * next - speed * speed) / (2 * ds[i]!);
+      elapsedS += (2 * ds[i]!) / Math.max(speed + next, 1e-9);
+      travelledM += ds[i]!;
+    } else ax = i === 0 ? 0 : openEndAccelerationMps2(envelope, speed, kappa[i]!, ax);
     axMps2[i] = ax;
     const coast = envelope.coastDecelMps2(speed);
     const tyreAx = ax + coast;
@@ -129,12 +123,40 @@ export function lapChannels(
       brake[i] = brakeShare(envelope, speed, ay, tyreAx, coast);
     }
     gripUse[i] = envelope.gripUse(speed, ax, ay);
-    const g = envelope.gearAt(speed);
-    gear[i] = g;
-    if (g > 0) hasGears = true;
+    gear[i] = envelope.gearAt(speed);
   }
+  return elapsedS;
+}
+
+function anyGear(gear: Int8Array): boolean {
+  for (let i = 0; i < gear.length; i++) if (gear[i]! > 0) return true;
+  return false;
+}
+
+export function lapChannels(
+  path: Path,
+  envelope: Envelope,
+  speedMps: Float64Array,
+  cornerLimitMps: Float64Array,
+  stationM: Float64Array,
+  shift: Uint8Array = new Uint8Array(speedMps.length),
+): { trace: LapTrace; lapTimeS: number; lengthM: number } {
+  const n = speedMps.length;
+  const channels: ChannelArrays = {
+    distanceM: new Float64Array(n),
+    timeS: new Float64Array(n),
+    axMps2: new Float64Array(n),
+    ayMps2: new Float64Array(n),
+    throttle: new Float64Array(n),
+    brake: new Float64Array(n),
+    gripUse: new Float64Array(n),
+    powerLimited: new Uint8Array(n),
+    gear: new Int8Array(n),
+  };
+  const lapTimeS = channelLoop(path, envelope, speedMps, shift, channels);
+  const { distanceM, timeS, axMps2, ayMps2, throttle, brake, gripUse, powerLimited, gear } = channels;
   const trace: LapTrace = {
-    closed,
+    closed: path.closed,
     count: n,
     distanceM,
     stationM,
@@ -142,7 +164,7 @@ export function lapChannels(
     speedMps,
     axMps2,
     ayMps2,
-    curvaturePerM: kappa,
+    curvaturePerM: path.curvaturePerM,
     throttle,
     brake,
     gripUse,
@@ -150,7 +172,7 @@ export function lapChannels(
     cornerLimitMps,
     gear,
     shift,
-    hasGears,
+    hasGears: anyGear(gear),
   };
-  return { trace, lapTimeS: elapsedS, lengthM: travelledM };
+  return { trace, lapTimeS, lengthM: pathLengthM(path, n) };
 }

@@ -125,7 +125,7 @@ export function followLap(result: LapResult, car: Car, setup: FollowSetup): Foll
     understeerGradientRadPerMps2: setup.understeerGradientRadPerMps2,
     halfRhoLift: model.halfRhoLift,
     brakeCapN: car.brakes.maxDecelG === null ? Infinity : car.brakes.maxDecelG * STANDARD_GRAVITY_MPS2 * p.massKg,
-    engineForceN: drive.forceN,
+    engineForceN: (speedMps) => drive.forceN(speedMps),
     resistanceN,
     reference,
   });

@@ -73,7 +73,7 @@ function plainPointMass(car: Car, ambient: Ambient) {
     brake: (v: number, ay: number) =>
       Math.min(brakeCap, (mu(car.tyre.muLong, normal(v)) * normal(v)) / m) * left(v, ay) + coast(v),
     coast,
-    gearAt: engine.gearAt,
+    gearAt: (speedMps: number) => engine.gearAt(speedMps),
   };
 }
 
