@@ -223,7 +223,16 @@ export { cornerLine, type CornerLine } from './compare/driver-line/corner-line.j
 export { lateralOffsetM, smoothedOffset } from './compare/driver-line/lateral-offset.js';
 export { driverPath, type DriverPath, type DriverPathFixes } from './compare/driver-line/driver-path.js';
 export { lineSummaryText, lineJson } from './report/line-summary.js';
-export { rankFindings, cornerFindingText, DEFAULT_FINDING_OPTIONS, type FindingOptions } from './compare/findings.js';
+export {
+  rankFindings,
+  cornerFinding,
+  cornerClaims,
+  DEFAULT_FINDING_OPTIONS,
+  type FindingOptions,
+  type Claim,
+  type ClaimKind,
+} from './compare/findings.js';
+export { findingText, claimText } from './report/finding-phrases.js';
 export {
   fitEnvelope,
   DEFAULT_ENVELOPE_FIT,

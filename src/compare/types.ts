@@ -98,10 +98,54 @@ export interface CornerComparison {
   referencePeakGripUse?: number;
 }
 
+/** The three phases' time lost, s: where a corner no clause describes loses its time. */
+interface PhaseTimes {
+  entryTimeLostS: number;
+  middleTimeLostS: number;
+  exitTimeLostS: number;
+}
+
+/** One clause of a finding: what it claims and its numbers, SI with the unit in each name. */
+export type Claim =
+  | {
+      kind: 'brakes-late-and-hard';
+      /** Driver's braking point minus the reference's, m; the reference's speed there, m/s. */
+      brakingPointDeltaM: number;
+      brakingSpeedMps: number;
+      /** Why too hard: grip use over the envelope (overDriven), else the car is slowed too far. */
+      overDriven: boolean;
+      peakGripUse: number;
+    }
+  | { kind: 'lifts-before-braking-point'; brakingPointDeltaM: number; brakingSpeedMps: number }
+  | { kind: 'brakes-early'; brakingPointDeltaM: number; brakingSpeedMps: number; brakingPointDeltaS: number | null }
+  | { kind: 'brakes-late'; brakingPointDeltaM: number; brakingSpeedMps: number }
+  | { kind: 'lifts-where-flat'; liftSpeedMps: number }
+  | { kind: 'lifts-early'; liftPointDeltaM: number }
+  | { kind: 'coasts'; coastingS: number }
+  | { kind: 'slowest-point-low'; minSpeedDeltaMps: number; referenceMinSpeedMps: number }
+  | { kind: 'slowest-point-misplaced'; minSpeedOffsetFromApexM: number; referenceMinSpeedOffsetFromApexM: number }
+  | { kind: 'exit-slow'; exitSpeedDeltaMps: number }
+  | { kind: 'grip-unused'; unusedLengthM: number }
+  | { kind: 'over-the-limit'; peakGripUse: number }
+  | ({ kind: 'loses-in-entry' | 'loses-in-middle' | 'loses-in-exit' } & PhaseTimes);
+
+/** What a clause of a finding claims, whatever its numbers: the unit in which a finding can hold or not. */
+export type ClaimKind = Claim['kind'];
+
+/** A finding of the comparison: a corner, the time at stake and what it claims (the sentence is the report's). */
 export interface Finding {
   /** Corner id, or null for a finding about the whole lap. */
   corner: number | null;
+  cornerName: string | null;
   /** Estimated time at stake, s. */
+  timeS: number;
+  /** The main clause first (or where the corner's time goes), then up to two further observations. */
+  claims: Claim[];
+}
+
+/** A finding already in words (the lap-against-lap and line findings). */
+export interface TextFinding {
+  corner: number | null;
   timeS: number;
   text: string;
 }

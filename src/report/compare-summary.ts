@@ -8,6 +8,8 @@ import { formatTable } from './text-table.js';
 import { SAFETY_CAUTION } from './lap-summary.js';
 import { roundToDigits } from '../numeric/round.js';
 import type { UncertainReference } from '../uncertainty/uncertain-reference.js';
+import { findingText } from './finding-phrases.js';
+import { roundedNumbers } from './json-numbers.js';
 import { drawsLine, lapBandLine, percentText, robustFindingsText } from './uncertainty-summary.js';
 
 const signed = (value: number, digits: number) => plainNumber(value, digits, true);
@@ -107,12 +109,12 @@ export function compareSummaryText(
     ),
     '',
   ];
-  if (uncertainty) lines.push(...robustFindingsText(uncertainty));
+  if (uncertainty) lines.push(...robustFindingsText(uncertainty, units));
   else if (result.findings.length === 0)
     lines.push('No corner costs more than a hundredth of a second against the reference.');
   else {
     lines.push('Where the time is (largest first):');
-    result.findings.forEach((finding, index) => lines.push(`${index + 1}. ${finding.text}`));
+    result.findings.forEach((finding, index) => lines.push(`${index + 1}. ${findingText(finding, units)}`));
   }
   if (result.notes.length > 0) lines.push('', ...result.notes.map((note) => `Note: ${note}`));
   lines.push('', SAFETY_CAUTION);
@@ -169,7 +171,12 @@ export function compareSummaryJson(result: ComparisonResult) {
         meanGripUse: roundToDigits(s.meanGripUse, 3),
       })),
     })),
-    findings: result.findings.map((f) => ({ corner: f.corner, timeS: roundToDigits(f.timeS, 3), text: f.text })),
+    findings: result.findings.map((f) => ({
+      corner: f.corner,
+      timeS: roundToDigits(f.timeS, 3),
+      text: findingText(f),
+      claims: roundedNumbers(f.claims),
+    })),
     notes: result.notes,
   };
 }

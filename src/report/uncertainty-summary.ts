@@ -5,6 +5,9 @@ import type { Band, UncertainFinding, UncertainReference } from '../uncertainty/
 import { formatLapTime, mpsToKph } from '../units.js';
 import { formatTable } from './text-table.js';
 import { roundToDigits } from '../numeric/round.js';
+import { claimText, findingText } from './finding-phrases.js';
+import { roundedNumbers } from './json-numbers.js';
+import { displayUnits, type DisplayUnits } from './units.js';
 
 export const percentText = (share: number): string => `${Math.round(share * 100)} %`;
 
@@ -51,20 +54,22 @@ export function uncertainReferenceText(u: UncertainReference): string {
   return lines.join('\n') + '\n';
 }
 
-export function findingRobustnessText(finding: UncertainFinding): string {
+export function findingRobustnessText(finding: UncertainFinding, units: DisplayUnits = displayUnits('metric')): string {
   const flag = finding.uncertain ? '[uncertain] ' : '';
   const time = `${finding.timeS.median.toFixed(2)} s (90 % band ${finding.timeS.low.toFixed(2)} to ${finding.timeS.high.toFixed(2)} s)`;
-  const head = `${flag}${finding.text} Over the draws: ${time}; holds in ${percentText(finding.holds)} of draws.`;
-  const rest = finding.clauses.slice(1).map((clause) => `   - ${clause.text}: holds in ${percentText(clause.holds)}`);
+  const head = `${flag}${findingText(finding.finding, units)} Over the draws: ${time}; holds in ${percentText(finding.holds)} of draws.`;
+  const rest = finding.clauses
+    .slice(1)
+    .map((clause) => `   - ${claimText(clause.claim, units)}: holds in ${percentText(clause.holds)}`);
   return [head, ...rest].join('\n');
 }
 
 /** The findings ranked by their time over the draws, each with how often it holds. */
-export function robustFindingsText(u: UncertainReference): string[] {
+export function robustFindingsText(u: UncertainReference, units: DisplayUnits = displayUnits('metric')): string[] {
   if (u.findings.length === 0) return ['No corner costs more than a hundredth of a second against the reference.'];
   return [
     'Where the time is, over the draws (largest first; [uncertain] = holds in fewer than half of them):',
-    ...u.findings.map((finding, index) => `${index + 1}. ${findingRobustnessText(finding)}`),
+    ...u.findings.map((finding, index) => `${index + 1}. ${findingRobustnessText(finding, units)}`),
   ];
 }
 
@@ -98,14 +103,14 @@ export function uncertaintyJson(u: UncertainReference) {
     })),
     findings: u.findings.map((finding) => ({
       corner: finding.corner,
-      text: finding.text,
+      text: findingText(finding.finding),
       nominalTimeS: roundToDigits(finding.nominalTimeS, 3),
       timeS: bandJson(finding.timeS, 3),
       holds: roundToDigits(finding.holds, 3),
       uncertain: finding.uncertain,
       clauses: finding.clauses.map((clause) => ({
-        kind: clause.kind,
-        text: clause.text,
+        ...roundedNumbers(clause.claim),
+        text: claimText(clause.claim),
         holds: roundToDigits(clause.holds, 3),
       })),
     })),

@@ -5,7 +5,7 @@
 // compare, and for any command that wants the same (it needs only the records already read).
 
 import type { Ambient, Car } from '../car/types.js';
-import type { ComparisonResult, CornerComparison, DriverLap } from '../compare/types.js';
+import type { ComparisonResult, CornerComparison, DriverLap, Finding } from '../compare/types.js';
 import type { CompareOptions } from '../compare/compare-options.js';
 import { DEFAULT_COMPARE_OPTIONS } from '../compare/compare-options.js';
 import { CLAIM_KINDS, cornerClaims, phaseClaim, type Claim, type ClaimKind } from '../compare/findings.js';
@@ -53,15 +53,15 @@ export interface Band {
 }
 
 export interface UncertainClause {
-  kind: ClaimKind;
-  text: string;
+  claim: Claim;
   /** Share of draws in which the corner loses time and its finding makes this claim, 0-1. */
   holds: number;
 }
 
 export interface UncertainFinding {
+  /** The finding of the plain answer (its corner and claims). */
+  finding: Finding;
   corner: number | null;
-  text: string;
   /** Time at stake in the plain answer, and over the draws, s. */
   nominalTimeS: number;
   timeS: Band;
@@ -252,8 +252,8 @@ function robustness(
     const c = nominalCorners.findIndex((corner) => corner.id === finding.corner);
     if (c < 0)
       return {
+        finding,
         corner: finding.corner,
-        text: finding.text,
         nominalTimeS: finding.timeS,
         timeS: { median: finding.timeS, low: finding.timeS, high: finding.timeS },
         holds: 1,
@@ -263,13 +263,13 @@ function robustness(
     const { main, rest } = mainClaim(nominalCorners[c]!, options);
     const share = holds(c, main.kind);
     return {
+      finding,
       corner: finding.corner,
-      text: finding.text,
       nominalTimeS: finding.timeS,
       timeS: timeBand(c),
       holds: share,
       uncertain: share < UNCERTAIN_BELOW,
-      clauses: [main, ...rest].map((claim) => ({ kind: claim.kind, text: claim.text, holds: holds(c, claim.kind) })),
+      clauses: [main, ...rest].map((claim) => ({ claim, holds: holds(c, claim.kind) })),
     };
   });
   // Ranked by the time at stake over the draws (the median), the plain answer's order breaking ties.

@@ -9,6 +9,7 @@ import { compareLaps } from '../../src/compare/compare-laps.js';
 import { detectCorners } from '../../src/track/corners.js';
 import { distanceAsTimeS } from '../../src/compare/delta.js';
 import { arcRanges, circuitCar, driverLapFromReference, driverLapFromSpeeds, testCircuit } from './fixtures.js';
+import { findingText } from '../../src/report/finding-phrases.js';
 
 const track = testCircuit();
 const car = circuitCar();
@@ -108,7 +109,7 @@ describe('braking 10 m early at one corner', () => {
     expect(target.brakingPointDeltaS!).toBeCloseTo(target.brakingPointDeltaM! / v, 2);
     expect(result.findings.length).toBe(1);
     expect(result.findings[0]!.corner).toBe(target.id);
-    expect(result.findings[0]!.text).toMatch(/10 m before the reference/);
+    expect(findingText(result.findings[0]!)).toMatch(/10 m before the reference/);
     expect(target.timeLostS).toBeGreaterThan(0);
   });
 

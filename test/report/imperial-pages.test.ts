@@ -10,6 +10,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { runCli } from '../helpers/cli.js';
 import { scaleBarOf } from '../../src/report/html/track-map.js';
 import { displayUnits } from '../../src/report/units.js';
+import { expectConverted } from './converted-quantities.js';
 
 const MPS_PER_MPH = 0.44704; // NIST SP 811, appendix B (exact)
 const M_PER_FT = 0.3048; // NIST SP 811, appendix B (exact)
@@ -134,17 +135,36 @@ describe('report pages', () => {
       ['session', ...gt, '--telemetry', log],
     ]) {
       const { imperial } = both(args, '--html', `${args[0]}.html`);
-      // Findings and notes are the comparison's and the envelope fit's own sentences, written in km/h where they
-      // name a speed; everything else the page draws is checked.
-      const drawn = visible(imperial)
-        .replace(/<section class="findings">[\s\S]*?<\/section>/g, '')
-        .replace(/<ul class="notes">[\s\S]*?<\/ul>/g, '');
+      // The notes (laps left out, the envelope fit's thin bands) are still written in metres and km/h; everything
+      // else the page draws is checked, the findings included.
+      const drawn = visible(imperial).replace(/<ul class="notes">[\s\S]*?<\/ul>/g, '');
       const headers = [...drawn.matchAll(/<th>([^<]*)<\/th>/g)].map((m) => m[1]!);
       expect(headers.filter((h) => /km\/h|, m$|, m\b/.test(h))).toEqual([]);
       expect(headers).toEqual(expect.arrayContaining(['slowest, mph', 'brake point Δ, ft']));
       expect(placesOf(drawn, /km\/h/)).toEqual([]);
       expect(drawn).toMatch(/envelope at [\d, ]+ mph/);
     }
+  });
+
+  it('the findings in mph and feet, each number the metric finding’s converted', () => {
+    const { metric, imperial } = both(['compare', ...gt, '--telemetry', log], '--html', 'findings.html');
+    const findings = (html: string) =>
+      [...html.matchAll(/<span class="finding-text">([\s\S]*?)<\/span>/g)].map((m) => m[1]!.replace(/&#39;/g, "'"));
+    const metricFindings = findings(metric);
+    expect(metricFindings.length).toBeGreaterThan(2);
+    const imperialFindings = findings(imperial);
+    expect(imperialFindings).toHaveLength(metricFindings.length);
+    for (const text of imperialFindings) expect(text).not.toMatch(/km\/h| m\b/);
+    imperialFindings.forEach((text, k) => expectConverted(metricFindings[k]!, text));
+    // The terminal's findings say the same as the page's.
+    const printed = (units: string) => {
+      const run = runCli(['compare', ...gt, '--telemetry', log, '--units', units]);
+      expect(run.code, run.stderr).toBe(0);
+      const block = run.stdout.split('Where the time is (largest first):\n')[1]!.split('\n\n')[0]!;
+      return block.split('\n').map((line) => line.replace(/^\d+\. /, ''));
+    };
+    expect(printed('imperial')).toEqual(imperialFindings);
+    expect(printed('metric')).toEqual(metricFindings);
   });
 
   it('the what-if, sweep, car and budget pages show mph and feet', () => {

@@ -154,9 +154,22 @@ export function comparisonInput(options: Parameters<typeof referenceInput>[0] = 
     driverGripUse: gripUse,
     corners,
     findings: [
-      { corner: 1, timeS: 0.45, text: 'Brakes 4 m early into corner 1 and coasts 0.3 s before turning in.' },
-      { corner: null, timeS: 0.2, text: `Grip left unused on the straights <b>${options.cornerName ?? ''}</b>.` },
-      { corner: corners.length > 1 ? 2 : 1, timeS: 0.6, text: 'Back on the throttle late out of corner 2.' },
+      {
+        corner: 1,
+        cornerName: options.cornerName ?? null,
+        timeS: 0.45,
+        claims: [
+          { kind: 'brakes-early', brakingPointDeltaM: -4, brakingSpeedMps: 40, brakingPointDeltaS: -0.1 },
+          { kind: 'coasts', coastingS: 0.3 },
+        ],
+      },
+      { corner: null, cornerName: null, timeS: 0.2, claims: [{ kind: 'grip-unused', unusedLengthM: 120 }] },
+      {
+        corner: corners.length > 1 ? 2 : 1,
+        cornerName: null,
+        timeS: 0.6,
+        claims: [{ kind: 'exit-slow', exitSpeedDeltaMps: -2 }],
+      },
     ],
     notes: ['Positions from the log; speeds measured.'],
   };

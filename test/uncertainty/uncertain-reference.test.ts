@@ -47,7 +47,7 @@ describe('no uncertainty', () => {
       expect(u.speedMps.high[i]).toBe(plain.trace.speedMps[i]);
     }
     expect(u.corners.map((c) => c.timeLostS.median)).toEqual(result.corners.map((c) => c.timeLostS));
-    expect(u.findings.map((f) => f.text)).toEqual(result.findings.map((f) => f.text));
+    expect(u.findings.map((f) => f.finding)).toEqual(result.findings);
     expect(result.findings.length).toBeGreaterThan(0);
     for (const finding of u.findings) {
       expect(finding.holds).toBe(1);

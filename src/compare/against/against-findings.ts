@@ -2,7 +2,7 @@
 // it does differently (with both laps' numbers), and whether that lap is itself near the reference there, so a
 // coach knows whether copying it is enough. Ranked by the time at stake.
 
-import type { Finding } from '../types.js';
+import type { TextFinding } from '../types.js';
 import { cornerLabel } from '../findings.js';
 import { mps2ToG } from '../../units.js';
 import type { LapCornerFigures } from './lap-corner.js';
@@ -146,7 +146,7 @@ export function rankAgainstFindings(
   driverLabel: string,
   otherLabel: string,
   options: AgainstFindingOptions = DEFAULT_AGAINST_FINDING_OPTIONS,
-): Finding[] {
+): TextFinding[] {
   return corners
     .filter((corner) => Math.abs(corner.timeLostS) >= options.minTimeS)
     .sort((a, b) => Math.abs(b.timeLostS) - Math.abs(a.timeLostS) || a.id - b.id)

@@ -4,7 +4,7 @@
 
 import type { TrackGrid } from '../../track/types.js';
 import { wrapIndex } from '../../numeric/lap-index.js';
-import type { DriverLap, Finding } from '../types.js';
+import type { DriverLap, TextFinding } from '../types.js';
 import { cornerLayoutOf } from '../../track/corner-layout.js';
 import { cornerLabel } from '../findings.js';
 import { cornerLine, type CornerLine } from './corner-line.js';
@@ -40,7 +40,7 @@ export interface DriverLineResult {
   /** The driver's offset from the centreline (running mean), m, positive = left. */
   offsetM: Float64Array;
   corners: CornerLineComparison[];
-  findings: Finding[];
+  findings: TextFinding[];
   notes: string[];
 }
 
@@ -95,7 +95,7 @@ export function driverLine(inputs: DriverLineInputs): DriverLineResult | null {
       driftUnderBrakingM,
     };
   });
-  const findings: Finding[] = [];
+  const findings: TextFinding[] = [];
   for (const corner of corners) {
     const label = cornerLabel(corner);
     const side = cornerLayoutOf(track).corners.find((c) => c.id === corner.id)!.side;

@@ -9,6 +9,8 @@ import { cornerCell, fixed, signed, tile } from './cells.js';
 
 export { tile } from './cells.js';
 import type { UncertainFinding } from '../../uncertainty/uncertain-reference.js';
+import { claimText, findingText } from '../finding-phrases.js';
+import type { DisplayUnits } from '../units.js';
 
 export function summaryHtml(model: ReportModel): string {
   const reference = model.input.reference;
@@ -110,9 +112,9 @@ function brakingZoneTableHtml(model: ReportModel): string {
   );
 }
 
-function robustnessText(finding: UncertainFinding): string {
+function robustnessText(finding: UncertainFinding, units: DisplayUnits): string {
   const share = (value: number) => `${Math.round(value * 100)} %`;
-  const rest = finding.clauses.slice(1).map((clause) => `${clause.text}: ${share(clause.holds)}`);
+  const rest = finding.clauses.slice(1).map((clause) => `${claimText(clause.claim, units)}: ${share(clause.holds)}`);
   const head = `${finding.uncertain ? 'Uncertain: holds' : 'Holds'} in ${share(finding.holds)} of draws (90 % band ${finding.timeS.low.toFixed(2)} to ${finding.timeS.high.toFixed(2)} s)`;
   return rest.length > 0 ? `${head}; ${rest.join('; ')}.` : `${head}.`;
 }
@@ -126,10 +128,12 @@ export function findingsHtml(model: ReportModel): string {
     ? uncertainty.findings.map((f) => ({
         corner: f.corner,
         timeS: f.timeS.median,
-        text: f.text,
-        robustness: robustnessText(f),
+        text: findingText(f.finding, model.units),
+        robustness: robustnessText(f, model.units),
       }))
-    : [...comparison.result.findings].sort((a, b) => b.timeS - a.timeS).map((f) => ({ ...f, robustness: '' }));
+    : [...comparison.result.findings]
+        .sort((a, b) => b.timeS - a.timeS)
+        .map((f) => ({ corner: f.corner, timeS: f.timeS, text: findingText(f, model.units), robustness: '' }));
   const items = findings
     .map((finding) => {
       const where =
