@@ -1,15 +1,13 @@
 // `reflap check`: validates car, track and telemetry files and collects every problem it can find in each,
 // not only the first that would stop a command. Each problem is one line naming the file and the place.
+// A kind's reader is imported when the first file of that kind is met, so checking a car file loads neither the
+// track nor the log readers (most of the check command's start-up was loading them).
 
 import { closeSync, openSync, readFileSync, readSync } from 'node:fs';
 import { decodeText, guardInputFile } from '../io/input-file.js';
 import { InputError } from '../errors.js';
-import { parseCarJson } from '../io/read-car.js';
-import { parseTrackText } from '../io/read-track.js';
-import { parseTelemetryText, streamTelemetryCsv } from '../io/telemetry/read-telemetry.js';
 import type { TelemetrySession } from '../telemetry/types.js';
 import { detectKind, KIND_LABELS, type FileKind } from './detect-kind.js';
-import { centrelineCellProblems, telemetryCellProblems } from './collect-cells.js';
 
 /** A file's problems beyond this many are counted, not listed (a garbage file would print one per row). */
 export const MAX_PROBLEMS_PER_FILE = 50;
@@ -48,6 +46,9 @@ function sessionSummary(kind: FileKind, session: TelemetrySession): string {
   return `${KIND_LABELS[kind]}: ${session.count} samples over ${(session.timeS[session.count - 1]! - session.timeS[0]!).toFixed(1)} s`;
 }
 
+/** The cell-by-cell passes, run only on a file its reader refuses (or a log with repeated time stamps). */
+const cellPasses = () => import('./collect-cells.js');
+
 function capped(problems: string[], file: string): string[] {
   if (problems.length <= MAX_PROBLEMS_PER_FILE) return problems;
   return [
@@ -57,7 +58,7 @@ function capped(problems: string[], file: string): string[] {
 }
 
 /** Checks one file's text; `source` names it in messages and its extension helps tell the kind. */
-export function checkText(text: string, source: string): FileCheck {
+export async function checkText(text: string, source: string): Promise<FileCheck> {
   const kind = detectKind(text.slice(0, 65536), source);
   const result: FileCheck = { file: source, kind, problems: [], notes: [], summary: null };
   if (text.replace(/^\uFEFF/, '').trim() === '') {
@@ -71,8 +72,9 @@ export function checkText(text: string, source: string): FileCheck {
     return result;
   }
   if (kind === 'car') {
+    const { parseCarJson } = await import('../io/read-car.js');
     try {
-      parseCarJson(text, source);
+      parseCarJson(text, source, 'quick');
     } catch (error) {
       result.problems = splitProblems(inputMessage(error), source);
     }
@@ -82,29 +84,31 @@ export function checkText(text: string, source: string): FileCheck {
   // The real reader runs first; only a file it refuses is read again cell by cell, to list every problem rather
   // than the first (a good file is parsed once).
   if (kind === 'track-json' || kind === 'track-csv') {
+    const { parseTrackText } = await import('../io/read-track.js');
     try {
       const track = parseTrackText(text, source);
       result.summary = `${KIND_LABELS[kind]}: ${track.closed ? 'closed' : 'open'} track, ${track.lengthM.toFixed(0)} m`;
     } catch (error) {
       const message = inputMessage(error);
-      if (kind === 'track-csv') result.problems = centrelineCellProblems(text, source).problems;
+      if (kind === 'track-csv') result.problems = (await cellPasses()).centrelineCellProblems(text, source).problems;
       if (result.problems.length === 0)
         result.problems.push(...(kind === 'track-json' ? splitProblems(message, source) : [message]));
     }
     result.problems = capped(result.problems, source);
     return result;
   }
+  const { parseTelemetryText } = await import('../io/telemetry/read-telemetry.js');
   try {
     const session = parseTelemetryText(text, source, { columns: {} });
     // Repeated time stamps are a note of the cell pass (it knows their lines); it runs only when the log has one.
     if (kind === 'telemetry-csv' && hasRepeatedTime(session.timeS))
-      result.notes.push(...telemetryCellProblems(text, source).notes);
+      result.notes.push(...(await cellPasses()).telemetryCellProblems(text, source).notes);
     result.notes.push(...session.notes);
     result.summary = sessionSummary(kind, session);
   } catch (error) {
     const message = inputMessage(error);
     if (kind === 'telemetry-csv') {
-      const cells = telemetryCellProblems(text, source);
+      const cells = (await cellPasses()).telemetryCellProblems(text, source);
       result.problems = cells.problems;
       result.notes.push(...cells.notes);
     }
@@ -163,6 +167,7 @@ async function checkLargeFile(file: string, limitBytes: number): Promise<FileChe
     );
     return result;
   }
+  const { streamTelemetryCsv } = await import('../io/telemetry/read-telemetry.js');
   try {
     // Chunks are not kept: the reader's own checks are the check, and memory stays flat however large the file.
     const summary = await streamTelemetryCsv(file, { columns: {} }, () => {});
@@ -194,7 +199,7 @@ export async function checkFiles(
       checks.push(
         sizeBytes > streamAboveBytes
           ? await checkLargeFile(file, streamAboveBytes)
-          : checkText(decodeText(readFileSync(file)), file),
+          : await checkText(decodeText(readFileSync(file)), file),
       );
     } catch (error) {
       if (error instanceof InputError) throw error;

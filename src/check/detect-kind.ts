@@ -2,8 +2,7 @@
 // x_m, y_m and no time), or a driver log (GPX, NMEA 0183, or CSV with a time column).
 
 import { extname } from 'node:path';
-import { looksLikeGpx } from '../io/telemetry/gpx.js';
-import { looksLikeNmea } from '../io/telemetry/nmea.js';
+import { looksLikeGpx, looksLikeNmea } from '../io/telemetry/sniff.js';
 import { recogniseHeader } from '../io/telemetry/columns.js';
 import { loggerLayout } from '../io/telemetry/logger-preamble.js';
 

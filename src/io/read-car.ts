@@ -4,6 +4,7 @@
 import { readTextFile } from './read-text.js';
 import type { z } from 'zod';
 import { zodLibrary, type Zod } from './lazy-libraries.js';
+import { quickSchemaKit } from './quick-schema.js';
 import { InputError } from '../errors.js';
 import type { Car } from '../car/types.js';
 import { bicycleIncompleteMessage } from '../car/bicycle-params.js';
@@ -74,7 +75,17 @@ function carSchemaOf(z: Zod) {
   });
 }
 
-let carSchema: ReturnType<typeof carSchemaOf> | undefined;
+/**
+ * Which validator reads the file: zod, or the quick one that gives zod's issues without loading zod (the check
+ * command's, for its start-up; test/io/quick-schema.test.ts holds the two to the same results).
+ */
+export type CarValidator = 'zod' | 'quick';
+
+const carSchemas: Partial<Record<CarValidator, ReturnType<typeof carSchemaOf>>> = {};
+
+function carSchema(validator: CarValidator): ReturnType<typeof carSchemaOf> {
+  return (carSchemas[validator] ??= carSchemaOf(validator === 'zod' ? zodLibrary() : quickSchemaKit()));
+}
 
 type CarFile = z.infer<ReturnType<typeof carSchemaOf>>;
 
@@ -167,8 +178,8 @@ function carFromFile(data: CarFile, source: string): Car {
 }
 
 /** Validates a parsed JSON value as a car; throws one InputError naming the file and the field. */
-export function carFromJson(value: unknown, source: string): Car {
-  const parsed = (carSchema ??= carSchemaOf(zodLibrary())).safeParse(value);
+export function carFromJson(value: unknown, source: string, validator: CarValidator = 'zod'): Car {
+  const parsed = carSchema(validator).safeParse(value);
   if (!parsed.success) {
     throw new InputError(`${source}: ${parsed.error.issues.map(describeIssue).join('; ')}`);
   }
@@ -189,14 +200,14 @@ export function carFromJson(value: unknown, source: string): Car {
   return validateCar(car, source);
 }
 
-export function parseCarJson(text: string, source: string): Car {
+export function parseCarJson(text: string, source: string, validator: CarValidator = 'zod'): Car {
   let value: unknown;
   try {
     value = JSON.parse(text.replace(/^\uFEFF/, ''));
   } catch (error) {
     throw new InputError(`${source}: not valid JSON (${error instanceof Error ? error.message : String(error)})`);
   }
-  return carFromJson(value, source);
+  return carFromJson(value, source, validator);
 }
 
 export function readCarFile(file: string): Car {

@@ -5,8 +5,7 @@ import { open } from 'node:fs/promises';
 import { extname } from 'node:path';
 import { InputError } from '../../errors.js';
 import { guardInputFile, isUtf16Le } from '../input-file.js';
-import { looksLikeGpx } from './gpx.js';
-import { looksLikeNmea } from './nmea.js';
+import { looksLikeGpx, looksLikeNmea } from './sniff.js';
 
 export type TelemetryFormat = 'csv' | 'nmea' | 'gpx';
 

@@ -8,10 +8,7 @@ import { InputError } from '../../errors.js';
 import type { TelemetrySession } from '../../telemetry/types.js';
 import { fillGaps, gpsSession, withAltitude } from './session.js';
 
-export function looksLikeGpx(head: string): boolean {
-  const text = head.replace(/^\uFEFF/, '').trimStart();
-  return text.startsWith('<') && /<gpx[\s>]/.test(text.slice(0, 4096));
-}
+export { looksLikeGpx } from './sniff.js';
 
 type XmlNode = Record<string, unknown>;
 

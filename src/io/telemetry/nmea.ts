@@ -7,6 +7,8 @@ import { InputError } from '../../errors.js';
 import type { TelemetrySession } from '../../telemetry/types.js';
 import { fillGaps, gpsSession, withAltitude } from './session.js';
 
+export { looksLikeNmea } from './sniff.js';
+
 const KNOT_MPS = 1852 / 3600;
 
 /** XOR of the character codes of `body` (the text between '$' and '*'). */
@@ -50,15 +52,6 @@ function parseDate(field: string): number | null {
   const yy = Number(field.slice(4, 6));
   const ms = Date.UTC(yy >= 80 ? 1900 + yy : 2000 + yy, Number(field.slice(2, 4)) - 1, Number(field.slice(0, 2)));
   return Number.isFinite(ms) ? Math.round(ms / 86400000) : null;
-}
-
-export function looksLikeNmea(head: string): boolean {
-  const lines = head
-    .split(/\r?\n/)
-    .map((line) => line.trim())
-    .filter((line) => line !== '');
-  const sentences = lines.filter((line) => /^\$[A-Z]{2}[A-Z]{3},/.test(line));
-  return sentences.length > 0 && sentences.length >= lines.length / 2;
 }
 
 /** What a fix sentence (RMC or GGA) says, or null when it reports no fix. */
