@@ -23,6 +23,7 @@ const isolatedFiles = [
 export default defineConfig({
   test: {
     globalSetup: ['test/global-setup.ts'],
+    setupFiles: ['test/setup-cpu-log.ts'],
     reporters: ['default', './test/plain-summary-reporter.ts'],
     testTimeout: 60_000,
     hookTimeout: 120_000,
