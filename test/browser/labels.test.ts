@@ -11,6 +11,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { haveChromium, requireChromium, useChromium } from './chromium.js';
 import { runCli } from '../helpers/cli.js';
+import { sharedDemoFolder } from '../helpers/shared-demo.js';
 
 requireChromium('report labels');
 
@@ -74,11 +75,10 @@ describe.skipIf(!haveChromium)('labels in Chromium', () => {
 
   beforeAll(async () => {
     work = mkdtempSync(path.join(tmpdir(), 'reflap-labels-'));
-    expect(runCli(['demo', '--out', work]).code).toBe(0);
     const file = path.join(work, 'imperial.html');
     const run = runCli([
       ...['compare', '--track', 'tracks/velmora-downs.json', '--car', 'cars/tarnfell-gt.json'],
-      ...['--telemetry', path.join(work, 'demo-lap.csv'), '--units', 'imperial', '--html', file],
+      ...['--telemetry', path.join(sharedDemoFolder(), 'demo-lap.csv'), '--units', 'imperial', '--html', file],
     ]);
     expect(run.code, run.stderr).toBe(0);
     const opened = await browser.open(file);

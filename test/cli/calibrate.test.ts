@@ -6,6 +6,7 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { projectRoot, runCli } from '../helpers/cli.js';
+import { sharedDemoFolder } from '../helpers/shared-demo.js';
 import { parseCarJson, readCarFile } from '../../src/io/read-car.js';
 import { readTrackFile } from '../../src/io/read-track.js';
 import { ambientFrom } from '../../src/car/ambient.js';
@@ -13,12 +14,12 @@ import { buildEnvelope } from '../../src/car/build-envelope.js';
 import { demoDriver, demoLogCsv, DEFAULT_DEMO_LOG } from '../../src/demo/demo-driver.js';
 
 const work = mkdtempSync(path.join(tmpdir(), 'reflap-calibrate-'));
-const log = path.join(work, 'demo', 'demo-lap.csv');
+let log: string;
 const track = path.join(projectRoot, 'tracks', 'velmora-downs.json');
 const guess = path.join(work, 'guess.json');
 
 beforeAll(() => {
-  expect(runCli(['demo', '--out', path.join(work, 'demo')]).code).toBe(0);
+  log = path.join(sharedDemoFolder(), 'demo-lap.csv');
   // The demo car with power, drag, grip and downforce guessed wrong.
   const car = JSON.parse(readFileSync(path.join(projectRoot, 'cars', 'tarnfell-gt.json'), 'utf8'));
   car.name = 'Tarnfell guessed';

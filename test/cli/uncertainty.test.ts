@@ -6,13 +6,14 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { projectRoot, runCli } from '../helpers/cli.js';
+import { sharedDemoFolder } from '../helpers/shared-demo.js';
 
 const work = mkdtempSync(path.join(tmpdir(), 'reflap-uncertainty-'));
 const track = path.join(projectRoot, 'tracks', 'velmora-downs.json');
 const carFile = path.join(projectRoot, 'cars', 'tarnfell-gt.json');
 const certain = path.join(work, 'certain.json');
 const uncertain = path.join(work, 'uncertain.json');
-const log = path.join(work, 'demo', 'demo-lap.csv');
+let log: string;
 
 beforeAll(() => {
   const car = JSON.parse(readFileSync(carFile, 'utf8'));
@@ -30,7 +31,7 @@ beforeAll(() => {
       },
     }),
   );
-  expect(runCli(['demo', '--out', path.join(work, 'demo')]).code).toBe(0);
+  log = path.join(sharedDemoFolder(), 'demo-lap.csv');
 });
 
 describe('simulate --uncertainty', () => {

@@ -8,6 +8,7 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { runCli } from '../helpers/cli.js';
+import { sharedDemoFolder } from '../helpers/shared-demo.js';
 import { scaleBarOf } from '../../src/report/html/track-map.js';
 import { displayUnits } from '../../src/report/units.js';
 import { expectConverted } from './converted-quantities.js';
@@ -24,8 +25,7 @@ let log: string;
 beforeAll(() => {
   folder = mkdtempSync(path.join(tmpdir(), 'reflap-imperial-'));
   // The demo's invented session is the driver's log of the comparison pages.
-  expect(runCli(['demo', '--out', path.join(folder, 'demo')]).code).toBe(0);
-  log = path.join(folder, 'demo', 'demo-lap.csv');
+  log = path.join(sharedDemoFolder(), 'demo-lap.csv');
 });
 afterAll(() => rmSync(folder, { recursive: true, force: true }));
 
