@@ -191,7 +191,10 @@ export { lapCornerFigures, type LapCornerFigures } from './compare/against/lap-c
 export { pairLapOfDriver, pairLapOfReference, type PairLap } from './compare/against/pair-lap.js';
 export {
   rankAgainstFindings,
+  againstFinding,
   DEFAULT_AGAINST_FINDING_OPTIONS,
+  type AgainstFinding,
+  type Difference,
   type AgainstCorner,
   type AgainstFindingOptions,
 } from './compare/against/against-findings.js';
@@ -218,6 +221,7 @@ export {
   type DriverLineResult,
   type DriverLineInputs,
   type CornerLineComparison,
+  type LineFinding,
 } from './compare/driver-line/driver-line.js';
 export { cornerLine, type CornerLine } from './compare/driver-line/corner-line.js';
 export { lateralOffsetM, smoothedOffset } from './compare/driver-line/lateral-offset.js';
@@ -233,6 +237,8 @@ export {
   type ClaimKind,
 } from './compare/findings.js';
 export { findingText, claimText } from './report/finding-phrases.js';
+export { againstFindingText, differenceText } from './report/against-phrases.js';
+export { lineFindingText, lineNotes } from './report/line-phrases.js';
 export {
   fitEnvelope,
   DEFAULT_ENVELOPE_FIT,

@@ -31,10 +31,6 @@ export const DEFAULT_FINDING_OPTIONS: FindingOptions = {
   exceededAbove: 1.05,
 };
 
-export function cornerLabel(corner: Pick<CornerComparison, 'id' | 'name'>): string {
-  return corner.name ? `corner ${corner.id} (${corner.name})` : `corner ${corner.id}`;
-}
-
 /** Speed of the reference where it starts braking, m/s, recovered from the metre and second forms of the gap. */
 function brakingSpeedMps(corner: CornerComparison): number {
   const m = corner.brakingPointDeltaM;

@@ -143,13 +143,6 @@ export interface Finding {
   claims: Claim[];
 }
 
-/** A finding already in words (the lap-against-lap and line findings). */
-export interface TextFinding {
-  corner: number | null;
-  timeS: number;
-  text: string;
-}
-
 export interface ComparisonResult {
   trackName: string;
   carName: string;

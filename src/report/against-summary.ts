@@ -7,6 +7,8 @@ import { formatLapTime, kphToMps, mps2ToG } from '../units.js';
 import { displayUnits, plainNumber, type DisplayUnits } from './units.js';
 import { formatTable } from './text-table.js';
 import { roundToDigits as round } from '../numeric/round.js';
+import { againstFindingText } from './against-phrases.js';
+import { roundedNumbers } from './json-numbers.js';
 
 const signed = (value: number, digits: number) => plainNumber(value, digits, true);
 const maybe = (value: number | null, show: (v: number) => string) => (value === null ? '-' : show(value));
@@ -66,7 +68,7 @@ export function againstSummaryText(against: AgainstResult, units: DisplayUnits =
     lines.push('The two laps differ by less than a hundredth of a second in every corner.');
   else {
     lines.push(`Lap against lap (largest difference first):`);
-    against.findings.forEach((finding, index) => lines.push(`${index + 1}. ${finding.text}`));
+    against.findings.forEach((finding, index) => lines.push(`${index + 1}. ${againstFindingText(finding, units)}`));
   }
   if (against.notes.length > 0) lines.push('', ...against.notes.map((note) => `Note: ${note}`));
   return lines.join('\n') + '\n';
@@ -117,7 +119,14 @@ export function againstJson(against: AgainstResult) {
       driver: figuresJson(c.first),
       other: figuresJson(c.second),
     })),
-    findings: against.findings.map((f) => ({ corner: f.corner, timeS: round(f.timeS, 3), text: f.text })),
+    findings: against.findings.map((f) => ({
+      corner: f.corner,
+      timeS: round(f.timeS, 3),
+      text: againstFindingText(f),
+      fastLap: f.fastLabel,
+      differences: roundedNumbers(f.differences),
+      toReferenceS: round(f.toReferenceS, 3),
+    })),
     notes: against.notes,
   };
 }

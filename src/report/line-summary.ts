@@ -5,6 +5,8 @@ import type { DriverLineResult } from '../compare/driver-line/driver-line.js';
 import { displayUnits, plainNumber, type DisplayUnits } from './units.js';
 import { formatTable } from './text-table.js';
 import { roundToDigits as round } from '../numeric/round.js';
+import { lineFindingText, lineNotes } from './line-phrases.js';
+import { roundedNumbers } from './json-numbers.js';
 
 export function lineSummaryText(line: DriverLineResult, units: DisplayUnits = displayUnits('metric')): string {
   const d = units.distanceLabel;
@@ -40,8 +42,9 @@ export function lineSummaryText(line: DriverLineResult, units: DisplayUnits = di
       ]),
     ),
   ];
-  if (line.findings.length > 0) lines.push('', ...line.findings.map((f, k) => `${k + 1}. ${f.text}`));
-  lines.push('', ...line.notes.map((note) => `Note: ${note}`));
+  if (line.findings.length > 0)
+    lines.push('', ...line.findings.map((f, k) => `${k + 1}. ${lineFindingText(f, units)}`));
+  lines.push('', ...lineNotes(line, units).map((note) => `Note: ${note}`));
   return lines.join('\n') + '\n';
 }
 
@@ -68,7 +71,10 @@ export function lineJson(line: DriverLineResult) {
       brakeAtTurnIn: roundOrNull(c.brakeAtTurnIn, 3),
       driftUnderBrakingM: roundOrNull(c.driftUnderBrakingM, 2),
     })),
-    findings: line.findings.map((f) => ({ corner: f.corner, text: f.text })),
-    notes: line.notes,
+    findings: line.findings.map((f) => {
+      const { corner, ...claim } = roundedNumbers(f);
+      return { corner, text: lineFindingText(f), ...claim };
+    }),
+    notes: lineNotes(line),
   };
 }

@@ -13,6 +13,7 @@ import { parseCarJson } from '../../src/io/read-car.js';
 import type { TelemetrySession } from '../../src/telemetry/types.js';
 import { arcRanges, circuitCar, driverLapFromReference, driverLapFromSpeeds, testCircuit } from './fixtures.js';
 import { kartTrackOf, REAL_KART_LOG, realKartLogPresent } from '../helpers/real-gps.js';
+import { againstFindingText } from '../../src/report/against-phrases.js';
 
 const track = testCircuit();
 const car = circuitCar();
@@ -67,8 +68,8 @@ describe('a lap 2 % slower everywhere against the faster one', () => {
     expect(result.findings.length).toBeGreaterThan(0);
     for (const finding of result.findings) {
       expect(finding.timeS).toBeGreaterThan(0);
-      expect(finding.text).toMatch(/lap 1 of reference copy is [0-9.]+ s quicker here/);
-      expect(finding.text).toMatch(/within 0\.00 s of the reference here, so copying it is enough/);
+      expect(againstFindingText(finding)).toMatch(/lap 1 of reference copy is [0-9.]+ s quicker here/);
+      expect(againstFindingText(finding)).toMatch(/within 0\.00 s of the reference here, so copying it is enough/);
     }
   });
 });

@@ -8,6 +8,7 @@ import { cornerLayoutOf } from '../../src/track/corner-layout.js';
 import type { DriverLap } from '../../src/compare/types.js';
 import { circuitCar, driverLapFromReference, testCircuit } from './fixtures.js';
 import { gaussian, uniform } from './gps-session.js';
+import { lineFindingText, lineNotes } from '../../src/report/line-phrases.js';
 
 const track = testCircuit();
 const reference = simulate(track, circuitCar());
@@ -104,16 +105,16 @@ describe("the driver's line", () => {
     expect(result.scatterM).toBeGreaterThan(0.4);
     expect(result.scatterM).toBeLessThan(0.6);
     expect(result.resolutionM).toBeCloseTo(2 * result.scatterM, 9);
-    expect(result.notes.join(' ')).toMatch(/line differences under 1\.\d m are not reported/);
+    expect(lineNotes(result).join(' ')).toMatch(/line differences under 1\.\d m are not reported/);
   });
 
   it('calls a missed apex against the reference line only when it is larger than the scatter allows', () => {
     const referenceLine = { xM: track.xM, yM: track.yM };
     // 3 m wide of the centreline line with 0.5 m of noise (resolution about 1 m): a finding.
     const wide = driverLine({ track, lap: movedLap(-3, 0.5), brake: null, referenceLine })!;
-    expect(wide.findings.some((f) => f.corner === corner.id && /misses the apex by [23]\.\d m/.test(f.text))).toBe(
-      true,
-    );
+    expect(
+      wide.findings.some((f) => f.corner === corner.id && /misses the apex by [23]\.\d m/.test(lineFindingText(f))),
+    ).toBe(true);
     // 1 m wide with 1 m of noise (resolution about 2 m): no finding.
     const hidden = driverLine({ track, lap: movedLap(-1, 1, 7), brake: null, referenceLine })!;
     expect(hidden.findings.filter((f) => f.corner === corner.id)).toEqual([]);
@@ -123,7 +124,7 @@ describe("the driver's line", () => {
     const referenceLine = { xM: track.xM, yM: track.yM };
     // 2 m wide with little scatter: seen from a simulator's positions, not from GPS (a few metres absolute error).
     const simulator = driverLine({ track, lap: movedLap(-2.5, 0.05), brake: null, referenceLine })!;
-    expect(simulator.findings.some((f) => f.corner === corner.id && /misses the apex/.test(f.text))).toBe(true);
+    expect(simulator.findings.some((f) => f.corner === corner.id && f.kind === 'misses-apex')).toBe(true);
     const gps = driverLine({ track, lap: movedLap(-2.5, 0.05), brake: null, referenceLine, fromGps: true })!;
     expect(gps.findings.filter((f) => f.corner === corner.id)).toEqual([]);
     expect(gps.placedResolutionM).toBeGreaterThanOrEqual(3);

@@ -167,6 +167,34 @@ describe('report pages', () => {
     expect(printed('metric')).toEqual(metricFindings);
   });
 
+  it('the lap-against-lap and line findings in mph and feet, each number the metric one’s converted', () => {
+    const other = path.join(folder, 'bicycle-lap.csv');
+    expect(runCli(['simulate', ...gt, '--model', 'bicycle', '--out', other]).code).toBe(0);
+    const args = ['compare', ...gt, '--telemetry', log, '--against', other];
+    const { metric, imperial } = both(args, '--html', 'against.html');
+    const section = (html: string) => /<section class="findings against">[\s\S]*?<\/section>/.exec(html)![0];
+    const findings = (html: string) =>
+      [...section(html).matchAll(/<span class="finding-text">([\s\S]*?)<\/span>/g)].map((m) => m[1]!);
+    const metricFindings = findings(metric);
+    expect(metricFindings.length).toBeGreaterThan(2);
+    expect(findings(imperial)).toHaveLength(metricFindings.length);
+    expect(placesOf(section(imperial).replace(/<ul class="notes">[\s\S]*?<\/ul>/g, ''), /km\/h| m\b/)).toEqual([]);
+    findings(imperial).forEach((text, k) => expectConverted(metricFindings[k]!, text));
+    // The terminal's line findings (a numbered list after the line's table) and its resolution note.
+    const lineBlock = (units: string) => {
+      const run = runCli([...args, '--units', units]);
+      expect(run.code, run.stderr).toBe(0);
+      const after = run.stdout.split('The line (offsets from the centreline')[1]!;
+      return after.split('\n').filter((line) => /^\d+\. corner|^Note: line:/.test(line));
+    };
+    const metricLine = lineBlock('metric');
+    const imperialLine = lineBlock('imperial');
+    expect(metricLine.length).toBeGreaterThan(1);
+    expect(imperialLine).toHaveLength(metricLine.length);
+    for (const text of imperialLine) expect(text).not.toMatch(/km\/h| m\b/);
+    imperialLine.forEach((text, k) => expectConverted(metricLine[k]!, text));
+  });
+
   it('the what-if, sweep, car and budget pages show mph and feet', () => {
     const whatif = both(['whatif', ...club, '--set', 'massKg=+20'], '--html', 'whatif.html');
     expect(whatif.imperial).toContain('shift, ft (− = earlier)');

@@ -1,10 +1,8 @@
-// Plain-language findings of one lap against another: per corner where the time differs, which lap is quicker, what
-// it does differently (with both laps' numbers), and whether that lap is itself near the reference there, so a
-// coach knows whether copying it is enough. Ranked by the time at stake.
+// The findings of one lap against another: per corner where the time differs, which lap is quicker, what it does
+// differently (with both laps' numbers, SI), and whether that lap is itself near the reference there, so a coach
+// knows whether copying it is enough. Ranked by the time at stake; the sentences are src/report/against-phrases.ts's.
 
-import type { TextFinding } from '../types.js';
-import { cornerLabel } from '../findings.js';
-import { mps2ToG } from '../../units.js';
+import { kphToMps } from '../../units.js';
 import type { LapCornerFigures } from './lap-corner.js';
 import type { CornerPair } from './corner-pair.js';
 
@@ -43,101 +41,141 @@ export interface AgainstCorner extends CornerPair {
   otherToReferenceS: number;
 }
 
-const m = (value: number) => `${Math.abs(value).toFixed(0)} m`;
-const kph = (value: number) => `${value.toFixed(0)} km/h`;
-const g = (mps2: number) => `${mps2ToG(mps2).toFixed(2)} g`;
-const apexPlace = (offsetM: number) =>
-  Math.abs(offsetM) < 0.5 ? 'at the apex' : `${m(offsetM)} ${offsetM > 0 ? 'after' : 'before'} the apex`;
+/** What the quicker lap does differently from the slower one, each with both laps' numbers (SI, unit in each name). */
+export type Difference =
+  | {
+      kind: 'braking-point';
+      /** How much later the quicker lap brakes (negative: earlier), m; each lap's braking point before the turn-in. */
+      laterM: number;
+      fastBeforeTurnInM: number;
+      slowBeforeTurnInM: number;
+    }
+  | { kind: 'does-without-brake' }
+  | { kind: 'brakes-where-other-lifts' }
+  | { kind: 'peak-braking'; harderMps2: number; fastPeakMps2: number; slowPeakMps2: number }
+  | { kind: 'brake-build'; soonerS: number; fastBuildS: number; slowBuildS: number }
+  | { kind: 'brake-release'; deeperM: number; fastFromApexM: number; slowFromApexM: number }
+  | { kind: 'slowest-speed'; moreMps: number; fastMinSpeedMps: number; slowMinSpeedMps: number }
+  | { kind: 'slowest-place'; fastFromApexM: number; slowFromApexM: number }
+  | { kind: 'exit-speed'; fasterMps: number; fastExitSpeedMps: number; slowExitSpeedMps: number }
+  | { kind: 'coasting'; lessS: number };
 
-/** What the quicker lap (fast) does differently from the slower one (slow), each clause with both numbers. */
-export function differenceClauses(
+/** A corner where the two laps differ: which is quicker, what it does differently, how near the reference it is. */
+export interface AgainstFinding {
+  corner: number;
+  cornerName: string | null;
+  /** The driver's lap minus the other over the corner, s. */
+  timeS: number;
+  /** The quicker lap's name. */
+  fastLabel: string;
+  /** Up to three differences, most telling first; none where only the phase times tell the laps apart. */
+  differences: Difference[];
+  /** The pair's time by phase (driver minus other), s: what the sentence names where no difference does. */
+  entryTimeLostS: number;
+  middleTimeLostS: number;
+  exitTimeLostS: number;
+  /** The quicker lap's time to the reference over the corner, s, and whether that is within the options' margin. */
+  toReferenceS: number;
+  nearReference: boolean;
+}
+
+/** What the quicker lap (fast) does differently from the slower one (slow). */
+export function differences(
   fast: LapCornerFigures,
   slow: LapCornerFigures,
   options: AgainstFindingOptions = DEFAULT_AGAINST_FINDING_OPTIONS,
-): string[] {
-  const clauses: string[] = [];
+): Difference[] {
+  const found: Difference[] = [];
   if (fast.brakingBeforeTurnInM !== null && slow.brakingBeforeTurnInM !== null) {
     const laterM = slow.brakingBeforeTurnInM - fast.brakingBeforeTurnInM;
     if (Math.abs(laterM) >= options.brakingPointM)
-      clauses.push(
-        `brakes ${m(laterM)} ${laterM > 0 ? 'later' : 'earlier'} (${fast.brakingBeforeTurnInM.toFixed(0)} m before the turn-in against ${slow.brakingBeforeTurnInM.toFixed(0)} m)`,
-      );
+      found.push({
+        kind: 'braking-point',
+        laterM,
+        fastBeforeTurnInM: fast.brakingBeforeTurnInM,
+        slowBeforeTurnInM: slow.brakingBeforeTurnInM,
+      });
   } else if (fast.brakingPointM === null && slow.brakingPointM !== null) {
-    clauses.push('does without the brake where the other lap brakes');
+    found.push({ kind: 'does-without-brake' });
   } else if (fast.brakingPointM !== null && slow.brakingPointM === null) {
-    clauses.push('brakes where the other lap only lifts');
+    found.push({ kind: 'brakes-where-other-lifts' });
   }
   if (fast.peakBrakingMps2 !== null && slow.peakBrakingMps2 !== null) {
-    const harder = fast.peakBrakingMps2 - slow.peakBrakingMps2;
-    if (Math.abs(harder) >= options.peakBrakingMps2)
-      clauses.push(
-        `brakes ${harder > 0 ? 'harder' : 'more gently'} at its peak (${g(fast.peakBrakingMps2)} against ${g(slow.peakBrakingMps2)})`,
-      );
+    const harderMps2 = fast.peakBrakingMps2 - slow.peakBrakingMps2;
+    if (Math.abs(harderMps2) >= options.peakBrakingMps2)
+      found.push({
+        kind: 'peak-braking',
+        harderMps2,
+        fastPeakMps2: fast.peakBrakingMps2,
+        slowPeakMps2: slow.peakBrakingMps2,
+      });
   }
   if (fast.brakeBuildS !== null && slow.brakeBuildS !== null) {
-    const sooner = slow.brakeBuildS - fast.brakeBuildS;
-    if (Math.abs(sooner) >= options.brakeBuildS)
-      clauses.push(
-        `builds the braking ${sooner > 0 ? 'faster' : 'more slowly'} (${fast.brakeBuildS.toFixed(2)} s to the peak against ${slow.brakeBuildS.toFixed(2)} s)`,
-      );
+    const soonerS = slow.brakeBuildS - fast.brakeBuildS;
+    if (Math.abs(soonerS) >= options.brakeBuildS)
+      found.push({ kind: 'brake-build', soonerS, fastBuildS: fast.brakeBuildS, slowBuildS: slow.brakeBuildS });
   }
   if (fast.brakeReleaseFromApexM !== null && slow.brakeReleaseFromApexM !== null) {
-    const deeper = fast.brakeReleaseFromApexM - slow.brakeReleaseFromApexM;
-    if (Math.abs(deeper) >= options.brakeReleaseM)
-      clauses.push(
-        `${deeper > 0 ? 'trails the brake' : 'releases the brake'} ${m(deeper)} ${deeper > 0 ? 'further into the corner' : 'sooner'} (off ${apexPlace(fast.brakeReleaseFromApexM)} against ${apexPlace(slow.brakeReleaseFromApexM)})`,
-      );
+    const deeperM = fast.brakeReleaseFromApexM - slow.brakeReleaseFromApexM;
+    if (Math.abs(deeperM) >= options.brakeReleaseM)
+      found.push({
+        kind: 'brake-release',
+        deeperM,
+        fastFromApexM: fast.brakeReleaseFromApexM,
+        slowFromApexM: slow.brakeReleaseFromApexM,
+      });
   }
-  const slowest = fast.minSpeedKph - slow.minSpeedKph;
-  if (Math.abs(slowest) >= options.speedKph)
-    clauses.push(
-      `${slowest > 0 ? 'carries' : 'is'} ${kph(Math.abs(slowest))} ${slowest > 0 ? 'more' : 'slower'} at the slowest point (${kph(fast.minSpeedKph)} against ${kph(slow.minSpeedKph)})`,
-    );
+  const slowestKph = fast.minSpeedKph - slow.minSpeedKph;
+  if (Math.abs(slowestKph) >= options.speedKph)
+    found.push({
+      kind: 'slowest-speed',
+      moreMps: kphToMps(slowestKph),
+      fastMinSpeedMps: kphToMps(fast.minSpeedKph),
+      slowMinSpeedMps: kphToMps(slow.minSpeedKph),
+    });
   if (Math.abs(fast.minSpeedOffsetFromApexM - slow.minSpeedOffsetFromApexM) >= options.slowestPlaceM)
-    clauses.push(
-      `is slowest ${apexPlace(fast.minSpeedOffsetFromApexM)} against ${apexPlace(slow.minSpeedOffsetFromApexM)}`,
-    );
-  const exit = fast.exitSpeedKph - slow.exitSpeedKph;
-  if (Math.abs(exit) >= options.speedKph)
-    clauses.push(
-      `exits ${kph(Math.abs(exit))} ${exit > 0 ? 'faster' : 'slower'} (${kph(fast.exitSpeedKph)} against ${kph(slow.exitSpeedKph)})`,
-    );
+    found.push({
+      kind: 'slowest-place',
+      fastFromApexM: fast.minSpeedOffsetFromApexM,
+      slowFromApexM: slow.minSpeedOffsetFromApexM,
+    });
+  const exitKph = fast.exitSpeedKph - slow.exitSpeedKph;
+  if (Math.abs(exitKph) >= options.speedKph)
+    found.push({
+      kind: 'exit-speed',
+      fasterMps: kphToMps(exitKph),
+      fastExitSpeedMps: kphToMps(fast.exitSpeedKph),
+      slowExitSpeedMps: kphToMps(slow.exitSpeedKph),
+    });
   if (fast.coastingS !== null && slow.coastingS !== null) {
-    const less = slow.coastingS - fast.coastingS;
-    if (Math.abs(less) >= options.coastingS)
-      clauses.push(`coasts ${Math.abs(less).toFixed(1)} s ${less > 0 ? 'less' : 'more'}`);
+    const lessS = slow.coastingS - fast.coastingS;
+    if (Math.abs(lessS) >= options.coastingS) found.push({ kind: 'coasting', lessS });
   }
-  return clauses;
+  return found;
 }
 
-function phaseClause(corner: CornerPair): string {
-  const phases = [
-    ['entry', Math.abs(corner.entryTimeLostS)],
-    ['middle', Math.abs(corner.middleTimeLostS)],
-    ['exit', Math.abs(corner.exitTimeLostS)],
-  ] as const;
-  const most = phases.reduce((a, b) => (b[1] > a[1] ? b : a));
-  return `gains most in the ${most[0]} (entry ${corner.entryTimeLostS.toFixed(2)} s, middle ${corner.middleTimeLostS.toFixed(2)} s, exit ${corner.exitTimeLostS.toFixed(2)} s)`;
-}
-
-/** One line for a corner: the quicker lap, by how much, what it does differently, and how near the reference it is. */
-export function againstCornerText(
+/** A corner's finding: the quicker lap, by how much, what it does differently, and how near the reference it is. */
+export function againstFinding(
   corner: AgainstCorner,
   driverLabel: string,
   otherLabel: string,
   options: AgainstFindingOptions = DEFAULT_AGAINST_FINDING_OPTIONS,
-): string {
+): AgainstFinding {
   const driverFaster = corner.timeLostS < 0;
-  const fastLabel = driverFaster ? driverLabel : otherLabel;
   const [fast, slow] = driverFaster ? [corner.first, corner.second] : [corner.second, corner.first];
-  const clauses = differenceClauses(fast, slow, options).slice(0, 3);
-  const what = clauses.length > 0 ? clauses.join(', ') : phaseClause(corner);
-  const toReference = driverFaster ? corner.driverToReferenceS : corner.otherToReferenceS;
-  const near =
-    toReference <= options.nearReferenceS
-      ? `${fastLabel} is itself within ${Math.max(0, toReference).toFixed(2)} s of the reference here, so copying it is enough`
-      : `${fastLabel} itself still leaves ${toReference.toFixed(2)} s to the reference here, so copying it is not the whole answer`;
-  return `${cornerLabel(corner)}: ${fastLabel} is ${Math.abs(corner.timeLostS).toFixed(2)} s quicker here; it ${what}; ${near}.`;
+  const toReferenceS = driverFaster ? corner.driverToReferenceS : corner.otherToReferenceS;
+  return {
+    corner: corner.id,
+    cornerName: corner.name,
+    timeS: corner.timeLostS,
+    fastLabel: driverFaster ? driverLabel : otherLabel,
+    differences: differences(fast, slow, options).slice(0, 3),
+    entryTimeLostS: corner.entryTimeLostS,
+    middleTimeLostS: corner.middleTimeLostS,
+    exitTimeLostS: corner.exitTimeLostS,
+    toReferenceS,
+    nearReference: toReferenceS <= options.nearReferenceS,
+  };
 }
 
 /** The corners where the laps differ, largest difference first (timeS: the driver's lap minus the other, s). */
@@ -146,14 +184,10 @@ export function rankAgainstFindings(
   driverLabel: string,
   otherLabel: string,
   options: AgainstFindingOptions = DEFAULT_AGAINST_FINDING_OPTIONS,
-): TextFinding[] {
+): AgainstFinding[] {
   return corners
     .filter((corner) => Math.abs(corner.timeLostS) >= options.minTimeS)
     .sort((a, b) => Math.abs(b.timeLostS) - Math.abs(a.timeLostS) || a.id - b.id)
     .slice(0, options.maxFindings)
-    .map((corner) => ({
-      corner: corner.id,
-      timeS: corner.timeLostS,
-      text: againstCornerText(corner, driverLabel, otherLabel, options),
-    }));
+    .map((corner) => againstFinding(corner, driverLabel, otherLabel, options));
 }

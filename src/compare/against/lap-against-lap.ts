@@ -5,7 +5,7 @@
 import type { Envelope } from '../../car/envelope.js';
 import type { LapResult } from '../../solve/types.js';
 import type { TrackGrid } from '../../track/types.js';
-import type { DriverLap, TextFinding } from '../types.js';
+import type { DriverLap } from '../types.js';
 import { timeDeltaS } from '../delta.js';
 import { DEFAULT_COMPARE_OPTIONS } from '../compare-options.js';
 import { pairCorners, stretchTimesLostS } from './corner-pair.js';
@@ -14,6 +14,7 @@ import {
   DEFAULT_AGAINST_FINDING_OPTIONS,
   rankAgainstFindings,
   type AgainstCorner,
+  type AgainstFinding,
   type AgainstFindingOptions,
 } from './against-findings.js';
 
@@ -32,7 +33,7 @@ export interface AgainstResult {
   otherToReferenceS: Float64Array;
   /** Per corner, driver (first) minus other lap (second). */
   corners: AgainstCorner[];
-  findings: TextFinding[];
+  findings: AgainstFinding[];
   notes: string[];
 }
 

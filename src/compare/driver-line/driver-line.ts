@@ -4,9 +4,8 @@
 
 import type { TrackGrid } from '../../track/types.js';
 import { wrapIndex } from '../../numeric/lap-index.js';
-import type { DriverLap, TextFinding } from '../types.js';
+import type { DriverLap } from '../types.js';
 import { cornerLayoutOf } from '../../track/corner-layout.js';
-import { cornerLabel } from '../findings.js';
 import { cornerLine, type CornerLine } from './corner-line.js';
 import { lateralOffsetM, smoothedOffset } from './lateral-offset.js';
 
@@ -40,9 +39,22 @@ export interface DriverLineResult {
   /** The driver's offset from the centreline (running mean), m, positive = left. */
   offsetM: Float64Array;
   corners: CornerLineComparison[];
-  findings: TextFinding[];
-  notes: string[];
+  findings: LineFinding[];
+  /** Whether the positions are GPS fixes (then held to the receiver's absolute error against the edges). */
+  fromGps: boolean;
 }
+
+/** A corner's line finding, with its numbers (m; the sentence is src/report/line-phrases.ts's). */
+export type LineFinding = { corner: number; cornerName: string | null } & (
+  | {
+      /** Turns in while still braking hard and drifts inward under braking: a diagonal line into the corner. */
+      kind: 'diagonal-entry';
+      brakeAtTurnIn: number;
+      driftUnderBrakingM: number;
+    }
+  | { kind: 'turns-in-inside'; insideOfReferenceM: number }
+  | { kind: 'misses-apex'; wideM: number; apexMissM: number | null }
+);
 
 export interface DriverLineInputs {
   track: TrackGrid;
@@ -56,8 +68,6 @@ export interface DriverLineInputs {
   knownScatterM?: number | null;
   fromGps?: boolean;
 }
-
-const metres = (value: number) => `${Math.abs(value).toFixed(1)} m`;
 
 export function driverLine(inputs: DriverLineInputs): DriverLineResult | null {
   const { track, lap } = inputs;
@@ -95,9 +105,9 @@ export function driverLine(inputs: DriverLineInputs): DriverLineResult | null {
       driftUnderBrakingM,
     };
   });
-  const findings: TextFinding[] = [];
+  const findings: LineFinding[] = [];
   for (const corner of corners) {
-    const label = cornerLabel(corner);
+    const where = { corner: corner.id, cornerName: corner.name };
     const side = cornerLayoutOf(track).corners.find((c) => c.id === corner.id)!.side;
     if (
       corner.brakeAtTurnIn !== null &&
@@ -106,36 +116,22 @@ export function driverLine(inputs: DriverLineInputs): DriverLineResult | null {
       corner.driftUnderBrakingM >= resolutionM
     )
       findings.push({
-        corner: corner.id,
-        timeS: 0,
-        text: `${label}: turns in while still braking hard (brake ${(corner.brakeAtTurnIn * 100).toFixed(0)} %) and drifts ${metres(corner.driftUnderBrakingM)} towards the inside under braking: a diagonal line into the corner.`,
+        ...where,
+        kind: 'diagonal-entry',
+        brakeAtTurnIn: corner.brakeAtTurnIn,
+        driftUnderBrakingM: corner.driftUnderBrakingM,
       });
     const reference = corner.reference;
     if (reference && reference.turnInFromOutsideM !== null && reference.turnInFromOutsideM <= OUTSIDE_EDGE_M) {
       const insideOfReference = side * (corner.driver.turnInOffsetM - reference.turnInOffsetM);
       if (insideOfReference >= placedResolutionM)
-        findings.push({
-          corner: corner.id,
-          timeS: 0,
-          text: `${label}: turns in ${metres(insideOfReference)} inside the reference's line, not from the outside edge where the reference starts the corner.`,
-        });
+        findings.push({ ...where, kind: 'turns-in-inside', insideOfReferenceM: insideOfReference });
     }
     if (reference) {
       const wide = side * (reference.apexOffsetM - corner.driver.apexOffsetM);
       if (wide >= placedResolutionM)
-        findings.push({
-          corner: corner.id,
-          timeS: 0,
-          text: `${label}: misses the apex by ${metres(wide)} against the reference line${corner.driver.apexMissM !== null ? ` (${metres(corner.driver.apexMissM)} from the inside edge)` : ''}.`,
-        });
+        findings.push({ ...where, kind: 'misses-apex', wideM: wide, apexMissM: corner.driver.apexMissM });
     }
   }
-  const notes = [
-    `line: the log's positions scatter by ${scatterM.toFixed(2)} m across the track, so line differences under ${resolutionM.toFixed(1)} m are not reported`,
-  ];
-  if (inputs.fromGps)
-    notes.push(
-      `line: GPS positions also carry the receiver's absolute error (a few metres for consumer receivers, from memory): the line against the track's edges and the reference line is reported only from ${placedResolutionM.toFixed(1)} m`,
-    );
-  return { scatterM, resolutionM, placedResolutionM, offsetM, corners, findings, notes };
+  return { scatterM, resolutionM, placedResolutionM, offsetM, corners, findings, fromGps: inputs.fromGps ?? false };
 }

@@ -5,6 +5,7 @@
 import { formatLapTime, mps2ToG } from '../../units.js';
 import type { LapCornerFigures } from '../../compare/against/lap-corner.js';
 import { escapeHtml } from './escape.js';
+import { againstFindingText } from '../against-phrases.js';
 import { shownUnits, type ReportModel } from './model.js';
 import { cornerCell, fixed, signed, tile } from './cells.js';
 
@@ -72,7 +73,7 @@ export function againstFindingsHtml(model: ReportModel): string {
         finding.corner !== null
           ? `<button type="button" class="corner-link" data-corner="${finding.corner}">corner ${finding.corner}</button>`
           : '<span class="whole-lap">whole lap</span>';
-      return `<li><span class="stake">${fixed(finding.timeS, 2)} s</span>${where}<span class="finding-text">${escapeHtml(finding.text)}</span></li>`;
+      return `<li><span class="stake">${fixed(finding.timeS, 2)} s</span>${where}<span class="finding-text">${escapeHtml(againstFindingText(finding, model.units))}</span></li>`;
     })
     .join('');
   const notes = result.notes.map((note) => `<li>${escapeHtml(note)}</li>`).join('');
