@@ -151,6 +151,9 @@ class PointMassEnvelope implements Envelope {
   }
 
   private leftFor(lateralMps2: number, loadN: number, muShare: number): number {
+    // Running straight asks nothing sideways: all of the budget is left (what the share below gives, as the lateral
+    // capacity is positive: muLat > 0 and a floored load), without its two divisions.
+    if (lateralMps2 === 0) return 1;
     return remainingShare(
       Math.abs(lateralMps2) / this.lateralCapOf(loadN, muShare),
       this.exponent,

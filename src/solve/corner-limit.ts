@@ -5,7 +5,7 @@
 // solved by the Illinois variant of regula falsi (Dowell and Jarratt, BIT 11 (1971) 168-174) on a bracket.
 
 import type { Envelope } from '../car/envelope.js';
-import { roadLateralMps2, roadLoadFactor, type RoadTerms } from './road-terms.js';
+import { roadLoadFactor, type PathRoad, type RoadTerms } from './road-terms.js';
 import { STANDARD_GRAVITY_MPS2 as G } from '../units.js';
 
 const CURVATURE_FLOOR_PER_M = 1e-7;
@@ -85,52 +85,58 @@ export function cornerLimitSpeedMps(envelope: Envelope, curvaturePerM: number): 
   );
 }
 
-/** How far within the lateral limit speed v holds sample i of a three-dimensional road (negative: it does not); -1
- * where the tyres leave the ground. */
-function roadMargin(envelope: Envelope, road: RoadTerms, i: number, v: number, curvaturePerM: number): number {
-  const v2 = v * v;
-  const load = roadLoadFactor(road, i, v2, curvaturePerM);
-  if (!(load > 0)) return -1;
-  const lateral = roadLateralMps2(road, i, v2, curvaturePerM);
-  return envelope.lateralLimitMps2(v, lateral >= 0 ? 1 : -1, load) - Math.abs(lateral);
-}
-
-/** Largest speed that holds sample i of a three-dimensional road, on [0, top speed]. */
-export function roadCornerLimitSpeedMps(envelope: Envelope, road: RoadTerms, i: number, curvaturePerM: number): number {
-  // A level, unbanked sample without vertical curvature is flat ground: the same limit, the same way.
-  if (
-    road.gravityNormalShare[i] === 1 &&
-    road.sinBank[i] === 0 &&
-    road.verticalCurvaturePerM[i] === 0 &&
-    road.gravityLateralMps2[i] === 0
-  )
-    return cornerLimitSpeedMps(envelope, curvaturePerM);
-  const top = envelope.topSpeedMps;
-  // Straight and level across (no curvature, no bank): the tyres are asked for no lateral force at any speed, so
-  // only leaving the ground over a crest can limit the speed (the straights of a hilly lap, most of its samples).
-  if (curvaturePerM === 0 && road.sinBank[i] === 0 && roadLoadFactor(road, i, top * top, 0) > 0) return top;
-  const topMargin = roadMargin(envelope, road, i, top, curvaturePerM);
-  if (topMargin >= 0) return top;
-  const sinBank = road.sinBank[i]!;
-  const cosBank = road.cosBank[i]!;
-  const verticalPerM = road.verticalCurvaturePerM[i]!;
-  const closed = settled(
-    envelope.cornerSpeedSquaredEstimate?.(
-      road.gravityNormalShare[i]!,
-      (curvaturePerM * sinBank + verticalPerM * cosBank) / G,
-      -road.gravityLateralMps2[i]!,
-      curvaturePerM * cosBank - verticalPerM * sinBank,
-    ),
-    (v) => roadMargin(envelope, road, i, v, curvaturePerM) >= 0,
-  );
-  if (closed !== null && closed <= top) return closed;
-  // The car is taken to hold the road at rest (a bank within the tyres' grip: 45 degrees with mu >= 1).
-  return largestHolding(
-    (v) => roadMargin(envelope, road, i, v, curvaturePerM),
-    top,
-    topMargin,
-    Math.max(0, roadMargin(envelope, road, i, 0, curvaturePerM)),
-  );
+/**
+ * The corner limit of each sample of a three-dimensional road in turn, with one margin function for the whole lap
+ * (a closure per sample is garbage per sample). The road's load and lateral force at speed v are
+ * l0 + l1 v^2 / g and d1 v^2 - d0 with the path's coefficients (PathRoad), the same numbers roadLoadFactor and
+ * roadLateralMps2 give.
+ */
+function roadLimitSolver(envelope: Envelope, along: PathRoad): (i: number, curvaturePerM: number) => number {
+  const road = along.road;
+  const { gravityNormalShare, gravityLateralMps2, sinBank, verticalCurvaturePerM } = road;
+  const { loadPerV2, lateralPerV2 } = along;
+  // The sample being solved: its load l0 + l1 v^2 / g and lateral force d1 v^2 - d0.
+  let load0 = 1;
+  let loadPerSpeed2 = 0;
+  let lateral0 = 0;
+  let lateralPerSpeed2 = 0;
+  /** How far within the lateral limit speed v holds the sample (negative: it does not); -1 where the tyres leave
+   * the ground. */
+  const margin = (v: number): number => {
+    const v2 = v * v;
+    const load = load0 + (v2 * loadPerSpeed2) / G;
+    if (!(load > 0)) return -1;
+    const lateral = v2 * lateralPerSpeed2 - lateral0;
+    return envelope.lateralLimitMps2(v, lateral >= 0 ? 1 : -1, load) - Math.abs(lateral);
+  };
+  const holds = (v: number) => margin(v) >= 0;
+  return (i, curvaturePerM) => {
+    // A level, unbanked sample without vertical curvature is flat ground: the same limit, the same way.
+    if (
+      gravityNormalShare[i] === 1 &&
+      sinBank[i] === 0 &&
+      verticalCurvaturePerM[i] === 0 &&
+      gravityLateralMps2[i] === 0
+    )
+      return cornerLimitSpeedMps(envelope, curvaturePerM);
+    load0 = gravityNormalShare[i]!;
+    loadPerSpeed2 = loadPerV2[i]!;
+    lateral0 = gravityLateralMps2[i]!;
+    lateralPerSpeed2 = lateralPerV2[i]!;
+    const top = envelope.topSpeedMps;
+    // Straight and level across (no curvature, no bank): the tyres are asked for no lateral force at any speed, so
+    // only leaving the ground over a crest can limit the speed (the straights of a hilly lap, most of its samples).
+    if (curvaturePerM === 0 && sinBank[i] === 0 && roadLoadFactor(road, i, top * top, 0) > 0) return top;
+    const topMargin = margin(top);
+    if (topMargin >= 0) return top;
+    const closed = settled(
+      envelope.cornerSpeedSquaredEstimate?.(load0, loadPerSpeed2 / G, -lateral0, lateralPerSpeed2),
+      holds,
+    );
+    if (closed !== null && closed <= top) return closed;
+    // The car is taken to hold the road at rest (a bank within the tyres' grip: 45 degrees with mu >= 1).
+    return largestHolding(margin, top, topMargin, Math.max(0, margin(0)));
+  };
 }
 
 /** Whether samples i and j have the same grade, bank and vertical curvature (every road term the limit reads). */
@@ -148,15 +154,17 @@ export function cornerLimitProfile(
   envelope: Envelope,
   curvaturePerM: Float64Array,
   out = new Float64Array(curvaturePerM.length),
-  road: RoadTerms | null = null,
+  along: PathRoad | null = null,
 ): Float64Array {
-  if (road) {
+  if (along) {
+    const road = along.road;
+    const limitAt = roadLimitSolver(envelope, along);
     // As on flat ground, a sample whose curvature and road are those of the one before has its limit.
     for (let i = 0; i < curvaturePerM.length; i++)
       out[i] =
         i > 0 && curvaturePerM[i] === curvaturePerM[i - 1] && sameRoad(road, i, i - 1)
           ? out[i - 1]!
-          : roadCornerLimitSpeedMps(envelope, road, i, curvaturePerM[i]!);
+          : limitAt(i, curvaturePerM[i]!);
     return out;
   }
   // An arc holds one curvature over many samples: its limit is solved once.

@@ -81,6 +81,15 @@ export function simulateLapTime(track: TrackGrid, car: Car, options: SimulateOpt
   return { lapTimeS, lengthM, speedMps: profile.speedMps, brakingZones, path, track };
 }
 
+/** The largest of `sign` x each value. A loop of its own that ends on a plain return: V8 compiles a long loop while
+ * it runs (on-stack replacement), and a caller holding the loop was sent back to the interpreter on every call once
+ * a track of another shape (a three-dimensional one) had run. */
+function largestOf(values: Float64Array, sign = 1): number {
+  let largest = -Infinity;
+  for (let i = 0; i < values.length; i++) if (sign * values[i]! > largest) largest = sign * values[i]!;
+  return largest;
+}
+
 export function simulate(track: TrackGrid, car: Car, options: SimulateOptions = {}): LapResult {
   const { envelope, path, profile } = solveOn(track, car, options, 'simulate');
   const { trace, lapTimeS, lengthM } = lapChannels(
@@ -91,19 +100,12 @@ export function simulate(track: TrackGrid, car: Car, options: SimulateOptions = 
     track.distanceM,
     profile.shift,
   );
-  let maxSpeedMps = -Infinity;
-  let minSpeedMps = Infinity;
-  for (let i = 0; i < trace.count; i++) {
-    const speed = trace.speedMps[i]!;
-    if (speed > maxSpeedMps) maxSpeedMps = speed;
-    if (speed < minSpeedMps) minSpeedMps = speed;
-  }
   return {
     trace,
     lapTimeS,
     lengthM,
-    maxSpeedMps,
-    minSpeedMps,
+    maxSpeedMps: largestOf(trace.speedMps),
+    minSpeedMps: -largestOf(trace.speedMps, -1),
     brakingZones: zonesByCorner(findBrakingZones(trace), track),
     corners: cornerLayoutOf(track),
     track,

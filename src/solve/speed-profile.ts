@@ -208,8 +208,8 @@ function backwardPass(
 
 export function solveSpeedProfile(path: Path, envelope: Envelope, options: SpeedProfileOptions): SpeedProfile {
   const n = path.curvaturePerM.length;
-  const cornerLimitMps = cornerLimitProfile(envelope, path.curvaturePerM, undefined, options.road ?? null);
   const road = options.road ? pathRoad(options.road, path.curvaturePerM) : null;
+  const cornerLimitMps = cornerLimitProfile(envelope, path.curvaturePerM, undefined, road);
   const speedMps = new Float64Array(n);
   const shift = new Uint8Array(n);
   if (path.closed) {
