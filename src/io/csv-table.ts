@@ -1,6 +1,9 @@
 // Reads a CSV text into a header and rows of trimmed cells with their line numbers in the file (csv-parse does
 // the tokenising). A first line starting with '#' that names the columns counts as the header; later lines
-// starting with '#' are comments.
+// starting with '#' are comments. A plain file (printable ASCII, no quotes, no comments, one kind of line end,
+// every row as wide as the header) is split without the tokeniser, which gives the same cells (checked against
+// csv-parse in test/io/csv-plain.test.ts) without loading csv-parse or running its byte-by-byte state machine
+// cold: most of what reading a small centreline cost at start-up.
 
 import { csvParseSync } from './lazy-libraries.js';
 import { InputError } from '../errors.js';
@@ -32,6 +35,48 @@ function refuseLongLines(text: string, source: string): void {
   }
 }
 
+/** Printable ASCII and line ends, without '"' and '#': nothing csv-parse would read other than as plain cells. */
+const PLAIN_TEXT = /^[\x20\x21\x24-\x7e\r\n]*$/;
+
+type TableRecords = { record: string[]; info: { lines: number } }[];
+
+/** A plain CSV's records as csv-parse gives them (trimmed cells, blank lines skipped), or null if not plain. */
+export function plainCsvRecords(body: string, delimiter: string): TableRecords | null {
+  if (delimiter === '\t' || !PLAIN_TEXT.test(body)) return null;
+  const crlf = body.includes('\r');
+  const lines = body.split(crlf ? '\r\n' : '\n');
+  const records: TableRecords = [];
+  let width = -1;
+  for (let k = 0; k < lines.length; k++) {
+    const line = lines[k]!;
+    // Mixed line ends are csv-parse's to read (it keeps the first kind it meets).
+    if (crlf && (line.includes('\r') || line.includes('\n'))) return null;
+    if (line.trim() === '') continue;
+    const record = line.split(delimiter).map((cell) => cell.trim());
+    if (width < 0) width = record.length;
+    else if (record.length !== width) return null;
+    records.push({ record, info: { lines: k + 1 } });
+  }
+  return records;
+}
+
+/** Any CSV through csv-parse, with its message on a malformed file. */
+export function tokenisedCsvRecords(body: string, delimiter: string, source: string): TableRecords {
+  try {
+    return csvParseSync().parse(body, {
+      delimiter,
+      trim: true,
+      skip_empty_lines: true,
+      comment: '#',
+      comment_no_infix: true,
+      info: true,
+    }) as unknown as TableRecords;
+  } catch (error) {
+    const message = error instanceof Error ? error.message.split('\n')[0] : String(error);
+    throw new InputError(`${source}: malformed CSV: ${message}`);
+  }
+}
+
 const NUMBER_PATTERN = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
 const NON_FINITE_PATTERN = /^[+-]?(nan|inf|infinity)$/i;
 
@@ -50,20 +95,7 @@ export function parseCsvTable(text: string, source: string): CsvTable {
       : headerLine.includes('\t')
         ? '\t'
         : ',';
-  let records: { record: string[]; info: { lines: number } }[];
-  try {
-    records = csvParseSync().parse(body, {
-      delimiter,
-      trim: true,
-      skip_empty_lines: true,
-      comment: '#',
-      comment_no_infix: true,
-      info: true,
-    }) as unknown as typeof records;
-  } catch (error) {
-    const message = error instanceof Error ? error.message.split('\n')[0] : String(error);
-    throw new InputError(`${source}: malformed CSV: ${message}`);
-  }
+  const records = plainCsvRecords(body, delimiter) ?? tokenisedCsvRecords(body, delimiter, source);
   const first = records[0];
   if (!first) throw new InputError(`${source}: the file has no header row`);
   const header = first.record;
