@@ -8,6 +8,7 @@ import { decodeText, guardInputFile } from '../io/input-file.js';
 import { InputError } from '../errors.js';
 import type { TelemetrySession } from '../telemetry/types.js';
 import { detectKind, KIND_LABELS, type FileKind } from './detect-kind.js';
+import { DEFAULT_TRACK_READ_OPTIONS } from '../io/track-read-options.js';
 
 /** A file's problems beyond this many are counted, not listed (a garbage file would print one per row). */
 export const MAX_PROBLEMS_PER_FILE = 50;
@@ -84,9 +85,13 @@ export async function checkText(text: string, source: string): Promise<FileCheck
   // The real reader runs first; only a file it refuses is read again cell by cell, to list every problem rather
   // than the first (a good file is parsed once).
   if (kind === 'track-json' || kind === 'track-csv') {
-    const { parseTrackText } = await import('../io/read-track.js');
+    // A centreline goes straight to its reader, so the segment-track modules stay unloaded.
+    const parse =
+      kind === 'track-csv'
+        ? (await import('../io/track-csv.js')).parseTrackCsv
+        : (await import('../io/read-track.js')).parseTrackText;
     try {
-      const track = parseTrackText(text, source);
+      const track = parse(text, source, DEFAULT_TRACK_READ_OPTIONS);
       result.summary = `${KIND_LABELS[kind]}: ${track.closed ? 'closed' : 'open'} track, ${track.lengthM.toFixed(0)} m`;
     } catch (error) {
       const message = inputMessage(error);

@@ -3,10 +3,16 @@
 // command with the line `reflap --help` shows for it, so the help and the start of a command load one command's
 // modules and their libraries, not all of them.
 
-import { Command, CommanderError, Help } from 'commander';
+import { createRequire } from 'node:module';
+import type * as Commander from 'commander';
 import { isInputError } from '../errors.js';
 import { neutraliseTerminalOutput } from './terminal.js';
 import { endQuietlyOnClosedStdout } from './closed-stdout.js';
+
+// commander through its CommonJS entry: its ES module wrapper first has Node scan the CommonJS source for its
+// export names, a few milliseconds of every start (the command modules' own imports of it reuse the same module).
+const { Command, CommanderError, Help } = createRequire(import.meta.url)('commander') as typeof Commander;
+type Command = Commander.Command;
 
 export interface CommandModule {
   register(program: Command): void;
