@@ -1,7 +1,7 @@
-// The built CLI held in one worker thread for a test file: each request runs `main` with its arguments and
-// environment, captures what the command writes to stdout and stderr, and answers on the request's port. The test
-// thread waits for the answer synchronously (test/helpers/cli.ts), so runCli stays a plain call while the modules
-// are loaded once per file instead of once per run.
+// The built CLI held in one worker thread for a vitest worker (every test file it runs): each request runs `main`
+// with its arguments and environment, captures what the command writes to stdout and stderr, and answers on the
+// request's port. The test thread waits for the answer synchronously (test/helpers/cli.ts), so runCli stays a plain
+// call while the modules are loaded once per vitest worker instead of once per run.
 
 import { parentPort, workerData } from 'node:worker_threads';
 import { pathToFileURL } from 'node:url';

@@ -1,5 +1,5 @@
 // Runs the built command-line tool (dist/, built by `npm test` before vitest) as a user would. runCli calls the
-// CLI's `main` in a worker thread that lives as long as the test file (test/helpers/cli-worker.mjs): the same
+// CLI's `main` in a worker thread that lives as long as the vitest worker (test/helpers/cli-worker.mjs): the same
 // arguments, environment, working folder, output and exit code as a process of its own, without paying Node's
 // start and the module loading on every run. runCliProcess starts the real bin in a child process: it is kept for
 // what only a process shows (the bin script, standard input, signals, the exit status) and used by
