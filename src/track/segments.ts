@@ -249,7 +249,7 @@ export function trackFromSegments(spec: SegmentTrackSpec, stepM: number, source:
     curvaturePerM[i] = curvatureAt(piece, target);
   }
 
-  const road = segmentRoad(spec, pieces, distanceM, lengthM, source);
+  const road = segmentRoad(spec, pieces, distanceM, source);
   const widthLeft = spec.widthLeftM ?? (spec.widthM !== null ? spec.widthM / 2 : null);
   const widthRight = spec.widthRightM ?? (spec.widthM !== null ? spec.widthM / 2 : null);
   return {
@@ -271,12 +271,16 @@ export function trackFromSegments(spec: SegmentTrackSpec, stepM: number, source:
   };
 }
 
+/** A smoothed grade this close to its sample's own grade is that grade: the moving average's running sum leaves
+ * residue of about 1e-17 where its window sees one grade only, and a flat stretch must stay exactly flat (the
+ * solver takes its level-road path on exact zeros). 1e-12 is a micrometre of height per kilometre. */
+const GRADE_RESIDUE = 1e-12;
+
 /** Heights (the integral of each segment's grade) and banks on the grid; nothing when no segment gives either. */
 function segmentRoad(
   spec: SegmentTrackSpec,
   pieces: Piece[],
   distanceM: Float64Array,
-  lengthM: number,
   source: string,
 ): { zM?: Float64Array; bankRad?: Float64Array } {
   const segments = spec.segments;
@@ -303,12 +307,30 @@ function segmentRoad(
   // VERTICAL_CURVE_M, as road alignments are designed; a bare kink would be a crest of zero radius.
   const step = count > 1 ? distanceM[1]! - distanceM[0]! : 1;
   const smooth = movingAverage(gradeShare, Math.round(VERTICAL_CURVE_M / step / 2), spec.closed);
+  // The running sum leaves rounding residue where the window sees one grade only; that grade is the exact average.
+  for (let i = 0; i < count; i++) if (Math.abs(smooth[i]! - gradeShare[i]!) < GRADE_RESIDUE) smooth[i] = gradeShare[i]!;
   const zM = new Float64Array(count);
   for (let i = 1; i < count; i++) zM[i] = zM[i - 1]! + 0.5 * (smooth[i - 1]! + smooth[i]!) * step;
-  if (spec.closed) {
-    // Spread what is left of the closing gap in height (under the tolerance) along the lap, as for x and y.
-    const gap = zM[count - 1]! + 0.5 * (smooth[count - 1]! + smooth[0]!) * step;
-    for (let i = 0; i < count; i++) zM[i] = zM[i]! - (gap * distanceM[i]!) / lengthM;
-  }
+  if (spec.closed) closeHeights(zM, smooth, step);
   return { zM, bankRad };
+}
+
+/**
+ * Spread what is left of a closed lap's gap in height (under the tolerance: the grid samples each segment's grade
+ * a fraction of a step off its ends) over the steps where the height changes, in proportion to their length, so
+ * the loop joins and a level stretch keeps its height exactly.
+ */
+function closeHeights(zM: Float64Array, smooth: Float64Array, step: number): void {
+  const count = zM.length;
+  const climbs = (i: number, j: number) => smooth[i] !== 0 || smooth[j] !== 0;
+  const gap = zM[count - 1]! + 0.5 * (smooth[count - 1]! + smooth[0]!) * step;
+  let climbing = climbs(count - 1, 0) ? 1 : 0;
+  for (let i = 1; i < count; i++) if (climbs(i - 1, i)) climbing++;
+  if (climbing === 0) return;
+  const share = gap / climbing;
+  let taken = 0;
+  for (let i = 1; i < count; i++) {
+    if (climbs(i - 1, i)) taken += share;
+    zM[i] = zM[i]! - taken;
+  }
 }

@@ -3,7 +3,8 @@
 // clothoid's Fresnel-integral coordinates (Abramowitz and Stegun, Handbook of Mathematical Functions, 7.3).
 
 import { describe, expect, it } from 'vitest';
-import { trackFromSegments, type SegmentTrackSpec } from '../../src/track/segments.js';
+import { trackFromSegments, VERTICAL_CURVE_M, type SegmentTrackSpec } from '../../src/track/segments.js';
+import { HEIGHT_SMOOTHING_M, roadProfileOf } from '../../src/track/road-profile.js';
 import { InputError } from '../../src/errors.js';
 
 function spec(segments: SegmentTrackSpec['segments'], closed = true): SegmentTrackSpec {
@@ -131,5 +132,58 @@ describe('trackFromSegments', () => {
         'ring.json',
       ),
     ).toThrow(/^ring\.json: corners\[0\]\.atM: 100 m is outside the track/);
+  });
+});
+
+describe('heights of a closed lap', () => {
+  // A stadium whose straights climb and fall 3 % and whose level half circles are banked; the straights' ends fall
+  // between grid samples, so the sampled grades leave a few centimetres of the lap's height to close.
+  const climbM = 300.4;
+  const gradePct = 3;
+  const track = trackFromSegments(
+    spec([
+      { kind: 'straight', lengthM: climbM, gradePct },
+      { kind: 'arc', radiusM: 60, angleDeg: 180, bankDeg: 5 },
+      { kind: 'straight', lengthM: climbM, gradePct: -gradePct },
+      { kind: 'arc', radiusM: 60, angleDeg: 180, bankDeg: 5 },
+    ]),
+    1,
+    'hill-stadium',
+  );
+  const arcM = 60 * Math.PI;
+  const z = track.zM!;
+  const road = roadProfileOf(track)!;
+  /** Indices of the samples of [fromM, toM], clear of the vertical curves that round the changes of grade and of
+   * the profile's smoothing of the heights beside them. */
+  const levelSamples = (fromM: number, toM: number) => {
+    const clearM = VERTICAL_CURVE_M / 2 + HEIGHT_SMOOTHING_M + 2 * track.stepM;
+    return Array.from(track.distanceM.keys()).filter(
+      (i) => track.distanceM[i]! > fromM + clearM && track.distanceM[i]! < toM - clearM,
+    );
+  };
+  const topArc = levelSamples(climbM, climbM + arcM);
+  const bottomArc = levelSamples(2 * climbM + arcM, 2 * climbM + 2 * arcM);
+
+  it('keeps the level half circles exactly level while the lap closes in height', () => {
+    // Zero grade is zero rise (rise = grade x run; AASHTO, A Policy on Geometric Design of Highways and Streets,
+    // ch. 3; from memory): every level sample has one height, and the road profile reads an exactly level road.
+    expect(topArc.length).toBeGreaterThan(100);
+    expect(bottomArc.length).toBeGreaterThan(100);
+    for (const level of [topArc, bottomArc])
+      for (const i of level) {
+        expect(z[i]).toBe(z[level[0]!]);
+        expect(road.gradeRad[i]).toBe(0);
+        expect(road.verticalCurvaturePerM[i]).toBe(0);
+      }
+    // The climb rises 3 % of its run; what the lap had to close (the grid samples each straight's grade up to a step
+    // off its ends: at most 3 % of 1 m at each of four ends) is shared by the two straights.
+    const riseM = z[topArc[0]!]! - z[bottomArc[0]!]!;
+    expect(Math.abs(riseM - (gradePct / 100) * climbM)).toBeLessThan((4 * (gradePct / 100) * track.stepM) / 2);
+  });
+
+  it('joins the lap where it starts: the grade there is that of the middle of a vertical curve', () => {
+    // A parabolic vertical curve's grade changes linearly along it, so at its middle (the change of grade, here the
+    // start of the lap) it is the mean of the two grades (AASHTO, ch. 3; from memory): 0 and 3 % give 1.5 %.
+    expect(Math.tan(road.gradeRad[0]!)).toBeCloseTo(gradePct / 100 / 2, 3);
   });
 });
