@@ -5,6 +5,7 @@
 import type { Envelope } from './envelope.js';
 import { combinedShare, remainingShare } from './point-mass.js';
 import { lerp } from '../numeric/interpolate.js';
+import type { Note } from '../note.js';
 
 export interface EnvelopeBand {
   /** Centre of the speed band, m/s. */
@@ -30,8 +31,8 @@ export interface DemonstratedEnvelopeRecord {
   /** Coasting deceleration c0 + c2 v^2, m/s^2; `fitted` says whether it came from coasting samples. */
   coast: { constantMps2: number; quadraticPerM: number; fitted: boolean };
   bands: EnvelopeBand[];
-  /** Where the fit fell back to the car model (thin data), one line each. */
-  notes?: string[];
+  /** Where the fit fell back to the car model (thin data), one each (text in a file, a note with speeds when fitted). */
+  notes?: Note[];
 }
 
 const ELLIPSE = 2;

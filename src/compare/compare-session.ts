@@ -21,6 +21,7 @@ import { deriveSessionAccelerations, derivationNote } from './derive-session.js'
 import type { LapCut } from './laps.js';
 import { alignLap } from './align.js';
 import { honestyChecks } from './envelope-honesty.js';
+import type { Note } from '../note.js';
 
 export interface CompareSessionOptions {
   ambient: Ambient;
@@ -44,7 +45,7 @@ export interface SessionComparison {
   carModelLap: LapResult;
   demonstratedLap: LapResult | null;
   demonstratedRecord: DemonstratedEnvelopeRecord | null;
-  notes: string[];
+  notes: Note[];
   /** The session the lap was cut from, with any accelerations derived from its positions (for its other laps). */
   session?: TelemetrySession;
   /** Every lap the session was cut into. */
@@ -110,7 +111,7 @@ export function compareSession(
     ...(options.lap !== undefined ? { lap: options.lap } : {}),
     ...(options.startFinish ? { startFinish: options.startFinish } : {}),
   });
-  const notes = [...selected.notes];
+  const notes: Note[] = [...selected.notes];
   const lap = selected.lap;
   const quality = derivation.quality;
   if (quality) {

@@ -10,7 +10,7 @@
 
 import type { DemonstratedEnvelopeRecord, EnvelopeBand } from '../car/demonstrated-envelope.js';
 import type { Envelope } from '../car/envelope.js';
-import { mpsToKph } from '../units.js';
+import { note, speedsOf } from '../note.js';
 import { quantileSorted } from '../numeric/quantile.js';
 import { cellFigures, LATERAL, movingSamples, type CellFigure } from './envelope-cells.js';
 
@@ -121,7 +121,7 @@ export function fitEnvelope(
     }
   }
   const bands: EnvelopeBand[] = [];
-  const fromModel: string[][] = DIRECTIONS.map(() => []);
+  const fromModel: number[][] = DIRECTIONS.map(() => []);
   for (let b = 0; b < bandCount; b++) {
     const weightInBand = own[b]![0]!.total + own[b]![1]!.total + own[b]![2]!.total + own[b]![3]!.total;
     if (!(weightInBand > 0)) continue;
@@ -141,7 +141,7 @@ export function fitEnvelope(
         fallbackShare *= 1 - weight;
       }
       limit[d] = value;
-      if (carModel && fallbackShare >= 0.5) fromModel[d]!.push(mpsToKph(speedMps).toFixed(0));
+      if (carModel && fallbackShare >= 0.5) fromModel[d]!.push(speedMps);
     }
     bands.push({
       speedMps,
@@ -155,7 +155,9 @@ export function fitEnvelope(
   const notes = fromModel.flatMap((speeds, d) =>
     speeds.length > 0
       ? [
-          `${DIRECTION_WORDS[d]} at ${speeds.length === bands.length ? 'every speed' : `${speeds.join(', ')} km/h`}: too few samples in the log, mostly the car model's limit`,
+          speeds.length === bands.length
+            ? `${DIRECTION_WORDS[d]} at every speed: too few samples in the log, mostly the car model's limit`
+            : note`${DIRECTION_WORDS[d]!} at ${speedsOf(speeds)}: too few samples in the log, mostly the car model's limit`,
         ]
       : [],
   );

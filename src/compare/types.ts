@@ -2,6 +2,8 @@
 // reference lap share one distance axis, and the corner-by-corner result. The raw session record the readers
 // produce lives below both, in src/telemetry/types.ts.
 
+import type { Note } from '../note.js';
+
 /** One lap of the driver, on the track's distance grid (same length as TrackGrid.distanceM). */
 export interface DriverLap {
   /** File it came from and the lap's number within the session (1 = first complete lap). */
@@ -156,7 +158,8 @@ export interface ComparisonResult {
   driverGripUse: Float64Array;
   corners: CornerComparison[];
   findings: Finding[];
-  notes: string[];
+  /** Notes for people (a note with speeds or distances is written in the reader's units by src/report/note-text.ts). */
+  notes: Note[];
   /** Which envelope the reference above uses: the car model's or the driver's demonstrated one. */
   referenceEnvelopeKind?: string;
   /** Reference lap time on the car model's envelope (the second gap, when the reference above is the demonstrated one). */

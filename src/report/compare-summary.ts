@@ -11,6 +11,7 @@ import type { UncertainReference } from '../uncertainty/uncertain-reference.js';
 import { findingText } from './finding-phrases.js';
 import { roundedNumbers } from './json-numbers.js';
 import { drawsLine, lapBandLine, percentText, robustFindingsText } from './uncertainty-summary.js';
+import { noteText } from './note-text.js';
 
 const signed = (value: number, digits: number) => plainNumber(value, digits, true);
 const orDash = (value: number | null | undefined, digits: number, sign = true) =>
@@ -116,7 +117,7 @@ export function compareSummaryText(
     lines.push('Where the time is (largest first):');
     result.findings.forEach((finding, index) => lines.push(`${index + 1}. ${findingText(finding, units)}`));
   }
-  if (result.notes.length > 0) lines.push('', ...result.notes.map((note) => `Note: ${note}`));
+  if (result.notes.length > 0) lines.push('', ...result.notes.map((note) => `Note: ${noteText(note, units)}`));
   lines.push('', SAFETY_CAUTION);
   return lines.join('\n') + '\n';
 }
@@ -177,6 +178,6 @@ export function compareSummaryJson(result: ComparisonResult) {
       text: findingText(f),
       claims: roundedNumbers(f.claims),
     })),
-    notes: result.notes,
+    notes: result.notes.map((note) => noteText(note)),
   };
 }

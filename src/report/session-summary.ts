@@ -7,6 +7,7 @@ import { displayUnits, plainNumber, type DisplayUnits } from './units.js';
 import { formatTable } from './text-table.js';
 import { SAFETY_CAUTION } from './lap-summary.js';
 import { roundToDigits as round } from '../numeric/round.js';
+import { noteText } from './note-text.js';
 
 const signed = (value: number, digits: number) => plainNumber(value, digits, true);
 const cornerName = (id: number, overview: SessionOverview) => {
@@ -75,7 +76,7 @@ export function sessionText(overview: SessionOverview, units: DisplayUnits = dis
     lines.push('Corner by corner (most time available first):');
     told.forEach((verdict, index) => lines.push(`${index + 1}. ${verdict.text}.`));
   }
-  if (overview.notes.length > 0) lines.push('', ...overview.notes.map((note) => `Note: ${note}`));
+  if (overview.notes.length > 0) lines.push('', ...overview.notes.map((note) => `Note: ${noteText(note, units)}`));
   lines.push('', SAFETY_CAUTION);
   return lines.join('\n') + '\n';
 }
@@ -123,6 +124,6 @@ export function sessionJson(overview: SessionOverview) {
       availableS: round(v.availableS, 3),
       text: v.text,
     })),
-    notes: overview.notes,
+    notes: overview.notes.map((note) => noteText(note)),
   };
 }

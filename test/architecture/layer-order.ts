@@ -3,7 +3,7 @@
 // independent of each other. An entry is a folder or a file under src/; the longest matching entry wins.
 
 export const LAYERS: readonly (readonly string[])[] = [
-  ['errors.ts', 'units.ts', 'bidi.ts', 'is-record.ts'],
+  ['errors.ts', 'units.ts', 'bidi.ts', 'is-record.ts', 'note.ts'],
   ['numeric'],
   ['telemetry', 'track'],
   ['car'],

@@ -135,14 +135,15 @@ describe('report pages', () => {
       ['session', ...gt, '--telemetry', log],
     ]) {
       const { imperial } = both(args, '--html', `${args[0]}.html`);
-      // The notes (laps left out, the envelope fit's thin bands) are still written in metres and km/h; everything
-      // else the page draws is checked, the findings included.
-      const drawn = visible(imperial).replace(/<ul class="notes">[\s\S]*?<\/ul>/g, '');
+      // The notes on laps left out or extrapolated are still written in metres (the lap cutting's own sentences);
+      // everything else the page draws is checked, the findings and the envelope fit's notes included.
+      const drawn = visible(imperial).replace(/<li>lap \d+ [^<]*<\/li>/g, '');
       const headers = [...drawn.matchAll(/<th>([^<]*)<\/th>/g)].map((m) => m[1]!);
       expect(headers.filter((h) => /km\/h|, m$|, m\b/.test(h))).toEqual([]);
       expect(headers).toEqual(expect.arrayContaining(['slowest, mph', 'brake point Δ, ft']));
       expect(placesOf(drawn, /km\/h/)).toEqual([]);
       expect(drawn).toMatch(/envelope at [\d, ]+ mph/);
+      expect(drawn).toMatch(/<li>braking at [\d, ]+ mph: too few samples in the log/);
     }
   });
 

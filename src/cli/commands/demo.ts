@@ -16,6 +16,8 @@ import { addReportOptions, addReportOutputs, reportWrittenText, type ReportOptio
 import { sessionReportInput } from '../../report/html/from-session.js';
 import { resolveReferenceLine, withReferencePath } from '../reference-path.js';
 import { addUnitsOption, unitsOf, type UnitsOptionValues } from '../units-option.js';
+import { noteText } from '../../report/note-text.js';
+import type { Note } from '../../note.js';
 
 export const DEMO_TRACK = 'tracks/velmora-downs.json';
 export const DEMO_CAR = 'cars/tarnfell-gt.json';
@@ -112,9 +114,9 @@ export function runDemo(values: DemoValues): void {
  * The demo's invented session starts and ends mid-lap as a real one does; the notes meant for a real log's partial
  * laps ("lap 0 left out ...") become one line that says what they are.
  */
-export function demoNotes(notes: readonly string[]): string[] {
-  const partial = notes.filter((note) => /^lap \d+ left out/.test(note)).length;
-  const rest = notes.filter((note) => !/^lap \d+ (left out|chosen)/.test(note));
+export function demoNotes(notes: readonly Note[]): Note[] {
+  const partial = notes.filter((note) => /^lap \d+ left out/.test(noteText(note))).length;
+  const rest = notes.filter((note) => !/^lap \d+ (left out|chosen)/.test(noteText(note)));
   if (partial === 0) return rest;
   return [
     `the invented session has an out lap and an in lap around the timed lap; ${partial === 1 ? 'the partial lap is' : 'both are'} left out`,

@@ -12,9 +12,8 @@ import { fitEnvelope, EnvelopeFitError, type DemonstratedEnvelopeRecord } from '
 import { deriveSessionAccelerations, derivationNote } from '../../compare/derive-session.js';
 import { buildEnvelope } from '../../car/build-envelope.js';
 import { Option } from 'commander';
-import { roundedJson } from '../../report/json-numbers.js';
 import { addUnitsOption, unitsOf, type UnitsOptionValues } from '../units-option.js';
-import { envelopeText } from '../../report/envelope-text.js';
+import { envelopeJson, envelopeText } from '../../report/envelope-text.js';
 import { sessionSamples } from '../../compare/envelope-samples.js';
 
 interface EnvelopeValues
@@ -74,7 +73,7 @@ export async function runEnvelope(values: EnvelopeValues): Promise<void> {
     throw error;
   }
   const units = unitsOf(values);
-  const json = roundedJson(record);
+  const json = envelopeJson(record);
   if (values.out) writeFileAtomic(values.out, json, inputFilesOf(values));
   if (values.json) process.stdout.write(json);
   else

@@ -23,6 +23,7 @@ import { sessionOverview } from '../../compare/session/session-overview.js';
 import { sessionJson, sessionText } from '../../report/session-summary.js';
 import { cornerTracesCollector } from '../../compare/session/corner-traces.js';
 import { cornerRangeM } from '../../report/html/model.js';
+import { noteText } from '../../report/note-text.js';
 
 export interface SessionValues
   extends TrackOptionValues, CarOptionValues, TelemetryOptionValues, ReportOptionValues, UnitsOptionValues {
@@ -73,7 +74,7 @@ export async function runSession(values: SessionValues): Promise<void> {
     { onLap: (lapNumber, lap) => traces.add(lapNumber, lap) },
   );
   // The laps table lists every lap and why any is left out; the note naming compare's chosen lap does not apply.
-  overview.notes.unshift(...comparison.notes.filter((note) => !/^lap \d+ chosen:/.test(note)));
+  overview.notes.unshift(...comparison.notes.filter((note) => !/^lap \d+ chosen:/.test(noteText(note))));
   const outputs = outputBatch(inputFilesOf(values));
   const report = {
     ...sessionReportInput(comparison, car, ambient, comparison.linePositions),

@@ -21,6 +21,7 @@ import { sectorTimesS } from './lap-sectors.js';
 import { sampleStandardDeviation } from './spread.js';
 import { median } from '../../numeric/quantile.js';
 import { cornerVerdicts, type CornerVerdict, DEFAULT_VERDICT_OPTIONS, type VerdictOptions } from './corner-verdicts.js';
+import type { Note } from '../../note.js';
 
 export interface SessionLap {
   lap: number;
@@ -70,7 +71,7 @@ export interface SessionOverview {
   byTimeAvailable: number[];
   byConsistency: number[];
   verdicts: CornerVerdict[];
-  notes: string[];
+  notes: Note[];
 }
 
 export interface SessionInputs {
@@ -158,7 +159,7 @@ export function sessionOverview(
   const referenceFigures = spans.map((span, c) =>
     lapCornerFigures(ref, span, bounds[c]!, bounds[c + 1]!, null, track, threshold),
   );
-  const notes: string[] = [];
+  const notes: Note[] = [];
   const laps: SessionLap[] = [];
   // Per complete lap only the corner figures are kept, never the aligned channels: memory stays flat in the laps.
   const figures: { lap: number; corners: LapCornerFigures[] }[] = [];

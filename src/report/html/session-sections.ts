@@ -11,6 +11,7 @@ import { cornerMultipleSvg, cornerMultiplesLegendSvg, sessionPicks } from './cor
 import type { ChartSvg } from './page.js';
 import type { SvgOptions } from './svg-frame.js';
 import { displayUnits, type DisplayUnits } from '../units.js';
+import { noteText } from '../note-text.js';
 
 export interface SessionReportPart {
   overview: SessionOverview;
@@ -118,7 +119,7 @@ export function sessionSectionsHtml(part: SessionReportPart, units: DisplayUnits
   const multiples = cornerMultipleCharts(part, { standalone: false }, units)
     .map((chart) => `<div class="multiple">${chart.svg}</div>`)
     .join('');
-  const notes = overview.notes.map((note) => `<li>${escapeHtml(note)}</li>`).join('');
+  const notes = overview.notes.map((note) => `<li>${escapeHtml(noteText(note, units))}</li>`).join('');
   return (
     answersHtml(overview) +
     `<section class="panel">${lapTableHtml(overview)}</section>` +

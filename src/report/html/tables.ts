@@ -11,6 +11,7 @@ export { tile } from './cells.js';
 import type { UncertainFinding } from '../../uncertainty/uncertain-reference.js';
 import { claimText, findingText } from '../finding-phrases.js';
 import type { DisplayUnits } from '../units.js';
+import { noteText } from '../note-text.js';
 
 export function summaryHtml(model: ReportModel): string {
   const reference = model.input.reference;
@@ -143,7 +144,7 @@ export function findingsHtml(model: ReportModel): string {
       return `<li><span class="stake">${fixed(finding.timeS, 2)} s</span>${where}<span class="finding-text">${escapeHtml(finding.text)}${finding.robustness ? ` <em>${escapeHtml(finding.robustness)}</em>` : ''}</span></li>`;
     })
     .join('');
-  const notes = comparison.result.notes.map((note) => `<li>${escapeHtml(note)}</li>`).join('');
+  const notes = comparison.result.notes.map((note) => `<li>${escapeHtml(noteText(note, model.units))}</li>`).join('');
   const derived = comparison.driver.derivedChannels.length
     ? `<li>${escapeHtml(`Derived, not measured: ${comparison.driver.derivedChannels.join(', ')}.`)}</li>`
     : '';
