@@ -1,23 +1,16 @@
 // Builds dist/ with tsc and records a fingerprint of what the build read (path, size and modification time of
 // every source file, the compiler settings and the lock file). With --if-stale the build is skipped when the
-// fingerprint is unchanged: `npm run demo` and `npm test` then start at once instead of paying several seconds of
+// fingerprint is unchanged: `npm run bench` and `npm test` then start at once instead of paying several seconds of
 // tsc (tsc's own incremental mode still costs seconds of CPU on a build with nothing to do).
 
 import { spawnSync } from 'node:child_process';
-import { existsSync } from 'node:fs';
 import { createRequire } from 'node:module';
-import path from 'node:path';
-import { recordedFingerprintIs, recordFingerprint, root, sourceFingerprint } from './source-fingerprint.js';
-
-const fingerprintFile = path.join(root, 'dist', '.source-fingerprint');
-// What tsconfig.json's "include" names, plus the files whose change alters what tsc produces.
-const sourceFolders = ['src', 'bench'];
-const settingsFiles = ['tsconfig.json', 'package.json', 'package-lock.json'];
+import { recordFingerprint, root } from './source-fingerprint.js';
+import { builtFrom, currentSources, fingerprintFile } from './build-freshness.js';
 
 const ifStale = process.argv.includes('--if-stale');
-const before = sourceFingerprint(sourceFolders, settingsFiles);
-const built = existsSync(path.join(root, 'dist', 'src', 'cli', 'main.js'));
-if (ifStale && built && recordedFingerprintIs(fingerprintFile, before)) process.exit(0);
+const before = currentSources();
+if (ifStale && builtFrom(before)) process.exit(0);
 const tsc = createRequire(import.meta.url).resolve('typescript/bin/tsc');
 const result = spawnSync(process.execPath, [tsc, '-p', 'tsconfig.json'], { cwd: root, stdio: 'inherit' });
 if (result.status !== 0) process.exit(result.status ?? 1);
