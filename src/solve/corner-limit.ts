@@ -119,14 +119,15 @@ function roadLimitSolver(envelope: Envelope, along: PathRoad): (i: number, curva
       gravityLateralMps2[i] === 0
     )
       return cornerLimitSpeedMps(envelope, curvaturePerM);
+    const top = envelope.topSpeedMps;
+    // Straight and level across (no curvature, no bank): the tyres are asked for no lateral force at any speed, so
+    // only leaving the ground over a crest can limit the speed (the straights of a hilly lap, most of its samples).
+    // Tested before the margin's numbers are set: each is a number boxed on the heap, garbage on every sample.
+    if (curvaturePerM === 0 && sinBank[i] === 0 && roadLoadFactor(road, i, top * top, 0) > 0) return top;
     load0 = gravityNormalShare[i]!;
     loadPerSpeed2 = loadPerV2[i]!;
     lateral0 = gravityLateralMps2[i]!;
     lateralPerSpeed2 = lateralPerV2[i]!;
-    const top = envelope.topSpeedMps;
-    // Straight and level across (no curvature, no bank): the tyres are asked for no lateral force at any speed, so
-    // only leaving the ground over a crest can limit the speed (the straights of a hilly lap, most of its samples).
-    if (curvaturePerM === 0 && sinBank[i] === 0 && roadLoadFactor(road, i, top * top, 0) > 0) return top;
     const topMargin = margin(top);
     if (topMargin >= 0) return top;
     const closed = settled(
