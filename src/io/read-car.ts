@@ -89,13 +89,25 @@ function carSchema(validator: CarValidator): ReturnType<typeof carSchemaOf> {
 
 type CarFile = z.infer<ReturnType<typeof carSchemaOf>>;
 
-function describeIssue(issue: z.core.$ZodIssue): string {
+/** The value at an issue's path in the file (undefined where the path leaves the file's records and arrays). */
+function valueAt(root: unknown, path: readonly PropertyKey[]): unknown {
+  let value = root;
+  for (const key of path) {
+    if (value === null || typeof value !== 'object' || !Object.hasOwn(value, key)) return undefined;
+    value = (value as Record<PropertyKey, unknown>)[key];
+  }
+  return value;
+}
+
+/** One issue in words. The validators' issues do not carry the input, so a field of the wrong type is told from a
+ * missing one by looking it up in the file. */
+function describeIssue(issue: z.core.$ZodIssue, root: unknown): string {
   const path = issue.path.map(String).join('.');
   if (issue.code === 'unrecognized_keys') {
     const keys = issue.keys.map((key) => (path ? `${path}.${key}` : key));
     return `unknown field${keys.length > 1 ? 's' : ''} ${keys.join(', ')}`;
   }
-  if (issue.code === 'invalid_type' && issue.input === undefined) return `missing required field ${path}`;
+  if (issue.code === 'invalid_type' && valueAt(root, issue.path) === undefined) return `missing required field ${path}`;
   return `field ${path || '(top level)'}: ${issue.message}`;
 }
 
@@ -181,7 +193,7 @@ function carFromFile(data: CarFile, source: string): Car {
 export function carFromJson(value: unknown, source: string, validator: CarValidator = 'zod'): Car {
   const parsed = carSchema(validator).safeParse(value);
   if (!parsed.success) {
-    throw new InputError(`${source}: ${parsed.error.issues.map(describeIssue).join('; ')}`);
+    throw new InputError(`${source}: ${parsed.error.issues.map((issue) => describeIssue(issue, value)).join('; ')}`);
   }
   let car = carFromFile(parsed.data, source);
   const { uncertainty, origin } = parsed.data;

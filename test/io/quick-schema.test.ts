@@ -208,3 +208,19 @@ describe('quick car validation against zod', () => {
     expect(JSON.stringify(quick.number().positive().safeParse(0))).toContain('Too small: expected number to be >0');
   });
 });
+
+describe('a wrong type is not a missing field', () => {
+  // The validators' issues do not carry the input (zod 4's issues as handed out), so the reader looks the field up
+  // in the file: a field present with the wrong type is named with what was expected, a field absent is missing.
+  it.each(['zod', 'quick'] as const)('with %s', (validator) => {
+    const wrongType = { ...FULL_CAR, massKg: 'heavy', tyre: { ...FULL_CAR.tyre, muLat: null } };
+    const problem = outcome(wrongType, validator);
+    expect(problem).toHaveProperty('problem');
+    const message = (problem as { problem: string }).problem;
+    expect(message).toContain('field massKg: Invalid input: expected number, received string');
+    expect(message).toContain('field tyre.muLat: Invalid input: expected number, received null');
+    expect(message).not.toContain('missing required field massKg');
+    const { massKg: _mass, ...withoutMass } = FULL_CAR;
+    expect(outcome(withoutMass, validator)).toEqual({ problem: `${SOURCE}: missing required field massKg` });
+  });
+});
