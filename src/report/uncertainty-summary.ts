@@ -2,7 +2,7 @@
 // braking zones' bands, and each finding with the share of draws in which it holds (uncertain below half).
 
 import type { Band, UncertainFinding, UncertainReference } from '../uncertainty/uncertain-reference.js';
-import { formatLapTime, mpsToKph } from '../units.js';
+import { formatLapTime } from '../units.js';
 import { formatTable } from './text-table.js';
 import { roundToDigits } from '../numeric/round.js';
 import { claimText, findingText } from './finding-phrases.js';
@@ -34,19 +34,19 @@ const range = (band: Band | null, scale: (v: number) => number, digits: number) 
     ? `${scale(band.median).toFixed(digits)} (${scale(band.low).toFixed(digits)} to ${scale(band.high).toFixed(digits)})`
     : '-';
 
-/** The reference alone over the draws: lap time and braking zones. */
-export function uncertainReferenceText(u: UncertainReference): string {
+/** The reference alone over the draws: lap time and braking zones (braking point and slowest speed in the units). */
+export function uncertainReferenceText(u: UncertainReference, units: DisplayUnits = displayUnits('metric')): string {
   const lines = [
     drawsLine(u),
     lapBandLine('Lap time over the draws:', u.lapTimeS),
     '',
     'Braking zones over the draws (median, 90 % band in brackets)',
     formatTable(
-      ['#', 'brake at m', 'slowest km/h', 'found in'],
+      ['#', `brake at ${units.distanceLabel}`, `slowest ${units.speedLabel}`, 'found in'],
       u.zones.map((zone, index) => [
         String(index + 1),
-        range(zone.brakingPointM, (v) => v, 0),
-        range(zone.minSpeedMps, mpsToKph, 1),
+        range(zone.brakingPointM, units.distance, 0),
+        range(zone.minSpeedMps, units.speed, 1),
         percentText(zone.foundShare),
       ]),
     ),

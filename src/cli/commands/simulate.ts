@@ -136,7 +136,7 @@ export async function runSimulate(values: SimulateValues): Promise<void> {
     // The band goes with the lap's own figures, before the caution that closes the summary.
     process.stdout.write(
       uncertainty
-        ? summary.replace(SAFETY_CAUTION, uncertainReferenceText(uncertainty) + '\n' + SAFETY_CAUTION)
+        ? summary.replace(SAFETY_CAUTION, uncertainReferenceText(uncertainty, units) + '\n' + SAFETY_CAUTION)
         : summary,
     );
     process.stdout.write(bicycle.text);
