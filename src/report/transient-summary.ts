@@ -4,6 +4,8 @@
 import { roundedNumbers } from './json-numbers.js';
 import type { SaturationZone, TransientCheck } from '../solve/transient.js';
 import { formatLapTime } from '../units.js';
+import { noteText } from './note-text.js';
+import { displayUnits, type DisplayUnits } from './units.js';
 
 /** Stretches closer than this are one event for a reader (a flicker below the threshold mid-corner). */
 const MERGE_GAP_M = 10;
@@ -39,8 +41,12 @@ function axleWords(axle: SaturationZone['axle']): string {
   return axle === 'both' ? 'both axles' : `${axle} axle`;
 }
 
-export function transientSummaryText(check: TransientCheck): string {
-  const lines = [`Transient check (single-track model, driver model following the reference): ${check.verdict}`];
+/** The check in a few lines, distances and speeds in the reader's units. */
+export function transientSummaryText(check: TransientCheck, units: DisplayUnits = displayUnits('metric')): string {
+  const at = (distanceM: number, digits = 0) => `${units.distance(distanceM).toFixed(digits)} ${units.distanceLabel}`;
+  const lines = [
+    `Transient check (single-track model, driver model following the reference): ${noteText(check.verdict, units)}`,
+  ];
   if (check.completed) {
     const delta = check.followedLapTimeS - check.referenceLapTimeS;
     lines.push(
@@ -56,7 +62,7 @@ export function transientSummaryText(check: TransientCheck): string {
   const samePlace = Math.round(check.maxDeviationAtM) === Math.round(check.maxDeviationShareAtM);
   if (!check.completed || !samePlace) {
     lines.push(
-      `  largest deviation ${check.maxDeviationM.toFixed(2)} m at ${check.maxDeviationAtM.toFixed(0)} m; most of ${limit} used: ${(100 * check.maxDeviationShare).toFixed(0)} % at ${check.maxDeviationShareAtM.toFixed(0)} m`,
+      `  largest deviation ${at(check.maxDeviationM, 2)} at ${at(check.maxDeviationAtM)}; most of ${limit} used: ${(100 * check.maxDeviationShare).toFixed(0)} % at ${at(check.maxDeviationShareAtM)}`,
     );
   }
   lines.push(`  largest steer ${check.maxSteerDeg.toFixed(1)} deg (road wheels)`);
@@ -73,7 +79,7 @@ export function transientSummaryText(check: TransientCheck): string {
     );
     for (const zone of longest) {
       lines.push(
-        `    ${zone.fromM.toFixed(0)}-${zone.toM.toFixed(0)} m  ${axleWords(zone.axle)} (peak use ${zone.peakUse.toFixed(2)})`,
+        `    ${units.distance(zone.fromM).toFixed(0)}-${at(zone.toM)}  ${axleWords(zone.axle)} (peak use ${zone.peakUse.toFixed(2)})`,
       );
     }
     const rest = stretches.length - longest.length;
@@ -86,7 +92,7 @@ export function transientJson(check: TransientCheck) {
   return roundedNumbers({
     completed: check.completed,
     drivable: check.drivable,
-    verdict: check.verdict,
+    verdict: noteText(check.verdict),
     referenceLapTimeS: check.referenceLapTimeS,
     followedLapTimeS: check.completed ? check.followedLapTimeS : null,
     maxDeviationM: check.maxDeviationM,

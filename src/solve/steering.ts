@@ -6,7 +6,8 @@ import type { Car } from '../car/types.js';
 import type { LapResult } from './types.js';
 import { criticalSpeedMps, linearAxlesOf, understeerGradientRadPerMps2 } from '../car/understeer.js';
 import { InputError } from '../errors.js';
-import { mpsToKph, radToDeg } from '../units.js';
+import { radToDeg } from '../units.js';
+import { distanceOf, note, speedsOf, type Note } from '../note.js';
 
 /** Whether the car can give a steering trace (it has the wheelbase and both cornering stiffnesses). */
 export const canTraceSteering = (car: Car): boolean => linearAxlesOf(car) !== null;
@@ -30,7 +31,7 @@ export function steeringTraceDeg(result: LapResult, car: Car): Float64Array {
  * A warning when an oversteering car's reference goes faster than its critical speed sqrt(-L / K) (Gillespie,
  * SAE 1992, ch. 6), where the linear car is directionally unstable; null when it does not (or K >= 0).
  */
-export function criticalSpeedWarning(result: LapResult, car: Car): string | null {
+export function criticalSpeedWarning(result: LapResult, car: Car): Note | null {
   const axles = linearAxlesOf(car);
   if (!axles) return null;
   const critical = criticalSpeedMps(axles.wheelbaseM, understeerGradientRadPerMps2(axles));
@@ -38,8 +39,5 @@ export function criticalSpeedWarning(result: LapResult, car: Car): string | null
   const t = result.trace;
   let first = 0;
   while (first < t.count && t.speedMps[first]! <= critical) first++;
-  return (
-    `car ${car.name} oversteers and is unstable above its critical speed ${mpsToKph(critical).toFixed(0)} km/h; ` +
-    `the reference reaches ${mpsToKph(result.maxSpeedMps).toFixed(0)} km/h (first above it at ${t.distanceM[first]!.toFixed(0)} m)`
-  );
+  return note`car ${car.name} oversteers and is unstable above its critical speed ${speedsOf([critical])}; the reference reaches ${speedsOf([result.maxSpeedMps])} (first above it at ${distanceOf(t.distanceM[first]!)})`;
 }

@@ -9,6 +9,7 @@ import { pointMassEnvelope } from '../car/point-mass.js';
 import { driveForceTable } from '../car/drive-force.js';
 import { axleState, newAxleState } from '../car/bicycle-axles.js';
 import { STANDARD_GRAVITY_MPS2 } from '../units.js';
+import { distanceOf, note, type Note } from '../note.js';
 import { newOdexSolver } from './transient-odex.js';
 import {
   axleSlipForForceRad,
@@ -47,7 +48,7 @@ export interface FollowedLap {
   frontUses: number[];
   rearUses: number[];
   /** Why the car was lost (spin, off the line, stopped), or '' when it was not. */
-  lost: string;
+  lost: Note | '';
   /** The grid sample the lap was followed from. */
   startIndex: number;
   /** The station at which the lap ends, and the lap length by which stations wrap (Infinity on an open lap). */
@@ -58,19 +59,19 @@ export interface FollowedLap {
 }
 
 /** Why the followed car counts as lost at state y, or '' while it still follows the line. */
-function lostReason(y: number[], wrapM: number): string {
+function lostReason(y: number[], wrapM: number): Note | '' {
   // A spin shows as a large sideslip or heading error (the course, heading plus sideslip, can stay on the path).
   const sideslip = Math.atan2(y[3]!, Math.max(y[5]!, 1));
-  const at = (y[0]! % wrapM).toFixed(0);
+  const at = distanceOf(y[0]! % wrapM);
   if (
     Math.abs(sideslip) > SPIN_SIDESLIP_RAD ||
     Math.abs(y[2]!) > SPIN_HEADING_ERROR_RAD ||
     Math.abs(y[2]! + sideslip) > SPIN_HEADING_ERROR_RAD
   )
-    return `the car spins at ${at} m`;
+    return note`the car spins at ${at}`;
   if (Math.abs(y[1]!) > LOST_DEVIATION_M)
-    return `the car leaves the line by more than ${LOST_DEVIATION_M} m at ${at} m`;
-  if (y[5]! < 0.5) return `the car stops at ${at} m`;
+    return note`the car leaves the line by more than ${distanceOf(LOST_DEVIATION_M)} at ${at}`;
+  if (y[5]! < 0.5) return note`the car stops at ${at}`;
   return '';
 }
 
@@ -159,7 +160,7 @@ export function followLap(result: LapResult, car: Car, setup: FollowSetup): Foll
   const steers: number[] = [];
   const frontUses: number[] = [];
   const rearUses: number[] = [];
-  let lost = '';
+  let lost: Note | '' = '';
   const record = (t: number, y: number[]) => {
     evaluate(y);
     times.push(t);

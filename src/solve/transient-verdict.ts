@@ -2,7 +2,7 @@
 // as a share of the room to the track's edge on its side, and the one-line verdict on whether the lap is drivable.
 
 import type { DeviationLimitSource, TransientReference } from './transient-reference.js';
-import { mpsToKph } from '../units.js';
+import { distanceOf, note, speedsOf, type Note } from '../note.js';
 
 export interface DeviationFigures {
   maxDeviationM: number;
@@ -58,7 +58,7 @@ export interface VerdictInput {
   completed: boolean;
   drivable: boolean;
   /** Why the car was lost, or '' when it was not. */
-  lost: string;
+  lost: Note | '';
   /** Where the integration ended, on the lap, and after how many steps. */
   lastLapStationM: number;
   steps: number;
@@ -69,21 +69,20 @@ export interface VerdictInput {
 }
 
 /** The one-line verdict: not drivable (and why), not drivable as computed (the worst deviation), or drivable. */
-export function transientVerdict(v: VerdictInput, d: DeviationFigures): string {
+export function transientVerdict(v: VerdictInput, d: DeviationFigures): Note {
   const side = d.deviationAtShareM >= 0 ? 'left' : 'right';
+  const room = distanceOf(d.roomAtShareM, 2);
   const limitText =
-    v.limitSource === 'fixed'
-      ? `the fixed limit ${d.roomAtShareM.toFixed(2)} m`
-      : `the ${d.roomAtShareM.toFixed(2)} m of room to the ${side} edge`;
-  const worst = `${Math.abs(d.deviationAtShareM).toFixed(2)} m to the ${side} at ${d.maxDeviationShareAtM.toFixed(0)} m, ${(100 * d.maxDeviationShare).toFixed(0)} % of ${limitText}`;
-  let verdict: string;
-  const stalledAt = `the integration stalled at ${v.lastLapStationM.toFixed(0)} m after ${v.steps} steps (the driver model's inputs chatter there)`;
-  if (!v.completed) verdict = `not drivable: ${v.lost || stalledAt}`;
+    v.limitSource === 'fixed' ? note`the fixed limit ${room}` : note`the ${room} of room to the ${side} edge`;
+  const worst = note`${distanceOf(Math.abs(d.deviationAtShareM), 2)} to the ${side} at ${distanceOf(d.maxDeviationShareAtM)}, ${(100 * d.maxDeviationShare).toFixed(0)} % of ${limitText}`;
+  const stalledAt = note`the integration stalled at ${distanceOf(v.lastLapStationM)} after ${v.steps} steps (the driver model's inputs chatter there)`;
+  let verdict: Note;
+  if (!v.completed) verdict = note`not drivable: ${v.lost || stalledAt}`;
   else if (!v.drivable)
-    verdict = `not drivable as computed: the followed car runs ${worst}, at ${mpsToKph(d.speedAtShareMps).toFixed(0)} km/h against the reference's ${mpsToKph(d.referenceSpeedAtShareMps).toFixed(0)} km/h`;
-  else verdict = `drivable: the followed car stays on the track, at most ${worst}`;
+    verdict = note`not drivable as computed: the followed car runs ${worst}, at ${speedsOf([d.speedAtShareMps])} against the reference's ${speedsOf([d.referenceSpeedAtShareMps])}`;
+  else verdict = note`drivable: the followed car stays on the track, at most ${worst}`;
   const critical = v.criticalSpeedMps;
   if (critical !== null && v.referenceMaxSpeedMps > critical)
-    verdict += `; the car is above its critical speed ${mpsToKph(critical).toFixed(0)} km/h`;
+    verdict = note`${verdict}; the car is above its critical speed ${speedsOf([critical])}`;
   return verdict;
 }

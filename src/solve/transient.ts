@@ -9,6 +9,7 @@ import { bicycleParams } from '../car/bicycle-params.js';
 import { understeerGradientRadPerMps2, criticalSpeedMps } from '../car/understeer.js';
 import { ambientFrom } from '../car/ambient.js';
 import { radToDeg } from '../units.js';
+import type { Note } from '../note.js';
 import type { AxleForceLaw } from './transient-model.js';
 import { DEFAULT_DRIVER, type DriverSettings } from './transient-driver.js';
 import { deviationRoom, referenceLookup, type DeviationLimitSource } from './transient-reference.js';
@@ -39,7 +40,8 @@ export interface TransientCheck extends DeviationFigures {
   /** The followed car reached the end of the lap without spinning or leaving the line by more than 25 m. */
   completed: boolean;
   drivable: boolean;
-  verdict: string;
+  /** The verdict with its distances and speeds as quantities (src/report/note-text.ts writes it in any units). */
+  verdict: Note;
   referenceLapTimeS: number;
   /** Lap time of the followed lap (NaN when it did not complete). */
   followedLapTimeS: number;

@@ -2,6 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { trackFromSegments } from '../../src/track/segments.js';
 import { simulate } from '../../src/solve/simulate.js';
 import { criticalSpeedWarning, steeringTraceDeg } from '../../src/solve/steering.js';
+import { noteText } from '../../src/report/note-text.js';
+import { displayUnits } from '../../src/report/units.js';
 import { ambientFrom } from '../../src/car/ambient.js';
 import { STANDARD_GRAVITY_MPS2 as G } from '../../src/units.js';
 import { clubCar } from '../car/bicycle-fixtures.js';
@@ -58,7 +60,11 @@ describe('steering trace', () => {
     const lap = simulate(track, car, { ambient, startSpeedMps: 10 });
     expect(lap.maxSpeedMps * 3.6).toBeGreaterThan(criticalKph);
     const warning = criticalSpeedWarning(lap, car);
-    expect(warning).toContain(`${criticalKph.toFixed(0)} km/h`);
+    expect(warning).not.toBeNull();
+    expect(noteText(warning!)).toContain(`${criticalKph.toFixed(0)} km/h`);
+    // In the reader's units: 1 mph = 0.44704 m/s exactly (NIST SP 811, appendix B).
+    const criticalMph = criticalKph / 3.6 / 0.44704;
+    expect(noteText(warning!, displayUnits('imperial'))).toContain(`critical speed ${criticalMph.toFixed(0)} mph`);
     expect(criticalSpeedWarning(lap, clubCar())).toBeNull();
   });
 });

@@ -86,7 +86,7 @@ export async function runSimulate(values: SimulateValues): Promise<void> {
           { name: 'y_m', values: yM, digits: 3 },
         ]
       : [];
-  const bicycle = bicycleSimulateExtras(result, car, ambient, values.checkTransient === true, offsetM);
+  const bicycle = bicycleSimulateExtras(result, car, ambient, values.checkTransient === true, units, offsetM);
   extraColumns.push(...bicycle.columns);
   const uncertainty =
     draws === null
