@@ -135,6 +135,38 @@ describe('reflap heights', () => {
     expect(readBack.code).toBe(0);
     // The solver's road object carries the height range of the track it read (docs/tracks.md).
     expect(JSON.parse(readBack.stdout).road.heightRangeM).toBeGreaterThan(15);
+
+    // The same profile told in feet under --units imperial (1 ft = 0.3048 m exactly, NIST SP 811, appendix B); the
+    // written track keeps its z_m column in metres, byte for byte.
+    const outFt = path.join(work, 'circuit-heights-ft.csv');
+    const imperial = runCli([
+      'heights',
+      '--track',
+      trackFile,
+      '--telemetry',
+      log,
+      '--out',
+      outFt,
+      '--units',
+      'imperial',
+    ]);
+    expect(imperial.code).toBe(0);
+    expect(readFileSync(outFt, 'utf8')).toBe(readFileSync(out, 'utf8'));
+    /** Each figure with its unit, and half a unit of its last decimal (its rounding). */
+    const figures = (text: string, unit: string) =>
+      [...text.matchAll(new RegExp(`([\\d.]+) ${unit}\\b`, 'g'))].map((match) => ({
+        value: Number(match[1]),
+        rounding: 0.5 * 10 ** -(match[1]!.split('.')[1]?.length ?? 0),
+      }));
+    const metres = figures(run.stdout, 'm');
+    const feet = figures(imperial.stdout, 'ft');
+    expect(feet.length).toBe(metres.length);
+    expect(metres.length).toBeGreaterThanOrEqual(5);
+    expect(figures(imperial.stdout, 'm')).toEqual([]);
+    metres.forEach((m, k) => {
+      const ft = feet[k]!;
+      expect(Math.abs(ft.value * 0.3048 - m.value)).toBeLessThanOrEqual(m.rounding + ft.rounding * 0.3048 + 1e-9);
+    });
   });
 
   it('refuses a log without altitudes in one line, exit code 2, and writes nothing', () => {

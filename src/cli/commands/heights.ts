@@ -7,10 +7,12 @@ import { addTrackOptions, inputFilesOf, loadTrack, numberOption, type TrackOptio
 import { loadSession } from '../telemetry-options.js';
 import { outputBatch } from '../output.js';
 import { placeSession, MATCH_LIMIT_M } from '../../compare/place-session.js';
-import { DEFAULT_HEIGHT_SMOOTHING_M, heightProfile, type HeightProfile } from '../../track/height-profile.js';
+import { DEFAULT_HEIGHT_SMOOTHING_M, heightProfile } from '../../track/height-profile.js';
 import type { TrackGrid } from '../../track/types.js';
+import { heightsText } from '../../report/heights-text.js';
+import { addUnitsOption, unitsOf, type UnitsOptionValues } from '../units-option.js';
 
-interface HeightsValues extends TrackOptionValues {
+interface HeightsValues extends TrackOptionValues, UnitsOptionValues {
   telemetry: string;
   telemetryColumns?: string;
   out: string;
@@ -29,11 +31,13 @@ export function register(program: Command): void {
     .option(
       '--height-smoothing-m <m>',
       `shortest wavelength of the height profile that is kept at half its size, m (default ${DEFAULT_HEIGHT_SMOOTHING_M})`,
-    )
-    .action((values: HeightsValues) => runHeights(values));
+    );
+  addUnitsOption(command);
+  command.action((values: HeightsValues) => runHeights(values));
 }
 
 export async function runHeights(values: HeightsValues): Promise<void> {
+  const units = unitsOf(values);
   const smoothingM = numberOption(values.heightSmoothingM, '--height-smoothing-m', DEFAULT_HEIGHT_SMOOTHING_M);
   if (!(smoothingM >= 10 && smoothingM <= 2000))
     throw new InputError(`option --height-smoothing-m: ${smoothingM} is outside 10 to 2000 m`);
@@ -68,7 +72,7 @@ export async function runHeights(values: HeightsValues): Promise<void> {
   const outputs = outputBatch(inputFilesOf(values));
   outputs.add(values.out, trackCsv(track, profile.zM));
   outputs.commit();
-  process.stdout.write(heightsText(track, profile, values.out));
+  process.stdout.write(heightsText(track, profile, values.out, units));
 }
 
 function trackCsv(track: TrackGrid, zM: Float64Array): string {
@@ -81,28 +85,4 @@ function trackCsv(track: TrackGrid, zM: Float64Array): string {
     lines.push(cells.join(','));
   }
   return lines.join('\n') + '\n';
-}
-
-function heightsText(track: TrackGrid, profile: HeightProfile, out: string): string {
-  let low = Infinity;
-  let high = -Infinity;
-  for (const z of profile.zM) {
-    low = Math.min(low, z);
-    high = Math.max(high, z);
-  }
-  const laps = profile.laps === 1 ? '1 whole lap' : `${profile.laps} whole laps`;
-  const lapPart = Number.isFinite(profile.lapErrorM)
-    ? `; the laps' own profiles, set against each other, leave ±${profile.lapErrorM.toFixed(2)} m`
-    : '; under two whole laps, so the drift of the GPS height over time is not measured';
-  return (
-    `Height profile of ${track.name} from ${profile.fixes} GPS fixes (${laps}): ${(high - low).toFixed(1)} m from lowest to highest, ` +
-    `smoothed over ${profile.smoothingM} m.\n` +
-    `Accuracy about ±${profile.accuracyM.toFixed(2)} m (one standard error): the fixes scatter by ${profile.scatterM.toFixed(2)} m about the profile, ` +
-    `which leaves ±${profile.independentErrorM.toFixed(2)} m if their errors were independent${lapPart}. ` +
-    `The heights are above the receiver's own datum; the grades are what the solver uses.\n` +
-    (profile.emptyStations > 0
-      ? `${profile.emptyStations} of ${track.distanceM.length} stations had no fix and were filled in by the smoothing.\n`
-      : '') +
-    `Track with heights (z_m) written to ${out}\n`
-  );
 }
