@@ -2,35 +2,13 @@
 // person reads: km/h and metres, or mph and feet. Time stays in seconds and grip in per cent in both.
 
 import type { Claim, Finding } from '../compare/types.js';
-import { displayUnits, type DisplayUnits } from './units.js';
+import { displayUnits, phrasing, type DisplayUnits } from './units.js';
 
 const METRIC = displayUnits('metric');
 
 /** A corner as a finding names it: 'corner 3 (Quillon Bend)', or 'corner 3' where the track gives no name. */
 export function findingCornerLabel(corner: { id: number; name: string | null }): string {
   return corner.name ? `corner ${corner.id} (${corner.name})` : `corner ${corner.id}`;
-}
-
-/** The words for numbers in one unit system: a distance and a speed with their unit, rounded for a sentence. */
-export interface Phrasing {
-  /** A distance without its sign, whole units ('12 m', '39 ft'). */
-  distance(distanceM: number, digits?: number): string;
-  /** A signed distance, whole units ('-4 m'). */
-  signedDistance(distanceM: number): string;
-  /** A speed without its sign, whole units ('85 km/h', '53 mph'). */
-  speed(speedMps: number): string;
-  /** A signed speed, whole units. */
-  signedSpeed(speedMps: number): string;
-}
-
-export function phrasing(units: DisplayUnits = METRIC): Phrasing {
-  return {
-    distance: (distanceM, digits = 0) =>
-      `${Math.abs(units.distance(distanceM)).toFixed(digits)} ${units.distanceLabel}`,
-    signedDistance: (distanceM) => `${units.distance(distanceM).toFixed(0)} ${units.distanceLabel}`,
-    speed: (speedMps) => `${Math.abs(units.speed(speedMps)).toFixed(0)} ${units.speedLabel}`,
-    signedSpeed: (speedMps) => `${units.speed(speedMps).toFixed(0)} ${units.speedLabel}`,
-  };
 }
 
 const percent = (share: number) => `${(share * 100).toFixed(0)} %`;

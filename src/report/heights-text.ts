@@ -3,7 +3,7 @@
 
 import type { HeightProfile } from '../track/height-profile.js';
 import type { TrackGrid } from '../track/types.js';
-import { displayUnits, type DisplayUnits } from './units.js';
+import { displayUnits, phrasing, type DisplayUnits } from './units.js';
 
 export function heightsText(
   track: TrackGrid,
@@ -11,8 +11,7 @@ export function heightsText(
   out: string,
   units: DisplayUnits = displayUnits('metric'),
 ): string {
-  const length = (distanceM: number, digits: number) =>
-    `${units.distance(distanceM).toFixed(digits)} ${units.distanceLabel}`;
+  const length = phrasing(units).distance;
   let low = Infinity;
   let high = -Infinity;
   for (const z of profile.zM) {

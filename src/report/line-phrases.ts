@@ -3,7 +3,8 @@
 // on the resolution the log's positions allow. Line distances are small, so they keep one decimal.
 
 import type { DriverLineResult, LineFinding } from '../compare/driver-line/driver-line.js';
-import { findingCornerLabel, phrasing } from './finding-phrases.js';
+import { findingCornerLabel } from './finding-phrases.js';
+import { phrasing } from './units.js';
 import { displayUnits, type DisplayUnits } from './units.js';
 
 /** One line finding as a sentence. */

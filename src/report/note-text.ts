@@ -1,11 +1,10 @@
 // Notes (src/note.ts) as text in the units a person reads: each distance and list of speeds written with its unit.
 
 import type { Note, NoteQuantity } from '../note.js';
-import { displayUnits, type DisplayUnits } from './units.js';
+import { displayUnits, phrasing, type DisplayUnits } from './units.js';
 
 function quantityText(quantity: NoteQuantity, units: DisplayUnits): string {
-  if ('distanceM' in quantity)
-    return `${units.distance(quantity.distanceM).toFixed(quantity.digits)} ${units.distanceLabel}`;
+  if ('distanceM' in quantity) return phrasing(units).signedDistance(quantity.distanceM, quantity.digits);
   return `${quantity.speedsMps.map((speedMps) => units.speed(speedMps).toFixed(0)).join(', ')} ${units.speedLabel}`;
 }
 

@@ -5,7 +5,7 @@ import { roundedNumbers } from './json-numbers.js';
 import type { SaturationZone, TransientCheck } from '../solve/transient.js';
 import { formatLapTime } from '../units.js';
 import { noteText } from './note-text.js';
-import { displayUnits, type DisplayUnits } from './units.js';
+import { displayUnits, phrasing, type DisplayUnits } from './units.js';
 
 /** Stretches closer than this are one event for a reader (a flicker below the threshold mid-corner). */
 const MERGE_GAP_M = 10;
@@ -43,7 +43,7 @@ function axleWords(axle: SaturationZone['axle']): string {
 
 /** The check in a few lines, distances and speeds in the reader's units. */
 export function transientSummaryText(check: TransientCheck, units: DisplayUnits = displayUnits('metric')): string {
-  const at = (distanceM: number, digits = 0) => `${units.distance(distanceM).toFixed(digits)} ${units.distanceLabel}`;
+  const at = phrasing(units).distance;
   const lines = [
     `Transient check (single-track model, driver model following the reference): ${noteText(check.verdict, units)}`,
   ];

@@ -64,3 +64,25 @@ export function plainNumber(value: number, digits: number, signed = false): stri
   if (negative) return `-${text}`;
   return signed && rounded !== 0 ? `+${text}` : text;
 }
+
+/** The words for numbers in one unit system: a distance and a speed with their unit, rounded for a sentence. */
+export interface Phrasing {
+  /** A distance without its sign ('12 m', '39 ft'), whole units unless `digits` says otherwise. */
+  distance(distanceM: number, digits?: number): string;
+  /** A signed distance ('-4 m'), whole units unless `digits` says otherwise. */
+  signedDistance(distanceM: number, digits?: number): string;
+  /** A speed without its sign, whole units ('85 km/h', '53 mph'). */
+  speed(speedMps: number): string;
+  /** A signed speed, whole units. */
+  signedSpeed(speedMps: number): string;
+}
+
+export function phrasing(units: DisplayUnits = metric): Phrasing {
+  return {
+    distance: (distanceM, digits = 0) =>
+      `${Math.abs(units.distance(distanceM)).toFixed(digits)} ${units.distanceLabel}`,
+    signedDistance: (distanceM, digits = 0) => `${units.distance(distanceM).toFixed(digits)} ${units.distanceLabel}`,
+    speed: (speedMps) => `${Math.abs(units.speed(speedMps)).toFixed(0)} ${units.speedLabel}`,
+    signedSpeed: (speedMps) => `${units.speed(speedMps).toFixed(0)} ${units.speedLabel}`,
+  };
+}
