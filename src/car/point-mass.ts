@@ -119,10 +119,7 @@ class PointMassEnvelope implements Envelope {
 
   /** mu under this load as a share of mu (loadSensitiveMu's factor), once for both directions. */
   private muShareAt(loadN: number): number {
-    const { sensitivity, weightN } = this;
-    if (sensitivity === 0) return 1;
-    const share = 1 - (sensitivity * (loadN - weightN)) / weightN;
-    return share > 0.2 ? share : 0.2;
+    return loadSensitiveMu(1, loadN, this.weightN, this.sensitivity);
   }
 
   private lateralCapOf(loadN: number, muShare: number): number {

@@ -244,7 +244,7 @@ const kit = { number, string, array, strictObject, enum: choice, record, tuple }
 
 /**
  * The kit in zod's clothes: the car schema is written once against zod's types and built with either. Only the
- * calls that schema makes exist here; the test above holds their results to zod's.
+ * calls that schema makes exist here; test/io/quick-schema.test.ts holds their results to zod's.
  */
 export function quickSchemaKit(): Zod {
   return kit as unknown as Zod;
