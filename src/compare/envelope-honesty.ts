@@ -1,9 +1,9 @@
 // Checks on every demonstrated envelope fitted from a log. The driver drove inside the grip they showed, so the
-// lap on that envelope cannot be slower than the driven lap: where it is (by more than 0.5 %), the fit has
-// under-read the log and its limits are raised, by bisection on one common factor, to the least that matches the
-// driven lap. It can be faster only by what the driver left on the table: a lap more than 3 % faster than the car
-// model's, or a driver's peak grip use over 130 % of the car model, points at the data or the car file, and the
-// numbers carry that caveat.
+// lap on that envelope cannot be slower than the driven lap: where it is, the fit has under-read the log and its
+// limits are raised by one common factor, found by the Illinois method, to the least that matches the driven lap.
+// It can be faster only by what the driver left on the table: a lap more than 3 % faster than the car model's, or a
+// driver's peak grip use over 130 % of the car model, points at the data or the car file, and the numbers carry
+// that caveat.
 
 import type { Car } from '../car/types.js';
 import type { Envelope } from '../car/envelope.js';
@@ -14,7 +14,6 @@ import type { TrackGrid } from '../track/types.js';
 import type { DriverLap } from './types.js';
 import { formatLapTime } from '../units.js';
 
-export const SLOWER_TOLERANCE = 0.005;
 export const FASTER_THAN_MODEL_LIMIT = 0.03;
 export const PEAK_GRIP_USE_LIMIT = 1.3;
 /** Largest factor the limits are raised by; beyond it the mismatch is not the fit's. */

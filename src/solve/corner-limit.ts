@@ -88,8 +88,8 @@ export function cornerLimitSpeedMps(envelope: Envelope, curvaturePerM: number): 
 /**
  * The corner limit of each sample of a three-dimensional road in turn, with one margin function for the whole lap
  * (a closure per sample is garbage per sample). The road's load and lateral force at speed v are
- * l0 + l1 v^2 / g and d1 v^2 - d0 with the path's coefficients (PathRoad), the same numbers roadLoadFactor and
- * roadLateralMps2 give.
+ * l0 + l1 v^2 / g and d1 v^2 - d0 with the path's coefficients (PathRoad), the load being the number roadLoadFactor
+ * gives.
  */
 function roadLimitSolver(envelope: Envelope, along: PathRoad): (i: number, curvaturePerM: number) => number {
   const road = along.road;

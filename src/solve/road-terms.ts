@@ -66,21 +66,14 @@ export function roadLoadFactor(road: RoadTerms, i: number, v2: number, curvature
   );
 }
 
-/** Lateral force per unit mass the tyres must give along the surface, m/s^2, signed as the curvature. */
-export function roadLateralMps2(road: RoadTerms, i: number, v2: number, curvaturePerM: number): number {
-  return (
-    v2 * (curvaturePerM * road.cosBank[i]! - road.verticalCurvaturePerM[i]! * road.sinBank[i]!) -
-    road.gravityLateralMps2[i]!
-  );
-}
-
 /** The road along one driven path: its curvature folded into the two speed-squared coefficients of the load and
  * the lateral force, once per solve, so each step of the passes reads two numbers where it would compute them. */
 export interface PathRoad {
   road: RoadTerms;
   /** k sin(bank) + kv cos(bank), 1/m: times v^2 / g, the load the speed adds. */
   loadPerV2: Float64Array;
-  /** k cos(bank) - kv sin(bank), 1/m: times v^2, the lateral force the speed asks for. */
+  /** k cos(bank) - kv sin(bank), 1/m: times v^2, less the gravity's lateral share, the lateral force per unit mass
+   * the tyres must give along the surface, signed as the curvature. */
   lateralPerV2: Float64Array;
 }
 
@@ -101,7 +94,7 @@ function pathRoadOnce(road: RoadTerms, curvaturePerM: Float64Array): PathRoad {
   const lateralPerV2 = new Float64Array(n);
   for (let i = 0; i < n; i++) {
     const k = curvaturePerM[i]!;
-    // The same products in the same order as roadLoadFactor and roadLateralMps2: the same limits to the last bit.
+    // The same products in the same order as roadLoadFactor: the same limits to the last bit.
     loadPerV2[i] = k * road.sinBank[i]! + road.verticalCurvaturePerM[i]! * road.cosBank[i]!;
     lateralPerV2[i] = k * road.cosBank[i]! - road.verticalCurvaturePerM[i]! * road.sinBank[i]!;
   }
