@@ -45,7 +45,7 @@ const PACKED_INDICES = 2 ** 22;
  * several times faster than a sort with a comparator; ties closer than 1e-6 keep index order, which no quantile
  * can tell apart. Longer logs take the comparator.
  */
-export function increasingOrder(values: Float64Array): Uint32Array {
+function increasingOrder(values: Float64Array): Uint32Array {
   const n = values.length;
   if (n > PACKED_INDICES) return Uint32Array.from(values.keys()).sort((a, b) => values[a]! - values[b]!);
   const keys = new Float64Array(n);
@@ -68,7 +68,7 @@ export interface CellFigure {
 }
 
 /** Weight of sample i in a kind's cell, before its speed weight. */
-export function kindWeight(samples: MovingSamples, i: number, kind: number): number {
+function kindWeight(samples: MovingSamples, i: number, kind: number): number {
   const w = samples.sectorWeight;
   return kind === LATERAL ? w[4 * i + 2]! + w[4 * i + 3]! : w[4 * i + kind]!;
 }
@@ -81,7 +81,7 @@ export interface Kernels {
 }
 
 /** Cells (flat index) and weights of sample i in one kind under every kernel, into `out`; returns how many. */
-export function cellsOf(samples: MovingSamples, i: number, kind: number, kernels: Kernels, out: CellBuffer): number {
+function cellsOf(samples: MovingSamples, i: number, kind: number, kernels: Kernels, out: CellBuffer): number {
   const sector = kindWeight(samples, i, kind);
   if (!(sector > 0)) return 0;
   const position = samples.speedMps[i]! / kernels.widthMps - 0.5;
@@ -102,7 +102,7 @@ export function cellsOf(samples: MovingSamples, i: number, kind: number, kernels
   return count;
 }
 
-export interface CellBuffer {
+interface CellBuffer {
   cells: Int32Array;
   weights: Float64Array;
 }
