@@ -19,7 +19,9 @@ export interface Envelope {
   /** Largest net forward acceleration at this speed while using lateralMps2 (signed) for turning, m/s^2;
    * net of drag and rolling resistance, so it may be negative near top speed. */
   accelLimitMps2(speedMps: number, lateralMps2: number, loadFactor?: number): number;
-  /** Largest net deceleration at this speed while turning with lateralMps2, m/s^2, positive; drag helps. */
+  /** Largest net deceleration at this speed while turning with lateralMps2, m/s^2, positive; drag helps. Never less
+   * than coastDecelMps2 at the same speed and a positive load factor (the tyres' braking force is never negative): the
+   * solver skips the braking limit on a descent that coasting alone holds the car on. */
   brakeLimitMps2(speedMps: number, lateralMps2: number, loadFactor?: number): number;
   /** Deceleration with neither drive nor brakes (drag plus rolling resistance), m/s^2, positive. */
   coastDecelMps2(speedMps: number, loadFactor?: number): number;

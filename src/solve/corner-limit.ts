@@ -5,7 +5,7 @@
 // solved by the Illinois variant of regula falsi (Dowell and Jarratt, BIT 11 (1971) 168-174) on a bracket.
 
 import type { Envelope } from '../car/envelope.js';
-import { roadLoadFactor, type PathRoad, type RoadTerms } from './road-terms.js';
+import { roadLoadFactor, type PathRoad } from './road-terms.js';
 import { STANDARD_GRAVITY_MPS2 as G } from '../units.js';
 
 const CURVATURE_FLOOR_PER_M = 1e-7;
@@ -140,17 +140,6 @@ function roadLimitSolver(envelope: Envelope, along: PathRoad): (i: number, curva
   };
 }
 
-/** Whether samples i and j have the same grade, bank and vertical curvature (every road term the limit reads). */
-function sameRoad(road: RoadTerms, i: number, j: number): boolean {
-  return (
-    road.gravityNormalShare[i] === road.gravityNormalShare[j] &&
-    road.gravityLateralMps2[i] === road.gravityLateralMps2[j] &&
-    road.sinBank[i] === road.sinBank[j] &&
-    road.cosBank[i] === road.cosBank[j] &&
-    road.verticalCurvaturePerM[i] === road.verticalCurvaturePerM[j]
-  );
-}
-
 export function cornerLimitProfile(
   envelope: Envelope,
   curvaturePerM: Float64Array,
@@ -158,12 +147,12 @@ export function cornerLimitProfile(
   along: PathRoad | null = null,
 ): Float64Array {
   if (along) {
-    const road = along.road;
+    const sameRoad = along.road.sameAsBefore;
     const limitAt = roadLimitSolver(envelope, along);
     // As on flat ground, a sample whose curvature and road are those of the one before has its limit.
     for (let i = 0; i < curvaturePerM.length; i++)
       out[i] =
-        i > 0 && curvaturePerM[i] === curvaturePerM[i - 1] && sameRoad(road, i, i - 1)
+        i > 0 && curvaturePerM[i] === curvaturePerM[i - 1] && sameRoad[i] === 1
           ? out[i - 1]!
           : limitAt(i, curvaturePerM[i]!);
     return out;

@@ -21,6 +21,8 @@ export interface RoadTerms {
   sinBank: Float64Array;
   cosBank: Float64Array;
   verticalCurvaturePerM: Float64Array;
+  /** 1 where every term above equals the sample before's (a constant grade, bank and vertical curvature), else 0. */
+  sameAsBefore: Uint8Array;
 }
 
 const computed = new WeakMap<RoadProfile, RoadTerms>();
@@ -45,6 +47,7 @@ function roadTermsOnce(profile: RoadProfile): RoadTerms {
     sinBank: new Float64Array(n),
     cosBank: new Float64Array(n),
     verticalCurvaturePerM: profile.verticalCurvaturePerM.slice(),
+    sameAsBefore: new Uint8Array(n),
   };
   for (let i = 0; i < n; i++) {
     const grade = profile.gradeRad[i]!;
@@ -54,6 +57,8 @@ function roadTermsOnce(profile: RoadProfile): RoadTerms {
     terms.gravityLateralMps2[i] = G * Math.cos(grade) * Math.sin(bank);
     terms.sinBank[i] = Math.sin(bank);
     terms.cosBank[i] = Math.cos(bank);
+    if (i > 0 && grade === profile.gradeRad[i - 1] && bank === profile.bankRad[i - 1])
+      terms.sameAsBefore[i] = terms.verticalCurvaturePerM[i] === terms.verticalCurvaturePerM[i - 1] ? 1 : 0;
   }
   return terms;
 }

@@ -17,6 +17,7 @@ import { simulate, simulateLapTime } from '../../src/solve/simulate.js';
 import { ambientFrom } from '../../src/car/ambient.js';
 import { driveForceTable } from '../../src/car/drive-force.js';
 import { STANDARD_GRAVITY_MPS2 } from '../../src/units.js';
+import { roadProfileOf } from '../../src/track/road-profile.js';
 import type { Ambient, Car } from '../../src/car/types.js';
 import type { TrackGrid } from '../../src/track/types.js';
 
@@ -34,27 +35,34 @@ function plainPointMass(car: Car, ambient: Ambient) {
   const halfRho = 0.5 * ambient.airDensityKgPerM3;
   const n = car.tyre.ggExponent;
   const engine = driveForceTable(car, ambient.powerFactor);
-  const normal = (v: number) => Math.max(0.1 * weight, weight + halfRho * car.aero.liftAreaM2 * v * v);
+  // l: the road's normal force as a share of the weight on level ground (1 on a flat road).
+  const normal = (v: number, l = 1) => Math.max(0.1 * weight, weight * l + halfRho * car.aero.liftAreaM2 * v * v);
   const mu = (base: number, load: number) =>
     car.tyre.loadSensitivity === 0
       ? base
       : base * Math.max(0.2, 1 - (car.tyre.loadSensitivity * (load - weight)) / weight);
-  const lateral = (v: number) => (mu(car.tyre.muLat, normal(v)) * normal(v)) / m;
-  const drivenLoad = (v: number) => {
-    const downforce = normal(v) - weight;
+  const lateral = (v: number, l = 1) => (mu(car.tyre.muLat, normal(v, l)) * normal(v, l)) / m;
+  const drivenLoad = (v: number, l: number) => {
+    const downforce = normal(v, l) - weight * l;
     const front =
-      weight * car.frontWeightFraction + downforce * (car.aero.frontDownforceFraction ?? car.frontWeightFraction);
-    return car.powertrain.drive === 'all' ? normal(v) : car.powertrain.drive === 'front' ? front : normal(v) - front;
+      weight * l * car.frontWeightFraction + downforce * (car.aero.frontDownforceFraction ?? car.frontWeightFraction);
+    return car.powertrain.drive === 'all'
+      ? normal(v, l)
+      : car.powertrain.drive === 'front'
+        ? front
+        : normal(v, l) - front;
   };
-  const coast = (v: number) => (halfRho * car.aero.dragAreaM2 * v * v + car.rollingResistanceCoeff * normal(v)) / m;
+  const coast = (v: number, l = 1) =>
+    (halfRho * car.aero.dragAreaM2 * v * v + car.rollingResistanceCoeff * normal(v, l)) / m;
   // The share of the tyre left for the other direction on the ellipse: (1 - u^n)^(1/n).
-  const left = (v: number, ay: number) => {
-    const used = Math.abs(ay) / lateral(v);
+  const left = (v: number, ay: number, l: number) => {
+    const used = Math.abs(ay) / lateral(v, l);
     return used >= 1 ? 0 : Math.pow(1 - Math.pow(used, n), 1 / n);
   };
   const brakeCap = car.brakes.maxDecelG === null ? Infinity : car.brakes.maxDecelG * STANDARD_GRAVITY_MPS2;
-  const accel = (v: number, ay: number) =>
-    Math.min((mu(car.tyre.muLong, normal(v)) * drivenLoad(v) * left(v, ay)) / m, engine.forceN(v) / m) - coast(v);
+  const accel = (v: number, ay: number, l = 1) =>
+    Math.min((mu(car.tyre.muLong, normal(v, l)) * drivenLoad(v, l) * left(v, ay, l)) / m, engine.forceN(v) / m) -
+    coast(v, l);
   // Top speed: where the net acceleration on a straight reaches zero, by bisection.
   let top = 250;
   if (!(accel(top, 0) > 0)) {
@@ -70,29 +78,44 @@ function plainPointMass(car: Car, ambient: Ambient) {
     top,
     lateral,
     accel,
-    brake: (v: number, ay: number) =>
-      Math.min(brakeCap, (mu(car.tyre.muLong, normal(v)) * normal(v)) / m) * left(v, ay) + coast(v),
+    brake: (v: number, ay: number, l = 1) =>
+      Math.min(brakeCap, (mu(car.tyre.muLong, normal(v, l)) * normal(v, l)) / m) * left(v, ay, l) + coast(v, l),
     coast,
     gearAt: (speedMps: number) => engine.gearAt(speedMps),
   };
 }
 
-/** The lap by the method as published: corner limits, forward pass, backward pass, the lower of the two. */
+/** The lap by the method as published: corner limits, forward pass, backward pass, the lower of the two. On a
+ * road with grade a, bank t and vertical curvature kv (roadProfileOf's) each limit takes the road's load share
+ * l = cos a cos t + v^2 (k sin t + kv cos t) / g and the lateral force v^2 (k cos t - kv sin t) - g cos a sin t, and
+ * gravity pulls g sin a back along the path (the inclined-plane and banked-curve balances; any mechanics textbook). */
 function plainLap(track: TrackGrid, car: Car): { speeds: number[]; lapTimeS: number } {
   const physics = plainPointMass(car, ambientFrom());
   const count = track.distanceM.length;
   const k = Array.from(track.curvaturePerM);
   const ds = track.stepM;
   const top = physics.top;
-  // Corner limit: the largest v with v^2 |k| within the lateral limit, by bisection until the bracket cannot shrink.
-  const limit = k.map((kappa) => {
-    if (Math.abs(kappa) < 1e-7 || top * top * Math.abs(kappa) <= physics.lateral(top)) return top;
+  const g = STANDARD_GRAVITY_MPS2;
+  const road = roadProfileOf(track);
+  const grade = (i: number) => road?.gradeRad[i] ?? 0;
+  const bank = (i: number) => road?.bankRad[i] ?? 0;
+  const crest = (i: number) => road?.verticalCurvaturePerM[i] ?? 0;
+  const load = (i: number, v: number) =>
+    Math.cos(grade(i)) * Math.cos(bank(i)) + (v * v * (k[i]! * Math.sin(bank(i)) + crest(i) * Math.cos(bank(i)))) / g;
+  const sideways = (i: number, v: number) =>
+    v * v * (k[i]! * Math.cos(bank(i)) - crest(i) * Math.sin(bank(i))) - g * Math.cos(grade(i)) * Math.sin(bank(i));
+  const pull = (i: number) => g * Math.sin(grade(i));
+  // Corner limit: the largest v whose lateral force fits the lateral limit under its load, by bisection until the
+  // bracket cannot shrink.
+  const fits = (i: number, v: number) => load(i, v) > 0 && Math.abs(sideways(i, v)) <= physics.lateral(v, load(i, v));
+  const limit = k.map((_, i) => {
+    if (fits(i, top)) return top;
     let lo = 0;
     let hi = top;
     for (let it = 0; it < 2000; it++) {
       const mid = 0.5 * (lo + hi);
       if (mid <= lo || mid >= hi) break;
-      if (mid * mid * Math.abs(kappa) <= physics.lateral(mid)) lo = mid;
+      if (fits(i, mid)) lo = mid;
       else hi = mid;
     }
     return lo;
@@ -112,15 +135,14 @@ function plainLap(track: TrackGrid, car: Car): { speeds: number[]; lapTimeS: num
     let shiftLeftS = 0;
     for (let step = 0, i = first; step < count; step++, i = next(i)) {
       const v = forward[i]!;
-      const ay = v * v * k[i]!;
-      let a = physics.accel(v, ay);
+      let a = physics.accel(v, sideways(i, v), load(i, v));
       const shifting = shiftLeftS > 0;
       if (shifting) {
         const coastShare = Math.min(1, shiftLeftS / (ds / Math.max(v, 0.5)));
-        a = -coastShare * physics.coast(v) + (1 - coastShare) * a;
+        a = -coastShare * physics.coast(v, load(i, v)) + (1 - coastShare) * a;
         shiftLeftS -= ds / Math.max(v, 0.5);
       }
-      const reached = Math.min(Math.sqrt(Math.max(0, v * v + 2 * a * ds)), limit[next(i)]!);
+      const reached = Math.min(Math.sqrt(Math.max(0, v * v + 2 * (a - pull(i)) * ds)), limit[next(i)]!);
       if (shiftTimeS > 0 && !shifting) {
         const nextGear = physics.gearAt(reached);
         if (nextGear > gear && reached > v) shiftLeftS = shiftTimeS;
@@ -141,7 +163,8 @@ function plainLap(track: TrackGrid, car: Car): { speeds: number[]; lapTimeS: num
   for (let step = 0, j = first; step < count; step++, j = before(j)) {
     const h = before(j);
     const exit = backward[j]!;
-    const entry = (v: number) => Math.sqrt(Math.max(0, exit * exit + 2 * physics.brake(v, v * v * k[h]!) * ds));
+    const entry = (v: number) =>
+      Math.sqrt(Math.max(0, exit * exit + 2 * (physics.brake(v, sideways(h, v), load(h, v)) + pull(h)) * ds));
     let v = entry(exit);
     if (v > exit && entry(v) < v) {
       // The braking limit falls with speed here (lateral demand grows as v^2): the root lies between.
@@ -184,6 +207,25 @@ function expectAgreement(track: TrackGrid): void {
 describe('the solver against the plain method on the demo tracks (1 m)', () => {
   it.each(demoTrackFiles)('%s', (file) => {
     expectAgreement(readTrackFile(path.join(projectRoot, 'tracks', file), { stepM: 1 }));
+  });
+});
+
+/** The track with heights and banks as a surveyed centreline file would give them: three hills a lap whose descents
+ * reach 12 % (steeper than drag and rolling resistance hold the car on at low speed, so the backward pass must ask
+ * whether the brakes can), and a bank rocking between 5.7 degrees each way. */
+function hillyAndBanked(track: TrackGrid): TrackGrid {
+  const lapM = track.lengthM;
+  const wave = (s: number, waves: number) => (2 * Math.PI * waves * s) / lapM;
+  return {
+    ...track,
+    zM: track.distanceM.map((s) => ((0.12 * lapM) / (2 * Math.PI * 3)) * Math.sin(wave(s, 3))),
+    bankRad: track.distanceM.map((s) => 0.1 * Math.sin(wave(s, 2))),
+  };
+}
+
+describe('the solver against the plain method on the demo tracks with hills and banks (1 m)', () => {
+  it.each(demoTrackFiles)('%s', (file) => {
+    expectAgreement(hillyAndBanked(readTrackFile(path.join(projectRoot, 'tracks', file), { stepM: 1 })));
   });
 });
 
