@@ -15,7 +15,7 @@ import type { Ambient, Car } from '../src/car/types.js';
 import type { TrackGrid } from '../src/track/types.js';
 import { buildEnvelope } from '../src/car/build-envelope.js';
 import { ambientFrom } from '../src/car/ambient.js';
-import { linearityVerdict, machineLoad, medianTimes, peakRssMb, verdict } from './stats.js';
+import { linearityVerdict, machineLoad, medianTimes, pairedMedianTimes, peakRssMb, verdict } from './stats.js';
 
 const projectRoot = fileURLToPath(new URL('../..', import.meta.url));
 
@@ -194,8 +194,12 @@ function roadCost(
   const hilly = lapOf(benchmarkCircuitSegments3d());
   let flatLapS = 0;
   let hillyLapS = 0;
-  const flatTiming = medianTimes(() => (flatLapS = simulate(flat, car, { ambient, envelope }).lapTimeS), 40, 20);
-  const hillyTiming = medianTimes(() => (hillyLapS = simulate(hilly, car, { ambient, envelope }).lapTimeS), 40, 20);
+  const [flatTiming, hillyTiming] = pairedMedianTimes(
+    () => (flatLapS = simulate(flat, car, { ambient, envelope }).lapTimeS),
+    () => (hillyLapS = simulate(hilly, car, { ambient, envelope }).lapTimeS),
+    60,
+    20,
+  );
   process.stdout.write(
     `simulate 3D: flat ${flatTiming.wallMs.toFixed(2)} ms wall / ${flatTiming.cpuMs.toFixed(2)} ms CPU (lap ${flatLapS.toFixed(3)} s); ` +
       `grades and banks ${hillyTiming.wallMs.toFixed(2)} ms wall / ${hillyTiming.cpuMs.toFixed(2)} ms CPU (lap ${hillyLapS.toFixed(3)} s)\n`,

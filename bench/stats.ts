@@ -38,6 +38,27 @@ export function medianTimes(work: () => void, runs = 20, warmup = 5): Timing {
   return { wallMs: median(wall), cpuMs: median(cpu) };
 }
 
+/** Median wall and CPU times of two pieces of work timed in turn, run for run, so that a shared machine's load
+ * weighs on both alike when they are compared (one after the other, a change of load between them reads as a cost). */
+export function pairedMedianTimes(first: () => void, second: () => void, runs = 20, warmup = 5): [Timing, Timing] {
+  for (let k = 0; k < warmup; k++) {
+    first();
+    second();
+  }
+  const samples = [first, second].map(() => ({ wall: [] as number[], cpu: [] as number[] }));
+  for (let k = 0; k < runs; k++)
+    [first, second].forEach((work, j) => {
+      const cpuStart = process.cpuUsage();
+      const start = process.hrtime.bigint();
+      work();
+      samples[j]!.wall.push(Number(process.hrtime.bigint() - start) / 1e6);
+      const used = process.cpuUsage(cpuStart);
+      samples[j]!.cpu.push((used.user + used.system) / 1000);
+    });
+  const [a, b] = samples.map(({ wall, cpu }) => ({ wallMs: median(wall), cpuMs: median(cpu) }));
+  return [a!, b!];
+}
+
 /** Wall and CPU time of one awaited piece of work, ms. */
 export async function timeOnce<T>(work: () => Promise<T> | T): Promise<{ value: T } & Timing> {
   const cpuStart = process.cpuUsage();
