@@ -4,4 +4,4 @@
 set -euo pipefail
 cd "$(dirname "$0")/.."
 npm run build --silent
-REFLAP_UPDATE_PAGE_IMAGES=1 npx vitest run test/browser/page-images.test.ts
+REFLAP_UPDATE_PAGE_IMAGES=1 npx vitest run test/browser/report-pages.test.ts -t 'laid out as its reference image'

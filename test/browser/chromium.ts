@@ -1,11 +1,13 @@
 // The browser the report tests drive: Debian's Chromium through playwright-core, headless, with a fresh
 // profile and background networking off; a page opened from disk records console problems, dialogs and requests.
+// One browser serves every report check of the run (test/browser/report-pages.test.ts): starting it costs more CPU
+// than most of the checks it serves.
 
-import { existsSync, mkdtempSync, rmSync } from 'node:fs';
+import { existsSync, mkdirSync, mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
-import { pathToFileURL } from 'node:url';
-import { afterAll, beforeAll } from 'vitest';
+import { fileURLToPath, pathToFileURL } from 'node:url';
+import { afterAll } from 'vitest';
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
 
 export const CHROMIUM = '/usr/bin/chromium';
@@ -62,22 +64,38 @@ export async function openFile(context: BrowserContext, file: string): Promise<O
   return { page, problems, dialogs, requests };
 }
 
-/** A fresh browser for the describe block that calls this: launched with a new profile before its tests, closed
- * and the profile removed after them. Call it before the block's own hooks that open pages. */
-export function useChromium(): { open: (file: string) => Promise<OpenedPage>; context: () => BrowserContext } {
-  let context: BrowserContext | undefined;
+export interface Chromium {
+  /** Opens FILE in a new tab that records its console problems, dialogs and requests. */
+  open: (file: string) => Promise<OpenedPage>;
+  /** A blank tab kept open for work on images (page-image.ts), opened at its first use. */
+  scratch: () => Promise<Page>;
+}
+
+/** A fresh browser for the describe block that calls this: launched with a new profile when a test first opens a
+ * page (so a run that filters those tests out starts none), closed and the profile removed after the block. */
+export function useChromium(): Chromium {
   let profile: string | undefined;
-  beforeAll(async () => {
-    profile = mkdtempSync(path.join(tmpdir(), 'reflap-chromium-'));
-    context = await launchChromium(profile);
-  });
+  let launched: Promise<BrowserContext> | undefined;
+  let scratch: Promise<Page> | undefined;
+  const context = () => (launched ??= launchChromium((profile = mkdtempSync(path.join(tmpdir(), 'reflap-chromium-')))));
   afterAll(async () => {
-    await context?.close();
+    // A launch that failed has failed the test that asked for it already.
+    await (await launched?.catch(() => undefined))?.close();
     if (profile) rmSync(profile, { recursive: true, force: true });
   });
-  const opened = (): BrowserContext => {
-    if (!context) throw new Error('useChromium: the browser is opened in beforeAll; use it inside hooks or tests');
-    return context;
+  return {
+    open: async (file) => openFile(await context(), file),
+    scratch: () => (scratch ??= context().then((opened) => opened.newPage())),
   };
-  return { open: (file) => openFile(opened(), file), context: opened };
+}
+
+/** Where screenshots for a person to look at go (gitignored). */
+export const SCREENSHOT_FOLDER = path.join(path.dirname(fileURLToPath(import.meta.url)), '..', '..', 'test-output');
+
+/** Saves a full-page screenshot as test-output/NAME.png when REFLAP_TEST_SCREENSHOTS=1; a check reads none of them,
+ * so a plain run does not pay for them (about half a second of CPU each for a lap report). */
+export async function saveScreenshot(page: Page, name: string): Promise<void> {
+  if (process.env.REFLAP_TEST_SCREENSHOTS !== '1') return;
+  mkdirSync(SCREENSHOT_FOLDER, { recursive: true });
+  await page.screenshot({ path: path.join(SCREENSHOT_FOLDER, `${name}.png`), fullPage: true });
 }

@@ -6,7 +6,7 @@
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
-import type { BrowserContext, Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 
 export const PAGE_IMAGE_FOLDER = path.join(path.dirname(fileURLToPath(import.meta.url)), 'page-images');
 export const UPDATE_PAGE_IMAGES = process.env.REFLAP_UPDATE_PAGE_IMAGES === '1';
@@ -100,29 +100,21 @@ async function difference(scratch: Page, actual: string, reference: string): Pro
 
 /**
  * The page's thumbnail against test/browser/page-images/NAME.png; with REFLAP_UPDATE_PAGE_IMAGES=1 the reference is
- * written instead (and null returned). The page should be laid out at PAGE_VIEWPORT and in its initial state.
+ * written instead (and null returned). The page should be laid out at PAGE_VIEWPORT and in its initial state. The
+ * images are scaled and compared in SCRATCH, a blank tab (a report page's own content policy refuses data: images).
  */
-export async function comparePageImage(
-  context: BrowserContext,
-  page: Page,
-  name: string,
-): Promise<ImageDifference | null> {
+export async function comparePageImage(scratch: Page, page: Page, name: string): Promise<ImageDifference | null> {
   await page.setViewportSize(PAGE_VIEWPORT);
   const png = await page.screenshot({ fullPage: true, animations: 'disabled', caret: 'hide' });
-  const scratch = await context.newPage();
-  try {
-    const thumbnail = await thumbnailOf(scratch, png, THUMBNAIL_WIDTH);
-    const file = path.join(PAGE_IMAGE_FOLDER, `${name}.png`);
-    if (UPDATE_PAGE_IMAGES) {
-      mkdirSync(PAGE_IMAGE_FOLDER, { recursive: true });
-      writeFileSync(file, Buffer.from(thumbnail.dataUrl.split(',')[1]!, 'base64'));
-      return null;
-    }
-    if (!existsSync(file))
-      throw new Error(`${file} is missing: write the reference images with scripts/update-page-images.sh`);
-    const reference = `data:image/png;base64,${readFileSync(file).toString('base64')}`;
-    return await difference(scratch, thumbnail.dataUrl, reference);
-  } finally {
-    await scratch.close();
+  const thumbnail = await thumbnailOf(scratch, png, THUMBNAIL_WIDTH);
+  const file = path.join(PAGE_IMAGE_FOLDER, `${name}.png`);
+  if (UPDATE_PAGE_IMAGES) {
+    mkdirSync(PAGE_IMAGE_FOLDER, { recursive: true });
+    writeFileSync(file, Buffer.from(thumbnail.dataUrl.split(',')[1]!, 'base64'));
+    return null;
   }
+  if (!existsSync(file))
+    throw new Error(`${file} is missing: write the reference images with scripts/update-page-images.sh`);
+  const reference = `data:image/png;base64,${readFileSync(file).toString('base64')}`;
+  return difference(scratch, thumbnail.dataUrl, reference);
 }
