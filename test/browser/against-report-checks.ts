@@ -112,7 +112,6 @@ export function describeAgainstReport(browser: Chromium, pages: ReportPages): vo
       expect(problems).toEqual([]);
       expect(dialogs).toEqual([]);
       expect(requests.filter((url) => !url.startsWith('file:'))).toEqual([]);
-      await page.close();
     });
   });
 }

@@ -213,7 +213,6 @@ export function describeLabels(browser: Chromium, pages: ReportPages): void {
         ]),
       );
       expect(opened.problems).toEqual([]);
-      await car.close();
     });
   });
 }

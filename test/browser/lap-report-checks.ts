@@ -97,7 +97,6 @@ export function describeLapReport(browser: Chromium, pages: ReportPages): void {
       expect(problems).toEqual([]);
       expect(dialogs).toEqual([]);
       expect(requests.filter((url) => !url.startsWith('file:'))).toEqual([]);
-      await page.close();
     });
 
     it('runs nothing injected through car, track and corner names', async () => {
@@ -124,7 +123,6 @@ export function describeLapReport(browser: Chromium, pages: ReportPages): void {
       expect(dialogs).toEqual([]);
       expect(problems).toEqual([]);
       expect(requests.filter((url) => !url.startsWith('file:'))).toEqual([]);
-      await page.close();
     });
 
     it('shows a reference lap alone without errors', async () => {
@@ -140,7 +138,6 @@ export function describeLapReport(browser: Chromium, pages: ReportPages): void {
       expect(await page.$eval('#zoom-reset', (b) => (b as HTMLButtonElement).disabled)).toBe(false);
       await saveScreenshot(page, 'reference-report');
       expect(problems).toEqual([]);
-      await page.close();
     });
   });
 }

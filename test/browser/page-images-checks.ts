@@ -138,7 +138,6 @@ export function describePageImages(browser: Chromium, pages: ReportPages, sessio
         expect(problems).toEqual([]);
         expect(dialogs).toEqual([]);
         expect(requests.filter((url) => !url.startsWith('file:'))).toEqual([]);
-        await page.close();
       });
     }
   });

@@ -89,7 +89,6 @@ export function describeSweepReport(browser: Chromium, pages: ReportPages): void
       expect(dialogs).toEqual([]);
       expect(requests.filter((url) => !url.startsWith('file:'))).toEqual([]);
       await saveScreenshot(page, 'sweep-report');
-      await page.close();
     });
 
     it('opens a one-at-a-time sweep page and a what-if page with every chart drawn', async () => {
@@ -140,7 +139,6 @@ export function describeSweepReport(browser: Chromium, pages: ReportPages): void
         expect(problems).toEqual([]);
         expect(requests.filter((url) => !url.startsWith('file:'))).toEqual([]);
         await saveScreenshot(page, file === whatif ? 'whatif-report' : 'sweep-oat-report');
-        await page.close();
       }
     });
   });
