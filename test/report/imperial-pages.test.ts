@@ -3,7 +3,7 @@
 // checked against the metric run of the same command through the exact definitions 1 mph = 0.44704 m/s and
 // 1 ft = 0.3048 m (NIST SP 811, appendix B), never against the program's own imperial output.
 
-import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -29,16 +29,42 @@ beforeAll(() => {
 });
 afterAll(() => rmSync(folder, { recursive: true, force: true }));
 
-/** Runs a command twice, metric and imperial, each writing FILE (the name given); returns both files' text. */
-function both(args: string[], flag: '--html' | '--out', name: string): { metric: string; imperial: string } {
-  const run = (units: string) => {
-    const file = path.join(folder, `${units}-${name}`);
-    const result = runCli([...args, flag, file, '--units', units]);
-    expect(result.code, result.stderr).toBe(0);
-    return file;
-  };
-  return { metric: readFileSync(run('metric'), 'utf8'), imperial: readFileSync(run('imperial'), 'utf8') };
+type Units = 'metric' | 'imperial';
+interface UnitsRun {
+  stdout: string;
+  /** The text of a file the run wrote into its folder. */
+  read: (name: string) => string;
 }
+
+/** The runs of a command in both systems of units, each written into a folder of its own ({out} in the arguments);
+ * the tests that read the same command's outputs share its two runs instead of each running it again. */
+const runsInBothUnits = new Map<string, Record<Units, UnitsRun>>();
+function both(name: string, args: string[]): Record<Units, UnitsRun> {
+  const run = (units: Units): UnitsRun => {
+    const out = path.join(folder, name, units);
+    mkdirSync(out, { recursive: true });
+    const result = runCli([...args.map((arg) => arg.replaceAll('{out}', out)), '--units', units]);
+    expect(result.code, result.stderr).toBe(0);
+    return { stdout: result.stdout, read: (file) => readFileSync(path.join(out, file), 'utf8') };
+  };
+  let runs = runsInBothUnits.get(name);
+  if (runs === undefined) {
+    runs = { metric: run('metric'), imperial: run('imperial') };
+    runsInBothUnits.set(name, runs);
+  }
+  return runs;
+}
+
+/** The reference lap's trace CSV and page, in both units. */
+const simulateGt = () => both('simulate', ['simulate', ...gt, '--out', '{out}/trace.csv', '--html', '{out}/page.html']);
+/** The driver's lap against the reference: aligned traces, page and terminal text, in both units. */
+const compareGt = () =>
+  both('compare', ['compare', ...gt, '--telemetry', log, '--out', '{out}/aligned', '--html', '{out}/page.html']);
+/** Both units' page of a command whose only output read here is its page. */
+const pages = (name: string, args: string[]) => {
+  const runs = both(name, [...args, '--html', '{out}/page.html']);
+  return { metric: runs.metric.read('page.html'), imperial: runs.imperial.read('page.html') };
+};
 
 function csvColumns(text: string): Record<string, number[]> {
   const [header, ...lines] = text.trim().split('\n');
@@ -65,9 +91,9 @@ const placesOf = (html: string, pattern: RegExp) =>
 
 describe('CSVs a person reads', () => {
   it('the trace CSV has feet and mph columns, each converted from the metric trace', () => {
-    const { metric, imperial } = both(['simulate', ...gt], '--out', 'trace.csv');
-    const m = csvColumns(metric);
-    const i = csvColumns(imperial);
+    const runs = simulateGt();
+    const m = csvColumns(runs.metric.read('trace.csv'));
+    const i = csvColumns(runs.imperial.read('trace.csv'));
     const names = Object.keys(i);
     expect(names).toEqual(expect.arrayContaining(['distance_ft', 'speed_mph', 'time_s', 'x_ft', 'y_ft']));
     // No metre or km/h column is left, and the speed is written once.
@@ -82,13 +108,9 @@ describe('CSVs a person reads', () => {
   });
 
   it('the aligned compare CSV has station_ft and every speed in mph', () => {
-    const args = ['compare', ...gt, '--telemetry', log];
-    const metricOut = path.join(folder, 'aligned-metric');
-    const imperialOut = path.join(folder, 'aligned-imperial');
-    expect(runCli([...args, '--out', metricOut]).code).toBe(0);
-    expect(runCli([...args, '--out', imperialOut, '--units', 'imperial']).code).toBe(0);
-    const m = csvColumns(readFileSync(path.join(metricOut, 'aligned.csv'), 'utf8'));
-    const i = csvColumns(readFileSync(path.join(imperialOut, 'aligned.csv'), 'utf8'));
+    const runs = compareGt();
+    const m = csvColumns(runs.metric.read('aligned/aligned.csv'));
+    const i = csvColumns(runs.imperial.read('aligned/aligned.csv'));
     expect(Object.keys(i)).toEqual(
       expect.arrayContaining(['station_ft', 'speed_driver_mph', 'speed_reference_mph', 'delta_s']),
     );
@@ -104,7 +126,8 @@ describe('CSVs a person reads', () => {
 
 describe('report pages', () => {
   it('the reference lap page: axes, tiles, table, read-out and data in mph and feet, no km/h', () => {
-    const { metric, imperial } = both(['simulate', ...gt], '--html', 'reference.html');
+    const runs = simulateGt();
+    const [metric, imperial] = [runs.metric.read('page.html'), runs.imperial.read('page.html')];
     expect(placesOf(imperial, /km\/h/)).toEqual([]);
     expect(imperial).toContain('speed, mph');
     expect(imperial).toContain('distance, ft');
@@ -130,11 +153,10 @@ describe('report pages', () => {
   });
 
   it('the driver and session pages: every table header, axis and tile in mph and feet', () => {
-    for (const args of [
-      ['compare', ...gt, '--telemetry', log],
-      ['session', ...gt, '--telemetry', log],
+    for (const imperial of [
+      compareGt().imperial.read('page.html'),
+      pages('session', ['session', ...gt, '--telemetry', log]).imperial,
     ]) {
-      const { imperial } = both(args, '--html', `${args[0]}.html`);
       // The notes on laps left out or extrapolated are still written in metres (the lap cutting's own sentences);
       // everything else the page draws is checked, the findings and the envelope fit's notes included.
       const drawn = visible(imperial).replace(/<li>lap \d+ [^<]*<\/li>/g, '');
@@ -148,7 +170,8 @@ describe('report pages', () => {
   });
 
   it('the findings in mph and feet, each number the metric finding’s converted', () => {
-    const { metric, imperial } = both(['compare', ...gt, '--telemetry', log], '--html', 'findings.html');
+    const runs = compareGt();
+    const [metric, imperial] = [runs.metric.read('page.html'), runs.imperial.read('page.html')];
     const findings = (html: string) =>
       [...html.matchAll(/<span class="finding-text">([\s\S]*?)<\/span>/g)].map((m) => m[1]!.replace(/&#39;/g, "'"));
     const metricFindings = findings(metric);
@@ -157,11 +180,9 @@ describe('report pages', () => {
     expect(imperialFindings).toHaveLength(metricFindings.length);
     for (const text of imperialFindings) expect(text).not.toMatch(/km\/h| m\b/);
     imperialFindings.forEach((text, k) => expectConverted(metricFindings[k]!, text));
-    // The terminal's findings say the same as the page's.
-    const printed = (units: string) => {
-      const run = runCli(['compare', ...gt, '--telemetry', log, '--units', units]);
-      expect(run.code, run.stderr).toBe(0);
-      const block = run.stdout.split('Where the time is (largest first):\n')[1]!.split('\n\n')[0]!;
+    // The terminal's findings (of the same runs) say the same as the page's.
+    const printed = (units: Units) => {
+      const block = runs[units].stdout.split('Where the time is (largest first):\n')[1]!.split('\n\n')[0]!;
       return block.split('\n').map((line) => line.replace(/^\d+\. /, ''));
     };
     expect(printed('imperial')).toEqual(imperialFindings);
@@ -171,8 +192,17 @@ describe('report pages', () => {
   it('the lap-against-lap and line findings in mph and feet, each number the metric one’s converted', () => {
     const other = path.join(folder, 'bicycle-lap.csv');
     expect(runCli(['simulate', ...gt, '--model', 'bicycle', '--out', other]).code).toBe(0);
-    const args = ['compare', ...gt, '--telemetry', log, '--against', other];
-    const { metric, imperial } = both(args, '--html', 'against.html');
+    const runs = both('against', [
+      'compare',
+      ...gt,
+      '--telemetry',
+      log,
+      '--against',
+      other,
+      '--html',
+      '{out}/page.html',
+    ]);
+    const [metric, imperial] = [runs.metric.read('page.html'), runs.imperial.read('page.html')];
     const section = (html: string) => /<section class="findings against">[\s\S]*?<\/section>/.exec(html)![0];
     const findings = (html: string) =>
       [...section(html).matchAll(/<span class="finding-text">([\s\S]*?)<\/span>/g)].map((m) => m[1]!);
@@ -181,11 +211,9 @@ describe('report pages', () => {
     expect(findings(imperial)).toHaveLength(metricFindings.length);
     expect(placesOf(section(imperial).replace(/<ul class="notes">[\s\S]*?<\/ul>/g, ''), /km\/h| m\b/)).toEqual([]);
     findings(imperial).forEach((text, k) => expectConverted(metricFindings[k]!, text));
-    // The terminal's line findings (a numbered list after the line's table) and its resolution note.
-    const lineBlock = (units: string) => {
-      const run = runCli([...args, '--units', units]);
-      expect(run.code, run.stderr).toBe(0);
-      const after = run.stdout.split('The line (offsets from the centreline')[1]!;
+    // The terminal's line findings (a numbered list after the line's table) and its resolution note, of the same runs.
+    const lineBlock = (units: Units) => {
+      const after = runs[units].stdout.split('The line (offsets from the centreline')[1]!;
       return after.split('\n').filter((line) => /^\d+\. corner|^Note: line:/.test(line));
     };
     const metricLine = lineBlock('metric');
@@ -197,19 +225,23 @@ describe('report pages', () => {
   });
 
   it('the what-if, sweep, car and budget pages show mph and feet', () => {
-    const whatif = both(['whatif', ...club, '--set', 'massKg=+20'], '--html', 'whatif.html');
+    const whatif = pages('whatif', ['whatif', ...club, '--set', 'massKg=+20']);
     expect(whatif.imperial).toContain('shift, ft (− = earlier)');
     expect(whatif.imperial).toContain('<th>braking point shift, ft</th>');
-    const sweep = both(['sweep', ...club, '--vary', 'massKg=600:640:20', '--workers', '1'], '--html', 'sweep.html');
+    const sweep = pages('sweep', ['sweep', ...club, '--vary', 'massKg=600:640:20', '--workers', '1']);
     expect(sweep.imperial).toContain('shift from baseline, ft');
     expect(sweep.imperial).toMatch(/track [\d.]+ mi at a [\d.]+ ft step/);
-    const car = both(['car', '--car', 'cars/brackle-club.json'], '--html', 'car.html');
+    const car = pages('car', ['car', '--car', 'cars/brackle-club.json']);
     expect(car.imperial).toMatch(/\d+ mph/);
-    const budget = both(
-      ['budget', '--car', 'cars/brackle-club.json', '--speed-kph', '80', '--radius-m', '60'],
-      '--html',
-      'budget.html',
-    );
+    const budget = pages('budget', [
+      'budget',
+      '--car',
+      'cars/brackle-club.json',
+      '--speed-kph',
+      '80',
+      '--radius-m',
+      '60',
+    ]);
     for (const page of [whatif, sweep, car, budget])
       expect(placesOf(visible(page.imperial), /km\/h|, m\b| m step/)).toEqual([]);
     // The what-if table's shifts: the metric metres converted to feet, each to 0.1.
