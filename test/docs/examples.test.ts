@@ -1,13 +1,15 @@
 // Every example in README.md and docs/*.md runs as written from the repository root and writes only under out/.
 // An example is a line of a ```sh block that starts with `npx reflap`, `reflap` or `npm run demo`; a synopsis with
-// placeholders belongs in a ```text block. The examples run in order, in one process, in a copy of the root.
+// placeholders belongs in a ```text block. The examples run in order in a copy of the root, through the built CLI
+// kept in a worker thread (test/helpers/cli.ts) with the copy as the working folder: the same `main`, arguments,
+// output and exit code as a shell's run, without loading the CLI a second time; test/cli/process.test.ts runs every
+// command once as a process of its own.
 
 import { describe, expect, it } from 'vitest';
-import { spawnSync } from 'node:child_process';
 import { cpSync, mkdtempSync, readdirSync, readFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { projectRoot } from '../helpers/cli.js';
+import { projectRoot, runCli } from '../helpers/cli.js';
 
 interface Example {
   file: string;
@@ -66,27 +68,10 @@ describe('README and docs examples', () => {
     const root = mkdtempSync(join(tmpdir(), 'reflap-examples-'));
     for (const folder of ['cars', 'tracks']) cpSync(join(projectRoot, folder), join(root, folder), { recursive: true });
     const before = readdirSync(root).sort();
-    const run = spawnSync(
-      process.execPath,
-      [join(projectRoot, 'test/helpers/run-examples.mjs'), join(projectRoot, 'dist/src/cli/main.js')],
-      {
-        cwd: root,
-        input: JSON.stringify(examples.map((e) => e.args)),
-        encoding: 'utf8',
-        env: { ...process.env, NO_COLOR: '1', CI: '1' },
-        maxBuffer: 64 * 1024 * 1024,
-      },
-    );
-    expect(run.stderr).toBe('');
-    const results = run.stdout
-      .trim()
-      .split('\n')
-      .map((line) => JSON.parse(line) as { code: number; stderr: string });
-    expect(results).toHaveLength(examples.length);
-    const failures = results
-      .map((result, k) => ({ ...result, where: `${examples[k]!.file}:${examples[k]!.line}` }))
-      .filter((result) => result.code !== 0)
-      .map((result) => `${result.where} exit ${result.code}: ${result.stderr.trim()}`);
+    const failures = examples
+      .map((example) => ({ example, run: runCli(example.args, { cwd: root, env: { CI: '1' } }) }))
+      .filter(({ run }) => run.code !== 0)
+      .map(({ example, run }) => `${example.file}:${example.line} exit ${run.code}: ${run.stderr.trim()}`);
     expect(failures).toEqual([]);
     const after = readdirSync(root).sort();
     expect(after.filter((name) => !before.includes(name))).toEqual(['out']);
