@@ -29,17 +29,30 @@ writeFileSync(
 );
 const out = (name: string) => path.join(work, 'out', name);
 
+/** What a process adds is its start, so the commands that drive a reference take the centreline: the racing line's
+ * own run is `line`'s below, and the line's checks are library tests (test/line/). */
+const centreline = ['--line', 'centreline'];
+
 /** One cheap run of each command, with words its output must hold (from the inputs where they carry a number). */
 const runs: Record<string, { args: string[]; shows: RegExp }> = {
-  simulate: { args: ['--track', oval, '--car', car], shows: /lap time/i },
+  simulate: { args: ['--track', oval, '--car', car, ...centreline], shows: /lap time/i },
   // (120 km/h)^2 / 90 m = 12.35 m/s^2 = 1.26 g: uniform circular motion, v^2/r (from memory, any mechanics text).
   budget: { args: ['--car', car, '--speed-kph', '120', '--radius-m', '90'], shows: /1\.26 g lateral/ },
   // The car file's 620 kg, plus the change.
-  whatif: { args: ['--track', oval, '--car', car, '--set', 'massKg=+20'], shows: /massKg 620 -> 640 kg/ },
-  sweep: { args: ['--track', oval, '--car', car, '--vary', 'massKg=600:620:20', '--workers', '1'], shows: /massKg/ },
-  stint: { args: ['--track', oval, '--car', car, '--laps', '2', '--workers', '0'], shows: /stint of 2 laps/ },
-  compare: { args: ['--track', oval, '--car', car, '--telemetry', log], shows: /Driver lap/ },
-  session: { args: ['--track', oval, '--car', car, '--telemetry', log], shows: /session of .*lap\.csv/ },
+  whatif: {
+    args: ['--track', oval, '--car', car, '--set', 'massKg=+20', ...centreline],
+    shows: /massKg 620 -> 640 kg/,
+  },
+  sweep: {
+    args: ['--track', oval, '--car', car, '--vary', 'massKg=600:620:20', '--workers', '1', ...centreline],
+    shows: /massKg/,
+  },
+  stint: {
+    args: ['--track', oval, '--car', car, '--laps', '2', '--workers', '0', ...centreline],
+    shows: /stint of 2 laps/,
+  },
+  compare: { args: ['--track', oval, '--car', car, '--telemetry', log, ...centreline], shows: /Driver lap/ },
+  session: { args: ['--track', oval, '--car', car, '--telemetry', log, ...centreline], shows: /session of .*lap\.csv/ },
   envelope: { args: ['--telemetry', log, '--car', car], shows: /speed/ },
   calibrate: { args: ['--telemetry', log, '--car', car, '--out', out('fitted.json')], shows: /fitted\.json/ },
   line: { args: ['--track', oval, '--car', car], shows: /Lap on the line/ },
@@ -64,7 +77,7 @@ const runs: Record<string, { args: string[]; shows: RegExp }> = {
 };
 
 beforeAll(() => {
-  const lap = runCli(['simulate', '--track', oval, '--car', car, '--out', log]);
+  const lap = runCli(['simulate', '--track', oval, '--car', car, ...centreline, '--out', log]);
   expect(lap.code, lap.stderr).toBe(0);
 });
 
