@@ -1,5 +1,7 @@
 // `reflap compare` and `reflap envelope` end to end on the bundled demo circuit and car: a reference trace read
-// back as telemetry, a uniformly slower copy of it, and bad input (one-line errors, exit 2, nothing written).
+// back as telemetry, a uniformly slower copy of it, and bad input (one-line errors, exit 2, nothing written). The
+// reference trace drives the default line (--line auto); the comparisons whose subject is not the line drive the
+// same car's racing line from the file computed once for the test run (test/helpers/shared-line.ts).
 
 import { mkdtempSync, readFileSync, writeFileSync, existsSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -7,6 +9,7 @@ import path from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { projectRoot, runCli } from '../helpers/cli.js';
 import { writeOffTrackLog } from '../helpers/logs.js';
+import { onSharedLine, sharedLineArgs, sharedLineFile } from '../helpers/shared-line.js';
 
 const track = path.join(projectRoot, 'tracks', 'velmora-downs.json');
 const car = path.join(projectRoot, 'cars', 'tarnfell-gt.json');
@@ -20,8 +23,12 @@ beforeAll(() => {
   referenceLapTimeS = JSON.parse(run.stdout).lapTimeS;
 });
 
+/** The arguments, after the shared racing line's unless they choose a --line of their own. */
+const onSharedLineUnless = (extra: string[]) =>
+  extra.includes('--line') ? extra : [...sharedLineArgs(track, car), ...extra];
+/** compare on the demo circuit and car: on the shared racing line unless the arguments choose a --line. */
 const compare = (telemetry: string, extra: string[] = []) =>
-  runCli(['compare', '--track', track, '--car', car, '--telemetry', telemetry, ...extra]);
+  runCli(['compare', '--track', track, '--car', car, '--telemetry', telemetry, ...onSharedLineUnless(extra)]);
 
 describe('a simulated lap read back as telemetry', () => {
   it('matches the reference within 0.02 s, with no finding worth more than 0.02 s', () => {
@@ -165,7 +172,7 @@ describe('the demonstrated envelope', () => {
     expect(fit.code).toBe(0);
     const record = JSON.parse(readFileSync(envelopeFile, 'utf8'));
     expect(record.bands.length).toBeGreaterThan(5);
-    const lap = runCli(['simulate', '--track', track, '--car', car, '--envelope', envelopeFile, '--json']);
+    const lap = runCli(['simulate', ...onSharedLine(track, car), '--envelope', envelopeFile, '--json']);
     expect(lap.code).toBe(0);
     const lapTimeS = JSON.parse(lap.stdout).lapTimeS;
     // The grip a lap shows is the grip of that lap: driving on it again should land within a few per cent.
@@ -198,10 +205,8 @@ describe('the reference on a racing line (--line auto | centreline | FILE)', () 
     // Against the centreline reference, the driver (this log is the line's reference lap) is quicker by that much.
     expect(onCentre.driverLapTimeS - onCentre.referenceLapTimeS).toBeLessThan(-0.5);
 
-    const lineFile = path.join(work, 'line.csv');
-    const line = runCli(['line', '--track', track, '--car', car, '--out', lineFile, '--json']);
-    expect(line.code, line.stderr).toBe(0);
-    const fromFile = compare(trace, ['--line', lineFile, '--json']);
+    // The line file of this car and circuit that `reflap line --out` wrote for the test run.
+    const fromFile = compare(trace, ['--line', sharedLineFile(track, car), '--json']);
     expect(fromFile.code, fromFile.stderr).toBe(0);
     const onFileLine = JSON.parse(fromFile.stdout);
     expect(onFileLine.referencePath).toBe('file');

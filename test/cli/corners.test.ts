@@ -1,12 +1,14 @@
 // One corner identity across commands: `reflap corners` writes the file, the user merges two corners and renames
 // one, and simulate, whatif, sweep, stint and compare all report the same corner numbers and names with
-// --corners; a bad corners file is one line naming the entry, exit code 2, nothing written.
+// --corners; a bad corners file is one line naming the entry, exit code 2, nothing written. The references drive the
+// demo car's racing line, computed once for the test run.
 
 import { mkdtempSync, readFileSync, writeFileSync, existsSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { projectRoot, runCli } from '../helpers/cli.js';
+import { sharedLineArgs } from '../helpers/shared-line.js';
 
 const track = path.join(projectRoot, 'tracks', 'velmora-downs.json');
 const car = path.join(projectRoot, 'cars', 'tarnfell-gt.json');
@@ -14,6 +16,7 @@ const work = mkdtempSync(path.join(tmpdir(), 'reflap-corners-'));
 const detectedFile = path.join(work, 'detected.json');
 const editedFile = path.join(work, 'edited.json');
 const trace = path.join(work, 'trace.csv');
+const line = sharedLineArgs(track, car);
 
 interface FileCorner {
   number: number;
@@ -40,10 +43,10 @@ beforeAll(() => {
   ];
   edited[0] = { ...edited[0]!, name: 'First Hairpin' };
   writeFileSync(editedFile, JSON.stringify({ ...file, corners: edited }, null, 2));
-  expect(runCli(['simulate', '--track', track, '--car', car, '--out', trace]).code).toBe(0);
+  expect(runCli(['simulate', '--track', track, '--car', car, ...line, '--out', trace]).code).toBe(0);
 });
 
-const common = ['--track', track, '--car', car, '--corners', editedFile];
+const common = ['--track', track, '--car', car, ...line, '--corners', editedFile];
 const json = (args: string[]) => {
   const run = runCli(args);
   expect(run.stderr).toBe('');

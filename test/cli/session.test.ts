@@ -6,15 +6,17 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { projectRoot, runCli } from '../helpers/cli.js';
-import { readTrace, writeGripPair, writeSessionLog } from '../helpers/logs.js';
+import { readTrace, sharedGripPair, writeSessionLog } from '../helpers/logs.js';
+import { onSharedLine } from '../helpers/shared-line.js';
 
 const track = path.join(projectRoot, 'tracks', 'velmora-downs.json');
 const carFile = path.join(projectRoot, 'cars', 'tarnfell-gt.json');
 const work = mkdtempSync(path.join(tmpdir(), 'reflap-session-'));
-const { highGrip, lowGrip } = writeGripPair(work, track, carFile, 1.2);
+// The laps and every run drive the demo car's racing line, computed once for the test run.
+const { highGrip, lowGrip } = sharedGripPair(track, carFile, 1.2);
 
 const session = (telemetry: string, extra: string[] = []) =>
-  runCli(['session', '--track', track, '--car', carFile, '--telemetry', telemetry, ...extra]);
+  runCli(['session', ...onSharedLine(track, carFile), '--telemetry', telemetry, ...extra]);
 /** A trace's own lap time: its last row's time plus the 0.02 s step writeSessionLog adds between laps. */
 const lapTimeOf = (file: string) => {
   const trace = readTrace(file);

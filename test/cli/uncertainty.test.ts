@@ -1,5 +1,6 @@
 // `--uncertainty` on simulate and compare end to end: draws through the worker pool, the plain answer when nothing is
-// uncertain, the band and the robustness column in the report, and the refusals.
+// uncertain, the band and the robustness column in the report, and the refusals. Every reference drives the demo
+// car's racing line, computed once for the test run (the line a draw holds is the baseline car's in any case).
 
 import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -7,6 +8,7 @@ import path from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { projectRoot, runCli } from '../helpers/cli.js';
 import { sharedDemoFolder } from '../helpers/shared-demo.js';
+import { sharedLineArgs } from '../helpers/shared-line.js';
 
 const work = mkdtempSync(path.join(tmpdir(), 'reflap-uncertainty-'));
 const track = path.join(projectRoot, 'tracks', 'velmora-downs.json');
@@ -14,6 +16,9 @@ const carFile = path.join(projectRoot, 'cars', 'tarnfell-gt.json');
 const certain = path.join(work, 'certain.json');
 const uncertain = path.join(work, 'uncertain.json');
 let log: string;
+let line: string[];
+/** The demo circuit with a car file, the reference on the demo car's shared line. */
+const withCar = (car: string) => ['--track', track, ...line, '--car', car];
 
 beforeAll(() => {
   const car = JSON.parse(readFileSync(carFile, 'utf8'));
@@ -32,12 +37,13 @@ beforeAll(() => {
     }),
   );
   log = path.join(sharedDemoFolder(), 'demo-lap.csv');
+  line = sharedLineArgs(track, carFile);
 });
 
 describe('simulate --uncertainty', () => {
   it('gives exactly the plain lap when nothing is uncertain', () => {
-    const plain = JSON.parse(runCli(['simulate', '--track', track, '--car', carFile, '--json']).stdout);
-    const run = runCli(['simulate', '--track', track, '--car', certain, '--uncertainty', '6', '--json']);
+    const plain = JSON.parse(runCli(['simulate', ...withCar(carFile), '--json']).stdout);
+    const run = runCli(['simulate', ...withCar(certain), '--uncertainty', '6', '--json']);
     expect(run.code).toBe(0);
     const result = JSON.parse(run.stdout);
     expect(result.lapTimeS).toBe(plain.lapTimeS);
@@ -49,10 +55,7 @@ describe('simulate --uncertainty', () => {
     const html = path.join(work, 'sim.html');
     const run = runCli([
       'simulate',
-      '--track',
-      track,
-      '--car',
-      uncertain,
+      ...withCar(uncertain),
       '--uncertainty',
       '16',
       '--json',
@@ -75,14 +78,14 @@ describe('simulate --uncertainty', () => {
   });
 
   it('refuses a number of draws that is not one, and --envelope with --uncertainty', () => {
-    const bad = runCli(['simulate', '--track', track, '--car', uncertain, '--uncertainty', 'many']);
+    const bad = runCli(['simulate', ...withCar(uncertain), '--uncertainty', 'many']);
     expect(bad.code).toBe(2);
     expect(bad.stderr.trim()).toBe(
       "reflap: option --uncertainty: 'many' is not a number of draws (a whole number from 2 to 5000)",
     );
     const envelope = path.join(work, 'envelope.json');
     expect(runCli(['envelope', '--telemetry', log, '--out', envelope]).code).toBe(0);
-    const both = runCli(['simulate', '--track', track, '--car', uncertain, '--uncertainty', '--envelope', envelope]);
+    const both = runCli(['simulate', ...withCar(uncertain), '--uncertainty', '--envelope', envelope]);
     expect(both.code).toBe(2);
     expect(both.stderr.trim()).toBe(
       "reflap: option --uncertainty draws the car file's uncertain fields; it cannot be combined with --envelope",
@@ -95,10 +98,7 @@ describe('compare --uncertainty', () => {
     const html = path.join(work, 'compare.html');
     const run = runCli([
       'compare',
-      '--track',
-      track,
-      '--car',
-      uncertain,
+      ...withCar(uncertain),
       '--telemetry',
       log,
       '--uncertainty',
@@ -118,17 +118,7 @@ describe('compare --uncertainty', () => {
       if (k > 0) expect(findings[k].timeS.median).toBeLessThanOrEqual(findings[k - 1].timeS.median);
     }
     expect(result.uncertainty.corners).toHaveLength(result.corners.length);
-    const text = runCli([
-      'compare',
-      '--track',
-      track,
-      '--car',
-      uncertain,
-      '--telemetry',
-      log,
-      '--uncertainty',
-      '24',
-    ]).stdout;
+    const text = runCli(['compare', ...withCar(uncertain), '--telemetry', log, '--uncertainty', '24']).stdout;
     expect(text).toMatch(/holds in \d+ % of draws/);
     expect(text).toMatch(/ holds\n/);
     const page = readFileSync(html, 'utf8');

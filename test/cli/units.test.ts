@@ -7,8 +7,10 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { runCli } from '../helpers/cli.js';
 import { sharedDemoFolder } from '../helpers/shared-demo.js';
+import { onSharedLine } from '../helpers/shared-line.js';
 
-const lap = ['--track', 'tracks/velmora-downs.json', '--car', 'cars/tarnfell-gt.json'];
+/** The demo circuit and car, the reference on the car's racing line computed once for the test run. */
+const lap = onSharedLine('tracks/velmora-downs.json', 'cars/tarnfell-gt.json');
 let folder: string;
 let log: string;
 

@@ -1,13 +1,15 @@
 // `reflap compare --against` and `--against-lap` end to end on the bundled demo circuit: two laps written by
 // `simulate` for two cars that differ only in tyre.muLong, a lap against itself, a session of several laps, and
-// bad input (one line, exit 2, nothing written).
+// bad input (one line, exit 2, nothing written). Every run drives the demo car's racing line, computed once for the
+// test run (test/helpers/shared-line.ts).
 
 import { existsSync, mkdtempSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { projectRoot, runCli } from '../helpers/cli.js';
-import { readTrace, writeGripPair, writeOffTrackLog, writeSessionLog, type TraceRows } from '../helpers/logs.js';
+import { readTrace, sharedGripPair, writeOffTrackLog, writeSessionLog, type TraceRows } from '../helpers/logs.js';
+import { onSharedLine } from '../helpers/shared-line.js';
 
 const track = path.join(projectRoot, 'tracks', 'velmora-downs.json');
 const carFile = path.join(projectRoot, 'cars', 'tarnfell-gt.json');
@@ -15,12 +17,12 @@ const work = mkdtempSync(path.join(tmpdir(), 'reflap-against-'));
 const STANDARD_GRAVITY_MPS2 = 9.80665; // CGPM 1901, the conventional value
 const MU_HIGH = 1.45;
 const MU_LOW = 1.2;
-const { highGrip, lowGrip, highMuLong } = writeGripPair(work, track, carFile, MU_LOW);
+const { highGrip, lowGrip, highMuLong } = sharedGripPair(track, carFile, MU_LOW);
 
 it('starts from the demo car with the braking grip the check assumes', () => expect(highMuLong).toBe(MU_HIGH));
 
 const compare = (telemetry: string, extra: string[]) =>
-  runCli(['compare', '--track', track, '--car', carFile, '--telemetry', telemetry, ...extra]);
+  runCli(['compare', ...onSharedLine(track, carFile), '--telemetry', telemetry, ...extra]);
 
 /** Braking zones of a trace: where the brake first exceeds 5 % and the speed there and at the zone's slowest point. */
 function brakingZones(

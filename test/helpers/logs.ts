@@ -1,9 +1,11 @@
 // Logs written to files for tests that run the CLI: a circle of positions far from any bundled track, and a session
 // of several laps made of traces that `simulate --out` wrote.
 
-import { readFileSync, writeFileSync } from 'node:fs';
+import { mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { runCli } from './cli.js';
+import { writtenOncePerRun } from './once-per-run.js';
+import { sharedLineArgs } from './shared-line.js';
 
 /** 200 s at 10 Hz round a 100 m circle centred 5 km from the origin: a log that belongs to no test track. */
 export function writeOffTrackLog(file: string): string {
@@ -50,12 +52,14 @@ export function writeSessionLog(file: string, traces: string[], lastShare = 1): 
 /**
  * Two reference laps of one car on one track written by `simulate --out` into `folder`: the car as its file gives
  * it (high.csv) and a copy whose tyre.muLong is `lowMuLong` (low.csv), so the two differ only in braking grip.
+ * `simulateArgs` go to both runs (the same `--line` for both keeps them on one path).
  */
 export function writeGripPair(
   folder: string,
   track: string,
   carFile: string,
   lowMuLong: number,
+  simulateArgs: string[] = [],
 ): { highGrip: string; lowGrip: string; highMuLong: number } {
   const car = JSON.parse(readFileSync(carFile, 'utf8'));
   const highMuLong: number = car.tyre.muLong;
@@ -68,8 +72,27 @@ export function writeGripPair(
     [highGrip, carFile],
     [lowGrip, lowCar],
   ] as const) {
-    const run = runCli(['simulate', '--track', track, '--car', carPath, '--out', file]);
+    const run = runCli(['simulate', '--track', track, '--car', carPath, ...simulateArgs, '--out', file]);
     if (run.code !== 0) throw new Error(`simulate failed: ${run.stderr}`);
   }
   return { highGrip, lowGrip, highMuLong };
+}
+
+/**
+ * writeGripPair's two laps, written once per test run into a folder every test file reads, both on the car's shared
+ * racing line (test/helpers/shared-line.ts): the reference a `compare --line` of that line file drives.
+ */
+export function sharedGripPair(
+  track: string,
+  carFile: string,
+  lowMuLong: number,
+): { highGrip: string; lowGrip: string; highMuLong: number } {
+  const line = sharedLineArgs(track, carFile);
+  const name = `grip-pair-${path.basename(track, '.json')}-${path.basename(carFile, '.json')}-${lowMuLong}`;
+  const folder = writtenOncePerRun(name, (partial) => {
+    mkdirSync(partial);
+    writeGripPair(partial, track, carFile, lowMuLong, line);
+  });
+  const highMuLong: number = JSON.parse(readFileSync(carFile, 'utf8')).tyre.muLong;
+  return { highGrip: path.join(folder, 'high.csv'), lowGrip: path.join(folder, 'low.csv'), highMuLong };
 }

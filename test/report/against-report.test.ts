@@ -7,13 +7,15 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { projectRoot, runCli } from '../helpers/cli.js';
-import { readTrace, writeGripPair, writeSessionLog } from '../helpers/logs.js';
+import { readTrace, sharedGripPair, writeSessionLog } from '../helpers/logs.js';
+import { onSharedLine } from '../helpers/shared-line.js';
 import { gainClasses } from '../../src/report/html/track-map.js';
 
 const track = path.join(projectRoot, 'tracks', 'velmora-downs.json');
 const carFile = path.join(projectRoot, 'cars', 'tarnfell-gt.json');
 const work = mkdtempSync(path.join(tmpdir(), 'reflap-against-report-'));
-const { highGrip, lowGrip } = writeGripPair(work, track, carFile, 1.2);
+// The laps and every run drive the demo car's racing line, computed once for the test run.
+const { highGrip, lowGrip } = sharedGripPair(track, carFile, 1.2);
 
 function csvColumns(file: string): Record<string, number[]> {
   const [head, ...rows] = readFileSync(file, 'utf8').trim().split('\n');
@@ -31,7 +33,7 @@ function chartSource(html: string, name: string): string {
 }
 
 const compare = (telemetry: string, extra: string[]) =>
-  runCli(['compare', '--track', track, '--car', carFile, '--telemetry', telemetry, ...extra]);
+  runCli(['compare', ...onSharedLine(track, carFile), '--telemetry', telemetry, ...extra]);
 
 describe('compare --against: the aligned traces and the page', () => {
   const out = path.join(work, 'pair');

@@ -9,6 +9,7 @@ import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { runCli } from '../helpers/cli.js';
 import { sharedDemoFolder } from '../helpers/shared-demo.js';
+import { onSharedLine } from '../helpers/shared-line.js';
 import { scaleBarOf } from '../../src/report/html/track-map.js';
 import { displayUnits } from '../../src/report/units.js';
 import { expectConverted } from './converted-quantities.js';
@@ -17,8 +18,9 @@ const MPS_PER_MPH = 0.44704; // NIST SP 811, appendix B (exact)
 const M_PER_FT = 0.3048; // NIST SP 811, appendix B (exact)
 const kphToMph = (kph: number) => kph / 3.6 / MPS_PER_MPH;
 
-const gt = ['--track', 'tracks/velmora-downs.json', '--car', 'cars/tarnfell-gt.json'];
-const club = ['--track', 'tracks/tarnwick-club.json', '--car', 'cars/brackle-club.json'];
+// Each circuit and car with the reference on the car's racing line, computed once for the test run.
+const gt = onSharedLine('tracks/velmora-downs.json', 'cars/tarnfell-gt.json');
+const club = onSharedLine('tracks/tarnwick-club.json', 'cars/brackle-club.json');
 let folder: string;
 let log: string;
 
