@@ -71,14 +71,15 @@ export interface LapTimeResult {
 export function simulateLapTime(track: TrackGrid, car: Car, options: SimulateOptions = {}): LapTimeResult {
   const { envelope, path, profile } = solveOn(track, car, options, 'simulateLapTime');
   const { lapTimeS, lengthM, brake } = lapTimeAndBrake(path, envelope, profile.speedMps, profile.shift);
-  const brakingZones = findBrakingZones({
-    closed: path.closed,
-    count: profile.speedMps.length,
-    speedMps: profile.speedMps,
-    stationM: track.distanceM,
-    brake,
-  });
+  const brakingZones = brakingZonesOf(path, track, profile.speedMps, brake);
   return { lapTimeS, lengthM, speedMps: profile.speedMps, brakingZones, path, track };
+}
+
+/** The braking zones of a lap, from a record of the one shape every caller of findBrakingZones builds (the
+ * comparison's too): a lap's full trace in its place made the finder's reads polymorphic, and the first lap-time
+ * lap after a full one threw its compiled code away. */
+function brakingZonesOf(path: Path, track: TrackGrid, speedMps: Float64Array, brake: Float64Array): BrakingZone[] {
+  return findBrakingZones({ closed: path.closed, count: speedMps.length, speedMps, stationM: track.distanceM, brake });
 }
 
 /** The largest of `sign` x each value. A loop of its own that ends on a plain return: V8 compiles a long loop while
@@ -106,7 +107,7 @@ export function simulate(track: TrackGrid, car: Car, options: SimulateOptions = 
     lengthM,
     maxSpeedMps: largestOf(trace.speedMps),
     minSpeedMps: -largestOf(trace.speedMps, -1),
-    brakingZones: zonesByCorner(findBrakingZones(trace), track),
+    brakingZones: zonesByCorner(brakingZonesOf(path, track, trace.speedMps, trace.brake), track),
     corners: cornerLayoutOf(track),
     track,
     path,

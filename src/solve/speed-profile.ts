@@ -53,30 +53,30 @@ function forwardPass(
   const ds = path.segmentLengthM;
   shiftOut.fill(0);
   out[first] = firstSpeedMps;
-  let speed = firstSpeedMps;
+  // Read back from the array, the speed is known to be a number: a loop variable started from an argument kept
+  // the type of any value, and every step's speed was stored as a new number on the heap.
+  let speed = out[first]!;
   let gear = envelope.gearAt(speed);
   let shiftLeftS = 0;
   // Sample i walks on from `first` (0 on an open path) and wraps past the last sample of a closed lap.
   for (let k = 0, i = path.closed ? first : 0; k < steps; k++, i = i + 1 === n ? 0 : i + 1) {
     const j = i + 1 === n ? 0 : i + 1;
     const lengthM = ds[i]!;
-    let accel: number;
     const shifting = shiftLeftS > 0;
     // On a three-dimensional road the tyres carry the road's load and lateral force, and gravity pulls along it.
     const v2 = speed * speed;
     const lateral = road ? v2 * road.lateralPerV2[i]! - road.road.gravityLateralMps2[i]! : v2 * kappa[i]!;
     const load = road ? road.road.gravityNormalShare[i]! + (v2 * road.loadPerV2[i]!) / G : 1;
+    // One call of the limit for both cases: V8 inlines each call site of it, and a second copy for the shifts
+    // spent the budget that inlines the limit's own parts, leaving calls and heap numbers on every step.
+    let accel = envelope.accelLimitMps2(speed, lateral, load);
     if (shifting) {
       // The shift may end part-way through this step: drive for the rest of it.
       const stepTimeS = lengthM / Math.max(speed, 0.5);
       const coastShare = Math.min(1, shiftLeftS / stepTimeS);
-      accel =
-        -coastShare * envelope.coastDecelMps2(speed, load) +
-        (1 - coastShare) * envelope.accelLimitMps2(speed, lateral, load);
+      accel = -coastShare * envelope.coastDecelMps2(speed, load) + (1 - coastShare) * accel;
       shiftLeftS -= stepTimeS;
       shiftOut[i] = 1;
-    } else {
-      accel = envelope.accelLimitMps2(speed, lateral, load);
     }
     if (road) accel -= road.road.gravityAlongMps2[i]!;
     let next = Math.sqrt(Math.max(0, speed * speed + 2 * accel * lengthM));
@@ -102,14 +102,11 @@ function brakeLimitAt(
   h: number,
 ): number {
   const v2 = speed * speed;
-  if (!road) return envelope.brakeLimitMps2(speed, v2 * curvaturePerM);
-  return (
-    envelope.brakeLimitMps2(
-      speed,
-      v2 * road.lateralPerV2[h]! - road.road.gravityLateralMps2[h]!,
-      road.road.gravityNormalShare[h]! + (v2 * road.loadPerV2[h]!) / G,
-    ) + road.road.gravityAlongMps2[h]!
-  );
+  // One call site, as in the forward pass (flat ground: load 1 and nothing along, which changes no bit).
+  const lateral = road ? v2 * road.lateralPerV2[h]! - road.road.gravityLateralMps2[h]! : v2 * curvaturePerM;
+  const load = road ? road.road.gravityNormalShare[h]! + (v2 * road.loadPerV2[h]!) / G : 1;
+  const along = road ? road.road.gravityAlongMps2[h]! : 0;
+  return envelope.brakeLimitMps2(speed, lateral, load) + along;
 }
 
 /**
@@ -174,15 +171,14 @@ function brakingEntrySpeedMps(
 }
 
 /**
- * The backward pass from `last`, where the speed is `lastSpeedMps`, taking the lower of it and the forward pass into
- * `speed` as it goes (a braking step also drops the forward pass's shift gap there, which never happens).
+ * The backward pass from `last`, where the speed is its corner limit, taking the lower of it and the forward pass
+ * into `speed` as it goes (a braking step also drops the forward pass's shift gap there, which never happens).
  */
 function backwardPass(
   path: Path,
   envelope: Envelope,
   limit: Float64Array,
   last: number,
-  lastSpeedMps: number,
   out: Float64Array,
   road: PathRoad | null,
   shift: Uint8Array,
@@ -191,11 +187,12 @@ function backwardPass(
   const steps = path.closed ? n : n - 1;
   const kappa = path.curvaturePerM;
   const ds = path.segmentLengthM;
-  if (lastSpeedMps < out[last]!) {
-    out[last] = lastSpeedMps;
+  // Read from the array, as the forward pass's first speed, so that the loop's speed stays a plain number.
+  let speed = limit[last]!;
+  if (speed < out[last]!) {
+    out[last] = speed;
     shift[last] = 0;
   }
-  let speed = lastSpeedMps;
   // Sample i walks back from `last` (the last sample on an open path) and wraps past the first of a closed lap.
   for (let k = 0, i = path.closed ? last : n - 1; k < steps; k++, i = i === 0 ? n - 1 : i - 1) {
     const h = i === 0 ? n - 1 : i - 1;
@@ -236,7 +233,7 @@ export function solveSpeedProfile(path: Path, envelope: Envelope, options: Speed
       if (backAt >= startMps - PERIODIC_TOLERANCE_MPS) break;
       startMps = backAt;
     }
-    backwardPass(path, envelope, cornerLimitMps, slowest, cornerLimitMps[slowest]!, speedMps, road, shift);
+    backwardPass(path, envelope, cornerLimitMps, slowest, speedMps, road, shift);
   } else {
     forwardPass(
       path,
@@ -249,7 +246,7 @@ export function solveSpeedProfile(path: Path, envelope: Envelope, options: Speed
       road,
       shift,
     );
-    backwardPass(path, envelope, cornerLimitMps, n - 1, cornerLimitMps[n - 1]!, speedMps, road, shift);
+    backwardPass(path, envelope, cornerLimitMps, n - 1, speedMps, road, shift);
   }
   return { speedMps, cornerLimitMps, shift };
 }
