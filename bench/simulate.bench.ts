@@ -1,4 +1,5 @@
-// Benchmark of the core solver: one lap of a 5 km circuit at 1 m and 0.25 m step, median of 40 runs after 20 of warm-up (the JIT settles).
+// Benchmark of the core solver: one lap of a 5 km circuit at 1 m and 0.25 m step, median of 40 runs after at least
+// 0.3 s of warm-up runs (settledTimes below).
 // Issue 18's targets at 1 m: simulate with every channel under 0.8 ms for a point-mass car without gears and under
 // 1.0 ms with gears, the lap-time mode (lap time and braking points) under 0.5 ms, and reflap within 2.5 times a
 // plain reference of the same passes written below in tight JavaScript (Brayshaw and Harrison's method, the point
@@ -18,6 +19,25 @@ import { ambientFrom } from '../src/car/ambient.js';
 import { linearityVerdict, machineLoad, medianTimes, pairedMedianTimes, peakRssMb, verdict } from './stats.js';
 
 const projectRoot = fileURLToPath(new URL('../..', import.meta.url));
+
+/** Warm-up of each timing, CPU seconds: V8 compiles the passes on another thread while they run, which on a busy
+ * two-core machine took up to a tenth of a second a function, and a new car (fields that held whole numbers
+ * before) or a new record shape sends them back for another compile. Twenty runs of a lap of 0.3 ms ended before
+ * that and timed the passes half-compiled, at up to twice their settled cost. */
+const WARM_UP_CPU_S = 0.3;
+
+/** Medians of `runs` timed runs after WARM_UP_CPU_S of warm-up runs (at least 20): the same for reflap and the
+ * plain passes, so the ratio compares settled code with settled code. */
+function settledTimes(work: () => void, runs = 40) {
+  const start = process.cpuUsage();
+  for (let k = 0; k < 20 || cpuSecondsSince(start) < WARM_UP_CPU_S; k++) work();
+  return medianTimes(work, runs, 0);
+}
+
+function cpuSecondsSince(start: NodeJS.CpuUsage): number {
+  const used = process.cpuUsage(start);
+  return (used.user + used.system) / 1e6;
+}
 
 /** A closed circuit of about 5 km that closes by construction: two equal straights, each with the same S-bend
  * (its sideways shifts cancel), a 180-degree hairpin at one end and a 90-straight-90 bend at the other. */
@@ -220,9 +240,9 @@ function againstTargets(name: string, fullTargetMs: number, ambient: Ambient): v
   let fullS = 0;
   let quickS = 0;
   let plainS = 0;
-  const full = medianTimes(() => (fullS = simulate(track, car, { ambient, envelope }).lapTimeS), 40, 20);
-  const quick = medianTimes(() => (quickS = simulateLapTime(track, car, { ambient, envelope }).lapTimeS), 40, 20);
-  const plain = medianTimes(() => (plainS = plainLapTimeS(track, car, ambient)), 40, 20);
+  const full = settledTimes(() => (fullS = simulate(track, car, { ambient, envelope }).lapTimeS));
+  const quick = settledTimes(() => (quickS = simulateLapTime(track, car, { ambient, envelope }).lapTimeS));
+  const plain = settledTimes(() => (plainS = plainLapTimeS(track, car, ambient)));
   const gears = car.powertrain.gearing ? 'with gears' : 'no gears';
   process.stdout.write(
     `${name} (${gears}), 5 km at 1 m: simulate ${full.wallMs.toFixed(2)} ms wall / ${full.cpuMs.toFixed(2)} ms CPU (lap ${fullS.toFixed(4)} s); ` +
@@ -254,15 +274,11 @@ export async function run(): Promise<void> {
       'benchmark',
     );
     let lapTimeS = 0;
-    const timing = medianTimes(
-      () => {
-        lapTimeS = simulate(track, car, { ambient, envelope }).lapTimeS;
-      },
-      20,
-      // As many warm-up runs as the targets above: a new grid re-optimises the passes, which five runs did not
-      // cover, and the first size then read up to twice its cost per point.
-      20,
-    );
+    // The same warm-up as the targets above: a new grid re-optimises the passes, which five runs did not cover, and
+    // the first size then read up to twice its cost per point.
+    const timing = settledTimes(() => {
+      lapTimeS = simulate(track, car, { ambient, envelope }).lapTimeS;
+    }, 20);
     perPointNs.push((timing.cpuMs * 1e6) / track.distanceM.length);
     process.stdout.write(
       `simulate: ${(track.lengthM / 1000).toFixed(2)} km at ${stepM} m step (${track.distanceM.length} points): median ${timing.wallMs.toFixed(2)} ms wall, ${timing.cpuMs.toFixed(2)} ms CPU per lap; lap ${lapTimeS.toFixed(3)} s\n`,
