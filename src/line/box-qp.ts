@@ -90,6 +90,17 @@ const RESIDUAL_FLOOR = 1e-12;
 /** How far inside the box the start is pushed, as a share of each box's width. */
 const START_INSET = 0.01;
 
+/** Each value into its box [lower, upper], into `out` (which may be `values`); returns `out`. */
+export function clampInto<Out extends Float64Array>(
+  values: Float64Array,
+  lower: Float64Array,
+  upper: Float64Array,
+  out: Out,
+): Out {
+  for (let i = 0; i < values.length; i++) out[i] = Math.min(upper[i]!, Math.max(lower[i]!, values[i]!));
+  return out;
+}
+
 /** Q's off-diagonals into the system, less those of fixed variables (their rows and columns leave it). */
 function systemBand(band: PentaBand, work: BoxQpWorkspace): void {
   const n = band.count;
@@ -157,25 +168,44 @@ function polish(
   x: Float64Array,
   signSlack: number,
 ): boolean {
-  const n = band.count;
-  const {
-    system,
-    z,
-    w,
-    inverseS,
-    inverseT,
-    fixed,
-    held,
-    polishRhs: rhs,
-    dx: candidate,
-    polishGradient: gradient,
-  } = work;
-  for (let i = 0; i < n; i++) {
+  const { system, polishRhs: rhs, dx: candidate } = work;
+  guessHeld(band, work);
+  heldSystem(band, q, lower, upper, work, x);
+  let solved = band.count < SMALLEST_CYCLIC_PENTA || factorPenta(system, work.factor);
+  if (solved) solved = solveSystem(work, rhs, candidate);
+  if (solved) solved = heldGuessHolds(band, q, lower, upper, work, signSlack);
+  if (!solved) {
+    // The interior-point steps go on with their own system.
+    systemBand(band, work);
+    barrierDiagonal(band, work);
+    return false;
+  }
+  clampInto(candidate, lower, upper, x);
+  return true;
+}
+
+/** The polish's guess of which bounds hold, into work.held (2 for a fixed variable). */
+function guessHeld(band: PentaBand, work: BoxQpWorkspace): void {
+  const { z, w, inverseS, inverseT, fixed, held } = work;
+  for (let i = 0; i < band.count; i++) {
     const pullLower = fixed[i] ? 0 : z[i]! * inverseS[i]!;
     const pullUpper = fixed[i] ? 0 : w[i]! * inverseT[i]!;
     const own = band.diag[i]!;
     held[i] = fixed[i] ? 2 : pullLower > own && pullLower > pullUpper ? -1 : pullUpper > own ? 1 : 0;
   }
+}
+
+/** The system of the free variables with the held ones at their bounds, and its right-hand side. */
+function heldSystem(
+  band: PentaBand,
+  q: Float64Array,
+  lower: Float64Array,
+  upper: Float64Array,
+  work: BoxQpWorkspace,
+  x: Float64Array,
+): void {
+  const n = band.count;
+  const { system, held, polishRhs: rhs } = work;
   const boundOf = (i: number) => (held[i] === -1 ? lower[i]! : held[i] === 1 ? upper[i]! : x[i]!);
   for (let i = 0; i < n; i++) {
     system.diag[i] = held[i] ? 1 : band.diag[i]!;
@@ -195,27 +225,36 @@ function polish(
       else if (!held[j]) rhs[j]! -= offsets[i]! * boundOf(i);
     }
   }
-  let solved = n < SMALLEST_CYCLIC_PENTA || factorPenta(system, work.factor);
-  if (solved) solved = solveSystem(work, rhs, candidate);
-  if (solved) {
-    multiplyBand(band, candidate, gradient);
-    for (let i = 0; i < n && solved; i++) {
-      const g = gradient[i]! + q[i]!;
-      const slack = POLISH_SLACK * (upper[i]! - lower[i]!);
-      if (held[i] === 0) solved = candidate[i]! >= lower[i]! - slack && candidate[i]! <= upper[i]! + slack;
-      else if (held[i] === -1) solved = g >= -signSlack;
-      else if (held[i] === 1) solved = g <= signSlack;
-    }
+}
+
+/** Whether the polished point (work.dx) meets the KKT conditions: every free point inside the box, every held one
+ * pushed against its bound. */
+function heldGuessHolds(
+  band: PentaBand,
+  q: Float64Array,
+  lower: Float64Array,
+  upper: Float64Array,
+  work: BoxQpWorkspace,
+  signSlack: number,
+): boolean {
+  const { held, dx: candidate, polishGradient: gradient } = work;
+  multiplyBand(band, candidate, gradient);
+  let holds = true;
+  for (let i = 0; i < band.count && holds; i++) {
+    const g = gradient[i]! + q[i]!;
+    const slack = POLISH_SLACK * (upper[i]! - lower[i]!);
+    if (held[i] === 0) holds = candidate[i]! >= lower[i]! - slack && candidate[i]! <= upper[i]! + slack;
+    else if (held[i] === -1) holds = g >= -signSlack;
+    else if (held[i] === 1) holds = g <= signSlack;
   }
-  if (!solved) {
-    // The interior-point steps go on with their own system.
-    systemBand(band, work);
-    for (let i = 0; i < n; i++)
-      system.diag[i] = fixed[i] ? 1 : band.diag[i]! + z[i]! * inverseS[i]! + w[i]! * inverseT[i]!;
-    return false;
-  }
-  for (let i = 0; i < n; i++) x[i] = Math.min(upper[i]!, Math.max(lower[i]!, candidate[i]!));
-  return true;
+  return holds;
+}
+
+/** The interior-point system's diagonal Q + Z/S + W/T (1 for a fixed variable). */
+function barrierDiagonal(band: PentaBand, work: BoxQpWorkspace): void {
+  const { system, z, w, inverseS, inverseT, fixed } = work;
+  for (let i = 0; i < band.count; i++)
+    system.diag[i] = fixed[i] ? 1 : band.diag[i]! + z[i]! * inverseS[i]! + w[i]! * inverseT[i]!;
 }
 
 /** Pushes the start just inside the box (x) and fixes the variables whose box has no width; returns how many
@@ -249,6 +288,26 @@ interface ProblemScale {
   largestTerm: number;
 }
 
+/** The gradient Q x + q at the start into work.gradient; returns the sum of |g| times the width over the free
+ * variables. */
+function startGradient(
+  band: PentaBand,
+  q: Float64Array,
+  lower: Float64Array,
+  upper: Float64Array,
+  x: Float64Array,
+  work: BoxQpWorkspace,
+): number {
+  const { gradient: g, fixed } = work;
+  multiplyBand(band, x, g);
+  let sum = 0;
+  for (let i = 0; i < band.count; i++) {
+    g[i]! += q[i]!;
+    if (!fixed[i]) sum += Math.abs(g[i]!) * (upper[i]! - lower[i]!);
+  }
+  return sum;
+}
+
 /**
  * Multipliers from the gradient at the start, each at least a small share of the gradient's scale over the
  * width, so that every product s z and t w starts positive and of one size.
@@ -264,12 +323,7 @@ function startMultipliers(
 ): ProblemScale {
   const n = band.count;
   const { z, w, gradient: g, dz, dw, fixed } = work;
-  multiplyBand(band, x, g);
-  let scale = 0;
-  for (let i = 0; i < n; i++) {
-    g[i]! += q[i]!;
-    if (!fixed[i]) scale += Math.abs(g[i]!) * (upper[i]! - lower[i]!);
-  }
+  let scale = startGradient(band, q, lower, upper, x, work);
   scale = free > 0 ? scale / free : 0;
   if (!(scale > 0)) scale = 1;
   let largestTerm = 0;
@@ -337,6 +391,76 @@ function measure(
   out.largestResidual = largestResidual;
 }
 
+// The steps of Mehrotra's predictor-corrector below each run one loop over the points in a function of its own
+// that ends on a plain return: V8 compiles a long loop while it runs (on-stack replacement), before the code after
+// it has ever run, and one function holding every loop was compiled again for each of them in a new process and
+// sent back to the interpreter from code without type feedback, which the first racing line of a run paid for.
+
+/** The predictor's multiplier steps from dx: dz = -z (1 + dx / s), dw = -w (1 - dx / t). */
+function affineMultiplierSteps(work: BoxQpWorkspace): void {
+  const { z, w, inverseS, inverseT, dx, dz, dw, fixed } = work;
+  for (let i = 0; i < dx.length; i++) {
+    if (fixed[i]) continue;
+    dz[i] = -z[i]! * (1 + dx[i]! * inverseS[i]!);
+    dw[i] = -w[i]! * (1 - dx[i]! * inverseT[i]!);
+  }
+}
+
+/** The duality gap after the predictor's step, `primal` along dx and `dual` along dz and dw. */
+function affineGap(
+  lower: Float64Array,
+  upper: Float64Array,
+  x: Float64Array,
+  work: BoxQpWorkspace,
+  primal: number,
+  dual: number,
+): number {
+  const { z, w, dx, dz, dw, fixed } = work;
+  let gapAffine = 0;
+  for (let i = 0; i < x.length; i++) {
+    if (fixed[i]) continue;
+    const d = primal * dx[i]!;
+    gapAffine += (x[i]! - lower[i]! + d) * (z[i]! + dual * dz[i]!) + (upper[i]! - x[i]! - d) * (w[i]! + dual * dw[i]!);
+  }
+  return gapAffine;
+}
+
+/** The corrector's right-hand side: centring on `target` and the affine step's second-order term. */
+function correctorRhs(work: BoxQpWorkspace, target: number): void {
+  const { z, w, gradient: g, inverseS, inverseT, rhs, dx, dz, dw, fixed } = work;
+  for (let i = 0; i < dx.length; i++) {
+    if (fixed[i]) continue;
+    const d = dx[i]!;
+    const iS = inverseS[i]!;
+    const iT = inverseT[i]!;
+    // Right-hand side first (it needs the affine steps), then the affine parts of the multipliers' steps.
+    rhs[i] = -g[i]! + target * (iS - iT) - d * dz[i]! * iS - d * dw[i]! * iT;
+    dz[i] = (target - d * dz[i]!) * iS - z[i]!;
+    dw[i] = (target + d * dw[i]!) * iT - w[i]!;
+  }
+}
+
+/** The corrector's multiplier steps, completed with the parts that follow its dx. */
+function correctorMultiplierSteps(work: BoxQpWorkspace): void {
+  const { z, w, inverseS, inverseT, dx, dz, dw, fixed } = work;
+  for (let i = 0; i < dx.length; i++) {
+    if (fixed[i]) continue;
+    dz[i]! -= z[i]! * dx[i]! * inverseS[i]!;
+    dw[i]! += w[i]! * dx[i]! * inverseT[i]!;
+  }
+}
+
+/** x, z and w moved `primal` along dx and `dual` along dz and dw. */
+function takeStep(x: Float64Array, work: BoxQpWorkspace, primal: number, dual: number): void {
+  const { z, w, dx, dz, dw, fixed } = work;
+  for (let i = 0; i < x.length; i++) {
+    if (fixed[i]) continue;
+    x[i]! += primal * dx[i]!;
+    z[i]! += dual * dz[i]!;
+    w[i]! += dual * dw[i]!;
+  }
+}
+
 /**
  * One step of Mehrotra's predictor-corrector from x (its system measured and factored): false when a solve
  * fails. `steps` holds the primal and dual step lengths.
@@ -350,53 +474,21 @@ function predictorCorrector(
   work: BoxQpWorkspace,
   steps: Float64Array,
 ): boolean {
-  const n = x.length;
-  const { z, w, gradient: g, inverseS, inverseT, rhs, dx, dz, dw, fixed } = work;
+  const { rhs, dx } = work;
   // Predictor (affine scaling): the Newton step towards a zero gap, dx from -g, the multipliers' from dx, and
   // the longest steps that keep x inside the box and the multipliers positive.
   if (!solveSystem(work, rhs, dx)) return false;
-  for (let i = 0; i < n; i++) {
-    if (fixed[i]) continue;
-    dz[i] = -z[i]! * (1 + dx[i]! * inverseS[i]!);
-    dw[i] = -w[i]! * (1 - dx[i]! * inverseT[i]!);
-  }
+  affineMultiplierSteps(work);
   longestSteps(work, 1, steps);
-  let primal = steps[0]!;
-  let dual = steps[1]!;
   // The gap that step would reach gives the centring weight sigma = (mu_aff / mu)^3; the corrector adds the
   // centring and the affine step's second-order term to the right-hand side.
-  let gapAffine = 0;
-  for (let i = 0; i < n; i++) {
-    if (fixed[i]) continue;
-    const d = primal * dx[i]!;
-    gapAffine += (x[i]! - lower[i]! + d) * (z[i]! + dual * dz[i]!) + (upper[i]! - x[i]! - d) * (w[i]! + dual * dw[i]!);
-  }
+  const gapAffine = affineGap(lower, upper, x, work, steps[0]!, steps[1]!);
   const target = Math.min(1, (gapAffine / gap) ** 3) * mu;
-  for (let i = 0; i < n; i++) {
-    if (fixed[i]) continue;
-    const d = dx[i]!;
-    const iS = inverseS[i]!;
-    const iT = inverseT[i]!;
-    // Right-hand side first (it needs the affine steps), then the affine parts of the multipliers' steps.
-    rhs[i] = -g[i]! + target * (iS - iT) - d * dz[i]! * iS - d * dw[i]! * iT;
-    dz[i] = (target - d * dz[i]!) * iS - z[i]!;
-    dw[i] = (target + d * dw[i]!) * iT - w[i]!;
-  }
+  correctorRhs(work, target);
   if (!solveSystem(work, rhs, dx)) return false;
-  for (let i = 0; i < n; i++) {
-    if (fixed[i]) continue;
-    dz[i]! -= z[i]! * dx[i]! * inverseS[i]!;
-    dw[i]! += w[i]! * dx[i]! * inverseT[i]!;
-  }
+  correctorMultiplierSteps(work);
   longestSteps(work, STEP_TO_BOUNDARY, steps);
-  primal = steps[0]!;
-  dual = steps[1]!;
-  for (let i = 0; i < n; i++) {
-    if (fixed[i]) continue;
-    x[i]! += primal * dx[i]!;
-    z[i]! += dual * dz[i]!;
-    w[i]! += dual * dw[i]!;
-  }
+  takeStep(x, work, steps[0]!, steps[1]!);
   return true;
 }
 
@@ -445,6 +537,6 @@ export function solveBoxQp(
     if (n >= SMALLEST_CYCLIC_PENTA && !factorPenta(work.system, work.factor)) break;
     if (!predictorCorrector(lower, upper, x, gap / (2 * free), gap, work, steps)) break;
   }
-  for (let i = 0; i < n; i++) x[i] = Math.min(upper[i]!, Math.max(lower[i]!, x[i]!));
+  clampInto(x, lower, upper, x);
   return { x, iterations, converged };
 }

@@ -9,6 +9,7 @@ import { resampleLinear, type ResampleChannel } from '../track/geometry.js';
 import { isInputError } from '../errors.js';
 import { corridorOf, type Corridor } from './corridor.js';
 import { splineOffsets } from './resample-line.js';
+import { clampInto } from './box-qp.js';
 
 /** Spacing of the coarse grid, m: fine enough for the default 30 m centreline smoothing (7 points a wavelength). */
 export const COARSE_STEP_M = 4;
@@ -86,7 +87,5 @@ export function prolongOffsets(
   offsetM: Float64Array,
 ): Float64Array {
   const fine = splineOffsets(track, coarse.distanceM, offsetM);
-  for (let i = 0; i < fine.length; i++)
-    fine[i] = Math.min(corridor.upperM[i]!, Math.max(corridor.lowerM[i]!, fine[i]!));
-  return fine;
+  return clampInto(fine, corridor.lowerM, corridor.upperM, fine);
 }

@@ -20,7 +20,7 @@ import {
   segmentCurvature,
   type OffsetGrid,
 } from './geometry.js';
-import { boxQpWorkspace, solveBoxQp, type BoxQpWorkspace } from './box-qp.js';
+import { boxQpWorkspace, clampInto, solveBoxQp, type BoxQpWorkspace } from './box-qp.js';
 import { emptyBand, type PentaBand } from './penta-band.js';
 
 export interface OffsetWeights {
@@ -83,15 +83,23 @@ export function offsetObjective(
   slope: Float64Array,
   scratch: Pick<Scratch, 'kappa' | 'lengths'> = scratchFor(offsetM.length, track.closed),
 ): number {
-  const kappa = lineCurvature(track, offsetM, slope, scratch.kappa);
+  let sum = weightedSquares(weights.curvature, lineCurvature(track, offsetM, slope, scratch.kappa));
+  if (weights.length && weights.lengthWeight > 0)
+    sum += weights.lengthWeight * weightedSum(weights.length, lineSegmentLengths(track, offsetM, scratch.lengths));
+  return sum;
+}
+
+/** sum w_i v_i^2. */
+function weightedSquares(weight: Float64Array, values: Float64Array): number {
   let sum = 0;
-  for (let i = 0; i < kappa.length; i++) sum += weights.curvature[i]! * kappa[i]! * kappa[i]!;
-  if (weights.length && weights.lengthWeight > 0) {
-    const lengths = lineSegmentLengths(track, offsetM, scratch.lengths);
-    let lengthSum = 0;
-    for (let i = 0; i < lengths.length; i++) lengthSum += weights.length[i]! * lengths[i]!;
-    sum += weights.lengthWeight * lengthSum;
-  }
+  for (let i = 0; i < values.length; i++) sum += weight[i]! * values[i]! * values[i]!;
+  return sum;
+}
+
+/** sum w_i v_i. */
+function weightedSum(weight: Float64Array, values: Float64Array): number {
+  let sum = 0;
+  for (let i = 0; i < values.length; i++) sum += weight[i]! * values[i]!;
   return sum;
 }
 
@@ -135,13 +143,27 @@ function buildModel(
   slope: Float64Array,
   scratch: Scratch,
 ): void {
-  const count = offsetM.length;
-  const closed = track.closed;
-  const { band, q, partials } = scratch;
+  const { band, q } = scratch;
   band.diag.fill(0);
   band.off1.fill(0);
   band.off2.fill(0);
   q.fill(0);
+  addCurvatureTerms(track, weights.curvature, offsetM, slope, scratch);
+  if (weights.length && weights.lengthWeight > 0)
+    addLengthTerms(track, weights.length, weights.lengthWeight, offsetM, scratch);
+}
+
+/** The curvature term's residuals, linearised about `offsetM`, into the model. */
+function addCurvatureTerms(
+  track: OffsetGrid,
+  curvatureWeight: Float64Array,
+  offsetM: Float64Array,
+  slope: Float64Array,
+  scratch: Scratch,
+): void {
+  const count = offsetM.length;
+  const closed = track.closed;
+  const { band, q, partials } = scratch;
   const h = track.stepM;
   const kc = track.curvaturePerM;
   for (let i = 0; i < count; i++) {
@@ -172,19 +194,54 @@ function buildModel(
     const ip = closed ? (i === 0 ? count - 1 : i - 1) : i - 1;
     const inx = closed ? (i + 1 === count ? 0 : i + 1) : i + 1;
     const e = kappa0 - cm * n - (ip >= 0 ? cp * offsetM[ip]! : 0) - (inx < count ? cn * offsetM[inx]! : 0);
-    addResidual3(band, q, i, cp, cm, cn, e, weights.curvature[i]!);
+    addResidual3(band, q, i, cp, cm, cn, e, curvatureWeight[i]!);
   }
-  if (weights.length && weights.lengthWeight > 0) {
-    const segments = closed ? count : count - 1;
-    const lengths = lineSegmentLengths(track, offsetM, scratch.lengths);
-    for (let i = 0; i < segments; i++) {
-      const weight = (weights.lengthWeight * weights.length[i]!) / (2 * lengths[i]!);
-      const half = 0.5 * h * segmentCurvature(kc, i);
-      // l_i^2 = (h - half (n_i + n_j))^2 + (n_j - n_i)^2, two linear residuals over columns i, i + 1.
-      addResidual3(band, q, i, 0, -half, -half, h, weight);
-      addResidual3(band, q, i, 0, -1, 1, 0, weight);
-    }
+}
+
+/** The length term's residuals into the model (the minimum-time line's; the minimum-curvature line has none). */
+function addLengthTerms(
+  track: OffsetGrid,
+  length: Float64Array,
+  lengthWeight: number,
+  offsetM: Float64Array,
+  scratch: Scratch,
+): void {
+  const { band, q } = scratch;
+  const h = track.stepM;
+  const kc = track.curvaturePerM;
+  const segments = track.closed ? offsetM.length : offsetM.length - 1;
+  const lengths = lineSegmentLengths(track, offsetM, scratch.lengths);
+  for (let i = 0; i < segments; i++) {
+    const weight = (lengthWeight * length[i]!) / (2 * lengths[i]!);
+    const half = 0.5 * h * segmentCurvature(kc, i);
+    // l_i^2 = (h - half (n_i + n_j))^2 + (n_j - n_i)^2, two linear residuals over columns i, i + 1.
+    addResidual3(band, q, i, 0, -half, -half, h, weight);
+    addResidual3(band, q, i, 0, -1, 1, 0, weight);
   }
+}
+
+// The loops over the points live in small functions of their own that end on a plain return (here and in
+// box-qp.ts): V8 compiles a long loop while it runs (on-stack replacement), and a driver holding them all was compiled
+// whole for each of its loops in a new process and sent back to the interpreter from code after them that had no
+// type feedback yet, which the first racing line of a run paid for in compile time.
+
+function sumOf(values: Float64Array): number {
+  let sum = 0;
+  for (let i = 0; i < values.length; i++) sum += values[i]!;
+  return sum;
+}
+
+/** Damping mu |x - n0|^2 adds mu to the diagonal and -mu n0 to q (a negative mu takes it off again, exactly). */
+function addDamping(band: PentaBand, q: Float64Array, centre: Float64Array, damping: number): void {
+  for (let i = 0; i < centre.length; i++) {
+    band.diag[i]! += damping;
+    q[i]! -= damping * centre[i]!;
+  }
+}
+
+/** The point `t` of the way from `from` to `to`, into `out`. */
+function pointAlong(from: Float64Array, to: Float64Array, t: number, out: Float64Array): void {
+  for (let i = 0; i < from.length; i++) out[i] = from[i]! + t * (to[i]! - from[i]!);
 }
 
 /** Minimises F inside the corridor, starting from `start` (clipped into the corridor). */
@@ -201,40 +258,30 @@ export function optimiseOffsets(
   const { band, q, step } = scratch;
   const lower = corridor.lowerM;
   const upper = corridor.upperM;
-  let current = new Float64Array(count);
+  let current = clampInto(start, lower, upper, new Float64Array(count));
   let trial = new Float64Array(count);
-  for (let i = 0; i < count; i++) current[i] = Math.min(upper[i]!, Math.max(lower[i]!, start[i]!));
   let value = offsetObjective(track, weights, current, slope, scratch);
   let damping = -1;
   let iterations = 0;
   let qpSteps = 0;
   for (; iterations < options.maxIterations; iterations++) {
     buildModel(track, weights, current, slope, scratch);
-    let scale = 0;
-    for (let i = 0; i < count; i++) scale += band.diag[i]!;
-    scale = scale / count || 1;
+    const scale = sumOf(band.diag) / count || 1;
     if (damping < 0) damping = 1e-6 * scale;
     let accepted = false;
     let decrease = 0;
     for (let attempt = 0; attempt < 6 && !accepted; attempt++) {
-      // Damping mu |x - n0|^2 adds mu to the diagonal and -mu n0 to q.
-      for (let i = 0; i < count; i++) {
-        band.diag[i]! += damping;
-        q[i]! -= damping * current[i]!;
-      }
+      addDamping(band, q, current, damping);
       qpSteps += solveBoxQp(band, q, lower, upper, current, {
         maxIterations: QP_ITERATIONS,
         tolerance: QP_TOLERANCE * options.relativeTolerance * Math.abs(value),
         workspace: scratch.qp,
         out: step,
       }).iterations;
-      for (let i = 0; i < count; i++) {
-        band.diag[i]! -= damping;
-        q[i]! += damping * current[i]!;
-      }
+      addDamping(band, q, current, -damping);
       // Backtracking along the step; the corridor is convex, so every point of the step stays inside.
       for (let t = 1; t > 0.01 && !accepted; t *= 0.5) {
-        for (let i = 0; i < count; i++) trial[i] = current[i]! + t * (step[i]! - current[i]!);
+        pointAlong(current, step, t, trial);
         const trialValue = offsetObjective(track, weights, trial, slope, scratch);
         if (trialValue < value) {
           decrease = value - trialValue;
