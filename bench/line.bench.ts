@@ -2,11 +2,14 @@
 // (5.8 km, TUM racetrack-database, LGPL v3, geometry from OpenStreetMap, read from ../shared and skipped with a
 // message where absent) at 1 m: the minimum-curvature line under 0.15 s and the minimum-time line under 0.6 s of
 // CPU; then the minimum-curvature line's work on the track's own grid at 2, 1 and 0.5 m, whose Gauss-Newton
-// iterations must not grow with the grid and whose CPU per point per interior-point step must stay flat.
+// iterations must not grow with the grid and whose CPU per point per interior-point step must stay flat. Last, the
+// first call in a fresh process (what every command on the default racing line pays: V8 compiles the solver's steps
+// while they run) beside the second, each in child processes.
 
+import { spawnSync } from 'node:child_process';
 import { existsSync, readFileSync } from 'node:fs';
 import path from 'node:path';
-import { fileURLToPath } from 'node:url';
+import { fileURLToPath, pathToFileURL } from 'node:url';
 import { trackFromSegments } from '../src/track/segments.js';
 import { readTrackFile } from '../src/io/read-track.js';
 import { parseCarJson } from '../src/io/read-car.js';
@@ -19,7 +22,7 @@ import { minimumCurvatureOffsets } from '../src/line/min-curvature.js';
 import type { TrackGrid } from '../src/track/types.js';
 import type { Car } from '../src/car/types.js';
 import { benchmarkCircuitSegments } from './simulate.bench.js';
-import { linearityVerdict, machineLoad, medianTimes, verdict } from './stats.js';
+import { linearityVerdict, machineLoad, median, medianTimes, verdict } from './stats.js';
 
 const projectRoot = fileURLToPath(new URL('../..', import.meta.url));
 const openTracks = path.resolve(projectRoot, '..', 'shared', 'data', 'open-tracks');
@@ -32,6 +35,61 @@ const openTrack = (name: string, stepM: number): TrackGrid =>
     layout: 'auto',
     smoothingM: null,
   });
+
+const haveMonza = existsSync(path.join(openTracks, 'Monza.csv'));
+
+/** Monza at this step, or the 5 km benchmark circuit where ../shared is absent. */
+const circuit = (stepM: number): TrackGrid =>
+  haveMonza
+    ? openTrack('Monza', stepM)
+    : trackFromSegments(
+        { name: 'benchmark circuit', closed: true, widthM: 12, segments: benchmarkCircuitSegments() },
+        stepM,
+        'benchmark',
+      );
+
+const tarnfell = (): Car =>
+  parseCarJson(readFileSync(`${projectRoot}cars/tarnfell-gt.json`, 'utf8'), 'cars/tarnfell-gt.json');
+
+/** Processes the first call is timed in (median of their figures). */
+const FIRST_CALL_PROCESSES = 3;
+
+interface CallTiming {
+  wallMs: number;
+  /** CPU of every thread of the process: V8 compiles on threads beside the main one. */
+  cpuMs: number;
+}
+
+/** The child's work: the time-objective line at 1 m twice, as a command computes it (its own envelope), each call's
+ * wall and CPU time as one JSON line. */
+function firstCallsInThisProcess(): void {
+  const car = tarnfell();
+  const track = circuit(1);
+  const calls: CallTiming[] = [];
+  for (let k = 0; k < 2; k++) {
+    const cpuStart = process.cpuUsage();
+    const started = performance.now();
+    racingLine(track, car);
+    const cpu = process.cpuUsage(cpuStart);
+    calls.push({ wallMs: performance.now() - started, cpuMs: (cpu.user + cpu.system) / 1000 });
+  }
+  process.stdout.write(JSON.stringify(calls) + '\n');
+}
+
+/** The first and second call's medians over FIRST_CALL_PROCESSES fresh processes. */
+function firstCalls(): { first: CallTiming; second: CallTiming } {
+  const runs: CallTiming[][] = [];
+  for (let k = 0; k < FIRST_CALL_PROCESSES; k++) {
+    const child = spawnSync(process.execPath, [fileURLToPath(import.meta.url), '--first-call'], { encoding: 'utf8' });
+    if (child.status !== 0) throw new Error(`line bench child failed: ${child.stderr}`);
+    runs.push(JSON.parse(child.stdout) as CallTiming[]);
+  }
+  const medianOf = (call: number): CallTiming => ({
+    wallMs: median(runs.map((calls) => calls[call]!.wallMs)),
+    cpuMs: median(runs.map((calls) => calls[call]!.cpuMs)),
+  });
+  return { first: medianOf(0), second: medianOf(1) };
+}
 
 /** The minimum-curvature line's last stage, on the track's own grid from the coarse grid's line: Gauss-Newton
  * iterations, interior-point steps, and CPU per point per step. */
@@ -59,18 +117,9 @@ function fineStage(
 }
 
 export async function run(): Promise<void> {
-  const car = parseCarJson(readFileSync(`${projectRoot}cars/tarnfell-gt.json`, 'utf8'), 'cars/tarnfell-gt.json');
+  const car = tarnfell();
   const ambient = ambientFrom();
   const envelope = buildEnvelope(car, ambient);
-  const haveMonza = existsSync(path.join(openTracks, 'Monza.csv'));
-  const circuit = (stepM: number): TrackGrid =>
-    haveMonza
-      ? openTrack('Monza', stepM)
-      : trackFromSegments(
-          { name: 'benchmark circuit', closed: true, widthM: 12, segments: benchmarkCircuitSegments() },
-          stepM,
-          'benchmark',
-        );
   if (!haveMonza)
     process.stdout.write(`(Monza skipped: ${openTracks} is absent; the 5 km benchmark circuit stands in)\n`);
 
@@ -117,4 +166,13 @@ export async function run(): Promise<void> {
     `  iterations ${iterations.join(', ')} at 2, 1, 0.5 m: ${flat ? 'not growing with the grid' : 'GROWING with the grid'} (target: at 0.5 m at most one more than at 2 m)\n`,
   );
   process.stdout.write(`  ${linearityVerdict(stages.map((s) => s.nsPerPointStep))}; ${machineLoad()}\n`);
+
+  const { first, second } = firstCalls();
+  process.stdout.write(
+    `line time      ${track.name} at 1 m in a fresh process (median of ${FIRST_CALL_PROCESSES}): first call ${first.wallMs.toFixed(0)} ms wall, ${first.cpuMs.toFixed(0)} ms CPU; ` +
+      `second call ${second.wallMs.toFixed(0)} ms wall, ${second.cpuMs.toFixed(0)} ms CPU (first / second CPU ${(first.cpuMs / second.cpuMs).toFixed(2)} x; ${machineLoad()})\n`,
+  );
 }
+
+if (process.argv[1] && import.meta.url === pathToFileURL(process.argv[1]).href && process.argv.includes('--first-call'))
+  firstCallsInThisProcess();
