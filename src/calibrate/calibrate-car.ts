@@ -13,6 +13,7 @@ import { DEFAULT_DRIVE_FIT, fitDrive, type DriveFit, type DriveFitOptions } from
 import { DEFAULT_GRIP_FIT, fitGrip, GRIP_FIELDS, type GripFit, type GripFitOptions } from './grip-fit.js';
 import { withDriveScaled } from './drive-scale.js';
 import { outOfBounds, USEFUL_RELATIVE_POWER_SD } from './limits.js';
+import { metricNoteText, type Note } from '../note.js';
 
 export const POWER_FIELD = 'powertrain.maxPowerW';
 export const DRAG_FIELD = 'aero.dragAreaM2';
@@ -30,7 +31,7 @@ export interface FittedValue {
 export interface KeptValue {
   field: string;
   value: number;
-  reason: string;
+  reason: Note;
 }
 
 export interface CalibrationResult {
@@ -43,7 +44,7 @@ export interface CalibrationResult {
   grip: GripFit;
   /** Where a derived lateral acceleration came from (null: the log measured it). */
   lateralPath: LateralPathSummary | null;
-  notes: string[];
+  notes: Note[];
 }
 
 export interface CalibrateOptions {
@@ -134,7 +135,8 @@ function fittedAndKept(
     kept.push({
       field: DRAG_FIELD,
       value: base.aero.dragAreaM2,
-      reason: drive.notes.find((note) => note.includes('drag')) ?? 'not separable from power in this log',
+      reason:
+        drive.notes.find((note) => metricNoteText(note).includes('drag')) ?? 'not separable from power in this log',
     });
   grip.fields.forEach((field, k) => {
     fitted.push({
@@ -266,6 +268,6 @@ function originOf(
   const driveText = `fitted from ${samples.source}: ${drive.durationS.toFixed(0)} s of full throttle in ${drive.stretches} stretch${drive.stretches === 1 ? '' : 'es'}`;
   const gripText = `fitted from ${samples.source}: ${grip.samples} samples near the limit in ${grip.clusters} corner passes`;
   for (const f of fitted) origin[f.field] = f.field === POWER_FIELD || f.field === DRAG_FIELD ? driveText : gripText;
-  for (const k of kept) origin[k.field] = `kept from the base car: ${k.reason}`;
+  for (const k of kept) origin[k.field] = `kept from the base car: ${metricNoteText(k.reason)}`;
   return origin;
 }

@@ -9,6 +9,7 @@ import type { DriverLap } from '../compare/types.js';
 import type { LapCut } from '../compare/laps.js';
 import { placeSession } from '../compare/place-session.js';
 import { driverPath } from '../compare/driver-line/driver-path.js';
+import { densityOf, distanceOf, note, speedsOf, type Note } from '../note.js';
 
 /**
  * The largest noise the driver's path may leave in the lateral acceleration, m/s^2 (at the speed where the
@@ -37,7 +38,7 @@ export interface LateralPathSummary {
 export interface LateralPath {
   curvaturePerM: Float64Array;
   summary: LateralPathSummary;
-  note: string;
+  note: Note;
 }
 
 export function lateralPath(
@@ -46,7 +47,7 @@ export function lateralPath(
   cuts: readonly LapCut[],
   laps: readonly DriverLap[],
 ): LateralPath {
-  const centreline = (reason: string, estimate: Omit<LateralPathSummary, 'path' | 'laps'> | null): LateralPath => ({
+  const centreline = (reason: Note, estimate: Omit<LateralPathSummary, 'path' | 'laps'> | null): LateralPath => ({
     curvaturePerM: track.curvaturePerM,
     summary: {
       path: 'centreline',
@@ -56,7 +57,7 @@ export function lateralPath(
       fixes: estimate?.fixes ?? 0,
       laps: laps.length,
     },
-    note: `no lateral acceleration in the log: taken as the speed squared times the curvature of the track's centreline (${reason}); a driver who uses the track's width turns wider than the centreline, so the grip comes out high`,
+    note: note`no lateral acceleration in the log: taken as the speed squared times the curvature of the track's centreline (${reason}); a driver who uses the track's width turns wider than the centreline, so the grip comes out high`,
   });
   const placed = placeSession(session, track);
   if (!placed) return centreline('the log has no positions', null);
@@ -70,7 +71,10 @@ export function lateralPath(
     speedMps: meanSpeedMps,
   });
   if (!path)
-    return centreline("the laps' position fixes are more than 5 m apart, too sparse for a path of their own", null);
+    return centreline(
+      note`the laps' position fixes are more than ${distanceOf(5)} apart, too sparse for a path of their own`,
+      null,
+    );
   // The speed at which the smoothing's cut-off holds (v^4 at its mean along the lap, ../compare/driver-line): the
   // noise in v^2 kappa is read there, and changes little elsewhere (the smoothing follows v^4, so the curvature's
   // noise falls about as v^2 rises).
@@ -83,15 +87,15 @@ export function lateralPath(
     ayNoiseMps2: path.curvatureSdPerM * speedMps * speedMps,
     fixes: path.fixes,
   };
-  const figures = `positions scatter ${path.noiseM.toFixed(2)} m across the track, ${path.fixesPerM.toFixed(1)} fixes per metre over ${laps.length} lap${laps.length > 1 ? 's' : ''}`;
+  const figures = note`positions scatter ${distanceOf(path.noiseM, 2)} across the track, ${densityOf(path.fixesPerM, 1, 'fixes')} over ${laps.length} lap${laps.length > 1 ? 's' : ''}`;
   if (!(estimate.ayNoiseMps2 <= MAX_PATH_AY_NOISE_MPS2))
     return centreline(
-      `${figures}: the driver's own path would carry ${estimate.ayNoiseMps2.toFixed(1)} m/s² of noise at ${speedMps.toFixed(0)} m/s, more than the ${MAX_PATH_AY_NOISE_MPS2} m/s² allowed`,
+      note`${figures}: the driver's own path would carry ${estimate.ayNoiseMps2.toFixed(1)} m/s² of noise at ${speedsOf([speedMps])}, more than the ${MAX_PATH_AY_NOISE_MPS2} m/s² allowed`,
       estimate,
     );
   return {
     curvaturePerM: path.curvaturePerM,
     summary: { path: 'driver', ...estimate, laps: laps.length },
-    note: `no lateral acceleration in the log: taken as the speed squared times the curvature of the driver's own path, estimated from the fixes of every complete lap (${figures}; smoothed to a cut-off wavelength of ${path.cutoffM.toFixed(0)} m, leaving about ${estimate.ayNoiseMps2.toFixed(2)} m/s² of noise at ${speedMps.toFixed(0)} m/s)`,
+    note: note`no lateral acceleration in the log: taken as the speed squared times the curvature of the driver's own path, estimated from the fixes of every complete lap (${figures}; smoothed to a cut-off wavelength of ${distanceOf(path.cutoffM)}, leaving about ${estimate.ayNoiseMps2.toFixed(2)} m/s² of noise at ${speedsOf([speedMps])})`,
   };
 }

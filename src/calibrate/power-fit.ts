@@ -10,7 +10,8 @@ import { InputError } from '../errors.js';
 import { buildEnvelope } from '../car/build-envelope.js';
 import { driveForceTable } from '../car/drive-force.js';
 import { totalMassKg } from '../car/point-mass.js';
-import { STANDARD_GRAVITY_MPS2, mpsToKph } from '../units.js';
+import { STANDARD_GRAVITY_MPS2 } from '../units.js';
+import { note, speedsOf, type Note } from '../note.js';
 import type { CalibrationSamples } from './samples.js';
 import { ordinaryLeastSquares } from './linear-fit.js';
 import { crossProduct, formatIndex, identifiability } from './identify.js';
@@ -56,7 +57,7 @@ export interface DriveFit {
   speedRangeMps: [number, number];
   residualSdMps2: number;
   conditionIndex: number;
-  notes: string[];
+  notes: Note[];
 }
 
 /** How much more the tyres must be able to give than the engine for a sample to count as drive-limited. */
@@ -162,7 +163,7 @@ function fitOnce(
       hi = Math.max(hi, v);
     }
   });
-  const notes: string[] = [];
+  const notes: Note[] = [];
   // Power and drag are told apart by how the force falls with speed: over a narrow speed range they are not.
   const diagnosis = identifiability(crossProduct(design, 2, n));
   const dragSeparable = diagnosis.entanglements.length === 0 && diagnosis.uninformed.length === 0;
@@ -182,7 +183,7 @@ function fitOnce(
     notes.push(
       fit
         ? `drag is too loosely determined by this log (standard error ${dragSd.toPrecision(2)} m²): kept from the base car, power fitted given it`
-        : `power and drag cannot be separated from this log (full throttle only between ${mpsToKph(lo).toFixed(0)} and ${mpsToKph(hi).toFixed(0)} km/h, condition index ${formatIndex(diagnosis.conditionNumber)}): drag kept from the base car, power fitted given it`,
+        : note`power and drag cannot be separated from this log (full throttle only between ${speedsOf([lo, hi], ' and ')}, condition index ${formatIndex(diagnosis.conditionNumber)}): drag kept from the base car, power fitted given it`,
     );
     fit = trimmedFit(single, adjusted, 1, cluster, stretches.length);
   }

@@ -11,6 +11,7 @@ import { cutLaps, type LapCut } from '../compare/laps.js';
 import { lateralPath, type LateralPathSummary } from './lateral-path.js';
 import { alignLapWithNotes } from '../compare/align.js';
 import { correlation, speedFromPositions } from '../compare/derive.js';
+import { metricNoteText, type Note } from '../note.js';
 
 export interface CalibrationSamples {
   source: string;
@@ -31,7 +32,7 @@ export interface CalibrationSamples {
   derivedChannels: string[];
   /** Where a derived lateral acceleration came from (null where the log measured it). */
   lateralPath: LateralPathSummary | null;
-  notes: string[];
+  notes: Note[];
 }
 
 /** The note on a grip fitted from derived accelerations. */
@@ -58,7 +59,7 @@ export function calibrationSamples(session: TelemetrySession, track: TrackGrid |
 
 function sessionSamples(session: TelemetrySession): CalibrationSamples {
   const n = session.count;
-  const notes: string[] = [];
+  const notes: Note[] = [];
   const derivedChannels: string[] = [];
   let speedMps = session.speedMps;
   if (!speedMps) {
@@ -115,7 +116,9 @@ function lapSamples(session: TelemetrySession, track: TrackGrid): CalibrationSam
     if (!lapCut.complete) continue;
     cuts.push(lapCut);
     const aligned = alignLapWithNotes(session, lapCut, track);
-    for (const note of aligned.notes) if (!notes.includes(note)) notes.push(note);
+    // Each lap's alignment says the same things: keep one of each.
+    for (const note of aligned.notes)
+      if (!notes.some((held) => metricNoteText(held) === metricNoteText(note))) notes.push(note);
     laps.push(aligned.lap);
   }
   if (laps.length === 0)

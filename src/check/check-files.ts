@@ -9,6 +9,7 @@ import { InputError } from '../errors.js';
 import type { TelemetrySession } from '../telemetry/types.js';
 import { detectKind, KIND_LABELS, type FileKind } from './detect-kind.js';
 import { DEFAULT_TRACK_READ_OPTIONS } from '../io/track-read-options.js';
+import { metricNoteText } from '../note.js';
 
 /** A file's problems beyond this many are counted, not listed (a garbage file would print one per row). */
 export const MAX_PROBLEMS_PER_FILE = 50;
@@ -108,7 +109,8 @@ export async function checkText(text: string, source: string): Promise<FileCheck
     // Repeated time stamps are a note of the cell pass (it knows their lines); it runs only when the log has one.
     if (kind === 'telemetry-csv' && hasRepeatedTime(session.timeS))
       result.notes.push(...(await cellPasses()).telemetryCellProblems(text, source).notes);
-    result.notes.push(...session.notes);
+    // check speaks in the units of the files it reads.
+    result.notes.push(...session.notes.map(metricNoteText));
     result.summary = sessionSummary(kind, session);
   } catch (error) {
     const message = inputMessage(error);

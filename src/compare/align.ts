@@ -21,6 +21,7 @@ import {
 } from './derive.js';
 import { wrapIndex } from '../numeric/lap-index.js';
 import { lerp } from '../numeric/interpolate.js';
+import { metricNoteText, type Note } from '../note.js';
 
 export interface SelectOptions {
   lap?: number;
@@ -269,7 +270,7 @@ export function selectLap(
   session: TelemetrySession,
   track: TrackGrid,
   options: SelectOptions = {},
-): { lap: DriverLap; laps: LapCut[]; notes: string[] } {
+): { lap: DriverLap; laps: LapCut[]; notes: Note[] } {
   const cut = cutLaps(session, track, options.startFinish ? { startFinish: options.startFinish } : {});
   const notes = [...session.notes, ...cut.notes];
   const complete = cut.laps.filter((lap) => lap.complete);
@@ -282,10 +283,14 @@ export function selectLap(
       );
     }
     if (!chosen.complete)
-      throw new InputError(`${session.source}: --lap ${options.lap} is not a complete lap: ${chosen.reason}`);
+      throw new InputError(
+        `${session.source}: --lap ${options.lap} is not a complete lap: ${metricNoteText(chosen.reason ?? 'incomplete')}`,
+      );
   } else {
     if (complete.length === 0) {
-      const why = cut.laps.map((lap) => `lap ${lap.lapNumber}: ${lap.reason}`).join('; ');
+      const why = cut.laps
+        .map((lap) => `lap ${lap.lapNumber}: ${metricNoteText(lap.reason ?? 'incomplete')}`)
+        .join('; ');
       throw new InputError(
         `${session.source}: no complete lap in the session on track ${track.name} (${why || 'no laps'})`,
       );

@@ -16,6 +16,7 @@ import { chooseHalfWidth, pooledNoise } from './derive-window.js';
 import type { TelemetrySession } from '../telemetry/types.js';
 import { sampledMedian } from '../numeric/quantile.js';
 import { lerp } from '../numeric/interpolate.js';
+import { distanceOf, note, type Note } from '../note.js';
 
 export interface DeriveOptions {
   /** Largest standard deviation of a derived acceleration the window may leave, m/s^2. */
@@ -264,13 +265,11 @@ export function deriveSessionAccelerations(
 }
 
 /** One line for the notes: the method, its window and what it leaves. */
-export function derivationNote(quality: DerivationQuality, derived: string[]): string {
-  return (
+export function derivationNote(quality: DerivationQuality, derived: string[]): Note {
+  const method =
     `${derived.join(', ')} derived from the GPS positions${derived.includes('speedMps') ? '' : ' and speed'} ` +
-    `(Savitzky-Golay, ${(2 * quality.lateralHalfWindowS).toFixed(1)} s window, cut-off about ${quality.lateralCutoffHz.toFixed(2)} Hz, ` +
-    `for ${quality.positionNoiseM.toFixed(2)} m of position noise at ${quality.meanRateHz.toFixed(0)} Hz; ` +
-    `about ${quality.lateralNoiseMps2.toFixed(2)} m/s^2 of noise left)`
-  );
+    `(Savitzky-Golay, ${(2 * quality.lateralHalfWindowS).toFixed(1)} s window, cut-off about ${quality.lateralCutoffHz.toFixed(2)} Hz, `;
+  return note`${method}for ${distanceOf(quality.positionNoiseM, 2)} of position noise at ${quality.meanRateHz.toFixed(0)} Hz; about ${quality.lateralNoiseMps2.toFixed(2)} m/s^2 of noise left)`;
 }
 
 interface UniformRun {

@@ -6,6 +6,7 @@ import type { TrackGrid } from '../track/types.js';
 import type { TelemetrySession } from '../telemetry/types.js';
 import type { PlacedSession } from './place-session.js';
 import { sampledMedian } from '../numeric/quantile.js';
+import { distanceOf, note, type Note } from '../note.js';
 
 /** A lap must pass at least this share of the stations on the track. */
 export const MIN_COVERAGE = 0.95;
@@ -88,17 +89,17 @@ export function positionLapProblems(
   missingEnd: number,
   measured: PositionCoverage,
   allowance: number,
-): string[] {
-  const reasons: string[] = [];
+): Note[] {
+  const reasons: Note[] = [];
   if (missingStart > allowance) {
     reasons.push(
       lapNumber === 0
-        ? `out lap: the log starts ${missingStart.toFixed(0)} m after the line`
-        : `the log starts ${missingStart.toFixed(0)} m into the lap`,
+        ? note`out lap: the log starts ${distanceOf(missingStart)} after the line`
+        : note`the log starts ${distanceOf(missingStart)} into the lap`,
     );
   }
   if (missingEnd > allowance) {
-    reasons.push(`the log ends ${missingEnd.toFixed(0)} m before the line`);
+    reasons.push(note`the log ends ${distanceOf(missingEnd)} before the line`);
   }
   if (measured.coverage < MIN_COVERAGE) {
     reasons.push(
@@ -106,7 +107,7 @@ export function positionLapProblems(
     );
   }
   if (measured.worstOffM > MAX_OFF_TRACK_M) {
-    reasons.push(`leaves the track for ${measured.worstOffM.toFixed(0)} m at ${measured.worstOffAtM.toFixed(0)} m`);
+    reasons.push(note`leaves the track for ${distanceOf(measured.worstOffM)} at ${distanceOf(measured.worstOffAtM)}`);
   }
   return reasons;
 }
@@ -122,11 +123,11 @@ export function checkDistanceLapsMatch(session: TelemetrySession, track: TrackGr
 }
 
 /** Why a lap between two resets of the distance channel is left out, or undefined when it is complete. */
-export function distanceLapProblem(span: number, medianSpan: number, L: number): string | undefined {
+export function distanceLapProblem(span: number, medianSpan: number, L: number): Note | undefined {
   const complete = span >= MIN_COVERAGE * medianSpan && Math.abs(span / L - 1) <= 0.1;
   return complete
     ? undefined
-    : `measures ${span.toFixed(0)} m by the distance channel, laps measure ${medianSpan.toFixed(0)} m`;
+    : note`measures ${distanceOf(span)} by the distance channel, laps measure ${distanceOf(medianSpan)}`;
 }
 
 /** Whether a lap at an end of a log placed by distance (over [startM, endM] of the track) is complete, and why not or how finished. */
@@ -137,8 +138,8 @@ export function distanceEdgeCheck(
   missingEnd: number,
   L: number,
   allowance: number,
-): { complete: boolean; reason: string | undefined } {
-  let reason: string | undefined;
+): { complete: boolean; reason: Note | undefined } {
+  let reason: Note | undefined;
   let complete = true;
   if (endM - startM > 1.5 * L) {
     complete = false;
@@ -147,8 +148,8 @@ export function distanceEdgeCheck(
     complete = false;
     reason =
       missingStart > allowance
-        ? `out lap: starts ${missingStart.toFixed(0)} m into the lap`
-        : `the log ends ${missingEnd.toFixed(0)} m before the line`;
+        ? note`out lap: starts ${distanceOf(missingStart)} into the lap`
+        : note`the log ends ${distanceOf(missingEnd)} before the line`;
   } else if (missingStart > 0 || missingEnd > 0) {
     reason = 'lap time extrapolated over the last metres before the line';
   }

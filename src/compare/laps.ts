@@ -23,6 +23,7 @@ import {
   positionLapProblems,
 } from './lap-coverage.js';
 import { sampledMedian } from '../numeric/quantile.js';
+import { distanceOf, joinNotes, note, type Note } from '../note.js';
 
 export interface LapCut {
   /** Lap 1 runs from the first line crossing to the second; lap 0 is the part before the first crossing (the
@@ -34,7 +35,7 @@ export interface LapCut {
   lapTimeS: number;
   complete: boolean;
   /** Why an incomplete lap is left out, or how a complete one was finished (extrapolated ends). */
-  reason?: string;
+  reason?: Note;
   /** Session times of the lap's start and end at the line, s (interpolated, or extrapolated at a log's end). */
   startTimeS?: number;
   endTimeS?: number;
@@ -50,14 +51,14 @@ export function cutLaps(
   session: TelemetrySession,
   track: TrackGrid,
   options: CutOptions = {},
-): { laps: LapCut[]; notes: string[] } {
+): { laps: LapCut[]; notes: Note[] } {
   const placed = placeSession(session, track);
   const result = placed ? cutByPosition(session, track, placed, options) : cutByDistance(session, track);
   if (placed) result.notes.unshift(...placed.notes);
   for (const lap of result.laps) refuseTimeGap(lap, session.timeS);
   for (const lap of result.laps) {
-    if (!lap.complete) result.notes.push(`lap ${lap.lapNumber} left out: ${lap.reason}`);
-    else if (lap.reason) result.notes.push(`lap ${lap.lapNumber}: ${lap.reason}`);
+    if (!lap.complete) result.notes.push(note`lap ${lap.lapNumber} left out: ${lap.reason ?? 'incomplete'}`);
+    else if (lap.reason) result.notes.push(note`lap ${lap.lapNumber}: ${lap.reason}`);
   }
   return result;
 }
@@ -88,8 +89,8 @@ function cutByPosition(
   track: TrackGrid,
   placed: PlacedSession,
   options: CutOptions,
-): { laps: LapCut[]; notes: string[] } {
-  const notes: string[] = [];
+): { laps: LapCut[]; notes: Note[] } {
+  const notes: Note[] = [];
   const L = track.lengthM;
   const n = session.count;
   const t = session.timeS;
@@ -124,20 +125,20 @@ function cutByPosition(
     const reasons = positionLapProblems(lapNumber, missingStart, missingEnd, measured, allowance);
     const complete = reasons.length === 0;
     // Finish a log's ragged end by extrapolating at the speed of its first or last sample.
-    let reason: string | undefined = reasons.length > 0 ? reasons.join('; ') : undefined;
+    let reason: Note | undefined = reasons.length > 0 ? joinNotes(reasons, '; ') : undefined;
     let start = startT;
     let end = endT;
     if (start === null) {
       const v = sampleSpeed(session, placed, first);
       start = t[first]! - (missingStart > 0 && v > 0 ? missingStart / v : 0);
       if (complete && missingStart > 0)
-        reason = `the log starts ${missingStart.toFixed(1)} m after the line; start time extrapolated`;
+        reason = note`the log starts ${distanceOf(missingStart, 1)} after the line; start time extrapolated`;
     }
     if (end === null) {
       const v = sampleSpeed(session, placed, last);
       end = t[last]! + (missingEnd > 0 && v > 0 ? missingEnd / v : 0);
       if (complete && missingEnd > 0)
-        reason = `${reason ? reason + '; ' : ''}the log ends ${missingEnd.toFixed(1)} m before the line; lap time extrapolated`;
+        reason = note`${reason ? note`${reason}; ` : ''}the log ends ${distanceOf(missingEnd, 1)} before the line; lap time extrapolated`;
     }
     return lapRecord(lapNumber, first, last, start, end, complete, reason, {
       startFinishM: lineM,
@@ -183,8 +184,8 @@ function cutByPosition(
   return { laps, notes };
 }
 
-function cutByDistance(session: TelemetrySession, track: TrackGrid): { laps: LapCut[]; notes: string[] } {
-  const notes: string[] = [];
+function cutByDistance(session: TelemetrySession, track: TrackGrid): { laps: LapCut[]; notes: Note[] } {
+  const notes: Note[] = [];
   const L = track.lengthM;
   const n = session.count;
   const t = session.timeS;
@@ -267,7 +268,7 @@ function lapRecord(
   startTimeS: number,
   endTimeS: number,
   complete: boolean,
-  reason: string | undefined,
+  reason: Note | undefined,
   basis: { startFinishM: number; progressStartM: number; distanceScale?: number },
 ): LapCut {
   return {

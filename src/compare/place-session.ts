@@ -8,6 +8,7 @@ import { applyRigid, fitRigidToCentreline, projectPath } from '../track/project.
 import { reprojectPlane } from '../track/geodesy.js';
 import { sampledMedian } from '../numeric/quantile.js';
 import { radToDeg } from '../units.js';
+import { distanceOf, note, type Note } from '../note.js';
 
 /** The session's samples in the track's plane and their place along it, computed once per session and track. */
 export interface PlacedSession {
@@ -18,7 +19,7 @@ export interface PlacedSession {
   offsetM: Float64Array;
   gapM: Float64Array;
   medianGapM: number;
-  notes: string[];
+  notes: Note[];
 }
 
 /** Telemetry whose median distance to the centreline exceeds this does not belong to the track. */
@@ -30,7 +31,7 @@ export function placeSession(session: TelemetrySession, track: TrackGrid): Place
   if (!session.xM || !session.yM) return null;
   const cached = placedCache.get(session)?.get(track);
   if (cached) return cached;
-  const notes: string[] = [];
+  const notes: Note[] = [];
   let xM = session.xM;
   let yM = session.yM;
   if (session.geoOrigin && track.geoOrigin) {
@@ -41,7 +42,7 @@ export function placeSession(session: TelemetrySession, track: TrackGrid): Place
     const fit = fitRigidToCentreline(track, xM, yM);
     ({ xM, yM } = applyRigid(fit, xM, yM));
     notes.push(
-      `the track has no geo origin: GPS path laid onto the centreline by a rigid fit (turned ${radToDeg(fit.rotationRad).toFixed(1)} deg, median gap ${fit.medianGapM.toFixed(1)} m)`,
+      note`the track has no geo origin: GPS path laid onto the centreline by a rigid fit (turned ${radToDeg(fit.rotationRad).toFixed(1)} deg, median gap ${distanceOf(fit.medianGapM, 1)})`,
     );
   }
   const path = projectPath(track, xM, yM);

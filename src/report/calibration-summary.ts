@@ -6,7 +6,8 @@ import type { CalibrationResult } from '../calibrate/calibrate-car.js';
 import { formatTable } from './text-table.js';
 import { SAFETY_CAUTION } from './lap-summary.js';
 import { roundToDigits } from '../numeric/round.js';
-import { mpsToKph } from '../units.js';
+import { displayUnits, type DisplayUnits } from './units.js';
+import { noteText } from './note-text.js';
 import { formatIndex } from '../calibrate/identify.js';
 
 /** A value in the unit a reader expects: kW for power, the field's own unit otherwise. */
@@ -20,8 +21,14 @@ function digitsFor(sd: number): number {
   return sd > 0 ? Math.min(6, Math.max(0, 1 - Math.floor(Math.log10(sd)))) : 3;
 }
 
-export function calibrationText(result: CalibrationResult, base: Car): string {
+export function calibrationText(
+  result: CalibrationResult,
+  base: Car,
+  units: DisplayUnits = displayUnits('metric'),
+): string {
   const { drive, grip } = result;
+  const speedRange = (rangeMps: readonly [number, number]) =>
+    `${units.speed(rangeMps[0]).toFixed(0)} to ${units.speed(rangeMps[1]).toFixed(0)} ${units.speedLabel}`;
   const lines = [`Calibration of ${base.name}`, ''];
   if (result.fitted.length > 0) {
     lines.push('Fitted from the log (± one standard error):');
@@ -42,7 +49,8 @@ export function calibrationText(result: CalibrationResult, base: Car): string {
   }
   if (result.kept.length > 0) {
     lines.push('', 'Kept as the base car gives them:');
-    for (const k of result.kept) lines.push(`  ${k.field} = ${shown(k.field, k.value, 3)}: ${k.reason}`);
+    for (const k of result.kept)
+      lines.push(`  ${k.field} = ${shown(k.field, k.value, 3)}: ${noteText(k.reason, units)}`);
   }
   for (const set of result.notSeparable) {
     const others = set.fields.filter((field) => field !== set.kept);
@@ -53,14 +61,14 @@ export function calibrationText(result: CalibrationResult, base: Car): string {
   }
   lines.push(
     '',
-    `Full throttle: ${drive.durationS.toFixed(1)} s in ${drive.stretches} stretch${drive.stretches === 1 ? '' : 'es'}, ${mpsToKph(drive.speedRangeMps[0]).toFixed(0)} to ${mpsToKph(drive.speedRangeMps[1]).toFixed(0)} km/h, residual ${drive.residualSdMps2.toFixed(2)} m/s²`,
+    `Full throttle: ${drive.durationS.toFixed(1)} s in ${drive.stretches} stretch${drive.stretches === 1 ? '' : 'es'}, ${speedRange(drive.speedRangeMps)}, residual ${drive.residualSdMps2.toFixed(2)} m/s²`,
   );
   if (grip.samples > 0 && Number.isFinite(grip.noiseSdMps2)) {
     lines.push(
-      `Near the limit: ${grip.samples} samples in ${grip.clusters} blocks, ${mpsToKph(grip.speedRangeMps[0]).toFixed(0)} to ${mpsToKph(grip.speedRangeMps[1]).toFixed(0)} km/h; noise ${grip.noiseSdMps2.toFixed(2)} m/s², inside the boundary ${grip.insideSdMps2.toFixed(2)} m/s²`,
+      `Near the limit: ${grip.samples} samples in ${grip.clusters} blocks, ${speedRange(grip.speedRangeMps)}; noise ${grip.noiseSdMps2.toFixed(2)} m/s², inside the boundary ${grip.insideSdMps2.toFixed(2)} m/s²`,
     );
   }
-  if (result.notes.length > 0) lines.push('', ...result.notes.map((note) => `Note: ${note}`));
+  if (result.notes.length > 0) lines.push('', ...result.notes.map((note) => `Note: ${noteText(note, units)}`));
   lines.push(
     '',
     'The fitted car is what this log shows: a driver who stayed inside the limit fits a car with less grip than the tyres have.',
@@ -75,7 +83,7 @@ export function calibrationJson(result: CalibrationResult, base: Car) {
   return {
     car: base.name,
     fitted: result.fitted.map((f) => ({ field: f.field, value: f.value, sd: f.sd, base: f.base, unit: f.unit })),
-    kept: result.kept.map((k) => ({ field: k.field, value: k.value, reason: k.reason })),
+    kept: result.kept.map((k) => ({ field: k.field, value: k.value, reason: noteText(k.reason) })),
     notSeparable: result.notSeparable.map((set) => ({
       fields: set.fields,
       kept: set.kept,
@@ -97,7 +105,7 @@ export function calibrationJson(result: CalibrationResult, base: Car) {
       insideSdMps2: Number.isFinite(grip.insideSdMps2) ? roundToDigits(grip.insideSdMps2, 4) : null,
     },
     lateralAcceleration: lateralJson(result),
-    notes: result.notes,
+    notes: result.notes.map((note) => noteText(note)),
   };
 }
 

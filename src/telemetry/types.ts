@@ -2,6 +2,8 @@
 // It sits in its own folder below both src/io (which writes it) and src/compare (which reads it), so that
 // neither imports the other.
 
+import type { Note } from '../note.js';
+
 /** A whole logged session before it is cut into laps: raw samples in time order, SI units. */
 export interface TelemetrySession {
   source: string;
@@ -29,6 +31,6 @@ export interface TelemetrySession {
   altitudeM?: Float64Array | null;
   /** Latitude/longitude origin of the local plane when positions came from GPS, degrees. */
   geoOrigin: { latDeg: number; lonDeg: number } | null;
-  /** Messages for the user (skipped sentences, guessed units), one line each. */
-  notes: string[];
+  /** Messages for the user (skipped sentences, guessed units), one line each; distances as quantities. */
+  notes: Note[];
 }

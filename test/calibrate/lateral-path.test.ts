@@ -19,6 +19,9 @@ import type { LapResult } from '../../src/solve/types.js';
 import { projectRoot } from '../helpers/cli.js';
 import { syntheticSession } from './synthetic-log.js';
 import { guessedCar, knownCar, knownValues } from './known-car.js';
+import { noteText } from '../../src/report/note-text.js';
+import { displayUnits } from '../../src/report/units.js';
+import { expectConverted } from '../report/converted-quantities.js';
 
 const ambient = ambientFrom();
 const truth = knownCar;
@@ -117,15 +120,30 @@ describe('the centreline as the fallback', () => {
     const samples = calibrationSamples(gpsLog(1, 25, 2.5 / POSITION_SD_PER_UNIT), track);
     expect(samples.lateralPath?.path).toBe('centreline');
     expect(samples.lateralPath!.ayNoiseMps2!).toBeGreaterThan(MAX_PATH_AY_NOISE_MPS2);
-    expect(samples.notes.join('\n')).toMatch(
+    expect(samples.notes.map((note) => noteText(note)).join('\n')).toMatch(
       /curvature of the track's centreline \(positions scatter .* more than the 1\.75 m\/s² allowed\)/,
     );
+    // Under imperial: the scatter in feet, the fixes per foot and the speed in mph, each the metric figure converted
+    // (1 ft = 0.3048 m, 1 mph = 0.44704 m/s: NIST SP 811, appendix B); the accelerations stay m/s².
+    const pathNote = samples.notes.find((note) => noteText(note).includes('positions scatter'))!;
+    const metricText = noteText(pathNote, displayUnits('metric'));
+    const imperialText = noteText(pathNote, displayUnits('imperial'));
+    expectConverted(metricText, imperialText);
+    expect(imperialText).toMatch(/scatter \d+\.\d\d ft across the track, .* of noise at \d+ mph, more than/);
+    const perMetre = Number(/([\d.]+) fixes per metre/.exec(metricText)![1]);
+    const perFoot = Number(/([\d.]+) fixes per foot/.exec(imperialText)![1]);
+    // A foot is 0.3048 m: a tenth per metre of rounding carried over, and half a hundredth per foot.
+    expect(Math.abs(perFoot - perMetre * 0.3048)).toBeLessThanOrEqual(0.05 * 0.3048 + 0.005 + 1e-9);
   }, 60_000);
 
   it('takes the centreline where the fixes are more than 5 m apart', () => {
     // 1 Hz over four laps of a lap averaging well over 20 m/s: pooled, a fix every 5 m or more.
     const samples = calibrationSamples(gpsLog(1, 1, 0), track);
     expect(samples.lateralPath?.path).toBe('centreline');
-    expect(samples.notes.join('\n')).toMatch(/more than 5 m apart/);
+    expect(samples.notes.map((note) => noteText(note)).join('\n')).toMatch(/more than 5 m apart/);
+    // 5 m / 0.3048 = 16.4 ft (NIST SP 811, appendix B).
+    expect(samples.notes.map((note) => noteText(note, displayUnits('imperial'))).join('\n')).toMatch(
+      /more than 16 ft apart/,
+    );
   }, 60_000);
 });

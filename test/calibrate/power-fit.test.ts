@@ -10,6 +10,9 @@ import type { Car } from '../../src/car/types.js';
 import { seededRandom } from '../../src/numeric/seeded-random.js';
 import { isInputError } from '../../src/errors.js';
 import { testCar } from '../helpers/cars.js';
+import { noteText } from '../../src/report/note-text.js';
+import { displayUnits } from '../../src/report/units.js';
+import { expectConverted } from '../report/converted-quantities.js';
 
 const ambient = ambientFrom();
 const G = 9.80665;
@@ -163,7 +166,14 @@ describe('full-throttle fit', () => {
     const fit = fitDrive(base, ambient, run);
     expect(fit.dragAreaSd).toBeNull();
     expect(fit.dragAreaM2).toBe(base.aero.dragAreaM2);
-    expect(fit.notes.join(' ')).toMatch(/drag kept from the base car/);
+    expect(fit.notes.map((note) => noteText(note)).join(' ')).toMatch(/drag kept from the base car/);
+    // The speed band in mph under imperial, the km/h figures converted (1 mph = 0.44704 m/s, NIST SP 811).
+    const [metricText, imperialText] = ['metric', 'imperial'].map((system) =>
+      noteText(fit.notes[0]!, displayUnits(system as 'metric' | 'imperial')),
+    );
+    expect(metricText).toMatch(/full throttle only between \d+ and \d+ km\/h/);
+    expect(imperialText).toMatch(/full throttle only between \d+ and \d+ mph/);
+    expectConverted(metricText!, imperialText!);
   });
 
   it('refuses a log without a full-throttle stretch long enough, saying how long is needed', () => {

@@ -12,6 +12,7 @@ import { readTrackFile } from '../../src/io/read-track.js';
 import { ambientFrom } from '../../src/car/ambient.js';
 import { buildEnvelope } from '../../src/car/build-envelope.js';
 import { demoDriver, demoLogCsv, DEFAULT_DEMO_LOG } from '../../src/demo/demo-driver.js';
+import { expectConverted } from '../report/converted-quantities.js';
 
 const work = mkdtempSync(path.join(tmpdir(), 'reflap-calibrate-'));
 let log: string;
@@ -92,6 +93,32 @@ describe('reflap calibrate', () => {
     const muLat = summary.fitted.find((f: { field: string }) => f.field === 'tyre.muLat');
     expect(Math.abs(muLat.value - 1.5 * 0.985 ** 2)).toBeLessThan(3 * muLat.sd + 0.02);
     expect(existsSync(out)).toBe(true);
+    // The same fit read in mph and feet: every note's figures are the JSON's metric notes converted (1 ft = 0.3048 m,
+    // 1 mph = 0.44704 m/s: NIST SP 811, appendix B), and the full-throttle speeds the JSON's m/s in mph.
+    const imperial = runCli([
+      'calibrate',
+      '--telemetry',
+      gpsOnly,
+      '--car',
+      guess,
+      '--track',
+      track,
+      '--out',
+      out,
+      '--units',
+      'imperial',
+    ]);
+    expect(imperial.code).toBe(0);
+    const imperialNotes = imperial.stdout
+      .split('\n')
+      .flatMap((line) => (line.startsWith('Note: ') ? [line.slice(6)] : []));
+    expect(imperialNotes).toHaveLength(summary.notes.length);
+    summary.notes.forEach((metricText: string, k: number) => expectConverted(metricText, imperialNotes[k]!));
+    expect(imperialNotes.join('\n')).toMatch(/positions scatter \d+\.\d+ ft across the track/);
+    const fullThrottle = /Full throttle: .*, (\d+) to (\d+) mph, residual/.exec(imperial.stdout)!;
+    summary.fullThrottle.speedRangeMps.forEach((speedMps: number, k: number) =>
+      expect(Math.abs(Number(fullThrottle[k + 1]) - speedMps / 0.44704)).toBeLessThanOrEqual(0.5 + 0.02),
+    );
   });
 
   it('refuses a log without a long enough full-throttle stretch, saying how long is needed, and writes nothing', () => {

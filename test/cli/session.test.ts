@@ -8,6 +8,7 @@ import { describe, expect, it } from 'vitest';
 import { projectRoot, runCli } from '../helpers/cli.js';
 import { readTrace, sharedGripPair, writeSessionLog } from '../helpers/logs.js';
 import { onSharedLine } from '../helpers/shared-line.js';
+import { expectConverted } from '../report/converted-quantities.js';
 
 const track = path.join(projectRoot, 'tracks', 'velmora-downs.json');
 const carFile = path.join(projectRoot, 'cars', 'tarnfell-gt.json');
@@ -59,6 +60,21 @@ describe('a session of four laps and a partial fifth', () => {
     }
     expect(new Set(result.byTimeAvailable)).toEqual(new Set(result.corners.map((c: { id: number }) => c.id)));
     expect(readFileSync(html, 'utf8')).toMatch(/^<!DOCTYPE html>/i);
+    // Under imperial the partial lap's reason in the lap table and the notes name feet: each figure is the JSON's
+    // metric one converted (1 ft = 0.3048 m, NIST SP 811, appendix B), within both roundings.
+    const imperialHtml = path.join(work, 'session-imperial.html');
+    const imperial = session(file, ['--units', 'imperial', '--html', imperialHtml]);
+    expect(imperial.code, imperial.stderr).toBe(0);
+    const tableReason = new RegExp(`^${partial[0].lap} .* no: (.*)$`, 'm').exec(imperial.stdout)![1]!.trim();
+    expectConverted(partial[0].reason, tableReason);
+    expect(tableReason).toMatch(/\d ft\b/);
+    const imperialNotes = imperial.stdout
+      .split('\n')
+      .flatMap((line) => (line.startsWith('Note: ') ? [line.slice(6)] : []));
+    expect(imperialNotes).toHaveLength(result.notes.length);
+    result.notes.forEach((metricText: string, k: number) => expectConverted(metricText, imperialNotes[k]!));
+    // The page says the same as the terminal.
+    expect(readFileSync(imperialHtml, 'utf8')).toContain(`no: ${tableReason}`);
   });
 
   it('prints the four answers side by side, the rankings and the caution', () => {
@@ -88,10 +104,12 @@ describe('bad input', () => {
   it('refuses a log with no complete lap: one line, exit 2, nothing written', () => {
     const file = writeSessionLog(path.join(work, 'partial.csv'), [highGrip], 0.4);
     const html = path.join(work, 'never.html');
-    const run = session(file, ['--html', html]);
+    const run = session(file, ['--html', html, '--units', 'imperial']);
     expect(run.code).toBe(2);
     expect(run.stderr.trim().split('\n')).toHaveLength(1);
     expect(run.stderr).toMatch(/complete lap/);
+    // An error echoes the input, which is metric, whatever the units of the output.
+    expect(run.stderr).toMatch(/\d m (after|before|into)/);
     expect(existsSync(html)).toBe(false);
   });
 });

@@ -14,6 +14,7 @@ import type { TelemetrySession } from '../../src/telemetry/types.js';
 import { arcRanges, circuitCar, driverLapFromReference, driverLapFromSpeeds, testCircuit } from './fixtures.js';
 import { kartTrackOf, REAL_KART_LOG, realKartLogPresent } from '../helpers/real-gps.js';
 import { againstFindingText } from '../../src/report/against-phrases.js';
+import { noteText } from '../../src/report/note-text.js';
 
 const track = testCircuit();
 const car = circuitCar();
@@ -103,7 +104,7 @@ describe.skipIf(!realKartLogPresent)('a real GPS lap against a slowed copy of it
       notes: [],
     };
     const comparison = compareSession(kartTrack, kart, session, { ambient, startSpeedMps: session.speedMps![0]! });
-    expect(comparison.notes.join(' ')).toMatch(/Savitzky-Golay/);
+    expect(comparison.notes.map((note) => noteText(note)).join(' ')).toMatch(/Savitzky-Golay/);
     const other = otherLapOf(slowed, kartTrack, { optionName: '--against' }).lap;
     const result = lapAgainstLap(kartTrack, comparison.reference, comparison.lap, other, comparison.envelope);
     // time = distance / speed: the copy takes 2 % longer over the whole lap (0.01 s, the issue's tolerance).

@@ -6,6 +6,8 @@ import { alignLap, selectLap } from '../../src/compare/align.js';
 import { cutLaps } from '../../src/compare/laps.js';
 import { InputError } from '../../src/errors.js';
 import { pointAt, ringTrack, sessionOf, triangleTrack } from '../fixtures/telemetry/tracks.js';
+import { noteText } from '../../src/report/note-text.js';
+import { displayUnits } from '../../src/report/units.js';
 
 const session = sessionOf;
 
@@ -64,7 +66,11 @@ describe('alignLap', () => {
       [2, true],
       [3, false],
     ]);
-    expect(laps[0]!.reason).toMatch(/the log starts 3\.0 m after the line; start time extrapolated/);
+    expect(noteText(laps[0]!.reason!)).toMatch(/the log starts 3\.0 m after the line; start time extrapolated/);
+    // Under imperial in feet: 3.0 m / 0.3048 = 9.84 ft (NIST SP 811, appendix B), to the same tenth.
+    expect(noteText(laps[0]!.reason!, displayUnits('imperial'))).toMatch(
+      /the log starts 9\.8 ft after the line; start time extrapolated/,
+    );
     expect(laps[0]!.lapTimeS).toBeCloseTo(track.lengthM / v, 3);
   });
 

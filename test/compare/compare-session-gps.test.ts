@@ -13,6 +13,7 @@ import { ambientFrom } from '../../src/car/ambient.js';
 import { circuitCar } from './fixtures.js';
 import { closedCircuit, gpsSession } from './gps-session.js';
 import { runCli } from '../helpers/cli.js';
+import { noteText } from '../../src/report/note-text.js';
 
 const track = closedCircuit();
 const car = circuitCar();
@@ -33,7 +34,7 @@ describe('compare on a GPS-only log', () => {
         });
         const comparison = compareSession(track, car, session, { ambient: ambientFrom() });
         expect(comparison.lap.derivedChannels).toEqual(expect.arrayContaining(['axMps2', 'ayMps2']));
-        expect(comparison.notes.join(' ')).toMatch(/Savitzky-Golay/);
+        expect(comparison.notes.map((note) => noteText(note)).join(' ')).toMatch(/Savitzky-Golay/);
         const demonstrated = comparison.demonstratedLap!;
         expect(Math.abs(demonstrated.lapTimeS / reference.lapTimeS - 1)).toBeLessThan(0.02);
         expect(demonstrated.lapTimeS).toBeLessThanOrEqual(comparison.lap.lapTimeS * 1.005);
@@ -56,7 +57,9 @@ describe('compare on a GPS-only log', () => {
     });
     const comparison = compareSession(track, car, session, { ambient: ambientFrom() });
     expect(comparison.demonstratedLap).toBeNull();
-    expect(comparison.notes.join(' ')).toMatch(/no demonstrated envelope: .*too few to derive accelerations/);
+    expect(comparison.notes.map((note) => noteText(note)).join(' ')).toMatch(
+      /no demonstrated envelope: .*too few to derive accelerations/,
+    );
     expect(comparison.result.driverLapTimeS).toBeGreaterThan(0);
   });
 
@@ -73,7 +76,9 @@ describe('compare on a GPS-only log', () => {
     weakCar.tyre.muLat = weakCar.tyre.muLong = 0.65;
     const comparison = compareSession(track, weakCar, session, { ambient: ambientFrom() });
     expect(comparison.result.demonstratedCaveat).toMatch(/likely/);
-    expect(comparison.notes.join(' ')).toMatch(/doubtful: .*faster than the car model's reference.*wrong car file/);
+    expect(comparison.notes.map((note) => noteText(note)).join(' ')).toMatch(
+      /doubtful: .*faster than the car model's reference.*wrong car file/,
+    );
   });
 });
 

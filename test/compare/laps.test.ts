@@ -7,6 +7,9 @@ import { selectLap } from '../../src/compare/align.js';
 import type { TelemetrySession } from '../../src/telemetry/types.js';
 import { InputError } from '../../src/errors.js';
 import { pointAt, sessionOf, triangleTrack } from '../fixtures/telemetry/tracks.js';
+import { noteText } from '../../src/report/note-text.js';
+import { displayUnits } from '../../src/report/units.js';
+import { expectConverted } from '../report/converted-quantities.js';
 
 const track = triangleTrack(1);
 const L = track.lengthM;
@@ -62,16 +65,18 @@ describe('cutLaps', () => {
     const out = laps.find((lap) => lap.lapNumber === 0)!;
     const pitIn = laps.find((lap) => lap.lapNumber === 4)!;
     expect(out.complete).toBe(false);
-    expect(out.reason).toMatch(/out lap: the log starts 700 m after the line/);
+    expect(noteText(out.reason!)).toMatch(/out lap: the log starts 700 m after the line/);
     expect(pitIn.complete).toBe(false);
-    expect(pitIn.reason).toMatch(/the log ends \d+ m before the line/);
-    expect(pitIn.reason).toMatch(/covers \d+ % of the track/);
-    expect(notes.some((note) => note.startsWith('lap 4 left out:'))).toBe(true);
+    expect(noteText(pitIn.reason!)).toMatch(/the log ends \d+ m before the line/);
+    expect(noteText(pitIn.reason!)).toMatch(/covers \d+ % of the track/);
+    expect(notes.some((note) => noteText(note).startsWith('lap 4 left out:'))).toBe(true);
 
     const selected = selectLap(session, track);
     expect(selected.lap.lapNumber).toBe(2);
     expect(selected.lap.lapTimeS).toBeCloseTo(L / 43, 3);
-    expect(selected.notes.some((note) => /lap 2 chosen: the fastest of 3 complete laps/.test(note))).toBe(true);
+    expect(selected.notes.some((note) => /lap 2 chosen: the fastest of 3 complete laps/.test(noteText(note)))).toBe(
+      true,
+    );
   });
 
   it('picks a chosen lap, and refuses an incomplete or missing one', () => {
@@ -96,7 +101,7 @@ describe('cutLaps', () => {
     }
     const lap2 = cutLaps(session, track, {}).laps.find((lap) => lap.lapNumber === 2)!;
     expect(lap2.complete).toBe(false);
-    const stretch = /leaves the track for (\d+) m at (\d+) m/.exec(lap2.reason ?? '');
+    const stretch = /leaves the track for (\d+) m at (\d+) m/.exec(noteText(lap2.reason ?? ''));
     expect(stretch).not.toBeNull();
     // 100 m swung out, counted from the last sample on the track (20 Hz at 43 m/s: 2.15 m apart).
     expect(Number(stretch![1])).toBeGreaterThanOrEqual(98);
@@ -137,9 +142,29 @@ describe('cutLaps', () => {
       gps.yM[i] = Math.sin(angle) * x + Math.cos(angle) * y - 800;
     }
     const { laps, notes } = cutLaps(gps, track, {});
-    expect(notes[0]).toMatch(/rigid fit \(turned -73\.0 deg, median gap 0\.0 m\)/);
+    expect(noteText(notes[0]!)).toMatch(/rigid fit \(turned -73\.0 deg, median gap 0\.0 m\)/);
+    expect(noteText(notes[0]!, displayUnits('imperial'))).toMatch(
+      /rigid fit \(turned -73\.0 deg, median gap 0\.0 ft\)/,
+    );
     expect(laps.filter((lap) => lap.complete).map((lap) => lap.lapNumber)).toEqual([1, 2, 3]);
     expect(laps.find((lap) => lap.lapNumber === 2)!.lapTimeS).toBeCloseTo(L / 43, 2);
+  });
+});
+
+describe('the notes of a cut session under --units imperial', () => {
+  it('name every distance in feet, the metric figure converted (1 ft = 0.3048 m, NIST SP 811, appendix B)', () => {
+    const { session } = threeLapSession(20);
+    const { laps, notes } = cutLaps(session, track, {});
+    const texts = [...notes, ...laps.flatMap((lap) => (lap.reason ? [lap.reason] : []))].map((note) => ({
+      metric: noteText(note, displayUnits('metric')),
+      imperial: noteText(note, displayUnits('imperial')),
+    }));
+    for (const { metric, imperial } of texts) expectConverted(metric, imperial);
+    expect(texts.map(({ imperial }) => imperial).join('\n')).not.toMatch(/\d m\b/);
+    // The out lap starts 700 m after the line: 700 / 0.3048 = 2296.6 ft.
+    expect(texts.map(({ imperial }) => imperial)).toContainEqual(
+      expect.stringMatching(/^lap 0 left out: out lap: the log starts 2297 ft after the line/),
+    );
   });
 });
 
@@ -153,8 +178,8 @@ describe('a time gap inside a lap', () => {
     const { laps, notes } = cutLaps(session, track, {});
     const lap2 = laps.find((lap) => lap.lapNumber === 2)!;
     expect(lap2.complete).toBe(false);
-    expect(lap2.reason).toMatch(/^a gap of 1000000000\.\d s in the log at \d+\.\d s \(over 5 s\)$/);
-    expect(notes.some((note) => note.startsWith('lap 2 left out: a gap of'))).toBe(true);
+    expect(noteText(lap2.reason!)).toMatch(/^a gap of 1000000000\.\d s in the log at \d+\.\d s \(over 5 s\)$/);
+    expect(notes.some((note) => noteText(note).startsWith('lap 2 left out: a gap of'))).toBe(true);
     expect(laps.filter((lap) => lap.complete).map((lap) => lap.lapNumber)).toEqual([1, 3]);
     // Lap 3's time is still L / v (kinematics).
     expect(laps.find((lap) => lap.lapNumber === 3)!.lapTimeS).toBeCloseTo(L / 38, 3);

@@ -9,6 +9,7 @@ import { parseTelemetryText } from '../../src/io/telemetry/read-telemetry.js';
 import type { TelemetrySession } from '../../src/telemetry/types.js';
 import { anyText, csvText, gpxText, lineEnd, nmeaLine, resultOrInputError, runs } from './generators.js';
 import { nmeaChecksum } from '../../src/io/telemetry/nmea.js';
+import { noteText } from '../../src/report/note-text.js';
 
 function expectSoundSession(session: TelemetrySession): void {
   const n = session.count;
@@ -36,7 +37,7 @@ function expectSoundSession(session: TelemetrySession): void {
     expect(values.length).toBe(n);
     for (let i = 0; i < n; i++) if (!Number.isFinite(values[i]!)) throw new Error(`${name}[${i}] = ${values[i]}`);
   }
-  for (const note of session.notes) expect(note).not.toMatch(/[\r\n]/);
+  for (const note of session.notes) expect(noteText(note)).not.toMatch(/[\r\n]/);
 }
 
 /** Sessions read per source, so each property can show it is not only exercising the error paths. */

@@ -15,6 +15,7 @@ import { readCarFile } from '../../src/io/read-car.js';
 import { traceCsv } from '../../src/report/trace-csv.js';
 import { displayUnits } from '../../src/report/units.js';
 import { triangleTrack } from '../fixtures/telemetry/tracks.js';
+import { noteText } from '../../src/report/note-text.js';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', '..');
 const none = { columns: {} };
@@ -119,7 +120,7 @@ describe('CSV dialects', () => {
     const text = ['time,distance,speed', ...rows.map((row) => [row[0], row[1], row[2]! * 3.6].join(','))].join('\n');
     const session = parseTelemetryText(text, 'speed.csv', none);
     expect(session.speedMps![0]).toBeCloseTo(20, 9);
-    expect(session.notes.some((note) => /read as km\/h/.test(note))).toBe(true);
+    expect(session.notes.some((note) => /read as km\/h/.test(noteText(note)))).toBe(true);
   });
 
   it('follows a --telemetry-columns mapping for headers of its own', () => {
@@ -210,7 +211,7 @@ describe('simulate trace as telemetry (round trip)', () => {
       worst = Math.max(worst, Math.abs(lap.timeS[j]! - result.trace.timeS[j]!));
     expect(worst).toBeLessThan(0.005);
     expect(lap.derivedChannels).toEqual([]);
-    expect(notes.some((note) => /lap 1 chosen/.test(note))).toBe(true);
+    expect(notes.some((note) => /lap 1 chosen/.test(noteText(note)))).toBe(true);
   });
 
   it('reads an imperial trace (feet and mph columns) back as the metric one', () => {

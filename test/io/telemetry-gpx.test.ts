@@ -8,6 +8,7 @@ import { readTelemetryFile, parseTelemetryText } from '../../src/io/telemetry/re
 import { localPlane, reprojectPlane } from '../../src/track/geodesy.js';
 import { InputError } from '../../src/errors.js';
 import { wgs84Radii } from '../fixtures/telemetry/tracks.js';
+import { noteText } from '../../src/report/note-text.js';
 
 const fixtures = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', 'fixtures', 'telemetry');
 
@@ -47,7 +48,9 @@ describe('GPX 1.1', () => {
     expect(Array.from(session.altitudeM!)).toEqual([412.5, 413, 413]);
     expect(session.notes).toContain('track point elements not used: sat, x:hr');
     expect(
-      session.notes.some((note) => /^GPS altitude \(<ele>\) read on 2 of 3 fixes, 412\.5 to 413\.0 m/.test(note)),
+      session.notes.some((note) =>
+        /^GPS altitude \(<ele>\) read on 2 of 3 fixes, 412\.5 to 413\.0 m/.test(noteText(note)),
+      ),
     ).toBe(true);
   });
 

@@ -8,6 +8,8 @@ import { nmeaChecksum } from '../../src/io/telemetry/nmea.js';
 import { selectLap } from '../../src/compare/align.js';
 import { InputError } from '../../src/errors.js';
 import { ringTrack, toLatLon } from '../fixtures/telemetry/tracks.js';
+import { noteText } from '../../src/report/note-text.js';
+import { displayUnits } from '../../src/report/units.js';
 
 /** Hand-written checksum: XOR of every character code between '$' and '*'. */
 function xor(body: string): string {
@@ -79,8 +81,14 @@ describe('NMEA 0183', () => {
     expect(Array.from(session.altitudeM!)).toEqual([545.4, 547.9, 547.9]);
     expect(session.notes).toContain('sentences not used: GSV, VTG');
     expect(
-      session.notes.some((note) => /^GPS altitude \(GGA\) read on 2 of 3 fixes, 545\.4 to 547\.9 m/.test(note)),
+      session.notes.some((note) =>
+        /^GPS altitude \(GGA\) read on 2 of 3 fixes, 545\.4 to 547\.9 m/.test(noteText(note)),
+      ),
     ).toBe(true);
+    // In feet under imperial: 545.4 m / 0.3048 = 1789.4 ft, 547.9 m / 0.3048 = 1797.6 ft (NIST SP 811, appendix B).
+    expect(session.notes.map((note) => noteText(note, displayUnits('imperial')))).toContainEqual(
+      expect.stringMatching(/^GPS altitude \(GGA\) read on 2 of 3 fixes, 1789\.4 to 1797\.6 ft, but not used/),
+    );
   });
 
   it('skips and counts sentences with a wrong checksum, ignores fixes without a fix, any talker id', () => {

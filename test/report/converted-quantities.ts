@@ -13,9 +13,9 @@ export interface Quantity {
   unit: string;
 }
 
-/** Every number of a sentence with the unit after it, in order. */
+/** Every number of a sentence with the unit after it, in order (an acceleration, m/s^2 or m/s², is none of them). */
 export function quantities(text: string): Quantity[] {
-  return [...text.matchAll(/(-?\d+(?:\.\d+)?) (km\/h|mph|m|ft|s|%|g)\b/g)].map((m) => ({
+  return [...text.matchAll(/(-?\d+(?:\.\d+)?) (km\/h|mph|m|ft|s|%|g)(?![\w/²^])/g)].map((m) => ({
     value: Number(m[1]),
     unit: m[2]!,
   }));

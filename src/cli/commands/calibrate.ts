@@ -19,8 +19,9 @@ import { calibrationSamples } from '../../calibrate/samples.js';
 import { calibrateCar } from '../../calibrate/calibrate-car.js';
 import { carFileJson } from '../../report/car-file.js';
 import { calibrationJson, calibrationText } from '../../report/calibration-summary.js';
+import { addUnitsOption, unitsOf, type UnitsOptionValues } from '../units-option.js';
 
-interface CalibrateValues extends CarOptionValues, Partial<Omit<TrackOptionValues, 'track'>> {
+interface CalibrateValues extends CarOptionValues, Partial<Omit<TrackOptionValues, 'track'>>, UnitsOptionValues {
   telemetry: string;
   telemetryColumns?: string;
   track?: string;
@@ -42,11 +43,12 @@ export function register(program: Command): void {
   addCarOptions(command);
   command
     .requiredOption('--out <file>', 'write the fitted car file here (nothing is written when the fit fails)')
-    .option('--json', 'print one JSON object instead of the summary')
-    .action((values: CalibrateValues) => runCalibrate(values));
+    .option('--json', 'print one JSON object instead of the summary');
+  addUnitsOption(command).action((values: CalibrateValues) => runCalibrate(values));
 }
 
 export async function runCalibrate(values: CalibrateValues): Promise<void> {
+  const units = unitsOf(values);
   const { car, ambient } = loadCar(values);
   const track = values.track ? readTrackFile(values.track, trackReadOptions({ ...values, track: values.track })) : null;
   const columns = values.telemetryColumns ? parseColumnMapping(values.telemetryColumns, '--telemetry-columns') : {};
@@ -57,5 +59,5 @@ export async function runCalibrate(values: CalibrateValues): Promise<void> {
   outputs.commit();
   if (values.json)
     process.stdout.write(JSON.stringify({ ...calibrationJson(result, car), out: values.out }, null, 2) + '\n');
-  else process.stdout.write(calibrationText(result, car) + `Fitted car written to ${values.out}\n`);
+  else process.stdout.write(calibrationText(result, car, units) + `Fitted car written to ${values.out}\n`);
 }

@@ -15,6 +15,8 @@ import { Option } from 'commander';
 import { addUnitsOption, unitsOf, type UnitsOptionValues } from '../units-option.js';
 import { envelopeJson, envelopeText } from '../../report/envelope-text.js';
 import { sessionSamples } from '../../compare/envelope-samples.js';
+import type { Note } from '../../note.js';
+import { noteText } from '../../report/note-text.js';
 
 interface EnvelopeValues
   extends Pick<TelemetryOptionValues, 'telemetry' | 'telemetryColumns'>, Partial<CarOptionValues>, UnitsOptionValues {
@@ -57,7 +59,7 @@ export async function runEnvelope(values: EnvelopeValues): Promise<void> {
     : null;
   const derivation = deriveSessionAccelerations(logged);
   const session = derivation.session;
-  const notes: string[] = [];
+  const notes: Note[] = [];
   if (derivation.quality) {
     notes.push(derivationNote(derivation.quality, derivation.derived));
     if (derivation.quality.problems.length > 0)
@@ -80,5 +82,5 @@ export async function runEnvelope(values: EnvelopeValues): Promise<void> {
     process.stdout.write(
       envelopeText(record, units, notes) + (values.out ? `Envelope written to ${values.out}\n` : ''),
     );
-  if (values.json) for (const note of notes) process.stderr.write(`Note: ${note}\n`);
+  if (values.json) for (const note of notes) process.stderr.write(`Note: ${noteText(note)}\n`);
 }

@@ -8,6 +8,7 @@ import { formatLapTime } from '../../units.js';
 import type { DriverLap } from '../types.js';
 import { cutLaps, type LapCut } from '../laps.js';
 import { alignLapWithNotes } from '../align.js';
+import { metricNoteText } from '../../note.js';
 import { deriveSessionAccelerations } from '../derive-session.js';
 
 export interface OtherLapOptions {
@@ -38,13 +39,13 @@ export function otherLapOf(
       );
     if (!chosen.complete)
       throw new InputError(
-        `${session.source}: ${options.optionName} ${options.lap} is not a complete lap: ${chosen.reason}`,
+        `${session.source}: ${options.optionName} ${options.lap} is not a complete lap: ${metricNoteText(chosen.reason ?? 'incomplete')}`,
       );
   } else {
     const complete = laps.filter((lap) => lap.complete);
     if (complete.length === 0)
       throw new InputError(
-        `${session.source}: no complete lap to compare against on track ${track.name} (${laps.map((lap) => `lap ${lap.lapNumber}: ${lap.reason}`).join('; ') || 'no laps'})`,
+        `${session.source}: no complete lap to compare against on track ${track.name} (${laps.map((lap) => `lap ${lap.lapNumber}: ${metricNoteText(lap.reason ?? 'incomplete')}`).join('; ') || 'no laps'})`,
       );
     chosen = complete.reduce((best, lap) => (lap.lapTimeS < best.lapTimeS ? lap : best));
     notes.push(

@@ -28,7 +28,7 @@ export interface SessionLap {
   lapTimeS: number;
   complete: boolean;
   /** Why an incomplete lap is left out, or how a complete one was finished. */
-  reason: string | null;
+  reason: Note | null;
   /** Sector times, s (null for an incomplete lap). */
   sectorsS: number[] | null;
 }

@@ -10,6 +10,7 @@ import { composeNotes } from './read-notes.js';
 import { brakePressureNote, brakeShareFromPressure } from './brake-pressure.js';
 import { applyFactor, projectInPlace, UnitEvidence, type ChannelLayout, type DecidedUnits } from './units-from-data.js';
 import { lerp } from '../../numeric/interpolate.js';
+import { distanceRangeOf, note } from '../../note.js';
 
 /**
  * Appends every chunk to one array per channel, sized up front from an estimate of the rows (grown by a quarter
@@ -130,8 +131,8 @@ export function withAltitude(
     high = Math.max(high, value);
   }
   const on = samples < altitudeM.length ? ` on ${samples} of ${altitudeM.length} fixes` : '';
-  const note = `GPS altitude (${origin}) read${on}, ${low.toFixed(1)} to ${high.toFixed(1)} m, but not used: the comparison works in the plane, and GPS heights scatter several metres`;
-  return { ...session, altitudeM, notes: [...session.notes, note] };
+  const altitudeNote = note`GPS altitude (${origin}) read${on}, ${distanceRangeOf(low, high, 1)}, but not used: the comparison works in the plane, and GPS heights scatter several metres`;
+  return { ...session, altitudeM, notes: [...session.notes, altitudeNote] };
 }
 
 export function gpsSession(

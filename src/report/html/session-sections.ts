@@ -42,12 +42,13 @@ function answersHtml(overview: SessionOverview): string {
   );
 }
 
-function lapTableHtml(overview: SessionOverview): string {
+function lapTableHtml(overview: SessionOverview, units: DisplayUnits): string {
   const rows = overview.laps
     .map((lap) => {
       const best = lap.lap === overview.bestLap;
       const sectors = overview.sectorNames.map((_, k) => `<td>${lap.sectorsS ? fixed(lap.sectorsS[k], 3) : '–'}</td>`);
-      const state = lap.complete ? (lap.reason ? `yes (${lap.reason})` : 'yes') : `no: ${lap.reason ?? 'incomplete'}`;
+      const reason = lap.reason === null ? null : noteText(lap.reason, units);
+      const state = lap.complete ? (reason ? `yes (${reason})` : 'yes') : `no: ${reason ?? 'incomplete'}`;
       return (
         `<tr class="lap-row${best ? ' best' : ''}" data-lap="${lap.lap}"><td>${lap.lap}${best ? ' ★' : ''}</td>` +
         `<td class="strong">${formatLapTime(lap.lapTimeS)}</td><td>${lap.complete ? signed(lap.lapTimeS - overview.bestLapTimeS, 3) : '–'}</td>` +
@@ -122,7 +123,7 @@ export function sessionSectionsHtml(part: SessionReportPart, units: DisplayUnits
   const notes = overview.notes.map((note) => `<li>${escapeHtml(noteText(note, units))}</li>`).join('');
   return (
     answersHtml(overview) +
-    `<section class="panel">${lapTableHtml(overview)}</section>` +
+    `<section class="panel">${lapTableHtml(overview, units)}</section>` +
     `<section class="panel">${cornerAcrossHtml(overview, units)}</section>` +
     `<section class="panel multiples-panel" aria-label="Every lap, corner by corner"><h2>Every lap, corner by corner</h2>` +
     `<p class="hint">Speed (above) and brake (below) of every complete lap over each corner; hover a line for its lap.</p>` +
