@@ -237,6 +237,10 @@ export {
   type ClaimKind,
 } from './compare/findings.js';
 export { findingText, claimText } from './report/finding-phrases.js';
+export { noteText } from './report/note-text.js';
+export { displayUnits, type DisplayUnits, type UnitSystem } from './report/units.js';
+export { note, distanceOf, distanceRangeOf, speedsOf, densityOf, metricNoteText } from './note.js';
+export type { Note, NoteQuantity, PhrasedNote } from './note.js';
 export { againstFindingText, differenceText } from './report/against-phrases.js';
 export { lineFindingText, lineNotes } from './report/line-phrases.js';
 export {
