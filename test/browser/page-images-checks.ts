@@ -10,18 +10,20 @@ import type { Chromium } from './chromium.js';
 import { comparePageImage, IMAGE_TOLERANCE, UPDATE_PAGE_IMAGES } from './page-image.js';
 import { once, type ReportPages } from './report-pages.js';
 import { projectRoot, runCli } from '../helpers/cli.js';
-import { readTrace, writeGripPair, writeSessionLog } from '../helpers/logs.js';
+import { readTrace, sharedGripPair, writeSessionLog } from '../helpers/logs.js';
+import { onSharedLine } from '../helpers/shared-line.js';
 
 const velmora = path.join(projectRoot, 'tracks', 'velmora-downs.json');
 const gtCar = path.join(projectRoot, 'cars', 'tarnfell-gt.json');
 const clubCar = path.join(projectRoot, 'cars', 'brackle-club.json');
 
-/** The session page: four complete laps (high, low, high, low braking grip) and half a fifth. */
+/** The session page: four complete laps (high, low, high, low braking grip) and half a fifth, the laps and the
+ * reference on the demo car's racing line as the run's other session tests drive it (computed once per run). */
 function writeSessionPage(work: string): { file: string; lapTimesS: number[] } {
-  const { highGrip, lowGrip } = writeGripPair(work, velmora, gtCar, 1.2);
+  const { highGrip, lowGrip } = sharedGripPair(velmora, gtCar, 1.2);
   const log = writeSessionLog(path.join(work, 'session.csv'), [highGrip, lowGrip, highGrip, lowGrip, highGrip], 0.5);
   const file = path.join(work, 'session.html');
-  const run = runCli(['session', '--track', velmora, '--car', gtCar, '--telemetry', log, '--html', file]);
+  const run = runCli(['session', ...onSharedLine(velmora, gtCar), '--telemetry', log, '--html', file]);
   if (run.code !== 0) throw new Error(run.stderr);
   // A trace's own lap time: its last row's time plus the 0.02 s step writeSessionLog adds between laps.
   const lapTimeOf = (trace: string) => {
