@@ -44,25 +44,45 @@ export interface BoxQpWorkspace {
   polishGradient: Float64Array;
 }
 
+/** A class, not an object literal, as the band (penta-band.ts says why). */
+class Workspace implements BoxQpWorkspace {
+  readonly system: PentaBand;
+  readonly factor: PentaFactor;
+  readonly z: Float64Array;
+  readonly w: Float64Array;
+  readonly gradient: Float64Array;
+  readonly inverseS: Float64Array;
+  readonly inverseT: Float64Array;
+  readonly rhs: Float64Array;
+  readonly dx: Float64Array;
+  readonly dz: Float64Array;
+  readonly dw: Float64Array;
+  readonly fixed: Uint8Array;
+  readonly held: Int8Array;
+  readonly polishRhs: Float64Array;
+  readonly polishGradient: Float64Array;
+
+  constructor(count: number, cyclic: boolean) {
+    this.system = emptyBand(count, cyclic);
+    this.factor = pentaFactorFor(count, cyclic);
+    this.z = new Float64Array(count);
+    this.w = new Float64Array(count);
+    this.gradient = new Float64Array(count);
+    this.inverseS = new Float64Array(count);
+    this.inverseT = new Float64Array(count);
+    this.rhs = new Float64Array(count);
+    this.dx = new Float64Array(count);
+    this.dz = new Float64Array(count);
+    this.dw = new Float64Array(count);
+    this.fixed = new Uint8Array(count);
+    this.held = new Int8Array(count);
+    this.polishRhs = new Float64Array(count);
+    this.polishGradient = new Float64Array(count);
+  }
+}
+
 export function boxQpWorkspace(count: number, cyclic: boolean): BoxQpWorkspace {
-  const vector = () => new Float64Array(count);
-  return {
-    system: emptyBand(count, cyclic),
-    factor: pentaFactorFor(count, cyclic),
-    z: vector(),
-    w: vector(),
-    gradient: vector(),
-    inverseS: vector(),
-    inverseT: vector(),
-    rhs: vector(),
-    dx: vector(),
-    dz: vector(),
-    dw: vector(),
-    fixed: new Uint8Array(count),
-    held: new Int8Array(count),
-    polishRhs: vector(),
-    polishGradient: vector(),
-  };
+  return new Workspace(count, cyclic);
 }
 
 export interface BoxQpOptions {

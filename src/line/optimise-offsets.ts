@@ -63,16 +63,29 @@ interface Scratch {
   step: Float64Array;
 }
 
+/** A class, not an object literal, as the band (penta-band.ts says why). */
+class ScratchArrays implements Scratch {
+  readonly band: PentaBand;
+  readonly q: Float64Array;
+  readonly partials: Float64Array;
+  readonly kappa: Float64Array;
+  readonly lengths: Float64Array;
+  readonly qp: BoxQpWorkspace;
+  readonly step: Float64Array;
+
+  constructor(count: number, closed: boolean) {
+    this.band = emptyBand(count, closed);
+    this.q = new Float64Array(count);
+    this.partials = new Float64Array(3);
+    this.kappa = new Float64Array(count);
+    this.lengths = new Float64Array(closed ? count : Math.max(count - 1, 0));
+    this.qp = boxQpWorkspace(count, closed);
+    this.step = new Float64Array(count);
+  }
+}
+
 function scratchFor(count: number, closed: boolean): Scratch {
-  return {
-    band: emptyBand(count, closed),
-    q: new Float64Array(count),
-    partials: new Float64Array(3),
-    kappa: new Float64Array(count),
-    lengths: new Float64Array(closed ? count : Math.max(count - 1, 0)),
-    qp: boxQpWorkspace(count, closed),
-    step: new Float64Array(count),
-  };
+  return new ScratchArrays(count, closed);
 }
 
 /** F(n), the exact objective. */

@@ -10,8 +10,29 @@ export interface PentaBand {
   off2: Float64Array;
 }
 
+// The line search's work records (this band, the factor, the interior-point workspace, the optimiser's scratch) are
+// built by small classes, not object literals: V8 turns a literal's fields from constant to mutable the second time
+// the literal runs, and threw away the compiled code of every step that had read such a record so far, which the
+// first racing line of a run compiled twice. Instances of a class keep their fields as they are.
+
+class Band implements PentaBand {
+  readonly count: number;
+  readonly cyclic: boolean;
+  readonly diag: Float64Array;
+  readonly off1: Float64Array;
+  readonly off2: Float64Array;
+
+  constructor(count: number, cyclic: boolean) {
+    this.count = count;
+    this.cyclic = cyclic;
+    this.diag = new Float64Array(count);
+    this.off1 = new Float64Array(count);
+    this.off2 = new Float64Array(count);
+  }
+}
+
 export function emptyBand(count: number, cyclic: boolean): PentaBand {
-  return { count, cyclic, diag: new Float64Array(count), off1: new Float64Array(count), off2: new Float64Array(count) };
+  return new Band(count, cyclic);
 }
 
 /** Row i of Q x, indices wrapping on a cyclic band and ending at the edges of a plain one. */

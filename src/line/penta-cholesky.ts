@@ -27,19 +27,34 @@ export interface PentaFactor {
   scratchB: Float64Array;
 }
 
+/** A class, not an object literal, as the band (penta-band.ts says why). */
+class Factor implements PentaFactor {
+  readonly count: number;
+  readonly cyclic: boolean;
+  readonly inversePivot: Float64Array;
+  readonly sub1: Float64Array;
+  readonly sub2: Float64Array;
+  readonly rowA: Float64Array;
+  readonly rowB: Float64Array;
+  readonly scratchA: Float64Array;
+  readonly scratchB: Float64Array;
+
+  constructor(count: number, cyclic: boolean) {
+    const tail = cyclic ? count : 0;
+    this.count = count;
+    this.cyclic = cyclic;
+    this.inversePivot = new Float64Array(count);
+    this.sub1 = new Float64Array(count);
+    this.sub2 = new Float64Array(count);
+    this.rowA = new Float64Array(tail);
+    this.rowB = new Float64Array(tail);
+    this.scratchA = new Float64Array(tail);
+    this.scratchB = new Float64Array(tail);
+  }
+}
+
 export function pentaFactorFor(count: number, cyclic: boolean): PentaFactor {
-  const tail = cyclic ? count : 0;
-  return {
-    count,
-    cyclic,
-    inversePivot: new Float64Array(count),
-    sub1: new Float64Array(count),
-    sub2: new Float64Array(count),
-    rowA: new Float64Array(tail),
-    rowB: new Float64Array(tail),
-    scratchA: new Float64Array(tail),
-    scratchB: new Float64Array(tail),
-  };
+  return new Factor(count, cyclic);
 }
 
 /** Factors the band into `factor`; false when the matrix is not (numerically) positive definite. */

@@ -87,6 +87,33 @@ type ChannelArrays = Pick<
   'distanceM' | 'timeS' | 'axMps2' | 'ayMps2' | 'throttle' | 'brake' | 'gripUse' | 'powerLimited' | 'gear'
 >;
 
+/** The channels of a lap of `count` samples, zeroed. A class rather than an object literal: V8 turns a literal's
+ * fields from constant to mutable the second time it runs, and threw away the channel loop's compiled code on the
+ * second lap of every run (the racing line's first: its centreline lap, then its line's). */
+class Channels implements ChannelArrays {
+  readonly distanceM: Float64Array;
+  readonly timeS: Float64Array;
+  readonly axMps2: Float64Array;
+  readonly ayMps2: Float64Array;
+  readonly throttle: Float64Array;
+  readonly brake: Float64Array;
+  readonly gripUse: Float64Array;
+  readonly powerLimited: Uint8Array;
+  readonly gear: Int8Array;
+
+  constructor(count: number) {
+    this.distanceM = new Float64Array(count);
+    this.timeS = new Float64Array(count);
+    this.axMps2 = new Float64Array(count);
+    this.ayMps2 = new Float64Array(count);
+    this.throttle = new Float64Array(count);
+    this.brake = new Float64Array(count);
+    this.gripUse = new Float64Array(count);
+    this.powerLimited = new Uint8Array(count);
+    this.gear = new Int8Array(count);
+  }
+}
+
 /** Fills every channel of `out` from the speed profile. */
 function channelLoop(path: Path, envelope: Envelope, speedMps: Float64Array, shift: Uint8Array, out: ChannelArrays) {
   const n = speedMps.length;
@@ -142,17 +169,7 @@ export function lapChannels(
   shift: Uint8Array = new Uint8Array(speedMps.length),
 ): { trace: LapTrace; lapTimeS: number; lengthM: number } {
   const n = speedMps.length;
-  const channels: ChannelArrays = {
-    distanceM: new Float64Array(n),
-    timeS: new Float64Array(n),
-    axMps2: new Float64Array(n),
-    ayMps2: new Float64Array(n),
-    throttle: new Float64Array(n),
-    brake: new Float64Array(n),
-    gripUse: new Float64Array(n),
-    powerLimited: new Uint8Array(n),
-    gear: new Int8Array(n),
-  };
+  const channels = new Channels(n);
   const lapTimeS = channelLoop(path, envelope, speedMps, shift, channels);
   const { distanceM, timeS, axMps2, ayMps2, throttle, brake, gripUse, powerLimited, gear } = channels;
   const trace: LapTrace = {
