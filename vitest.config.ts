@@ -1,5 +1,6 @@
 import { availableParallelism } from 'node:os';
 import { defineConfig } from 'vitest/config';
+import LongFilesFirstSequencer from './test/long-files-first.js';
 
 /** Test files that keep a module graph of their own: the browser tests (one Chromium each) and a file that mocks a
  * library module (vi.mock would reach every file sharing its graph). Every other file shares one graph per worker,
@@ -14,6 +15,8 @@ export default defineConfig({
     globalSetup: ['test/global-setup.ts'],
     setupFiles: ['test/setup-cpu-log.ts'],
     reporters: ['default', './test/plain-summary-reporter.ts'],
+    // Without the times of a previous run (a clean clone), the longest files start first (test/long-files-first.ts).
+    sequence: { sequencer: LongFilesFirstSequencer },
     testTimeout: 60_000,
     hookTimeout: 120_000,
     // Processes, not threads: tests change the working folder (test/helpers/cli.ts) and start worker threads.
