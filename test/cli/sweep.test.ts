@@ -207,13 +207,46 @@ describe('reflap sweep', () => {
 
 describe('reflap stint', () => {
   it('burns the fuel off lap by lap', () => {
-    const run = runCli(['stint', '--track', loop, '--car', car, '--laps', '5', '--json']);
+    const args = ['stint', '--track', loop, '--car', car, '--laps', '5'];
+    const run = runCli([...args, '--json']);
     expect(run.code).toBe(0);
     const result = JSON.parse(run.stdout);
     // Brackle club racer: 25 kg of fuel, 1.1 kg a lap.
     expect(result.laps.map((l: { fuelKg: number }) => l.fuelKg)).toEqual([25, 23.9, 22.8, 21.7, 20.6]);
     const times = result.laps.map((l: { lapTimeS: number }) => l.lapTimeS);
     for (let k = 1; k < times.length; k++) expect(times[k]).toBeLessThan(times[k - 1]);
+
+    // Under imperial the braking table and the CSV are in feet and mph: each figure the JSON's metric one converted
+    // through 1 ft = 0.3048 m and 1 mph = 0.44704 m/s (NIST SP 811, appendix B), within the rounding written.
+    const csvFile = join(folder, 'stint-imperial.csv');
+    const imperial = runCli([...args, '--units', 'imperial', '--out', csvFile]);
+    expect(imperial.code, imperial.stderr).toBe(0);
+    expect(imperial.stdout).toMatch(/slowest at ft +lap 1 brake ft +lap 5 brake ft +drift ft +slowest mph/);
+    expect(imperial.stdout).not.toMatch(/ km\/h|brake m\b/);
+    const first = result.laps[0];
+    const last = result.laps[4];
+    const rows = imperial.stdout.split('\n').filter((line) => / -> /.test(line));
+    expect(rows).toHaveLength(result.corners.length);
+    rows.forEach((row, k) => {
+      const cells = row.trim().split(/ {2,}/);
+      const [slowestAt, firstBrake, lastBrake] = cells.slice(-5, -2).map(Number);
+      const [firstMph, lastMph] = cells.at(-1)!.split(' -> ').map(Number);
+      expect(Math.abs(slowestAt! - result.corners[k].minSpeedAtM / 0.3048)).toBeLessThanOrEqual(0.5 + 1e-6);
+      expect(Math.abs(firstBrake! - first.brakingPointM[k] / 0.3048)).toBeLessThanOrEqual(0.05 + 1e-6);
+      expect(Math.abs(lastBrake! - last.brakingPointM[k] / 0.3048)).toBeLessThanOrEqual(0.05 + 1e-6);
+      expect(Math.abs(firstMph! - first.minSpeedKph[k] / 3.6 / 0.44704)).toBeLessThanOrEqual(0.05 + 1e-6);
+      expect(Math.abs(lastMph! - last.minSpeedKph[k] / 3.6 / 0.44704)).toBeLessThanOrEqual(0.05 + 1e-6);
+    });
+    const [header, ...lines] = readFileSync(csvFile, 'utf8').trim().split('\n');
+    const tag = result.corners[0].tag;
+    const columns = header!.split(',');
+    expect(columns).toContain(`${tag}_brake_ft`);
+    expect(columns).toContain(`${tag}_min_mph`);
+    const cells = lines[0]!.split(',').map(Number);
+    expect(Math.abs(cells[columns.indexOf(`${tag}_brake_ft`)]! - first.brakingPointM[0] / 0.3048)).toBeLessThan(3e-3);
+    expect(Math.abs(cells[columns.indexOf(`${tag}_min_mph`)]! - first.minSpeedKph[0] / 3.6 / 0.44704)).toBeLessThan(
+      2e-3,
+    );
   });
   it('refuses a lap count that is not a whole number', () => {
     const run = runCli(['stint', '--track', loop, '--car', car, '--laps', '2.5']);

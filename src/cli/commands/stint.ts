@@ -17,8 +17,9 @@ import { loadSetupInputs, setupReference, workerCount } from '../setup-inputs.js
 import { addLineOption, referencePathJson, withReferencePath } from '../reference-path.js';
 import { runStintInWorkers, type StintResult } from '../../sweep/stint.js';
 import { stintCsv, stintJson, stintText } from '../../report/stint-summary.js';
+import { addUnitsOption, unitsOf, type UnitsOptionValues } from '../units-option.js';
 
-interface StintValues extends TrackOptionValues, CarOptionValues {
+interface StintValues extends TrackOptionValues, CarOptionValues, UnitsOptionValues {
   laps: string;
   set?: string[];
   workers?: string;
@@ -42,11 +43,12 @@ export function register(program: Command): void {
     .option('--workers <n>', 'worker threads (default: the number of cores; 0 = in this thread)')
     .option('--out <file>', 'write one CSV row per lap')
     .option('--json', 'print one JSON object instead of the tables');
-  addLineOption(command, true).action((values: StintValues) => runStintCommand(values));
+  addUnitsOption(addLineOption(command, true)).action((values: StintValues) => runStintCommand(values));
 }
 
 export async function runStintCommand(values: StintValues): Promise<void> {
   const laps = numberOption(values.laps, '--laps', 1);
+  const units = unitsOf(values);
   const workers = workerCount(values.workers);
   const settings = (values.set ?? []).map((text) => parseSetting(text));
   const inputs = loadSetupInputs(values, settings);
@@ -64,14 +66,14 @@ export async function runStintCommand(values: StintValues): Promise<void> {
   } finally {
     progress.stop();
   }
-  if (values.out) writeFileAtomic(values.out, stintCsv(result), inputFilesOf(values));
+  if (values.out) writeFileAtomic(values.out, stintCsv(result, units), inputFilesOf(values));
   if (values.json)
     process.stdout.write(
       JSON.stringify({ ...stintJson(result), ...referencePathJson(reference, true) }, null, 2) + '\n',
     );
   else
     process.stdout.write(
-      withReferencePath(stintText(result, track.name, base.car.name), reference, true) +
+      withReferencePath(stintText(result, track.name, base.car.name, units), reference, true) +
         (values.out ? `Laps written to ${values.out}\n` : ''),
     );
 }
