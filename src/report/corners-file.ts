@@ -1,11 +1,13 @@
 // The corners of a track for people and for editing: a table for the terminal, and the corners file (JSON) a
-// user edits (rename, merge, split, add markers and sectors) and passes back with --corners.
+// user edits (rename, merge, split, add markers and sectors) and passes back with --corners. The table is in the
+// reader's units (metres or feet, the lap's length in km or miles); the file stays in metres.
 
 import type { TrackGrid } from '../track/types.js';
 import type { CornerLayout } from '../track/corner-layout.js';
 import { CORNERS_FORMAT } from '../track/corner-spec.js';
 import { formatTable } from './text-table.js';
 import { roundToDigits } from '../numeric/round.js';
+import { displayUnits, type DisplayUnits } from './units.js';
 
 /** The track's corners as the corners command and every JSON output list them. */
 export function cornersJson(layout: CornerLayout) {
@@ -31,28 +33,34 @@ export function cornersFileJson(track: TrackGrid, layout: CornerLayout) {
   };
 }
 
-export function cornersText(track: TrackGrid, layout: CornerLayout): string {
+export function cornersText(
+  track: TrackGrid,
+  layout: CornerLayout,
+  units: DisplayUnits = displayUnits('metric'),
+): string {
   const found = layout.source === 'curvature' ? 'found from the curvature' : `from ${layout.source}`;
+  const d = units.distanceLabel;
+  const at = (distanceM: number) => units.distance(distanceM).toFixed(0);
   const lines = [
-    `${track.name} · ${(track.lengthM / 1000).toFixed(3)} km · ${layout.corners.length} corners ${found}`,
+    `${track.name} · ${units.length(track.lengthM).toFixed(3)} ${units.lengthLabel} · ${layout.corners.length} corners ${found}`,
     formatTable(
-      ['#', 'name', 'direction', 'entry m', 'apex m', 'exit m', 'radius m', 'marker'],
+      ['#', 'name', 'direction', `entry ${d}`, `apex ${d}`, `exit ${d}`, `radius ${d}`, 'marker'],
       layout.corners.map((c) => [
         String(c.id),
         c.name ?? '',
         c.side > 0 ? 'left' : 'right',
-        c.entryM.toFixed(0),
-        c.apexM.toFixed(0),
-        c.exitM.toFixed(0),
-        Number.isFinite(c.radiusM) ? c.radiusM.toFixed(0) : '',
-        c.marker ? `${c.marker.name} at ${c.marker.atM.toFixed(0)} m` : '',
+        at(c.entryM),
+        at(c.apexM),
+        at(c.exitM),
+        Number.isFinite(c.radiusM) ? at(c.radiusM) : '',
+        c.marker ? `${c.marker.name} at ${at(c.marker.atM)} ${d}` : '',
       ]),
     ),
     '',
     'Sectors',
     formatTable(
-      ['#', 'name', 'from m', 'to m'],
-      layout.sectors.map((s) => [String(s.number), s.name, s.startM.toFixed(0), s.endM.toFixed(0)]),
+      ['#', 'name', `from ${d}`, `to ${d}`],
+      layout.sectors.map((s) => [String(s.number), s.name, at(s.startM), at(s.endM)]),
     ),
   ];
   return lines.join('\n') + '\n';

@@ -1,11 +1,13 @@
 // The racing line of `reflap line` for people and programs: the laps on the centreline and on the line, the
-// line's length, tightest radius and largest offset, as terminal lines or a JSON object.
+// line's length, tightest radius and largest offset, as terminal lines (metres, or feet under imperial) or a JSON
+// object (metres).
 
 import type { TrackGrid } from '../track/types.js';
 import type { RacingLine } from '../line/types.js';
 import { SAFETY_CAUTION } from './lap-summary.js';
 import { roundToDigits } from '../numeric/round.js';
 import { formatLapTime } from '../units.js';
+import { displayUnits, type DisplayUnits } from './units.js';
 
 export function racingLineJson(line: RacingLine, track: TrackGrid, carName: string) {
   return {
@@ -26,18 +28,25 @@ export function racingLineJson(line: RacingLine, track: TrackGrid, carName: stri
   };
 }
 
-export function racingLineText(line: RacingLine, track: TrackGrid, carName: string): string {
+export function racingLineText(
+  line: RacingLine,
+  track: TrackGrid,
+  carName: string,
+  units: DisplayUnits = displayUnits('metric'),
+): string {
   const gain = line.centrelineLap.lapTimeS - line.lap.lapTimeS;
+  const distance = (distanceM: number, digits: number) =>
+    `${units.distance(distanceM).toFixed(digits)} ${units.distanceLabel}`;
   const radius = Number.isFinite(line.minRadiusM)
-    ? `${line.minRadiusM.toFixed(1)} m at ${line.minRadiusAtM.toFixed(0)} m`
+    ? `${distance(line.minRadiusM, 1)} at ${distance(line.minRadiusAtM, 0)}`
     : 'none (straight)';
   return [
-    `${track.name} · ${carName} · ${line.objective} line, ${line.marginM.toFixed(2)} m from the edges`,
+    `${track.name} · ${carName} · ${line.objective} line, ${distance(line.marginM, 2)} from the edges`,
     `Lap on the centreline   ${formatLapTime(line.centrelineLap.lapTimeS)}`,
     `Lap on the line         ${formatLapTime(line.lap.lapTimeS)}  (${gain >= 0 ? '-' : '+'}${Math.abs(gain).toFixed(3)} s)`,
-    `Line length             ${line.lengthM.toFixed(1)} m (centreline ${track.lengthM.toFixed(1)} m)`,
+    `Line length             ${distance(line.lengthM, 1)} (centreline ${distance(track.lengthM, 1)})`,
     `Tightest radius         ${radius}`,
-    `Largest offset          ${line.maxOffsetM.toFixed(2)} m`,
+    `Largest offset          ${distance(line.maxOffsetM, 2)}`,
     '',
     SAFETY_CAUTION,
     '',

@@ -94,6 +94,43 @@ describe('the same corner numbers and names in every command', () => {
   });
 });
 
+describe('the corners table under --units imperial', () => {
+  it('names every distance in feet and the lap in miles, the metric figures converted', () => {
+    // 1 ft = 0.3048 m and 1 mile = 1609.344 m (NIST SP 811, appendix B); each side rounded to what it shows.
+    const metric = runCli(['corners', '--track', track]);
+    const imperial = runCli(['corners', '--track', track, '--units', 'imperial']);
+    expect(imperial.code, imperial.stderr).toBe(0);
+    const km = Number(/ · ([\d.]+) km · /.exec(metric.stdout)![1]);
+    const miles = Number(/ · ([\d.]+) mi · /.exec(imperial.stdout)![1]);
+    expect(Math.abs(miles - (km * 1000) / 1609.344)).toBeLessThanOrEqual(0.0005 * (1000 / 1609.344) + 0.0005 + 1e-9);
+    expect(imperial.stdout).toMatch(/entry ft +apex ft +exit ft +radius ft/);
+    expect(imperial.stdout).toMatch(/from ft +to ft/);
+    // Every row's figures: the corners' entry, apex, exit and radius, then the sectors' bounds.
+    const figures = (text: string) =>
+      text
+        .split('\n')
+        .filter((row) => /^\d+ /.test(row))
+        .map((row) =>
+          row
+            .trim()
+            .split(/ {2,}/)
+            .filter((cell) => /^\d+$/.test(cell))
+            .map(Number),
+        );
+    const metricRows = figures(metric.stdout);
+    const imperialRows = figures(imperial.stdout);
+    expect(imperialRows.map((row) => row.length)).toEqual(metricRows.map((row) => row.length));
+    expect(metricRows.flat().length).toBeGreaterThan(20);
+    metricRows.forEach((row, r) =>
+      row.forEach((metres, k) => {
+        // The leading number is the corner's or sector's own, not a distance.
+        if (k === 0) return expect(imperialRows[r]![k]).toBe(metres);
+        expect(Math.abs(imperialRows[r]![k]! - metres / 0.3048)).toBeLessThanOrEqual(0.5 / 0.3048 + 0.5 + 1e-9);
+      }),
+    );
+  });
+});
+
 describe('a bad corners file', () => {
   it('is one line naming the entry, exit code 2, and nothing is written', () => {
     const bad = path.join(work, 'bad.json');

@@ -5,6 +5,7 @@ import { existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { runCli } from '../helpers/cli.js';
+import { expectConverted } from '../report/converted-quantities.js';
 
 let folder: string;
 let ringTrack: string;
@@ -122,10 +123,17 @@ describe('reflap line', () => {
   });
 
   it('prints a text summary with the caution', () => {
-    const run = runCli(['line', '--track', ringTrack, '--car', car, '--objective', 'curvature', '--step-m', '4']);
+    const args = ['line', '--track', ringTrack, '--car', car, '--objective', 'curvature', '--step-m', '4'];
+    const run = runCli(args);
     expect(run.code).toBe(0);
     expect(run.stdout).toMatch(/Lap on the line/);
     expect(run.stdout).toMatch(/Caution: /);
+    // Under imperial the margin, lengths, radius and offset read feet, each the metric figure converted through
+    // 1 ft = 0.3048 m (NIST SP 811, appendix B) within both roundings; the times unchanged.
+    const imperial = runCli([...args, '--units', 'imperial']);
+    expect(imperial.code, imperial.stderr).toBe(0);
+    expectConverted(run.stdout, imperial.stdout);
+    expect(imperial.stdout).toMatch(/Line length +\d+\.\d ft \(centreline \d+\.\d ft\)/);
   });
 });
 

@@ -6,8 +6,9 @@ import { addTrackOptions, inputFilesOf, loadTrack, type TrackOptionValues } from
 import { cornerLayoutOf } from '../../track/corner-layout.js';
 import { cornersFileJson, cornersText } from '../../report/corners-file.js';
 import { outputBatch } from '../output.js';
+import { addUnitsOption, unitsOf, type UnitsOptionValues } from '../units-option.js';
 
-interface CornersValues extends TrackOptionValues {
+interface CornersValues extends TrackOptionValues, UnitsOptionValues {
   out?: string;
   json?: boolean;
 }
@@ -19,11 +20,12 @@ export function register(program: Command): void {
   addTrackOptions(command);
   command
     .option('--out <file>', 'write the corners file (JSON) to edit: rename, merge, split, add markers and sectors')
-    .option('--json', 'print the corners file instead of the table')
-    .action((values: CornersValues) => runCorners(values));
+    .option('--json', 'print the corners file instead of the table');
+  addUnitsOption(command).action((values: CornersValues) => runCorners(values));
 }
 
 export function runCorners(values: CornersValues): void {
+  const units = unitsOf(values);
   const track = loadTrack(values);
   const layout = cornerLayoutOf(track);
   const file = JSON.stringify(cornersFileJson(track, layout), null, 2) + '\n';
@@ -32,7 +34,7 @@ export function runCorners(values: CornersValues): void {
   outputs.commit();
   if (values.json) process.stdout.write(file);
   else {
-    process.stdout.write(cornersText(track, layout));
+    process.stdout.write(cornersText(track, layout, units));
     if (values.out) process.stdout.write(`Corners file written to ${values.out}\n`);
   }
 }

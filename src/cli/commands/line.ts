@@ -21,8 +21,9 @@ import {
 } from '../options.js';
 import { outputBatch } from '../output.js';
 import { racingLineJson, racingLineText } from '../../report/racing-line-summary.js';
+import { addUnitsOption, unitsOf, type UnitsOptionValues } from '../units-option.js';
 
-interface LineValues extends TrackOptionValues, CarOptionValues {
+interface LineValues extends TrackOptionValues, CarOptionValues, UnitsOptionValues {
   objective?: LineObjective;
   marginM?: string;
   out?: string;
@@ -41,8 +42,8 @@ export function register(program: Command): void {
     )
     .option('--margin-m <m>', "distance kept from each edge, m (default: half the car's width + 0.3 m, else 0.8)")
     .option('--out <file>', 'write the line as CSV (s_m,offset_m,x_m,y_m,curvature_1pm)')
-    .option('--json', 'print one JSON object instead of the summary')
-    .action((values: LineValues) => runLine(values));
+    .option('--json', 'print one JSON object instead of the summary');
+  addUnitsOption(command).action((values: LineValues) => runLine(values));
 }
 
 export function marginFrom(value: string | undefined, car: Car): number {
@@ -53,6 +54,7 @@ export function marginFrom(value: string | undefined, car: Car): number {
 }
 
 export function runLine(values: LineValues): void {
+  const units = unitsOf(values);
   const track = loadTrack(values);
   const { car, ambient } = loadCar(values);
   const marginM = marginFrom(values.marginM, car);
@@ -70,7 +72,7 @@ export function runLine(values: LineValues): void {
   if (values.json) {
     process.stdout.write(JSON.stringify(racingLineJson(line, track, car.name), null, 2) + '\n');
   } else {
-    process.stdout.write(racingLineText(line, track, car.name));
+    process.stdout.write(racingLineText(line, track, car.name, units));
     if (values.out) process.stdout.write(`Line written to ${values.out}\n`);
   }
 }
