@@ -47,12 +47,8 @@ export function findBrakingZones(
     while (i >= n) i -= n;
     return i;
   };
-  let k = 0;
+  let k = firstOnFrom(brake, n, options.brakeThreshold, origin, 0);
   while (k < n) {
-    if (!on(index(k))) {
-      k++;
-      continue;
-    }
     const startK = k;
     let lastOnK = k;
     let scan = k + 1;
@@ -89,8 +85,19 @@ export function findBrakingZones(
         brakingLengthM: (lastOnK - startK + 1) * stepM,
       });
     }
-    k = Math.max(lastOnK + 1, k + 1);
+    k = firstOnFrom(brake, n, options.brakeThreshold, origin, Math.max(lastOnK + 1, k + 1));
   }
   zones.sort((a, b) => a.startM - b.startM);
   return zones;
+}
+
+/** The first count k >= `from` (below n, the lap's samples) whose sample, `origin` + k round the lap, has the brakes
+ * on; n when none has. A plain loop of its own over the samples, most of which have the brakes off: through the
+ * finder's closures each cost two calls, which before V8 had compiled them was most of a lap's zones. */
+function firstOnFrom(brake: Float64Array, n: number, threshold: number, origin: number, from: number): number {
+  for (let k = from; k < n; k++) {
+    const i = origin + k < n ? origin + k : origin + k - n;
+    if (brake[i]! > threshold) return k;
+  }
+  return n;
 }
