@@ -82,9 +82,10 @@ export function positionCoverage(
   };
 }
 
-/** Why a lap of placed samples is left out (none when it is complete). */
+/** Why a lap of placed samples is left out (none when it is complete); `endsLog`: the log ends inside this lap. */
 export function positionLapProblems(
   lapNumber: number,
+  endsLog: boolean,
   missingStart: number,
   missingEnd: number,
   measured: PositionCoverage,
@@ -99,7 +100,13 @@ export function positionLapProblems(
     );
   }
   if (missingEnd > allowance) {
-    reasons.push(note`the log ends ${distanceOf(missingEnd)} before the line`);
+    // The first lap of a log that starts after the line is the out lap; the last of several that ends before it,
+    // the in lap (the car leaves the circuit for the pits).
+    reasons.push(
+      endsLog && lapNumber > 0
+        ? note`in lap: the log ends ${distanceOf(missingEnd)} before the line`
+        : note`the log ends ${distanceOf(missingEnd)} before the line`,
+    );
   }
   if (measured.coverage < MIN_COVERAGE) {
     reasons.push(
@@ -130,7 +137,8 @@ export function distanceLapProblem(span: number, medianSpan: number, L: number):
     : note`measures ${distanceOf(span)} by the distance channel, laps measure ${distanceOf(medianSpan)}`;
 }
 
-/** Whether a lap at an end of a log placed by distance (over [startM, endM] of the track) is complete, and why not or how finished. */
+/** Whether a lap at an end of a log placed by distance (over [startM, endM] of the track) is complete, and why not or how
+ * finished; `inLap`: the last of several laps, which the log ends inside. */
 export function distanceEdgeCheck(
   startM: number,
   endM: number,
@@ -138,6 +146,7 @@ export function distanceEdgeCheck(
   missingEnd: number,
   L: number,
   allowance: number,
+  inLap = false,
 ): { complete: boolean; reason: Note | undefined } {
   let reason: Note | undefined;
   let complete = true;
@@ -149,7 +158,7 @@ export function distanceEdgeCheck(
     reason =
       missingStart > allowance
         ? note`out lap: starts ${distanceOf(missingStart)} into the lap`
-        : note`the log ends ${distanceOf(missingEnd)} before the line`;
+        : note`${inLap ? 'in lap: ' : ''}the log ends ${distanceOf(missingEnd)} before the line`;
   } else if (missingStart > 0 || missingEnd > 0) {
     reason = 'lap time extrapolated over the last metres before the line';
   }

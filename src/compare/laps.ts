@@ -122,7 +122,7 @@ function cutByPosition(
     const measured = measure(first, last, startP, endP);
     const missingStart = p[first]! > startP ? p[first]! - startP : 0;
     const missingEnd = p[last]! < endP ? endP - p[last]! : 0;
-    const reasons = positionLapProblems(lapNumber, missingStart, missingEnd, measured, allowance);
+    const reasons = positionLapProblems(lapNumber, endT === null, missingStart, missingEnd, measured, allowance);
     const complete = reasons.length === 0;
     // Finish a log's ragged end by extrapolating at the speed of its first or last sample.
     let reason: Note | undefined = reasons.length > 0 ? joinNotes(reasons, '; ') : undefined;
@@ -235,7 +235,8 @@ function cutByDistance(session: TelemetrySession, track: TrackGrid): { laps: Lap
     const endM = endT === null ? (d[last]! - offsetM) * scale : L;
     const missingStart = Math.max(0, startM);
     const missingEnd = Math.max(0, L - endM);
-    const { complete, reason } = distanceEdgeCheck(startM, endM, missingStart, missingEnd, L, allowance);
+    const inLap = endT === null && lapNumber > 0;
+    const { complete, reason } = distanceEdgeCheck(startM, endM, missingStart, missingEnd, L, allowance, inLap);
     const vStart = distanceSpeedAt(session, first);
     const vEnd = distanceSpeedAt(session, last);
     const start = startT ?? t[first]! - (missingStart > 0 && vStart > 0 ? missingStart / vStart : 0);

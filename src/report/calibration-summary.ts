@@ -4,11 +4,15 @@
 import type { Car } from '../car/types.js';
 import type { CalibrationResult } from '../calibrate/calibrate-car.js';
 import { formatTable } from './text-table.js';
-import { SAFETY_CAUTION } from './lap-summary.js';
 import { roundToDigits } from '../numeric/round.js';
 import { displayUnits, type DisplayUnits } from './units.js';
 import { noteText } from './note-text.js';
 import { formatIndex } from '../calibrate/identify.js';
+
+/** The caution of a fitted car: it speaks of the car and its limits, as the car page's does, not of a lap. */
+export const FITTED_CAR_CAUTION =
+  'Caution: the fitted car is a model of what one log shows, not the car on another day (tyres, temperature and ' +
+  "wear change it). Driving at the limit is dangerous; follow the circuit's rules and qualified instruction.";
 
 /** A value in the unit a reader expects: kW for power, the field's own unit otherwise. */
 function shown(field: string, value: number, digits: number): string {
@@ -73,7 +77,7 @@ export function calibrationText(
     '',
     'The fitted car is what this log shows: a driver who stayed inside the limit fits a car with less grip than the tyres have.',
     '',
-    SAFETY_CAUTION,
+    FITTED_CAR_CAUTION,
   );
   return lines.join('\n') + '\n';
 }

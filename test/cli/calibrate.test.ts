@@ -12,6 +12,7 @@ import { readTrackFile } from '../../src/io/read-track.js';
 import { ambientFrom } from '../../src/car/ambient.js';
 import { buildEnvelope } from '../../src/car/build-envelope.js';
 import { demoDriver, demoLogCsv, DEFAULT_DEMO_LOG } from '../../src/demo/demo-driver.js';
+import { FITTED_CAR_CAUTION } from '../../src/report/calibration-summary.js';
 import { expectConverted } from '../report/converted-quantities.js';
 
 const work = mkdtempSync(path.join(tmpdir(), 'reflap-calibrate-'));
@@ -115,6 +116,9 @@ describe('reflap calibrate', () => {
     expect(imperialNotes).toHaveLength(summary.notes.length);
     summary.notes.forEach((metricText: string, k: number) => expectConverted(metricText, imperialNotes[k]!));
     expect(imperialNotes.join('\n')).toMatch(/positions scatter \d+\.\d+ ft across the track/);
+    // The caution speaks of the fitted car, not of a lap (the car page's way), and still of the danger at the limit.
+    expect(imperial.stdout).toContain(FITTED_CAR_CAUTION);
+    expect(imperial.stdout).not.toMatch(/reference lap is a model result/);
     const fullThrottle = /Full throttle: .*, (\d+) to (\d+) mph, residual/.exec(imperial.stdout)!;
     summary.fullThrottle.speedRangeMps.forEach((speedMps: number, k: number) =>
       expect(Math.abs(Number(fullThrottle[k + 1]) - speedMps / 0.44704)).toBeLessThanOrEqual(0.5 + 0.02),

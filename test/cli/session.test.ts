@@ -9,6 +9,7 @@ import { projectRoot, runCli } from '../helpers/cli.js';
 import { readTrace, sharedGripPair, writeSessionLog } from '../helpers/logs.js';
 import { onSharedLine } from '../helpers/shared-line.js';
 import { expectConverted } from '../report/converted-quantities.js';
+import { escapeHtml } from '../../src/report/html/escape.js';
 
 const track = path.join(projectRoot, 'tracks', 'velmora-downs.json');
 const carFile = path.join(projectRoot, 'cars', 'tarnfell-gt.json');
@@ -59,7 +60,11 @@ describe('a session of four laps and a partial fifth', () => {
       if (halfGap > 0.005) expect([1, 3]).toContain(corner.bestLap);
     }
     expect(new Set(result.byTimeAvailable)).toEqual(new Set(result.corners.map((c: { id: number }) => c.id)));
-    expect(readFileSync(html, 'utf8')).toMatch(/^<!DOCTYPE html>/i);
+    const page = readFileSync(html, 'utf8');
+    expect(page).toMatch(/^<!DOCTYPE html>/i);
+    // Each note is listed once on the page, above the best lap, not again under its comparison.
+    expect(result.notes.length).toBeGreaterThan(0);
+    for (const text of result.notes as string[]) expect(page.split(`<li>${escapeHtml(text)}</li>`)).toHaveLength(2);
     // Under imperial the partial lap's reason in the lap table and the notes name feet: each figure is the JSON's
     // metric one converted (1 ft = 0.3048 m, NIST SP 811, appendix B), within both roundings.
     const imperialHtml = path.join(work, 'session-imperial.html');

@@ -32,7 +32,7 @@ const whole: PositionCoverage = { coverage: 1, worstOffM: 0, worstOffAtM: 0 };
 
 describe("a lap's reasons in feet", () => {
   it('an out lap that starts into the lap, ending short of the line', () => {
-    const [start, end] = positionLapProblems(0, 700, 412.6, whole, 25);
+    const [start, end] = positionLapProblems(0, false, 700, 412.6, whole, 25);
     // 700 m / 0.3048 = 2296.6 ft; 412.6 m / 0.3048 = 1353.7 ft (NIST SP 811 factor, worked by hand).
     expect(bothWays(start!)).toEqual({
       metricText: 'out lap: the log starts 700 m after the line',
@@ -43,14 +43,14 @@ describe("a lap's reasons in feet", () => {
       imperialText: 'the log ends 1354 ft before the line',
     });
     // A lap other than the out lap says it started into the lap.
-    expect(noteText(positionLapProblems(3, 80, 0, whole, 25)[0]!, imperial)).toBe(
+    expect(noteText(positionLapProblems(3, false, 80, 0, whole, 25)[0]!, imperial)).toBe(
       // 80 m / 0.3048 = 262.5 ft.
       'the log starts 262 ft into the lap',
     );
   });
 
   it('a lap that leaves the track, and one that covers too little of it', () => {
-    const reasons = positionLapProblems(2, 0, 0, { coverage: 0.6, worstOffM: 104, worstOffAtM: 1570 }, 25);
+    const reasons = positionLapProblems(2, false, 0, 0, { coverage: 0.6, worstOffM: 104, worstOffAtM: 1570 }, 25);
     expect(reasons).toHaveLength(2);
     // The share stays a per cent in both systems.
     expect(bothWays(reasons[0]!).imperialText).toMatch(/^covers 60 % of the track/);
@@ -69,6 +69,19 @@ describe("a lap's reasons in feet", () => {
     const inLap = distanceEdgeCheck(0, 3700, 0, 100, 3800, 25);
     // 100 m / 0.3048 = 328.1 ft.
     expect(bothWays(inLap.reason!).imperialText).toBe('the log ends 328 ft before the line');
+    // The last of several laps, which the log ends inside, is the in lap (common practice: the lap back to the pits).
+    const lastOfSeveral = distanceEdgeCheck(0, 3700, 0, 100, 3800, 25, true);
+    expect(bothWays(lastOfSeveral.reason!).imperialText).toBe('in lap: the log ends 328 ft before the line');
+  });
+
+  it('the in lap: the last of several laps, which the log ends inside', () => {
+    // 412.6 m / 0.3048 = 1353.7 ft.
+    expect(bothWays(positionLapProblems(4, true, 0, 412.6, whole, 25)[0]!)).toEqual({
+      metricText: 'in lap: the log ends 413 m before the line',
+      imperialText: 'in lap: the log ends 1354 ft before the line',
+    });
+    // A log that is one partial lap has no in lap: its lap 0 is the out lap.
+    expect(noteText(positionLapProblems(0, true, 0, 412.6, whole, 25)[0]!)).toBe('the log ends 413 m before the line');
   });
 });
 

@@ -1,6 +1,7 @@
 // The lap report as one self-contained HTML page: charts as inline SVG (d3-shape paths built here), one
 // inline style sheet and one inline script admitted by a Content-Security-Policy hash, no network at all.
 
+import { noteText } from '../note-text.js';
 import { clientScript } from './client-script.js';
 import { distanceChartSvg, DRAW_BUCKET_M } from './distance-chart.js';
 import { htmlPage } from './page-frame.js';
@@ -169,6 +170,9 @@ export function lapReportHtml(input: ReportInput): string {
     : input.comparison
       ? `${input.comparison.driver.source}, lap ${input.comparison.driver.lapNumber}, against ${other ? `${other.label} and ` : ''}the reference lap of the ${reference.envelopeKind} model`
       : `Reference lap of the ${reference.envelopeKind} model, grid step ${model.units.distance(reference.track.stepM).toFixed(2)} ${model.units.distanceLabel}`;
+  // A session's notes (how the laps were cut, what the fitted envelope lacks) are listed above its best lap, whose
+  // comparison carries the same ones.
+  const sessionNotes = new Set(session?.overview.notes.map((note) => noteText(note, model.units)));
   const main = `${session ? sessionSectionsHtml(session, model.units) + summaryHtml(model) : ''}<section class="overview">
 <div class="panel">${mapSvg!.svg}</div>
 ${gainSvg ? `<div class="panel">${gainSvg.svg}</div>` : ''}
@@ -179,7 +183,7 @@ ${gainSvg ? `<div class="panel">${gainSvg.svg}</div>` : ''}
 ${distanceSvgs.map((chart) => chart.svg).join('\n')}
 </section>
 ${model.other ? `<section class="panel">${againstTableHtml(model)}</section>\n${againstMultiplesHtml(model)}\n<section class="panel">${againstFindingsHtml(model)}</section>\n` : ''}<section class="panel">${cornerTableHtml(model)}</section>
-${input.comparison ? `<section class="panel">${findingsHtml(model)}</section>` : ''}`;
+${input.comparison ? `<section class="panel">${findingsHtml(model, sessionNotes)}</section>` : ''}`;
   const hoverStep = model.units
     .distance(Math.max(1, Math.ceil(reference.trace.count / MAX_HOVER_POINTS)) * reference.track.stepM)
     .toFixed(1);

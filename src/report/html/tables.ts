@@ -120,7 +120,8 @@ function robustnessText(finding: UncertainFinding, units: DisplayUnits): string 
   return rest.length > 0 ? `${head}; ${rest.join('; ')}.` : `${head}.`;
 }
 
-export function findingsHtml(model: ReportModel): string {
+/** `shownAbove`: notes the page already lists (a session's, above its best lap), not listed again. */
+export function findingsHtml(model: ReportModel, shownAbove: ReadonlySet<string> = new Set()): string {
   const comparison = model.input.comparison;
   if (!comparison) return '';
   const uncertainty = model.input.uncertainty;
@@ -144,7 +145,11 @@ export function findingsHtml(model: ReportModel): string {
       return `<li><span class="stake">${fixed(finding.timeS, 2)} s</span>${where}<span class="finding-text">${escapeHtml(finding.text)}${finding.robustness ? ` <em>${escapeHtml(finding.robustness)}</em>` : ''}</span></li>`;
     })
     .join('');
-  const notes = comparison.result.notes.map((note) => `<li>${escapeHtml(noteText(note, model.units))}</li>`).join('');
+  const notes = comparison.result.notes
+    .map((note) => noteText(note, model.units))
+    .filter((text) => !shownAbove.has(text))
+    .map((text) => `<li>${escapeHtml(text)}</li>`)
+    .join('');
   const derived = comparison.driver.derivedChannels.length
     ? `<li>${escapeHtml(`Derived, not measured: ${comparison.driver.derivedChannels.join(', ')}.`)}</li>`
     : '';
