@@ -1,5 +1,7 @@
-// Benchmark of `reflap sweep`: 1,000 setups (a 10 x 10 x 10 grid) on a 5 km circuit at 1 m step, with one
-// worker thread and with two; target under 10 s, and two workers at least 1.6 times as fast as one.
+// Benchmark of `reflap sweep`: 1,000 setups (a 10 x 10 x 10 grid) on a 5 km circuit at 1 m step, in the main thread,
+// with one worker thread and with two; target under 10 s, two workers at least 1.6 times as fast as one and never
+// slower than the main thread; and a small sweep (eight setups) with the worker count left to the pool, which must
+// not be slower than the main thread either (issue 18).
 
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
@@ -32,7 +34,7 @@ export async function run(): Promise<void> {
   const loadBefore = loadavg()[0]!;
   let runs = 0;
   let csvCheck = '';
-  for (const workers of [1, 2]) {
+  for (const workers of [0, 1, 2]) {
     const started = performance.now();
     const cpuStart = process.cpuUsage();
     const output = await runSweep({ track, base, variations, mode: 'grid' }, { workers });
@@ -46,10 +48,27 @@ export async function run(): Promise<void> {
     csvCheck = digest;
   }
   const ratio = times[1]! / times[2]!;
+  const chosenStarted = performance.now();
+  await runSweep({ track, base, variations, mode: 'grid' }, {});
+  const chosenS = (performance.now() - chosenStarted) / 1000;
+  const small = [parseVariation('massKg=-10:+10:20'), parseVariation('tyre.muLat=-2%:+2%:4%')];
+  const smallTimes = [0, undefined].map((workers) => {
+    const started = performance.now();
+    return runSweep({ track, base, variations: small, mode: 'grid' }, workers === 0 ? { workers } : {}).then(
+      (output) => ({ runs: output.table.records.length, wallS: (performance.now() - started) / 1000 }),
+    );
+  });
+  const [smallHere, smallChosen] = [await smallTimes[0]!, await smallTimes[1]!];
   process.stdout.write(
     `sweep: ${runs} runs (1,000 grid setups + baseline and difference pairs) on ${(track.lengthM / 1000).toFixed(2)} km at 1 m step\n` +
       `  1 worker   ${times[1]!.toFixed(2)} s wall, ${cpuS[1]!.toFixed(2)} s CPU (${((cpuS[1]! * 1000) / runs).toFixed(2)} ms CPU per run)\n` +
       `  2 workers  ${times[2]!.toFixed(2)} s wall, ${cpuS[2]!.toFixed(2)} s CPU\n` +
+      `  main thread ${times[0]!.toFixed(2)} s wall, ${cpuS[0]!.toFixed(2)} s CPU\n` +
+      `  ${verdict('speed-up of 2 workers over the main thread, wall', times[0]! / times[2]!, 1, 'x', false)}\n` +
+      `  workers left to the pool ${chosenS.toFixed(2)} s wall\n` +
+      `  ${verdict('left to the pool / main thread, wall', chosenS / times[0]!, 1.1, 'x')}\n` +
+      `  small sweep (${smallHere.runs} runs): main thread ${smallHere.wallS.toFixed(2)} s wall, workers left to the pool ${smallChosen.wallS.toFixed(2)} s\n` +
+      `  ${verdict('small sweep, left to the pool / main thread, wall', smallChosen.wallS / smallHere.wallS, 1.25, 'x')}\n` +
       `  ${verdict('2 workers, wall', times[2]!, 10, 's')}\n` +
       `  ${verdict('speed-up of 2 workers over 1, wall', ratio, 1.6, 'x', false)}` +
       ` (holds only on an otherwise idle machine: load ${loadBefore.toFixed(1)} before, ${loadavg()[0]!.toFixed(1)} after on ${availableCores()} cores)\n` +

@@ -11,7 +11,6 @@ import {
 } from './options.js';
 import { resolveReferenceLine } from './reference-path.js';
 import { setupBaseFrom, type Setting, type SetupBase } from '../sweep/settings.js';
-import { defaultWorkerCount } from '../sweep/pool.js';
 import type { TrackGrid } from '../track/types.js';
 import type { ReferenceLine } from '../line/reference-line.js';
 import { ambientFrom } from '../car/ambient.js';
@@ -41,9 +40,9 @@ export function setupReference(
   return resolveReferenceLine(track, base.car, ambientFrom(base.air), values.line, { startSpeedMps: start });
 }
 
-/** Parses --workers: default the number of cores, 0 = in the calling thread. */
-export function workerCount(text: string | undefined): number {
-  if (text === undefined) return defaultWorkerCount();
+/** Parses --workers: 0 = in the calling thread; left out, undefined: the pool starts workers where they pay. */
+export function workerCount(text: string | undefined): number | undefined {
+  if (text === undefined) return undefined;
   const workers = numberOption(text, '--workers', 1);
   if (!Number.isInteger(workers) || workers < 0 || workers > 256)
     throw new InputError(`option --workers: ${text} should be a whole number from 0 to 256`);

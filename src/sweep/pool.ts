@@ -46,7 +46,8 @@ export interface WorkerReply {
 }
 
 export interface RunOptions {
-  /** Worker threads; 0 runs in the calling thread. Default: os.availableParallelism(). */
+  /** Worker threads; 0 runs in the calling thread. Default: the first run here, and the others on one worker per
+   * core (os.availableParallelism()) only where they take long enough to pay for starting the workers. */
   workers?: number;
   /** Called after each finished task with the number of runs done so far. */
   onProgress?: (doneRuns: number, totalRuns: number) => void;
@@ -57,6 +58,22 @@ const WORKER_YOUNG_GENERATION_MB = 64;
 
 export function defaultWorkerCount(): number {
   return availableParallelism();
+}
+
+/** What starting a worker thread costs before its first run (Node's start, the job's modules, the context): about
+ * 0.4 s on a two-core machine (issue 18's measurement). Workers start side by side, so k of them cost this once. */
+export const WORKER_START_S = 0.4;
+
+/** CPU time the pool spends solving runs in the calling thread before it judges whether workers would pay. */
+const SOLVE_HERE_FIRST_S = 0.2;
+
+/**
+ * How many workers to start for runs that would take `remainingS` in this thread: k workers take about
+ * WORKER_START_S + remainingS / k, this thread remainingS, so they pay only when remainingS (1 - 1/k) is more than
+ * the start; otherwise none (0: solve them here). One worker never pays.
+ */
+export function workersWorthStarting(remainingS: number, cores: number): number {
+  return cores >= 2 && remainingS * (1 - 1 / cores) > WORKER_START_S ? cores : 0;
 }
 
 /** Solves the runs in this thread; `values` holds fields.length numbers per run. Returns job.width numbers per run. */
@@ -79,9 +96,11 @@ export function runSetupsInProcess<C extends PoolContext>(
 }
 
 /**
- * Solves the runs across worker threads. The outcome of run r lands at r * job.width whatever worker
- * solved it, so the result does not depend on the number of workers or on their timing. The worker is the
- * compiled module beside this one: run from the built package (dist/), as the command line and benchmarks do.
+ * Solves the runs across worker threads, or in this thread where workers would not pay for their start (when
+ * `options.workers` is left out: runs are solved here for 0.2 s of CPU, and the rest go where they end sooner).
+ * The outcome of run r lands at r * job.width whatever thread solved it, so the result does not depend on the
+ * number of workers or on their timing. The worker is the compiled module beside this one: run from the built
+ * package (dist/), as the command line and benchmarks do.
  */
 export async function runSetups<C extends PoolContext>(
   job: PoolJob<C>,
@@ -93,7 +112,58 @@ export async function runSetups<C extends PoolContext>(
   const width = context.fields.length;
   const runs = width === 0 ? 0 : values.length / width;
   const requested = options.workers ?? defaultWorkerCount();
-  if (requested <= 0 || runs === 0) return runSetupsInProcess(job, context, values, firstRun, options.onProgress);
+  const { onProgress } = options;
+  if (requested <= 0 || runs === 0) return runSetupsInProcess(job, context, values, firstRun, onProgress);
+  if (options.workers !== undefined) return runInWorkers(job, context, values, firstRun, requested, onProgress);
+  // Left to the pool: solve here for a while (the first runs are slow while V8 compiles the solver, in a worker as
+  // here), then judge from the later runs' pace whether the rest end sooner on workers.
+  const resultWidth = job.width(context);
+  const out = new Float64Array(runs * resultWidth);
+  const cpuS = () => {
+    const used = process.cpuUsage();
+    return (used.user + used.system) / 1e6;
+  };
+  const startS = cpuS();
+  let doneHere = 0;
+  let halfway: { runs: number; atS: number } | null = null;
+  let nowS = startS;
+  while (doneHere < runs && nowS - startS < SOLVE_HERE_FIRST_S) {
+    job.run(
+      context,
+      values.subarray(doneHere * width, (doneHere + 1) * width),
+      out,
+      doneHere * resultWidth,
+      `sweep run ${firstRun + doneHere}`,
+    );
+    doneHere++;
+    onProgress?.(doneHere, runs);
+    nowS = cpuS();
+    if (!halfway && nowS - startS >= SOLVE_HERE_FIRST_S / 2) halfway = { runs: doneHere, atS: nowS };
+  }
+  if (doneHere === runs) return out;
+  const paceS =
+    halfway && doneHere > halfway.runs ? (nowS - halfway.atS) / (doneHere - halfway.runs) : (nowS - startS) / doneHere;
+  const workers = workersWorthStarting((runs - doneHere) * paceS, requested);
+  const restValues = values.subarray(doneHere * width);
+  const restProgress = onProgress && ((done: number, total: number) => onProgress(done + doneHere, total + doneHere));
+  const rest =
+    workers === 0
+      ? runSetupsInProcess(job, context, restValues, firstRun + doneHere, restProgress)
+      : await runInWorkers(job, context, restValues, firstRun + doneHere, workers, restProgress);
+  out.set(rest, doneHere * resultWidth);
+  return out;
+}
+
+async function runInWorkers<C extends PoolContext>(
+  job: PoolJob<C>,
+  context: C,
+  values: Float64Array,
+  firstRun: number,
+  requested: number,
+  onProgress: RunOptions['onProgress'],
+): Promise<Float64Array> {
+  const width = context.fields.length;
+  const runs = values.length / width;
   const resultWidth = job.width(context);
   const out = new Float64Array(runs * resultWidth);
   // Small tasks keep the workers evenly loaded to the end; two in flight per worker hide the message latency.
@@ -148,7 +218,7 @@ export async function runSetups<C extends PoolContext>(
         out.set(reply.out, start * resultWidth);
         doneRuns += reply.out.length / resultWidth;
         finishedTasks++;
-        options.onProgress?.(doneRuns, runs);
+        onProgress?.(doneRuns, runs);
         if (finishedTasks === taskCount) finish();
         else send(worker);
       });

@@ -12,6 +12,7 @@ import { runStint } from '../../src/sweep/stint.js';
 import { runSweep as runSweepBuilt } from '../../dist/src/sweep/run-sweep.js';
 import { runStintInWorkers } from '../../dist/src/sweep/stint.js';
 import { InputError } from '../../src/errors.js';
+import { WORKER_START_S, workersWorthStarting } from '../../src/sweep/pool.js';
 import { testCar } from '../helpers/cars.js';
 import { stadium } from './tracks.js';
 
@@ -103,6 +104,28 @@ describe('shards and workers', () => {
       { workers: 0 },
     );
     expect(() => mergeSweepCsv([shards[0]!, { text: sweepCsv(other.table), source: 'other.csv' }])).toThrow(InputError);
+  });
+
+  it('solves a small sweep in this thread when the worker count is left to it, with the same table', async () => {
+    // The stadium's 34 runs take a few milliseconds each: far under what starting two workers costs. Solved from the
+    // sources (dist/ is not imported), the sweep could not have run on workers, which load the build.
+    const chosen = await runSweep({ track, base, variations, mode: 'grid' }, {});
+    const here = await runSweep({ track, base, variations, mode: 'grid' }, { workers: 0 });
+    expect(sweepCsv(chosen.table)).toBe(sweepCsv(here.table));
+  });
+
+  // k workers started side by side take about S + T / k where this thread takes T (S: their start), so they pay
+  // only when T (1 - 1/k) > S (arithmetic of the two ways); one worker never does.
+  it.each([
+    [0.3, 2, 0],
+    [0.79, 2, 0],
+    [0.81, 2, 2],
+    [0.6, 4, 4],
+    [0.5, 4, 0],
+    [100, 1, 0],
+  ])('starts workers for %s s of runs on %s cores only where they pay: %s', (remainingS, cores, expected) => {
+    expect(WORKER_START_S).toBe(0.4);
+    expect(workersWorthStarting(remainingS, cores)).toBe(expected);
   });
 
   it('gives chart series of lap time and braking-point shift against each field', async () => {

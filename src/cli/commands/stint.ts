@@ -40,7 +40,10 @@ export function register(program: Command): void {
       'number of laps; each starts with one lap of fuel (fuel.burnKgPerLap) less than the one before',
     )
     .option('--set <field=value...>', 'changes to the car first, as in whatif (e.g. fuel.massKg=60)')
-    .option('--workers <n>', 'worker threads (default: the number of cores; 0 = in this thread)')
+    .option(
+      '--workers <n>',
+      'worker threads (default: one per core where the runs take long enough to pay for starting them; 0 = in this thread)',
+    )
     .option('--out <file>', 'write one CSV row per lap')
     .option('--json', 'print one JSON object instead of the tables');
   addUnitsOption(addLineOption(command, true)).action((values: StintValues) => runStintCommand(values));
@@ -61,7 +64,7 @@ export async function runStintCommand(values: StintValues): Promise<void> {
     // Fewer laps than a worker takes to start are quicker in this thread.
     result = await runStintInWorkers(
       { track, base, laps, startSpeedMps: start, ...(path ? { path } : {}) },
-      { workers: laps < 8 ? 0 : workers, onProgress: (done, total) => progress.update(done, total) },
+      { workers, onProgress: (done, total) => progress.update(done, total) },
     );
   } finally {
     progress.stop();

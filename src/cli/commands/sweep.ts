@@ -63,7 +63,10 @@ export function register(program: Command): void {
         .choices(['grid', 'one-at-a-time'])
         .default('grid'),
     )
-    .option('--workers <n>', 'worker threads (default: the number of cores; 0 = in this thread)')
+    .option(
+      '--workers <n>',
+      'worker threads (default: one per core where the runs take long enough to pay for starting them; 0 = in this thread)',
+    )
     .option('--shard <i/n>', 'run only shard I of N (I from 1), for batch systems; join the CSVs with --merge')
     .option('--merge <files...>', 'join shard CSVs of one sweep into one (no new runs)')
     .option('--out <file>', 'write the runs as CSV (see docs/setup-sweeps.md for the columns)')
