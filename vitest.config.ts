@@ -2,12 +2,12 @@ import { availableParallelism } from 'node:os';
 import { defineConfig } from 'vitest/config';
 import LongFilesFirstSequencer from './test/long-files-first.js';
 
-/** Test files that keep a module graph of their own: the browser tests (one Chromium each) and a file that mocks a
- * library module (vi.mock would reach every file sharing its graph). Every other file shares one graph per worker,
- * the CLI tests and the docs' examples too: runCli restores the working folder after each run, hands the run its
- * environment in the CLI's worker thread (test/helpers/cli.ts), and that thread, with the built CLI loaded, then
- * serves every file of the worker instead of loading it once per file (about 1 s of CPU per file, measured on 20 CLI,
- * fuzz and robustness files: 45 s with a graph each, 25 s shared). */
+/** Test files that keep a module graph of their own: the browser checks (one file, one Chromium) and a file that
+ * mocks a library module (vi.mock would reach every file sharing its graph). Every other file shares one graph per
+ * worker, the CLI tests and the docs' examples too: runCli restores the working folder after each run, hands the run
+ * its environment in the CLI's worker thread (test/helpers/cli.ts), and that thread, with the built CLI loaded, then
+ * serves every file of the worker instead of loading it once per file (about 1 s of CPU per file, measured on 20
+ * CLI, fuzz and robustness files: 45 s with a graph each, 25 s shared). */
 const isolatedFiles = ['test/browser/**', 'test/robustness/internal-error.test.ts'];
 
 export default defineConfig({
