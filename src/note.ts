@@ -2,9 +2,10 @@
 // no unit: src/report/note-text.ts writes it in the reader's units (km/h and m, or mph and ft).
 
 /**
- * A distance, m, written to `digits` decimals; a range of distances, m, written 'from to to' with the unit once; a list of speeds, m/s, written in whole units with `separator`
- * between them (', ' unless given) and the unit once after the last; or a count of things per metre of track
- * (`noun` names them), written to `digits` decimals per metre or per foot.
+ * A distance, m, written to `digits` decimals; a range of distances, m, written 'from to to' with the unit once; a
+ * list of speeds, m/s, written in whole units with `separator` between them (', ' unless given) and the unit once
+ * after the last; or a count of things per metre of track (`noun` names them), written to `digits` decimals per
+ * metre or per foot.
  */
 export type NoteQuantity =
   | { distanceM: number; digits: number }

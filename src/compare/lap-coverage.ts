@@ -137,8 +137,8 @@ export function distanceLapProblem(span: number, medianSpan: number, L: number):
     : note`measures ${distanceOf(span)} by the distance channel, laps measure ${distanceOf(medianSpan)}`;
 }
 
-/** Whether a lap at an end of a log placed by distance (over [startM, endM] of the track) is complete, and why not or how
- * finished; `inLap`: the last of several laps, which the log ends inside. */
+/** Whether a lap at an end of a log placed by distance (over [startM, endM] of the track) is complete, and why not
+ * or how finished; `inLap`: the last of several laps, which the log ends inside. */
 export function distanceEdgeCheck(
   startM: number,
   endM: number,

@@ -61,7 +61,6 @@ export async function runStintCommand(values: StintValues): Promise<void> {
   const progress = createProgress({ label: 'stint', json: values.json });
   let result: StintResult;
   try {
-    // Fewer laps than a worker takes to start are quicker in this thread.
     result = await runStintInWorkers(
       { track, base, laps, startSpeedMps: start, ...(path ? { path } : {}) },
       { workers, onProgress: (done, total) => progress.update(done, total) },
