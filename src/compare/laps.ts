@@ -25,6 +25,10 @@ import {
 import { sampledMedian } from '../numeric/quantile.js';
 import { distanceOf, joinNotes, note, type Note } from '../note.js';
 
+/** A gap at a log's end shorter than this (the note's last digit, 0.1 m) is timed like any other but not noted: a
+ * note saying the log ends 0.0 m before the line tells a driver nothing (a real one-lap GPS log did). */
+const NOTED_GAP_M = 0.05;
+
 export interface LapCut {
   /** Lap 1 runs from the first line crossing to the second; lap 0 is the part before the first crossing (the
    * out lap). When that part is itself a full lap (the log starts just after the line), it is lap 1. */
@@ -131,13 +135,13 @@ function cutByPosition(
     if (start === null) {
       const v = sampleSpeed(session, placed, first);
       start = t[first]! - (missingStart > 0 && v > 0 ? missingStart / v : 0);
-      if (complete && missingStart > 0)
+      if (complete && missingStart >= NOTED_GAP_M)
         reason = note`the log starts ${distanceOf(missingStart, 1)} after the line; start time extrapolated`;
     }
     if (end === null) {
       const v = sampleSpeed(session, placed, last);
       end = t[last]! + (missingEnd > 0 && v > 0 ? missingEnd / v : 0);
-      if (complete && missingEnd > 0)
+      if (complete && missingEnd >= NOTED_GAP_M)
         reason = note`${reason ? note`${reason}; ` : ''}the log ends ${distanceOf(missingEnd, 1)} before the line; lap time extrapolated`;
     }
     return lapRecord(lapNumber, first, last, start, end, complete, reason, {
