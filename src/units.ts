@@ -23,3 +23,15 @@ export function formatLapTime(timeS: number): string {
   const seconds = (milliseconds - minutes * 60000) / 1000;
   return `${sign}${minutes}:${seconds.toFixed(3).padStart(6, '0')}`;
 }
+
+/** A signed or unsigned fixed-point number for people: never "-0.0", never scientific notation. */
+export function plainNumber(value: number, digits: number, signed = false): string {
+  if (!Number.isFinite(value)) return 'n/a';
+  const factor = 10 ** digits;
+  let rounded = Math.round(Math.abs(value) * factor) / factor;
+  if (rounded === 0) rounded = 0;
+  const negative = value < 0 && rounded !== 0;
+  const text = rounded.toFixed(digits);
+  if (negative) return `-${text}`;
+  return signed && rounded !== 0 ? `+${text}` : text;
+}

@@ -53,17 +53,7 @@ export function displayUnits(system: UnitSystem = 'metric'): DisplayUnits {
   return system === 'imperial' ? imperial : metric;
 }
 
-/** A signed or unsigned fixed-point number for people: never "-0.0", never scientific notation. */
-export function plainNumber(value: number, digits: number, signed = false): string {
-  if (!Number.isFinite(value)) return 'n/a';
-  const factor = 10 ** digits;
-  let rounded = Math.round(Math.abs(value) * factor) / factor;
-  if (rounded === 0) rounded = 0;
-  const negative = value < 0 && rounded !== 0;
-  const text = rounded.toFixed(digits);
-  if (negative) return `-${text}`;
-  return signed && rounded !== 0 ? `+${text}` : text;
-}
+export { plainNumber } from '../units.js';
 
 /** The words for numbers in one unit system: a distance and a speed with their unit, rounded for a sentence. */
 export interface Phrasing {

@@ -3,6 +3,8 @@
 // the reference but the median is not) or of technique (never driven well: even the best is far off). Ranked by
 // the time available.
 
+import { plainNumber } from '../../units.js';
+
 export interface VerdictOptions {
   /** Differences under this are not worth a verdict, s. */
   minTimeS: number;
@@ -32,7 +34,7 @@ interface CornerFigures {
 }
 
 const label = (corner: CornerFigures) => (corner.name ? `corner ${corner.id} (${corner.name})` : `corner ${corner.id}`);
-const seconds = (value: number) => `${value.toFixed(2)} s`;
+const seconds = (value: number) => `${plainNumber(value, 2)} s`;
 
 export function cornerVerdicts(
   corners: readonly CornerFigures[],
