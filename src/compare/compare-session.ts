@@ -13,13 +13,12 @@ import type { TelemetrySession } from '../telemetry/types.js';
 import { buildEnvelope } from '../car/build-envelope.js';
 import { demonstratedEnvelope, type DemonstratedEnvelopeRecord } from '../car/demonstrated-envelope.js';
 import { simulate } from '../solve/simulate.js';
-import { selectLap } from './align.js';
+import { alignLap, selectLap } from './align.js';
 import { compareLaps } from './compare-laps.js';
 import type { CompareOptions } from './compare-options.js';
 import { fitEnvelope, EnvelopeFitError, type EnvelopeSamples } from './envelope-fit.js';
 import { deriveSessionAccelerations, derivationNote } from './derive-session.js';
 import type { LapCut } from './laps.js';
-import { alignLap } from './align.js';
 import { honestyChecks } from './envelope-honesty.js';
 import type { Note } from '../note.js';
 

@@ -5,8 +5,7 @@
 import type { AgainstFinding, Difference } from '../compare/against/against-findings.js';
 import { mps2ToG } from '../units.js';
 import { findingCornerLabel } from './finding-phrases.js';
-import { phrasing, type Phrasing } from './units.js';
-import { displayUnits, type DisplayUnits } from './units.js';
+import { displayUnits, phrasing, type DisplayUnits, type Phrasing } from './units.js';
 
 const g = (mps2: number) => `${mps2ToG(mps2).toFixed(2)} g`;
 

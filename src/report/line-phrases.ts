@@ -4,8 +4,7 @@
 
 import type { DriverLineResult, LineFinding } from '../compare/driver-line/driver-line.js';
 import { findingCornerLabel } from './finding-phrases.js';
-import { phrasing } from './units.js';
-import { displayUnits, type DisplayUnits } from './units.js';
+import { displayUnits, phrasing, type DisplayUnits } from './units.js';
 
 /** One line finding as a sentence. */
 export function lineFindingText(finding: LineFinding, units: DisplayUnits = displayUnits('metric')): string {

@@ -84,15 +84,53 @@ export function runSetupsInProcess<C extends PoolContext>(
   firstRun = 0,
   onProgress?: RunOptions['onProgress'],
 ): Float64Array {
+  return solveHere(job, context, values, firstRun, onProgress, Infinity).out;
+}
+
+const cpuSeconds = () => {
+  const used = process.cpuUsage();
+  return (used.user + used.system) / 1e6;
+};
+
+/**
+ * Solves runs in this thread in order until all are done or `budgetS` of CPU is spent, into an array for them all;
+ * with a budget, also the CPU time a run took over the budget's second half (the first runs are slow while V8
+ * compiles the solver, here as in a worker).
+ */
+function solveHere<C extends PoolContext>(
+  job: PoolJob<C>,
+  context: C,
+  values: Float64Array,
+  firstRun: number,
+  onProgress: RunOptions['onProgress'],
+  budgetS: number,
+): { out: Float64Array; done: number; paceS: number } {
   const width = context.fields.length;
   const runs = width === 0 ? 0 : values.length / width;
   const resultWidth = job.width(context);
   const out = new Float64Array(runs * resultWidth);
-  for (let r = 0; r < runs; r++) {
-    job.run(context, values.subarray(r * width, (r + 1) * width), out, r * resultWidth, `sweep run ${firstRun + r}`);
-    onProgress?.(r + 1, runs);
+  const timed = budgetS < Infinity;
+  const startS = timed ? cpuSeconds() : 0;
+  let nowS = startS;
+  let halfway: { done: number; atS: number } | null = null;
+  let done = 0;
+  while (done < runs && nowS - startS < budgetS) {
+    job.run(
+      context,
+      values.subarray(done * width, (done + 1) * width),
+      out,
+      done * resultWidth,
+      `sweep run ${firstRun + done}`,
+    );
+    done++;
+    onProgress?.(done, runs);
+    if (!timed) continue;
+    nowS = cpuSeconds();
+    if (!halfway && nowS - startS >= budgetS / 2) halfway = { done, atS: nowS };
   }
-  return out;
+  const paceS =
+    halfway && done > halfway.done ? (nowS - halfway.atS) / (done - halfway.done) : (nowS - startS) / Math.max(done, 1);
+  return { out, done, paceS };
 }
 
 /**
@@ -115,42 +153,18 @@ export async function runSetups<C extends PoolContext>(
   const { onProgress } = options;
   if (requested <= 0 || runs === 0) return runSetupsInProcess(job, context, values, firstRun, onProgress);
   if (options.workers !== undefined) return runInWorkers(job, context, values, firstRun, requested, onProgress);
-  // Left to the pool: solve here for a while (the first runs are slow while V8 compiles the solver, in a worker as
-  // here), then judge from the later runs' pace whether the rest end sooner on workers.
-  const resultWidth = job.width(context);
-  const out = new Float64Array(runs * resultWidth);
-  const cpuS = () => {
-    const used = process.cpuUsage();
-    return (used.user + used.system) / 1e6;
-  };
-  const startS = cpuS();
-  let doneHere = 0;
-  let halfway: { runs: number; atS: number } | null = null;
-  let nowS = startS;
-  while (doneHere < runs && nowS - startS < SOLVE_HERE_FIRST_S) {
-    job.run(
-      context,
-      values.subarray(doneHere * width, (doneHere + 1) * width),
-      out,
-      doneHere * resultWidth,
-      `sweep run ${firstRun + doneHere}`,
-    );
-    doneHere++;
-    onProgress?.(doneHere, runs);
-    nowS = cpuS();
-    if (!halfway && nowS - startS >= SOLVE_HERE_FIRST_S / 2) halfway = { runs: doneHere, atS: nowS };
-  }
-  if (doneHere === runs) return out;
-  const paceS =
-    halfway && doneHere > halfway.runs ? (nowS - halfway.atS) / (doneHere - halfway.runs) : (nowS - startS) / doneHere;
-  const workers = workersWorthStarting((runs - doneHere) * paceS, requested);
-  const restValues = values.subarray(doneHere * width);
-  const restProgress = onProgress && ((done: number, total: number) => onProgress(done + doneHere, total + doneHere));
+  // Left to the pool: solve here for a while, then judge from the later runs' pace whether the rest end sooner on
+  // workers.
+  const { out, done, paceS } = solveHere(job, context, values, firstRun, onProgress, SOLVE_HERE_FIRST_S);
+  if (done === runs) return out;
+  const workers = workersWorthStarting((runs - done) * paceS, requested);
+  const restValues = values.subarray(done * width);
+  const restProgress = onProgress && ((doneRest: number, total: number) => onProgress(doneRest + done, total + done));
   const rest =
     workers === 0
-      ? runSetupsInProcess(job, context, restValues, firstRun + doneHere, restProgress)
-      : await runInWorkers(job, context, restValues, firstRun + doneHere, workers, restProgress);
-  out.set(rest, doneHere * resultWidth);
+      ? runSetupsInProcess(job, context, restValues, firstRun + done, restProgress)
+      : await runInWorkers(job, context, restValues, firstRun + done, workers, restProgress);
+  out.set(rest, done * job.width(context));
   return out;
 }
 
