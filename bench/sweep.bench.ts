@@ -1,24 +1,42 @@
 // Benchmark of `reflap sweep`: 1,000 setups (a 10 x 10 x 10 grid) on a 5 km circuit at 1 m step, in the main thread,
 // with one worker thread and with two; target under 10 s, two workers at least 1.6 times as fast as one and never
 // slower than the main thread; and a small sweep (eight setups) with the worker count left to the pool, which must
-// not be slower than the main thread either (issue 18). At about half a millisecond a run, 1,000 setups are 0.5 s of
-// work, of which the workers' start and V8's compiling the solver again in each take a large share; the scaling of
-// two workers over one is also timed on 10,000 setups, where the runs are most of the time.
+// not be slower than the main thread either (issue 18).
+// Timed two ways. In a fresh process, as one `reflap sweep` runs: at about half a millisecond a run, 1,000 setups are
+// 0.5 s of work, of which each worker's start and V8's compiling the solver again in it take a large share (so the
+// 10,000-setup sweep is timed fresh too). With threads started once: the pool keeps its threads between sweeps, so
+// a script's later sweeps run on threads already started and compiled, which is where the scaling itself shows.
 
+import { spawnSync } from 'node:child_process';
 import { readFileSync } from 'node:fs';
-import { fileURLToPath } from 'node:url';
+import { fileURLToPath, pathToFileURL } from 'node:url';
 import { trackFromSegments } from '../src/track/segments.js';
 import { parseCarJson } from '../src/io/read-car.js';
 import { ambientFrom } from '../src/car/ambient.js';
 import { airInputsOf, parseVariation } from '../src/sweep/settings.js';
 import { runSweep } from '../src/sweep/run-sweep.js';
+import { stopWorkerThreads } from '../src/sweep/threads.js';
 import { benchmarkCircuitSegments } from './simulate.bench.js';
 import { availableParallelism as availableCores, loadavg } from 'node:os';
-import { peakRssMb, verdict } from './stats.js';
+import { median, peakRssMb, verdict } from './stats.js';
 
 const projectRoot = fileURLToPath(new URL('../..', import.meta.url));
+/** Fresh processes per configuration; their medians are printed. */
+const FRESH_PROCESSES = 3;
+/** Sweeps per configuration on threads started once; their medians are printed. */
+const KEPT_ROUNDS = 5;
 
-export async function run(): Promise<void> {
+type Workers = number | 'pool';
+
+interface SweepTiming {
+  wallS: number;
+  cpuS: number;
+  runs: number;
+  /** The lap times, joined: every way of running a sweep must give the same. */
+  digest: string;
+}
+
+function sweepInput(setups: 8 | 1000 | 10000) {
   const car = parseCarJson(readFileSync(`${projectRoot}cars/tarnfell-gt.json`, 'utf8'), 'cars/tarnfell-gt.json');
   const track = trackFromSegments(
     { name: 'benchmark circuit', closed: true, widthM: 12, segments: benchmarkCircuitSegments() },
@@ -26,65 +44,120 @@ export async function run(): Promise<void> {
     'benchmark',
   );
   const base = { car, air: airInputsOf(ambientFrom()) };
-  const variations = [
+  const grid = [
     parseVariation('massKg=-45:+45:10'),
     parseVariation('tyre.muLat=-9%:+9%:2%'),
     parseVariation('airTempC=0:45:5'),
   ];
-  const times: Record<number, number> = {};
-  const cpuS: Record<number, number> = {};
+  const variations =
+    setups === 8
+      ? [parseVariation('massKg=-10:+10:20'), parseVariation('tyre.muLat=-2%:+2%:4%')]
+      : setups === 1000
+        ? grid
+        : [...grid, parseVariation('fuel.massKg=0:45:5')];
+  return { track, base, variations, mode: 'grid' as const };
+}
+
+/** One sweep, wall and CPU time of the whole process (worker threads included). */
+async function timeSweep(setups: 8 | 1000 | 10000, workers: Workers): Promise<SweepTiming> {
+  const input = sweepInput(setups);
+  const started = performance.now();
+  const cpuStart = process.cpuUsage();
+  const output = await runSweep(input, workers === 'pool' ? {} : { workers });
+  const cpu = process.cpuUsage(cpuStart);
+  const records = output.table.records;
+  return {
+    wallS: (performance.now() - started) / 1000,
+    cpuS: (cpu.user + cpu.system) / 1e6,
+    runs: records.length,
+    digest: records.map((r) => r.lapTimeS).join(','),
+  };
+}
+
+/** The medians of one configuration's sweeps, each in a process of its own (this file run with --one-sweep). */
+function freshSweeps(setups: 1000 | 10000, workers: Workers, processes: number): SweepTiming {
+  const timings: SweepTiming[] = [];
+  for (let k = 0; k < processes; k++) {
+    const args = [fileURLToPath(import.meta.url), '--one-sweep', String(setups), String(workers)];
+    const child = spawnSync(process.execPath, args, { encoding: 'utf8' });
+    if (child.status !== 0) throw new Error(`sweep bench child failed: ${child.stderr}`);
+    timings.push(JSON.parse(child.stdout) as SweepTiming);
+  }
+  return medianTiming(timings);
+}
+
+function medianTiming(timings: SweepTiming[]): SweepTiming {
+  const digests = new Set(timings.map((t) => t.digest));
+  if (digests.size !== 1) throw new Error('sweep results differ between runs');
+  return {
+    wallS: median(timings.map((t) => t.wallS)),
+    cpuS: median(timings.map((t) => t.cpuS)),
+    runs: timings[0]!.runs,
+    digest: timings[0]!.digest,
+  };
+}
+
+const line = (label: string, t: SweepTiming) =>
+  `  ${label.padEnd(26)} ${t.wallS.toFixed(2)} s wall, ${t.cpuS.toFixed(2)} s CPU\n`;
+
+export async function run(): Promise<void> {
   const loadBefore = loadavg()[0]!;
-  let runs = 0;
-  let csvCheck = '';
-  for (const workers of [0, 1, 2]) {
-    const started = performance.now();
-    const cpuStart = process.cpuUsage();
-    const output = await runSweep({ track, base, variations, mode: 'grid' }, { workers });
-    times[workers] = (performance.now() - started) / 1000;
-    // CPU time of the whole process, worker threads included: what the runs cost whatever else the machine does.
-    const cpu = process.cpuUsage(cpuStart);
-    cpuS[workers] = (cpu.user + cpu.system) / 1e6;
-    runs = output.table.records.length;
-    const digest = output.table.records.map((r) => r.lapTimeS).join(',');
-    if (csvCheck && csvCheck !== digest) throw new Error('sweep results differ between worker counts');
-    csvCheck = digest;
-  }
-  const ratio = times[1]! / times[2]!;
-  const chosenStarted = performance.now();
-  await runSweep({ track, base, variations, mode: 'grid' }, {});
-  const chosenS = (performance.now() - chosenStarted) / 1000;
-  const small = [parseVariation('massKg=-10:+10:20'), parseVariation('tyre.muLat=-2%:+2%:4%')];
-  const smallTimes = [0, undefined].map((workers) => {
-    const started = performance.now();
-    return runSweep({ track, base, variations: small, mode: 'grid' }, workers === 0 ? { workers } : {}).then(
-      (output) => ({ runs: output.table.records.length, wallS: (performance.now() - started) / 1000 }),
-    );
-  });
-  const [smallHere, smallChosen] = [await smallTimes[0]!, await smallTimes[1]!];
-  // Ten times the setups: where the runs, not the workers' start and warm-up, are most of the time.
-  const large = [...variations, parseVariation('fuel.massKg=0:45:5')];
-  const largeS: Record<number, number> = {};
-  let largeRuns = 0;
-  for (const workers of [1, 2]) {
-    const started = performance.now();
-    largeRuns = (await runSweep({ track, base, variations: large, mode: 'grid' }, { workers })).table.records.length;
-    largeS[workers] = (performance.now() - started) / 1000;
-  }
+  // In fresh processes, configurations in turn, so that a change in the machine's load weighs on all alike.
+  const fresh: Record<string, SweepTiming[]> = { 0: [], 1: [], 2: [], pool: [] };
+  for (let k = 0; k < FRESH_PROCESSES; k++)
+    for (const workers of [0, 1, 2, 'pool'] as const) fresh[workers]!.push(freshSweeps(1000, workers, 1));
+  const [here, one, two, chosen] = [0, 1, 2, 'pool'].map((w) => medianTiming(fresh[w]!));
+  if (new Set([here, one, two, chosen].map((t) => t!.digest)).size !== 1)
+    throw new Error('sweep results differ between worker counts');
+  const large = { one: freshSweeps(10000, 1, 1), two: freshSweeps(10000, 2, 1) };
+
+  // Threads started once: a first sweep starts two, then each configuration runs in turn on threads already
+  // started (the main thread, likewise, has compiled the solver by then).
+  await timeSweep(1000, 2);
+  const kept: Record<string, SweepTiming[]> = { 0: [], 1: [], 2: [] };
+  for (let k = 0; k < KEPT_ROUNDS; k++)
+    for (const workers of [0, 1, 2] as const) kept[workers]!.push(await timeSweep(1000, workers));
+  const [keptHere, keptOne, keptTwo] = [0, 1, 2].map((w) => medianTiming(kept[w]!));
+  await stopWorkerThreads();
+
+  const small = { here: await timeSweep(8, 0), chosen: await timeSweep(8, 'pool') };
+  await stopWorkerThreads();
+
   process.stdout.write(
-    `sweep: ${runs} runs (1,000 grid setups + baseline and difference pairs) on ${(track.lengthM / 1000).toFixed(2)} km at 1 m step\n` +
-      `  1 worker   ${times[1]!.toFixed(2)} s wall, ${cpuS[1]!.toFixed(2)} s CPU (${((cpuS[1]! * 1000) / runs).toFixed(2)} ms CPU per run)\n` +
-      `  2 workers  ${times[2]!.toFixed(2)} s wall, ${cpuS[2]!.toFixed(2)} s CPU\n` +
-      `  main thread ${times[0]!.toFixed(2)} s wall, ${cpuS[0]!.toFixed(2)} s CPU\n` +
-      `  ${verdict('speed-up of 2 workers over the main thread, wall', times[0]! / times[2]!, 1, 'x', false)}\n` +
-      `  workers left to the pool ${chosenS.toFixed(2)} s wall\n` +
-      `  ${verdict('left to the pool / main thread, wall', chosenS / times[0]!, 1.1, 'x')}\n` +
-      `  small sweep (${smallHere.runs} runs): main thread ${smallHere.wallS.toFixed(2)} s wall, workers left to the pool ${smallChosen.wallS.toFixed(2)} s\n` +
-      `  ${verdict('small sweep, left to the pool / main thread, wall', smallChosen.wallS / smallHere.wallS, 1.25, 'x')}\n` +
-      `  ${verdict('2 workers, wall', times[2]!, 10, 's')}\n` +
-      `  ${verdict('speed-up of 2 workers over 1, wall', ratio, 1.6, 'x', false)}` +
-      ` (holds only on an otherwise idle machine: load ${loadBefore.toFixed(1)} before, ${loadavg()[0]!.toFixed(1)} after on ${availableCores()} cores)\n` +
-      `  ${largeRuns} runs (10,000 setups): 1 worker ${largeS[1]!.toFixed(2)} s wall, 2 workers ${largeS[2]!.toFixed(2)} s wall\n` +
-      `  ${verdict('speed-up of 2 workers over 1 on 10,000 setups, wall', largeS[1]! / largeS[2]!, 1.6, 'x', false)}\n` +
-      `  peak RSS   ${peakRssMb().toFixed(0)} MB (main thread's process)\n`,
+    `sweep: ${here!.runs} runs (1,000 grid setups + baseline) on 5.00 km at 1 m step, ` +
+      `each in a fresh process (median of ${FRESH_PROCESSES})\n` +
+      line('main thread', here!) +
+      line('1 worker', one!) +
+      line('2 workers', two!) +
+      line('workers left to the pool', chosen!) +
+      `  ${verdict('2 workers, wall', two!.wallS, 10, 's')}\n` +
+      `  ${verdict('speed-up of 2 workers over 1, fresh process, wall', one!.wallS / two!.wallS, 1.6, 'x', false)}\n` +
+      `  ${verdict('speed-up of 2 workers over the main thread, fresh process, wall', here!.wallS / two!.wallS, 1, 'x', false)}\n` +
+      `  ${verdict('left to the pool / main thread, fresh process, wall', chosen!.wallS / here!.wallS, 1.1, 'x')}\n` +
+      `  10,000 setups (${large.one.runs} runs), fresh process: 1 worker ${large.one.wallS.toFixed(2)} s wall, ` +
+      `2 workers ${large.two.wallS.toFixed(2)} s wall\n` +
+      `  ${verdict('speed-up of 2 workers over 1 on 10,000 setups, fresh process, wall', large.one.wallS / large.two.wallS, 1.6, 'x', false)}\n` +
+      `sweep of 1,000 setups on threads started once (median of ${KEPT_ROUNDS} sweeps after a first one)\n` +
+      line('main thread', keptHere!) +
+      line('1 worker', keptOne!) +
+      line('2 workers', keptTwo!) +
+      `  ${verdict('speed-up of 2 workers over 1, threads started once, wall', keptOne!.wallS / keptTwo!.wallS, 1.6, 'x', false)}\n` +
+      `  ${verdict('speed-up of 2 workers over the main thread, threads started once, wall', keptHere!.wallS / keptTwo!.wallS, 1, 'x', false)}\n` +
+      `  small sweep (${small.here.runs} runs): main thread ${small.here.wallS.toFixed(2)} s wall, ` +
+      `workers left to the pool ${small.chosen.wallS.toFixed(2)} s\n` +
+      `  ${verdict('small sweep, left to the pool / main thread, wall', small.chosen.wallS / small.here.wallS, 1.25, 'x')}\n` +
+      `  (the scaling holds only on an otherwise idle machine: load ${loadBefore.toFixed(1)} before, ` +
+      `${loadavg()[0]!.toFixed(1)} after on ${availableCores()} cores)\n` +
+      `  peak RSS   ${peakRssMb().toFixed(0)} MB (this process)\n`,
   );
+}
+
+if (
+  process.argv[1] &&
+  import.meta.url === pathToFileURL(process.argv[1]).href &&
+  process.argv.includes('--one-sweep')
+) {
+  const [setups, workers] = process.argv.slice(process.argv.indexOf('--one-sweep') + 1);
+  const timing = await timeSweep(Number(setups) as 1000 | 10000, workers === 'pool' ? 'pool' : Number(workers));
+  process.stdout.write(JSON.stringify(timing) + '\n');
 }

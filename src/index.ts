@@ -75,6 +75,7 @@ export { brakingPointM } from './sweep/braking-point.js';
 export { compareSetupChange, type LapComparison, type ZoneChange } from './sweep/setup-change.js';
 export { planSweep, type SweepPlan, type SweepMode, type Shard } from './sweep/plan.js';
 export { runSweep, prepareSweep, type SweepInput, type SweepOutput } from './sweep/run-sweep.js';
+export { stopWorkerThreads } from './sweep/threads.js';
 export { sensitivities, type Sensitivity, type SweepTable, type SweepRecord, type SweepMeta } from './sweep/table.js';
 export { sweepCsv, parseSweepCsv, mergeSweepCsv } from './sweep/csv.js';
 export { sweepChartData, type SweepSeries } from './sweep/chart-data.js';

@@ -1,11 +1,12 @@
 // Runs parameter sets across worker threads (node:worker_threads): each worker gets the context (track, base car)
-// once, then small tasks of a few parameter sets, and answers with packed Float64Array outcomes. What a run is
-// comes from its caller as a job (a sweep's setup change, a draw of an uncertain reference), so the pool
-// knows none of them and the same workers serve all.
+// once per job, then small tasks of a few parameter sets, and answers with packed Float64Array outcomes. What a run
+// is comes from its caller as a job (a sweep's setup change, a draw of an uncertain reference), so the pool knows
+// none of them and the same threads, kept by ./threads.ts between jobs, serve all.
 
-import { Worker } from 'node:worker_threads';
+import type { Worker } from 'node:worker_threads';
 import { availableParallelism } from 'node:os';
 import { InputError } from '../errors.js';
+import { endThreads, keepThreads, lendThreads, solvedThreadCount, startThreads, type JobModule } from './threads.js';
 
 /** What every job's context has: the names of the values each run is given, in order. */
 export interface PoolContext {
@@ -23,14 +24,16 @@ export interface PoolJob<C extends PoolContext> {
   run(context: C, values: ArrayLike<number>, out: Float64Array, offset: number, where: string): void;
 }
 
-/** What a worker thread is started with. */
-export interface WorkerSetup {
+/** A job's context, sent to each of its threads before the job's tasks. */
+export interface ContextMessage {
+  kind: 'context';
   moduleUrl: string;
   exportName: string;
   context: PoolContext;
 }
 
 export interface TaskMessage {
+  kind: 'task';
   id: number;
   firstRun: number;
   runCount: number;
@@ -53,15 +56,13 @@ export interface RunOptions {
   onProgress?: (doneRuns: number, totalRuns: number) => void;
 }
 
-/** Each run allocates its traces afresh; a roomier young generation means fewer scavenges competing for the cores. */
-const WORKER_YOUNG_GENERATION_MB = 64;
-
 export function defaultWorkerCount(): number {
   return availableParallelism();
 }
 
 /** What starting a worker thread costs before its first run (Node's start, the job's modules, the context): about
- * 0.4 s on a two-core machine (issue 18's measurement). Workers start side by side, so k of them cost this once. */
+ * 0.4 s on a two-core machine (issue 18's measurement). Workers start side by side, so k of them cost this once;
+ * threads kept from an earlier job in this process cost nothing to start. */
 export const WORKER_START_S = 0.4;
 
 /** CPU time the pool spends solving runs in the calling thread before it judges whether workers would pay. */
@@ -72,8 +73,16 @@ const SOLVE_HERE_FIRST_S = 0.2;
  * WORKER_START_S + remainingS / k, this thread remainingS, so they pay only when remainingS (1 - 1/k) is more than
  * the start; otherwise none (0: solve them here). One worker never pays.
  */
-export function workersWorthStarting(remainingS: number, cores: number): number {
-  return cores >= 2 && remainingS * (1 - 1 / cores) > WORKER_START_S ? cores : 0;
+export function workersWorthStarting(remainingS: number, cores: number, startS = WORKER_START_S): number {
+  return cores >= 2 && remainingS * (1 - 1 / cores) > startS ? cores : 0;
+}
+
+/**
+ * Starts the threads a job asked for in `options.workers` now, before the caller's own preparation (a baseline lap,
+ * draws), so that their start overlaps it; left to the pool or 0, nothing starts here.
+ */
+export function startWorkersEarly(job: JobModule, options: RunOptions): void {
+  if (options.workers !== undefined && options.workers > 0) startThreads(options.workers, job);
 }
 
 /** Solves the runs in this thread; `values` holds fields.length numbers per run. Returns job.width numbers per run. */
@@ -157,7 +166,8 @@ export async function runSetups<C extends PoolContext>(
   // workers.
   const { out, done, paceS } = solveHere(job, context, values, firstRun, onProgress, SOLVE_HERE_FIRST_S);
   if (done === runs) return out;
-  const workers = workersWorthStarting((runs - done) * paceS, requested);
+  const startS = solvedThreadCount() >= requested ? 0 : WORKER_START_S;
+  const workers = workersWorthStarting((runs - done) * paceS, requested, startS);
   const restValues = values.subarray(done * width);
   const restProgress = onProgress && ((doneRest: number, total: number) => onProgress(doneRest + done, total + done));
   const rest =
@@ -183,22 +193,35 @@ async function runInWorkers<C extends PoolContext>(
   // Small tasks keep the workers evenly loaded to the end; two in flight per worker hide the message latency.
   const chunk = Math.max(1, Math.min(16, Math.ceil(runs / (requested * 8))));
   const taskCount = Math.ceil(runs / chunk);
-  const workerCount = Math.min(requested, taskCount);
-  const url = new URL('./worker.js', import.meta.url);
-  const setup: WorkerSetup = { moduleUrl: job.moduleUrl, exportName: job.exportName, context };
-  const workers: Worker[] = [];
+  const workers = lendThreads(Math.min(requested, taskCount), job);
+  const contextMessage: ContextMessage = {
+    kind: 'context',
+    moduleUrl: job.moduleUrl,
+    exportName: job.exportName,
+    context,
+  };
   let nextTask = 0;
   let doneRuns = 0;
   let finishedTasks = 0;
 
   return await new Promise<Float64Array>((resolve, reject) => {
     let settled = false;
+    const listeners = new Map<Worker, { message: (reply: WorkerReply) => void }>();
+    const onError = (error: Error) => finish(error);
+    const onExit = (code: number) => finish(new Error(`sweep worker stopped with exit code ${code}`));
     const finish = (error?: Error) => {
       if (settled) return;
       settled = true;
-      for (const worker of workers) void worker.terminate();
-      if (error) reject(error);
-      else resolve(out);
+      for (const [worker, { message }] of listeners) {
+        worker.off('message', message).off('error', onError).off('exit', onExit);
+      }
+      if (error) {
+        endThreads(workers);
+        reject(error);
+      } else {
+        keepThreads(workers);
+        resolve(out);
+      }
     };
     const send = (worker: Worker) => {
       if (nextTask >= taskCount) return;
@@ -206,6 +229,7 @@ async function runInWorkers<C extends PoolContext>(
       const start = id * chunk;
       const count = Math.min(chunk, runs - start);
       const task: TaskMessage = {
+        kind: 'task',
         id,
         firstRun: firstRun + start,
         runCount: count,
@@ -213,13 +237,8 @@ async function runInWorkers<C extends PoolContext>(
       };
       worker.postMessage(task, [task.values.buffer as ArrayBuffer]);
     };
-    for (let w = 0; w < workerCount; w++) {
-      const worker = new Worker(url, {
-        workerData: setup,
-        resourceLimits: { maxYoungGenerationSizeMb: WORKER_YOUNG_GENERATION_MB },
-      });
-      workers.push(worker);
-      worker.on('message', (reply: WorkerReply) => {
+    for (const worker of workers) {
+      const message = (reply: WorkerReply) => {
         if (reply.out === undefined) {
           finish(
             reply.inputError
@@ -235,11 +254,10 @@ async function runInWorkers<C extends PoolContext>(
         onProgress?.(doneRuns, runs);
         if (finishedTasks === taskCount) finish();
         else send(worker);
-      });
-      worker.on('error', (error) => finish(error));
-      worker.on('exit', (code) => {
-        if (!settled && code !== 0) finish(new Error(`sweep worker stopped with exit code ${code}`));
-      });
+      };
+      listeners.set(worker, { message });
+      worker.on('message', message).on('error', onError).on('exit', onExit);
+      worker.postMessage(contextMessage);
       send(worker);
       send(worker);
     }

@@ -5,7 +5,7 @@ import type { Path, TrackGrid } from '../track/types.js';
 import type { LapResult } from '../solve/types.js';
 import { planSweep, runCount, shardRange, type Shard, type SweepMode, type SweepPlan } from './plan.js';
 import { defaultContext, outcomeWidth, solveSetup, sweepJob, writeOutcome, type SweepContext } from './evaluate.js';
-import { runSetups, type RunOptions } from './pool.js';
+import { runSetups, startWorkersEarly, type RunOptions } from './pool.js';
 import { cornersOf, recordsFromOutcomes, sweepMeta, type SweepTable } from './table.js';
 import type { SetupBase, Variation } from './settings.js';
 
@@ -51,6 +51,7 @@ export function prepareSweep(input: SweepInput): { plan: SweepPlan; baseline: La
 }
 
 export async function runSweep(input: SweepInput, options: RunOptions = {}): Promise<SweepOutput> {
+  startWorkersEarly(sweepJob, options);
   const { plan, baseline, context } = prepareSweep(input);
   const total = runCount(plan);
   const { start, end } = input.shard ? shardRange(total, input.shard) : { start: 0, end: total };

@@ -6,7 +6,7 @@ import type { LapResult } from '../solve/types.js';
 import { InputError } from '../errors.js';
 import { mpsToKph } from '../units.js';
 import { defaultContext, outcomeWidth, solveSetup, sweepJob, VALUES_PER_CORNER, writeOutcome } from './evaluate.js';
-import { runSetups, runSetupsInProcess, type RunOptions } from './pool.js';
+import { runSetups, runSetupsInProcess, startWorkersEarly, type RunOptions } from './pool.js';
 import { cornersOf, DIGITS, type SweepCorner } from './table.js';
 import { roundToDigits } from '../numeric/round.js';
 import { tidy, type SetupBase } from './settings.js';
@@ -121,6 +121,7 @@ export function runStint(input: StintInput): StintResult {
 
 /** The stint across worker threads (laps are independent: each starts from its own fuel load). */
 export async function runStintInWorkers(input: StintInput, options: RunOptions = {}): Promise<StintResult> {
+  startWorkersEarly(sweepJob, options);
   const { loads, firstLap, context } = prepare(input);
   const { onProgress } = options;
   const rest = await runSetups(sweepJob, context, Float64Array.from(loads.slice(1)), 1, {

@@ -13,7 +13,7 @@ import { quantileSorted } from '../numeric/quantile.js';
 import type { LapResult } from '../solve/types.js';
 import type { Path, TrackGrid } from '../track/types.js';
 import { defaultContext, outcomeWidth, VALUES_PER_CORNER } from '../sweep/evaluate.js';
-import { runSetups, type RunOptions } from '../sweep/pool.js';
+import { runSetups, startWorkersEarly, type RunOptions } from '../sweep/pool.js';
 import { DEFAULT_DRAW_SEED, drawParameters } from './draws.js';
 import {
   drawOutcomeWidth,
@@ -115,6 +115,7 @@ export async function uncertainReference(
   options: UncertainOptions,
 ): Promise<UncertainReference> {
   const { track, car, nominal } = input;
+  startWorkersEarly(drawJob, options);
   const seed = options.seed ?? DEFAULT_DRAW_SEED;
   const count = Math.max(1, Math.round(options.draws));
   const drawn = drawParameters(car, count, seed);

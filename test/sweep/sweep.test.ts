@@ -11,6 +11,7 @@ import { runStint } from '../../src/sweep/stint.js';
 // Worker threads run compiled modules, so the runs on workers call the build (dist/, made before vitest runs).
 import { runSweep as runSweepBuilt } from '../../dist/src/sweep/run-sweep.js';
 import { runStintInWorkers } from '../../dist/src/sweep/stint.js';
+import { solvedThreadCount } from '../../dist/src/sweep/threads.js';
 import { InputError } from '../../src/errors.js';
 import { WORKER_START_S, workersWorthStarting } from '../../src/sweep/pool.js';
 import { testCar } from '../helpers/cars.js';
@@ -106,6 +107,15 @@ describe('shards and workers', () => {
     expect(() => mergeSweepCsv([shards[0]!, { text: sweepCsv(other.table), source: 'other.csv' }])).toThrow(InputError);
   });
 
+  it('keeps its threads between sweeps, and a second sweep on them gives the same table', async () => {
+    const first = await runSweepBuilt({ track, base, variations, mode: 'grid' }, { workers: 2 });
+    expect(solvedThreadCount()).toBe(2);
+    const again = await runSweepBuilt({ track, base, variations, mode: 'grid' }, { workers: 2 });
+    const here = await runSweep({ track, base, variations, mode: 'grid' }, { workers: 0 });
+    expect(sweepCsv(again.table)).toBe(sweepCsv(first.table));
+    expect(sweepCsv(again.table)).toBe(sweepCsv(here.table));
+  });
+
   it('solves a small sweep in this thread when the worker count is left to it, with the same table', async () => {
     // The stadium's 34 runs take a few milliseconds each: far under what starting two workers costs. Solved from the
     // sources (dist/ is not imported), the sweep could not have run on workers, which load the build.
@@ -126,6 +136,11 @@ describe('shards and workers', () => {
   ])('starts workers for %s s of runs on %s cores only where they pay: %s', (remainingS, cores, expected) => {
     expect(WORKER_START_S).toBe(0.4);
     expect(workersWorthStarting(remainingS, cores)).toBe(expected);
+  });
+
+  it('lends threads kept from an earlier job for any runs left, since they cost nothing to start', () => {
+    expect(workersWorthStarting(0.01, 2, 0)).toBe(2);
+    expect(workersWorthStarting(0.01, 1, 0)).toBe(0);
   });
 
   it('gives chart series of lap time and braking-point shift against each field', async () => {
