@@ -143,8 +143,8 @@ export async function run(): Promise<void> {
       line('2 workers', keptTwo!) +
       `  ${verdict('speed-up of 2 workers over 1, threads started once, wall', keptOne!.wallS / keptTwo!.wallS, 1.6, 'x', false)}\n` +
       `  ${verdict('speed-up of 2 workers over the main thread, threads started once, wall', keptHere!.wallS / keptTwo!.wallS, 1, 'x', false)}\n` +
-      `  small sweep (${small.here.runs} runs): main thread ${small.here.wallS.toFixed(2)} s wall, ` +
-      `workers left to the pool ${small.chosen.wallS.toFixed(2)} s\n` +
+      `  small sweep (${small.here.runs} runs): main thread ${(small.here.wallS * 1000).toFixed(1)} ms wall, ` +
+      `workers left to the pool ${(small.chosen.wallS * 1000).toFixed(1)} ms\n` +
       `  ${verdict('small sweep, left to the pool / main thread, wall', small.chosen.wallS / small.here.wallS, 1.25, 'x')}\n` +
       `  (the scaling holds only on an otherwise idle machine: load ${loadBefore.toFixed(1)} before, ` +
       `${loadavg()[0]!.toFixed(1)} after on ${availableCores()} cores)\n` +

@@ -5,7 +5,7 @@
 import type { BrakingZone, LapResult } from '../solve/types.js';
 import type { Path, TrackGrid } from '../track/types.js';
 import { simulate, simulateLapTime, type LapTimeResult } from '../solve/simulate.js';
-import { applySetup, type SetupBase } from './settings.js';
+import { applyCheckedSetup, applySetup, type SetupBase } from './settings.js';
 import { DEFAULT_MATCH_TOLERANCE_M, matchBrakingZones } from './match-zones.js';
 import { brakingPointM } from './braking-point.js';
 import type { PoolJob } from './pool.js';
@@ -42,9 +42,10 @@ export function solveSetup(
   });
 }
 
-/** The same lap as solveSetup in the solver's lap-time mode: the lap time and the braking points a run reports. */
+/** The same lap as solveSetup in the solver's lap-time mode (the lap time and the braking points a run reports), for
+ * a run whose values were checked when it was planned. */
 function solveSetupLapTime(context: SweepContext, values: ArrayLike<number>, where: string): LapTimeResult {
-  const { car, ambient } = applySetup(context.base, context.fields, values, where);
+  const { car, ambient } = applyCheckedSetup(context.base, context.fields, values, where);
   return simulateLapTime(context.track, car, {
     ambient,
     startSpeedMps: context.startSpeedMps,

@@ -160,17 +160,13 @@ function checkAir(air: AirInputs, where: string): void {
     throw new InputError(`${where}: pressureHpa ${air.pressureHpa} hPa is outside 300 to 1200 hPa`);
 }
 
-/**
- * The car and air with absolute `values` put into `fields`; the changed car is validated again, so a
- * change that makes it invalid (a negative mass, mu of zero) is a one-line InputError naming the field.
- * A NaN value leaves its field as the base has it.
- */
-export function applySetup(
+/** The car and air with absolute `values` put into `fields`, not yet checked. */
+function writeSetup(
   base: SetupBase,
   fields: readonly string[],
   values: ArrayLike<number>,
   where: string,
-): { car: Car; ambient: Ambient } {
+): { car: Car; air: AirInputs; airChanged: boolean } {
   let car = base.car;
   const air: AirInputs = { ...base.air };
   let airChanged = false;
@@ -187,8 +183,39 @@ export function applySetup(
       car = writeCarField(car, field, value, where);
     }
   }
-  if (car !== base.car) car = validateCar(car, `${where} (${fields.map((f, k) => `${f}=${values[k]}`).join(', ')})`);
+  return { car, air, airChanged };
+}
+
+/**
+ * The car and air with absolute `values` put into `fields`; the changed car is validated again, so a
+ * change that makes it invalid (a negative mass, mu of zero) is a one-line InputError naming the field.
+ * A NaN value leaves its field as the base has it.
+ */
+export function applySetup(
+  base: SetupBase,
+  fields: readonly string[],
+  values: ArrayLike<number>,
+  where: string,
+): { car: Car; ambient: Ambient } {
+  const { car, air, airChanged } = writeSetup(base, fields, values, where);
+  const checked =
+    car === base.car ? car : validateCar(car, `${where} (${fields.map((f, k) => `${f}=${values[k]}`).join(', ')})`);
   if (airChanged) checkAir(air, where);
+  return { car: checked, ambient: ambientFrom(air) };
+}
+
+/**
+ * applySetup for a run whose values were checked before any run was solved: planSweep passes every run through
+ * applySetup, and a stint's fuel loads stay between an empty and the starting tank. Checking each again as it is
+ * solved would cost every run, and every worker thread V8's compiling the whole car check, for no new answer.
+ */
+export function applyCheckedSetup(
+  base: SetupBase,
+  fields: readonly string[],
+  values: ArrayLike<number>,
+  where: string,
+): { car: Car; ambient: Ambient } {
+  const { car, air } = writeSetup(base, fields, values, where);
   return { car, ambient: ambientFrom(air) };
 }
 
