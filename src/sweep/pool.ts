@@ -206,14 +206,14 @@ async function runInWorkers<C extends PoolContext>(
 
   return await new Promise<Float64Array>((resolve, reject) => {
     let settled = false;
-    const listeners = new Map<Worker, { message: (reply: WorkerReply) => void }>();
+    const listeners = new Map<Worker, (reply: WorkerReply) => void>();
     const onError = (error: Error) => finish(error);
     const onExit = (code: number) => finish(new Error(`sweep worker stopped with exit code ${code}`));
     const finish = (error?: Error) => {
       if (settled) return;
       settled = true;
-      for (const [worker, { message }] of listeners) {
-        worker.off('message', message).off('error', onError).off('exit', onExit);
+      for (const [worker, onMessage] of listeners) {
+        worker.off('message', onMessage).off('error', onError).off('exit', onExit);
       }
       if (error) {
         endThreads(workers);
@@ -238,7 +238,7 @@ async function runInWorkers<C extends PoolContext>(
       worker.postMessage(task, [task.values.buffer as ArrayBuffer]);
     };
     for (const worker of workers) {
-      const message = (reply: WorkerReply) => {
+      const onMessage = (reply: WorkerReply) => {
         if (reply.out === undefined) {
           finish(
             reply.inputError
@@ -255,8 +255,8 @@ async function runInWorkers<C extends PoolContext>(
         if (finishedTasks === taskCount) finish();
         else send(worker);
       };
-      listeners.set(worker, { message });
-      worker.on('message', message).on('error', onError).on('exit', onExit);
+      listeners.set(worker, onMessage);
+      worker.on('message', onMessage).on('error', onError).on('exit', onExit);
       worker.postMessage(contextMessage);
       send(worker);
       send(worker);
