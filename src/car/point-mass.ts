@@ -46,6 +46,9 @@ export function loadSensitiveMu(mu: number, loadN: number, staticLoadN: number, 
   return mu * Math.max(0.2, 1 - (sensitivity * (loadN - staticLoadN)) / staticLoadN);
 }
 
+/** A bound on the ellipse's share left, lowered by this factor, is safely below the share as computed (engineBelow). */
+const ENGINE_MARGIN = 1 - 1e-12;
+
 /** Which wheels drive, as a number the limits branch on: all four, the front axle or the rear axle. */
 const DRIVEN = { all: 0, front: 1, rear: 2 } as const;
 const ALL_DRIVEN = DRIVEN.all;
@@ -147,15 +150,15 @@ class PointMassEnvelope implements Envelope {
     return tyreMps2 < this.brakeCapMps2 ? tyreMps2 : this.brakeCapMps2;
   }
 
-  private leftFor(lateralMps2: number, loadN: number, muShare: number): number {
-    // Running straight asks nothing sideways: all of the budget is left (what the share below gives, as the lateral
-    // capacity is positive: muLat > 0 and a floored load), without its two divisions.
-    if (lateralMps2 === 0) return 1;
-    return remainingShare(
-      Math.abs(lateralMps2) / this.lateralCapOf(loadN, muShare),
-      this.exponent,
-      this.inverseExponent,
-    );
+  /** Share of the lateral capacity this demand uses. */
+  private lateralShareOf(lateralMps2: number, loadN: number, muShare: number): number {
+    // Running straight asks nothing sideways (the lateral capacity is positive: muLat > 0 and a floored load): no
+    // share, without its two divisions.
+    return lateralMps2 === 0 ? 0 : Math.abs(lateralMps2) / this.lateralCapOf(loadN, muShare);
+  }
+
+  private leftFor(lateralShare: number): number {
+    return remainingShare(lateralShare, this.exponent, this.inverseExponent);
   }
 
   lateralLimitMps2(speedMps: number, _side?: number, load = 1): number {
@@ -166,15 +169,29 @@ class PointMassEnvelope implements Envelope {
   accelLimitMps2(speedMps: number, lateralMps2: number, load = 1): number {
     const loadN = this.normalLoadN(speedMps, load);
     const muShare = this.muShareAt(loadN);
-    const tyre = this.tractionOf(loadN, load, muShare) * this.leftFor(lateralMps2, loadN, muShare);
+    const traction = this.tractionOf(loadN, load, muShare);
     const engine = this.drive.forceN(speedMps) / this.massKg;
+    const used = this.lateralShareOf(lateralMps2, loadN, muShare);
+    const tyre = this.engineBelow(engine, traction, used) ? engine : traction * this.leftFor(used);
     return (tyre < engine ? tyre : engine) - this.coastOf(speedMps, loadN);
+  }
+
+  /**
+   * Whether the engine gives no more than the tyres can with this share of them used sideways, known without the
+   * ellipse's powers: with exponent n >= 1 and a lateral share u <= 1/2, the share left (1 - u^n)^(1/n) is at least
+   * 1 - u^n, so at least 1 - u, and it is computed to a few units in the last place (no cancellation: 1 - u^n >= 1/2),
+   * which ENGINE_MARGIN covers many times over. The lower of the two is then the engine's to the last bit: most of a
+   * lap at speed on a real circuit, where the curvature is never quite zero.
+   */
+  private engineBelow(engine: number, traction: number, lateralShare: number): boolean {
+    return this.exponent >= 1 && lateralShare <= 0.5 && engine <= traction * (1 - lateralShare) * ENGINE_MARGIN;
   }
 
   brakeLimitMps2(speedMps: number, lateralMps2: number, load = 1): number {
     const loadN = this.normalLoadN(speedMps, load);
     const muShare = this.muShareAt(loadN);
-    return this.tyreBrakeOf(loadN, muShare) * this.leftFor(lateralMps2, loadN, muShare) + this.coastOf(speedMps, loadN);
+    const left = this.leftFor(this.lateralShareOf(lateralMps2, loadN, muShare));
+    return this.tyreBrakeOf(loadN, muShare) * left + this.coastOf(speedMps, loadN);
   }
 
   coastDecelMps2(speedMps: number, load = 1): number {
