@@ -8,6 +8,7 @@
 import type { Envelope } from '../car/envelope.js';
 import type { Path } from '../track/types.js';
 import type { LapTrace } from './types.js';
+import type { SpeedProfile } from './speed-profile.js';
 
 /** The engine's drive counts as fully in use (power-limited) from this share of it: the solver's steps reach the
  * drive limit only to rounding. */
@@ -26,9 +27,10 @@ function openEndAccelerationMps2(envelope: Envelope, speed: number, curvaturePer
   );
 }
 
-/** Share of the tyres' braking (left beside the cornering) in use at this speed, demand and acceleration. */
-function brakeShare(envelope: Envelope, speed: number, ay: number, tyreAx: number, coast: number): number {
-  const available = envelope.brakeLimitMps2(speed, ay) - coast;
+/** Share of the tyres' braking (left beside the cornering) in use at this speed, demand and acceleration; `known` is
+ * the braking limit there where the solver has it (SpeedProfile), else NaN. */
+function brakeShare(envelope: Envelope, speed: number, ay: number, tyreAx: number, coast: number, known: number) {
+  const available = (known === known ? known : envelope.brakeLimitMps2(speed, ay)) - coast;
   return available > 1e-9 ? Math.min(1, -tyreAx / available) : 1;
 }
 
@@ -45,7 +47,8 @@ function pathLengthM(path: Path, n: number): number {
 // lacks type feedback (building the result's record) sent every call back to the interpreter.
 
 /** Fills the brake channel; returns the lap time. */
-function brakeLoop(path: Path, envelope: Envelope, speedMps: Float64Array, shift: Uint8Array, brake: Float64Array) {
+function brakeLoop(path: Path, envelope: Envelope, profile: SpeedProfile, brake: Float64Array) {
+  const { speedMps, shift, brakeLimitMps2 } = profile;
   const n = speedMps.length;
   const kappa = path.curvaturePerM;
   const ds = path.segmentLengthM;
@@ -63,7 +66,8 @@ function brakeLoop(path: Path, envelope: Envelope, speedMps: Float64Array, shift
     // Only a deceleration beyond drag and rolling resistance can be braking, and never during a shift.
     if (ax < 0 && !shift[i]) {
       const coast = envelope.coastDecelMps2(speed);
-      if (ax + coast < 0) brake[i] = brakeShare(envelope, speed, speed * speed * kappa[i]!, ax + coast, coast);
+      if (ax + coast < 0)
+        brake[i] = brakeShare(envelope, speed, speed * speed * kappa[i]!, ax + coast, coast, brakeLimitMps2[i]!);
     }
   }
   return elapsedS;
@@ -73,12 +77,11 @@ function brakeLoop(path: Path, envelope: Envelope, speedMps: Float64Array, shift
 export function lapTimeAndBrake(
   path: Path,
   envelope: Envelope,
-  speedMps: Float64Array,
-  shift: Uint8Array,
+  profile: SpeedProfile,
 ): { lapTimeS: number; lengthM: number; brake: Float64Array } {
-  const n = speedMps.length;
+  const n = profile.speedMps.length;
   const brake = new Float64Array(n);
-  const lapTimeS = brakeLoop(path, envelope, speedMps, shift, brake);
+  const lapTimeS = brakeLoop(path, envelope, profile, brake);
   return { lapTimeS, lengthM: pathLengthM(path, n), brake };
 }
 
@@ -115,7 +118,8 @@ class Channels implements ChannelArrays {
 }
 
 /** Fills every channel of `out` from the speed profile. */
-function channelLoop(path: Path, envelope: Envelope, speedMps: Float64Array, shift: Uint8Array, out: ChannelArrays) {
+function channelLoop(path: Path, envelope: Envelope, profile: SpeedProfile, out: ChannelArrays) {
+  const { speedMps, shift, brakeLimitMps2 } = profile;
   const n = speedMps.length;
   const kappa = path.curvaturePerM;
   const ds = path.segmentLengthM;
@@ -147,7 +151,7 @@ function channelLoop(path: Path, envelope: Envelope, speedMps: Float64Array, shi
       throttle[i] = Math.min(1, share);
       if (share >= POWER_LIMITED_SHARE) powerLimited[i] = 1;
     } else {
-      brake[i] = brakeShare(envelope, speed, ay, tyreAx, coast);
+      brake[i] = brakeShare(envelope, speed, ay, tyreAx, coast, brakeLimitMps2[i]!);
     }
     gripUse[i] = envelope.gripUse(speed, ax, ay);
     gear[i] = envelope.gearAt(speed);
@@ -163,14 +167,13 @@ function anyGear(gear: Int8Array): boolean {
 export function lapChannels(
   path: Path,
   envelope: Envelope,
-  speedMps: Float64Array,
-  cornerLimitMps: Float64Array,
+  profile: SpeedProfile,
   stationM: Float64Array,
-  shift: Uint8Array = new Uint8Array(speedMps.length),
 ): { trace: LapTrace; lapTimeS: number; lengthM: number } {
+  const { speedMps, cornerLimitMps, shift } = profile;
   const n = speedMps.length;
   const channels = new Channels(n);
-  const lapTimeS = channelLoop(path, envelope, speedMps, shift, channels);
+  const lapTimeS = channelLoop(path, envelope, profile, channels);
   const { distanceM, timeS, axMps2, ayMps2, throttle, brake, gripUse, powerLimited, gear } = channels;
   const trace: LapTrace = {
     closed: path.closed,

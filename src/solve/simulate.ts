@@ -70,7 +70,7 @@ export interface LapTimeResult {
  */
 export function simulateLapTime(track: TrackGrid, car: Car, options: SimulateOptions = {}): LapTimeResult {
   const { envelope, path, profile } = solveOn(track, car, options, 'simulateLapTime');
-  const { lapTimeS, lengthM, brake } = lapTimeAndBrake(path, envelope, profile.speedMps, profile.shift);
+  const { lapTimeS, lengthM, brake } = lapTimeAndBrake(path, envelope, profile);
   const brakingZones = brakingZonesOf(path, track, profile.speedMps, brake);
   return { lapTimeS, lengthM, speedMps: profile.speedMps, brakingZones, path, track };
 }
@@ -93,14 +93,7 @@ function largestOf(values: Float64Array, sign = 1): number {
 
 export function simulate(track: TrackGrid, car: Car, options: SimulateOptions = {}): LapResult {
   const { envelope, path, profile } = solveOn(track, car, options, 'simulate');
-  const { trace, lapTimeS, lengthM } = lapChannels(
-    path,
-    envelope,
-    profile.speedMps,
-    profile.cornerLimitMps,
-    track.distanceM,
-    profile.shift,
-  );
+  const { trace, lapTimeS, lengthM } = lapChannels(path, envelope, profile, track.distanceM);
   return {
     trace,
     lapTimeS,

@@ -23,6 +23,10 @@ export interface SpeedProfile {
   cornerLimitMps: Float64Array;
   /** 1 on the steps where an upshift cuts the drive (and the speed follows the forward pass), else 0. */
   shift: Uint8Array;
+  /** On flat ground, the braking limit at the lap's speed and lateral demand where the backward pass computed it
+   * there (the entry of a braking step), m/s^2; NaN elsewhere. The brake channel reads it rather than computing it
+   * again. */
+  brakeLimitMps2: Float64Array;
 }
 
 const MAX_PERIODIC_LAPS = 20;
@@ -126,6 +130,7 @@ function outpulled(envelope: Envelope, speed: number, curvaturePerM: number, roa
  * v = sqrt(v_exit^2 + 2 b(v, v^2 kappa) ds), so the braking is limited by the lateral demand at the speed the
  * car actually has there (an explicit step would use the lower exit speed and ask for more than the envelope).
  * The explicit step bounds the root from above when b falls with speed; a bracketing secant closes in on it.
+ * The braking limit at the speed returned goes to brakeOut[h] (NaN where it was not computed).
  */
 function brakingEntrySpeedMps(
   envelope: Envelope,
@@ -134,28 +139,33 @@ function brakingEntrySpeedMps(
   lengthM: number,
   road: PathRoad | null,
   h: number,
+  brakeOut: Float64Array,
 ): number {
   const exitSquared = exitSpeedMps * exitSpeedMps;
   const twiceLengthM = 2 * lengthM;
   let lo = exitSpeedMps;
-  let hi = Math.sqrt(
-    Math.max(0, exitSquared + twiceLengthM * brakeLimitAt(envelope, exitSpeedMps, curvaturePerM, road, h)),
-  );
+  let brakeLo = brakeLimitAt(envelope, exitSpeedMps, curvaturePerM, road, h);
+  let hi = Math.sqrt(Math.max(0, exitSquared + twiceLengthM * brakeLo));
   let fLo = hi - lo;
+  brakeOut[h] = NaN;
   if (fLo <= 0) return hi;
-  let fHi =
-    Math.sqrt(Math.max(0, exitSquared + twiceLengthM * brakeLimitAt(envelope, hi, curvaturePerM, road, h))) - hi;
-  if (fHi >= 0) return hi;
+  const brakeHi = brakeLimitAt(envelope, hi, curvaturePerM, road, h);
+  let fHi = Math.sqrt(Math.max(0, exitSquared + twiceLengthM * brakeHi)) - hi;
+  if (fHi >= 0) {
+    brakeOut[h] = brakeHi;
+    return hi;
+  }
   // The Illinois variant of regula falsi (Dowell and Jarratt, BIT 11 (1971) 168-174): the end that stays put twice
   // running has its value halved, so both ends close in on the root, superlinearly, to rounding.
   let kept = 0;
   for (let k = 0; k < 100 && hi - lo > ROOT_TOLERANCE * hi; k++) {
     const mid = hi - (fHi * (hi - lo)) / (fHi - fLo);
     if (!(mid > lo && mid < hi)) break;
-    const fMid =
-      Math.sqrt(Math.max(0, exitSquared + twiceLengthM * brakeLimitAt(envelope, mid, curvaturePerM, road, h))) - mid;
+    const brakeMid = brakeLimitAt(envelope, mid, curvaturePerM, road, h);
+    const fMid = Math.sqrt(Math.max(0, exitSquared + twiceLengthM * brakeMid)) - mid;
     if (fMid > 0) {
       lo = mid;
+      brakeLo = brakeMid;
       fLo = fMid;
       if (kept === 1) fHi *= 0.5;
       kept = 1;
@@ -164,15 +174,20 @@ function brakingEntrySpeedMps(
       fHi = fMid;
       if (kept === -1) fLo *= 0.5;
       kept = -1;
-    } else return mid;
+    } else {
+      brakeOut[h] = brakeMid;
+      return mid;
+    }
   }
   // The lower bracket never asks more of the envelope than it has.
+  brakeOut[h] = brakeLo;
   return lo;
 }
 
 /**
  * The backward pass from `last`, where the speed is its corner limit, taking the lower of it and the forward pass
- * into `speed` as it goes (a braking step also drops the forward pass's shift gap there, which never happens).
+ * into `speed` as it goes (a braking step also drops the forward pass's shift gap there, which never happens). Where a
+ * braking step's entry is the lap's speed, on flat ground, `brakeOut` keeps the braking limit computed there.
  */
 function backwardPass(
   path: Path,
@@ -182,6 +197,7 @@ function backwardPass(
   out: Float64Array,
   road: PathRoad | null,
   shift: Uint8Array,
+  brakeOut: Float64Array,
 ): void {
   const n = limit.length;
   const steps = path.closed ? n : n - 1;
@@ -204,13 +220,15 @@ function backwardPass(
       speed < previous ||
       (road && road.road.gravityAlongMps2[h]! < 0 && outpulled(envelope, speed, kappa[h]!, road, h))
     ) {
-      previous = brakingEntrySpeedMps(envelope, speed, kappa[h]!, ds[h]!, road, h);
+      previous = brakingEntrySpeedMps(envelope, speed, kappa[h]!, ds[h]!, road, h, brakeOut);
+      // The channels read the braking limit on flat ground at the lap's own speed: it is kept only there.
+      if (previous > limit[h]! || road) brakeOut[h] = NaN;
       if (previous > limit[h]!) previous = limit[h]!;
     }
     if (previous < out[h]!) {
       out[h] = previous;
       shift[h] = 0;
-    }
+    } else if (previous > out[h]!) brakeOut[h] = NaN;
     speed = previous;
   }
 }
@@ -221,6 +239,7 @@ export function solveSpeedProfile(path: Path, envelope: Envelope, options: Speed
   const cornerLimitMps = cornerLimitProfile(envelope, path.curvaturePerM, undefined, road);
   const speedMps = new Float64Array(n);
   const shift = new Uint8Array(n);
+  const brakeLimitMps2 = new Float64Array(n).fill(NaN);
   if (path.closed) {
     const slowest = argMin(cornerLimitMps);
     // The slowest corner limit may be out of the car's reach (a weak car whose top speed caps every limit, or
@@ -233,7 +252,7 @@ export function solveSpeedProfile(path: Path, envelope: Envelope, options: Speed
       if (backAt >= startMps - PERIODIC_TOLERANCE_MPS) break;
       startMps = backAt;
     }
-    backwardPass(path, envelope, cornerLimitMps, slowest, speedMps, road, shift);
+    backwardPass(path, envelope, cornerLimitMps, slowest, speedMps, road, shift, brakeLimitMps2);
   } else {
     forwardPass(
       path,
@@ -246,7 +265,7 @@ export function solveSpeedProfile(path: Path, envelope: Envelope, options: Speed
       road,
       shift,
     );
-    backwardPass(path, envelope, cornerLimitMps, n - 1, speedMps, road, shift);
+    backwardPass(path, envelope, cornerLimitMps, n - 1, speedMps, road, shift, brakeLimitMps2);
   }
-  return { speedMps, cornerLimitMps, shift };
+  return { speedMps, cornerLimitMps, shift, brakeLimitMps2 };
 }

@@ -4,11 +4,15 @@
 // Dynamics, SAE 1992, ch. 4), the engine's drive force P / v at full power, steady cornering ay = v^2 / R and the
 // friction ellipse (ax/axMax)^2 + (ay/ayMax)^2 = 1 (Milliken and Milliken, Race Car Vehicle Dynamics, SAE 1995, ch. 2).
 
+import { existsSync } from 'node:fs';
+import path from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { simulate } from '../../src/solve/simulate.js';
 import { trackFromSegments } from '../../src/track/segments.js';
 import { ambientFrom } from '../../src/car/ambient.js';
 import { readCarFile } from '../../src/io/read-car.js';
+import { readTrackFile } from '../../src/io/read-track.js';
+import type { TrackGrid } from '../../src/track/types.js';
 import { traceCsv } from '../../src/report/trace-csv.js';
 import { STANDARD_GRAVITY_MPS2 as g } from '../../src/units.js';
 import { testCar } from '../helpers/cars.js';
@@ -124,4 +128,72 @@ describe('gear shifts', () => {
       .split(',');
     expect(header).toEqual(expect.arrayContaining(['power_limited', 'gear', 'shift']));
   });
+});
+
+describe('the brake channel through braking zones', () => {
+  // brake = -(ax + coast) / (b - coast), the share of the tyres' braking left beside the cornering in use, with
+  // b = muLong N / m (1 - u^n)^(1/n) + coast, u = ay / (muLat N / m), N = m g + 1/2 rho ClA v^2 and coast the drag
+  // and rolling resistance (the friction ellipse of Brayshaw and Harrison, Proc. IMechE Part D 219 (2005); forces as
+  // in this file's header), written out here with Math.pow at every braking sample of the lap. On a real centreline
+  // (Monza, TUM racetrack-database, LGPL v3, geometry from OpenStreetMap, read from ../shared and skipped where
+  // absent), whose curvature changes at every sample, and on a circuit of two hairpins.
+  const monzaCsv = path.resolve(projectRoot, '..', 'shared', 'data', 'open-tracks', 'Monza.csv');
+  const hairpins = () =>
+    trackFromSegments(
+      {
+        name: 'two hairpins',
+        closed: true,
+        widthM: 10,
+        segments: [
+          { kind: 'straight', lengthM: 700 },
+          { kind: 'arc', radiusM: 45, angleDeg: 180 },
+          { kind: 'straight', lengthM: 700 },
+          { kind: 'arc', radiusM: 45, angleDeg: 180 },
+        ],
+      },
+      1,
+      'two hairpins',
+    );
+  const tracks: [string, () => TrackGrid][] = [['two hairpins', hairpins]];
+  if (existsSync(monzaCsv))
+    tracks.push([
+      "Monza's centreline",
+      () =>
+        readTrackFile(monzaCsv, {
+          stepM: 1,
+          columns: { width_left_m: 'w_tr_left_m', width_right_m: 'w_tr_right_m' },
+          widthM: null,
+          layout: 'auto',
+          smoothingM: null,
+        }),
+    ]);
+  else console.warn(`brake channel on a real centreline skipped: ${monzaCsv} is absent`);
+  for (const [name, trackOf] of tracks)
+    it(`is the share of the braking left in use at every braking sample (${name})`, () => {
+      const massKg = 1100;
+      const muLat = 1.35;
+      const muLong = 1.3;
+      const dragAreaM2 = 0.7;
+      const liftAreaM2 = 1.2;
+      const crr = 0.012;
+      const n = 2.2;
+      const car = testCar({ massKg, muLat, muLong, dragAreaM2, liftAreaM2, maxPowerW: 220e3, ggExponent: n });
+      car.rollingResistanceCoeff = crr;
+      const t = simulate(trackOf(), car, { ambient }).trace;
+      let braking = 0;
+      let worst = 0;
+      for (let i = 0; i < t.count; i++) {
+        if (!(t.brake[i]! > 0)) continue;
+        braking++;
+        const v = t.speedMps[i]!;
+        const normalN = massKg * g + 0.5 * rho * liftAreaM2 * v * v;
+        const coast = (0.5 * rho * dragAreaM2 * v * v + crr * normalN) / massKg;
+        const used = Math.abs(t.ayMps2[i]!) / ((muLat * normalN) / massKg);
+        const b = ((muLong * normalN) / massKg) * (used >= 1 ? 0 : Math.pow(1 - Math.pow(used, n), 1 / n)) + coast;
+        const expected = Math.min(1, -(t.axMps2[i]! + coast) / (b - coast));
+        worst = Math.max(worst, Math.abs(t.brake[i]! - expected));
+      }
+      expect(braking).toBeGreaterThan(100);
+      expect(worst).toBeLessThan(1e-9);
+    });
 });
