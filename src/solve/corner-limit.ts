@@ -64,13 +64,18 @@ function largestHolding(margin: (speedMps: number) => number, topMps: number, to
   return lo;
 }
 
-/** Largest speed with v^2 |kappa| <= lateral limit(v), on [0, top speed]. */
-export function cornerLimitSpeedMps(envelope: Envelope, curvaturePerM: number): number {
+/** Largest speed with v^2 |kappa| <= lateral limit(v), on [0, top speed]; `topLateralMps2` is the lateral limit at
+ * top speed on the curve's side, which a caller solving many samples computes once. */
+export function cornerLimitSpeedMps(
+  envelope: Envelope,
+  curvaturePerM: number,
+  topLateralMps2 = envelope.lateralLimitMps2(envelope.topSpeedMps, curvaturePerM >= 0 ? 1 : -1),
+): number {
   const top = envelope.topSpeedMps;
   const kappa = Math.abs(curvaturePerM);
   if (kappa < CURVATURE_FLOOR_PER_M) return top;
   const side = curvaturePerM >= 0 ? 1 : -1;
-  const topMargin = envelope.lateralLimitMps2(top, side) - top * top * kappa;
+  const topMargin = topLateralMps2 - top * top * kappa;
   if (topMargin >= 0) return top;
   const closed = settled(
     envelope.cornerSpeedSquaredEstimate?.(1, 0, 0, kappa),
@@ -157,14 +162,18 @@ export function cornerLimitProfile(
           : limitAt(i, curvaturePerM[i]!);
     return out;
   }
-  // An arc holds one curvature over many samples: its limit is solved once.
+  // An arc holds one curvature over many samples: its limit is solved once. A real centreline's curvature changes at
+  // every sample, most of them taken at top speed: the lateral limit there is computed once for each side.
+  const top = envelope.topSpeedMps;
+  const topLeftMps2 = envelope.lateralLimitMps2(top, 1);
+  const topRightMps2 = envelope.lateralLimitMps2(top, -1);
   let lastKappa = NaN;
   let lastLimit = 0;
   for (let i = 0; i < curvaturePerM.length; i++) {
     const kappa = curvaturePerM[i]!;
     if (kappa !== lastKappa) {
       lastKappa = kappa;
-      lastLimit = cornerLimitSpeedMps(envelope, kappa);
+      lastLimit = cornerLimitSpeedMps(envelope, kappa, kappa >= 0 ? topLeftMps2 : topRightMps2);
     }
     out[i] = lastLimit;
   }
