@@ -3,11 +3,16 @@
 // Issue 18's targets at 1 m: simulate with every channel under 0.8 ms for a point-mass car without gears and under
 // 1.0 ms with gears, the lap-time mode (lap time and braking points) under 0.5 ms, and reflap within 2.5 times a
 // plain reference of the same passes written below in tight JavaScript (Brayshaw and Harrison's method, the point
-// mass of src/car/point-mass.ts's header).
+// mass of src/car/point-mass.ts's header). Beside each car's figures, the same lap on a real circuit's centreline,
+// whose curvature changes at every sample (the segment circuit's corner limits repeat arc by arc): Monza (5.8 km, TUM
+// racetrack-database, LGPL v3, geometry from OpenStreetMap), read from ../shared and skipped with a message where
+// absent.
 
-import { readFileSync } from 'node:fs';
+import { existsSync, readFileSync } from 'node:fs';
+import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { trackFromSegments, type TrackSegment } from '../src/track/segments.js';
+import { readTrackFile } from '../src/io/read-track.js';
 import { parseCarJson } from '../src/io/read-car.js';
 import { simulate, simulateLapTime } from '../src/solve/simulate.js';
 import { driveForceTable } from '../src/car/drive-force.js';
@@ -16,9 +21,19 @@ import type { Ambient, Car } from '../src/car/types.js';
 import type { TrackGrid } from '../src/track/types.js';
 import { buildEnvelope } from '../src/car/build-envelope.js';
 import { ambientFrom } from '../src/car/ambient.js';
-import { linearityVerdict, machineLoad, medianTimes, pairedMedianTimes, peakRssMb, verdict } from './stats.js';
+import type { Envelope } from '../src/car/envelope.js';
+import {
+  linearityVerdict,
+  machineLoad,
+  medianTimes,
+  pairedMedianTimes,
+  peakRssMb,
+  verdict,
+  type Timing,
+} from './stats.js';
 
 const projectRoot = fileURLToPath(new URL('../..', import.meta.url));
+const monzaCsv = path.resolve(projectRoot, '..', 'shared', 'data', 'open-tracks', 'Monza.csv');
 
 /** Warm-up of each timing, CPU seconds: V8 compiles the passes on another thread while they run, which on a busy
  * two-core machine took up to a tenth of a second a function, and a new car (fields that held whole numbers
@@ -228,7 +243,8 @@ function roadCost(
   process.stdout.write(`  ${verdict('3D / flat wall', hillyTiming.wallMs / flatTiming.wallMs, 1.3, 'x')}\n`);
 }
 
-/** Issue 18's targets for one car at 1 m: every channel, lap-time mode, and the ratio to the plain passes. */
+/** Issue 18's targets for one car at 1 m: every channel, lap-time mode, and the ratio to the plain passes; then the
+ * same car on the real centreline. */
 function againstTargets(name: string, fullTargetMs: number, ambient: Ambient): void {
   const car = parseCarJson(readFileSync(`${projectRoot}cars/${name}.json`, 'utf8'), `cars/${name}.json`);
   const envelope = buildEnvelope(car, ambient);
@@ -257,6 +273,34 @@ function againstTargets(name: string, fullTargetMs: number, ambient: Ambient): v
   );
   process.stdout.write(
     `  ${verdict('simulate / plain passes, CPU', full.cpuMs / plain.cpuMs, 2.5, 'x')}; ${verdict('lap-time mode / plain passes, CPU', quick.cpuMs / plain.cpuMs, 2.5, 'x')}\n`,
+  );
+  onRealCentreline(car, ambient, envelope, full, quick);
+}
+
+/** One car's lap on Monza's centreline at 1 m (as `reflap simulate --line centreline` reads it), every channel and
+ * lap-time mode, beside the segment circuit's figures. */
+function onRealCentreline(car: Car, ambient: Ambient, envelope: Envelope, segmentFull: Timing, segmentQuick: Timing) {
+  if (!existsSync(monzaCsv)) {
+    process.stdout.write(`  real centreline: skipped (${monzaCsv} is absent)\n`);
+    return;
+  }
+  const track = readTrackFile(monzaCsv, {
+    stepM: 1,
+    columns: { width_left_m: 'w_tr_left_m', width_right_m: 'w_tr_right_m' },
+    widthM: null,
+    layout: 'auto',
+    smoothingM: null,
+  });
+  let fullS = 0;
+  let quickS = 0;
+  const full = settledTimes(() => (fullS = simulate(track, car, { ambient, envelope }).lapTimeS));
+  const quick = settledTimes(() => (quickS = simulateLapTime(track, car, { ambient, envelope }).lapTimeS));
+  const figures = (real: Timing, segment: Timing) =>
+    `${real.wallMs.toFixed(2)} ms wall / ${real.cpuMs.toFixed(2)} ms CPU (segment circuit ${segment.wallMs.toFixed(2)} / ${segment.cpuMs.toFixed(2)} ms, ` +
+    `${(real.cpuMs / segment.cpuMs).toFixed(1)}x its CPU)`;
+  process.stdout.write(
+    `  Monza's centreline, ${(track.lengthM / 1000).toFixed(2)} km at 1 m: simulate ${figures(full, segmentFull)} (lap ${fullS.toFixed(4)} s); ` +
+      `lap-time mode ${figures(quick, segmentQuick)} (lap ${quickS.toFixed(4)} s)\n`,
   );
 }
 
