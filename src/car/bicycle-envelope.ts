@@ -8,7 +8,7 @@ import type { Ambient, Car } from './types.js';
 import type { Envelope } from './envelope.js';
 import { bicycleParams, type BicycleParams } from './bicycle-params.js';
 import { axleState, newAxleState, type AxleState } from './bicycle-axles.js';
-import { combinedShare, pointMassEnvelope, remainingShare, topSpeedOf } from './point-mass.js';
+import { combinedShare, pointMassEnvelope, remainingShare, surelyWithinShare, topSpeedOf } from './point-mass.js';
 import { driveForceTable } from './drive-force.js';
 import { STANDARD_GRAVITY_MPS2 } from '../units.js';
 import { largestHolding } from '../numeric/bisect.js';
@@ -28,6 +28,15 @@ const BISECTION_STEPS = 60;
 
 const share = (demandN: number, capacityN: number): number =>
   capacityN > 0 ? demandN / capacityN : demandN > 0 ? Infinity : 0;
+
+/** Whether forceN <= capacityN x the ellipse's share left beside the lateral share `used`, to the last bit: the share
+ * is at most 1 and at least what surelyWithinShare takes, and is computed only where those leave the answer open (the
+ * bisections below ask mostly far from the limit). */
+function withinShareLeft(forceN: number, capacityN: number, used: number, exponent: number): boolean {
+  if (forceN > capacityN && capacityN >= 0) return false;
+  if (surelyWithinShare(forceN, capacityN, used, exponent)) return true;
+  return forceN <= capacityN * remainingShare(used, exponent);
+}
 
 /**
  * A smooth function of speed tabulated every TABLE_STEP_MPS up to TABLE_TOP_MPS and read back by cubic Hermite
@@ -93,11 +102,11 @@ function driveFits(
   const { p, exponent } = m;
   const s = cornerHolds(m, speedMps, forceN / m.massKg - coastMps2, ayMps2, extraN);
   if (s === null) return false;
-  const frontLeftN = s.frontLongCapN * remainingShare(share(s.frontLatDemandN, s.frontLatCapN), exponent);
-  const rearLeftN = s.rearLongCapN * remainingShare(share(s.rearLatDemandN, s.rearLatCapN), exponent);
-  if (p.drive === 'rear') return forceN <= rearLeftN;
-  if (p.drive === 'front') return forceN <= frontLeftN;
-  return forceN <= frontLeftN + rearLeftN;
+  const front = share(s.frontLatDemandN, s.frontLatCapN);
+  const rear = share(s.rearLatDemandN, s.rearLatCapN);
+  if (p.drive === 'rear') return withinShareLeft(forceN, s.rearLongCapN, rear, exponent);
+  if (p.drive === 'front') return withinShareLeft(forceN, s.frontLongCapN, front, exponent);
+  return forceN <= s.frontLongCapN * remainingShare(front, exponent) + s.rearLongCapN * remainingShare(rear, exponent);
 }
 
 /**
@@ -116,10 +125,11 @@ function brakeFits(
   const s = cornerHolds(m, speedMps, -forceN / m.massKg - coastMps2, ayMps2, extraN);
   if (s === null) return false;
   const cap = Math.min(1, m.brakeCapN / (s.frontLongCapN + s.rearLongCapN));
-  const frontLeftN = cap * s.frontLongCapN * remainingShare(share(s.frontLatDemandN, s.frontLatCapN), exponent);
-  const rearLeftN = cap * s.rearLongCapN * remainingShare(share(s.rearLatDemandN, s.rearLatCapN), exponent);
   const bias = p.brakeFrontBias;
-  return bias * forceN <= frontLeftN && (1 - bias) * forceN <= rearLeftN;
+  return (
+    withinShareLeft(bias * forceN, cap * s.frontLongCapN, share(s.frontLatDemandN, s.frontLatCapN), exponent) &&
+    withinShareLeft((1 - bias) * forceN, cap * s.rearLongCapN, share(s.rearLatDemandN, s.rearLatCapN), exponent)
+  );
 }
 
 /** The larger of the two axles' ellipse shares; the tyres' share only (the engine's limit is not grip in use). */

@@ -25,6 +25,19 @@ export function remainingShare(used: number, exponent: number, inverse = 1 / exp
   return Math.exp(inverse * Math.log(1 - Math.exp(exponent * Math.log(used))));
 }
 
+/** A bound on the share left, lowered by this factor, is safely below the share as computed (surelyWithinShare). */
+const SHARE_MARGIN = 1 - 1e-12;
+
+/**
+ * Whether `amount` <= `capacity` x remainingShare(used, exponent) is sure without computing the share's powers: with
+ * exponent n >= 1 and u <= 1/2 the share left (1 - u^n)^(1/n) is at least 1 - u^n, so at least 1 - u, and it is
+ * computed to a few units in the last place there (no cancellation: 1 - u^n >= 1/2), which SHARE_MARGIN covers many
+ * times over. False where the bound does not settle it (the share must then be computed).
+ */
+export function surelyWithinShare(amount: number, capacity: number, used: number, exponent: number): boolean {
+  return capacity >= 0 && exponent >= 1 && used <= 0.5 && amount <= capacity * (1 - used) * SHARE_MARGIN;
+}
+
 /** Combined use of a super-ellipse budget by two shares. */
 export function combinedShare(longShare: number, latShare: number, exponent: number, inverse = 1 / exponent): number {
   const a = Math.abs(longShare);
@@ -45,9 +58,6 @@ export function loadSensitiveMu(mu: number, loadN: number, staticLoadN: number, 
   if (sensitivity === 0) return mu;
   return mu * Math.max(0.2, 1 - (sensitivity * (loadN - staticLoadN)) / staticLoadN);
 }
-
-/** A bound on the ellipse's share left, lowered by this factor, is safely below the share as computed (engineBelow). */
-const ENGINE_MARGIN = 1 - 1e-12;
 
 /** Which wheels drive, as a number the limits branch on: all four, the front axle or the rear axle. */
 const DRIVEN = { all: 0, front: 1, rear: 2 } as const;
@@ -172,19 +182,11 @@ class PointMassEnvelope implements Envelope {
     const traction = this.tractionOf(loadN, load, muShare);
     const engine = this.drive.forceN(speedMps) / this.massKg;
     const used = this.lateralShareOf(lateralMps2, loadN, muShare);
-    const tyre = this.engineBelow(engine, traction, used) ? engine : traction * this.leftFor(used);
+    // Where the engine surely gives no more than the tyres can beside the cornering, the lower of the two is the
+    // engine's to the last bit without the ellipse's powers: most of a lap at speed on a real circuit, whose
+    // curvature is never quite zero.
+    const tyre = surelyWithinShare(engine, traction, used, this.exponent) ? engine : traction * this.leftFor(used);
     return (tyre < engine ? tyre : engine) - this.coastOf(speedMps, loadN);
-  }
-
-  /**
-   * Whether the engine gives no more than the tyres can with this share of them used sideways, known without the
-   * ellipse's powers: with exponent n >= 1 and a lateral share u <= 1/2, the share left (1 - u^n)^(1/n) is at least
-   * 1 - u^n, so at least 1 - u, and it is computed to a few units in the last place (no cancellation: 1 - u^n >= 1/2),
-   * which ENGINE_MARGIN covers many times over. The lower of the two is then the engine's to the last bit: most of a
-   * lap at speed on a real circuit, where the curvature is never quite zero.
-   */
-  private engineBelow(engine: number, traction: number, lateralShare: number): boolean {
-    return this.exponent >= 1 && lateralShare <= 0.5 && engine <= traction * (1 - lateralShare) * ENGINE_MARGIN;
   }
 
   brakeLimitMps2(speedMps: number, lateralMps2: number, load = 1): number {

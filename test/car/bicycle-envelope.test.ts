@@ -12,10 +12,11 @@ import { clubCar } from './bicycle-fixtures.js';
 const ambient = ambientFrom();
 
 /** No load transfer and the same relative load on both axles: every axle sees the point mass's friction. */
-function noTransferCar(drive: DrivenAxle, maxDecelG: number | null): Car {
+function noTransferCar(drive: DrivenAxle, maxDecelG: number | null, ggExponent = 2): Car {
   const base = clubCar();
   return {
     ...base,
+    tyre: { ...base.tyre, ggExponent },
     cgHeightM: 0,
     aero: { ...base.aero, frontDownforceFraction: base.frontWeightFraction },
     brakes: { maxDecelG, frontBias: base.frontWeightFraction },
@@ -25,29 +26,38 @@ function noTransferCar(drive: DrivenAxle, maxDecelG: number | null): Car {
 
 describe('bicycle envelope without load transfer equals the point-mass envelope', () => {
   // The identity follows from the models' definitions: with h = 0 each axle carries its static share of weight and
-  // downforce, so the first axle to saturate does so exactly where the point mass does.
-  for (const drive of ['rear', 'front', 'all'] as const) {
-    for (const cap of [null, 1.1]) {
-      it(`drive ${drive}, brake cap ${cap ?? 'none'}`, () => {
-        const car = noTransferCar(drive, cap);
-        const bicycle = bicycleEnvelope(car, ambient);
-        const pointMass = pointMassEnvelope(car, ambient);
-        expect(bicycle.topSpeedMps).toBeCloseTo(pointMass.topSpeedMps, 6);
-        for (const speed of [8, 20.3, 35, 52.7, 68]) {
-          const lateral = pointMass.lateralLimitMps2(speed, 1);
-          expect(Math.abs(bicycle.lateralLimitMps2(speed, 1) - lateral)).toBeLessThan(1e-6 * lateral);
-          expect(Math.abs(bicycle.lateralLimitMps2(speed, -1) - lateral)).toBeLessThan(1e-6 * lateral);
-          for (const fraction of [0, 0.25, 0.6, 0.9, 0.99, 0.9999]) {
-            const ay = fraction * lateral;
-            expect(bicycle.accelLimitMps2(speed, ay)).toBeCloseTo(pointMass.accelLimitMps2(speed, ay), 5);
-            expect(bicycle.brakeLimitMps2(speed, -ay)).toBeCloseTo(pointMass.brakeLimitMps2(speed, -ay), 5);
-            for (const ax of [-9, -3, 0, 2.5]) {
-              expect(bicycle.gripUse(speed, ax, ay)).toBeCloseTo(pointMass.gripUse(speed, ax, ay), 5);
-            }
+  // downforce, so the first axle to saturate does so exactly where the point mass does (itself checked against the
+  // friction ellipse written out in point-mass-limits.test.ts), for a circle and for other ellipse exponents.
+  for (const [drive, cap, ggExponent] of [
+    ['rear', null, 2],
+    ['front', null, 2],
+    ['all', null, 2],
+    ['rear', 1.1, 2],
+    ['front', 1.1, 2],
+    ['all', 1.1, 2],
+    ['rear', null, 2.2],
+    ['front', 1.1, 1.5],
+    ['all', null, 1.2],
+  ] as const) {
+    it(`drive ${drive}, brake cap ${cap ?? 'none'}, exponent ${ggExponent}`, () => {
+      const car = noTransferCar(drive, cap, ggExponent);
+      const bicycle = bicycleEnvelope(car, ambient);
+      const pointMass = pointMassEnvelope(car, ambient);
+      expect(bicycle.topSpeedMps).toBeCloseTo(pointMass.topSpeedMps, 6);
+      for (const speed of [8, 20.3, 35, 52.7, 68]) {
+        const lateral = pointMass.lateralLimitMps2(speed, 1);
+        expect(Math.abs(bicycle.lateralLimitMps2(speed, 1) - lateral)).toBeLessThan(1e-6 * lateral);
+        expect(Math.abs(bicycle.lateralLimitMps2(speed, -1) - lateral)).toBeLessThan(1e-6 * lateral);
+        for (const fraction of [0, 0.25, 0.6, 0.9, 0.99, 0.9999]) {
+          const ay = fraction * lateral;
+          expect(bicycle.accelLimitMps2(speed, ay)).toBeCloseTo(pointMass.accelLimitMps2(speed, ay), 5);
+          expect(bicycle.brakeLimitMps2(speed, -ay)).toBeCloseTo(pointMass.brakeLimitMps2(speed, -ay), 5);
+          for (const ax of [-9, -3, 0, 2.5]) {
+            expect(bicycle.gripUse(speed, ax, ay)).toBeCloseTo(pointMass.gripUse(speed, ax, ay), 5);
           }
         }
-      });
-    }
+      }
+    });
   }
 });
 
