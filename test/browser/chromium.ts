@@ -94,6 +94,10 @@ export function useChromium(): Chromium {
       // The persistent context starts with one blank tab: the pages open there.
       const opened = await (tab ??= context().then((browser) => reportingTab(browser.pages()[0]!)));
       const { page } = opened;
+      // The scratch tab, once opened, is the one in front; a tab behind it gets no animation frames, so every click
+      // (which waits for its target to hold still over two frames) and every hover redrawn on a frame waited about
+      // 2 s for a fallback timer instead (about 25 s of the browser file's wall time).
+      await page.bringToFront();
       // As in a new tab: the pointer in the corner, off every chart, and the viewport of launchChromium. What the
       // last page reports while it unloads counts against the next one: a failure either way.
       await page.mouse.move(0, 0);
