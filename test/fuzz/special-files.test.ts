@@ -30,7 +30,9 @@ const baseArgs: Record<string, string[]> = {
   whatif: ['--track', oval, '--car', car, '--set', 'massKg=+20'],
   sweep: ['--track', oval, '--car', car, '--vary', 'massKg=600:620:20', '--workers', '0'],
   stint: ['--track', oval, '--car', car, '--laps', '2', '--workers', '0'],
-  compare: ['--track', oval, '--car', car, '--telemetry', valid.lap],
+  // compare reads --against and --envelope after it has built the reference: on the line written once in beforeAll,
+  // not a racing line computed again for each of those attacks.
+  compare: ['--track', oval, '--car', car, '--telemetry', valid.lap, '--line', valid.line],
   session: ['--track', oval, '--car', car, '--telemetry', valid.lap],
   envelope: ['--telemetry', valid.lap, '--car', car],
   calibrate: ['--telemetry', valid.lap, '--car', car],
