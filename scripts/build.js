@@ -1,7 +1,8 @@
 // Builds dist/ with tsc and records a fingerprint of what the build read (path, size and modification time of
 // every source file, the compiler settings and the lock file). With --if-stale the build is skipped when the
 // fingerprint is unchanged: `npm run bench` and `npm test` then start at once instead of paying several seconds of
-// tsc (tsc's own incremental mode still costs seconds of CPU on a build with nothing to do).
+// tsc (tsc's own incremental record, dist/tsconfig.tsbuildinfo, still costs seconds of CPU on a build with nothing
+// to do). A build that fails records nothing, so the next one runs again.
 
 import { spawnSync } from 'node:child_process';
 import { createRequire } from 'node:module';
