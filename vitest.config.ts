@@ -17,6 +17,10 @@ export default defineConfig({
     reporters: ['default', './test/plain-summary-reporter.ts'],
     // Without the times of a previous run (a clean clone), the longest files start first (test/long-files-first.ts).
     sequence: { sequencer: LongFilesFirstSequencer },
+    // The test files and sources as transformed for the runner, kept on disk between runs (keyed by each file's
+    // content and the transform's settings; under node_modules, so a clean install transforms everything again):
+    // about 4 s less CPU in vitest's own process on a run after the first.
+    experimental: { fsModuleCache: true },
     testTimeout: 60_000,
     hookTimeout: 120_000,
     // Processes, not threads: tests change the working folder (test/helpers/cli.ts) and start worker threads.
