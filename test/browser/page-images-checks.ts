@@ -8,8 +8,9 @@ import path from 'node:path';
 import { describe, expect, it } from 'vitest';
 import type { Chromium } from './chromium.js';
 import { comparePageImage, IMAGE_TOLERANCE, UPDATE_PAGE_IMAGES } from './page-image.js';
-import { once, type ReportPages } from './report-pages.js';
+import type { ReportPages } from './report-pages.js';
 import { projectRoot, runCli } from '../helpers/cli.js';
+import { once } from '../helpers/once.js';
 import { readTrace, sharedGripPair, writeSessionLog } from '../helpers/logs.js';
 import { onSharedLine } from '../helpers/shared-line.js';
 

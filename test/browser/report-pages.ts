@@ -10,19 +10,7 @@ import { lapReportHtml } from '../../src/report/html/page.js';
 import { againstInput, comparisonInput, referenceInput } from '../report/report-fixtures.js';
 import { writeTestLoop } from '../report/sweep-fixtures.js';
 import { runCli } from '../helpers/cli.js';
-
-/** FN's value, computed at the first call. */
-export function once<T>(fn: () => T): () => T {
-  let done = false;
-  let value: T;
-  return () => {
-    if (!done) {
-      value = fn();
-      done = true;
-    }
-    return value;
-  };
-}
+import { once } from '../helpers/once.js';
 
 export interface ReportPages {
   folder: string;
