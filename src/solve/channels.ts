@@ -28,9 +28,10 @@ function openEndAccelerationMps2(envelope: Envelope, speed: number, curvaturePer
 }
 
 /** Share of the tyres' braking (left beside the cornering) in use at this speed, demand and acceleration; `known` is
- * the braking limit there where the solver has it (SpeedProfile), else NaN. */
+ * the braking limit there where the solver has it (SpeedProfile), else 0: a known limit of 0 or less is computed here
+ * again, so the marker changes no value. */
 function brakeShare(envelope: Envelope, speed: number, ay: number, tyreAx: number, coast: number, known: number) {
-  const available = (known === known ? known : envelope.brakeLimitMps2(speed, ay)) - coast;
+  const available = (known > 0 ? known : envelope.brakeLimitMps2(speed, ay)) - coast;
   return available > 1e-9 ? Math.min(1, -tyreAx / available) : 1;
 }
 

@@ -24,7 +24,7 @@ export interface SpeedProfile {
   /** 1 on the steps where an upshift cuts the drive (and the speed follows the forward pass), else 0. */
   shift: Uint8Array;
   /** On flat ground, the braking limit at the lap's speed and lateral demand where the backward pass computed it
-   * there (the entry of a braking step), m/s^2; NaN elsewhere. The brake channel reads it rather than computing it
+   * there (the entry of a braking step), m/s^2; 0 elsewhere. The brake channel reads it rather than computing it
    * again. */
   brakeLimitMps2: Float64Array;
 }
@@ -130,7 +130,7 @@ function outpulled(envelope: Envelope, speed: number, curvaturePerM: number, roa
  * v = sqrt(v_exit^2 + 2 b(v, v^2 kappa) ds), so the braking is limited by the lateral demand at the speed the
  * car actually has there (an explicit step would use the lower exit speed and ask for more than the envelope).
  * The explicit step bounds the root from above when b falls with speed; a bracketing secant closes in on it.
- * The braking limit at the speed returned goes to brakeOut[h] (NaN where it was not computed).
+ * The braking limit at the speed returned goes to brakeOut[h] (0 where it was not computed).
  */
 function brakingEntrySpeedMps(
   envelope: Envelope,
@@ -147,7 +147,7 @@ function brakingEntrySpeedMps(
   let brakeLo = brakeLimitAt(envelope, exitSpeedMps, curvaturePerM, road, h);
   let hi = Math.sqrt(Math.max(0, exitSquared + twiceLengthM * brakeLo));
   let fLo = hi - lo;
-  brakeOut[h] = NaN;
+  brakeOut[h] = 0;
   if (fLo <= 0) return hi;
   const brakeHi = brakeLimitAt(envelope, hi, curvaturePerM, road, h);
   let fHi = Math.sqrt(Math.max(0, exitSquared + twiceLengthM * brakeHi)) - hi;
@@ -222,13 +222,13 @@ function backwardPass(
     ) {
       previous = brakingEntrySpeedMps(envelope, speed, kappa[h]!, ds[h]!, road, h, brakeOut);
       // The channels read the braking limit on flat ground at the lap's own speed: it is kept only there.
-      if (previous > limit[h]! || road) brakeOut[h] = NaN;
+      if (previous > limit[h]! || road) brakeOut[h] = 0;
       if (previous > limit[h]!) previous = limit[h]!;
     }
     if (previous < out[h]!) {
       out[h] = previous;
       shift[h] = 0;
-    } else if (previous > out[h]!) brakeOut[h] = NaN;
+    } else if (previous > out[h]!) brakeOut[h] = 0;
     speed = previous;
   }
 }
@@ -239,7 +239,7 @@ export function solveSpeedProfile(path: Path, envelope: Envelope, options: Speed
   const cornerLimitMps = cornerLimitProfile(envelope, path.curvaturePerM, undefined, road);
   const speedMps = new Float64Array(n);
   const shift = new Uint8Array(n);
-  const brakeLimitMps2 = new Float64Array(n).fill(NaN);
+  const brakeLimitMps2 = new Float64Array(n);
   if (path.closed) {
     const slowest = argMin(cornerLimitMps);
     // The slowest corner limit may be out of the car's reach (a weak car whose top speed caps every limit, or
