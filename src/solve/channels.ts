@@ -47,9 +47,9 @@ function pathLengthM(path: Path, n: number): number {
 // while it runs (on-stack replacement), before the code after it has ever run, and code after the loop that then
 // lacks type feedback (building the result's record) sent every call back to the interpreter.
 
-/** Fills the brake channel; returns the lap time. */
+/** Fills the brake channel over the solver's braking limits (SpeedProfile), each read first; returns the lap time. */
 function brakeLoop(path: Path, envelope: Envelope, profile: SpeedProfile, brake: Float64Array) {
-  const { speedMps, shift, brakeLimitMps2 } = profile;
+  const { speedMps, shift } = profile;
   const n = speedMps.length;
   const kappa = path.curvaturePerM;
   const ds = path.segmentLengthM;
@@ -58,6 +58,8 @@ function brakeLoop(path: Path, envelope: Envelope, profile: SpeedProfile, brake:
   let ax = 0;
   for (let i = 0; i < n; i++) {
     const speed = speedMps[i]!;
+    const knownBrakeMps2 = brake[i]!;
+    brake[i] = 0;
     if (i < segments) {
       // Constant acceleration over the step: the mean of the two speeds gives its time.
       const next = speedMps[i + 1 === n ? 0 : i + 1]!;
@@ -68,7 +70,7 @@ function brakeLoop(path: Path, envelope: Envelope, profile: SpeedProfile, brake:
     if (ax < 0 && !shift[i]) {
       const coast = envelope.coastDecelMps2(speed);
       if (ax + coast < 0)
-        brake[i] = brakeShare(envelope, speed, speed * speed * kappa[i]!, ax + coast, coast, brakeLimitMps2[i]!);
+        brake[i] = brakeShare(envelope, speed, speed * speed * kappa[i]!, ax + coast, coast, knownBrakeMps2);
     }
   }
   return elapsedS;
@@ -81,7 +83,7 @@ export function lapTimeAndBrake(
   profile: SpeedProfile,
 ): { lapTimeS: number; lengthM: number; brake: Float64Array } {
   const n = profile.speedMps.length;
-  const brake = new Float64Array(n);
+  const brake = profile.brakeLimitMps2;
   const lapTimeS = brakeLoop(path, envelope, profile, brake);
   return { lapTimeS, lengthM: pathLengthM(path, n), brake };
 }
@@ -91,9 +93,10 @@ type ChannelArrays = Pick<
   'distanceM' | 'timeS' | 'axMps2' | 'ayMps2' | 'throttle' | 'brake' | 'gripUse' | 'powerLimited' | 'gear'
 >;
 
-/** The channels of a lap of `count` samples, zeroed. A class rather than an object literal: V8 turns a literal's
- * fields from constant to mutable the second time it runs, and threw away the channel loop's compiled code on the
- * second lap of every run (the racing line's first: its centreline lap, then its line's). */
+/** The channels of a lap of `count` samples, zeroed but the brake channel, which the channel loop writes over the
+ * solver's braking limits in `brake`. A class rather than an object literal: V8 turns a literal's fields from
+ * constant to mutable the second time it runs, and threw away the channel loop's compiled code on the second lap of
+ * every run (the racing line's first: its centreline lap, then its line's). */
 class Channels implements ChannelArrays {
   readonly distanceM: Float64Array;
   readonly timeS: Float64Array;
@@ -105,22 +108,23 @@ class Channels implements ChannelArrays {
   readonly powerLimited: Uint8Array;
   readonly gear: Int8Array;
 
-  constructor(count: number) {
+  constructor(count: number, brake: Float64Array) {
     this.distanceM = new Float64Array(count);
     this.timeS = new Float64Array(count);
     this.axMps2 = new Float64Array(count);
     this.ayMps2 = new Float64Array(count);
     this.throttle = new Float64Array(count);
-    this.brake = new Float64Array(count);
+    this.brake = brake;
     this.gripUse = new Float64Array(count);
     this.powerLimited = new Uint8Array(count);
     this.gear = new Int8Array(count);
   }
 }
 
-/** Fills every channel of `out` from the speed profile. */
+/** Fills every channel of `out` from the speed profile, the brake channel over the solver's braking limits
+ * (SpeedProfile), each read first. */
 function channelLoop(path: Path, envelope: Envelope, profile: SpeedProfile, out: ChannelArrays) {
-  const { speedMps, shift, brakeLimitMps2 } = profile;
+  const { speedMps, shift } = profile;
   const n = speedMps.length;
   const kappa = path.curvaturePerM;
   const ds = path.segmentLengthM;
@@ -133,6 +137,8 @@ function channelLoop(path: Path, envelope: Envelope, profile: SpeedProfile, out:
     distanceM[i] = travelledM;
     timeS[i] = elapsedS;
     const speed = speedMps[i]!;
+    const knownBrakeMps2 = brake[i]!;
+    brake[i] = 0;
     const ay = speed * speed * kappa[i]!;
     ayMps2[i] = ay;
     if (i < segments) {
@@ -152,7 +158,7 @@ function channelLoop(path: Path, envelope: Envelope, profile: SpeedProfile, out:
       throttle[i] = Math.min(1, share);
       if (share >= POWER_LIMITED_SHARE) powerLimited[i] = 1;
     } else {
-      brake[i] = brakeShare(envelope, speed, ay, tyreAx, coast, brakeLimitMps2[i]!);
+      brake[i] = brakeShare(envelope, speed, ay, tyreAx, coast, knownBrakeMps2);
     }
     gripUse[i] = envelope.gripUse(speed, ax, ay);
     gear[i] = envelope.gearAt(speed);
@@ -173,7 +179,7 @@ export function lapChannels(
 ): { trace: LapTrace; lapTimeS: number; lengthM: number } {
   const { speedMps, cornerLimitMps, shift } = profile;
   const n = speedMps.length;
-  const channels = new Channels(n);
+  const channels = new Channels(n, profile.brakeLimitMps2);
   const lapTimeS = channelLoop(path, envelope, profile, channels);
   const { distanceM, timeS, axMps2, ayMps2, throttle, brake, gripUse, powerLimited, gear } = channels;
   const trace: LapTrace = {

@@ -24,8 +24,8 @@ export interface SpeedProfile {
   /** 1 on the steps where an upshift cuts the drive (and the speed follows the forward pass), else 0. */
   shift: Uint8Array;
   /** On flat ground, the braking limit at the lap's speed and lateral demand where the backward pass computed it
-   * there (the entry of a braking step), m/s^2; 0 elsewhere. The brake channel reads it rather than computing it
-   * again. */
+   * there (the entry of a braking step), m/s^2; 0 elsewhere. The brake channel reads each one rather than computing it
+   * again, and is written over them in this array (channels.ts): one array fewer per lap. */
   brakeLimitMps2: Float64Array;
 }
 
