@@ -130,7 +130,8 @@ function outpulled(envelope: Envelope, speed: number, curvaturePerM: number, roa
  * v = sqrt(v_exit^2 + 2 b(v, v^2 kappa) ds), so the braking is limited by the lateral demand at the speed the
  * car actually has there (an explicit step would use the lower exit speed and ask for more than the envelope).
  * The explicit step bounds the root from above when b falls with speed; a bracketing secant closes in on it.
- * The braking limit at the speed returned goes to brakeOut[h] (0 where it was not computed).
+ * Where it has the braking limit at the speed returned, it leaves it in brakeOut[h] (each sample's entry is solved
+ * once a lap, and the array starts at 0: see SpeedProfile).
  */
 function brakingEntrySpeedMps(
   envelope: Envelope,
@@ -147,7 +148,6 @@ function brakingEntrySpeedMps(
   let brakeLo = brakeLimitAt(envelope, exitSpeedMps, curvaturePerM, road, h);
   let hi = Math.sqrt(Math.max(0, exitSquared + twiceLengthM * brakeLo));
   let fLo = hi - lo;
-  brakeOut[h] = 0;
   if (fLo <= 0) return hi;
   const brakeHi = brakeLimitAt(envelope, hi, curvaturePerM, road, h);
   let fHi = Math.sqrt(Math.max(0, exitSquared + twiceLengthM * brakeHi)) - hi;
@@ -174,10 +174,7 @@ function brakingEntrySpeedMps(
       fHi = fMid;
       if (kept === -1) fLo *= 0.5;
       kept = -1;
-    } else {
-      brakeOut[h] = brakeMid;
-      return mid;
-    }
+    } else return mid;
   }
   // The lower bracket never asks more of the envelope than it has.
   brakeOut[h] = brakeLo;
