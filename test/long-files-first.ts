@@ -8,19 +8,19 @@ import { relative } from 'node:path';
 import { BaseSequencer, type TestSpecification } from 'vitest/node';
 
 /** The longest test files, longest first: the browser checks (their own project, run first), then CPU seconds of
- * each file in one run (REFLAP_TEST_CPU_LOG), about 17 to 3.5 s on the development machine; a file missing from the
- * run is passed over. */
+ * each file in one run (REFLAP_TEST_CPU_LOG, the worker's and its child processes'), about 12 to 2 s on the
+ * development machine; a file missing from the run is passed over. */
 export const LONG_FILES = [
   'test/browser/report-pages.test.ts',
   'test/docs/examples.test.ts',
   'test/cli/process.test.ts',
-  'test/cli/uncertainty.test.ts',
   'test/line/open-tracks.test.ts',
-  'test/docs/library-examples.test.ts',
-  'test/sweep/gnu-parallel.test.ts',
-  'test/io/telemetry-stream.test.ts',
   'test/fuzz/special-files.test.ts',
+  'test/io/telemetry-stream.test.ts',
   'test/calibrate/calibrate-car.test.ts',
+  'test/sweep/gnu-parallel.test.ts',
+  'test/docs/library-examples.test.ts',
+  'test/cli/terminal.test.ts',
 ];
 
 /** FILES (in vitest's order) with the listed ones moved to the front of their project's run, in the list's order. */
