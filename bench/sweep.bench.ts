@@ -120,7 +120,12 @@ export async function run(): Promise<void> {
   const [keptHere, keptOne, keptTwo] = [0, 1, 2].map((w) => medianTiming(kept[w]!));
   await stopWorkerThreads();
 
-  const small = { here: await timeSweep(8, 0), chosen: await timeSweep(8, 'pool') };
+  const smallRounds: { here: SweepTiming[]; chosen: SweepTiming[] } = { here: [], chosen: [] };
+  for (let k = 0; k < KEPT_ROUNDS; k++) {
+    smallRounds.here.push(await timeSweep(8, 0));
+    smallRounds.chosen.push(await timeSweep(8, 'pool'));
+  }
+  const small = { here: medianTiming(smallRounds.here), chosen: medianTiming(smallRounds.chosen) };
   await stopWorkerThreads();
 
   process.stdout.write(
@@ -143,7 +148,7 @@ export async function run(): Promise<void> {
       line('2 workers', keptTwo!) +
       `  ${verdict('speed-up of 2 workers over 1, threads started once, wall', keptOne!.wallS / keptTwo!.wallS, 1.6, 'x', false)}\n` +
       `  ${verdict('speed-up of 2 workers over the main thread, threads started once, wall', keptHere!.wallS / keptTwo!.wallS, 1, 'x', false)}\n` +
-      `  small sweep (${small.here.runs} runs): main thread ${(small.here.wallS * 1000).toFixed(1)} ms wall, ` +
+      `  small sweep (${small.here.runs} runs, median of ${KEPT_ROUNDS}): main thread ${(small.here.wallS * 1000).toFixed(1)} ms wall, ` +
       `workers left to the pool ${(small.chosen.wallS * 1000).toFixed(1)} ms\n` +
       `  ${verdict('small sweep, left to the pool / main thread, wall', small.chosen.wallS / small.here.wallS, 1.25, 'x')}\n` +
       `  (the scaling holds only on an otherwise idle machine: load ${loadBefore.toFixed(1)} before, ` +

@@ -65,7 +65,9 @@ export function defaultWorkerCount(): number {
  * threads kept from an earlier job in this process cost nothing to start. */
 export const WORKER_START_S = 0.4;
 
-/** CPU time the pool spends solving runs in the calling thread before it judges whether workers would pay. */
+/** Time the pool spends solving runs in the calling thread before it judges whether workers would pay. Timed by the
+ * clock, not by the process's CPU time: that also counts V8's compiler and collector threads, which in a fresh
+ * process would make the first runs look several times their cost here. */
 const SOLVE_HERE_FIRST_S = 0.2;
 
 /**
@@ -96,14 +98,11 @@ export function runSetupsInProcess<C extends PoolContext>(
   return solveHere(job, context, values, firstRun, onProgress, Infinity).out;
 }
 
-const cpuSeconds = () => {
-  const used = process.cpuUsage();
-  return (used.user + used.system) / 1e6;
-};
+const nowSeconds = () => performance.now() / 1000;
 
 /**
- * Solves runs in this thread in order until all are done or `budgetS` of CPU is spent, into an array for them all;
- * with a budget, also the CPU time a run took over the budget's second half (the first runs are slow while V8
+ * Solves runs in this thread in order until all are done or `budgetS` is spent, into an array for them all; with a
+ * budget, also the time a run took over the budget's second half (the first runs are slow while V8
  * compiles the solver, here as in a worker).
  */
 function solveHere<C extends PoolContext>(
@@ -119,7 +118,7 @@ function solveHere<C extends PoolContext>(
   const resultWidth = job.width(context);
   const out = new Float64Array(runs * resultWidth);
   const timed = budgetS < Infinity;
-  const startS = timed ? cpuSeconds() : 0;
+  const startS = timed ? nowSeconds() : 0;
   let nowS = startS;
   let halfway: { done: number; atS: number } | null = null;
   let done = 0;
@@ -134,7 +133,7 @@ function solveHere<C extends PoolContext>(
     done++;
     onProgress?.(done, runs);
     if (!timed) continue;
-    nowS = cpuSeconds();
+    nowS = nowSeconds();
     if (!halfway && nowS - startS >= budgetS / 2) halfway = { done, atS: nowS };
   }
   const paceS =
@@ -144,7 +143,7 @@ function solveHere<C extends PoolContext>(
 
 /**
  * Solves the runs across worker threads, or in this thread where workers would not pay for their start (when
- * `options.workers` is left out: runs are solved here for 0.2 s of CPU, and the rest go where they end sooner).
+ * `options.workers` is left out: runs are solved here for 0.2 s, and the rest go where they end sooner).
  * The outcome of run r lands at r * job.width whatever thread solved it, so the result does not depend on the
  * number of workers or on their timing. The worker is the compiled module beside this one: run from the built
  * package (dist/), as the command line and benchmarks do.
