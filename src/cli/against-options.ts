@@ -7,6 +7,7 @@ import { numberOption } from './options.js';
 import { loadSession, type TelemetryOptionValues } from './telemetry-options.js';
 import type { SessionComparison } from '../compare/compare-session.js';
 import type { TrackGrid } from '../track/types.js';
+import type { TelemetrySession } from '../telemetry/types.js';
 import type { DriverLap } from '../compare/types.js';
 import { otherLapOf } from '../compare/against/other-lap.js';
 import { lapAgainstLap, type AgainstResult } from '../compare/against/lap-against-lap.js';
@@ -33,24 +34,43 @@ function againstLapNumber(values: AgainstOptionValues): number | undefined {
   return lap;
 }
 
-/** The lap-against-lap comparison the options ask for, or null when they ask for none. */
-export async function againstFromOptions(
-  track: TrackGrid,
-  comparison: SessionComparison,
+/** What --against and --against-lap ask for, the other log already read. */
+export interface AgainstRequest {
+  lap: number | undefined;
+  /** The --against log; undefined where the other lap is the driver's own session's. */
+  session: TelemetrySession | undefined;
+}
+
+/**
+ * Reads what the options ask for, or null when they ask for none: before the comparison computes anything (its
+ * racing line takes seconds), so a bad --against file or lap number is a one-line error at once.
+ */
+export async function readAgainstOptions(
   values: AgainstOptionValues & TelemetryOptionValues,
-  startFinish: { xM: number; yM: number } | undefined,
-): Promise<{ result: AgainstResult; other: DriverLap } | null> {
+): Promise<AgainstRequest | null> {
   const lap = againstLapNumber(values);
   if (values.against === undefined && lap === undefined) return null;
-  const optionName = values.against === undefined ? '--against-lap' : '--against';
   const session =
-    values.against === undefined ? comparison.session : await loadSession({ ...values, telemetry: values.against });
+    values.against === undefined ? undefined : await loadSession({ ...values, telemetry: values.against });
+  return { lap, session };
+}
+
+/** The lap-against-lap comparison of a request (readAgainstOptions) with the driver's comparison. */
+export function againstFromOptions(
+  track: TrackGrid,
+  comparison: SessionComparison,
+  request: AgainstRequest,
+  startFinish: { xM: number; yM: number } | undefined,
+): { result: AgainstResult; other: DriverLap } {
+  const { lap } = request;
+  const optionName = request.session === undefined ? '--against-lap' : '--against';
+  const session = request.session ?? comparison.session;
   if (!session) throw new Error('the comparison kept no session for --against-lap');
   const other = otherLapOf(session, track, {
     ...(lap !== undefined ? { lap } : {}),
     optionName: lap !== undefined ? '--against-lap' : optionName,
     ...(startFinish ? { startFinish } : {}),
-    ...(values.against === undefined && comparison.laps ? { laps: comparison.laps } : {}),
+    ...(request.session === undefined && comparison.laps ? { laps: comparison.laps } : {}),
   });
   const result = lapAgainstLap(track, comparison.reference, comparison.lap, other.lap, comparison.envelope);
   result.notes.unshift(...other.notes);

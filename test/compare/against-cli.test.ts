@@ -169,6 +169,27 @@ describe('bad input', () => {
     failsCleanly(file, ['--lap', '1', '--against-lap', '2'], /--against-lap 2 is not a complete lap/);
   });
 
+  it('reads the --against log before it computes anything, so a bad one fails at once', () => {
+    // A line file and an --against log that are both missing: the log is the one named, so the comparison had not
+    // yet read the line, let alone computed a reference on it.
+    const run = runCli([
+      'compare',
+      '--track',
+      track,
+      '--car',
+      carFile,
+      '--telemetry',
+      highGrip,
+      '--line',
+      path.join(work, 'no-such-line.csv'),
+      '--against',
+      path.join(work, 'no-such-log.csv'),
+    ]);
+    expect(run.code, run.stderr).toBe(2);
+    expect(run.stderr.trim().split('\n')).toHaveLength(1);
+    expect(run.stderr).toMatch(/no-such-log\.csv/);
+  });
+
   it('refuses a lap number that is not one', () => {
     failsCleanly(highGrip, ['--against-lap', '1.5'], /--against-lap: 1\.5 is not a lap number/);
   });

@@ -15,7 +15,12 @@ import { addUncertaintyOption, drawsOption } from '../uncertainty-options.js';
 import { uncertainComparison } from '../../uncertainty/uncertain-reference.js';
 import { uncertaintyJson } from '../../report/uncertainty-summary.js';
 import { addUnitsOption, unitsOf } from '../units-option.js';
-import { addAgainstOptions, againstFromOptions, type AgainstOptionValues } from '../against-options.js';
+import {
+  addAgainstOptions,
+  againstFromOptions,
+  readAgainstOptions,
+  type AgainstOptionValues,
+} from '../against-options.js';
 import { againstJson, againstSummaryText } from '../../report/against-summary.js';
 import { driverLine } from '../../compare/driver-line/driver-line.js';
 import { estimatedPedal } from '../../compare/estimated-pedal.js';
@@ -55,8 +60,9 @@ export async function runCompare(values: CompareValues & AgainstOptionValues): P
       "option --uncertainty draws the car file's uncertain fields; it cannot be combined with --envelope",
     );
   const session = await loadSession(values);
+  const againstRequest = await readAgainstOptions(values);
   const comparison = compareFromRecords(track, car, ambient, session, values);
-  const paired = await againstFromOptions(track, comparison, values, startFinishOption(values));
+  const paired = againstRequest && againstFromOptions(track, comparison, againstRequest, startFinishOption(values));
   const against = paired?.result ?? null;
   const line = driverLine({
     track,
