@@ -52,19 +52,20 @@ export function withCornerLayout(track: TrackGrid, layout: CornerLayout): TrackG
   return { ...track, cornerLayout: layout };
 }
 
-/** Distance from a station to a corner's span (0 inside it), m, around the start line on a closed lap. */
+/** Distance from a station to the span [startM, endM] (0 inside it), m. */
+function outsideSpanM(atM: number, startM: number, endM: number): number {
+  return atM < startM ? startM - atM : atM > endM ? atM - endM : 0;
+}
+
+/** Distance from a station to a corner's span (0 inside it), m, around the start line on a closed lap. Called for
+ * every corner and braking zone of every lap solved, so it allocates nothing. */
 function distanceToSpanM(atM: number, corner: CornerSpan, track: TrackGrid): number {
-  const stepM = track.stepM;
-  const startM = corner.entryIndex * stepM;
-  const endM = corner.exitIndex * stepM;
-  let best = Infinity;
-  const shifts = track.closed ? [-track.lengthM, 0, track.lengthM] : [0];
-  for (const shift of shifts) {
-    const at = atM + shift;
-    const d = at < startM ? startM - at : at > endM ? at - endM : 0;
-    if (d < best) best = d;
-  }
-  return best;
+  const startM = corner.entryIndex * track.stepM;
+  const endM = corner.exitIndex * track.stepM;
+  const here = outsideSpanM(atM, startM, endM);
+  if (!track.closed) return here;
+  const lapM = track.lengthM;
+  return Math.min(outsideSpanM(atM - lapM, startM, endM), here, outsideSpanM(atM + lapM, startM, endM));
 }
 
 /** The corner a braking zone serves: the one whose span holds its slowest point, else the nearest span. */
