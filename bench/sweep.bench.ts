@@ -25,6 +25,8 @@ const projectRoot = fileURLToPath(new URL('../..', import.meta.url));
 const FRESH_PROCESSES = 3;
 /** Sweeps per configuration on threads started once; their medians are printed. */
 const KEPT_ROUNDS = 5;
+/** Rounds of the small sweep, a few milliseconds each: enough that a collection in one round does not decide. */
+const SMALL_ROUNDS = 21;
 
 type Workers = number | 'pool';
 
@@ -121,7 +123,7 @@ export async function run(): Promise<void> {
   await stopWorkerThreads();
 
   const smallRounds: { here: SweepTiming[]; chosen: SweepTiming[] } = { here: [], chosen: [] };
-  for (let k = 0; k < KEPT_ROUNDS; k++) {
+  for (let k = 0; k < SMALL_ROUNDS; k++) {
     smallRounds.here.push(await timeSweep(8, 0));
     smallRounds.chosen.push(await timeSweep(8, 'pool'));
   }
@@ -148,7 +150,7 @@ export async function run(): Promise<void> {
       line('2 workers', keptTwo!) +
       `  ${verdict('speed-up of 2 workers over 1, threads started once, wall', keptOne!.wallS / keptTwo!.wallS, 1.6, 'x', false)}\n` +
       `  ${verdict('speed-up of 2 workers over the main thread, threads started once, wall', keptHere!.wallS / keptTwo!.wallS, 1, 'x', false)}\n` +
-      `  small sweep (${small.here.runs} runs, median of ${KEPT_ROUNDS}): main thread ${(small.here.wallS * 1000).toFixed(1)} ms wall, ` +
+      `  small sweep (${small.here.runs} runs, median of ${SMALL_ROUNDS}): main thread ${(small.here.wallS * 1000).toFixed(1)} ms wall, ` +
       `workers left to the pool ${(small.chosen.wallS * 1000).toFixed(1)} ms\n` +
       `  ${verdict('small sweep, left to the pool / main thread, wall', small.chosen.wallS / small.here.wallS, 1.25, 'x')}\n` +
       `  (the scaling holds only on an otherwise idle machine: load ${loadBefore.toFixed(1)} before, ` +
