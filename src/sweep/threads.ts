@@ -26,6 +26,9 @@ function startThread(job: JobModule): Worker {
     const at = kept.indexOf(thread);
     if (at >= 0) kept.splice(at, 1);
   });
+  // A thread that fails while it waits between jobs only exits (and is dropped above): an 'error' event nobody
+  // listens to would be thrown in this thread. While lent, the job's own listener hears of it and fails the job.
+  thread.on('error', () => {});
   return thread;
 }
 

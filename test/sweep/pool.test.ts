@@ -5,6 +5,7 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { runSetups } from '../../dist/src/sweep/pool.js';
 import { solvedThreadCount, stopWorkerThreads } from '../../dist/src/sweep/threads.js';
 import { throwingJob } from './throwing-job.js';
+import { lateCrashJob } from './late-crash-job.js';
 
 const context = { fields: ['x'] };
 const values = Float64Array.from({ length: 100 }, (_, k) => k);
@@ -37,6 +38,18 @@ describe('kept worker threads', () => {
     const after = await runSetups(throwingJob, context, values, 0, { workers: 2 });
     expect(after[57]).toBe(114);
     expect(solvedThreadCount()).toBe(2);
+  });
+
+  it('drops a kept thread that fails between jobs, and the process goes on', async () => {
+    await stopWorkerThreads();
+    const done = await runSetups(lateCrashJob, context, values, 0, { workers: 1 });
+    expect(done[99]).toBe(198);
+    expect(solvedThreadCount()).toBe(1);
+    // The thread fails 0.3 s after it loaded the job, idle by then; an unheard 'error' event would be thrown here.
+    await new Promise((resolve) => setTimeout(resolve, 800));
+    expect(solvedThreadCount()).toBe(0);
+    const after = await runSetups(throwingJob, context, values, 0, { workers: 1 });
+    expect(after[99]).toBe(198);
   });
 
   it('ends every kept thread on request', async () => {
