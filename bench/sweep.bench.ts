@@ -76,16 +76,12 @@ async function timeSweep(setups: 8 | 1000 | 10000, workers: Workers): Promise<Sw
   };
 }
 
-/** The medians of one configuration's sweeps, each in a process of its own (this file run with --one-sweep). */
-function freshSweeps(setups: 1000 | 10000, workers: Workers, processes: number): SweepTiming {
-  const timings: SweepTiming[] = [];
-  for (let k = 0; k < processes; k++) {
-    const args = [fileURLToPath(import.meta.url), '--one-sweep', String(setups), String(workers)];
-    const child = spawnSync(process.execPath, args, { encoding: 'utf8' });
-    if (child.status !== 0) throw new Error(`sweep bench child failed: ${child.stderr}`);
-    timings.push(JSON.parse(child.stdout) as SweepTiming);
-  }
-  return medianTiming(timings);
+/** One sweep in a process of its own (this file run with --one-sweep). */
+function freshSweep(setups: 1000 | 10000, workers: Workers): SweepTiming {
+  const args = [fileURLToPath(import.meta.url), '--one-sweep', String(setups), String(workers)];
+  const child = spawnSync(process.execPath, args, { encoding: 'utf8' });
+  if (child.status !== 0) throw new Error(`sweep bench child failed: ${child.stderr}`);
+  return JSON.parse(child.stdout) as SweepTiming;
 }
 
 function medianTiming(timings: SweepTiming[]): SweepTiming {
@@ -107,11 +103,11 @@ export async function run(): Promise<void> {
   // In fresh processes, configurations in turn, so that a change in the machine's load weighs on all alike.
   const fresh: Record<string, SweepTiming[]> = { 0: [], 1: [], 2: [], pool: [] };
   for (let k = 0; k < FRESH_PROCESSES; k++)
-    for (const workers of [0, 1, 2, 'pool'] as const) fresh[workers]!.push(freshSweeps(1000, workers, 1));
+    for (const workers of [0, 1, 2, 'pool'] as const) fresh[workers]!.push(freshSweep(1000, workers));
   const [here, one, two, chosen] = [0, 1, 2, 'pool'].map((w) => medianTiming(fresh[w]!));
   if (new Set([here, one, two, chosen].map((t) => t!.digest)).size !== 1)
     throw new Error('sweep results differ between worker counts');
-  const large = { one: freshSweeps(10000, 1, 1), two: freshSweeps(10000, 2, 1) };
+  const large = { one: freshSweep(10000, 1), two: freshSweep(10000, 2) };
 
   // Threads started once: a first sweep starts two, then each configuration runs in turn on threads already
   // started (the main thread, likewise, has compiled the solver by then).

@@ -61,10 +61,11 @@ export function defaultWorkerCount(): number {
   return availableParallelism();
 }
 
-/** What starting a worker thread costs before its first run (Node's start, the job's modules, the context): about
- * 0.4 s on a two-core machine (issue 18's measurement). Workers start side by side, so k of them cost this once;
- * threads kept from an earlier job in this process cost nothing to start. */
-export const WORKER_START_S = 0.4;
+/** What starting worker threads costs before they run at full pace (Node's start, the job's modules, V8 compiling
+ * the solver again in each): about 0.5 s for two on a two-core machine, where their compilers share the cores with
+ * them (1,000 setups: 0.75 s on two fresh workers against 0.58 s here; 10,000: 3.07 s against about 5 s). Workers
+ * start side by side, so k of them cost this once; threads kept from an earlier job cost nothing to start. */
+export const WORKER_START_S = 0.5;
 
 /** Time the pool spends solving runs in the calling thread before it judges whether workers would pay. Timed by the
  * clock, not by the process's CPU time: that also counts V8's compiler and collector threads, which in a fresh

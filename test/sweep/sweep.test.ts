@@ -128,13 +128,13 @@ describe('shards and workers', () => {
   // only when T (1 - 1/k) > S (arithmetic of the two ways); one worker never does.
   it.each([
     [0.3, 2, 0],
-    [0.79, 2, 0],
-    [0.81, 2, 2],
-    [0.6, 4, 4],
-    [0.5, 4, 0],
+    [0.99, 2, 0],
+    [1.01, 2, 2],
+    [0.7, 4, 4],
+    [0.65, 4, 0],
     [100, 1, 0],
   ])('starts workers for %s s of runs on %s cores only where they pay: %s', (remainingS, cores, expected) => {
-    expect(WORKER_START_S).toBe(0.4);
+    expect(WORKER_START_S).toBe(0.5);
     expect(workersWorthStarting(remainingS, cores)).toBe(expected);
   });
 
