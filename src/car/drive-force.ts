@@ -2,7 +2,7 @@
 // the car file gives a torque curve and gears, the best gear's wheel force T(rpm) i_gear i_final eta / r_wheel,
 // capped by eta P / v. The drivetrain efficiency eta is applied the same way with and without gears.
 
-import type { Car } from './types.js';
+import type { Car, Gearing } from './types.js';
 
 /** Methods, not free functions: call them on the table (`table.forceN(v)`), or wrap them to pass them on. */
 export interface DriveForceTable {
@@ -68,19 +68,56 @@ export function driveForceTable(car: Car, powerFactor: number): DriveForceTable 
   const powerW = car.powertrain.maxPowerW * powerFactor * efficiency;
   const gearing = car.powertrain.gearing;
   if (!gearing) return new DriveForce(powerW, false, new Float64Array(0), new Int8Array(0));
-  // Below walking pace P / v is unbounded; the tyre limit caps it in the envelope, but keep it finite here.
-  const table = gearTable(gearing, efficiency, powerFactor, (speedMps) => powerW / Math.max(speedMps, 1));
-  return new DriveForce(powerW, true, table.force, table.gear);
+  const { gearForceN, gear } = gearTableOf(gearing, efficiency);
+  const force = new Float64Array(TABLE_COUNT);
+  for (let k = 0; k < TABLE_COUNT; k++) {
+    // Below walking pace P / v is unbounded; the tyre limit caps it in the envelope, but keep it finite here.
+    force[k] = Math.min(gearForceN[k]! * powerFactor, powerW / Math.max(k * TABLE_STEP_MPS, 1));
+  }
+  return new DriveForce(powerW, true, force, gear);
 }
 
-/** The best gear's wheel force at each step of road speed, capped by the power, and that gear. */
-function gearTable(
-  gearing: NonNullable<Car['powertrain']['gearing']>,
-  efficiency: number,
-  powerFactor: number,
-  powerForce: (speedMps: number) => number,
-): { force: Float64Array; gear: Int8Array } {
-  const force = new Float64Array(TABLE_COUNT);
+/** The best gear's wheel force at each step of road speed, before the air's power factor, and that gear. */
+interface GearTable {
+  gearForceN: Float64Array;
+  gear: Int8Array;
+}
+
+/**
+ * The last gearbox's table, reused while the next car's gearbox and efficiency are the same in every number: the
+ * runs of a sweep, a stint or an uncertainty band mostly change mass, grip or air, and building the table was a tenth
+ * of each run's time. Compared by value, not by record, so a script that edits a car in place still gets its own.
+ */
+let lastGearTable: { key: Float64Array; table: GearTable } | null = null;
+
+function gearTableOf(gearing: Gearing, efficiency: number): GearTable {
+  const key = gearboxKey(gearing, efficiency);
+  if (lastGearTable && sameNumbers(lastGearTable.key, key)) return lastGearTable.table;
+  const table = gearTable(gearing, efficiency);
+  lastGearTable = { key, table };
+  return table;
+}
+
+/** Every number the gear table depends on, in a fixed order (each list after its length). */
+function gearboxKey(gearing: Gearing, efficiency: number): Float64Array {
+  const { gearRatios, torqueCurve } = gearing;
+  const points = torqueCurve.rpm.length;
+  const key = new Float64Array(6 + gearRatios.length + 2 * points);
+  key.set([efficiency, gearing.finalDrive, gearing.wheelRadiusM, gearing.maxRpm, gearRatios.length, points]);
+  key.set(gearRatios, 6);
+  key.set(torqueCurve.rpm, 6 + gearRatios.length);
+  key.set(torqueCurve.torqueNm, 6 + gearRatios.length + points);
+  return key;
+}
+
+function sameNumbers(a: Float64Array, b: Float64Array): boolean {
+  if (a.length !== b.length) return false;
+  for (let k = 0; k < a.length; k++) if (a[k] !== b[k]) return false;
+  return true;
+}
+
+function gearTable(gearing: Gearing, efficiency: number): GearTable {
+  const gearForceN = new Float64Array(TABLE_COUNT);
   const gear = new Int8Array(TABLE_COUNT);
   const radPerSToRpm = 60 / (2 * Math.PI);
   for (let k = 0; k < TABLE_COUNT; k++) {
@@ -99,8 +136,8 @@ function gearTable(
         bestGear = g + 1;
       }
     }
-    force[k] = Math.min(best * powerFactor, powerForce(speedMps));
+    gearForceN[k] = best;
     gear[k] = bestGear;
   }
-  return { force, gear };
+  return { gearForceN, gear };
 }

@@ -8,10 +8,10 @@ import type { Car } from './types.js';
 import { isRecord } from '../is-record.js';
 import { CAR_FIELD_RANGES, GEARING_RANGES, inRange, rangeText, type FieldRange } from './car-ranges.js';
 
-/** The value at a dotted path, or undefined where any part of the path is missing. */
-function valueAt(record: Record<string, unknown>, dotted: string): unknown {
+/** The value at a path of keys, or undefined where any part of the path is missing. */
+function valueAt(record: Record<string, unknown>, path: readonly string[]): unknown {
   let value: unknown = record;
-  for (const key of dotted.split('.')) {
+  for (const key of path) {
     if (!isRecord(value)) return undefined;
     value = value[key];
   }
@@ -63,6 +63,11 @@ function checkChoice(value: unknown, name: string, choices: readonly string[], p
     problems.push(`field ${name} must be one of ${choices.join(', ')} (got ${shown(value)})`);
 }
 
+// Split once: a sweep checks every one of its runs' cars before it solves any.
+const RANGE_PATHS = CAR_FIELD_RANGES.map((r) => r.field.split('.'));
+const DRIVE_PATH = ['powertrain', 'drive'];
+const GEARING_PATH = ['powertrain', 'gearing'];
+
 /** Every problem of a car record, as message parts; empty when the record can be driven. */
 export function carProblems(car: unknown): string[] {
   if (!isRecord(car)) return [`a car must be a record (got ${car === null ? 'null' : typeof car})`];
@@ -72,20 +77,26 @@ export function carProblems(car: unknown): string[] {
   }
   if (problems.length > 0) return problems;
   if (typeof car['name'] !== 'string') problems.push(`field name must be a string (got ${shown(car['name'])})`);
-  for (const r of CAR_FIELD_RANGES) {
-    const value = valueAt(car, r.field);
+  for (let k = 0; k < CAR_FIELD_RANGES.length; k++) {
+    const r = CAR_FIELD_RANGES[k]!;
+    const value = valueAt(car, RANGE_PATHS[k]!);
     if (r.optional && (value === null || value === undefined)) continue;
     checkNumber(value, r, r.field, problems);
   }
   checkChoice(car['model'], 'model', ['point-mass', 'bicycle'], problems);
-  checkChoice(valueAt(car, 'powertrain.drive'), 'powertrain.drive', ['rear', 'front', 'all'], problems);
-  checkGearing(valueAt(car, 'powertrain.gearing'), problems);
+  checkChoice(valueAt(car, DRIVE_PATH), 'powertrain.drive', ['rear', 'front', 'all'], problems);
+  checkGearing(valueAt(car, GEARING_PATH), problems);
   return problems;
 }
 
-/** Checks a car record (read from a file, built or changed in code) against the plausible ranges; throws one InputError naming every wrong field. */
-export function validateCar(car: Car, source: string): Car {
+/**
+ * Checks a car record (read from a file, built or changed in code) against the plausible ranges; throws one
+ * InputError naming every wrong field. `source` may be a function, for a name that costs something to write and is
+ * needed only when the car is wrong.
+ */
+export function validateCar(car: Car, source: string | (() => string)): Car {
   const problems = carProblems(car);
-  if (problems.length > 0) throw new InputError(`${source}: ${problems.join('; ')}`);
+  if (problems.length > 0)
+    throw new InputError(`${typeof source === 'string' ? source : source()}: ${problems.join('; ')}`);
   return car;
 }

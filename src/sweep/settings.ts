@@ -199,7 +199,9 @@ export function applySetup(
 ): { car: Car; ambient: Ambient } {
   const { car, air, airChanged } = writeSetup(base, fields, values, where);
   const checked =
-    car === base.car ? car : validateCar(car, `${where} (${fields.map((f, k) => `${f}=${values[k]}`).join(', ')})`);
+    car === base.car
+      ? car
+      : validateCar(car, () => `${where} (${fields.map((f, k) => `${f}=${values[k]}`).join(', ')})`);
   if (airChanged) checkAir(air, where);
   return { car: checked, ambient: ambientFrom(air) };
 }
