@@ -15,6 +15,10 @@ export interface DriveForceTable {
 const TABLE_STEP_MPS = 0.1;
 const TABLE_TOP_MPS = 160;
 const TABLE_COUNT = Math.round(TABLE_TOP_MPS / TABLE_STEP_MPS) + 1;
+/** First entry of the table's last interval, where speeds at and above the top are read. A constant rather than
+ * `TABLE_COUNT - 2` in forceN: that subtraction, first met at top speed after V8 had optimised the solver around
+ * it, sent the solver back to be compiled again in every new thread. */
+const LAST_INTERVAL = TABLE_COUNT - 2;
 
 function torqueAt(rpmValues: number[], torqueValues: number[], rpm: number): number {
   const last = rpmValues.length - 1;
@@ -49,7 +53,7 @@ class DriveForce implements DriveForceTable {
     const force = this.tableForceN;
     const position = tablePosition(speedMps);
     const floor = Math.floor(position);
-    const lo = floor < TABLE_COUNT - 2 ? floor : TABLE_COUNT - 2;
+    const lo = floor < LAST_INTERVAL ? floor : LAST_INTERVAL;
     return force[lo]! + (position - lo) * (force[lo + 1]! - force[lo]!);
   }
 
