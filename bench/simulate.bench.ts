@@ -33,7 +33,19 @@ import {
 } from './stats.js';
 
 const projectRoot = fileURLToPath(new URL('../..', import.meta.url));
-const monzaCsv = path.resolve(projectRoot, '..', 'shared', 'data', 'open-tracks', 'Monza.csv');
+export const monzaCsv = path.resolve(projectRoot, '..', 'shared', 'data', 'open-tracks', 'Monza.csv');
+
+/** Monza's centreline at 1 m (TUM racetrack-database, read from ../shared), or null where ../shared is absent. */
+export function monzaCentreline(): TrackGrid | null {
+  if (!existsSync(monzaCsv)) return null;
+  return readTrackFile(monzaCsv, {
+    stepM: 1,
+    columns: { width_left_m: 'w_tr_left_m', width_right_m: 'w_tr_right_m' },
+    widthM: null,
+    layout: 'auto',
+    smoothingM: null,
+  });
+}
 
 /** Warm-up of each timing, CPU seconds: V8 compiles the passes on another thread while they run, which on a busy
  * two-core machine took up to a tenth of a second a function, and a new car (fields that held whole numbers
@@ -280,17 +292,11 @@ function againstTargets(name: string, fullTargetMs: number, ambient: Ambient): v
 /** One car's lap on Monza's centreline at 1 m (as `reflap simulate --line centreline` reads it), every channel and
  * lap-time mode, beside the segment circuit's figures. */
 function onRealCentreline(car: Car, ambient: Ambient, envelope: Envelope, segmentFull: Timing, segmentQuick: Timing) {
-  if (!existsSync(monzaCsv)) {
+  const track = monzaCentreline();
+  if (!track) {
     process.stdout.write(`  real centreline: skipped (${monzaCsv} is absent)\n`);
     return;
   }
-  const track = readTrackFile(monzaCsv, {
-    stepM: 1,
-    columns: { width_left_m: 'w_tr_left_m', width_right_m: 'w_tr_right_m' },
-    widthM: null,
-    layout: 'auto',
-    smoothingM: null,
-  });
   let fullS = 0;
   let quickS = 0;
   const full = settledTimes(() => (fullS = simulate(track, car, { ambient, envelope }).lapTimeS));

@@ -4,8 +4,10 @@
 // not be slower than the main thread either (issue 18).
 // Timed two ways. In a fresh process, as one `reflap sweep` runs: at about half a millisecond a run, 1,000 setups are
 // 0.5 s of work, of which each worker's start and V8's compiling the solver again in it take a large share (so the
-// 10,000-setup sweep is timed fresh too). With threads started once: the pool keeps its threads between sweeps, so
-// a script's later sweeps run on threads already started and compiled, which is where the scaling itself shows.
+// 10,000-setup sweep is timed fresh too). The 1,000 setups are timed fresh on Monza's centreline as well, where a
+// run costs about three times as much (from ../shared, skipped with a message where absent). With threads started
+// once: the pool keeps its threads between sweeps, so a script's later sweeps run on threads already started and
+// compiled, which is where the scaling itself shows.
 
 import { spawnSync } from 'node:child_process';
 import { readFileSync } from 'node:fs';
@@ -16,7 +18,8 @@ import { ambientFrom } from '../src/car/ambient.js';
 import { airInputsOf, parseVariation } from '../src/sweep/settings.js';
 import { runSweep } from '../src/sweep/run-sweep.js';
 import { stopWorkerThreads } from '../src/sweep/threads.js';
-import { benchmarkCircuitSegments } from './simulate.bench.js';
+import { benchmarkCircuitSegments, monzaCentreline, monzaCsv } from './simulate.bench.js';
+import { existsSync } from 'node:fs';
 import { availableParallelism as availableCores, loadavg } from 'node:os';
 import { median, peakRssMb, verdict } from './stats.js';
 
@@ -29,6 +32,9 @@ const KEPT_ROUNDS = 5;
 const SMALL_ROUNDS = 21;
 
 type Workers = number | 'pool';
+/** The 5 km circuit of arcs, or Monza's centreline: a real circuit's curvature changes at every sample, so a run
+ * costs about three times as much and a worker's start weighs less against it. */
+type Circuit = 'arcs' | 'monza';
 
 interface SweepTiming {
   wallS: number;
@@ -38,13 +44,16 @@ interface SweepTiming {
   digest: string;
 }
 
-function sweepInput(setups: 8 | 1000 | 10000) {
+function sweepInput(setups: 8 | 1000 | 10000, circuit: Circuit) {
   const car = parseCarJson(readFileSync(`${projectRoot}cars/tarnfell-gt.json`, 'utf8'), 'cars/tarnfell-gt.json');
-  const track = trackFromSegments(
-    { name: 'benchmark circuit', closed: true, widthM: 12, segments: benchmarkCircuitSegments() },
-    1,
-    'benchmark',
-  );
+  const track =
+    circuit === 'monza'
+      ? monzaCentreline()!
+      : trackFromSegments(
+          { name: 'benchmark circuit', closed: true, widthM: 12, segments: benchmarkCircuitSegments() },
+          1,
+          'benchmark',
+        );
   const base = { car, air: airInputsOf(ambientFrom()) };
   const grid = [
     parseVariation('massKg=-45:+45:10'),
@@ -61,8 +70,8 @@ function sweepInput(setups: 8 | 1000 | 10000) {
 }
 
 /** One sweep, wall and CPU time of the whole process (worker threads included). */
-async function timeSweep(setups: 8 | 1000 | 10000, workers: Workers): Promise<SweepTiming> {
-  const input = sweepInput(setups);
+async function timeSweep(setups: 8 | 1000 | 10000, workers: Workers, circuit: Circuit = 'arcs'): Promise<SweepTiming> {
+  const input = sweepInput(setups, circuit);
   const started = performance.now();
   const cpuStart = process.cpuUsage();
   const output = await runSweep(input, workers === 'pool' ? {} : { workers });
@@ -77,8 +86,8 @@ async function timeSweep(setups: 8 | 1000 | 10000, workers: Workers): Promise<Sw
 }
 
 /** One sweep in a process of its own (this file run with --one-sweep). */
-function freshSweep(setups: 1000 | 10000, workers: Workers): SweepTiming {
-  const args = [fileURLToPath(import.meta.url), '--one-sweep', String(setups), String(workers)];
+function freshSweep(setups: 1000 | 10000, workers: Workers, circuit: Circuit = 'arcs'): SweepTiming {
+  const args = [fileURLToPath(import.meta.url), '--one-sweep', String(setups), String(workers), circuit];
   const child = spawnSync(process.execPath, args, { encoding: 'utf8' });
   if (child.status !== 0) throw new Error(`sweep bench child failed: ${child.stderr}`);
   return JSON.parse(child.stdout) as SweepTiming;
@@ -95,19 +104,46 @@ function medianTiming(timings: SweepTiming[]): SweepTiming {
   };
 }
 
+/** 1,000 setups in fresh processes, main thread, 1 and 2 workers and left to the pool, taken in turn so that a change
+ * in the machine's load weighs on all alike. */
+function freshConfigurations(circuit: Circuit) {
+  const fresh: Record<string, SweepTiming[]> = { 0: [], 1: [], 2: [], pool: [] };
+  for (let k = 0; k < FRESH_PROCESSES; k++)
+    for (const workers of [0, 1, 2, 'pool'] as const) fresh[workers]!.push(freshSweep(1000, workers, circuit));
+  const [here, one, two, chosen] = [0, 1, 2, 'pool'].map((w) => medianTiming(fresh[w]!)) as [
+    SweepTiming,
+    SweepTiming,
+    SweepTiming,
+    SweepTiming,
+  ];
+  if (new Set([here, one, two, chosen].map((t) => t.digest)).size !== 1)
+    throw new Error('sweep results differ between worker counts');
+  return { here, one, two, chosen };
+}
+
 const line = (label: string, t: SweepTiming) =>
   `  ${label.padEnd(26)} ${t.wallS.toFixed(2)} s wall, ${t.cpuS.toFixed(2)} s CPU\n`;
 
+function freshReport(circuit: string, t: ReturnType<typeof freshConfigurations>): string {
+  return (
+    `sweep: ${t.here.runs} runs (1,000 grid setups + baseline) on ${circuit} at 1 m step, ` +
+    `each in a fresh process (median of ${FRESH_PROCESSES})\n` +
+    line('main thread', t.here) +
+    line('1 worker', t.one) +
+    line('2 workers', t.two) +
+    line('workers left to the pool', t.chosen) +
+    `  ${verdict('2 workers, wall', t.two.wallS, 10, 's')}\n` +
+    `  ${verdict('speed-up of 2 workers over 1, fresh process, wall', t.one.wallS / t.two.wallS, 1.6, 'x', false)}\n` +
+    `  ${verdict('speed-up of 2 workers over the main thread, fresh process, wall', t.here.wallS / t.two.wallS, 1, 'x', false)}\n` +
+    `  ${verdict('left to the pool / main thread, fresh process, wall', t.chosen.wallS / t.here.wallS, 1.1, 'x')}\n`
+  );
+}
+
 export async function run(): Promise<void> {
   const loadBefore = loadavg()[0]!;
-  // In fresh processes, configurations in turn, so that a change in the machine's load weighs on all alike.
-  const fresh: Record<string, SweepTiming[]> = { 0: [], 1: [], 2: [], pool: [] };
-  for (let k = 0; k < FRESH_PROCESSES; k++)
-    for (const workers of [0, 1, 2, 'pool'] as const) fresh[workers]!.push(freshSweep(1000, workers));
-  const [here, one, two, chosen] = [0, 1, 2, 'pool'].map((w) => medianTiming(fresh[w]!));
-  if (new Set([here, one, two, chosen].map((t) => t!.digest)).size !== 1)
-    throw new Error('sweep results differ between worker counts');
-  const large = { one: freshSweep(10000, 1), two: freshSweep(10000, 2) };
+  const { here, one, two, chosen } = freshConfigurations('arcs');
+  const real = existsSync(monzaCsv) ? freshConfigurations('monza') : null;
+  const large = { one: freshSweep(10000, 1), two: freshSweep(10000, 2), chosen: freshSweep(10000, 'pool') };
 
   // Threads started once: a first sweep starts two, then each configuration runs in turn on threads already
   // started (the main thread, likewise, has compiled the solver by then).
@@ -127,19 +163,13 @@ export async function run(): Promise<void> {
   await stopWorkerThreads();
 
   process.stdout.write(
-    `sweep: ${here!.runs} runs (1,000 grid setups + baseline) on 5.00 km at 1 m step, ` +
-      `each in a fresh process (median of ${FRESH_PROCESSES})\n` +
-      line('main thread', here!) +
-      line('1 worker', one!) +
-      line('2 workers', two!) +
-      line('workers left to the pool', chosen!) +
-      `  ${verdict('2 workers, wall', two!.wallS, 10, 's')}\n` +
-      `  ${verdict('speed-up of 2 workers over 1, fresh process, wall', one!.wallS / two!.wallS, 1.6, 'x', false)}\n` +
-      `  ${verdict('speed-up of 2 workers over the main thread, fresh process, wall', here!.wallS / two!.wallS, 1, 'x', false)}\n` +
-      `  ${verdict('left to the pool / main thread, fresh process, wall', chosen!.wallS / here!.wallS, 1.1, 'x')}\n` +
+    freshReport('a 5.00 km circuit of arcs', { here, one, two, chosen }) +
       `  10,000 setups (${large.one.runs} runs), fresh process: 1 worker ${large.one.wallS.toFixed(2)} s wall, ` +
-      `2 workers ${large.two.wallS.toFixed(2)} s wall\n` +
+      `2 workers ${large.two.wallS.toFixed(2)} s wall, left to the pool ${large.chosen.wallS.toFixed(2)} s wall\n` +
       `  ${verdict('speed-up of 2 workers over 1 on 10,000 setups, fresh process, wall', large.one.wallS / large.two.wallS, 1.6, 'x', false)}\n` +
+      (real
+        ? freshReport("Monza's centreline, 5.79 km (TUM racetrack-database)", real)
+        : `sweep on a real centreline: skipped (${monzaCsv} is absent)\n`) +
       `sweep of 1,000 setups on threads started once (median of ${KEPT_ROUNDS} sweeps after a first one)\n` +
       line('main thread', keptHere!) +
       line('1 worker', keptOne!) +
@@ -160,7 +190,11 @@ if (
   import.meta.url === pathToFileURL(process.argv[1]).href &&
   process.argv.includes('--one-sweep')
 ) {
-  const [setups, workers] = process.argv.slice(process.argv.indexOf('--one-sweep') + 1);
-  const timing = await timeSweep(Number(setups) as 1000 | 10000, workers === 'pool' ? 'pool' : Number(workers));
+  const [setups, workers, circuit] = process.argv.slice(process.argv.indexOf('--one-sweep') + 1);
+  const timing = await timeSweep(
+    Number(setups) as 1000 | 10000,
+    workers === 'pool' ? 'pool' : Number(workers),
+    circuit as Circuit,
+  );
   process.stdout.write(JSON.stringify(timing) + '\n');
 }

@@ -40,6 +40,11 @@ export function setupReference(
   return resolveReferenceLine(track, base.car, ambientFrom(base.air), values.line, { startSpeedMps: start });
 }
 
+/** The --workers option's text, as `sweep` and `stint` show it. */
+export const WORKERS_OPTION_TEXT =
+  'worker threads (default: where the runs take long enough to pay for starting them, one per core but this one, ' +
+  'beside this thread; 0 = in this thread)';
+
 /** Parses --workers: 0 = in the calling thread; left out, undefined: the pool starts workers where they pay. */
 export function workerCount(text: string | undefined): number | undefined {
   if (text === undefined) return undefined;

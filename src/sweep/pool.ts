@@ -49,9 +49,9 @@ export interface WorkerReply {
 }
 
 export interface RunOptions {
-  /** Worker threads; 0 runs in the calling thread. Default: runs here for 0.2 s, and the others on one worker per
-   * core (os.availableParallelism()) only where they take long enough to pay for starting the workers (threads kept
-   * from an earlier job, having solved runs, cost nothing to start). */
+  /** Worker threads; 0 runs in the calling thread. Default: runs here for 0.2 s, then, only where the rest take long
+   * enough to pay for starting them, this thread goes on beside one worker per other core (os.availableParallelism()
+   * less one); threads kept from an earlier job, having solved runs, cost nothing to start. */
   workers?: number;
   /** Called after each finished task with the number of runs done so far. */
   onProgress?: (doneRuns: number, totalRuns: number) => void;
@@ -61,11 +61,12 @@ export function defaultWorkerCount(): number {
   return availableParallelism();
 }
 
-/** What starting worker threads costs before they run at full pace (Node's start, the job's modules, V8 compiling
- * the solver again in each): about 0.5 s for two on a two-core machine, where their compilers share the cores with
- * them (1,000 setups: 0.75 s on two fresh workers against 0.58 s here; 10,000: 3.07 s against about 5 s). Workers
+/** What a fresh worker thread costs before it solves at full pace, counted in time this thread solves: Node's start,
+ * the job's modules, and V8 compiling the solver again in it, whose compiler and slow first runs take their share of
+ * the cores this thread solves on. Measured on two cores beside this thread solving: a worker started for about
+ * 0.95 s of runs of a 5 km circuit just broke even, one for 1 s of Monza's centreline saved about 0.2 s. Workers
  * start side by side, so k of them cost this once; threads kept from an earlier job cost nothing to start. */
-export const WORKER_START_S = 0.5;
+export const WORKER_START_S = 0.8;
 
 /** Time the pool spends solving runs in the calling thread before it judges whether workers would pay. Timed by the
  * clock, not by the process's CPU time: that also counts V8's compiler and collector threads, which in a fresh
@@ -73,12 +74,13 @@ export const WORKER_START_S = 0.5;
 const SOLVE_HERE_FIRST_S = 0.2;
 
 /**
- * How many workers to start for runs that would take `remainingS` in this thread: k workers take about
- * WORKER_START_S + remainingS / k, this thread remainingS, so they pay only when remainingS (1 - 1/k) is more than
- * the start; otherwise none (0: solve them here). One worker never pays.
+ * How many workers to start beside this thread for runs that would take `remainingS` here. This thread goes on
+ * solving while they start, so with one per other core (c - 1 of them, each joining after the start S) the runs end
+ * after about (remainingS + (c - 1) S) / c: sooner than here alone only when remainingS is more than S. Otherwise
+ * none (0: solve them here).
  */
 export function workersWorthStarting(remainingS: number, cores: number, startS = WORKER_START_S): number {
-  return cores >= 2 && remainingS * (1 - 1 / cores) > startS ? cores : 0;
+  return cores >= 2 && remainingS > startS ? cores - 1 : 0;
 }
 
 /**
@@ -101,6 +103,20 @@ export function runSetupsInProcess<C extends PoolContext>(
 }
 
 const nowSeconds = () => performance.now() / 1000;
+
+/** Solves run `r` of `values` in this thread into its own place in `out`. */
+function solveRun<C extends PoolContext>(
+  job: PoolJob<C>,
+  context: C,
+  values: Float64Array,
+  firstRun: number,
+  r: number,
+  out: Float64Array,
+): void {
+  const width = context.fields.length;
+  const resultWidth = job.width(context);
+  job.run(context, values.subarray(r * width, (r + 1) * width), out, r * resultWidth, `sweep run ${firstRun + r}`);
+}
 
 /**
  * Solves runs in this thread in order until all are done or `budgetS` is spent, into an array for them all; with a
@@ -125,13 +141,7 @@ function solveHere<C extends PoolContext>(
   let halfway: { done: number; atS: number } | null = null;
   let done = 0;
   while (done < runs && nowS - startS < budgetS) {
-    job.run(
-      context,
-      values.subarray(done * width, (done + 1) * width),
-      out,
-      done * resultWidth,
-      `sweep run ${firstRun + done}`,
-    );
+    solveRun(job, context, values, firstRun, done, out);
     done++;
     onProgress?.(done, runs);
     if (!timed) continue;
@@ -145,7 +155,8 @@ function solveHere<C extends PoolContext>(
 
 /**
  * Solves the runs across worker threads, or in this thread where workers would not pay for their start (when
- * `options.workers` is left out: runs are solved here for 0.2 s, and the rest go where they end sooner).
+ * `options.workers` is left out: runs are solved here for 0.2 s, and the rest go where they end sooner; with
+ * workers, this thread solves beside them, since it has compiled the solver already and a fresh worker has not).
  * The outcome of run r lands at r * job.width whatever thread solved it, so the result does not depend on the
  * number of workers or on their timing. The worker is the compiled module beside this one: run from the built
  * package (dist/), as the command line and benchmarks do.
@@ -167,14 +178,14 @@ export async function runSetups<C extends PoolContext>(
   // workers.
   const { out, done, paceS } = solveHere(job, context, values, firstRun, onProgress, SOLVE_HERE_FIRST_S);
   if (done === runs) return out;
-  const startS = solvedThreadCount() >= requested ? 0 : WORKER_START_S;
+  const startS = solvedThreadCount() >= requested - 1 ? 0 : WORKER_START_S;
   const workers = workersWorthStarting((runs - done) * paceS, requested, startS);
   const restValues = values.subarray(done * width);
   const restProgress = onProgress && ((doneRest: number, total: number) => onProgress(doneRest + done, total + done));
   const rest =
     workers === 0
       ? runSetupsInProcess(job, context, restValues, firstRun + done, restProgress)
-      : await runInWorkers(job, context, restValues, firstRun + done, workers, restProgress);
+      : await runInWorkers(job, context, restValues, firstRun + done, workers, restProgress, true);
   out.set(rest, done * job.width(context));
   return out;
 }
@@ -186,13 +197,16 @@ async function runInWorkers<C extends PoolContext>(
   firstRun: number,
   requested: number,
   onProgress: RunOptions['onProgress'],
+  solveHereToo = false,
 ): Promise<Float64Array> {
   const width = context.fields.length;
   const runs = values.length / width;
   const resultWidth = job.width(context);
   const out = new Float64Array(runs * resultWidth);
-  // Small tasks keep the workers evenly loaded to the end; two in flight per worker hide the message latency.
-  const chunk = Math.max(1, Math.min(16, Math.ceil(runs / (requested * 8))));
+  // Small tasks keep the threads evenly loaded to the end; two in flight per worker hide the message latency (and
+  // a task solved here, which holds this thread's replies back for its length).
+  const threads = requested + (solveHereToo ? 1 : 0);
+  const chunk = Math.max(1, Math.min(16, Math.ceil(runs / (threads * 8))));
   const taskCount = Math.ceil(runs / chunk);
   const workers = lendThreads(Math.min(requested, taskCount), job);
   const contextMessage: ContextMessage = {
@@ -224,6 +238,27 @@ async function runInWorkers<C extends PoolContext>(
         resolve(out);
       }
     };
+    const taskDone = (runsDone: number) => {
+      doneRuns += runsDone;
+      finishedTasks++;
+      onProgress?.(doneRuns, runs);
+      if (finishedTasks === taskCount) finish();
+    };
+    // This thread takes the next task between the workers' replies, one at a time, until none is left.
+    const solveNextHere = () => {
+      if (settled || nextTask >= taskCount) return;
+      const id = nextTask++;
+      const start = id * chunk;
+      const count = Math.min(chunk, runs - start);
+      try {
+        for (let r = start; r < start + count; r++) solveRun(job, context, values, firstRun, r, out);
+      } catch (error) {
+        finish(error instanceof Error ? error : new Error(String(error)));
+        return;
+      }
+      taskDone(count);
+      setImmediate(solveNextHere);
+    };
     const send = (worker: Worker) => {
       if (nextTask >= taskCount) return;
       const id = nextTask++;
@@ -248,13 +283,9 @@ async function runInWorkers<C extends PoolContext>(
           );
           return;
         }
-        const start = reply.id * chunk;
-        out.set(reply.out, start * resultWidth);
-        doneRuns += reply.out.length / resultWidth;
-        finishedTasks++;
-        onProgress?.(doneRuns, runs);
-        if (finishedTasks === taskCount) finish();
-        else send(worker);
+        out.set(reply.out, reply.id * chunk * resultWidth);
+        taskDone(reply.out.length / resultWidth);
+        if (!settled) send(worker);
       };
       listeners.set(worker, onMessage);
       worker.on('message', onMessage).on('error', onError).on('exit', onExit);
@@ -262,5 +293,6 @@ async function runInWorkers<C extends PoolContext>(
       send(worker);
       send(worker);
     }
+    if (solveHereToo) setImmediate(solveNextHere);
   });
 }

@@ -6,6 +6,8 @@ import { runSetups } from '../../dist/src/sweep/pool.js';
 import { solvedThreadCount, stopWorkerThreads } from '../../dist/src/sweep/threads.js';
 import { throwingJob } from './throwing-job.js';
 import { lateCrashJob } from './late-crash-job.js';
+import { spinningJob } from './spinning-job.js';
+import { availableParallelism } from 'node:os';
 
 const context = { fields: ['x'] };
 const values = Float64Array.from({ length: 100 }, (_, k) => k);
@@ -56,5 +58,21 @@ describe('kept worker threads', () => {
     await runSetups(throwingJob, context, values, 0, { workers: 1 });
     await stopWorkerThreads();
     expect(solvedThreadCount()).toBe(0);
+  });
+
+  // Left to the pool, runs that take long enough here (500 of 3 ms: about 1.3 s left after its first 0.2 s, over the
+  // 0.8 s a fresh worker costs) go on here beside one worker per other core, each landing at its own place.
+  it.skipIf(availableParallelism() < 2)('solve beside this thread when the pool starts them', async () => {
+    await stopWorkerThreads();
+    const runs = Float64Array.from({ length: 500 }, (_, k) => k);
+    const out = await runSetups(spinningJob, { fields: ['x'], spinMs: 3 }, runs);
+    const solvedBy = new Set<number>();
+    runs.forEach((x, k) => {
+      expect(out[2 * k]).toBe(3 * x);
+      solvedBy.add(out[2 * k + 1]!);
+    });
+    expect(solvedBy.has(0)).toBe(true);
+    expect(solvedBy.size).toBe(availableParallelism());
+    expect(solvedThreadCount()).toBe(availableParallelism() - 1);
   });
 });

@@ -124,22 +124,25 @@ describe('shards and workers', () => {
     expect(sweepCsv(chosen.table)).toBe(sweepCsv(here.table));
   });
 
-  // k workers started side by side take about S + T / k where this thread takes T (S: their start), so they pay
-  // only when T (1 - 1/k) > S (arithmetic of the two ways); one worker never does.
+  // This thread goes on solving while c - 1 workers start (S each, side by side), so runs that would take T here end
+  // after about (T + (c - 1) S) / c: sooner only when T > S (arithmetic of the two ways); one core never has a worker.
   it.each([
     [0.3, 2, 0],
-    [0.99, 2, 0],
-    [1.01, 2, 2],
-    [0.7, 4, 4],
-    [0.65, 4, 0],
+    [0.79, 2, 0],
+    [0.81, 2, 1],
+    [0.81, 4, 3],
+    [0.7, 4, 0],
     [100, 1, 0],
-  ])('starts workers for %s s of runs on %s cores only where they pay: %s', (remainingS, cores, expected) => {
-    expect(WORKER_START_S).toBe(0.5);
-    expect(workersWorthStarting(remainingS, cores)).toBe(expected);
-  });
+  ])(
+    'starts workers beside this thread for %s s of runs on %s cores only where they pay: %s',
+    (remainingS, cores, expected) => {
+      expect(WORKER_START_S).toBe(0.8);
+      expect(workersWorthStarting(remainingS, cores)).toBe(expected);
+    },
+  );
 
   it('lends threads kept from an earlier job for any runs left, since they cost nothing to start', () => {
-    expect(workersWorthStarting(0.01, 2, 0)).toBe(2);
+    expect(workersWorthStarting(0.01, 2, 0)).toBe(1);
     expect(workersWorthStarting(0.01, 1, 0)).toBe(0);
   });
 

@@ -13,7 +13,7 @@ import {
 import { writeFileAtomic } from '../output.js';
 import { createProgress } from '../progress.js';
 import { parseSetting } from '../../sweep/settings.js';
-import { loadSetupInputs, setupReference, workerCount } from '../setup-inputs.js';
+import { loadSetupInputs, setupReference, workerCount, WORKERS_OPTION_TEXT } from '../setup-inputs.js';
 import { addLineOption, referencePathJson, withReferencePath } from '../reference-path.js';
 import { runStintInWorkers, type StintResult } from '../../sweep/stint.js';
 import { stintCsv, stintJson, stintText } from '../../report/stint-summary.js';
@@ -40,10 +40,7 @@ export function register(program: Command): void {
       'number of laps; each starts with one lap of fuel (fuel.burnKgPerLap) less than the one before',
     )
     .option('--set <field=value...>', 'changes to the car first, as in whatif (e.g. fuel.massKg=60)')
-    .option(
-      '--workers <n>',
-      'worker threads (default: one per core where the runs take long enough to pay for starting them; 0 = in this thread)',
-    )
+    .option('--workers <n>', WORKERS_OPTION_TEXT)
     .option('--out <file>', 'write one CSV row per lap')
     .option('--json', 'print one JSON object instead of the tables');
   addUnitsOption(addLineOption(command, true)).action((values: StintValues) => runStintCommand(values));

@@ -11,7 +11,13 @@ import {
   type CarOptionValues,
   type TrackOptionValues,
 } from '../options.js';
-import { loadSetupInputs, setupReference, workerCount, type SetupOptionValues } from '../setup-inputs.js';
+import {
+  loadSetupInputs,
+  setupReference,
+  workerCount,
+  WORKERS_OPTION_TEXT,
+  type SetupOptionValues,
+} from '../setup-inputs.js';
 import { outputBatch, type OutputBatch } from '../output.js';
 import { addPageOutputs, addReportOptions, reportWrittenText, type ReportOptionValues } from '../html-options.js';
 import { sweepChartSvgs, sweepReportHtml } from '../../report/sweep-page.js';
@@ -63,10 +69,7 @@ export function register(program: Command): void {
         .choices(['grid', 'one-at-a-time'])
         .default('grid'),
     )
-    .option(
-      '--workers <n>',
-      'worker threads (default: one per core where the runs take long enough to pay for starting them; 0 = in this thread)',
-    )
+    .option('--workers <n>', WORKERS_OPTION_TEXT)
     .option('--shard <i/n>', 'run only shard I of N (I from 1), for batch systems; join the CSVs with --merge')
     .option('--merge <files...>', 'join shard CSVs of one sweep into one (no new runs)')
     .option('--out <file>', 'write the runs as CSV (see docs/setup-sweeps.md for the columns)')
