@@ -10,8 +10,10 @@ export interface JobModule {
   exportName: string;
 }
 
-/** Each run allocates its traces afresh; a roomier young generation means fewer scavenges competing for the cores. */
-const WORKER_YOUNG_GENERATION_MB = 64;
+/** Each run allocates its traces afresh, and every page of young generation a thread grows into is a page fault (about
+ * 10 us each on this virtual machine). 3,000 uncertainty draws of the real kart lap on two workers: 16 MB took 60k
+ * faults and 1.91 s, 64 MB 85k and 2.02 s, V8's default 67k; sweeps of 1,000 and 10,000 setups timed the same. */
+const WORKER_YOUNG_GENERATION_MB = 16;
 
 const kept: Worker[] = [];
 /** Threads that have solved runs: V8 has compiled the solver in them, so lending them again costs next to nothing. */
