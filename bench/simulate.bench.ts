@@ -1,5 +1,5 @@
-// Benchmark of the core solver: one lap of a 5 km circuit at 1 m and 0.25 m step, median of 40 runs after at least
-// 0.3 s of warm-up runs (settledTimes below).
+// Benchmark of the core solver: one lap of a 5 km circuit at 1 m and 0.25 m step, medians of timed runs once the
+// lap has settled (settledTimes below: compiled, and no longer taking page faults).
 // Issue 18's targets at 1 m: simulate with every channel under 0.8 ms for a point-mass car without gears and under
 // 1.0 ms with gears, the lap-time mode (lap time and braking points) under 0.5 ms, and reflap within 2.5 times a
 // plain reference of the same passes written below in tight JavaScript (Brayshaw and Harrison's method, the point
@@ -67,6 +67,12 @@ const FAULT_FREE_LAPS = 30;
  * of laps. The same for reflap and the plain passes, so the ratio compares settled code with settled code.
  */
 function settledTimes(work: () => void, runs = 40) {
+  settle(work);
+  return medianTimes(work, runs, 0);
+}
+
+/** The warm-up of settledTimes alone. */
+function settle(work: () => void): void {
   const start = process.cpuUsage();
   for (let k = 0; k < 20 || cpuSecondsSince(start) < WARM_UP_CPU_S; k++) work();
   let faultFree = 0;
@@ -75,7 +81,6 @@ function settledTimes(work: () => void, runs = 40) {
     work();
     faultFree = process.resourceUsage().minorPageFault === faultsBefore ? faultFree + 1 : 0;
   }
-  return medianTimes(work, runs, 0);
 }
 
 function cpuSecondsSince(start: NodeJS.CpuUsage): number {
@@ -333,24 +338,31 @@ export async function run(): Promise<void> {
   const envelope = buildEnvelope(car, ambient);
   againstTargets('brackle-club', 0.8, ambient);
   againstTargets('tarnfell-gt', 1.0, ambient);
-  const perPointNs: number[] = [];
-  for (const stepM of [1, 0.25]) {
+  // The two grids settled each, then timed run for run in turn: timed one after the other, a change in the shared
+  // machine's speed between them (its plain passes' time moved by 1.7x within one bench run) read as a cost per point.
+  const grids = [1, 0.25].map((stepM) => {
     const track = trackFromSegments(
       { name: 'benchmark circuit', closed: true, widthM: 12, segments: benchmarkCircuitSegments() },
       stepM,
       'benchmark',
     );
-    let lapTimeS = 0;
-    // The same warm-up as the targets above: a new grid re-optimises the passes, which five runs did not cover, and
-    // the first size then read up to twice its cost per point.
-    const timing = settledTimes(() => {
-      lapTimeS = simulate(track, car, { ambient, envelope }).lapTimeS;
-    }, 20);
-    perPointNs.push((timing.cpuMs * 1e6) / track.distanceM.length);
+    const grid = {
+      stepM,
+      track,
+      lapTimeS: 0,
+      lap: () => (grid.lapTimeS = simulate(track, car, { ambient, envelope }).lapTimeS),
+    };
+    settle(grid.lap);
+    return grid;
+  });
+  const timings = pairedMedianTimes(grids[0]!.lap, grids[1]!.lap, 20, 0);
+  const perPointNs = grids.map(({ stepM, track, lapTimeS }, k) => {
+    const timing = timings[k]!;
     process.stdout.write(
       `simulate: ${(track.lengthM / 1000).toFixed(2)} km at ${stepM} m step (${track.distanceM.length} points): median ${timing.wallMs.toFixed(2)} ms wall, ${timing.cpuMs.toFixed(2)} ms CPU per lap; lap ${lapTimeS.toFixed(3)} s\n`,
     );
-  }
+    return (timing.cpuMs * 1e6) / track.distanceM.length;
+  });
   process.stdout.write(`${linearityVerdict(perPointNs)}; ${machineLoad()}\n`);
   roadCost(car, ambient, envelope);
   process.stdout.write(`peak RSS ${peakRssMb().toFixed(0)} MB\n`);
