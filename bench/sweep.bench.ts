@@ -10,7 +10,7 @@
 // compiled, which is where the scaling itself shows.
 
 import { spawnSync } from 'node:child_process';
-import { readFileSync } from 'node:fs';
+import { existsSync, readFileSync } from 'node:fs';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { trackFromSegments } from '../src/track/segments.js';
 import { parseCarJson } from '../src/io/read-car.js';
@@ -19,7 +19,6 @@ import { airInputsOf, parseVariation } from '../src/sweep/settings.js';
 import { runSweep } from '../src/sweep/run-sweep.js';
 import { stopWorkerThreads } from '../src/sweep/threads.js';
 import { benchmarkCircuitSegments, monzaCentreline, monzaCsv } from './simulate.bench.js';
-import { existsSync } from 'node:fs';
 import { availableParallelism as availableCores, loadavg } from 'node:os';
 import { median, peakRssMb, verdict } from './stats.js';
 
