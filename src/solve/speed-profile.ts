@@ -25,7 +25,8 @@ export interface SpeedProfile {
   shift: Uint8Array;
   /** On flat ground, the braking limit at the lap's speed and lateral demand where the backward pass computed it
    * there (the entry of a braking step), m/s^2; 0 elsewhere. The brake channel reads each one rather than computing it
-   * again, and is written over them in this array (channels.ts): one array fewer per lap. */
+   * again, and is written over them in this array (channels.ts): one array fewer per lap, so a profile feeds one
+   * channel pass (lapChannels or lapTimeAndBrake), never two. */
   brakeLimitMps2: Float64Array;
 }
 

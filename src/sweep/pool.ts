@@ -6,6 +6,7 @@
 import type { Worker } from 'node:worker_threads';
 import { availableParallelism } from 'node:os';
 import { InputError } from '../errors.js';
+import { solveRun } from './solve-run.js';
 import { endThreads, keepThreads, lendThreads, solvedThreadCount, startThreads, type JobModule } from './threads.js';
 
 /** What every job's context has: the names of the values each run is given, in order. */
@@ -103,20 +104,6 @@ export function runSetupsInProcess<C extends PoolContext>(
 }
 
 const nowSeconds = () => performance.now() / 1000;
-
-/** Solves run `r` of `values` in this thread into its own place in `out`. */
-function solveRun<C extends PoolContext>(
-  job: PoolJob<C>,
-  context: C,
-  values: Float64Array,
-  firstRun: number,
-  r: number,
-  out: Float64Array,
-): void {
-  const width = context.fields.length;
-  const resultWidth = job.width(context);
-  job.run(context, values.subarray(r * width, (r + 1) * width), out, r * resultWidth, `sweep run ${firstRun + r}`);
-}
 
 /**
  * Solves runs in this thread in order until all are done or `budgetS` is spent, into an array for them all; with a

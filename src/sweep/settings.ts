@@ -208,8 +208,8 @@ export function applySetup(
 
 /**
  * applySetup for a run whose values were checked before any run was solved: planSweep passes every run through
- * applySetup, and a stint's fuel loads stay between an empty and the starting tank. Checking each again as it is
- * solved would cost every run, and every worker thread V8's compiling the whole car check, for no new answer.
+ * applySetup, and a stint's fuel loads stay between an empty and the starting tank. The solver still checks the car
+ * at its entry (simulate, simulateLapTime), so checking here as well would check every run's car twice.
  */
 export function applyCheckedSetup(
   base: SetupBase,

@@ -6,11 +6,11 @@ import { parentPort, workerData } from 'node:worker_threads';
 import { isInputError } from '../errors.js';
 import type { ContextMessage, PoolContext, PoolJob, TaskMessage, WorkerReply } from './pool.js';
 import type { JobModule } from './threads.js';
+import { solveRun } from './solve-run.js';
 
 interface Loaded {
   job: PoolJob<PoolContext>;
   context: PoolContext;
-  width: number;
   resultWidth: number;
 }
 
@@ -25,17 +25,9 @@ let current: Promise<Loaded | null> = loadJob(workerData as JobModule).then(
 );
 
 function solveTask(loaded: Loaded, task: TaskMessage): void {
-  const { job, context, width, resultWidth } = loaded;
+  const { job, context, resultWidth } = loaded;
   const out = new Float64Array(task.runCount * resultWidth);
-  for (let r = 0; r < task.runCount; r++) {
-    job.run(
-      context,
-      task.values.subarray(r * width, (r + 1) * width),
-      out,
-      r * resultWidth,
-      `sweep run ${task.firstRun + r}`,
-    );
-  }
+  for (let r = 0; r < task.runCount; r++) solveRun(job, context, task.values, task.firstRun, r, out);
   const reply: WorkerReply = { id: task.id, out };
   parentPort!.postMessage(reply, [out.buffer as ArrayBuffer]);
 }
@@ -54,9 +46,7 @@ parentPort!.on('message', (message: ContextMessage | TaskMessage) => {
   if (message.kind === 'context') {
     const { context } = message;
     const load = () => loadJob(message);
-    current = current
-      .then(load, load)
-      .then((job) => ({ job, context, width: context.fields.length, resultWidth: job.width(context) }));
+    current = current.then(load, load).then((job) => ({ job, context, resultWidth: job.width(context) }));
     return;
   }
   current.then(
