@@ -1,7 +1,8 @@
 // The steps `npm test` runs before vitest: the build, the tests' type-check, the layout check and the lint, each a
 // single-threaded Node program. They run in two lanes side by side, one per core, each lane taking the next step
-// that can start: on two cores about half the wall time of one after another. A step's output is held until it ends and then printed whole, so two steps never
-// interleave their lines; the first failing step's exit code is the script's. The layout check and the lint are
+// that can start: on two cores about half the wall time of one after another. A step's output is held until it ends
+// and then printed whole, so two steps never interleave their lines; the first failing step's exit code is the
+// script's. The layout check and the lint are
 // skipped where no file of the project has changed since each last passed (a fingerprint of paths, sizes and times,
 // as the build and the tests' type-check keep theirs): with their own caches they still cost about 3 s of CPU, most
 // of it loading Prettier, ESLint and their TypeScript parsers. The records live under node_modules/.cache, so a

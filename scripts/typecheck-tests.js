@@ -17,7 +17,11 @@ if (!builtFrom(currentSources())) {
   if (status !== 0) process.exit(status);
 }
 const record = path.join(root, 'node_modules', '.cache', 'reflap', 'test-types.fingerprint');
-const before = sourceFingerprint(['src', 'test'], ['tsconfig.json', 'package.json', 'package-lock.json']);
+// What test/tsconfig.json takes in: the tests, the docs' example scripts, and src (through the build).
+const before = sourceFingerprint(
+  ['src', 'test', 'docs/examples'],
+  ['tsconfig.json', 'package.json', 'package-lock.json'],
+);
 if (recordedFingerprintIs(record, before)) process.exit(0);
 const status = node([createRequire(import.meta.url).resolve('typescript/bin/tsc'), '-p', 'test/tsconfig.json']);
 if (status !== 0) process.exit(status);
